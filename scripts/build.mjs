@@ -1,0 +1,43 @@
+// Builds dist/: the CLI as one bundled file (fast start-up: one file to load, dependencies inlined),
+// the library as an ES module with its dependencies left external, and the type declarations.
+import { build } from "esbuild";
+import { execFileSync } from "node:child_process";
+import { chmodSync, readFileSync, rmSync } from "node:fs";
+import { createRequire } from "node:module";
+
+const require = createRequire(import.meta.url);
+const pkg = JSON.parse(readFileSync(new URL("../package.json", import.meta.url), "utf8"));
+const define = { __BETABOUND_VERSION__: JSON.stringify(pkg.version) };
+
+rmSync("dist", { recursive: true, force: true });
+
+await build({
+  entryPoints: ["src/cli/main.ts"],
+  outfile: "dist/cli.js",
+  bundle: true,
+  platform: "node",
+  format: "esm",
+  target: "node20",
+  define,
+  banner: {
+    js: "#!/usr/bin/env node\nimport { createRequire as __createRequire } from 'node:module'; const require = __createRequire(import.meta.url);",
+  },
+  logLevel: "warning",
+});
+chmodSync("dist/cli.js", 0o755);
+
+await build({
+  entryPoints: ["src/index.ts"],
+  outfile: "dist/index.js",
+  bundle: true,
+  platform: "node",
+  format: "esm",
+  target: "node20",
+  define,
+  packages: "external",
+  logLevel: "warning",
+});
+
+execFileSync(process.execPath, [require.resolve("typescript/bin/tsc"), "-p", "tsconfig.build.json"], {
+  stdio: "inherit",
+});
