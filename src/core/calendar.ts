@@ -1,0 +1,47 @@
+/**
+ * Period-end dates for generated samples, as ISO 8601 "YYYY-MM-DD" strings (UTC calendar).
+ * daily: business days (Monday to Friday, no holiday calendar); weekly: every 7 days; monthly,
+ * quarterly, annual: the last day of the month, quarter or year. The first date is the first period
+ * end on or after `start`.
+ */
+
+export const frequencies = ["daily", "weekly", "monthly", "quarterly", "annual"] as const;
+export type Frequency = (typeof frequencies)[number];
+
+/** Periods per year by frequency (common practice: 252 trading days, 52 weeks, 12, 4, 1). */
+export const periodsPerYear: Record<Frequency, number> = { daily: 252, weekly: 52, monthly: 12, quarterly: 4, annual: 1 };
+
+const dayMs = 86_400_000;
+
+const iso = (time: number): string => new Date(time).toISOString().slice(0, 10);
+
+/** Last day of the month `monthIndex` (0-based, may exceed 11) of `year`, as a UTC time. */
+const monthEnd = (year: number, monthIndex: number): number => Date.UTC(year, monthIndex + 1, 0);
+
+/** `count` period-end dates from `start` ("YYYY-MM-DD"). */
+export function periodDates(frequency: Frequency, start: string, count: number): string[] {
+  const startTime = Date.parse(`${start}T00:00:00Z`);
+  const first = new Date(startTime);
+  const dates: string[] = [];
+  if (frequency === "daily" || frequency === "weekly") {
+    let time = startTime;
+    while (frequency === "daily" && isWeekend(time)) time += dayMs;
+    while (dates.length < count) {
+      dates.push(iso(time));
+      time += frequency === "weekly" ? 7 * dayMs : dayMs;
+      while (frequency === "daily" && isWeekend(time)) time += dayMs;
+    }
+    return dates;
+  }
+  const step = frequency === "monthly" ? 1 : frequency === "quarterly" ? 3 : 12;
+  // First period end on or after start: months ending a quarter are 2, 5, 8, 11; years end in 11.
+  let month = first.getUTCMonth();
+  if (step > 1) month = month + ((step - 1 - (month % step)) % step);
+  for (let k = 0; dates.length < count; k++) dates.push(iso(monthEnd(first.getUTCFullYear(), month + k * step)));
+  return dates;
+}
+
+function isWeekend(time: number): boolean {
+  const day = new Date(time).getUTCDay();
+  return day === 0 || day === 6;
+}

@@ -1,0 +1,62 @@
+/**
+ * Ordinary least squares of y on an intercept and one regressor, with classical standard errors.
+ *
+ * ## Conventions
+ * beta = Sxy / Sxx and alpha = ybar - beta xbar from centred cross-products (never raw sums);
+ * residuals are formed in a second pass, so the residual sum of squares does not come from the
+ * cancellation-prone Syy - Sxy^2/Sxx. s^2 = SSR / (n - 2); se(beta) = s / sqrt(Sxx);
+ * se(alpha) = s sqrt(1/n + xbar^2 / Sxx); t = estimate / se; p two-sided from Student's t with
+ * n - 2 degrees of freedom; R^2 = 1 - SSR / Syy (centred). `residualVariance` is SSR / (n - 1), the
+ * sample variance of the residuals with the same divisor as the moments, so that it equals the
+ * residual variance a structure implies (methods note section 1.5).
+ *
+ * ## References
+ * Greene, W. H., Econometric Analysis, ch. 3-4 (standard results); NIST StRD "Norris" for the check.
+ */
+
+import { compensatedSum, crossProducts } from "./moments.js";
+import { studentTTwoSidedP } from "./studentT.js";
+import type { LineFit } from "./types.js";
+
+/** Fits y = alpha + beta x + e. Needs n >= 3 and a non-constant x (callers check; see solve.ts). */
+export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>): LineFit {
+  const cp = crossProducts([x, y]);
+  const n = cp.n;
+  const [xbar, ybar] = cp.means as [number, number];
+  const sxx = cp.sums[0]![0]!;
+  const sxy = cp.sums[0]![1]!;
+  const syy = cp.sums[1]![1]!;
+  const beta = sxy / sxx;
+  const alpha = ybar - beta * xbar;
+  const ssr = compensatedSum(squaredResiduals(x, y, xbar, ybar, beta));
+  const s2 = ssr / (n - 2);
+  const residualStdError = Math.sqrt(s2);
+  const betaStdErr = residualStdError / Math.sqrt(sxx);
+  const alphaStdErr = residualStdError * Math.sqrt(1 / n + (xbar * xbar) / sxx);
+  const tStat = (estimate: number, se: number): number | null => (se > 0 ? estimate / se : null);
+  const alphaTStat = tStat(alpha, alphaStdErr);
+  const betaTStat = tStat(beta, betaStdErr);
+  const pValue = (t: number | null): number | null => (t === null ? null : studentTTwoSidedP(t, n - 2));
+  return {
+    observations: n,
+    alpha,
+    beta,
+    alphaStdErr,
+    betaStdErr,
+    alphaTStat,
+    betaTStat,
+    alphaPValue: pValue(alphaTStat),
+    betaPValue: pValue(betaTStat),
+    rSquared: syy > 0 ? 1 - ssr / syy : 1,
+    residualVariance: ssr / (n - 1),
+    residualStdError,
+    residualSumOfSquares: ssr,
+  };
+}
+
+function* squaredResiduals(x: ArrayLike<number>, y: ArrayLike<number>, xbar: number, ybar: number, beta: number) {
+  for (let t = 0; t < x.length; t++) {
+    const e = y[t]! - ybar - beta * (x[t]! - xbar);
+    yield e * e;
+  }
+}

@@ -1,0 +1,108 @@
+/**
+ * solve: from aligned return series to moments, CAPM fits, the identified set, its candidate grid and
+ * landmarks. Pure: numbers in, values out.
+ *
+ * Conventions: inputs are per-period returns in decimal units; every output is per period. Moments are
+ * of excess returns (return minus the risk-free return of the same period); the market proxy is
+ * M = w low + (1 - w) high, formed from the excess returns (valid because the weights sum to 1).
+ * Divisor n - 1 throughout.
+ */
+
+import { diagnose, type Diagnostic } from "./diagnostics.js";
+import { candidateGrid, identifiedBounds, marketMoments, type MomentSummary } from "./identify.js";
+import { findLandmarks } from "./landmarks.js";
+import { crossProducts } from "./moments.js";
+import { fitLine } from "./regression.js";
+import { failure, success, type Result } from "./result.js";
+import type { ReturnSample, SampleMoments, SeriesMoments, Solution, SolveOptions } from "./types.js";
+
+export const defaultWeight = 0.5;
+export const defaultSteps = 11;
+export const minimumObservations = 3;
+
+/** Solves the identified set for one sample. Fails (with diagnostics) only when nothing can be computed. */
+export function solve(sample: ReturnSample, options: SolveOptions = {}): Result<Solution, Diagnostic[]> {
+  const weight = options.weight ?? defaultWeight;
+  const steps = options.steps ?? defaultSteps;
+  if (!(weight > 0 && weight < 1)) throw new RangeError(`solve: weight must lie in (0, 1), got ${weight}`);
+  if (!(Number.isInteger(steps) && steps >= 2)) throw new RangeError(`solve: steps must be an integer >= 2, got ${steps}`);
+  if (sample.low.length !== sample.high.length) throw new RangeError("solve: low and high differ in length");
+
+  const n = sample.low.length;
+  if (n < minimumObservations) {
+    return failure([diagnose({ code: "too-few-observations", observations: n, minimum: minimumObservations })]);
+  }
+  const { low, high, market } = excessSeries(sample, weight);
+  const cp = crossProducts([low, high, market]);
+  const variance = (i: number): number => cp.sums[i]![i]! / (n - 1);
+  const covariance = (i: number, j: number): number => cp.sums[i]![j]! / (n - 1);
+  const names = ["low", "high", "market"] as const;
+  const constant = names.findIndex((_, i) => variance(i) === 0);
+  if (constant >= 0) return failure([diagnose({ code: "zero-variance", series: names[constant]! })]);
+
+  const seriesMoments = (i: number): SeriesMoments => {
+    const v = variance(i);
+    const stdev = Math.sqrt(v);
+    return { mean: cp.means[i]!, variance: v, stdev, sharpeRatio: stdev > 0 ? cp.means[i]! / stdev : null };
+  };
+  const correlation = (i: number, j: number): number => cp.sums[i]![j]! / Math.sqrt(cp.sums[i]![i]! * cp.sums[j]![j]!);
+  const moments: SampleMoments = {
+    low: seriesMoments(0),
+    high: seriesMoments(1),
+    market: seriesMoments(2),
+    covariance: { lowHigh: covariance(0, 1), lowMarket: covariance(0, 2), highMarket: covariance(1, 2) },
+    correlation: { lowHigh: correlation(0, 1), lowMarket: correlation(0, 2), highMarket: correlation(1, 2) },
+  };
+  const capm = { low: fitLine(market, low), high: fitLine(market, high) };
+  const summary: MomentSummary = {
+    weight,
+    lowMean: moments.low.mean,
+    highMean: moments.high.mean,
+    lowVariance: moments.low.variance,
+    highVariance: moments.high.variance,
+    covariance: moments.covariance.lowHigh,
+  };
+  const identified = identifySet(summary, steps, moments.market.stdev / Math.sqrt(n));
+  return success({ observations: n, weight, moments, capm, ...identified });
+}
+
+/** The identified set, grid and landmarks from moments alone (shared with the forward model). */
+export function identifySet(
+  summary: MomentSummary,
+  steps: number,
+  marketMeanStdErr: number,
+): Pick<Solution, "bounds" | "grid" | "landmarks" | "diagnostics"> {
+  const diagnostics: Diagnostic[] = [];
+  const c = summary.covariance;
+  const correlation = c / Math.sqrt(summary.lowVariance * summary.highVariance);
+  if (!(c > 0)) {
+    diagnostics.push(diagnose({ code: "nonpositive-covariance", covariance: c, correlation }));
+    return { bounds: null, grid: [], landmarks: null, diagnostics };
+  }
+  if (Math.abs(correlation) >= 1 - 1e-12) diagnostics.push(diagnose({ code: "perfect-correlation", correlation }));
+  const bounds = identifiedBounds(summary);
+  if (bounds.lowBeta.max > 1) diagnostics.push(diagnose({ code: "low-beta-above-one", upperBound: bounds.lowBeta.max }));
+  const { landmarks, diagnostics: landmarkDiagnostics } = findLandmarks(summary, bounds, marketMeanStdErr);
+  diagnostics.push(...landmarkDiagnostics);
+  return { bounds, grid: candidateGrid(summary, bounds, steps), landmarks, diagnostics };
+}
+
+function excessSeries(sample: ReturnSample, weight: number) {
+  const n = sample.low.length;
+  const rf = sample.riskFree ?? 0;
+  if (typeof rf !== "number" && rf.length !== n) throw new RangeError("solve: riskFree differs in length");
+  const low = new Float64Array(n);
+  const high = new Float64Array(n);
+  const market = new Float64Array(n);
+  for (let t = 0; t < n; t++) {
+    const r = typeof rf === "number" ? rf : rf[t]!;
+    const l = sample.low[t]! - r;
+    const h = sample.high[t]! - r;
+    low[t] = l;
+    high[t] = h;
+    market[t] = weight * l + (1 - weight) * h;
+  }
+  return { low, high, market };
+}
+
+export { marketMoments };
