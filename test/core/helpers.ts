@@ -1,0 +1,38 @@
+/** Small helpers shared by the test/core suites (not a test file itself). */
+
+import { expect } from "vitest";
+import type { Diagnostic } from "../../src/core/diagnostics.js";
+import { solve } from "../../src/core/solve.js";
+import type { Candidate, IdentifiedBounds, Landmarks, ReturnSample, Solution, SolveOptions } from "../../src/core/types.js";
+
+/** Runs solve and fails the test, listing the diagnostics, unless it succeeded. */
+export function solveOk(sample: ReturnSample, options?: SolveOptions): Solution {
+  const result = solve(sample, options);
+  if (!result.ok) expect.fail(`solve failed: ${result.issues.map((d) => d.code).join(", ")}`);
+  return result.value;
+}
+
+/** solveOk, and the identified set must exist (positive covariance). */
+export function solveWithSet(
+  sample: ReturnSample,
+  options?: SolveOptions,
+): Solution & { readonly bounds: IdentifiedBounds; readonly landmarks: Landmarks } {
+  const solution = solveOk(sample, options);
+  expect(solution.bounds, "bounds").not.toBeNull();
+  expect(solution.landmarks, "landmarks").not.toBeNull();
+  return solution as Solution & { readonly bounds: IdentifiedBounds; readonly landmarks: Landmarks };
+}
+
+export function nonNull<T>(value: T | null | undefined, what: string): T {
+  expect(value, what).not.toBeNull();
+  expect(value, what).not.toBeUndefined();
+  return value as T;
+}
+
+export function codes(diagnostics: readonly Diagnostic[]): string[] {
+  return diagnostics.map((d) => d.code);
+}
+
+export function gridAt(grid: readonly Candidate[], index: number): Candidate {
+  return nonNull(grid[index], `grid[${index}]`);
+}
