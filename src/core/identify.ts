@@ -109,6 +109,7 @@ export function structureAt(lowBeta: number, m: MomentSummary, capmBetas = marke
   // V_low V_high - C^2 expanded without cancellation: b_l^2 phi s_h + b_h^2 phi s_l + s_l s_h.
   const determinant = lowBeta * lowBeta * phi * sHigh + highBeta * highBeta * phi * sLow + sLow * sHigh;
   const lambda = capmBetas.mean;
+  const expectedLowAlpha = (lowBeta - capmBetas.lowCapmBeta) * lambda;
   const sharpe = (beta: number, variance: number): number | null =>
     variance > 0 ? (beta * lambda) / Math.sqrt(variance) : null;
   return {
@@ -126,8 +127,9 @@ export function structureAt(lowBeta: number, m: MomentSummary, capmBetas = marke
       lowResidualVariance: (v * v * determinant) / marketVar,
       highResidualVariance: (w * w * determinant) / marketVar,
     },
-    expectedLowAlpha: (lowBeta - capmBetas.lowCapmBeta) * lambda,
-    expectedHighAlpha: (highBeta - capmBetas.highCapmBeta) * lambda,
+    expectedLowAlpha,
+    // w alpha_low + (1 - w) alpha_high = 0 identically (section 1.6); using it keeps the pair exact.
+    expectedHighAlpha: (-w * expectedLowAlpha) / v,
     impliedLowSharpe: sharpe(lowBeta, lowVar),
     impliedHighSharpe: sharpe(highBeta, highVar),
     insideSet: sLow >= 0 && sHigh >= 0 && phi > 0,
