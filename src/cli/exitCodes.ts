@@ -1,0 +1,20 @@
+/**
+ * The exit codes of every command: one table, documented in the README. 0 only when the job fully
+ * succeeded; warnings do not change the code.
+ */
+export const exitCodes = {
+  /** The job succeeded (diagnostics of severity warning or info may have been reported). */
+  ok: 0,
+  /** The command line is invalid: unknown command or option, bad option value, missing input. */
+  usage: 1,
+  /** The input cannot be read or is invalid: missing file, parse error, too few rows, constant series. */
+  input: 2,
+  /** The data were read but the model is rejected: no structure fits (no identified set). */
+  rejected: 3,
+  /** The output could not be written (the previous file, if any, is left untouched). */
+  output: 4,
+  /** An internal error: a bug in betabound. Please report it with the command line. */
+  internal: 70,
+} as const;
+
+export type ExitCode = (typeof exitCodes)[keyof typeof exitCodes];

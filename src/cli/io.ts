@@ -1,0 +1,13 @@
+/** The CLI's seams to the outside world; tests replace them, `main.ts` binds them to the process. */
+import type { Result } from "../core/result.js";
+import type { CliIssue } from "./messages.js";
+
+export interface CliIo {
+  writeOut(text: string): void;
+  writeErr(text: string): void;
+  readInput(path: string): Promise<Result<Uint8Array, CliIssue>>;
+  writeOutput(path: string, text: string): Promise<Result<void, CliIssue>>;
+  readonly stdoutIsTerminal: boolean;
+  readonly stdinIsTerminal: boolean;
+  readonly env: Readonly<Record<string, string | undefined>>;
+}

@@ -1,0 +1,42 @@
+/**
+ * Failures the CLI itself detects (reading and writing files, option values), as typed values with
+ * stable codes. All of their wording is here.
+ */
+
+export type CliIssue =
+  | { readonly code: "no-input" }
+  | { readonly code: "read-failed"; readonly path: string; readonly reason: string }
+  | { readonly code: "write-failed"; readonly path: string; readonly reason: string }
+  | { readonly code: "invalid-option"; readonly option: string; readonly value: string; readonly expected: string }
+  | { readonly code: "missing-option"; readonly option: string; readonly hint: string };
+
+export function describeCliIssue(issue: CliIssue): string {
+  switch (issue.code) {
+    case "no-input":
+      return "no input: give a CSV file path, or '-' and pipe the data on standard input";
+    case "read-failed":
+      return `cannot read '${issue.path}': ${issue.reason}; check the path and its permissions`;
+    case "write-failed":
+      return `cannot write '${issue.path}': ${issue.reason}; nothing was written and any existing file is unchanged`;
+    case "invalid-option":
+      return `option '${issue.option}' argument '${issue.value}' is invalid: ${issue.expected}`;
+    case "missing-option":
+      return `option '${issue.option}' is required: ${issue.hint}`;
+  }
+}
+
+/** A short reason from a Node.js file-system error code. */
+export function fileErrorReason(error: unknown): string {
+  const code = typeof error === "object" && error !== null && "code" in error ? String(error.code) : "";
+  const reasons: Record<string, string> = {
+    ENOENT: "no such file or directory",
+    EACCES: "permission denied",
+    EPERM: "operation not permitted",
+    EISDIR: "it is a directory",
+    ENOTDIR: "a part of the path is not a directory",
+    EROFS: "read-only file system",
+    ENOSPC: "no space left on the device",
+    EMFILE: "too many open files",
+  };
+  return reasons[code] ?? (error instanceof Error ? error.message : String(error));
+}

@@ -1,0 +1,76 @@
+/**
+ * The options of `solve`: one set of constants feeds commander's choices and defaults, the zod schema
+ * that validates the merged options, and the TypeScript types.
+ */
+import { z } from "zod";
+import { frequencies } from "../core/calendar.js";
+import { defaultSteps, defaultWeight } from "../core/solve.js";
+import { reportFormats } from "../report/types.js";
+
+export const unitChoices = ["decimal", "percent"] as const;
+export type Units = (typeof unitChoices)[number];
+export { reportFormats };
+
+export const solveDefaults = {
+  weight: defaultWeight,
+  steps: defaultSteps,
+  format: "text",
+  units: "decimal",
+} as const satisfies { weight: number; steps: number; format: (typeof reportFormats)[number]; units: Units };
+
+/** Largest grid the CLI accepts: a sanity limit on output size, not a numerical one. */
+export const maximumSteps = 100_000;
+
+export const solveOptionsSchema = z
+  .object({
+    low: z.string().min(1),
+    high: z.string().min(1),
+    date: z.string().min(1).optional(),
+    weight: z.number().gt(0).lt(1),
+    rf: z.string().min(1).optional(),
+    units: z.enum(unitChoices),
+    steps: z.number().int().min(2).max(maximumSteps),
+    format: z.enum(reportFormats),
+    output: z.string().min(1).optional(),
+    allowExtreme: z.boolean(),
+  })
+  .strict();
+
+export type SolveCliOptions = z.infer<typeof solveOptionsSchema>;
+
+export const simulateFormats = ["csv", "jsonl"] as const;
+
+/** The options of `simulate` after commander's parsing (each number already checked by its argParser). */
+export const simulateOptionsSchema = z
+  .object({
+    lowBeta: z.number().positive(),
+    factorVol: z.number().positive(),
+    factorMean: z.number(),
+    lowNoiseVol: z.number().nonnegative(),
+    highNoiseVol: z.number().nonnegative(),
+    weight: z.number().gt(0).lt(1),
+    rf: z.number(),
+    periods: z.number().int().positive(),
+    frequency: z.enum(frequencies),
+    start: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "must be a date YYYY-MM-DD").refine((s) => !Number.isNaN(Date.parse(s)), "must be a real date"),
+    seed: z.number().int().nonnegative(),
+    tails: z.number().gt(2).optional(),
+    noiseAr: z.number().gt(-1).lt(1).optional(),
+    garch: z.object({ alpha: z.number().nonnegative(), beta: z.number().nonnegative() }).optional(),
+    names: z.tuple([z.string().min(1), z.string().min(1), z.string().min(1)]),
+    digits: z.number().int().min(1).max(17).optional(),
+    format: z.enum(simulateFormats),
+    output: z.string().min(1).optional(),
+  })
+  .strict()
+  .refine((o) => o.lowBeta < 1 / o.weight, { path: ["lowBeta"], message: "must be below 1/w so that the high book's beta is positive" });
+
+export type SimulateCliOptions = z.infer<typeof simulateOptionsSchema>;
+
+/** The first zod issue as a CLI usage message: the option in kebab case and what is wrong. */
+export function describeOptionIssue(error: z.ZodError): string {
+  const issue = error.issues[0];
+  const key = String(issue?.path[0] ?? "");
+  const flag = key.replace(/[A-Z]/g, (c) => `-${c.toLowerCase()}`);
+  return `option '--${flag}' is invalid: ${issue?.message ?? "unknown problem"}`;
+}

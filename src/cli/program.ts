@@ -1,0 +1,45 @@
+/**
+ * The command-line program. `run(argv, io)` parses, validates and dispatches, and returns the exit
+ * code; it never calls process.exit, so tests drive it in process.
+ */
+import { Command, CommanderError } from "commander";
+import { exitCodes, type ExitCode } from "./exitCodes.js";
+import type { CliIo } from "./io.js";
+import { simulateCommand } from "./simulateCommand.js";
+import { solveCommand } from "./solveCommand.js";
+import { version } from "./version.js";
+
+function buildProgram(io: CliIo, setExit: (code: ExitCode) => void): Command {
+  const program = new Command("betabound")
+    .description("Bounds on structural betas and noise variances for a low-beta / high-beta portfolio pair.")
+    .version(version, "-V, --version")
+    .showSuggestionAfterError(true)
+    .configureOutput({ writeOut: io.writeOut, writeErr: io.writeErr })
+    .exitOverride();
+  program.addCommand(solveCommand(io, setExit));
+  program.addCommand(simulateCommand(io, setExit));
+  return program;
+}
+
+/** Parses `argv` (without the node and script entries), runs the command and returns its exit code. */
+export async function run(argv: readonly string[], io: CliIo): Promise<ExitCode> {
+  let exitCode: ExitCode = exitCodes.ok;
+  const program = buildProgram(io, (code) => {
+    exitCode = code;
+  });
+  for (const command of program.commands) command.exitOverride().configureOutput({ writeOut: io.writeOut, writeErr: io.writeErr });
+  try {
+    await program.parseAsync([...argv], { from: "user" });
+  } catch (error) {
+    if (error instanceof CommanderError) {
+      const helpOrVersion = ["commander.helpDisplayed", "commander.version", "commander.help"].includes(error.code);
+      return helpOrVersion ? exitCodes.ok : exitCodes.usage;
+    }
+    throw error;
+  }
+  if (argv.length === 0) {
+    io.writeErr(program.helpInformation());
+    return exitCodes.usage;
+  }
+  return exitCode;
+}

@@ -1,0 +1,26 @@
+import { failure, success } from "../../src/core/result.js";
+import type { CliIo } from "../../src/cli/io.js";
+
+/** An in-memory CliIo: files by name, captured stdout/stderr and written outputs. */
+export function fakeIo(files: Record<string, string> = {}, settings: Partial<Pick<CliIo, "stdoutIsTerminal" | "stdinIsTerminal" | "env">> = {}) {
+  const out: string[] = [];
+  const err: string[] = [];
+  const written = new Map<string, string>();
+  const io: CliIo = {
+    writeOut: (text) => void out.push(text),
+    writeErr: (text) => void err.push(text),
+    readInput: async (path) => {
+      const text = files[path];
+      return text === undefined ? failure({ code: "read-failed", path, reason: "no such file or directory" }) : success(new TextEncoder().encode(text));
+    },
+    writeOutput: async (path, text) => {
+      if (path.startsWith("/unwritable/")) return failure({ code: "write-failed", path, reason: "permission denied" });
+      written.set(path, text);
+      return success(undefined);
+    },
+    stdoutIsTerminal: settings.stdoutIsTerminal ?? false,
+    stdinIsTerminal: settings.stdinIsTerminal ?? false,
+    env: settings.env ?? {},
+  };
+  return { io, stdout: () => out.join(""), stderr: () => err.join(""), written };
+}
