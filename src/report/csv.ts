@@ -1,0 +1,75 @@
+/**
+ * The candidate grid and the landmarks as CSV (RFC 4180 quoting, LF line endings): one row per
+ * structure, the first column `point` naming it (`grid-1` .. `grid-N`, then the landmark names).
+ * Numbers are written so that they parse back to the identical double (String(x), and "-0" for
+ * negative zero); a null is an empty field; booleans are `true` / `false`.
+ */
+
+import { landmarkNames, type Candidate } from "../core/types.js";
+import type { RenderOptions, SolveReport } from "./types.js";
+
+type Cell = number | boolean | null;
+
+/** The data columns, named as the JSON candidate fields (impliedCapm.* flattened to impliedCapm*). */
+export const candidateColumns: readonly (readonly [name: string, value: (c: Candidate) => Cell])[] = [
+  ["lowBeta", (c) => c.lowBeta],
+  ["highBeta", (c) => c.highBeta],
+  ["factorVariance", (c) => c.factorVariance],
+  ["lowNoiseVariance", (c) => c.lowNoiseVariance],
+  ["highNoiseVariance", (c) => c.highNoiseVariance],
+  ["noiseShare", (c) => c.noiseShare],
+  ["lowFactorRSquared", (c) => c.lowFactorRSquared],
+  ["highFactorRSquared", (c) => c.highFactorRSquared],
+  ["impliedCapmLowBeta", (c) => c.impliedCapm.lowBeta],
+  ["impliedCapmHighBeta", (c) => c.impliedCapm.highBeta],
+  ["impliedCapmLowResidualVariance", (c) => c.impliedCapm.lowResidualVariance],
+  ["impliedCapmHighResidualVariance", (c) => c.impliedCapm.highResidualVariance],
+  ["expectedLowAlpha", (c) => c.expectedLowAlpha],
+  ["expectedHighAlpha", (c) => c.expectedHighAlpha],
+  ["impliedLowSharpe", (c) => c.impliedLowSharpe],
+  ["impliedHighSharpe", (c) => c.impliedHighSharpe],
+  ["insideSet", (c) => c.insideSet],
+];
+
+/** The header row's names, `point` first. */
+export const csvHeader: readonly string[] = ["point", ...candidateColumns.map(([name]) => name)];
+
+/** A number in the shortest form that parses back to the same double, keeping the sign of zero. */
+export function exactNumber(x: number): string {
+  if (!Number.isFinite(x)) throw new RangeError(`renderCsv: non-finite number ${x}`);
+  return Object.is(x, -0) ? "-0" : String(x);
+}
+
+/** Quotes a field when RFC 4180 requires it (comma, double quote, CR or LF), doubling inner quotes. */
+export function csvField(text: string): string {
+  return /[",\r\n]/.test(text) ? `"${text.replaceAll('"', '""')}"` : text;
+}
+
+function cellText(value: Cell): string {
+  if (value === null) return "";
+  return typeof value === "boolean" ? String(value) : exactNumber(value);
+}
+
+function row(point: string, candidate: Candidate): string {
+  return [point, ...candidateColumns.map(([, value]) => cellText(value(candidate)))].map(csvField).join(",");
+}
+
+/**
+ * Renders the grid and the landmarks as CSV. With no identified set (the model is rejected) the
+ * output is the header alone. A landmark the core did not compute (returnImplied null) has no row.
+ * `options` is accepted for a uniform renderer signature; CSV is never coloured.
+ */
+export function renderCsv(report: SolveReport, _options: RenderOptions): string {
+  const { bounds, grid, landmarks } = report.solution;
+  const lines = [csvHeader.map(csvField).join(",")];
+  if (bounds !== null) {
+    grid.forEach((candidate, i) => lines.push(row(`grid-${i + 1}`, candidate)));
+    if (landmarks !== null) {
+      for (const name of landmarkNames) {
+        const candidate = landmarks[name];
+        if (candidate !== null) lines.push(row(name, candidate));
+      }
+    }
+  }
+  return `${lines.join("\n")}\n`;
+}

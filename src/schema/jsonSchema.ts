@@ -1,0 +1,13 @@
+/**
+ * The JSON Schema (draft 2020-12) of the solve output, generated from the zod schema so that the two
+ * can never disagree.
+ */
+
+import * as z from "zod";
+import { outputRegistry } from "./registry.js";
+import { solveOutputSchema } from "./solveOutput.js";
+
+/** JSON Schema of what `renderJson` writes, with shared parts under $defs. A fresh object per call. */
+export function solveOutputJsonSchema(): Record<string, unknown> {
+  return z.toJSONSchema(solveOutputSchema, { target: "draft-2020-12", metadata: outputRegistry, io: "output" });
+}

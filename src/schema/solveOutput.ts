@@ -1,0 +1,64 @@
+/**
+ * Zod 4 schema of the JSON document `renderJson` writes (schemaVersion 1). This is the contract for
+ * anyone reading the output: every object is strict, numbers are finite, absent values are null.
+ */
+
+import * as z from "zod";
+import { boundsSchema, candidateSchema, capmSchema, diagnosticSchema, landmarksSchema, momentsSchema } from "./parts.js";
+import { doc } from "./registry.js";
+
+export const riskFreeSchema = z.discriminatedUnion("kind", [
+  z.strictObject({ kind: z.literal("none") }),
+  z.strictObject({ kind: z.literal("constant"), rate: doc(z.number(), "risk-free return per period, decimal") }),
+  z.strictObject({ kind: z.literal("column"), column: z.string() }),
+]);
+
+export const inputSchema = doc(
+  z.strictObject({
+    source: doc(z.string(), 'file name as given, or "<stdin>"'),
+    dateColumn: z.string(),
+    lowColumn: z.string(),
+    highColumn: z.string(),
+    riskFree: riskFreeSchema,
+    units: doc(z.enum(["decimal", "percent"]), "units of the file's numbers; the output is always decimal"),
+    firstDate: z.string(),
+    lastDate: z.string(),
+    rowsRead: z.int().nonnegative(),
+    rowsDropped: z.int().nonnegative(),
+    droppedDates: z.array(z.string()),
+    frequency: z.strictObject({ name: z.string(), periodsPerYear: z.number().positive() }).nullable(),
+  }),
+  "where the numbers came from",
+  "Input",
+);
+
+export const conventionsSchema = z.strictObject({
+  units: z.literal("decimal, per period"),
+  divisor: z.literal("n - 1"),
+  excessReturns: doc(z.string(), "what the returns are in excess of"),
+  marketProxy: z.literal("M = w low + (1 - w) high"),
+  marketProxyWeight: doc(z.number().gt(0).lt(1), "w, the weight of the low book in the market proxy"),
+  normalisation: z.literal("w b_low + (1 - w) b_high = 1"),
+  assumptions: doc(z.array(z.string()), "the model's maintained assumptions"),
+});
+
+export const solveOutputSchema = doc(
+  z.strictObject({
+    schemaVersion: z.literal(1),
+    tool: z.strictObject({ name: z.literal("betabound"), version: z.string() }),
+    input: inputSchema,
+    observations: doc(z.int().positive(), "aligned observations used"),
+    weight: doc(z.number().gt(0).lt(1), "w, the weight of the low book in the market proxy"),
+    moments: doc(momentsSchema, "sample moments of the excess returns, per period"),
+    capm: doc(capmSchema, "CAPM regressions of each book on the market proxy"),
+    bounds: boundsSchema.nullable(),
+    grid: doc(z.array(candidateSchema), "candidates evenly spaced in lowBeta over the set; empty when rejected"),
+    landmarks: landmarksSchema.nullable(),
+    diagnostics: z.array(diagnosticSchema),
+    conventions: conventionsSchema,
+  }),
+  "betabound solve output",
+);
+
+/** The parsed (validated) JSON output. */
+export type SolveOutputJson = z.infer<typeof solveOutputSchema>;
