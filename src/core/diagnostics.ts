@@ -15,7 +15,8 @@ export type DiagnosticDetail =
   | { readonly code: "perfect-correlation"; readonly correlation: number }
   | { readonly code: "low-beta-above-one"; readonly upperBound: number }
   | { readonly code: "market-mean-near-zero"; readonly marketMean: number; readonly tStat: number }
-  | { readonly code: "return-implied-outside-set"; readonly lowBeta: number; readonly min: number; readonly max: number };
+  | { readonly code: "return-implied-outside-set"; readonly lowBeta: number; readonly min: number; readonly max: number }
+  | { readonly code: "degenerate-moments"; readonly quantity: string };
 
 export type DiagnosticCode = DiagnosticDetail["code"];
 
@@ -34,6 +35,7 @@ const severityOf: Record<DiagnosticCode, Severity> = {
   "low-beta-above-one": "warning",
   "market-mean-near-zero": "info",
   "return-implied-outside-set": "warning",
+  "degenerate-moments": "error",
 };
 
 const fmt = (x: number): string => (Number.isFinite(x) ? Number(x.toPrecision(6)).toString() : String(x));
@@ -66,6 +68,11 @@ export function describeDiagnostic(detail: DiagnosticDetail): string {
       return (
         `the return-implied low structural beta ${fmt(detail.lowBeta)} lies outside the identified set ` +
         `[${fmt(detail.min)}, ${fmt(detail.max)}]: mean returns are not consistent with one priced factor and uncorrelated noise`
+      );
+    case "degenerate-moments":
+      return (
+        `the ${detail.quantity} cannot be represented in double precision (the variances and the covariance differ by ` +
+        "hundreds of orders of magnitude), so no identified set is reported; check the units and the columns"
       );
   }
 }

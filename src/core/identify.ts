@@ -70,14 +70,22 @@ export function lowBetaFromRatio(ratio: number, weight: number): number {
 export function identifiedBounds(m: MomentSummary): IdentifiedBounds {
   const w = m.weight;
   const c = m.covariance;
-  const lower = c / ((1 - w) * m.highVariance + w * c);
-  const upper = Math.max(lower, m.lowVariance / (w * m.lowVariance + (1 - w) * c));
-  const phiAt = (b: number): number => c / (b * highBetaFromLow(b, w));
+  const lowerDenominator = (1 - w) * m.highVariance + w * c;
+  const upperDenominator = w * m.lowVariance + (1 - w) * c;
+  const lower = c / lowerDenominator;
+  const upper = Math.max(lower, m.lowVariance / upperDenominator);
+  // b_high at the two ends in closed form: 1 - w b_low cancels badly when C is tiny next to V_low.
+  const highAtUpper = Math.min(c / upperDenominator, m.highVariance / lowerDenominator);
+  const highAtLower = m.highVariance / lowerDenominator;
+  const phiAt = (b: number, h: number): number => c / (b * h);
   const peak = Math.min(Math.max(1 / (2 * w), lower), upper);
   return {
     lowBeta: { min: lower, max: upper },
-    highBeta: { min: highBetaFromLow(upper, w), max: highBetaFromLow(lower, w) },
-    factorVariance: { min: phiAt(peak), max: Math.max(phiAt(lower), phiAt(upper)) },
+    highBeta: { min: highAtUpper, max: highAtLower },
+    factorVariance: {
+      min: phiAt(peak, highBetaFromLow(peak, w)),
+      max: Math.max(phiAt(lower, highAtLower), phiAt(upper, highAtUpper)),
+    },
   };
 }
 
@@ -93,11 +101,16 @@ const snap = (value: number, scale: number): number => (Math.abs(value) <= round
  * The structure at a given low structural beta, with what it implies for the CAPM regressions.
  * Defined for 0 < b_low < 1/w (both structural betas positive); `insideSet` says whether both noise
  * variances are non-negative. `capmBetas` are the observed CAPM betas, used for the expected alphas.
+ * `highBeta` may be passed when it is known more accurately than 1 - w b_low allows (at the bounds).
  */
-export function structureAt(lowBeta: number, m: MomentSummary, capmBetas = marketMoments(m)): Candidate {
+export function structureAt(
+  lowBeta: number,
+  m: MomentSummary,
+  capmBetas = marketMoments(m),
+  highBeta = highBetaFromLow(lowBeta, m.weight),
+): Candidate {
   const w = m.weight;
   const v = 1 - w;
-  const highBeta = highBetaFromLow(lowBeta, w);
   const c = m.covariance;
   const phi = c / (lowBeta * highBeta);
   const sLow = snap(m.lowVariance - (lowBeta * c) / highBeta, m.lowVariance);
@@ -138,12 +151,16 @@ export function structureAt(lowBeta: number, m: MomentSummary, capmBetas = marke
 
 /** `steps` candidates with b_low evenly spaced over the set, both endpoints included exactly. */
 export function candidateGrid(m: MomentSummary, bounds: IdentifiedBounds, steps: number): Candidate[] {
-  const { min, max } = bounds.lowBeta;
+  const { lowBeta, highBeta } = bounds;
   const market = marketMoments(m);
   const grid: Candidate[] = [];
   for (let k = 0; k < steps; k++) {
-    const b = k === steps - 1 ? max : min + ((max - min) * k) / (steps - 1);
-    grid.push(structureAt(b, m, market));
+    const last = k === steps - 1;
+    const fraction = k / (steps - 1);
+    // b_high is linear in b_low, so it is interpolated between its exact end values.
+    const low = last ? lowBeta.max : lowBeta.min + (lowBeta.max - lowBeta.min) * fraction;
+    const high = last ? highBeta.min : highBeta.max + (highBeta.min - highBeta.max) * fraction;
+    grid.push(structureAt(low, m, market, high));
   }
   return grid;
 }

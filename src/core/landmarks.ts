@@ -28,8 +28,8 @@ export function findLandmarks(m: MomentSummary, bounds: IdentifiedBounds, market
   const returnImplied = returnImpliedCandidate(m, bounds, market.mean, marketMeanStdErr, diagnostics);
   return {
     landmarks: {
-      lowNoiseFree: at(bounds.lowBeta.max),
-      highNoiseFree: at(bounds.lowBeta.min),
+      lowNoiseFree: structureAt(bounds.lowBeta.max, m, market, bounds.highBeta.min),
+      highNoiseFree: structureAt(bounds.lowBeta.min, m, market, bounds.highBeta.max),
       equalNoise: at(clamp(equalNoiseLowBeta(m), bounds.lowBeta.min, bounds.lowBeta.max)),
       capmConsistent: at(clamp(market.lowCapmBeta, bounds.lowBeta.min, bounds.lowBeta.max)),
       returnImplied,

@@ -84,7 +84,24 @@ export function identifySet(
   if (bounds.lowBeta.max > 1) diagnostics.push(diagnose({ code: "low-beta-above-one", upperBound: bounds.lowBeta.max }));
   const { landmarks, diagnostics: landmarkDiagnostics } = findLandmarks(summary, bounds, marketMeanStdErr);
   diagnostics.push(...landmarkDiagnostics);
-  return { bounds, grid: candidateGrid(summary, bounds, steps), landmarks, diagnostics };
+  const grid = candidateGrid(summary, bounds, steps);
+  const nonFinite = firstNonFinite({ bounds, grid, landmarks });
+  if (nonFinite !== null) {
+    diagnostics.push(diagnose({ code: "degenerate-moments", quantity: nonFinite }));
+    return { bounds: null, grid: [], landmarks: null, diagnostics };
+  }
+  return { bounds, grid, landmarks, diagnostics };
+}
+
+/** The path of the first NaN or infinite number in `value`, or null: the core never reports either. */
+function firstNonFinite(value: unknown, path = ""): string | null {
+  if (typeof value === "number") return Number.isFinite(value) ? null : path;
+  if (value === null || typeof value !== "object") return null;
+  for (const [key, child] of Object.entries(value)) {
+    const found = firstNonFinite(child, path === "" ? key : `${path}.${key}`);
+    if (found !== null) return found;
+  }
+  return null;
 }
 
 function excessSeries(sample: ReturnSample, weight: number) {
