@@ -139,4 +139,24 @@ describe("solve diagnostics, one rule each", () => {
     // Means (5, 7): b_mu = 5/6, inside [5/7, 8/9]: no warning.
     expect(codes(solveOk(exampleA(5, 7)).diagnostics)).not.toContain("return-implied-outside-set");
   });
+
+  test('moments too far apart for double precision: the error "degenerate-moments", no set, and never a non-finite number', () => {
+    // Found by the report tests' property search: C is ~1e-90 of V_low, so phi = C / (b_low b_high)
+    // at the peak of b_low b_high underflows relative to the rest (there is no published value here).
+    const result = solve({ low: [0, 0, 0, 3.96e-10, 0, 0, 0, 0], high: [0, 0, 0, 0, 0, -7.3e-80, 0, 0] }, { weight: 0.05, steps: 2 });
+    expect(result.ok).toBe(true);
+    if (!result.ok) return;
+    expect(result.value.bounds).toBeNull();
+    expect(result.value.grid).toEqual([]);
+    const d = find(result.value.diagnostics, "degenerate-moments");
+    expect(d.severity).toBe("error");
+    const numbers: number[] = [];
+    const walk = (v: unknown): void => {
+      if (typeof v === "number") numbers.push(v);
+      else if (v !== null && typeof v === "object") Object.values(v).forEach(walk);
+    };
+    walk(result.value);
+    expect(numbers.length).toBeGreaterThan(20);
+    expect(numbers.filter((x) => !Number.isFinite(x))).toEqual([]);
+  });
 });
