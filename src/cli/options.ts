@@ -74,3 +74,21 @@ export function describeOptionIssue(error: z.ZodError): string {
   const flag = key.replace(/[A-Z]/g, (c) => `-${c.toLowerCase()}`);
   return `option '--${flag}' is invalid: ${issue?.message ?? "unknown problem"}`;
 }
+
+/** The options of `implied`: a structure (per period, decimal) and the report settings. */
+export const impliedOptionsSchema = z
+  .object({
+    lowBeta: z.number().positive(),
+    factorVol: z.number().positive(),
+    factorMean: z.number(),
+    lowNoiseVol: z.number().nonnegative(),
+    highNoiseVol: z.number().nonnegative(),
+    weight: z.number().gt(0).lt(1),
+    steps: z.number().int().min(2).max(maximumSteps),
+    format: z.enum(reportFormats),
+    output: z.string().min(1).optional(),
+  })
+  .strict()
+  .refine((o) => o.lowBeta < 1 / o.weight, { path: ["lowBeta"], message: "must be below 1/w so that the high book's beta is positive" });
+
+export type ImpliedCliOptions = z.infer<typeof impliedOptionsSchema>;

@@ -10,7 +10,7 @@ import { parseDecimal } from "../input/numbers.js";
 import { anyNumber, nameList, nonNegativeNumber, numberArgument, openUnitInterval, positiveNumber, wholeNumber } from "./arguments.js";
 import { exitCodes, type ExitCode } from "./exitCodes.js";
 import type { CliIo } from "./io.js";
-import { describeCliIssue } from "./messages.js";
+import { emit } from "./emit.js";
 import { describeOptionIssue, simulateFormats, simulateOptionsSchema, type SimulateCliOptions } from "./options.js";
 
 export async function runSimulate(options: SimulateCliOptions, io: CliIo): Promise<ExitCode> {
@@ -33,14 +33,7 @@ export async function runSimulate(options: SimulateCliOptions, io: CliIo): Promi
   const sample = simulateSample(structure, simulation);
   const dates = periodDates(options.frequency, options.start, options.periods);
   const text = options.format === "csv" ? toCsv(dates, sample.low, sample.high, options) : toJsonLines(dates, sample.low, sample.high, options);
-  if (options.output === undefined) {
-    io.writeOut(text);
-    return exitCodes.ok;
-  }
-  const written = await io.writeOutput(options.output, text);
-  if (written.ok) return exitCodes.ok;
-  io.writeErr(`error: ${describeCliIssue(written.issues)}\n`);
-  return exitCodes.output;
+  return emit(io, options.output, text);
 }
 
 /** Fixed decimals when asked (e.g. 6 for a realistic export), else the shortest exact form. */

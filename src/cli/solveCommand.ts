@@ -11,6 +11,7 @@ import { readReturns } from "../input/readReturns.js";
 import { renderReport } from "../report/render.js";
 import type { InputDescription, RiskFreeSource, SolveReport } from "../report/types.js";
 import { exitCodes, type ExitCode } from "./exitCodes.js";
+import { emit, wantsColour } from "./emit.js";
 import type { CliIo } from "./io.js";
 import { describeCliIssue } from "./messages.js";
 import { openUnitInterval, wholeNumber } from "./arguments.js";
@@ -63,14 +64,11 @@ export async function runSolve(file: string, options: SolveCliOptions, io: CliIo
   };
   const report: SolveReport = { tool: { name: "betabound", version }, input, solution: solved.value };
   const toTerminal = options.output === undefined && io.stdoutIsTerminal;
-  const colour = toTerminal && options.format === "text" && !("NO_COLOR" in io.env && io.env["NO_COLOR"] !== "");
+  const colour = wantsColour(io, options.output, options.format);
   const rendered = renderReport(report, options.format, { colour });
 
-  if (options.output === undefined) io.writeOut(rendered);
-  else {
-    const written = await io.writeOutput(options.output, rendered);
-    if (!written.ok) return fail(io, describeCliIssue(written.issues), exitCodes.output);
-  }
+  const written = await emit(io, options.output, rendered);
+  if (written !== exitCodes.ok) return written;
   // Diagnostics are in the report; repeat them on stderr when the report itself is not on a terminal.
   if (!toTerminal || options.format !== "text") {
     for (const d of solved.value.diagnostics) if (d.severity !== "info") io.writeErr(`${d.severity}: ${d.message}\n`);

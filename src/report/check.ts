@@ -5,6 +5,15 @@
 
 import type { Candidate, Solution } from "../core/types.js";
 
+/** What the check needs: the grid and the observed (or population) CAPM betas and residual variances. */
+export interface CapmCheckInput {
+  readonly grid: Solution["grid"];
+  readonly capm: {
+    readonly low: { readonly beta: number; readonly residualVariance: number };
+    readonly high: { readonly beta: number; readonly residualVariance: number };
+  };
+}
+
 /** Relative difference |a - b| / max(|a|, |b|), 0 when both are 0. */
 export function relativeDifference(a: number, b: number): number {
   const scale = Math.max(Math.abs(a), Math.abs(b));
@@ -12,7 +21,7 @@ export function relativeDifference(a: number, b: number): number {
 }
 
 /** The pairs (implied by the candidate, observed in the sample) the check compares. */
-function comparisons(candidate: Candidate, solution: Solution): (readonly [number, number])[] {
+function comparisons(candidate: Candidate, solution: CapmCheckInput): (readonly [number, number])[] {
   const { low, high } = solution.capm;
   const implied = candidate.impliedCapm;
   return [
@@ -27,7 +36,7 @@ function comparisons(candidate: Candidate, solution: Solution): (readonly [numbe
  * The largest relative difference, over the grid, between a candidate's implied CAPM betas and
  * residual variances and the observed ones; null when the grid is empty.
  */
-export function largestCapmDiscrepancy(solution: Solution): number | null {
+export function largestCapmDiscrepancy(solution: CapmCheckInput): number | null {
   if (solution.grid.length === 0) return null;
   let largest = 0;
   for (const candidate of solution.grid) {

@@ -5,7 +5,7 @@
  * negative zero); a null is an empty field; booleans are `true` / `false`.
  */
 
-import { landmarkNames, type Candidate } from "../core/types.js";
+import { landmarkNames, type Candidate, type Landmarks } from "../core/types.js";
 import type { RenderOptions, SolveReport } from "./types.js";
 
 type Cell = number | boolean | null;
@@ -54,6 +54,24 @@ function row(point: string, candidate: Candidate): string {
   return [point, ...candidateColumns.map(([, value]) => cellText(value(candidate)))].map(csvField).join(",");
 }
 
+/** A CSV table of named candidates: the header, then one row per (point, candidate). */
+export function candidateCsv(rows: readonly (readonly [point: string, candidate: Candidate])[]): string {
+  const lines = [csvHeader.map(csvField).join(","), ...rows.map(([point, candidate]) => row(point, candidate))];
+  return `${lines.join("\n")}\n`;
+}
+
+/** The grid rows (`grid-1` ... `grid-N`) followed by the landmark rows that exist, by landmark name. */
+export function namedCandidates(grid: readonly Candidate[], landmarks: Landmarks | null): [string, Candidate][] {
+  const rows: [string, Candidate][] = grid.map((candidate, i) => [`grid-${i + 1}`, candidate]);
+  if (landmarks !== null) {
+    for (const name of landmarkNames) {
+      const candidate = landmarks[name];
+      if (candidate !== null) rows.push([name, candidate]);
+    }
+  }
+  return rows;
+}
+
 /**
  * Renders the grid and the landmarks as CSV. With no identified set (the model is rejected) the
  * output is the header alone. A landmark the core did not compute (returnImplied null) has no row.
@@ -61,15 +79,5 @@ function row(point: string, candidate: Candidate): string {
  */
 export function renderCsv(report: SolveReport, _options: RenderOptions): string {
   const { bounds, grid, landmarks } = report.solution;
-  const lines = [csvHeader.map(csvField).join(",")];
-  if (bounds !== null) {
-    grid.forEach((candidate, i) => lines.push(row(`grid-${i + 1}`, candidate)));
-    if (landmarks !== null) {
-      for (const name of landmarkNames) {
-        const candidate = landmarks[name];
-        if (candidate !== null) lines.push(row(name, candidate));
-      }
-    }
-  }
-  return `${lines.join("\n")}\n`;
+  return candidateCsv(bounds === null ? [] : namedCandidates(grid, landmarks));
 }

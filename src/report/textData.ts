@@ -55,7 +55,11 @@ export function inputSection(input: InputDescription, observations: number, styl
 }
 
 /** The Sample moments section: mean, stdev, variance and Sharpe ratio of each series. */
-export function momentsSection(solution: Solution, style: Style): string[] {
+export function momentsSection(
+  solution: Pick<Solution, "moments">,
+  style: Style,
+  heading = "Sample moments (excess returns, per period)",
+): string[] {
   const m = solution.moments;
   const series = [
     ["low", m.low],
@@ -63,7 +67,7 @@ export function momentsSection(solution: Solution, style: Style): string[] {
     ["market", m.market],
   ] as const;
   return [
-    style.heading("Sample moments (excess returns, per period)"),
+    style.heading(heading),
     ...table({
       header: ["", "mean", "stdev", "variance", "Sharpe"],
       rows: series.map(([name, s]) => [

@@ -3,8 +3,8 @@
  * the check that every candidate reproduces the observed CAPM regressions. Each returns its lines.
  */
 
-import { landmarkNames, type Candidate, type IdentifiedBounds, type LandmarkName, type Landmarks, type Solution } from "../core/types.js";
-import { largestCapmDiscrepancy } from "./check.js";
+import { landmarkNames, type Candidate, type IdentifiedBounds, type LandmarkName, type Landmarks } from "../core/types.js";
+import { largestCapmDiscrepancy, type CapmCheckInput } from "./check.js";
 import { formatNumber, notAvailable, tableDigits } from "./format.js";
 import { fields, indent, printable, table, wrap, type Style } from "./layout.js";
 
@@ -87,7 +87,7 @@ export function landmarksSection(landmarks: Landmarks, style: Style): string[] {
 }
 
 /** The Candidate grid section and the CAPM reproduction check under it. */
-export function gridSection(solution: Solution, style: Style): string[] {
+export function gridSection(solution: CapmCheckInput, style: Style): string[] {
   const grid = solution.grid;
   const rows = grid.map((c, i) => [String(i + 1), ...candidateCells(c)]);
   const lines = [

@@ -1,0 +1,21 @@
+/** Writes a command's output to standard output, or atomically to `--output`, and says how it went. */
+import { exitCodes, type ExitCode } from "./exitCodes.js";
+import type { CliIo } from "./io.js";
+import { describeCliIssue } from "./messages.js";
+
+export async function emit(io: CliIo, output: string | undefined, text: string): Promise<ExitCode> {
+  if (output === undefined) {
+    io.writeOut(text);
+    return exitCodes.ok;
+  }
+  const written = await io.writeOutput(output, text);
+  if (written.ok) return exitCodes.ok;
+  io.writeErr(`error: ${describeCliIssue(written.issues)}\n`);
+  return exitCodes.output;
+}
+
+/** Colour only for a text report going to a terminal, and never when NO_COLOR is set (non-empty). */
+export function wantsColour(io: CliIo, output: string | undefined, format: string): boolean {
+  const noColour = io.env["NO_COLOR"];
+  return output === undefined && io.stdoutIsTerminal && format === "text" && (noColour === undefined || noColour === "");
+}
