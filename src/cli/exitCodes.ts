@@ -13,6 +13,8 @@ export const exitCodes = {
   rejected: 3,
   /** The output could not be written (the previous file, if any, is left untouched). */
   output: 4,
+  /** Several files or pairs were solved and at least one of them failed (its record says why). */
+  partial: 5,
   /** An internal error: a bug in betabound. Please report it with the command line. */
   internal: 70,
 } as const;

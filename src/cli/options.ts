@@ -21,20 +21,53 @@ export const solveDefaults = {
 /** Largest grid the CLI accepts: a sanity limit on output size, not a numerical one. */
 export const maximumSteps = 100_000;
 
+/** Formats of `solve`: one report (text, json, csv) or one record per line for several pairs (jsonl). */
+export const solveFormats = [...reportFormats, "jsonl"] as const;
+export const inputKinds = ["returns", "prices", "log-returns"] as const;
+export const missingPolicies = ["drop", "error"] as const;
+
+const pairSchema = z.object({ low: z.string().min(1), high: z.string().min(1) }).strict();
+
 export const solveOptionsSchema = z
   .object({
-    low: z.string().min(1),
-    high: z.string().min(1),
+    low: z.string().min(1).optional(),
+    high: z.string().min(1).optional(),
+    pair: z.array(pairSchema).optional(),
+    lows: z.array(z.string().min(1)).optional(),
+    highs: z.array(z.string().min(1)).optional(),
     date: z.string().min(1).optional(),
     weight: z.number().gt(0).lt(1),
     rf: z.string().min(1).optional(),
     units: z.enum(unitChoices),
     steps: z.number().int().min(2).max(maximumSteps),
-    format: z.enum(reportFormats),
+    format: z.enum(solveFormats),
     output: z.string().min(1).optional(),
     allowExtreme: z.boolean(),
+    delimiter: z.string().length(1).optional(),
+    block: z.number().int().positive().optional(),
+    dateFormat: z.string().min(1).optional(),
+    sort: z.boolean(),
+    periodsPerYear: z.number().positive().optional(),
+    missing: z.array(z.string().min(1)).optional(),
+    onMissing: z.enum(missingPolicies),
+    input: z.enum(inputKinds),
+    idColumn: z.string().min(1).optional(),
+    valueColumn: z.string().min(1).optional(),
   })
-  .strict();
+  .strict()
+  .refine((o) => (o.low === undefined) === (o.high === undefined), {
+    path: ["high"],
+    message: "--low and --high go together (or use --pair LOW:HIGH)",
+  })
+  .refine((o) => (o.lows === undefined) === (o.highs === undefined), { path: ["highs"], message: "--lows and --highs go together" })
+  .refine((o) => o.low !== undefined || (o.pair?.length ?? 0) > 0 || o.lows !== undefined, {
+    path: ["low"],
+    message: "name the books: --low COLUMN --high COLUMN, or --pair LOW:HIGH, or --lows A,B --highs X,Y",
+  })
+  .refine((o) => (o.idColumn === undefined) === (o.valueColumn === undefined), {
+    path: ["valueColumn"],
+    message: "the long layout needs both --id-column and --value-column",
+  });
 
 export type SolveCliOptions = z.infer<typeof solveOptionsSchema>;
 

@@ -16,6 +16,8 @@ export interface SolveOutput
   extends Pick<Solution, "observations" | "weight" | "moments" | "capm" | "bounds" | "grid" | "landmarks" | "diagnostics"> {
   readonly schemaVersion: typeof schemaVersion;
   readonly tool: SolveReport["tool"];
+  /** "ok": an identified set was found; "rejected": the data were read but no set can be reported. */
+  readonly status: "ok" | "rejected";
   readonly input: InputDescription;
   readonly conventions: Conventions;
 }
@@ -44,6 +46,7 @@ export function toSolveOutput(report: SolveReport): SolveOutput {
   return {
     schemaVersion,
     tool: { name: report.tool.name, version: report.tool.version },
+    status: s.bounds === null ? "rejected" : "ok",
     input: inputOf(report.input),
     observations: s.observations,
     weight: s.weight,

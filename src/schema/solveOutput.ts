@@ -42,10 +42,13 @@ export const conventionsSchema = z.strictObject({
   assumptions: doc(z.array(z.string()), "the model's maintained assumptions"),
 });
 
+export const toolSchema = z.strictObject({ name: z.literal("betabound"), version: z.string() });
+
 export const solveOutputSchema = doc(
   z.strictObject({
     schemaVersion: z.literal(1),
-    tool: z.strictObject({ name: z.literal("betabound"), version: z.string() }),
+    tool: toolSchema,
+    status: doc(z.enum(["ok", "rejected"]), "rejected: the data were read but no identified set can be reported"),
     input: inputSchema,
     observations: doc(z.int().positive(), "aligned observations used"),
     weight: doc(z.number().gt(0).lt(1), "w, the weight of the low book in the market proxy"),
@@ -62,3 +65,23 @@ export const solveOutputSchema = doc(
 
 /** The parsed (validated) JSON output. */
 export type SolveOutputJson = z.infer<typeof solveOutputSchema>;
+
+/** A JSON Lines record for a (file, pair) that could not be solved: what was asked and why it failed. */
+export const solveFailureSchema = doc(
+  z.strictObject({
+    schemaVersion: z.literal(1),
+    tool: toolSchema,
+    status: z.literal("failed"),
+    input: z.strictObject({ source: z.string(), lowColumn: z.string(), highColumn: z.string() }),
+    errors: doc(
+      z.array(z.strictObject({ code: z.string(), message: z.string() })).min(1),
+      "the input issues or diagnostics that stopped this pair; codes are stable",
+    ),
+  }),
+  "betabound solve record for a pair that failed",
+);
+
+/** One line of `solve --format jsonl`: a full solve document or a failure record. */
+export const solveRecordSchema = z.union([solveOutputSchema, solveFailureSchema]);
+
+export type SolveFailureJson = z.infer<typeof solveFailureSchema>;

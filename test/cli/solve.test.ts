@@ -20,6 +20,7 @@ describe("betabound solve (in process)", () => {
   it("prints the JSON report with exit code 0 for the bundled example", async () => {
     const { code, json } = await solveJson({ "m.csv": monthly }, ["m.csv", ...books, "--rf", "0.002"]);
     expect(code).toBe(exitCodes.ok);
+    expect(json["status"]).toBe("ok");
     expect(json["observations"]).toBe(180);
     expect(json["bounds"].lowBeta.min).toBeLessThan(json["capm"].low.beta);
     expect(json["bounds"].lowBeta.max).toBeGreaterThan(json["capm"].low.beta);
@@ -56,7 +57,8 @@ describe("betabound solve (in process)", () => {
     expect(json["bounds"]).toBeNull();
     expect(json["grid"]).toEqual([]);
     expect(json["diagnostics"].map((d: { code: string }) => d.code)).toContain("nonpositive-covariance");
-    expect(stderr).toMatch(/^error: the covariance of low and high is -/m);
+    expect(stderr).toMatch(/^error: o\.csv: the covariance of low and high is -/m);
+    expect(json["status"]).toBe("rejected");
   });
 
   it("exits 2 and names the file when it cannot be read", async () => {

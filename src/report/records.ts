@@ -1,0 +1,67 @@
+/**
+ * Several (file, pair) results in one output: JSON Lines (one compact record per line, full solve
+ * documents or failure records, so shards concatenate into one valid stream), CSV (the grid and
+ * landmark rows of every record, prefixed by its file and pair) and text (the reports in order).
+ */
+
+import { csvField, csvHeader, candidateCsv, namedCandidates } from "./csv.js";
+import { assertJsonSafe, schemaVersion, toSolveOutput } from "./json.js";
+import { renderText } from "./text.js";
+import type { RenderOptions, SolveReport } from "./types.js";
+
+/** A (file, pair) that could not be solved, with the stable codes and messages of what stopped it. */
+export interface SolveFailure {
+  readonly tool: SolveReport["tool"];
+  readonly source: string;
+  readonly lowColumn: string;
+  readonly highColumn: string;
+  readonly errors: readonly { readonly code: string; readonly message: string }[];
+}
+
+export type SolveRecord = { readonly kind: "report"; readonly report: SolveReport } | { readonly kind: "failure"; readonly failure: SolveFailure };
+
+export function failureOutput(failure: SolveFailure) {
+  return {
+    schemaVersion,
+    tool: { name: failure.tool.name, version: failure.tool.version },
+    status: "failed" as const,
+    input: { source: failure.source, lowColumn: failure.lowColumn, highColumn: failure.highColumn },
+    errors: failure.errors.map((e) => ({ code: e.code, message: e.message })),
+  };
+}
+
+export function renderJsonLines(records: readonly SolveRecord[]): string {
+  return records
+    .map((record) => {
+      const output = record.kind === "report" ? toSolveOutput(record.report) : failureOutput(record.failure);
+      assertJsonSafe(output);
+      return `${JSON.stringify(output)}\n`;
+    })
+    .join("");
+}
+
+/** One CSV table: `source,lowColumn,highColumn` then the candidate columns; failed pairs have no rows. */
+export function renderRecordsCsv(records: readonly SolveRecord[]): string {
+  const header = ["source", "lowColumn", "highColumn", ...csvHeader].map(csvField).join(",");
+  const lines = [header];
+  for (const record of records) {
+    if (record.kind !== "report" || record.report.solution.bounds === null) continue;
+    const { input, solution } = record.report;
+    const prefix = [input.source, input.lowColumn, input.highColumn].map(csvField).join(",");
+    const body = candidateCsv(namedCandidates(solution.grid, solution.landmarks)).split("\n").slice(1, -1);
+    for (const row of body) lines.push(`${prefix},${row}`);
+  }
+  return `${lines.join("\n")}\n`;
+}
+
+/** The text reports one after another, with each failure stated where its report would be. */
+export function renderRecordsText(records: readonly SolveRecord[], options: RenderOptions): string {
+  const rule = `${"=".repeat(96)}\n`;
+  return records
+    .map((record) => {
+      if (record.kind === "report") return renderText(record.report, options);
+      const f = record.failure;
+      return `${f.source}: low "${f.lowColumn}", high "${f.highColumn}": not solved\n${f.errors.map((e) => `  ${e.message}\n`).join("")}`;
+    })
+    .join(`\n${rule}\n`);
+}
