@@ -8,7 +8,8 @@ export type CliIssue =
   | { readonly code: "read-failed"; readonly path: string; readonly reason: string }
   | { readonly code: "write-failed"; readonly path: string; readonly reason: string }
   | { readonly code: "invalid-option"; readonly option: string; readonly value: string; readonly expected: string }
-  | { readonly code: "missing-option"; readonly option: string; readonly hint: string };
+  | { readonly code: "missing-option"; readonly option: string; readonly hint: string }
+  | { readonly code: "invalid-config"; readonly path: string; readonly at: string; readonly reason: string };
 
 export function describeCliIssue(issue: CliIssue): string {
   switch (issue.code) {
@@ -22,6 +23,8 @@ export function describeCliIssue(issue: CliIssue): string {
       return `option '${issue.option}' argument '${issue.value}' is invalid: ${issue.expected}`;
     case "missing-option":
       return `option '${issue.option}' is required: ${issue.hint}`;
+    case "invalid-config":
+      return `config file '${issue.path}'${issue.at === "" ? "" : `, at '${issue.at}'`}: ${issue.reason}; fix the file (keys are the long option names in camelCase, plus "files")`;
   }
 }
 

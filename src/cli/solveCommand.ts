@@ -17,6 +17,7 @@ import type { InputDescription, RiskFreeSource, SolveReport } from "../report/ty
 import { exitCodes, type ExitCode } from "./exitCodes.js";
 import { emit, wantsColour } from "./emit.js";
 import type { CliIo } from "./io.js";
+import { withConfig } from "./config.js";
 import { describeCliIssue } from "./messages.js";
 import { numberArgument, openUnitInterval, wholeNumber } from "./arguments.js";
 import { collectPair, columnList, pairsFrom, type Pair } from "./pairs.js";
@@ -203,8 +204,16 @@ export function solveCommand(io: CliIo, setExit: (code: ExitCode) => void): Comm
     .addOption(new Option("--input <kind>", "what the numbers are").choices(inputKinds).default("returns"))
     .option("--id-column <column>", "long layout: the column naming the series (then --low/--high name series)")
     .option("--value-column <column>", "long layout: the column holding the values")
+    .option("--config <file>", "JSON file with files, pairs and options for a job; flags override it")
     .addHelpText("after", solveExamples)
-    .action(async (files: string[], raw: Record<string, unknown>) => {
+    .action(async (given: string[], _raw: Record<string, unknown>, command: Command) => {
+      const job = await withConfig(command, given, io);
+      if (!job.ok) {
+        io.writeErr(`error: ${describeCliIssue(job.issues)}\n`);
+        setExit(exitCodes.usage);
+        return;
+      }
+      const { files, options: raw } = job.value;
       const parsed = solveOptionsSchema.safeParse(raw);
       if (!parsed.success) {
         io.writeErr(`error: ${describeOptionIssue(parsed.error)}\n`);
