@@ -6,6 +6,7 @@ import { Command, CommanderError } from "commander";
 import { exitCodes, type ExitCode } from "./exitCodes.js";
 import { impliedCommand } from "./impliedCommand.js";
 import type { CliIo } from "./io.js";
+import { schemaCommand } from "./schemaCommand.js";
 import { simulateCommand } from "./simulateCommand.js";
 import { solveCommand } from "./solveCommand.js";
 import { version } from "./version.js";
@@ -20,6 +21,7 @@ function buildProgram(io: CliIo, setExit: (code: ExitCode) => void): Command {
   program.addCommand(solveCommand(io, setExit));
   program.addCommand(impliedCommand(io, setExit));
   program.addCommand(simulateCommand(io, setExit));
+  program.addCommand(schemaCommand(io, setExit));
   return program;
 }
 

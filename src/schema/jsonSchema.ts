@@ -3,11 +3,9 @@
  * can never disagree.
  */
 
-import * as z from "zod";
-import { outputRegistry } from "./registry.js";
-import { solveOutputSchema } from "./solveOutput.js";
+import { outputJsonSchema } from "./outputs.js";
 
 /** JSON Schema of what `renderJson` writes, with shared parts under $defs. A fresh object per call. */
 export function solveOutputJsonSchema(): Record<string, unknown> {
-  return z.toJSONSchema(solveOutputSchema, { target: "draft-2020-12", metadata: outputRegistry, io: "output" });
+  return outputJsonSchema("solve");
 }

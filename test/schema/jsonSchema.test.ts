@@ -17,7 +17,7 @@ function objectSchemas(node: unknown, path = "#"): [string, Record<string, unkno
 
 describe("solveOutputJsonSchema", () => {
   test("matches the committed snapshot (a failing snapshot is a contract change: bump schemaVersion or revert)", async () => {
-    await expect(`${JSON.stringify(solveOutputJsonSchema(), null, 2)}\n`).toMatchFileSnapshot("./__snapshots__/solveOutput.schema.json");
+    await expect(`${JSON.stringify(solveOutputJsonSchema(), null, 2)}\n`).toMatchFileSnapshot("./__snapshots__/solve.schema.json");
   });
 
   test("is draft 2020-12 with the shared parts under $defs", () => {

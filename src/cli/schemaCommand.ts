@@ -1,0 +1,16 @@
+/** `betabound schema NAME`: the JSON Schema of a command's JSON output, generated from the zod schemas. */
+import { Argument, Command } from "commander";
+import { outputJsonSchema, outputNames, type OutputName } from "../schema/outputs.js";
+import { exitCodes, type ExitCode } from "./exitCodes.js";
+import type { CliIo } from "./io.js";
+
+export function schemaCommand(io: CliIo, setExit: (code: ExitCode) => void): Command {
+  return new Command("schema")
+    .description("Print the JSON Schema of an output: solve (--format json), solve-record (one jsonl line), implied.")
+    .addArgument(new Argument("<name>", "which output").choices(outputNames))
+    .addHelpText("after", "\nExamples:\n  $ betabound schema solve > solve.schema.json\n  $ betabound schema solve-record\n")
+    .action((name: OutputName) => {
+      io.writeOut(`${JSON.stringify(outputJsonSchema(name), null, 2)}\n`);
+      setExit(exitCodes.ok);
+    });
+}

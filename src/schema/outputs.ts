@@ -1,0 +1,20 @@
+/** Every machine-readable output, by the name `betabound schema NAME` prints it under. */
+
+import * as z from "zod";
+import { impliedOutputSchema } from "./impliedOutput.js";
+import { outputRegistry } from "./registry.js";
+import { solveOutputSchema, solveRecordSchema } from "./solveOutput.js";
+
+export const outputSchemas = {
+  solve: solveOutputSchema,
+  "solve-record": solveRecordSchema,
+  implied: impliedOutputSchema,
+} as const;
+
+export type OutputName = keyof typeof outputSchemas;
+export const outputNames = Object.keys(outputSchemas) as OutputName[];
+
+/** The JSON Schema (draft 2020-12) generated from the zod schema of `name`. A fresh object per call. */
+export function outputJsonSchema(name: OutputName): Record<string, unknown> {
+  return z.toJSONSchema(outputSchemas[name], { target: "draft-2020-12", metadata: outputRegistry, io: "output" });
+}
