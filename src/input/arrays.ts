@@ -1,0 +1,22 @@
+/** Plain-loop builders for typed arrays (TypedArray.from with a mapping function is slow on large inputs). */
+
+/** Int32Array of the given length with element i = at(i). */
+export function int32Of(length: number, at: (i: number) => number): Int32Array {
+  const out = new Int32Array(length);
+  for (let i = 0; i < length; i++) out[i] = at(i);
+  return out;
+}
+
+/** Float64Array of the given length with element i = at(i). */
+export function float64Of(length: number, at: (i: number) => number): Float64Array {
+  const out = new Float64Array(length);
+  for (let i = 0; i < length; i++) out[i] = at(i);
+  return out;
+}
+
+/** Array of the given length with element i = at(i). */
+export function arrayOf<T>(length: number, at: (i: number) => T): T[] {
+  const out = new Array<T>(length);
+  for (let i = 0; i < length; i++) out[i] = at(i);
+  return out;
+}

@@ -1,0 +1,77 @@
+/**
+ * Explicit date layouts such as "DD/MM/YYYY", "MM/DD/YYYY", "DD.MM.YYYY", "D MMM YYYY" or "MMM YYYY".
+ * Tokens: YYYY (4-digit year), MM / M (month, 2 digits / 1-2 digits), DD / D (day), MMM (English
+ * month name or 3-letter abbreviation, any case), MMMM (same). Everything else is literal text;
+ * a space in the layout matches one or more spaces. A layout without a day gives monthly dates "YYYY-MM".
+ */
+import { calendarDate, type ParsedDate } from "./dates.js";
+
+const MONTH_NAMES = [
+  "january", "february", "march", "april", "may", "june",
+  "july", "august", "september", "october", "november", "december",
+];
+
+type Part = "year" | "month" | "monthName" | "day";
+
+const TOKENS: readonly (readonly [string, Part, string])[] = [
+  ["YYYY", "year", "(\\d{4})"],
+  ["MMMM", "monthName", "([A-Za-z]{3,9}\\.?)"],
+  ["MMM", "monthName", "([A-Za-z]{3,9}\\.?)"],
+  ["MM", "month", "(\\d{2})"],
+  ["M", "month", "(\\d{1,2})"],
+  ["DD", "day", "(\\d{2})"],
+  ["D", "day", "(\\d{1,2})"],
+];
+
+/** A compiled layout: returns the parsed date, or null when the text does not fit it. */
+export type DateParser = (text: string) => ParsedDate | null;
+
+function monthFromName(name: string): number | null {
+  const n = name.toLowerCase().replace(/\.$/, "");
+  if (n.length < 3) return null;
+  const index = MONTH_NAMES.findIndex((full) => full === n || (n.length <= 4 && full.startsWith(n)));
+  return index < 0 ? null : index + 1;
+}
+
+/**
+ * Compile a layout. Returns a string explaining the problem when the layout lacks a year or a
+ * month or repeats a token.
+ */
+export function compileDateFormat(format: string): DateParser | string {
+  const parts: Part[] = [];
+  let pattern = "";
+  let i = 0;
+  while (i < format.length) {
+    const token = TOKENS.find(([name]) => format.startsWith(name, i));
+    if (token) {
+      const [name, part, regex] = token;
+      const kind = part === "monthName" ? "month" : part;
+      if (parts.some((p) => (p === "monthName" ? "month" : p) === kind)) return `the ${kind} appears twice in "${format}"`;
+      parts.push(part);
+      pattern += regex;
+      i += name.length;
+    } else {
+      const char = format[i] as string;
+      pattern += char === " " ? " +" : char.replace(/[.*+?^${}()|[\]\\/]/g, "\\$&");
+      i++;
+    }
+  }
+  if (!parts.includes("year")) return `"${format}" has no year (YYYY)`;
+  if (!parts.includes("month") && !parts.includes("monthName")) return `"${format}" has no month (MM, M or MMM)`;
+  const regex = new RegExp(`^${pattern}$`);
+  return (text) => {
+    const m = regex.exec(text.trim());
+    if (!m) return null;
+    let year = 0;
+    let month: number | null = 0;
+    let day: number | undefined;
+    parts.forEach((part, k) => {
+      const value = m[k + 1] as string;
+      if (part === "year") year = Number(value);
+      else if (part === "month") month = Number(value);
+      else if (part === "monthName") month = monthFromName(value);
+      else day = Number(value);
+    });
+    return month === null ? null : calendarDate(year, month, day);
+  };
+}

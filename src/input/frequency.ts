@@ -1,0 +1,84 @@
+/** Sampling frequency from the spacing of dates, and a linear-time median. */
+
+/** The standard sampling frequencies. */
+export type FrequencyName = "daily" | "weekly" | "monthly" | "quarterly" | "annual";
+
+/** A sampling frequency and the periods per year used to annualise. */
+export interface Frequency {
+  readonly name: FrequencyName;
+  readonly periodsPerYear: number;
+  /** "detected" from the median gap between dates, or "option" when the caller set periodsPerYear. */
+  readonly from: "detected" | "option";
+}
+
+const DAY_MS = 86_400_000;
+
+/** Median gap (days) ranges per frequency; daily covers business-day data with weekend gaps. */
+const BANDS: readonly (readonly [FrequencyName, number, number, number])[] = [
+  ["daily", 0.5, 4.5, 252],
+  ["weekly", 5, 10, 52],
+  ["monthly", 25, 35, 12],
+  ["quarterly", 80, 100, 4],
+  ["annual", 350, 380, 1],
+];
+
+/** Median of the values (NaN for none); the input is not modified. Quickselect, O(n) expected. */
+export function median(values: ArrayLike<number>): number {
+  const a = new Float64Array(values.length);
+  for (let i = 0; i < values.length; i++) a[i] = values[i] as number;
+  const n = a.length;
+  if (n === 0) return Number.NaN;
+  const upper = select(a, n >> 1);
+  return n % 2 === 1 ? upper : (upper + maxBelow(a, n >> 1)) / 2;
+}
+
+function maxBelow(a: Float64Array, k: number): number {
+  let best = -Infinity;
+  for (let i = 0; i < k; i++) if ((a[i] as number) > best) best = a[i] as number;
+  return best;
+}
+
+/** Rearranges `a` so that a[k] is the k-th smallest, everything before it is <= a[k]; returns a[k]. */
+function select(a: Float64Array, k: number): number {
+  let lo = 0;
+  let hi = a.length - 1;
+  while (lo < hi) {
+    const pivot = a[(lo + hi) >> 1] as number;
+    let i = lo;
+    let j = hi;
+    while (i <= j) {
+      while ((a[i] as number) < pivot) i++;
+      while ((a[j] as number) > pivot) j--;
+      if (i <= j) {
+        const t = a[i] as number;
+        a[i] = a[j] as number;
+        a[j] = t;
+        i++;
+        j--;
+      }
+    }
+    if (k <= j) hi = j;
+    else if (k >= i) lo = i;
+    else break;
+  }
+  return a[k] as number;
+}
+
+/** Frequency from date keys (ms, ascending): the band holding the median gap, or null when none does. */
+export function detectFrequency(keys: ArrayLike<number>): Frequency | null {
+  if (keys.length < 2) return null;
+  const gaps = new Float64Array(keys.length - 1);
+  for (let i = 1; i < keys.length; i++) gaps[i - 1] = ((keys[i] as number) - (keys[i - 1] as number)) / DAY_MS;
+  const gap = median(gaps);
+  const band = BANDS.find(([, low, high]) => gap >= low && gap <= high);
+  return band ? { name: band[0], periodsPerYear: band[3], from: "detected" } : null;
+}
+
+/** The frequency for an explicit periods-per-year: named after the nearest standard frequency. */
+export function frequencyFromPeriods(periodsPerYear: number): Frequency {
+  let nearest = BANDS[0] as (typeof BANDS)[number];
+  for (const band of BANDS) {
+    if (Math.abs(Math.log(band[3] / periodsPerYear)) < Math.abs(Math.log(nearest[3] / periodsPerYear))) nearest = band;
+  }
+  return { name: nearest[0], periodsPerYear, from: "option" };
+}

@@ -1,0 +1,77 @@
+/** Options of `readReturns` and their validation. */
+import type { InputIssue } from "./issues.js";
+
+/** What the numbers in the requested columns are. */
+export type InputKind = "returns" | "prices" | "log-returns";
+
+/** How to read a file; only `source` and `columns` are required. */
+export interface ReadOptions {
+  /** File name shown in messages, e.g. "returns.csv" or "<stdin>". */
+  readonly source: string;
+  /** Date column; default: the first column of the header. */
+  readonly dateColumn?: string;
+  /** The numeric columns wanted (wide layout), or the series ids wanted (long layout, see idColumn). */
+  readonly columns: readonly string[];
+  /** percent: every value is divided by 100 on read. Default decimal. Not allowed with input "prices". */
+  readonly units?: "decimal" | "percent";
+  /** Default false: a return with |value| > 10 (decimal, after conversion) is an error. */
+  readonly allowExtreme?: boolean;
+  /** Field delimiter (one character); default: detected among comma, semicolon and tab. */
+  readonly delimiter?: string;
+  /** Which table of the file (1-based) when blank lines separate several; default 1. */
+  readonly block?: number;
+  /** Explicit date layout such as "DD/MM/YYYY" (see compileDateFormat); default: automatic. */
+  readonly dateFormat?: string;
+  /** Sort rows by date instead of reporting unsorted dates. Default false. */
+  readonly sort?: boolean;
+  /** Overrides the detected frequency. */
+  readonly periodsPerYear?: number;
+  /** Accept a decimal comma ("0,85") in values; the delimiter must then not be a comma. Default false. */
+  readonly decimalComma?: boolean;
+  /** Extra missing-value sentinels, e.g. ["-99.99", "#N/A"] (see compileSentinels). */
+  readonly missing?: readonly string[];
+  /** drop (default): rows with a missing value are dropped and counted; error: each is an issue. */
+  readonly onMissing?: "drop" | "error";
+  /**
+   * returns (default); prices: simple returns P_t / P_{t-1} - 1 (the first date has no return and
+   * is consumed; a missing price makes both returns that use it missing); log-returns: exp(l) - 1.
+   */
+  readonly input?: InputKind;
+  /** Long layout: the column holding the series id; `columns` then lists series ids. Needs valueColumn. */
+  readonly idColumn?: string;
+  /** Long layout: the column holding the values. */
+  readonly valueColumn?: string;
+}
+
+const invalid = (source: string, option: string, reason: string): InputIssue => ({ code: "invalid-option", source, option, reason });
+
+/** Problems with the options themselves (nothing to do with the file). */
+export function validateOptions(options: ReadOptions): InputIssue[] {
+  const { source } = options;
+  const issues: InputIssue[] = [];
+  const columns = Array.isArray(options.columns) ? options.columns : [];
+  if (columns.length === 0) issues.push(invalid(source, "columns", "name at least one column to read"));
+  const seen = new Set<string>();
+  for (const name of columns) {
+    if (typeof name !== "string" || name.trim() === "") issues.push(invalid(source, "columns", "column names must be non-empty"));
+    else if (seen.has(name.trim())) issues.push(invalid(source, "columns", `${JSON.stringify(name)} is listed twice`));
+    else seen.add(name.trim());
+  }
+  if (options.dateColumn !== undefined && seen.has(options.dateColumn.trim()) && options.idColumn === undefined) {
+    issues.push(invalid(source, "columns", `${JSON.stringify(options.dateColumn)} is the date column`));
+  }
+  const { delimiter, block, periodsPerYear } = options;
+  if (delimiter !== undefined && (delimiter.length !== 1 || /[\r\n"\d.+\-]/.test(delimiter))) {
+    issues.push(invalid(source, "delimiter", "must be one character other than a quote, a line break, a digit, a sign or a point"));
+  }
+  if (block !== undefined && !(Number.isInteger(block) && block >= 1)) issues.push(invalid(source, "block", "must be a whole number from 1"));
+  if (periodsPerYear !== undefined && !(Number.isFinite(periodsPerYear) && periodsPerYear > 0)) {
+    issues.push(invalid(source, "periodsPerYear", "must be a positive number"));
+  }
+  if (options.decimalComma === true && delimiter === ",") issues.push(invalid(source, "decimalComma", "the delimiter is a comma, so it cannot also be the decimal separator"));
+  if (options.input === "prices" && options.units === "percent") issues.push(invalid(source, "units", "percent does not apply to prices"));
+  if ((options.idColumn === undefined) !== (options.valueColumn === undefined)) {
+    issues.push(invalid(source, options.idColumn === undefined ? "idColumn" : "valueColumn", "the long layout needs both idColumn and valueColumn"));
+  }
+  return issues;
+}

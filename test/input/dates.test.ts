@@ -1,0 +1,129 @@
+import { describe, expect, it } from "vitest";
+import fc from "fast-check";
+import { readDateColumn } from "../../src/input/dateColumn.js";
+import { compileDateFormat } from "../../src/input/dateFormat.js";
+import { parseUnambiguousDate } from "../../src/input/dates.js";
+import { readIssues, readOk } from "./helpers.js";
+
+const isos = (texts: string[], format?: string): readonly string[] => {
+  const column = readDateColumn(texts, format);
+  if (column.kind !== "dates") expect.fail(JSON.stringify(column));
+  return column.isos;
+};
+
+const withDates = (dates: string[]): string => ["Date,Low Fund,High Fund", ...dates.map((d) => `${d},0.01,0.02`)].join("\n");
+
+describe("unambiguous dates", () => {
+  it.each([
+    ["2020-03-31", "2020-03-31"], [" 2020-03-31 ", "2020-03-31"], ["20200331", "2020-03-31"], ["202003", "2020-03"],
+    ["2020-03", "2020-03"], ["2020/03", "2020-03"], ["2020/3/31", "2020-03-31"], ["2020", "2020"],
+    ["2020-03-31T09:30", "2020-03-31T09:30:00"], ["2020-03-31 09:30:15", "2020-03-31T09:30:15"],
+    ["2020-03-31T09:30:15.250Z", "2020-03-31T09:30:15.250Z"], ["2020-03-31T09:30:00+0100", "2020-03-31T09:30:00+01:00"],
+  ])("reads %j as %j", (text, iso) => {
+    expect(parseUnambiguousDate(text)?.iso).toBe(iso);
+  });
+
+  it.each(["2021-02-29", "2020-13-01", "2020-00-10", "2020-04-31", "20201301", "2020-1-5", "31.03.2020", "March 2020", "", "2020-03-31T25:00"])(
+    "rejects %j", (text) => {
+      expect(parseUnambiguousDate(text)).toBeNull();
+    });
+
+  it("accepts 29 February in leap years only", () => {
+    expect(parseUnambiguousDate("2000-02-29")).not.toBeNull();
+    expect(parseUnambiguousDate("1900-02-29")).toBeNull();
+    expect(parseUnambiguousDate("2024-02-29")).not.toBeNull();
+  });
+
+  it("orders date-times by their instant, converting offsets to UTC", () => {
+    const a = parseUnambiguousDate("2020-03-31T10:00:00+02:00")?.key;
+    const b = parseUnambiguousDate("2020-03-31T09:00:00Z")?.key;
+    expect(a).toBeLessThan(b as number);
+  });
+
+  it("gives every calendar day a key one day after the previous one", () => {
+    fc.assert(fc.property(fc.date({ min: new Date("1800-01-01"), max: new Date("2200-12-31"), noInvalidDate: true }), (date) => {
+      const iso = date.toISOString().slice(0, 10);
+      const parsed = parseUnambiguousDate(iso);
+      expect(parsed?.iso).toBe(iso);
+      expect(parsed?.key).toBe(Date.parse(`${iso}T00:00:00Z`));
+    }));
+  });
+});
+
+describe("slash dates", () => {
+  it("reads a column day-first when some day is above 12", () => {
+    expect(isos(["03/04/2020", "25/04/2020"])).toEqual(["2020-04-03", "2020-04-25"]);
+  });
+
+  it("reads a column month-first when some second number is above 12", () => {
+    expect(isos(["03/04/2020", "04/25/2020"])).toEqual(["2020-03-04", "2020-04-25"]);
+  });
+
+  it("reports an ambiguous column naming both readings of its first ambiguous date", () => {
+    expect(readDateColumn(["01/01/2020", "03/04/2020", "05/06/2020"])).toEqual({ kind: "ambiguous", index: 1, dayFirst: "2020-04-03", monthFirst: "2020-03-04" });
+  });
+
+  it("is not ambiguous when day and month are equal everywhere", () => {
+    expect(isos(["01/01/2020", "02/02/2020"])).toEqual(["2020-01-01", "2020-02-02"]);
+  });
+
+  it("reports the ambiguous date with its line through readReturns", () => {
+    expect(readIssues(withDates(["01/02/2020", "01/03/2020", "01/04/2020"]))).toEqual([{
+      code: "ambiguous-dates", source: "returns.csv", line: 2, column: "Date", value: "01/02/2020", dayFirst: "2020-02-01", monthFirst: "2020-01-02",
+    }]);
+  });
+});
+
+describe("explicit date formats", () => {
+  it.each([
+    ["DD/MM/YYYY", "03/04/2020", "2020-04-03"], ["MM/DD/YYYY", "03/04/2020", "2020-03-04"], ["DD.MM.YYYY", "31.03.2020", "2020-03-31"],
+    ["D MMM YYYY", "3 Apr 2020", "2020-04-03"], ["D MMM YYYY", "3  april 2020", "2020-04-03"], ["MMM YYYY", "Sep 2020", "2020-09"],
+    ["MMMM D, YYYY", "September 3, 2020", "2020-09-03"], ["YYYYMMDD", "20200403", "2020-04-03"], ["D-M-YYYY", "3-4-2020", "2020-04-03"],
+  ])("%s reads %j as %j", (format, text, iso) => {
+    expect(isos([text], format)).toEqual([iso]);
+  });
+
+  it("rejects dates that do not fit the layout or do not exist", () => {
+    const parse = compileDateFormat("DD/MM/YYYY");
+    if (typeof parse === "string") expect.fail(parse);
+    expect(parse("2020-04-03")).toBeNull();
+    expect(parse("31/04/2020")).toBeNull();
+    expect(parse("3/4/2020")).toBeNull();
+  });
+
+  it("explains a layout without a year or month", () => {
+    expect(compileDateFormat("DD/MM")).toBe('"DD/MM" has no year (YYYY)');
+    expect(compileDateFormat("DD YYYY")).toBe('"DD YYYY" has no month (MM, M or MMM)');
+  });
+
+  it("reports dates not in the layout through readReturns, with the layout", () => {
+    expect(readIssues(withDates(["03/04/2020", "2020-05-01", "05/04/2020"]), { dateFormat: "DD/MM/YYYY" })).toEqual([
+      { code: "bad-date", source: "returns.csv", line: 3, column: "Date", value: "2020-05-01", dateFormat: "DD/MM/YYYY" },
+    ]);
+  });
+
+  it("reports an invalid layout as an option problem", () => {
+    expect(readIssues(withDates(["2020-01-31", "2020-02-29", "2020-03-31"]), { dateFormat: "DD/MM" })[0]).toMatchObject({ code: "invalid-option", option: "dateFormat" });
+  });
+});
+
+describe("date order", () => {
+  it("sorts rows by date with the sort option, keeping each row's values and line", () => {
+    const text = "Date,Low Fund,High Fund\n2020-03-31,0.03,0.3\n2020-01-31,0.01,0.1\n2020-02-29,0.02,0.2\n";
+    const table = readOk(text, { sort: true });
+    expect(table.dates).toEqual(["2020-01-31", "2020-02-29", "2020-03-31"]);
+    expect([...(table.columns.get("Low Fund") ?? [])]).toEqual([0.01, 0.02, 0.03]);
+    expect([...table.lines]).toEqual([3, 4, 2]);
+  });
+
+  it("still reports duplicate dates after sorting", () => {
+    const text = "Date,Low Fund,High Fund\n2020-03-31,0.03,0.3\n2020-01-31,0.01,0.1\n2020-03-31,0.02,0.2\n";
+    expect(readIssues(text, { sort: true })).toEqual([{ code: "duplicate-date", source: "returns.csv", line: 4, column: "Date", value: "2020-03-31", firstLine: 2 }]);
+  });
+
+  it("normalises compact monthly dates and detects a monthly frequency", () => {
+    const table = readOk(withDates(["202001", "202002", "202003", "202004"]));
+    expect(table.dates).toEqual(["2020-01", "2020-02", "2020-03", "2020-04"]);
+    expect(table.frequency?.name).toBe("monthly");
+  });
+});

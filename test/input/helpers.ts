@@ -1,0 +1,37 @@
+import { expect } from "vitest";
+import type { InputIssue } from "../../src/input/issues.js";
+import { readReturns, type ReadOptions, type ReturnTable } from "../../src/input/readReturns.js";
+
+export const LOW = "Low Fund";
+export const HIGH = "High Fund";
+
+/** Options for the usual two-column read, with overrides. */
+export function optionsFor(overrides: Partial<ReadOptions> = {}): ReadOptions {
+  return { source: "returns.csv", columns: [LOW, HIGH], ...overrides };
+}
+
+/** Read and expect success. */
+export function readOk(text: string, overrides: Partial<ReadOptions> = {}): ReturnTable {
+  const result = readReturns(text, optionsFor(overrides));
+  if (!result.ok) expect.fail(`expected success, got ${JSON.stringify(result.issues)}`);
+  return result.value;
+}
+
+/** Read and expect failure. */
+export function readIssues(text: string, overrides: Partial<ReadOptions> = {}): InputIssue[] {
+  const result = readReturns(text, optionsFor(overrides));
+  if (result.ok) expect.fail("expected issues, the file was read");
+  return result.issues;
+}
+
+export const column = (table: ReturnTable, name: string): number[] => [...(table.columns.get(name) ?? expect.fail(`no column ${name}`))];
+
+/** A small monthly file in the default layout. */
+export const MONTHLY = [
+  "Date,Low Fund,High Fund,Comment",
+  "2020-01-31,0.01,0.02,first",
+  "2020-02-29,-0.005,0.031,",
+  "2020-03-31,0.002,-0.04,\"quoted, text\"",
+  "2020-04-30,0.012,0.05,x",
+  "",
+].join("\n");
