@@ -10,10 +10,12 @@ import { decodeText } from "../input/decodeText.js";
 import { describeInputIssue, describeInputWarning, type InputIssue } from "../input/issues.js";
 import { parseDecimal } from "../input/numbers.js";
 import type { ReadOptions } from "../input/options.js";
+import { joinOnDates } from "../input/joinOnDates.js";
 import { readReturns } from "../input/readReturns.js";
+import type { ReturnTable } from "../input/returnTable.js";
 import { renderRecordsCsv, renderRecordsText, renderJsonLines, type SolveFailure, type SolveRecord } from "../report/records.js";
 import { renderReport } from "../report/render.js";
-import type { InputDescription, RiskFreeSource, SolveReport } from "../report/types.js";
+import type { InputDescription, JoinDescription, RiskFreeSource, SolveReport } from "../report/types.js";
 import { exitCodes, type ExitCode } from "./exitCodes.js";
 import { emit, wantsColour } from "./emit.js";
 import type { CliIo } from "./io.js";
@@ -42,16 +44,23 @@ interface Outcome {
   readonly messages: readonly string[];
 }
 
-/** Runs solve on `files` ("-" for standard input) for every pair and returns the exit code. */
-export async function runSolve(files: readonly string[], options: SolveCliOptions, io: CliIo): Promise<ExitCode> {
+/** Runs solve on `given` files (none or "-": standard input) for every pair and returns the exit code. */
+export async function runSolve(given: readonly string[], options: SolveCliOptions, io: CliIo): Promise<ExitCode> {
   const pairs = pairsFrom(options);
-  const several = files.length * pairs.length > 1;
+  const joined = joinedSides(given, options);
+  if (joined === null && given.length === 0 && io.stdinIsTerminal) {
+    io.writeErr(`error: ${describeCliIssue({ code: "no-input" })}\n`);
+    return exitCodes.usage;
+  }
+  const files = given.length === 0 ? ["-"] : given;
+  const several = joined === null && files.length * pairs.length > 1;
   if (several && options.format === "json") {
     io.writeErr(`error: ${describeCliIssue({ code: "invalid-option", option: "--format", value: "json", expected: "several files or pairs need --format jsonl (one record per line), csv or text" })}\n`);
     return exitCodes.usage;
   }
   const outcomes: Outcome[] = [];
-  for (const file of files) outcomes.push(...(await solveFile(file, pairs, options, io)));
+  if (joined !== null) outcomes.push(await solveJoined(joined, options, io));
+  else for (const file of files) outcomes.push(...(await solveFile(file, pairs, options, io)));
 
   const records = outcomes.map((o) => o.record);
   const single = !several && records[0]?.kind === "report" ? records[0].report : null;
@@ -88,47 +97,125 @@ async function solveFile(file: string, pairs: readonly Pair[], options: SolveCli
 
 function solvePair(text: string, source: string, pair: Pair, options: SolveCliOptions): Outcome {
   const riskFree = riskFreeSource(options);
-  const table = readReturns(text, readOptions(source, pair, riskFree, options));
+  const table = readReturns(text, readOptions(source, [pair.low, pair.high, ...riskFreeColumn(riskFree)], options));
   if (!table.ok) return failed(source, pair, exitCodes.input, inputErrors(table.issues));
-  const values = table.value.columns;
+  const keys = { low: pair.low, high: pair.high, riskFree: riskFree.kind === "column" ? riskFree.column : null };
+  return solveTable(table.value, source, pair, keys, riskFree, null, options);
+}
+
+/** Columns of a table that hold the books and the risk-free return (null: constant or none). */
+interface TableKeys {
+  readonly low: string;
+  readonly high: string;
+  readonly riskFree: string | null;
+}
+
+/** Solves one aligned table whose `keys` columns hold the data; describes it as `pair` and `riskFree`. */
+function solveTable(
+  table: ReturnTable,
+  source: string,
+  pair: Pair,
+  keys: TableKeys,
+  riskFree: RiskFreeSource,
+  join: JoinDescription | null,
+  options: SolveCliOptions,
+): Outcome {
+  const values = table.columns;
   const solved = solve(
     {
-      low: values.get(pair.low)!,
-      high: values.get(pair.high)!,
-      riskFree: riskFree.kind === "column" ? values.get(riskFree.column)! : riskFree.kind === "constant" ? riskFree.rate : 0,
+      low: values.get(keys.low)!,
+      high: values.get(keys.high)!,
+      riskFree: keys.riskFree !== null ? values.get(keys.riskFree)! : riskFree.kind === "constant" ? riskFree.rate : 0,
     },
     { weight: options.weight, steps: options.steps },
   );
   if (!solved.ok) {
     return failed(source, pair, exitCodes.input, solved.issues.map((d) => ({ code: d.code, message: `${source}: ${d.message}` })));
   }
-  const { dates, dropped } = table.value;
+  const { dates, dropped } = table;
   const input: InputDescription = {
     source,
-    dateColumn: table.value.dateColumn,
+    dateColumn: table.dateColumn,
     lowColumn: pair.low,
     highColumn: pair.high,
     riskFree,
     units: options.units,
     firstDate: dates[0] ?? "",
     lastDate: dates[dates.length - 1] ?? "",
-    rowsRead: table.value.rowsRead,
+    rowsRead: table.rowsRead,
     rowsDropped: dropped.count,
     droppedDates: dropped.firstDates,
-    frequency: table.value.frequency,
+    frequency: table.frequency,
+    join,
   };
   const report: SolveReport = { tool, input, solution: solved.value };
   const messages = [
-    ...table.value.warnings.map((w) => `warning: ${describeInputWarning(w)}\n`),
+    ...table.warnings.map((w) => `warning: ${describeInputWarning(w)}\n`),
     ...solved.value.diagnostics.filter((d) => d.severity !== "info").map((d) => `${d.severity}: ${source}: ${d.message}\n`),
   ];
   return { record: { kind: "report", report }, code: solved.value.bounds === null ? exitCodes.rejected : exitCodes.ok, messages };
 }
 
-function readOptions(source: string, pair: Pair, riskFree: RiskFreeSource, options: SolveCliOptions): ReadOptions {
+interface Side {
+  readonly file: string;
+  readonly column: string;
+}
+
+/** Two-file mode: no file arguments, and --low and --high both written as PATH:COLUMN (split at the last colon). */
+function joinedSides(files: readonly string[], options: SolveCliOptions): { low: Side; high: Side } | null {
+  if (files.length > 0 || options.low === undefined || options.high === undefined) return null;
+  const side = (value: string): Side | null => {
+    const at = value.lastIndexOf(":");
+    return at <= 0 || at === value.length - 1 ? null : { file: value.slice(0, at), column: value.slice(at + 1) };
+  };
+  const low = side(options.low);
+  const high = side(options.high);
+  return low === null || high === null ? null : { low, high };
+}
+
+/** Reads the low book from one file and the high book from another and joins them on date. */
+async function solveJoined(sides: { low: Side; high: Side }, options: SolveCliOptions, io: CliIo): Promise<Outcome> {
+  const describe = (side: Side): string => (side.file === "-" ? "<stdin>" : side.file);
+  const source = `${describe(sides.low)} + ${describe(sides.high)}`;
+  const pair = { low: sides.low.column, high: sides.high.column };
+  const riskFree = riskFreeSource(options);
+  const tables: ReturnTable[] = [];
+  for (const [key, side, extra] of [["low", sides.low, riskFreeColumn(riskFree)], ["high", sides.high, []]] as const) {
+    const bytes = await io.readInput(side.file);
+    if (!bytes.ok) return failed(source, pair, exitCodes.input, [{ code: bytes.issues.code, message: describeCliIssue(bytes.issues) }]);
+    const text = decodeText(bytes.value, describe(side));
+    if (!text.ok) return failed(source, pair, exitCodes.input, inputErrors(text.issues));
+    const table = readReturns(text.value, readOptions(describe(side), [side.column, ...extra], options));
+    if (!table.ok) return failed(source, pair, exitCodes.input, inputErrors(table.issues));
+    // Both files may call their column the same ("Return"): key them by role for the join.
+    const columns = new Map<string, Float64Array>([[key, table.value.columns.get(side.column)!]]);
+    for (const name of extra) columns.set(`rf:${name}`, table.value.columns.get(name)!);
+    tables.push({ ...table.value, columns });
+  }
+  const joined = joinOnDates(tables);
+  if (!joined.ok) return failed(source, pair, exitCodes.input, inputErrors(joined.issues));
+  const { table, dateCounts, matched, unmatched } = joined.value;
+  const join: JoinDescription = {
+    sides: [sides.low, sides.high].map((side, i) => ({
+      source: describe(side),
+      column: side.column,
+      dates: dateCounts[i] ?? 0,
+      unmatched: unmatched[i]?.count ?? 0,
+    })),
+    matched,
+  };
+  const keys = { low: "low", high: "high", riskFree: riskFree.kind === "column" ? `rf:${riskFree.column}` : null };
+  return solveTable(table, source, pair, keys, riskFree, join, options);
+}
+
+function riskFreeColumn(riskFree: RiskFreeSource): string[] {
+  return riskFree.kind === "column" ? [riskFree.column] : [];
+}
+
+function readOptions(source: string, columns: readonly string[], options: SolveCliOptions): ReadOptions {
   return {
     source,
-    columns: [pair.low, pair.high, ...(riskFree.kind === "column" ? [riskFree.column] : [])],
+    columns,
     units: options.units,
     allowExtreme: options.allowExtreme,
     sort: options.sort,
@@ -174,6 +261,7 @@ Examples:
   $ betabound solve returns.csv --low LOW --high HIGH --rf TBILL --units percent --format json
   $ cat returns.csv | betabound solve - --low LOW --high HIGH --steps 21 --format csv --output grid.csv
   $ betabound solve desk-a.csv desk-b.csv --lows LV1,LV2 --highs HB1 --format jsonl > pairs.jsonl
+  $ betabound solve --low calm.csv:Return --high bold.csv:Return --rf 0.0001
 `;
 
 /** The commander definition of `solve`. */
@@ -181,8 +269,8 @@ export function solveCommand(io: CliIo, setExit: (code: ExitCode) => void): Comm
   return new Command("solve")
     .description("Sample moments, CAPM fits and the identified set of structural betas for return files.")
     .argument("[files...]", "CSV files of per-period returns, or '-' for standard input")
-    .option("--low <column>", "column of the low-beta book's returns")
-    .option("--high <column>", "column of the high-beta book's returns")
+    .option("--low <column>", "column of the low-beta book's returns (PATH:COLUMN to read it from its own file)")
+    .option("--high <column>", "column of the high-beta book's returns (PATH:COLUMN: joined with --low on date)")
     .option("--pair <low:high>", "a pair of columns to solve (repeatable)", collectPair)
     .option("--lows <columns>", "comma-separated low-beta columns: every combination with --highs", columnList)
     .option("--highs <columns>", "comma-separated high-beta columns", columnList)
@@ -220,11 +308,6 @@ export function solveCommand(io: CliIo, setExit: (code: ExitCode) => void): Comm
         setExit(exitCodes.usage);
         return;
       }
-      if (files.length === 0 && io.stdinIsTerminal) {
-        io.writeErr(`error: ${describeCliIssue({ code: "no-input" })}\n`);
-        setExit(exitCodes.usage);
-        return;
-      }
-      setExit(await runSolve(files.length === 0 ? ["-"] : files, parsed.data, io));
+      setExit(await runSolve(files, parsed.data, io));
     });
 }

@@ -37,6 +37,13 @@ function inputOf(input: InputDescription): InputDescription {
     rowsDropped: input.rowsDropped,
     droppedDates: [...input.droppedDates],
     frequency: input.frequency === null ? null : { name: input.frequency.name, periodsPerYear: input.frequency.periodsPerYear },
+    join:
+      input.join === null
+        ? null
+        : {
+            sides: input.join.sides.map((side) => ({ source: side.source, column: side.column, dates: side.dates, unmatched: side.unmatched })),
+            matched: input.join.matched,
+          },
   };
 }
 

@@ -50,8 +50,17 @@ export function inputSection(input: InputDescription, observations: number, styl
       ["Observations", `${formatCount(observations)} used of ${formatCount(input.rowsRead)} rows read`],
       ["Frequency", frequency],
       ["Dropped rows", droppedText(input)],
+      ...joinFields(input),
     ]),
   ];
+}
+
+function joinFields(input: InputDescription): [string, string][] {
+  if (input.join === null) return [];
+  const sides = input.join.sides.map(
+    (side) => `${printable(side.source)} ("${printable(side.column)}") ${formatCount(side.dates)} dates, ${formatCount(side.unmatched)} unmatched`,
+  );
+  return [["Joined on date", `${formatCount(input.join.matched)} dates in both files: ${sides.join("; ")}`]];
 }
 
 /** The Sample moments section: mean, stdev, variance and Sharpe ratio of each series. */

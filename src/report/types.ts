@@ -31,6 +31,14 @@ export interface InputDescription {
   readonly droppedDates: readonly string[];
   /** Detected (or given) data frequency; null when it could not be told from the dates. */
   readonly frequency: { readonly name: string; readonly periodsPerYear: number } | null;
+  /** When low and high came from two files joined on date: each side's file, column and dates, and the match. */
+  readonly join: JoinDescription | null;
+}
+
+export interface JoinDescription {
+  readonly sides: readonly { readonly source: string; readonly column: string; readonly dates: number; readonly unmatched: number }[];
+  /** Dates present in both files: the rows used before dropping missing values. */
+  readonly matched: number;
 }
 
 export interface SolveReport {

@@ -27,6 +27,17 @@ export const inputSchema = doc(
     rowsDropped: z.int().nonnegative(),
     droppedDates: z.array(z.string()),
     frequency: z.strictObject({ name: z.string(), periodsPerYear: z.number().positive() }).nullable(),
+    join: doc(
+      z
+        .strictObject({
+          sides: z.array(
+            z.strictObject({ source: z.string(), column: z.string(), dates: z.int().nonnegative(), unmatched: z.int().nonnegative() }),
+          ),
+          matched: z.int().nonnegative(),
+        })
+        .nullable(),
+      "when low and high came from two files joined on date: each side and how many dates matched",
+    ),
   }),
   "where the numbers came from",
   "Input",

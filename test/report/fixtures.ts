@@ -78,6 +78,7 @@ export const input: InputDescription = {
   lastDate: "2023-12-31",
   rowsRead: 62,
   rowsDropped: 2,
+  join: null,
   droppedDates: ["2020-03-31", "2021-07-31"],
   frequency: { name: "monthly", periodsPerYear: 12 },
 };

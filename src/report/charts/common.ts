@@ -1,0 +1,185 @@
+/**
+ * Shared pieces of the charts: rendering a Vega spec to an SVG string (Vega is loaded on first use,
+ * never at start-up), the palette, text clean-up for strings from the input file, a text-width
+ * estimate for placing labels, and the caption lines every chart carries.
+ *
+ * Everything here is pure apart from the lazy module load: the same spec gives the same SVG.
+ */
+
+import type { Spec } from "vega";
+import { printable } from "../layout.js";
+
+/**
+ * Okabe & Ito (2008) colours, distinguishable with the common colour-vision deficiencies. Every
+ * mark that uses one also differs in dash pattern or shape, so nothing depends on colour alone.
+ */
+export const palette = {
+  blue: "#0072B2",
+  orange: "#E69F00",
+  vermillion: "#D55E00",
+  ink: "#222222",
+  text: "#333333",
+  grey: "#666666",
+  rule: "#9A9A9A",
+  lightRule: "#D0D0D0",
+  setFill: "#DCE9F5",
+  intervalFill: "#EEF4FA",
+} as const;
+
+/** Fonts every system has (no web fonts: the SVG and the HTML report work offline). */
+export const fontFamily = "Helvetica, Arial, 'Liberation Sans', 'DejaVu Sans', sans-serif";
+
+/** Dash patterns (SVG stroke-dasharray). */
+export const dash = {
+  solid: [] as number[],
+  dashed: [7, 4],
+  dotted: [1.5, 3],
+  guide: [2, 3],
+};
+
+/**
+ * Text from the input (file and column names) made safe to place in SVG: control characters become
+ * visible `\u{..}` escapes (XML 1.0 forbids most of them) and unpaired surrogates become U+FFFD.
+ * Markup characters need nothing here: Vega's SVG writer escapes them.
+ */
+export function chartText(text: string): string {
+  return printable(text).replace(/[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g, "\uFFFD");
+}
+
+/**
+ * Estimated width in pixels of `text` in the chart font: 0.6 em per character (0.66 bold), at or
+ * above the average advance of the fonts in `fontFamily`, so labels placed with it do not collide.
+ */
+export function textWidth(text: string, fontSize: number, bold = false): number {
+  return text.length * fontSize * (bold ? 0.66 : 0.6);
+}
+
+/** A no-break space: `wrapToWidth` never breaks a line there (used inside formulas). */
+export const nbsp = "\u00a0";
+
+/** Word-wraps a caption paragraph to lines of at most `pixels` at `fontSize`, breaking at spaces only. */
+export function wrapToWidth(text: string, pixels: number, fontSize: number): string[] {
+  const width = Math.max(20, Math.floor(pixels / (fontSize * 0.6)));
+  const lines: string[] = [];
+  let current = "";
+  for (const word of text.split(/ +/).filter((w) => w !== "")) {
+    if (current !== "" && current.length + 1 + word.length > width) {
+      lines.push(current);
+      current = word;
+    } else current = current === "" ? word : `${current} ${word}`;
+  }
+  lines.push(current);
+  return lines;
+}
+
+/** A number for a chart label: four significant digits, exponent only for extreme magnitudes. */
+export function labelNumber(x: number): string {
+  if (x === 0) return "0";
+  const magnitude = Math.abs(x);
+  if (magnitude < 1e-3 || magnitude >= 1e5) return x.toExponential(3);
+  return x.toPrecision(4);
+}
+
+function round(x: number): number {
+  return Number(x.toPrecision(12));
+}
+
+/**
+ * The model's maintained assumptions (src/report/conventions.ts) in one short line, for a caption;
+ * the full sentences are in the text and HTML reports.
+ */
+export function assumptionsLine(weight: number | null): string {
+  const formula = (text: string): string => text.replace(/ /g, nbsp);
+  const proxy =
+    weight === null
+      ? `market proxy ${formula("M = w low + (1 - w) high")}, betas scaled so that ${formula("w b_low + (1 - w) b_high = 1")}`
+      : `market proxy ${formula(`M = ${weight} low + ${round(1 - weight)} high`)}, betas scaled so that ` +
+        formula(`${weight} b_low + ${round(1 - weight)} b_high = 1`);
+  return (
+    "Assumptions: one common factor; each book's noise uncorrelated with the factor and with the other " +
+    `book's noise; constant betas and variances; ${proxy}.`
+  );
+}
+
+/** The last caption line of every chart. */
+export const cautionCaption = "These are statistical estimates, not investment advice.";
+
+/** The chart's fixed look: fonts, sizes and colours of titles, axes and text. */
+export function chartConfig(): NonNullable<Spec["config"]> {
+  return {
+    background: "#FFFFFF",
+    title: {
+      font: fontFamily,
+      fontSize: 17,
+      fontWeight: "bold",
+      color: palette.ink,
+      subtitleFont: fontFamily,
+      subtitleFontSize: 12,
+      subtitleColor: palette.text,
+      subtitlePadding: 8,
+      subtitleLineHeight: 16,
+      anchor: "start",
+      frame: "bounds",
+      offset: 16,
+    },
+    axis: {
+      labelFont: fontFamily,
+      titleFont: fontFamily,
+      labelFontSize: 11,
+      titleFontSize: 12,
+      titleFontWeight: "bold",
+      labelColor: palette.text,
+      titleColor: palette.ink,
+      domainColor: "#555555",
+      tickColor: "#555555",
+      gridColor: "#EBEBEB",
+    },
+    text: { font: fontFamily, fill: palette.text },
+  };
+}
+
+/**
+ * Renders a Vega spec to an SVG string. Vega is imported here, on first use, so that commands which
+ * draw no chart never load it. The specs use no clip paths or gradients, so the SVG has no generated
+ * ids and depends on the spec alone. Vega's own log is off: a pure function does not print.
+ */
+export async function renderSvg(spec: Spec): Promise<string> {
+  const vega = await import("vega");
+  const view = new vega.View(vega.parse(spec), { renderer: "none", logLevel: vega.None });
+  try {
+    return `${await view.toSVG()}\n`;
+  } finally {
+    view.finalize();
+  }
+}
+
+/** A chart that says why there is nothing to draw (a rejected model, no rolling windows). */
+export function messageSpec(title: string, lines: readonly string[], description: string): Spec {
+  const width = 640;
+  return {
+    description,
+    width,
+    height: 20 * lines.length,
+    padding: 16,
+    autosize: { type: "pad" },
+    config: chartConfig(),
+    title: { text: title },
+    marks: [
+      {
+        type: "text",
+        name: "message",
+        from: { data: "message" },
+        encode: {
+          enter: {
+            x: { value: 0 },
+            y: { field: "y" },
+            text: { field: "text" },
+            fontSize: { value: 13 },
+            baseline: { value: "top" },
+          },
+        },
+      },
+    ],
+    data: [{ name: "message", values: lines.map((text, i) => ({ text, y: 20 * i })) }],
+  };
+}
