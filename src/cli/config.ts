@@ -37,6 +37,7 @@ export const configFileSchema = z.strictObject({
   block: z.number().optional(),
   dateFormat: z.string().optional(),
   sort: z.boolean().optional(),
+  decimalComma: z.boolean().optional(),
   periodsPerYear: z.number().optional(),
   missing: z.array(z.string()).optional(),
   onMissing: z.string().optional(),

@@ -53,6 +53,7 @@ export const solveOptionsSchema = z
     input: z.enum(inputKinds),
     idColumn: z.string().min(1).optional(),
     valueColumn: z.string().min(1).optional(),
+    decimalComma: z.boolean(),
   })
   .strict()
   .refine((o) => (o.low === undefined) === (o.high === undefined), {

@@ -221,6 +221,7 @@ function readOptions(source: string, columns: readonly string[], options: SolveC
     sort: options.sort,
     onMissing: options.onMissing,
     input: options.input,
+    decimalComma: options.decimalComma,
     ...definedOnly({
       dateColumn: options.date,
       delimiter: options.delimiter,
@@ -286,6 +287,7 @@ export function solveCommand(io: CliIo, setExit: (code: ExitCode) => void): Comm
     .option("--block <n>", "which table of the file when blank lines separate several (1-based)", wholeNumber(1, 1_000_000))
     .option("--date-format <layout>", "explicit date layout, e.g. DD/MM/YYYY, MM/DD/YYYY, D MMM YYYY")
     .option("--sort", "sort rows by date instead of reporting unsorted dates", false)
+    .option("--decimal-comma", "numbers use a decimal comma (1,5 is 1.5; use with a semicolon or tab delimiter)", false)
     .option("--periods-per-year <n>", "override the detected frequency", numberArgument("must be a positive number", (x) => x > 0))
     .option("--missing <values>", "extra missing-value markers, comma-separated (e.g. -99.99,-999)", columnList)
     .addOption(new Option("--on-missing <policy>", "drop rows with a missing value, or treat them as errors").choices(missingPolicies).default("drop"))

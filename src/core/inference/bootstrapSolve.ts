@@ -1,0 +1,152 @@
+/**
+ * Stationary-bootstrap distribution of everything `solve` estimates (bounds, CAPM betas and alphas,
+ * landmark betas, Sharpe ratios), with percentile intervals and bootstrap standard errors.
+ *
+ * Rows (low, high, risk-free) are resampled jointly (stationaryBootstrap.ts), replicate r from its own
+ * stream createRandom(seed, r + 1). Per replicate only five sums are accumulated, over contiguous
+ * runs of a doubled copy of the centred excess returns (no wrap test, no allocation), and the
+ * statistics follow in closed form (bootstrapStatistics.ts). Centring at the full-sample means keeps
+ * the one-pass sums free of cancellation. `bootstrapRange` runs replicates [from, to) and
+ * `mergeBootstrapRanges` joins ranges: any split of [0, B) over workers gives the same merged draws
+ * bit for bit, hence the same summary. Block length "auto" is the Politis-White (2004) value,
+ * arch conventions, the largest over the two excess series (blockLength.ts).
+ */
+
+import { commonBlockLength } from "./blockLength.js";
+import { quantityCount, writeStatistics } from "./bootstrapStatistics.js";
+import { drawBlocks, replicateRandom, validateBlockLength } from "./stationaryBootstrap.js";
+
+export interface BootstrapData {
+  readonly low: ArrayLike<number>;
+  readonly high: ArrayLike<number>;
+  /** Risk-free return per period: a number or a series aligned with low and high. Default 0. */
+  readonly riskFree?: number | ArrayLike<number>;
+  /** Weight of the low book in the market proxy, 0 < w < 1. */
+  readonly weight: number;
+}
+
+export interface BootstrapPlan {
+  readonly replicates: number;
+  /** Mean block length b >= 1 (p = 1/b), or "auto" (Politis-White). */
+  readonly blockLength: number | "auto";
+  readonly seed: number;
+}
+
+/** Draws of replicates [from, to): draws[q * (to - from) + (r - from)] for quantity q (bootstrapQuantities order). */
+export interface BootstrapRange {
+  readonly from: number;
+  readonly to: number;
+  readonly blockLength: number;
+  readonly draws: Float64Array;
+}
+
+/** Excess returns of both books. */
+export function excessReturns(data: BootstrapData): { low: Float64Array; high: Float64Array } {
+  const n = data.low.length;
+  if (data.high.length !== n) throw new RangeError("bootstrap: low and high differ in length");
+  const rf = data.riskFree ?? 0;
+  if (typeof rf !== "number" && rf.length !== n) throw new RangeError("bootstrap: riskFree differs in length");
+  const low = new Float64Array(n);
+  const high = new Float64Array(n);
+  for (let t = 0; t < n; t++) {
+    const r = typeof rf === "number" ? rf : rf[t]!;
+    low[t] = data.low[t]! - r;
+    high[t] = data.high[t]! - r;
+  }
+  return { low, high };
+}
+
+/** The numeric mean block length: as given, or the Politis-White value of the excess series. */
+export function resolveBlockLength(data: BootstrapData, blockLength: number | "auto"): number {
+  if (blockLength !== "auto") {
+    validateBlockLength(blockLength);
+    return blockLength;
+  }
+  const { low, high } = excessReturns(data);
+  return Math.max(1, commonBlockLength([low, high]));
+}
+
+/** Runs replicates [from, to) of `plan` (its `replicates` field is not used here). */
+export function bootstrapRange(data: BootstrapData, plan: Omit<BootstrapPlan, "replicates">, from: number, to: number): BootstrapRange {
+  if (!(Number.isInteger(from) && Number.isInteger(to) && 0 <= from && from <= to)) {
+    throw new RangeError(`bootstrapRange: invalid replicate range [${from}, ${to})`);
+  }
+  const blockLength = resolveBlockLength(data, plan.blockLength);
+  const { low, high } = excessReturns(data);
+  const n = low.length;
+  if (n < 3) throw new RangeError("bootstrap: needs at least 3 observations");
+  let lowMean = 0;
+  let highMean = 0;
+  for (let t = 0; t < n; t++) {
+    lowMean += low[t]!;
+    highMean += high[t]!;
+  }
+  lowMean /= n;
+  highMean /= n;
+  // Centred and doubled, so that a block starting anywhere in [0, n) with length <= n is contiguous.
+  const x = new Float64Array(2 * n);
+  const y = new Float64Array(2 * n);
+  for (let t = 0; t < n; t++) {
+    x[t] = x[t + n] = low[t]! - lowMean;
+    y[t] = y[t + n] = high[t]! - highMean;
+  }
+  const count = to - from;
+  const draws = new Float64Array(quantityCount * count);
+  const starts = new Int32Array(n);
+  const lengths = new Int32Array(n);
+  for (let r = from; r < to; r++) {
+    const blocks = drawBlocks(n, blockLength, replicateRandom(plan.seed, r), starts, lengths);
+    let sx = 0;
+    let sy = 0;
+    let sxx = 0;
+    let syy = 0;
+    let sxy = 0;
+    for (let b = 0; b < blocks; b++) {
+      const end = starts[b]! + lengths[b]!;
+      for (let i = starts[b]!; i < end; i++) {
+        const xi = x[i]!;
+        const yi = y[i]!;
+        sx += xi;
+        sy += yi;
+        sxx += xi * xi;
+        syy += yi * yi;
+        sxy += xi * yi;
+      }
+    }
+    writeStatistics(
+      {
+        n,
+        weight: data.weight,
+        lowMean: lowMean + sx / n,
+        highMean: highMean + sy / n,
+        lowVariance: (sxx - (sx * sx) / n) / (n - 1),
+        highVariance: (syy - (sy * sy) / n) / (n - 1),
+        covariance: (sxy - (sx * sy) / n) / (n - 1),
+      },
+      draws,
+      r - from,
+      count,
+    );
+  }
+  return { from, to, blockLength, draws };
+}
+
+/** Joins ranges that tile [0, replicates) (in any order) into one range of all replicates. */
+export function mergeBootstrapRanges(ranges: readonly BootstrapRange[], replicates: number): BootstrapRange {
+  const sorted = [...ranges].sort((a, b) => a.from - b.from);
+  let next = 0;
+  for (const range of sorted) {
+    if (range.from !== next) throw new RangeError(`mergeBootstrapRanges: replicates [${next}, ${range.from}) are missing or overlap`);
+    if (range.blockLength !== sorted[0]!.blockLength) throw new RangeError("mergeBootstrapRanges: ranges used different block lengths");
+    next = range.to;
+  }
+  if (next !== replicates) throw new RangeError(`mergeBootstrapRanges: ranges end at ${next}, expected ${replicates}`);
+  const draws = new Float64Array(quantityCount * replicates);
+  for (const range of sorted) {
+    const count = range.to - range.from;
+    for (let q = 0; q < quantityCount; q++) {
+      draws.set(range.draws.subarray(q * count, (q + 1) * count), q * replicates + range.from);
+    }
+  }
+  return { from: 0, to: replicates, blockLength: sorted[0]?.blockLength ?? 1, draws };
+}

@@ -1,0 +1,46 @@
+/**
+ * Ordinary least squares with k regressors, and the classical covariance of the coefficients.
+ *
+ * ## Conventions
+ * The design is given as k columns (the intercept, if any, is a column of ones). Coefficients solve
+ * the normal equations X'X b = X'y by Gaussian elimination with partial pivoting (linearAlgebra.ts),
+ * adequate for the small, well-conditioned designs of this project (a CAPM regression, the R sandwich
+ * and statsmodels reference regressions of methods.md section 8). Residuals are formed in a second
+ * pass. Classical covariance s^2 (X'X)^{-1} with s^2 = e'e / (n - k), as R's vcov(lm) (Greene,
+ * Econometric Analysis, ch. 4).
+ */
+
+import { crossColumns, inverse, scale, solve, type Matrix } from "./linearAlgebra.js";
+
+export interface LeastSquaresFit {
+  readonly coefficients: number[];
+  readonly residuals: Float64Array;
+  /** (X'X)^{-1}, the "bread" of every sandwich covariance. */
+  readonly inverseCrossProduct: Matrix;
+}
+
+/** Regresses y on the columns of `design`. */
+export function leastSquares(design: readonly Float64Array[], y: ArrayLike<number>): LeastSquaresFit {
+  const n = y.length;
+  for (const column of design) {
+    if (column.length !== n) throw new RangeError("leastSquares: design and response differ in length");
+  }
+  const xtx = crossColumns(design, design);
+  const xty = crossColumns(design, [y]);
+  const coefficients = solve(xtx, xty).map((row) => row[0]!);
+  const residuals = new Float64Array(n);
+  for (let t = 0; t < n; t++) {
+    let fitted = 0;
+    for (let j = 0; j < design.length; j++) fitted += design[j]![t]! * coefficients[j]!;
+    residuals[t] = y[t]! - fitted;
+  }
+  return { coefficients, residuals, inverseCrossProduct: inverse(xtx) };
+}
+
+/** s^2 (X'X)^{-1}, s^2 = e'e / (n - k): the homoskedastic covariance of the OLS coefficients. */
+export function classicalCovariance(design: readonly Float64Array[], residuals: Float64Array): Matrix {
+  const n = residuals.length;
+  let ssr = 0;
+  for (let t = 0; t < n; t++) ssr += residuals[t]! * residuals[t]!;
+  return scale(inverse(crossColumns(design, design)), ssr / (n - design.length));
+}

@@ -1,0 +1,60 @@
+/**
+ * Standard errors of the Sharpe ratio SR = mu / sigma of an excess-return series (methods.md section 12).
+ *
+ * - iid normal (Lo 2002, "The Statistics of Sharpe Ratios", Financial Analysts Journal 58(4), 36-52):
+ *   SE = sqrt((1 + SR^2 / 2) / T).
+ * - iid non-normal (Mertens 2002): SE = sqrt((1 - g3 SR + (g4 - 1)/4 SR^2) / T), g3 skewness, g4
+ *   kurtosis (not excess).
+ * - HAC delta method (Lo 2002's GMM form): theta = (mu, sigma^2), dSR/dtheta = (1/sigma,
+ *   -mu / (2 sigma^3)), Var = g' Sigma g / T with Sigma the HAC long-run covariance (longRun.ts) of
+ *   (r_t - mu, (r_t - mu)^2 - sigma^2). With a zero lag and Sigma's divisor T this is Mertens' form
+ *   with moment estimates of divisor T.
+ * The estimate uses the sample standard deviation (divisor T - 1), as the rest of the project.
+ */
+
+import { longRunCovariance } from "./longRun.js";
+import { bilinear } from "./linearAlgebra.js";
+import type { HacOptions } from "./options.js";
+
+export interface SharpeStdErrors {
+  readonly estimate: number;
+  readonly iidStdErr: number;
+  readonly hacStdErr: number;
+}
+
+/** Lo (2002) iid-normal standard error. */
+export function sharpeIidStdErr(sharpe: number, observations: number): number {
+  return Math.sqrt((1 + (sharpe * sharpe) / 2) / observations);
+}
+
+/** Mertens (2002) iid standard error with skewness and (raw) kurtosis. */
+export function sharpeMertensStdErr(sharpe: number, skewness: number, kurtosis: number, observations: number): number {
+  return Math.sqrt((1 - skewness * sharpe + ((kurtosis - 1) / 4) * sharpe * sharpe) / observations);
+}
+
+/** Estimate, Lo iid and HAC delta-method standard errors of the Sharpe ratio of `excess`. */
+export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {}): SharpeStdErrors {
+  const n = excess.length;
+  let mu = 0;
+  for (let t = 0; t < n; t++) mu += excess[t]!;
+  mu /= n;
+  let ss = 0;
+  for (let t = 0; t < n; t++) ss += (excess[t]! - mu) ** 2;
+  const variance = ss / (n - 1);
+  const sigma = Math.sqrt(variance);
+  const estimate = mu / sigma;
+  const first = new Float64Array(n);
+  const second = new Float64Array(n);
+  for (let t = 0; t < n; t++) {
+    const d = excess[t]! - mu;
+    first[t] = d;
+    second[t] = d * d - variance;
+  }
+  const sigmaHat = longRunCovariance([first, second], hac).covariance;
+  const gradient = [1 / sigma, -mu / (2 * sigma * variance)];
+  return {
+    estimate,
+    iidStdErr: sharpeIidStdErr(estimate, n),
+    hacStdErr: Math.sqrt(bilinear(gradient, sigmaHat, gradient) / n),
+  };
+}
