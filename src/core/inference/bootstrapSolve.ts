@@ -94,25 +94,14 @@ export function bootstrapRange(data: BootstrapData, plan: Omit<BootstrapPlan, "r
   const draws = new Float64Array(quantityCount * count);
   const starts = new Int32Array(n);
   const lengths = new Int32Array(n);
+  const sums = new Float64Array(5);
   for (let r = from; r < to; r++) {
-    const blocks = drawBlocks(n, blockLength, replicateRandom(plan.seed, r), starts, lengths);
-    let sx = 0;
-    let sy = 0;
-    let sxx = 0;
-    let syy = 0;
-    let sxy = 0;
-    for (let b = 0; b < blocks; b++) {
-      const end = starts[b]! + lengths[b]!;
-      for (let i = starts[b]!; i < end; i++) {
-        const xi = x[i]!;
-        const yi = y[i]!;
-        sx += xi;
-        sy += yi;
-        sxx += xi * xi;
-        syy += yi * yi;
-        sxy += xi * yi;
-      }
-    }
+    resampleSums(x, y, n, blockLength, replicateRandom(plan.seed, r), starts, lengths, sums);
+    const sx = sums[0]!;
+    const sy = sums[1]!;
+    const sxx = sums[2]!;
+    const syy = sums[3]!;
+    const sxy = sums[4]!;
     writeStatistics(
       {
         n,
@@ -129,6 +118,42 @@ export function bootstrapRange(data: BootstrapData, plan: Omit<BootstrapPlan, "r
     );
   }
   return { from, to, blockLength, draws };
+}
+
+/** Sums of x, y, x^2, y^2 and xy over one resample of the doubled, centred series, into `sums`. */
+function resampleSums(
+  x: Float64Array,
+  y: Float64Array,
+  n: number,
+  blockLength: number,
+  random: ReturnType<typeof replicateRandom>,
+  starts: Int32Array,
+  lengths: Int32Array,
+  sums: Float64Array,
+): void {
+  const blocks = drawBlocks(n, blockLength, random, starts, lengths);
+  let sx = 0;
+  let sy = 0;
+  let sxx = 0;
+  let syy = 0;
+  let sxy = 0;
+  for (let b = 0; b < blocks; b++) {
+    const end = starts[b]! + lengths[b]!;
+    for (let i = starts[b]!; i < end; i++) {
+      const xi = x[i]!;
+      const yi = y[i]!;
+      sx += xi;
+      sy += yi;
+      sxx += xi * xi;
+      syy += yi * yi;
+      sxy += xi * yi;
+    }
+  }
+  sums[0] = sx;
+  sums[1] = sy;
+  sums[2] = sxx;
+  sums[3] = syy;
+  sums[4] = sxy;
 }
 
 /** Joins ranges that tile [0, replicates) (in any order) into one range of all replicates. */

@@ -5,7 +5,9 @@
  * (methods.md section 7.1): I_1 ~ U{1..n}; for t >= 2, with probability p = 1/b a fresh uniform
  * start, otherwise I_t = I_{t-1} + 1, wrapping from n to 1. Equivalently, and as done here, blocks
  * with uniform starts and Geometric(p) lengths, L = 1 + floor(ln U / ln(1 - p)), laid end to end and
- * the last one cut at n rows: two uniforms per block instead of one per row. Rows of several series
+ * the last one cut at n rows. One uniform u per block gives both: start = floor(u n) and
+ * U = u n - start (for a continuous uniform these are independent, uniform on {0..n-1} and (0, 1)),
+ * so a resample costs about n/b generator calls instead of n. Rows of several series
  * are resampled jointly (the same indices for all).
  *
  * Replicate r (0-based) draws from `createRandom(seed, r + 1)`, its own stream, so a replicate's
@@ -31,8 +33,12 @@ export function drawBlocks(n: number, blockLength: number, random: RandomSource,
   let filled = 0;
   let count = 0;
   while (filled < n) {
-    const start = Math.floor(random.uniform() * n);
-    const drawn = p >= 1 ? 1 : 1 + Math.floor(Math.log(random.uniform()) / logStay);
+    const scaled = random.uniform() * n;
+    const start = Math.floor(scaled);
+    // The fractional part of a uniform times n is uniform on (0, 1) and independent of its integer
+    // part (up to the 2^-53 grid of the generator): one draw gives both the start and the length.
+    // A fraction that rounds to exactly 0 gives an infinite length, cut at n below.
+    const drawn = p >= 1 ? 1 : 1 + Math.floor(Math.log(scaled - start) / logStay);
     const length = Math.min(drawn, n - filled);
     starts[count] = start;
     lengths[count] = length;

@@ -1,0 +1,168 @@
+/**
+ * assessUncertainty: standard errors and confidence intervals for what `solve` reports.
+ *
+ * - CAPM alphas and betas: HAC covariance of each book's regression on the market proxy (hac.ts).
+ * - Bounds of the identified set: delta method with a long-run (HAC) or iid Omega (boundsDelta.ts),
+ *   or bootstrap standard errors (`intervalSource: "bootstrap"`); pointwise limits estimate -/+ z se
+ *   with z = Phi^{-1}(1 - alpha/2).
+ * - The structural betas themselves: Imbens & Manski (2004) interval (default) or Stoye (2009),
+ *   covering the true beta (a point of the set) with the stated probability. The high beta's interval
+ *   is the image of the low beta's under b_high = (1 - w b_low)/(1 - w) (both methods are equivariant
+ *   under this decreasing affine map: standard errors scale, roles of the ends swap).
+ * - Sharpe ratios: Lo (2002) iid and HAC delta-method standard errors (sharpe.ts).
+ * - Optional stationary bootstrap of all of it (bootstrapSummary.ts), off unless replicates > 0.
+ * Defaults (options.ts): confidence 0.95; HAC = Bartlett kernel, Newey-West (1994) lag, no
+ * prewhitening, no T/(T - k) adjustment; Omega by HAC; Imbens-Manski; delta-method standard errors.
+ * All series are excess returns (return minus risk-free); M = w low + (1 - w) high.
+ */
+
+import { boundsDeltaFromData } from "./boundsDelta.js";
+import { bootstrapSolve, type BootstrapSummary } from "./bootstrapSummary.js";
+import { hacCovariance } from "./hac.js";
+import { imbensManskiInterval, type ParameterInterval } from "./imbensManski.js";
+import { leastSquares } from "./leastSquares.js";
+import { normalQuantile } from "./normal.js";
+import {
+  defaultConfidence,
+  defaultIntervalMethod,
+  defaultIntervalSource,
+  defaultLongRun,
+  type HacOptions,
+  type IntervalMethod,
+  type IntervalSource,
+  type LongRunMethod,
+} from "./options.js";
+import { sharpeStdErrors } from "./sharpe.js";
+import { stoyeInterval } from "./stoye.js";
+import { excessReturns } from "./bootstrapSolve.js";
+import { crossProducts } from "../moments.js";
+import type { Uncertainty, PointwiseBound, BetaInterval, CapmHac } from "./uncertaintyTypes.js";
+
+export interface UncertaintySample {
+  readonly low: ArrayLike<number>;
+  readonly high: ArrayLike<number>;
+  readonly riskFree?: number | ArrayLike<number>;
+}
+
+export interface UncertaintyOptions {
+  /** Weight w of the low book in the market proxy. Default 0.5. */
+  readonly weight?: number;
+  readonly confidence?: number;
+  readonly longRun?: LongRunMethod;
+  readonly hac?: HacOptions;
+  readonly interval?: IntervalMethod;
+  readonly intervalSource?: IntervalSource;
+  /** Stationary bootstrap; off unless replicates > 0. Block length default "auto", seed default 1. */
+  readonly bootstrap?: { readonly replicates: number; readonly blockLength?: number | "auto"; readonly seed?: number };
+}
+
+export function assessUncertainty(sample: UncertaintySample, options: UncertaintyOptions = {}): Uncertainty {
+  const weight = options.weight ?? 0.5;
+  const confidence = options.confidence ?? defaultConfidence;
+  const longRun = options.longRun ?? defaultLongRun;
+  const hac = options.hac ?? {};
+  const method = options.interval ?? defaultIntervalMethod;
+  const source = options.intervalSource ?? defaultIntervalSource;
+  if (!(weight > 0 && weight < 1)) throw new RangeError(`weight must lie in (0, 1), got ${weight}`);
+  if (!(confidence > 0 && confidence < 1)) throw new RangeError(`confidence must lie in (0, 1), got ${confidence}`);
+  const data = sample.riskFree === undefined ? { low: sample.low, high: sample.high, weight } : { ...sample, weight };
+  const { low, high } = excessReturns(data);
+  const n = low.length;
+  if (n < 10) throw new RangeError(`assessUncertainty: needs at least 10 observations, got ${n}`);
+  const market = Float64Array.from(low, (l, t) => weight * l + (1 - weight) * high[t]!);
+
+  const moments = secondMoments(low, high, weight);
+  if (!(moments.lowVariance > 0 && moments.highVariance > 0)) throw new RangeError("assessUncertainty: a series is constant");
+  const replicates = options.bootstrap?.replicates ?? 0;
+  const bootstrap: BootstrapSummary | null =
+    replicates > 0
+      ? bootstrapSolve(sample.low, sample.high, sample.riskFree, weight, {
+          replicates,
+          blockLength: options.bootstrap?.blockLength ?? "auto",
+          seed: options.bootstrap?.seed ?? 1,
+          confidence,
+        })
+      : null;
+  if (source === "bootstrap" && bootstrap === null) throw new RangeError('intervalSource "bootstrap" needs bootstrap replicates > 0');
+
+  const delta = boundsDeltaFromData(low, high, moments, longRun, hac);
+  const z = normalQuantile(1 - (1 - confidence) / 2);
+  const pointwise = (estimate: number, stdError: number): PointwiseBound => ({ estimate, stdError, lower: estimate - z * stdError, upper: estimate + z * stdError });
+  let bounds: Uncertainty["bounds"] = null;
+  let lowBeta: Uncertainty["lowBeta"] = null;
+  let highBeta: Uncertainty["highBeta"] = null;
+  if (moments.covariance > 0) {
+    const useBootstrap = source === "bootstrap" && bootstrap !== null;
+    const se = (name: "lowBetaMin" | "lowBetaMax", fallback: number) => (useBootstrap ? (bootstrap.stdErrors[name] ?? Number.NaN) : fallback);
+    const seLower = se("lowBetaMin", delta.lowBeta.min.stdError);
+    const seUpper = se("lowBetaMax", delta.lowBeta.max.stdError);
+    const correlation = useBootstrap ? (bootstrap.boundsCorrelation ?? 0) : delta.correlation;
+    const ratio = weight / (1 - weight);
+    const lb = delta.lowBeta.min.estimate;
+    const ub = delta.lowBeta.max.estimate;
+    bounds = {
+      lowBeta: { min: pointwise(lb, seLower), max: pointwise(ub, seUpper) },
+      highBeta: { min: pointwise(delta.highBeta.min.estimate, ratio * seUpper), max: pointwise(delta.highBeta.max.estimate, ratio * seLower) },
+      correlation,
+    };
+    const estimate = { lower: lb, upper: ub, lowerStdError: seLower, upperStdError: seUpper };
+    const interval: ParameterInterval =
+      method === "stoye" ? stoyeInterval({ ...estimate, correlation }, confidence) : imbensManskiInterval(estimate, confidence);
+    const toHigh = (b: number) => (1 - weight * b) / (1 - weight);
+    lowBeta = { interval: { ...interval, method } satisfies BetaInterval };
+    highBeta = {
+      interval: {
+        lower: toHigh(interval.upper),
+        upper: toHigh(interval.lower),
+        method,
+        criticalValue: { lower: interval.criticalValue.upper, upper: interval.criticalValue.lower },
+      },
+    };
+  }
+
+  const design = [new Float64Array(n).fill(1), market];
+  const capmFit = (y: Float64Array) => {
+    const fit = leastSquares(design, y);
+    return { fit, hac: hacCovariance(design, fit.residuals, hac) };
+  };
+  const capmLow = capmFit(low);
+  const capmHigh = capmFit(high);
+  const capmHac = (c: ReturnType<typeof capmFit>): CapmHac => ({
+    alphaStdErr: Math.sqrt(c.hac.covariance[0]![0]!),
+    betaStdErr: Math.sqrt(c.hac.covariance[1]![1]!),
+  });
+
+  return {
+    confidence,
+    method: {
+      longRun,
+      kernel: delta.longRun.kernel,
+      bandwidth: delta.longRun.bandwidth,
+      lags: delta.longRun.lags,
+      intervalSource: source,
+    },
+    capm: {
+      low: { hac: capmHac(capmLow) },
+      high: { hac: capmHac(capmHigh) },
+      hac: {
+        lags: capmLow.hac.lags,
+        kernel: capmLow.hac.kernel,
+        bandwidth: capmLow.hac.bandwidth,
+        prewhite: capmLow.hac.prewhite,
+        adjust: capmLow.hac.adjust,
+      },
+    },
+    bounds,
+    lowBeta,
+    highBeta,
+    sharpe: { low: sharpeStdErrors(low, hac), high: sharpeStdErrors(high, hac), market: sharpeStdErrors(market, hac) },
+    bootstrap,
+  };
+}
+
+/** Sample variances and covariance (divisor n - 1) from compensated one-pass sums (moments.ts). */
+function secondMoments(low: Float64Array, high: Float64Array, weight: number) {
+  const cp = crossProducts([low, high]);
+  const d = cp.n - 1;
+  return { weight, lowVariance: cp.sums[0]![0]! / d, highVariance: cp.sums[1]![1]! / d, covariance: cp.sums[0]![1]! / d };
+}
