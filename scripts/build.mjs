@@ -26,6 +26,17 @@ await build({
 });
 chmodSync("dist/cli.js", 0o755);
 
+// The bootstrap's worker thread, loaded by dist/cli.js from its own folder.
+await build({
+  entryPoints: ["src/cli/bootstrapWorker.ts"],
+  outfile: "dist/bootstrapWorker.js",
+  bundle: true,
+  platform: "node",
+  format: "esm",
+  target: "node20",
+  logLevel: "warning",
+});
+
 await build({
   entryPoints: ["src/index.ts"],
   outfile: "dist/index.js",

@@ -49,6 +49,19 @@ export const configFileSchema = z.strictObject({
   expanding: z.boolean().optional(),
   minPeriods: z.number().optional(),
   uncertainty: z.boolean().optional(),
+  confidence: z.number().optional(),
+  longRun: z.string().optional(),
+  hacKernel: z.string().optional(),
+  hacBandwidth: z.string().optional(),
+  hacLags: z.number().optional(),
+  hacPrewhite: z.boolean().optional(),
+  hacAdjust: z.boolean().optional(),
+  interval: z.string().optional(),
+  intervalSource: z.string().optional(),
+  bootstrap: z.number().optional(),
+  blockLength: z.union([z.number(), z.literal("auto")]).optional(),
+  seed: z.number().optional(),
+  threads: z.number().optional(),
 });
 
 export type ConfigFile = z.infer<typeof configFileSchema>;

@@ -9,5 +9,8 @@ export interface CliIo {
   writeOutput(path: string, text: string): Promise<Result<void, CliIssue>>;
   readonly stdoutIsTerminal: boolean;
   readonly stdinIsTerminal: boolean;
+  readonly stderrIsTerminal: boolean;
+  /** Milliseconds on a monotonic clock (for the progress line only; results never depend on it). */
+  now(): number;
   readonly env: Readonly<Record<string, string | undefined>>;
 }

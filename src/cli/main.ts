@@ -13,6 +13,8 @@ const io = {
   writeOutput: writeFileAtomic,
   stdoutIsTerminal: process.stdout.isTTY === true,
   stdinIsTerminal: process.stdin.isTTY === true,
+  stderrIsTerminal: process.stderr.isTTY === true,
+  now: () => performance.now(),
   env: process.env,
 };
 

@@ -5,6 +5,18 @@
 import { z } from "zod";
 import { frequencies } from "../core/calendar.js";
 import { defaultSteps, defaultWeight } from "../core/solve.js";
+import {
+  automaticBandwidths,
+  defaultConfidence,
+  defaultHac,
+  defaultIntervalMethod,
+  defaultIntervalSource,
+  defaultLongRun,
+  hacKernels,
+  intervalMethods,
+  intervalSources,
+  longRunMethods,
+} from "../core/inference/options.js";
 import { reportFormats } from "../report/types.js";
 
 export const unitChoices = ["decimal", "percent"] as const;
@@ -17,6 +29,24 @@ export const solveDefaults = {
   format: "text",
   units: "decimal",
 } as const satisfies { weight: number; steps: number; format: (typeof reportFormats)[number]; units: Units };
+
+export { automaticBandwidths, hacKernels, intervalMethods, intervalSources, longRunMethods };
+
+/** Uncertainty defaults (the core's) and the CLI's bootstrap settings. */
+export const uncertaintyDefaults = {
+  confidence: defaultConfidence,
+  longRun: defaultLongRun,
+  hacKernel: defaultHac.kernel,
+  hacBandwidth: defaultHac.bandwidth,
+  interval: defaultIntervalMethod,
+  intervalSource: defaultIntervalSource,
+  /** Replicates when --bootstrap is given without a number. */
+  bootstrapReplicates: 2000,
+  seed: 1,
+} as const;
+
+/** Standard errors need this many observations; with fewer, none are reported. */
+export const minimumForUncertainty = 10;
 
 /** Largest grid the CLI accepts: a sanity limit on output size, not a numerical one. */
 export const maximumSteps = 100_000;
@@ -54,8 +84,26 @@ export const solveOptionsSchema = z
     idColumn: z.string().min(1).optional(),
     valueColumn: z.string().min(1).optional(),
     decimalComma: z.boolean(),
+    uncertainty: z.boolean(),
+    confidence: z.number().gt(0).lt(1),
+    longRun: z.enum(longRunMethods),
+    hacKernel: z.enum(hacKernels),
+    hacBandwidth: z.enum(automaticBandwidths),
+    hacLags: z.number().int().nonnegative().optional(),
+    hacPrewhite: z.boolean(),
+    hacAdjust: z.boolean(),
+    interval: z.enum(intervalMethods),
+    intervalSource: z.enum(intervalSources),
+    bootstrap: z.number().int().nonnegative(),
+    blockLength: z.union([z.literal("auto"), z.number().gte(1)]),
+    seed: z.number().int().nonnegative(),
+    threads: z.number().int().positive(),
   })
   .strict()
+  .refine((o) => o.intervalSource !== "bootstrap" || o.bootstrap >= 2, {
+    path: ["intervalSource"],
+    message: "bootstrap standard errors need --bootstrap with at least 2 replicates",
+  })
   .refine((o) => (o.low === undefined) === (o.high === undefined), {
     path: ["high"],
     message: "--low and --high go together (or use --pair LOW:HIGH)",

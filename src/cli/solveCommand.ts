@@ -5,7 +5,13 @@
  * `partial` otherwise.
  */
 import { Command, Option } from "commander";
+import { diagnose, type Diagnostic } from "../core/diagnostics.js";
+import type { BootstrapSummary } from "../core/inference/bootstrapSummary.js";
+import type { HacOptions } from "../core/inference/options.js";
+import { assessUncertainty, type UncertaintySample } from "../core/inference/uncertainty.js";
+import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
 import { solve } from "../core/solve.js";
+import type { Solution } from "../core/types.js";
 import { decodeText } from "../input/decodeText.js";
 import { describeInputIssue, describeInputWarning, type InputIssue } from "../input/issues.js";
 import { parseDecimal } from "../input/numbers.js";
@@ -19,15 +25,26 @@ import type { InputDescription, JoinDescription, RiskFreeSource, SolveReport } f
 import { exitCodes, type ExitCode } from "./exitCodes.js";
 import { emit, wantsColour } from "./emit.js";
 import type { CliIo } from "./io.js";
+import { runBootstrap } from "./bootstrapRunner.js";
 import { withConfig } from "./config.js";
+import { createProgress } from "./progress.js";
 import { describeCliIssue } from "./messages.js";
+import { availableParallelism } from "node:os";
+import { InvalidArgumentError } from "commander";
 import { numberArgument, openUnitInterval, wholeNumber } from "./arguments.js";
 import { collectPair, columnList, pairsFrom, type Pair } from "./pairs.js";
 import {
   describeOptionIssue,
   inputKinds,
+  automaticBandwidths,
+  hacKernels,
+  intervalMethods,
+  intervalSources,
+  longRunMethods,
   maximumSteps,
+  minimumForUncertainty,
   missingPolicies,
+  uncertaintyDefaults,
   solveDefaults,
   solveFormats,
   solveOptionsSchema,
@@ -92,15 +109,60 @@ async function solveFile(file: string, pairs: readonly Pair[], options: SolveCli
   if (!bytes.ok) return failAll(exitCodes.input, [{ code: bytes.issues.code, message: describeCliIssue(bytes.issues) }]);
   const text = decodeText(bytes.value, source);
   if (!text.ok) return failAll(exitCodes.input, inputErrors(text.issues));
-  return pairs.map((pair) => solvePair(text.value, source, pair, options));
+  const outcomes: Outcome[] = [];
+  for (const pair of pairs) outcomes.push(await solvePair(text.value, source, pair, options, io));
+  return outcomes;
 }
 
-function solvePair(text: string, source: string, pair: Pair, options: SolveCliOptions): Outcome {
+/** Standard errors and intervals as the options ask, or null with the reason as a diagnostic. */
+async function uncertaintyFor(
+  sample: UncertaintySample,
+  solution: Solution,
+  options: SolveCliOptions,
+  io: CliIo,
+): Promise<{ uncertainty: Uncertainty | null; note: Diagnostic | null }> {
+  if (!options.uncertainty) return { uncertainty: null, note: null };
+  if (solution.observations < minimumForUncertainty) {
+    return {
+      uncertainty: null,
+      note: diagnose({ code: "uncertainty-unavailable", observations: solution.observations, minimum: minimumForUncertainty }),
+    };
+  }
+  const hac: HacOptions = {
+    kernel: options.hacKernel,
+    bandwidth: options.hacBandwidth,
+    prewhite: options.hacPrewhite,
+    adjust: options.hacAdjust,
+    ...(options.hacLags === undefined ? {} : { lags: options.hacLags }),
+  };
+  let bootstrapSummary: BootstrapSummary | undefined;
+  if (options.bootstrap > 0) {
+    const progress = createProgress(io, "bootstrap", options.bootstrap);
+    bootstrapSummary = await runBootstrap(
+      { ...sample, weight: options.weight },
+      { replicates: options.bootstrap, blockLength: options.blockLength, seed: options.seed, confidence: options.confidence, threads: options.threads },
+      (done) => progress.update(done),
+    );
+    progress.finish();
+  }
+  const uncertainty = assessUncertainty(sample, {
+    weight: options.weight,
+    confidence: options.confidence,
+    longRun: options.longRun,
+    hac,
+    interval: options.interval,
+    intervalSource: options.intervalSource,
+    ...(bootstrapSummary === undefined ? {} : { bootstrapSummary }),
+  });
+  return { uncertainty, note: null };
+}
+
+async function solvePair(text: string, source: string, pair: Pair, options: SolveCliOptions, io: CliIo): Promise<Outcome> {
   const riskFree = riskFreeSource(options);
   const table = readReturns(text, readOptions(source, [pair.low, pair.high, ...riskFreeColumn(riskFree)], options));
   if (!table.ok) return failed(source, pair, exitCodes.input, inputErrors(table.issues));
   const keys = { low: pair.low, high: pair.high, riskFree: riskFree.kind === "column" ? riskFree.column : null };
-  return solveTable(table.value, source, pair, keys, riskFree, null, options);
+  return solveTable(table.value, source, pair, keys, riskFree, null, options, io);
 }
 
 /** Columns of a table that hold the books and the risk-free return (null: constant or none). */
@@ -111,7 +173,7 @@ interface TableKeys {
 }
 
 /** Solves one aligned table whose `keys` columns hold the data; describes it as `pair` and `riskFree`. */
-function solveTable(
+async function solveTable(
   table: ReturnTable,
   source: string,
   pair: Pair,
@@ -119,16 +181,15 @@ function solveTable(
   riskFree: RiskFreeSource,
   join: JoinDescription | null,
   options: SolveCliOptions,
-): Outcome {
+  io: CliIo,
+): Promise<Outcome> {
   const values = table.columns;
-  const solved = solve(
-    {
-      low: values.get(keys.low)!,
-      high: values.get(keys.high)!,
-      riskFree: keys.riskFree !== null ? values.get(keys.riskFree)! : riskFree.kind === "constant" ? riskFree.rate : 0,
-    },
-    { weight: options.weight, steps: options.steps },
-  );
+  const sample = {
+    low: values.get(keys.low)!,
+    high: values.get(keys.high)!,
+    riskFree: keys.riskFree !== null ? values.get(keys.riskFree)! : riskFree.kind === "constant" ? riskFree.rate : 0,
+  };
+  const solved = solve(sample, { weight: options.weight, steps: options.steps });
   if (!solved.ok) {
     return failed(source, pair, exitCodes.input, solved.issues.map((d) => ({ code: d.code, message: `${source}: ${d.message}` })));
   }
@@ -148,7 +209,9 @@ function solveTable(
     frequency: table.frequency,
     join,
   };
-  const report: SolveReport = { tool, input, solution: solved.value };
+  const assessed = await uncertaintyFor(sample, solved.value, options, io);
+  const solution = assessed.note === null ? solved.value : { ...solved.value, diagnostics: [...solved.value.diagnostics, assessed.note] };
+  const report: SolveReport = { tool, input, solution, uncertainty: assessed.uncertainty };
   const messages = [
     ...table.warnings.map((w) => `warning: ${describeInputWarning(w)}\n`),
     ...solved.value.diagnostics.filter((d) => d.severity !== "info").map((d) => `${d.severity}: ${source}: ${d.message}\n`),
@@ -205,7 +268,7 @@ async function solveJoined(sides: { low: Side; high: Side }, options: SolveCliOp
     matched,
   };
   const keys = { low: "low", high: "high", riskFree: riskFree.kind === "column" ? `rf:${riskFree.column}` : null };
-  return solveTable(table, source, pair, keys, riskFree, join, options);
+  return solveTable(table, source, pair, keys, riskFree, join, options, io);
 }
 
 function riskFreeColumn(riskFree: RiskFreeSource): string[] {
@@ -294,6 +357,25 @@ export function solveCommand(io: CliIo, setExit: (code: ExitCode) => void): Comm
     .addOption(new Option("--input <kind>", "what the numbers are").choices(inputKinds).default("returns"))
     .option("--id-column <column>", "long layout: the column naming the series (then --low/--high name series)")
     .option("--value-column <column>", "long layout: the column holding the values")
+    .option("--no-uncertainty", "skip standard errors and intervals (faster on very long files)")
+    .option("--confidence <level>", "confidence level of every interval", openUnitInterval, uncertaintyDefaults.confidence)
+    .addOption(new Option("--long-run <method>", "long-run covariance of the moment contributions for the bounds' standard errors").choices(longRunMethods).default(uncertaintyDefaults.longRun))
+    .addOption(new Option("--hac-kernel <kernel>", "HAC kernel").choices(hacKernels).default(uncertaintyDefaults.hacKernel))
+    .addOption(new Option("--hac-bandwidth <rule>", "automatic HAC bandwidth rule").choices(automaticBandwidths).default(uncertaintyDefaults.hacBandwidth))
+    .option("--hac-lags <n>", "fixed HAC lag truncation instead of the automatic rule", wholeNumber(0, 100_000))
+    .option("--hac-prewhite", "VAR(1) prewhitening before the HAC kernel", false)
+    .option("--hac-adjust", "small-sample factor T/(T - k) on the CAPM HAC covariances", false)
+    .addOption(new Option("--interval <method>", "confidence interval for the structural betas").choices(intervalMethods).default(uncertaintyDefaults.interval))
+    .addOption(new Option("--interval-source <source>", "standard errors of the bounds: delta method or bootstrap").choices(intervalSources).default(uncertaintyDefaults.intervalSource))
+    .addOption(
+      new Option("--bootstrap [replicates]", `stationary bootstrap replicates (${uncertaintyDefaults.bootstrapReplicates} when no number is given; 0 = off)`)
+        .argParser(wholeNumber(0, 10_000_000))
+        .preset(uncertaintyDefaults.bootstrapReplicates)
+        .default(0),
+    )
+    .option("--block-length <b|auto>", "mean block length of the bootstrap (auto: Politis-White)", blockLengthArgument, "auto" as const)
+    .option("--seed <n>", "seed of the bootstrap (the same seed gives the same intervals)", wholeNumber(0, Number.MAX_SAFE_INTEGER), uncertaintyDefaults.seed)
+    .option("--threads <n>", "worker threads for the bootstrap (results do not depend on it)", wholeNumber(1, 256), defaultThreads())
     .option("--config <file>", "JSON file with files, pairs and options for a job; flags override it")
     .addHelpText("after", solveExamples)
     .action(async (given: string[], _raw: Record<string, unknown>, command: Command) => {
@@ -312,4 +394,16 @@ export function solveCommand(io: CliIo, setExit: (code: ExitCode) => void): Comm
       }
       setExit(await runSolve(files, parsed.data, io));
     });
+}
+
+function blockLengthArgument(value: string): number | "auto" {
+  if (value === "auto") return "auto";
+  const b = parseDecimal(value);
+  if (b === null || !(b >= 1)) throw new InvalidArgumentError('must be "auto" or a number >= 1');
+  return b;
+}
+
+/** Both cores of a small machine, at most 4: more rarely pays for the start-up of a worker. */
+function defaultThreads(): number {
+  return Math.max(1, Math.min(4, availableParallelism()));
 }

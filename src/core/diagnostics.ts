@@ -16,7 +16,8 @@ export type DiagnosticDetail =
   | { readonly code: "low-beta-above-one"; readonly upperBound: number }
   | { readonly code: "market-mean-near-zero"; readonly marketMean: number; readonly tStat: number }
   | { readonly code: "return-implied-outside-set"; readonly lowBeta: number; readonly min: number; readonly max: number }
-  | { readonly code: "degenerate-moments"; readonly quantity: string };
+  | { readonly code: "degenerate-moments"; readonly quantity: string }
+  | { readonly code: "uncertainty-unavailable"; readonly observations: number; readonly minimum: number };
 
 export type DiagnosticCode = DiagnosticDetail["code"];
 
@@ -36,6 +37,7 @@ const severityOf: Record<DiagnosticCode, Severity> = {
   "market-mean-near-zero": "info",
   "return-implied-outside-set": "warning",
   "degenerate-moments": "error",
+  "uncertainty-unavailable": "info",
 };
 
 const fmt = (x: number): string => (Number.isFinite(x) ? Number(x.toPrecision(6)).toString() : String(x));
@@ -69,6 +71,8 @@ export function describeDiagnostic(detail: DiagnosticDetail): string {
         `the return-implied low structural beta ${fmt(detail.lowBeta)} lies outside the identified set ` +
         `[${fmt(detail.min)}, ${fmt(detail.max)}]: mean returns are not consistent with one priced factor and uncorrelated noise`
       );
+    case "uncertainty-unavailable":
+      return `standard errors and intervals need at least ${detail.minimum} observations (there are ${detail.observations}); none are reported`;
     case "degenerate-moments":
       return (
         `the ${detail.quantity} cannot be represented in double precision (the variances and the covariance differ by ` +

@@ -5,16 +5,27 @@
  * infinity, because the core uses null for undefined quantities and this module refuses to write one.
  */
 
+import type { CapmHac, Uncertainty } from "../core/inference/uncertaintyTypes.js";
 import type { Solution } from "../core/types.js";
 import { conventionsFor, type Conventions } from "./conventions.js";
 import type { InputDescription, RenderOptions, SolveReport } from "./types.js";
 
 export const schemaVersion = 1;
 
+/** A CAPM fit as written: the classical fit plus its HAC standard errors (null when not computed). */
+export type CapmOutput = {
+  readonly [book in "low" | "high"]: Solution["capm"][book] & { readonly hac: CapmHac | null };
+} & { readonly hac: Uncertainty["capm"]["hac"] | null };
+
+/** The `uncertainty` block: everything of the core's Uncertainty except the CAPM part (under `capm`). */
+export type UncertaintyOutput = Omit<Uncertainty, "capm">;
+
 /** The JSON document renderJson writes. */
 export interface SolveOutput
-  extends Pick<Solution, "observations" | "weight" | "moments" | "capm" | "bounds" | "grid" | "landmarks" | "diagnostics"> {
+  extends Pick<Solution, "observations" | "weight" | "moments" | "bounds" | "grid" | "landmarks" | "diagnostics"> {
   readonly schemaVersion: typeof schemaVersion;
+  readonly capm: CapmOutput;
+  readonly uncertainty: UncertaintyOutput | null;
   readonly tool: SolveReport["tool"];
   /** "ok": an identified set was found; "rejected": the data were read but no set can be reported. */
   readonly status: "ok" | "rejected";
@@ -58,12 +69,34 @@ export function toSolveOutput(report: SolveReport): SolveOutput {
     observations: s.observations,
     weight: s.weight,
     moments: s.moments,
-    capm: s.capm,
+    capm: capmOutput(s.capm, report.uncertainty),
     bounds: s.bounds,
     grid: s.grid,
     landmarks: s.landmarks,
     diagnostics: s.diagnostics,
+    uncertainty: uncertaintyOutput(report.uncertainty),
     conventions: conventionsFor(report),
+  };
+}
+
+function capmOutput(capm: Solution["capm"], uncertainty: Uncertainty | null): CapmOutput {
+  return {
+    low: { ...capm.low, hac: uncertainty?.capm.low.hac ?? null },
+    high: { ...capm.high, hac: uncertainty?.capm.high.hac ?? null },
+    hac: uncertainty?.capm.hac ?? null,
+  };
+}
+
+function uncertaintyOutput(u: Uncertainty | null): UncertaintyOutput | null {
+  if (u === null) return null;
+  return {
+    confidence: u.confidence,
+    method: u.method,
+    bounds: u.bounds,
+    lowBeta: u.lowBeta,
+    highBeta: u.highBeta,
+    sharpe: u.sharpe,
+    bootstrap: u.bootstrap,
   };
 }
 

@@ -8,6 +8,7 @@ import { capmSection, inputSection, momentsSection } from "./textData.js";
 import { assumptionsSection, closingLines, diagnosticsSection } from "./textNotes.js";
 import { boundsSection, gridSection, landmarksSection, rejectedSection } from "./textSet.js";
 import { styleFor } from "./layout.js";
+import { bootstrapSection, boundsWithUncertaintySection, precisionSection, sharpeSection } from "./textUncertainty.js";
 import type { RenderOptions, SolveReport } from "./types.js";
 
 /** The title line. */
@@ -22,24 +23,28 @@ export function titleLine(report: SolveReport): string {
 export function renderText(report: SolveReport, options: RenderOptions): string {
   const style = styleFor(options);
   const s = report.solution;
+  const u = report.uncertainty;
   const sections: string[][] = [
     [style.heading(titleLine(report))],
     inputSection(report.input, s.observations, style),
     momentsSection(s, style),
-    capmSection(s, style),
+    capmSection(s, style, u),
   ];
   if (s.bounds === null) {
     const reason = s.diagnostics.find((d) => d.severity === "error")?.message ?? null;
     sections.push(rejectedSection(reason, style));
+    if (u !== null) sections.push(precisionSection(s, u, style));
   } else {
     sections.push(boundsSection(s.bounds, style));
+    if (u !== null) sections.push(boundsWithUncertaintySection(s.bounds, u, style), precisionSection(s, u, style));
     if (s.landmarks !== null) sections.push(landmarksSection(s.landmarks, style));
     sections.push(gridSection(s, style));
   }
+  if (u !== null) sections.push(sharpeSection(u, report.input.frequency?.periodsPerYear ?? null, style), bootstrapSection(u, style));
   sections.push(
     diagnosticsSection(s.diagnostics, style),
     assumptionsSection(s.weight, style),
     closingLines(report.input.riskFree),
   );
-  return `${sections.map((lines) => lines.join("\n")).join("\n\n")}\n`;
+  return `${sections.filter((lines) => lines.length > 0).map((lines) => lines.join("\n")).join("\n\n")}\n`;
 }

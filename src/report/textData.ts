@@ -3,6 +3,7 @@
  * Each returns its lines, heading first.
  */
 
+import type { CapmHac, Uncertainty } from "../core/inference/uncertaintyTypes.js";
 import type { LineFit, Solution } from "../core/types.js";
 import { formatCount, formatNumber, statisticDigits } from "./format.js";
 import { fields, indent, printable, table, type Style } from "./layout.js";
@@ -94,27 +95,60 @@ export function momentsSection(
   ];
 }
 
-/** The CAPM section: each book regressed on the market proxy, one column per book. */
-export function capmSection(solution: Solution, style: Style): string[] {
+/** The CAPM section: each book regressed on the market proxy, one column per book; HAC rows when computed. */
+export function capmSection(solution: Solution, style: Style, uncertainty: Uncertainty | null = null): string[] {
   const { low, high } = solution.capm;
   const stat = (x: number | null): string => formatNumber(x, statisticDigits);
-  const rows: [string, (f: LineFit) => string][] = [
+  type Row = [string, (f: LineFit, hac: CapmHac | null) => string];
+  const hacRows: Row[] =
+    uncertainty === null
+      ? []
+      : [
+          ["alpha HAC std. error", (_, h) => formatNumber(h?.alphaStdErr ?? null)],
+          ["alpha HAC t", (f, h) => stat(h === null || h.alphaStdErr === 0 ? null : f.alpha / h.alphaStdErr)],
+        ];
+  const betaHacRows: Row[] =
+    uncertainty === null
+      ? []
+      : [
+          ["beta HAC std. error", (_, h) => formatNumber(h?.betaStdErr ?? null)],
+          ["beta HAC t", (f, h) => stat(h === null || h.betaStdErr === 0 ? null : f.beta / h.betaStdErr)],
+        ];
+  const rows: Row[] = [
     ["alpha", (f) => formatNumber(f.alpha)],
     ["alpha std. error", (f) => formatNumber(f.alphaStdErr)],
     ["alpha t", (f) => stat(f.alphaTStat)],
     ["alpha p-value", (f) => stat(f.alphaPValue)],
+    ...hacRows,
     ["beta", (f) => formatNumber(f.beta)],
     ["beta std. error", (f) => formatNumber(f.betaStdErr)],
     ["beta t (beta = 0)", (f) => stat(f.betaTStat)],
     ["beta p-value", (f) => stat(f.betaPValue)],
+    ...betaHacRows,
     ["R-squared", (f) => formatNumber(f.rSquared)],
     ["residual variance", (f) => formatNumber(f.residualVariance)],
   ];
+  const hac = uncertainty?.capm.hac;
+  const hacNote =
+    hac === undefined
+      ? []
+      : [
+          `${indent}HAC: ${hac.kernel === "bartlett" ? `Bartlett kernel, ${hac.lags ?? "?"} lag(s)` : `quadratic spectral kernel, bandwidth ${formatNumber(hac.bandwidth, 3)}`}` +
+            `${hac.prewhite ? ", prewhitened" : ""}${hac.adjust ? ", small-sample adjusted" : ""} (robust to autocorrelation and heteroskedasticity).`,
+        ];
   return [
     style.heading("CAPM regressions on the market proxy"),
     `${indent}book = alpha + beta M + error, M = w low + (1 - w) high with w = ${solution.weight};`,
     `${indent}least squares, classical standard errors, two-sided p-values from Student's t ` +
       `with ${low.observations - 2} d.f.`,
-    ...table({ header: ["", "low", "high"], rows: rows.map(([label, value]) => [label, value(low), value(high)]) }),
+    ...hacNote,
+    ...table({
+      header: ["", "low", "high"],
+      rows: rows.map(([label, value]) => [
+        label,
+        value(low, uncertainty?.capm.low.hac ?? null),
+        value(high, uncertainty?.capm.high.hac ?? null),
+      ]),
+    }),
   ];
 }

@@ -3,6 +3,7 @@
  * Renderers are pure functions of this value; they never read files, the clock or the terminal.
  */
 
+import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
 import type { Solution } from "../core/types.js";
 
 export const reportFormats = ["text", "json", "csv"] as const;
@@ -45,6 +46,8 @@ export interface SolveReport {
   readonly tool: { readonly name: "betabound"; readonly version: string };
   readonly input: InputDescription;
   readonly solution: Solution;
+  /** Standard errors and intervals; null when not computed (--no-uncertainty, or too few observations). */
+  readonly uncertainty: Uncertainty | null;
 }
 
 /** Rendering switches that depend on where the output goes (decided by the CLI). */

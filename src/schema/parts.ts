@@ -56,7 +56,6 @@ export const lineFitSchema = doc(
   "LineFit",
 );
 
-export const capmSchema = z.strictObject({ low: lineFitSchema, high: lineFitSchema });
 
 export const intervalSchema = doc(z.strictObject({ min: z.number(), max: z.number() }), "closed interval", "Interval");
 
@@ -118,6 +117,7 @@ export const diagnosticDetailSchema = z.discriminatedUnion("code", [
     max: z.number(),
   }),
   z.strictObject({ code: z.literal("degenerate-moments"), quantity: z.string() }),
+  z.strictObject({ code: z.literal("uncertainty-unavailable"), observations: z.int(), minimum: z.int() }),
 ]);
 
 export const diagnosticCodes = diagnosticDetailSchema.options.map((option) => option.shape.code.value);

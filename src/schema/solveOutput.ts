@@ -4,8 +4,17 @@
  */
 
 import * as z from "zod";
-import { boundsSchema, candidateSchema, capmSchema, diagnosticSchema, landmarksSchema, momentsSchema } from "./parts.js";
+import { boundsSchema, candidateSchema, diagnosticSchema, landmarksSchema, lineFitSchema, momentsSchema } from "./parts.js";
 import { doc } from "./registry.js";
+import { capmHacSchema, hacSettingsSchema, uncertaintySchema } from "./uncertainty.js";
+
+const capmFitSchema = doc(
+  z.strictObject({ ...lineFitSchema.shape, hac: capmHacSchema.nullable() }),
+  "OLS of a book's excess return on the market's, classical and HAC standard errors",
+  "CapmFit",
+);
+
+export const capmOutputSchema = z.strictObject({ low: capmFitSchema, high: capmFitSchema, hac: hacSettingsSchema.nullable() });
 
 export const riskFreeSchema = z.discriminatedUnion("kind", [
   z.strictObject({ kind: z.literal("none") }),
@@ -64,11 +73,12 @@ export const solveOutputSchema = doc(
     observations: doc(z.int().positive(), "aligned observations used"),
     weight: doc(z.number().gt(0).lt(1), "w, the weight of the low book in the market proxy"),
     moments: doc(momentsSchema, "sample moments of the excess returns, per period"),
-    capm: doc(capmSchema, "CAPM regressions of each book on the market proxy"),
+    capm: doc(capmOutputSchema, "CAPM regressions of each book on the market proxy, classical and HAC standard errors"),
     bounds: boundsSchema.nullable(),
     grid: doc(z.array(candidateSchema), "candidates evenly spaced in lowBeta over the set; empty when rejected"),
     landmarks: landmarksSchema.nullable(),
     diagnostics: z.array(diagnosticSchema),
+    uncertainty: uncertaintySchema.nullable(),
     conventions: conventionsSchema,
   }),
   "betabound solve output",

@@ -2,7 +2,10 @@ import { failure, success } from "../../src/core/result.js";
 import type { CliIo } from "../../src/cli/io.js";
 
 /** An in-memory CliIo: files by name, captured stdout/stderr and written outputs. */
-export function fakeIo(files: Record<string, string> = {}, settings: Partial<Pick<CliIo, "stdoutIsTerminal" | "stdinIsTerminal" | "env">> = {}) {
+export function fakeIo(
+  files: Record<string, string> = {},
+  settings: Partial<Pick<CliIo, "stdoutIsTerminal" | "stdinIsTerminal" | "stderrIsTerminal" | "env" | "now">> = {},
+) {
   const out: string[] = [];
   const err: string[] = [];
   const written = new Map<string, string>();
@@ -20,6 +23,8 @@ export function fakeIo(files: Record<string, string> = {}, settings: Partial<Pic
     },
     stdoutIsTerminal: settings.stdoutIsTerminal ?? false,
     stdinIsTerminal: settings.stdinIsTerminal ?? false,
+    stderrIsTerminal: settings.stderrIsTerminal ?? false,
+    now: settings.now ?? (() => 0),
     env: settings.env ?? {},
   };
   return { io, stdout: () => out.join(""), stderr: () => err.join(""), written };

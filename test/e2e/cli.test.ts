@@ -116,4 +116,14 @@ describe("the betabound executable", () => {
     expect(stdout).toBe("");
     expect(stderr).toMatch(/^error: cannot write '.*r\.txt': no such file or directory/);
   });
+
+  it("gives the same bootstrap bit for bit with 1 and 2 worker threads", () => {
+    const args = ["solve", monthly, ...books, "--rf", "0.002", "--format", "json", "--bootstrap", "3000", "--seed", "11"];
+    const one = betabound([...args, "--threads", "1"]);
+    const two = betabound([...args, "--threads", "2"]);
+    expect(one.code).toBe(0);
+    expect(two.code).toBe(0);
+    expect(JSON.parse(two.stdout).uncertainty.bootstrap.replicates).toBe(3000);
+    expect(two.stdout).toBe(one.stdout);
+  });
 });

@@ -4,6 +4,7 @@
  */
 
 import { solve } from "../../src/core/solve.js";
+import type { Uncertainty } from "../../src/core/inference/uncertaintyTypes.js";
 import type { ReturnSample, Solution, SolveOptions } from "../../src/core/types.js";
 import type { InputDescription, SolveReport } from "../../src/report/types.js";
 
@@ -83,9 +84,9 @@ export const input: InputDescription = {
   frequency: { name: "monthly", periodsPerYear: 12 },
 };
 
-export function reportOf(solution: Solution, overrides: Partial<InputDescription> = {}): SolveReport {
+export function reportOf(solution: Solution, overrides: Partial<InputDescription> = {}, uncertainty: Uncertainty | null = null): SolveReport {
   const rowsRead = solution.observations + input.rowsDropped;
-  return { tool: { name: "betabound", version: "0.1.0-test" }, input: { ...input, rowsRead, ...overrides }, solution };
+  return { tool: { name: "betabound", version: "0.1.0-test" }, input: { ...input, rowsRead, ...overrides }, solution, uncertainty };
 }
 
 /** A typical sample: identified set, all five landmarks, 11 grid candidates. */

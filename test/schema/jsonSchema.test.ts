@@ -24,7 +24,10 @@ describe("solveOutputJsonSchema", () => {
     const schema = solveOutputJsonSchema();
     expect(schema.$schema).toBe("https://json-schema.org/draft/2020-12/schema");
     expect(Object.keys(schema.$defs as object).sort()).toEqual(
-      ["Candidate", "Diagnostic", "IdentifiedBounds", "Input", "Interval", "Landmarks", "LineFit", "SeriesMoments"].sort(),
+      [
+        "BetaInterval", "Bootstrap", "Candidate", "CapmFit", "CapmHac", "Diagnostic", "HacSettings", "IdentifiedBounds", "Input",
+        "Interval", "Landmarks", "PointwiseBound", "SeriesMoments", "SharpeRatio", "Uncertainty",
+      ].sort(),
     );
   });
 

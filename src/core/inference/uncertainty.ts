@@ -54,6 +54,11 @@ export interface UncertaintyOptions {
   readonly intervalSource?: IntervalSource;
   /** Stationary bootstrap; off unless replicates > 0. Block length default "auto", seed default 1. */
   readonly bootstrap?: { readonly replicates: number; readonly blockLength?: number | "auto"; readonly seed?: number };
+  /**
+   * A bootstrap already run elsewhere (e.g. split over worker threads with bootstrapRange and merged);
+   * used instead of running `bootstrap` here.
+   */
+  readonly bootstrapSummary?: BootstrapSummary;
 }
 
 export function assessUncertainty(sample: UncertaintySample, options: UncertaintyOptions = {}): Uncertainty {
@@ -75,7 +80,9 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
   if (!(moments.lowVariance > 0 && moments.highVariance > 0)) throw new RangeError("assessUncertainty: a series is constant");
   const replicates = options.bootstrap?.replicates ?? 0;
   const bootstrap: BootstrapSummary | null =
-    replicates > 0
+    options.bootstrapSummary !== undefined
+      ? options.bootstrapSummary
+      : replicates > 0
       ? bootstrapSolve(sample.low, sample.high, sample.riskFree, weight, {
           replicates,
           blockLength: options.bootstrap?.blockLength ?? "auto",
@@ -109,7 +116,7 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
     const interval: ParameterInterval =
       method === "stoye" ? stoyeInterval({ ...estimate, correlation }, confidence) : imbensManskiInterval(estimate, confidence);
     const toHigh = (b: number) => (1 - weight * b) / (1 - weight);
-    lowBeta = { interval: { ...interval, method } satisfies BetaInterval };
+    lowBeta = { interval: { lower: interval.lower, upper: interval.upper, method, criticalValue: interval.criticalValue } satisfies BetaInterval };
     highBeta = {
       interval: {
         lower: toHigh(interval.upper),

@@ -23,7 +23,8 @@ export const palette = {
   rule: "#9A9A9A",
   lightRule: "#D0D0D0",
   setFill: "#DCE9F5",
-  intervalFill: "#EEF4FA",
+  skyBlueLight: "#D7ECF8",
+  skyBlueEdge: "#56B4E9",
 } as const;
 
 /** Fonts every system has (no web fonts: the SVG and the HTML report work offline). */
@@ -138,37 +139,58 @@ export function chartConfig(): NonNullable<Spec["config"]> {
   };
 }
 
+/** The title text of a spec (for the SVG's `<title>`). */
+export function specTitle(spec: Spec): string {
+  const t = spec.title;
+  if (typeof t === "string") return t;
+  if (t !== undefined && !Array.isArray(t) && typeof t === "object" && "text" in t && typeof t.text === "string") return t.text;
+  return "chart";
+}
+
+/** Escapes text for XML element content and attribute values. */
+export function escapeXml(text: string): string {
+  return text.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;");
+}
+
 /**
  * Renders a Vega spec to an SVG string. Vega is imported here, on first use, so that commands which
  * draw no chart never load it. The specs use no clip paths or gradients, so the SVG has no generated
  * ids and depends on the spec alone. Vega's own log is off: a pure function does not print.
+ *
+ * The root element gets role="img", the spec's title as `<title>` and its description as `<desc>`
+ * (Vega's string renderer writes neither), so screen readers announce what the chart shows.
  */
-export async function renderSvg(spec: Spec): Promise<string> {
+export async function renderSvg(spec: Spec, title: string): Promise<string> {
   const vega = await import("vega");
   const view = new vega.View(vega.parse(spec), { renderer: "none", logLevel: vega.None });
+  let svg: string;
   try {
-    return `${await view.toSVG()}\n`;
+    svg = await view.toSVG();
   } finally {
     view.finalize();
   }
+  const description = spec.description ?? "";
+  const accessible = `<title>${escapeXml(chartText(title))}</title><desc>${escapeXml(chartText(description))}</desc>`;
+  return `${svg.replace(/^<svg([^>]*)>/, (_, attributes: string) => `<svg${attributes} role="img">${accessible}`)}\n`;
 }
 
 /** A chart that says why there is nothing to draw (a rejected model, no rolling windows). */
-export function messageSpec(title: string, lines: readonly string[], description: string): Spec {
-  const width = 640;
+export function messageSpec(title: string, paragraphs: readonly string[], description: string): Spec {
+  const width = 720;
+  const lines = paragraphs.flatMap((p) => wrapToWidth(p, width, 13));
   return {
     description,
     width,
-    height: 20 * lines.length,
-    padding: 16,
-    autosize: { type: "pad" },
+    height: 19 * lines.length,
+    padding: { left: 16, right: 16, top: 52, bottom: 16 },
+    autosize: { type: "none" },
     config: chartConfig(),
-    title: { text: title },
+    title: { text: title, frame: "group" },
     marks: [
       {
         type: "text",
         name: "message",
-        from: { data: "message" },
+        from: { data: "message-lines" },
         encode: {
           enter: {
             x: { value: 0 },
@@ -180,6 +202,6 @@ export function messageSpec(title: string, lines: readonly string[], description
         },
       },
     ],
-    data: [{ name: "message", values: lines.map((text, i) => ({ text, y: 20 * i })) }],
+    data: [{ name: "message-lines", values: lines.map((text, i) => ({ text, y: 19 * i })) }],
   };
 }

@@ -25,6 +25,7 @@ import {
   messageSpec,
   palette,
   renderSvg,
+  specTitle,
   textWidth,
   wrapToWidth,
 } from "./common.js";
@@ -40,6 +41,8 @@ export interface IdentifiedSetUncertainty {
   readonly lowBetaInterval?: BetaInterval;
   /** Intervals for each end of the identified set. */
   readonly boundIntervals?: { readonly min: BetaInterval; readonly max: BetaInterval };
+  /** The intervals' confidence level (e.g. 0.95), shown in their labels when given. */
+  readonly confidence?: number;
 }
 
 export interface IdentifiedSetChartOptions {
@@ -95,7 +98,8 @@ const landmarkShapes: Record<LandmarkName, string> = {
 
 /** Renders the chart as an SVG document (UTF-8 text, trailing newline). */
 export async function renderIdentifiedSetChart(report: SolveReport, options: IdentifiedSetChartOptions): Promise<string> {
-  return renderSvg(identifiedSetSpec(report, options));
+  const spec = identifiedSetSpec(report, options);
+  return renderSvg(spec, specTitle(spec));
 }
 
 interface CurvePoint {
@@ -149,7 +153,7 @@ export function identifiedSetSpec(report: SolveReport, options: IdentifiedSetCha
     const reason = s.diagnostics.find((d) => d.severity === "error")?.message ?? "the model is rejected";
     return messageSpec(
       "No identified set to draw",
-      [...wrapToWidth(`No one-factor structure fits these data: ${chartText(reason)}.`, 620, 13), ...captionLines(report)],
+      [`No one-factor structure fits these data: ${chartText(reason)}.`, ...captionLines(report)],
       "No identified set: the one-factor model is rejected for these data.",
     );
   }
@@ -191,7 +195,7 @@ export function identifiedSetSpec(report: SolveReport, options: IdentifiedSetCha
   if (!(yDomain[1] > yDomain[0])) yDomain[1] = yDomain[0] + 1;
 
   const lane = laneLayout(landmarks, uncertainty, px);
-  const legend = legendEntries(options.y, series, min, max, uncertainty, lane.anyOutside);
+  const legend = legendEntries(series, min, max, uncertainty, lane.anyOutside);
   const legendTop = plotHeight + 54;
   const legendWidth = plotWidth + marginRight - 8;
   const subtitle = captionLines(report, options.y).flatMap((line) => wrapToWidth(line, captionWidth, 12));
@@ -206,15 +210,17 @@ export function identifiedSetSpec(report: SolveReport, options: IdentifiedSetCha
     setRangeMark(px(min), px(max), min, max),
     ...(yDomain[0] < 0 && options.y === "variance" ? negativeRegionMarks((px(min) + px(max)) / 2) : []),
     ...(yDomain[0] < 0 ? [zeroRuleMark(options.y)] : []),
-    guideMark(),
+    guideMark(yDomain[0] < 0 && options.y === "variance"),
     ...curves.flatMap(({ series: ser, inside: pts, left: l, right: r }) => [
       curveMark(`${ser.key}-outside-below`, l, ser, true),
       curveMark(`${ser.key}-outside-above`, r, ser, true),
       curveMark(`${ser.key}-inside`, pts, ser, false),
     ]),
     gridMarkersMark(series, s.grid),
+    curveLabelMark(),
     setLabelMark((px(min) + px(max)) / 2),
     ...intervalMarks(lane),
+    labelBackdropMark(),
     landmarkSymbolMark(),
     landmarkLabelMark(),
     ...legendMarks(legend, 0, legendTop, legendWidth),
@@ -228,7 +234,7 @@ export function identifiedSetSpec(report: SolveReport, options: IdentifiedSetCha
     // Sizes are computed here rather than by Vega, whose text widths (without a canvas) are rough.
     autosize: { type: "none" },
     config: chartConfig(),
-    title: { text: chartTitle, subtitle },
+    title: { text: chartTitle, subtitle, frame: "group", dx: 12 - marginLeft },
     data: [
       { name: "landmarks", values: lane.landmarks.map((l) => ({ ...l })) },
       { name: "intervals", values: lane.intervals.map((i) => ({ ...i })) },
@@ -238,6 +244,7 @@ export function identifiedSetSpec(report: SolveReport, options: IdentifiedSetCha
         { name: `data-${ser.key}-outside-above`, values: r.map((p) => ({ ...p })) },
         { name: `data-${ser.key}-inside`, values: pts.map((p) => ({ ...p })) },
       ]),
+      { name: "curve-labels", values: curveLabels(curves.map((c) => ({ series: c.series, inside: c.inside }))) },
       {
         name: "grid-markers",
         values: series.flatMap((ser) =>
@@ -279,7 +286,6 @@ export function identifiedSetSpec(report: SolveReport, options: IdentifiedSetCha
         tickCount: 6,
         grid: true,
         titlePadding: 10,
-        ...(options.y === "variance" ? { format: "~g" } : {}),
       },
     ],
     marks,
@@ -300,7 +306,11 @@ function captionLines(report: SolveReport, y?: "variance" | "share"): string[] {
         (y === "variance"
           ? "the lines show the noise variance of each book that it implies."
           : "the line shows the low book's share of the noise variance that it implies.");
-  return [data, ...(reading === null ? [] : [reading]), assumptionsLine(report.solution.weight), cautionCaption];
+  const missing =
+    y !== undefined && report.solution.landmarks !== null && report.solution.landmarks.returnImplied === null
+      ? ["Not shown: the point implied by mean returns (the mean excess market return is too close to zero, or the ratio gives no positive pair of betas)."]
+      : [];
+  return [data, ...(reading === null ? [] : [reading]), ...missing, assumptionsLine(report.solution.weight), cautionCaption];
 }
 
 function chartDescription(report: SolveReport, y: "variance" | "share"): string {
@@ -372,7 +382,7 @@ function points(structures: readonly Candidate[], value: (c: Candidate) => numbe
 
 /** How far the dotted extensions may run on the y axis, so they do not squash the set itself. */
 function extensionLimits(y: "variance" | "share", insideValues: readonly number[], m: MomentSummary): [number, number] {
-  if (y === "share") return [-0.5, 1.5];
+  if (y === "share") return [-0.2, 1.2];
   const top = Math.max(0, ...insideValues);
   const scale = top > 0 ? top : 0.05 * Math.max(m.lowVariance, m.highVariance);
   return [-0.75 * scale, 1.5 * scale];
@@ -397,12 +407,48 @@ function truncated(line: readonly CurvePoint[], [lo, hi]: [number, number]): Cur
   return out.length >= 2 ? out : [];
 }
 
+/** Direct labels on the curves: the first at its left end (above), the second at its right end (below). */
+function curveLabels(curves: readonly { series: Series; inside: readonly CurvePoint[] }[]): object[] {
+  return curves.flatMap(({ series, inside }, i) => {
+    const first = i === 0;
+    const end = first ? inside[0] : inside[inside.length - 1];
+    const next = first ? inside[Math.min(10, inside.length - 1)] : inside[Math.max(0, inside.length - 11)];
+    if (end === undefined || next === undefined) return [];
+    // The label runs away from the end along the curve; put it on the side the curve falls away from.
+    const above = next.value <= end.value;
+    const text = series.key === "share" ? "low book's noise share" : series.key === "low" ? "low book noise" : "high book noise";
+    return [{ b: end.b, value: end.value, text, first, dy: above ? -10 : 17, colour: series.key === "high" ? "#8C5F00" : series.colour }];
+  });
+}
+
+function curveLabelMark(): Mark {
+  return {
+    type: "text",
+    name: "curve-label",
+    aria: false,
+    from: { data: "curve-labels" },
+    encode: {
+      enter: {
+        x: { scale: "x", field: "b", offset: { signal: "datum.first ? 8 : -8" } },
+        y: { scale: "y", field: "value", offset: { field: "dy" } },
+        text: { field: "text" },
+        align: { signal: "datum.first ? 'left' : 'right'" },
+        baseline: { value: "alphabetic" },
+        fontSize: { value: 12 },
+        fontWeight: { value: "bold" },
+        fill: { field: "colour" },
+      },
+    },
+  };
+}
+
 interface LaneLandmark {
   readonly name: LandmarkName;
   readonly b: number;
   readonly px: number;
   readonly y: number;
   readonly labelX: number;
+  readonly labelWidth: number;
   readonly align: "left" | "right";
   readonly text: string;
   readonly shape: string;
@@ -435,9 +481,8 @@ interface Lane {
 const laneY = (row: number): number => -(laneGap + laneRowHeight * (row + 0.5));
 
 /**
- * Places the landmark symbols and labels in rows above the plot so that no two labels overlap:
- * greedily, in order of b_low, each into the lowest row with room, its label right of the symbol
- * (left when it would run past the plot's right edge).
+ * The lane above the plot: the interval bars (if any) in the rows nearest the plot, then the
+ * landmark symbols and labels in rows above them, placed by `placeLaneLabels`.
  */
 function laneLayout(landmarks: Landmarks, uncertainty: IdentifiedSetUncertainty, px: (b: number) => number): Lane {
   const intervals: LaneInterval[] = [];
@@ -455,52 +500,43 @@ function laneLayout(landmarks: Landmarks, uncertainty: IdentifiedSetUncertainty,
       { kind: "lowerBound", x: px(bounds.min.lower), x2: px(bounds.min.upper), y, description: intervalText("lower bound", bounds.min) },
       { kind: "upperBound", x: px(bounds.max.lower), x2: px(bounds.max.upper), y, description: intervalText("upper bound", bounds.max) },
     );
-    labelBar("intervals for the two ends", px(bounds.min.lower), px(bounds.max.upper), y);
+    labelBar(`${levelText(uncertainty)}intervals for the two ends`, px(bounds.min.lower), px(bounds.max.upper), y);
   }
   const lowBeta = uncertainty.lowBetaInterval;
   if (lowBeta !== undefined) {
     const y = laneY(row++);
     intervals.push({ kind: "lowBeta", x: px(lowBeta.lower), x2: px(lowBeta.upper), y, description: intervalText("b_low", lowBeta) });
-    labelBar("interval for b_low", px(lowBeta.lower), px(lowBeta.upper), y);
+    labelBar(`${levelText(uncertainty)}interval for b_low`, px(lowBeta.lower), px(lowBeta.upper), y);
   }
 
   const present = landmarkNames
     .map((name) => ({ name, c: landmarks[name] }))
     .filter((l): l is { name: LandmarkName; c: Candidate } => l.c !== null)
     .sort((a, b) => a.c.lowBeta - b.c.lowBeta || landmarkNames.indexOf(a.name) - landmarkNames.indexOf(b.name));
-  const occupied: [number, number][][] = [];
-  const placed: LaneLandmark[] = [];
-  for (const { name, c } of present) {
-    const x = px(c.lowBeta);
+  const items = present.map(({ name, c }) => {
     const emphasised = name === "capmConsistent";
     const text = `${landmarkLabels[name]}${c.insideSet ? "" : `, ${outsideLabel}`} (${labelNumber(c.lowBeta)})`;
-    const w = textWidth(text, labelFontSize, emphasised);
-    const r = emphasised ? 9 : 7;
-    const options: { align: "left" | "right"; span: [number, number]; labelX: number }[] = [
-      { align: "left", span: [x - r, x + r + 6 + w], labelX: x + r + 5 },
-      { align: "right", span: [x - r - 6 - w, x + r], labelX: x - r - 5 },
-    ];
-    const fits = options.filter((o) => o.span[1] <= plotWidth + 60 && o.span[0] >= -60);
-    const candidates = fits.length > 0 ? fits : options.slice(0, 1);
-    let chosen: { row: number; option: (typeof options)[number] } | null = null;
-    for (let k = 0; chosen === null; k++) {
-      const taken = occupied[k] ?? [];
-      const option = candidates.find((o) => taken.every(([a, b]) => o.span[1] + 10 <= a || o.span[0] >= b + 10));
-      if (option !== undefined) chosen = { row: k, option };
-    }
-    (occupied[chosen.row] ??= []).push(chosen.option.span);
+    return { x: px(c.lowBeta), width: textWidth(text, labelFontSize, emphasised), radius: emphasised ? 9 : 7, text };
+  });
+  const placements = placeLaneLabels(items);
+  const placed: LaneLandmark[] = [];
+  for (const [i, { name, c }] of present.entries()) {
+    const { x, text } = items[i]!;
+    const chosen = placements[i]!;
+    const emphasised = name === "capmConsistent";
     placed.push({
       name,
       b: c.lowBeta,
       px: x,
       y: laneY(row + chosen.row),
-      labelX: chosen.option.labelX,
-      align: chosen.option.align,
+      labelX: chosen.labelX,
+      labelWidth: items[i]!.width,
+      align: chosen.align,
       text,
       shape: landmarkShapes[name],
       size: emphasised ? 190 : 80,
       fill: c.insideSet ? (emphasised ? palette.vermillion : palette.ink) : "#FFFFFF",
-      stroke: emphasised ? palette.ink : palette.ink,
+      stroke: palette.ink,
       bold: emphasised,
       emphasised,
       insideSet: c.insideSet,
@@ -509,7 +545,7 @@ function laneLayout(landmarks: Landmarks, uncertainty: IdentifiedSetUncertainty,
         (c.insideSet ? "inside the identified set." : "outside the identified set."),
     });
   }
-  const rows = row + occupied.length;
+  const rows = row + Math.max(0, ...placements.map((p) => p.row + 1));
   return {
     height: laneGap + laneRowHeight * rows,
     landmarks: placed,
@@ -517,6 +553,94 @@ function laneLayout(landmarks: Landmarks, uncertainty: IdentifiedSetUncertainty,
     intervalLabels,
     anyOutside: placed.some((l) => !l.insideSet),
   };
+}
+
+interface LaneItem {
+  /** Pixel position of the symbol, its radius, and the label's estimated width. */
+  readonly x: number;
+  readonly radius: number;
+  readonly width: number;
+}
+
+interface LanePlacement {
+  readonly row: number;
+  /** "left": the label starts right of the symbol; "right": it ends left of it. */
+  readonly align: "left" | "right";
+  readonly labelX: number;
+  /** Pixels the symbol and label occupy in their row. */
+  readonly span: readonly [number, number];
+}
+
+/**
+ * Rows and sides for the landmark labels: no two labels overlap in a row, and as far as possible no
+ * guide line (which runs from a symbol down to the plot) crosses a label in a lower row. Every order
+ * of the (at most five) landmarks is tried with a greedy placement; the best is kept by fewest
+ * crossings, then fewest rows, then fewest labels left of their symbol. Deterministic: ties keep the
+ * first order found.
+ */
+function placeLaneLabels(items: readonly LaneItem[]): LanePlacement[] {
+  const options = (item: LaneItem): Omit<LanePlacement, "row">[] => {
+    const { x, radius: r, width: w } = item;
+    const all: Omit<LanePlacement, "row">[] = [
+      { align: "left", span: [x - r, x + r + 6 + w], labelX: x + r + 5 },
+      { align: "right", span: [x - r - 6 - w, x + r], labelX: x - r - 5 },
+    ];
+    const fits = all.filter((o) => o.span[1] <= plotWidth + marginRight - 8 && o.span[0] >= 8 - marginLeft);
+    return fits.length > 0 ? fits : all.slice(0, 1);
+  };
+  const greedy = (order: readonly number[]): LanePlacement[] => {
+    const placed: (LanePlacement | undefined)[] = items.map(() => undefined);
+    const done: { x: number; p: LanePlacement }[] = [];
+    const free = (k: number, span: readonly [number, number]): boolean =>
+      done.every(({ p }) => p.row !== k || span[1] + 10 <= p.span[0] || span[0] >= p.span[1] + 10);
+    const clean = (k: number, x: number, span: readonly [number, number]): boolean =>
+      free(k, span) &&
+      done.every(({ x: gx, p }) => (p.row > k ? gx < span[0] - 2 || gx > span[1] + 2 : true)) &&
+      done.every(({ p }) => (p.row < k ? x < p.span[0] - 2 || x > p.span[1] + 2 : true));
+    for (const i of order) {
+      const item = items[i]!;
+      const rowsInUse = Math.max(0, ...done.map(({ p }) => p.row + 1));
+      let chosen: LanePlacement | undefined;
+      for (let k = 0; k <= rowsInUse && chosen === undefined; k++) {
+        const o = options(item).find((c) => clean(k, item.x, c.span));
+        if (o !== undefined) chosen = { ...o, row: k };
+      }
+      for (let k = 0; chosen === undefined; k++) {
+        const o = options(item).find((c) => free(k, c.span));
+        if (o !== undefined) chosen = { ...o, row: k };
+      }
+      placed[i] = chosen;
+      done.push({ x: item.x, p: chosen });
+    }
+    return placed.map((p) => p!);
+  };
+  const crossings = (placement: readonly LanePlacement[]): number => {
+    let n = 0;
+    for (const [i, p] of placement.entries()) {
+      const x = items[i]!.x;
+      for (const [j, q] of placement.entries()) if (j !== i && q.row < p.row && x >= q.span[0] - 2 && x <= q.span[1] + 2) n++;
+    }
+    return n;
+  };
+  let best: { score: number; placement: LanePlacement[] } | null = null;
+  for (const order of permutations(items.map((_, i) => i))) {
+    const placement = greedy(order);
+    const rows = Math.max(0, ...placement.map((p) => p.row + 1));
+    const score = crossings(placement) * 10_000 + rows * 100 + placement.filter((p) => p.align === "right").length;
+    if (best === null || score < best.score) best = { score, placement };
+  }
+  return best?.placement ?? [];
+}
+
+/** Every ordering of `xs`, in lexicographic order of positions. */
+function permutations(xs: readonly number[]): number[][] {
+  if (xs.length <= 1) return [[...xs]];
+  return xs.flatMap((x, i) => permutations([...xs.slice(0, i), ...xs.slice(i + 1)]).map((rest) => [x, ...rest]));
+}
+
+/** "95% " for a confidence of 0.95, "" when none is given. */
+function levelText(u: IdentifiedSetUncertainty): string {
+  return u.confidence !== undefined && u.confidence > 0 && u.confidence < 1 ? `${Number((100 * u.confidence).toPrecision(4))}% ` : "";
 }
 
 function intervalText(what: string, i: BetaInterval): string {
@@ -616,7 +740,8 @@ function zeroRuleMark(y: "variance" | "share"): Mark {
   };
 }
 
-function guideMark(): Mark {
+/** Guides run from each landmark's symbol down to the plot's bottom (to the zero line, below which variances are impossible). */
+function guideMark(stopAtZero: boolean): Mark {
   return {
     type: "rule",
     name: "landmark-guide",
@@ -626,7 +751,7 @@ function guideMark(): Mark {
       enter: {
         x: { field: "px" },
         y: { field: "y" },
-        y2: { signal: "height" },
+        y2: stopAtZero ? { scale: "y", value: 0 } : { signal: "height" },
         stroke: { signal: `datum.emphasised ? '${palette.ink}' : '${palette.rule}'` },
         strokeWidth: { signal: "datum.emphasised ? 1.4 : 1" },
         strokeDash: { signal: `datum.emphasised ? [] : [${dash.guide.join(",")}]` },
@@ -756,6 +881,25 @@ function landmarkSymbolMark(): Mark {
   };
 }
 
+/** White boxes under the labels, so a guide line that must pass behind a label does not cut its text. */
+function labelBackdropMark(): Mark {
+  return {
+    type: "rect",
+    name: "landmark-label-backdrop",
+    aria: false,
+    from: { data: "landmarks" },
+    encode: {
+      enter: {
+        x: { signal: "datum.align === 'left' ? datum.labelX - 2 : datum.labelX - datum.labelWidth - 2" },
+        width: { signal: "datum.labelWidth + 4" },
+        y: { signal: "datum.y - 8" },
+        height: { value: 16 },
+        fill: { value: "#FFFFFF" },
+      },
+    },
+  };
+}
+
 function landmarkLabelMark(): Mark {
   return {
     type: "text",
@@ -779,7 +923,6 @@ function landmarkLabelMark(): Mark {
 }
 
 function legendEntries(
-  y: "variance" | "share",
   series: readonly Series[],
   min: number,
   max: number,
@@ -813,7 +956,11 @@ function legendEntries(
     });
   }
   if (uncertainty.lowBetaInterval !== undefined || uncertainty.boundIntervals !== undefined) {
-    entries.push({ swatch: { kind: "interval", stroke: palette.ink }, label: "bar: sampling uncertainty interval" });
+    const level = levelText(uncertainty);
+    entries.push({
+      swatch: { kind: "interval", stroke: palette.ink },
+      label: level === "" ? "bar: sampling uncertainty interval" : `bar: ${level}confidence interval`,
+    });
   }
   return entries;
 }

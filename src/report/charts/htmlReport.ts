@@ -1,0 +1,391 @@
+/**
+ * The report as one self-contained HTML file: the text report's content as HTML tables, with the
+ * identified-set chart inline. No scripts, no external style sheets, fonts or images, so it opens
+ * offline and prints cleanly (print CSS: A4, no page breaks inside a table row or the chart).
+ *
+ * Every string that comes from the data (file name, column names, dates, diagnostics) is escaped.
+ * The charts are SVG documents made by this package's renderers and are inlined as they are, minus
+ * their XML namespace declarations (HTML does not need them).
+ */
+
+import type { Candidate, LineFit, Solution } from "../../core/types.js";
+import { landmarkNames } from "../../core/types.js";
+import { largestCapmDiscrepancy } from "../check.js";
+import { excessReturnBasis, modelAssumptions } from "../conventions.js";
+import { formatCount, formatNumber, notAvailable, statisticDigits, tableDigits } from "../format.js";
+import { printable } from "../layout.js";
+import { titleLine } from "../text.js";
+import { cautionLine } from "../textNotes.js";
+import { landmarkDescriptions, reproductionTolerance } from "../textSet.js";
+import type { InputDescription, RiskFreeSource, SolveReport } from "../types.js";
+
+export interface HtmlReportCharts {
+  /** The identified-set chart (SVG from renderIdentifiedSetChart). */
+  readonly identifiedSet: string;
+  /** Optionally, a rolling-window chart (SVG from renderRollChart). */
+  readonly roll?: string;
+}
+
+export interface HtmlReportOptions {
+  /** The document title (the browser tab); by default the tool, the two columns and the file. */
+  readonly title?: string;
+}
+
+/** Escapes text for HTML element content and attribute values, after neutralising control characters. */
+export function escapeHtml(text: string): string {
+  return printable(text)
+    .replace(/&/g, "&amp;")
+    .replace(/</g, "&lt;")
+    .replace(/>/g, "&gt;")
+    .replace(/"/g, "&quot;")
+    .replace(/'/g, "&#39;");
+}
+
+/** Renders the HTML document (LF line endings, trailing newline). */
+export function renderHtmlReport(report: SolveReport, charts: HtmlReportCharts, options: HtmlReportOptions = {}): string {
+  const s = report.solution;
+  const input = report.input;
+  const title =
+    options.title ??
+    `${report.tool.name}: "${input.lowColumn}" and "${input.highColumn}" (${input.source})`;
+  const sections: string[] = [
+    chartSection(charts),
+    inputSection(input, s.observations),
+    momentsSection(s),
+    capmSection(s),
+  ];
+  if (s.bounds === null) {
+    const reason = s.diagnostics.find((d) => d.severity === "error")?.message ?? null;
+    sections.push(
+      section(
+        "set",
+        "The identified set",
+        paragraph(
+          "None: no one-factor structure fits these data, so no set, landmarks or candidates are shown." +
+            (reason === null ? "" : ` Why: ${reason}.`),
+        ),
+      ),
+    );
+  } else {
+    sections.push(boundsSection(s));
+    if (s.landmarks !== null) sections.push(landmarksSection(s));
+    sections.push(gridSection(s));
+  }
+  sections.push(diagnosticsSection(s), assumptionsSection(s.weight), closingSection(input.riskFree));
+  return [
+    "<!DOCTYPE html>",
+    '<html lang="en">',
+    "<head>",
+    '<meta charset="utf-8">',
+    '<meta name="viewport" content="width=device-width, initial-scale=1">',
+    `<meta name="generator" content="${escapeHtml(`${report.tool.name} ${report.tool.version}`)}">`,
+    `<title>${escapeHtml(title)}</title>`,
+    `<style>\n${css}</style>`,
+    "</head>",
+    "<body>",
+    "<header>",
+    `<h1>${escapeHtml(titleLine(report))}</h1>`,
+    `<p class="lede">Statistical estimates from ${escapeHtml(input.source)}, ${escapeHtml(input.firstDate)} to ` +
+      `${escapeHtml(input.lastDate)} (${formatCount(s.observations)} observations), under the assumptions listed below; not investment advice.</p>`,
+    "</header>",
+    "<main>",
+    ...sections,
+    "</main>",
+    "</body>",
+    "</html>",
+    "",
+  ].join("\n");
+}
+
+const css = `:root { color-scheme: light; }
+body { font-family: Helvetica, Arial, "Liberation Sans", "DejaVu Sans", sans-serif; color: #222; background: #fff;
+  margin: 0 auto; max-width: 60rem; padding: 1.5rem; line-height: 1.45; }
+h1 { font-size: 1.45rem; margin: 0 0 0.4rem; }
+h2 { font-size: 1.15rem; margin: 2rem 0 0.5rem; border-bottom: 1px solid #ccc; padding-bottom: 0.2rem; }
+p { margin: 0.4rem 0; }
+.lede { color: #444; }
+table { border-collapse: collapse; margin: 0.5rem 0; font-size: 0.9rem; }
+th, td { padding: 0.2rem 0.6rem; border-bottom: 1px solid #e2e2e2; vertical-align: top; }
+thead th { border-bottom: 2px solid #999; text-align: right; font-weight: bold; }
+thead th:first-child, tbody th { text-align: left; }
+tbody th { font-weight: normal; white-space: nowrap; }
+td.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+td.text { text-align: left; }
+table.fields th { color: #444; }
+.note { color: #444; font-size: 0.9rem; }
+.warning { color: #8a4b00; font-weight: bold; }
+.error { color: #a40000; font-weight: bold; }
+figure { margin: 0.5rem 0; }
+figure svg { display: block; max-width: 100%; height: auto; }
+figcaption { color: #444; font-size: 0.9rem; margin-top: 0.3rem; }
+.caution { border: 1px solid #bbb; background: #f6f6f6; padding: 0.6rem 0.8rem; margin-top: 2rem; }
+code { font-family: "DejaVu Sans Mono", Menlo, Consolas, monospace; font-size: 0.9em; }
+@page { size: A4; margin: 14mm; }
+@media print {
+  body { max-width: none; padding: 0; font-size: 9.5pt; }
+  h2 { break-after: avoid; page-break-after: avoid; }
+  figure, tr, .caution { break-inside: avoid; page-break-inside: avoid; }
+  thead { display: table-header-group; }
+  table { font-size: 8.5pt; }
+  .caution { background: none; }
+}
+`;
+
+function section(id: string, heading: string, ...body: string[]): string {
+  return [`<section id="${id}">`, `<h2>${escapeHtml(heading)}</h2>`, ...body, "</section>"].join("\n");
+}
+
+function paragraph(text: string, className?: string): string {
+  return `<p${className === undefined ? "" : ` class="${className}"`}>${escapeHtml(text)}</p>`;
+}
+
+/** A table: a header row, then rows whose first cell is a row heading. Cells are plain text, escaped. */
+function table(header: readonly string[], rows: readonly (readonly string[])[], options: { caption?: string; textColumns?: readonly number[] } = {}): string {
+  const textColumns = new Set(options.textColumns ?? []);
+  const head = `<thead><tr>${header.map((h) => `<th scope="col">${escapeHtml(h)}</th>`).join("")}</tr></thead>`;
+  const body = rows
+    .map(
+      (row) =>
+        `<tr>${row
+          .map((cell, i) =>
+            i === 0 ? `<th scope="row">${escapeHtml(cell)}</th>` : `<td class="${textColumns.has(i) ? "text" : "num"}">${escapeHtml(cell)}</td>`,
+          )
+          .join("")}</tr>`,
+    )
+    .join("\n");
+  const caption = options.caption === undefined ? "" : `<caption class="note">${escapeHtml(options.caption)}</caption>`;
+  return `<table>${caption}\n${head}\n<tbody>\n${body}\n</tbody></table>`;
+}
+
+/** A two-column label / value table. */
+function fields(pairs: readonly (readonly [string, string])[]): string {
+  const rows = pairs.map(([label, value]) => `<tr><th scope="row">${escapeHtml(label)}</th><td class="text">${escapeHtml(value)}</td></tr>`);
+  return `<table class="fields">\n<tbody>\n${rows.join("\n")}\n</tbody></table>`;
+}
+
+/** Inlines an SVG document from this package's chart renderers. */
+function inlineSvg(svg: string): string {
+  const trimmed = svg.trim().replace(/^<\?xml[^>]*\?>\s*/, "");
+  if (!trimmed.startsWith("<svg")) throw new RangeError("renderHtmlReport: a chart must be an SVG document starting with <svg");
+  return trimmed.replace(/^<svg([^>]*)>/, (_, attributes: string) => `<svg${attributes.replace(/\s+xmlns(:\w+)?="[^"]*"/g, "")}>`);
+}
+
+function chartSection(charts: HtmlReportCharts): string {
+  const figures = [
+    "<figure>",
+    inlineSvg(charts.identifiedSet),
+    "<figcaption>The shaded range holds every low structural beta consistent with the sample moments; " +
+      "the lines show what each value implies for the noise of the two books, and the symbols mark the landmarks " +
+      "listed below.</figcaption>",
+    "</figure>",
+  ];
+  if (charts.roll !== undefined) {
+    figures.push(
+      "<figure>",
+      inlineSvg(charts.roll),
+      "<figcaption>The identified set and the CAPM beta of the low book in rolling windows.</figcaption>",
+      "</figure>",
+    );
+  }
+  return section("chart", "The identified set at a glance", ...figures);
+}
+
+function riskFreeText(riskFree: RiskFreeSource): string {
+  switch (riskFree.kind) {
+    case "none":
+      return "none given: raw returns are analysed";
+    case "constant":
+      return `constant, ${riskFree.rate} per period (decimal)`;
+    case "column":
+      return `column "${riskFree.column}"`;
+  }
+}
+
+function inputSection(input: InputDescription, observations: number): string {
+  const frequency =
+    input.frequency === null ? "could not be told from the dates" : `${input.frequency.name} (${input.frequency.periodsPerYear} periods per year)`;
+  const units = input.units === "percent" ? "percent (divided by 100: every figure below is decimal)" : "decimal";
+  const dropped =
+    input.rowsDropped === 0
+      ? "none"
+      : `${input.rowsDropped} with a missing value` +
+        (input.droppedDates.length > 0 ? `: ${input.droppedDates.join(", ")}` : "");
+  return section(
+    "input",
+    "Input",
+    fields([
+      ["File", input.source],
+      ["Low book", `column "${input.lowColumn}"`],
+      ["High book", `column "${input.highColumn}"`],
+      ["Dates", `column "${input.dateColumn}", ${input.firstDate} to ${input.lastDate}`],
+      ["Risk-free", riskFreeText(input.riskFree)],
+      ["Units in file", units],
+      ["Observations", `${formatCount(observations)} used of ${formatCount(input.rowsRead)} rows read`],
+      ["Frequency", frequency],
+      ["Dropped rows", dropped],
+    ]),
+  );
+}
+
+function momentsSection(s: Solution): string {
+  const m = s.moments;
+  const series = [
+    ["low", m.low],
+    ["high", m.high],
+    ["market", m.market],
+  ] as const;
+  return section(
+    "moments",
+    "Sample moments (excess returns, per period)",
+    table(
+      ["", "mean", "stdev", "variance", "Sharpe"],
+      series.map(([name, x]) => [name, formatNumber(x.mean), formatNumber(x.stdev), formatNumber(x.variance), formatNumber(x.sharpeRatio)]),
+    ),
+    fields([
+      ["covariance of low and high", formatNumber(m.covariance.lowHigh)],
+      ["correlation of low and high", formatNumber(m.correlation.lowHigh)],
+    ]),
+  );
+}
+
+function capmSection(s: Solution): string {
+  const { low, high } = s.capm;
+  const stat = (x: number | null): string => formatNumber(x, statisticDigits);
+  const rows: [string, (f: LineFit) => string][] = [
+    ["alpha", (f) => formatNumber(f.alpha)],
+    ["alpha std. error", (f) => formatNumber(f.alphaStdErr)],
+    ["alpha t", (f) => stat(f.alphaTStat)],
+    ["alpha p-value", (f) => stat(f.alphaPValue)],
+    ["beta", (f) => formatNumber(f.beta)],
+    ["beta std. error", (f) => formatNumber(f.betaStdErr)],
+    ["beta t (beta = 0)", (f) => stat(f.betaTStat)],
+    ["beta p-value", (f) => stat(f.betaPValue)],
+    ["R-squared", (f) => formatNumber(f.rSquared)],
+    ["residual variance", (f) => formatNumber(f.residualVariance)],
+  ];
+  return section(
+    "capm",
+    "CAPM regressions on the market proxy",
+    paragraph(
+      `book = alpha + beta M + error, M = w low + (1 - w) high with w = ${s.weight}; least squares, classical standard ` +
+        `errors, two-sided p-values from Student's t with ${low.observations - 2} d.f.`,
+      "note",
+    ),
+    table(["", "low", "high"], rows.map(([label, value]) => [label, value(low), value(high)])),
+  );
+}
+
+function boundsSection(s: Solution): string {
+  const b = s.bounds!;
+  const range = (i: { readonly min: number; readonly max: number }): [string, string] => [formatNumber(i.min), formatNumber(i.max)];
+  return section(
+    "set",
+    "The identified set",
+    table(
+      ["", "from", "to"],
+      [
+        ["low structural beta", ...range(b.lowBeta)],
+        ["high structural beta", ...range(b.highBeta)],
+        ["factor variance", ...range(b.factorVariance)],
+      ],
+    ),
+    paragraph(
+      "Every pair of betas in this range fits the data equally well: the pairs differ only in how each book's risk " +
+        "splits between the common factor and its own noise.",
+    ),
+  );
+}
+
+const candidateHeader = [
+  "low beta",
+  "high beta",
+  "factor variance",
+  "low noise variance",
+  "high noise variance",
+  "noise share",
+  "expected low alpha",
+  "expected high alpha",
+];
+
+function candidateCells(c: Candidate): string[] {
+  return [
+    c.lowBeta,
+    c.highBeta,
+    c.factorVariance,
+    c.lowNoiseVariance,
+    c.highNoiseVariance,
+    c.noiseShare,
+    c.expectedLowAlpha,
+    c.expectedHighAlpha,
+  ].map((x) => formatNumber(x, tableDigits));
+}
+
+function landmarksSection(s: Solution): string {
+  const landmarks = s.landmarks!;
+  const rows = landmarkNames.map((name) => {
+    const c = landmarks[name];
+    const note = c === null ? " (not reported: see Diagnostics)" : c.insideSet ? "" : " (outside the identified set: see Diagnostics)";
+    const cells = c === null ? candidateHeader.map(() => notAvailable) : candidateCells(c);
+    return [name, `${landmarkDescriptions[name]}${note}`, ...cells];
+  });
+  return section(
+    "landmarks",
+    "Landmarks",
+    table(["", "meaning", ...candidateHeader], rows, { textColumns: [1] }),
+  );
+}
+
+function gridSection(s: Solution): string {
+  const rows = s.grid.map((c, i) => [String(i + 1), ...candidateCells(c)]);
+  const discrepancy = largestCapmDiscrepancy(s);
+  const check =
+    discrepancy === null
+      ? ""
+      : discrepancy <= reproductionTolerance
+        ? paragraph(
+            `Check: every candidate reproduces the observed CAPM betas and residual variances (largest relative difference across the grid: ${formatNumber(discrepancy, 2)}).`,
+            "note",
+          )
+        : paragraph(
+            `Check FAILED: the candidates do not reproduce the observed CAPM betas and residual variances (largest relative difference across the grid: ${formatNumber(discrepancy, 2)}).`,
+            "warning",
+          );
+  return section(
+    "grid",
+    "Candidate grid",
+    paragraph(`${s.grid.length} structures with the low beta evenly spaced over the set, ends included.`, "note"),
+    table(["#", ...candidateHeader], rows),
+    check,
+  );
+}
+
+function diagnosticsSection(s: Solution): string {
+  if (s.diagnostics.length === 0) return section("diagnostics", "Diagnostics", paragraph("none"));
+  const rows = s.diagnostics.map(
+    (d) => `<tr><th scope="row" class="${d.severity === "info" ? "" : d.severity}">${escapeHtml(d.severity)}</th><td class="text">${escapeHtml(d.message)}</td></tr>`,
+  );
+  return section(
+    "diagnostics",
+    "Diagnostics",
+    `<table>\n<thead><tr><th scope="col">severity</th><th scope="col">message</th></tr></thead>\n<tbody>\n${rows.join("\n")}\n</tbody></table>`,
+  );
+}
+
+function assumptionsSection(weight: number): string {
+  const items = modelAssumptions.map((a) => a.replace("M = w low + (1 - w) high", `M = w low + (1 - w) high (w = ${weight})`));
+  return section("assumptions", "Assumptions", `<ul>\n${items.map((a) => `<li>${escapeHtml(a)}</li>`).join("\n")}\n</ul>`);
+}
+
+function closingSection(riskFree: RiskFreeSource): string {
+  const basis =
+    riskFree.kind === "none" ? "returns are raw (no risk-free rate was given)" : `returns are in excess of ${excessReturnBasis(riskFree)}`;
+  return [
+    '<footer class="caution">',
+    `<p><strong>${escapeHtml(cautionLine)}</strong></p>`,
+    paragraph(
+      `Conventions: decimal units per period (0.01 is one percent); variances and covariances use the divisor n - 1; ${basis}.`,
+      "note",
+    ),
+    "</footer>",
+  ].join("\n");
+}
