@@ -19,6 +19,9 @@ await build({
   format: "esm",
   target: "node20",
   define,
+  // vega is loaded only when a chart is drawn (a dynamic import); leaving it out of the bundle keeps
+  // start-up fast. It is a dependency, so it is there at run time.
+  external: ["vega"],
   banner: {
     js: "#!/usr/bin/env node\nimport { createRequire as __createRequire } from 'node:module'; const require = __createRequire(import.meta.url);",
   },

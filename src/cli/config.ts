@@ -62,6 +62,9 @@ export const configFileSchema = z.strictObject({
   blockLength: z.union([z.number(), z.literal("auto")]).optional(),
   seed: z.number().optional(),
   threads: z.number().optional(),
+  chart: z.string().optional(),
+  chartY: z.string().optional(),
+  report: z.string().optional(),
 });
 
 export type ConfigFile = z.infer<typeof configFileSchema>;
@@ -89,6 +92,8 @@ export async function readConfig(path: string, io: CliIo): Promise<Result<Config
     ...config,
     ...(config.files === undefined ? {} : { files: config.files.map(relative) }),
     ...(config.output === undefined ? {} : { output: relative(config.output) }),
+    ...(config.chart === undefined ? {} : { chart: relative(config.chart) }),
+    ...(config.report === undefined ? {} : { report: relative(config.report) }),
   });
 }
 

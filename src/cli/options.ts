@@ -4,6 +4,7 @@
  */
 import { z } from "zod";
 import { frequencies } from "../core/calendar.js";
+import { chartYChoices } from "./charts.js";
 import { defaultSteps, defaultWeight } from "../core/solve.js";
 import {
   automaticBandwidths,
@@ -98,6 +99,9 @@ export const solveOptionsSchema = z
     blockLength: z.union([z.literal("auto"), z.number().gte(1)]),
     seed: z.number().int().nonnegative(),
     threads: z.number().int().positive(),
+    chart: z.string().min(1).optional(),
+    chartY: z.enum(chartYChoices),
+    report: z.string().min(1).optional(),
   })
   .strict()
   .refine((o) => o.intervalSource !== "bootstrap" || o.bootstrap >= 2, {

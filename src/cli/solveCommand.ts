@@ -26,6 +26,7 @@ import { exitCodes, type ExitCode } from "./exitCodes.js";
 import { emit, wantsColour } from "./emit.js";
 import type { CliIo } from "./io.js";
 import { runBootstrap } from "./bootstrapRunner.js";
+import { chartYChoices, writeCharts } from "./charts.js";
 import { withConfig } from "./config.js";
 import { createProgress } from "./progress.js";
 import { describeCliIssue } from "./messages.js";
@@ -71,6 +72,10 @@ export async function runSolve(given: readonly string[], options: SolveCliOption
   }
   const files = given.length === 0 ? ["-"] : given;
   const several = joined === null && files.length * pairs.length > 1;
+  if (several && (options.chart !== undefined || options.report !== undefined)) {
+    io.writeErr(`error: ${describeCliIssue({ code: "invalid-option", option: options.chart === undefined ? "--report" : "--chart", value: options.chart ?? options.report ?? "", expected: "draws one file and one pair; run it per pair" })}\n`);
+    return exitCodes.usage;
+  }
   if (several && options.format === "json") {
     io.writeErr(`error: ${describeCliIssue({ code: "invalid-option", option: "--format", value: "json", expected: "several files or pairs need --format jsonl (one record per line), csv or text" })}\n`);
     return exitCodes.usage;
@@ -88,6 +93,10 @@ export async function runSolve(given: readonly string[], options: SolveCliOption
   else if (!several) text = null; // one pair that failed: its messages go to stderr, nothing to stdout
   else text = options.format === "csv" ? renderRecordsCsv(records) : renderRecordsText(records, { colour });
 
+  if (single !== null) {
+    const drawn = await writeCharts(single, options, io);
+    if (drawn !== exitCodes.ok) return drawn;
+  }
   if (text !== null) {
     const written = await emit(io, options.output, text);
     if (written !== exitCodes.ok) return written;
@@ -326,6 +335,7 @@ Examples:
   $ cat returns.csv | betabound solve - --low LOW --high HIGH --steps 21 --format csv --output grid.csv
   $ betabound solve desk-a.csv desk-b.csv --lows LV1,LV2 --highs HB1 --format jsonl > pairs.jsonl
   $ betabound solve --low calm.csv:Return --high bold.csv:Return --rf 0.0001
+  $ betabound solve returns.csv --low LOW --high HIGH --chart set.svg --report report.html
 `;
 
 /** The commander definition of `solve`. */
@@ -376,6 +386,9 @@ export function solveCommand(io: CliIo, setExit: (code: ExitCode) => void): Comm
     .option("--block-length <b|auto>", "mean block length of the bootstrap (auto: Politis-White)", blockLengthArgument, "auto" as const)
     .option("--seed <n>", "seed of the bootstrap (the same seed gives the same intervals)", wholeNumber(0, Number.MAX_SAFE_INTEGER), uncertaintyDefaults.seed)
     .option("--threads <n>", "worker threads for the bootstrap (results do not depend on it)", wholeNumber(1, 256), defaultThreads())
+    .option("--chart <file.svg>", "also draw the identified set as an SVG chart")
+    .addOption(new Option("--chart-y <quantity>", "what the chart's y axis shows").choices(chartYChoices).default("variance"))
+    .option("--report <file.html>", "also write a self-contained HTML report with the tables and the chart")
     .option("--config <file>", "JSON file with files, pairs and options for a job; flags override it")
     .addHelpText("after", solveExamples)
     .action(async (given: string[], _raw: Record<string, unknown>, command: Command) => {

@@ -488,10 +488,15 @@ function laneLayout(landmarks: Landmarks, uncertainty: IdentifiedSetUncertainty,
   const intervals: LaneInterval[] = [];
   const intervalLabels: { x: number; y: number; text: string; align: "left" | "right" }[] = [];
   let row = 0;
-  const labelBar = (text: string, lower: number, upper: number, y: number): void => {
-    const w = textWidth(text, 11);
-    if (upper + 8 + w <= plotWidth + 40) intervalLabels.push({ x: upper + 8, y, text, align: "left" });
-    else intervalLabels.push({ x: lower - 8, y, text, align: "right" });
+  // Right of the bar if the label fits there, else left of it; a label that fits neither side is
+  // shortened (the legend explains the bars in full).
+  const labelBar = (text: string, short: string, lower: number, upper: number, y: number): void => {
+    for (const label of [text, short]) {
+      const w = textWidth(label, 11);
+      if (upper + 8 + w <= plotWidth + 40) return void intervalLabels.push({ x: upper + 8, y, text: label, align: "left" });
+      if (lower - 8 - w >= 4 - marginLeft) return void intervalLabels.push({ x: lower - 8, y, text: label, align: "right" });
+    }
+    intervalLabels.push({ x: upper + 8, y, text: short, align: "left" });
   };
   const bounds = uncertainty.boundIntervals;
   if (bounds !== undefined) {
@@ -500,13 +505,13 @@ function laneLayout(landmarks: Landmarks, uncertainty: IdentifiedSetUncertainty,
       { kind: "lowerBound", x: px(bounds.min.lower), x2: px(bounds.min.upper), y, description: intervalText("lower bound", bounds.min) },
       { kind: "upperBound", x: px(bounds.max.lower), x2: px(bounds.max.upper), y, description: intervalText("upper bound", bounds.max) },
     );
-    labelBar(`${levelText(uncertainty)}intervals for the two ends`, px(bounds.min.lower), px(bounds.max.upper), y);
+    labelBar(`${levelText(uncertainty)}intervals for the two ends`, `${levelText(uncertainty)}each end`, px(bounds.min.lower), px(bounds.max.upper), y);
   }
   const lowBeta = uncertainty.lowBetaInterval;
   if (lowBeta !== undefined) {
     const y = laneY(row++);
     intervals.push({ kind: "lowBeta", x: px(lowBeta.lower), x2: px(lowBeta.upper), y, description: intervalText("b_low", lowBeta) });
-    labelBar(`${levelText(uncertainty)}interval for b_low`, px(lowBeta.lower), px(lowBeta.upper), y);
+    labelBar(`${levelText(uncertainty)}interval for b_low`, `${levelText(uncertainty)}b_low`, px(lowBeta.lower), px(lowBeta.upper), y);
   }
 
   const present = landmarkNames
