@@ -31,3 +31,5 @@ export { describeDiagnostic, diagnose, hasError, type Diagnostic, type Diagnosti
 export { failure, success, type Result } from "./core/result.js";
 export type * from "./core/types.js";
 export { landmarkNames } from "./core/types.js";
+export { implied, type ImpliedSolution, type PopulationFit } from "./core/implied.js";
+export * from "./core/inference/index.js";
