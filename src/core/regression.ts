@@ -14,21 +14,37 @@
  * Greene, W. H., Econometric Analysis, ch. 3-4 (standard results); NIST StRD "Norris" for the check.
  */
 
-import { compensatedSum, crossProducts } from "./moments.js";
+import { crossProducts } from "./moments.js";
 import { studentTTwoSidedP } from "./studentT.js";
 import type { LineFit } from "./types.js";
 
 /** Fits y = alpha + beta x + e. Needs n >= 3 and a non-constant x (callers check; see solve.ts). */
 export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>): LineFit {
   const cp = crossProducts([x, y]);
-  const n = cp.n;
   const [xbar, ybar] = cp.means as [number, number];
-  const sxx = cp.sums[0]![0]!;
-  const sxy = cp.sums[0]![1]!;
-  const syy = cp.sums[1]![1]!;
+  const sums = { n: cp.n, xbar, ybar, sxx: cp.sums[0]![0]!, sxy: cp.sums[0]![1]!, syy: cp.sums[1]![1]! };
+  const beta = sums.sxy / sums.sxx;
+  return lineFitFromSums(sums, residualSumOfSquares(x, y, xbar, ybar, beta));
+}
+
+/** Means and centred sums of squares and cross-products of (x, y). */
+export interface LineSums {
+  readonly n: number;
+  readonly xbar: number;
+  readonly ybar: number;
+  readonly sxx: number;
+  readonly sxy: number;
+  readonly syy: number;
+}
+
+/**
+ * The fit from centred sums and the residual sum of squares computed from the data (second pass), for
+ * callers that already hold the sums (solve fits both books from one pass over the data).
+ */
+export function lineFitFromSums(sums: LineSums, ssr: number): LineFit {
+  const { n, xbar, ybar, sxx, sxy, syy } = sums;
   const beta = sxy / sxx;
   const alpha = ybar - beta * xbar;
-  const ssr = compensatedSum(squaredResiduals(x, y, xbar, ybar, beta));
   const s2 = ssr / (n - 2);
   const residualStdError = Math.sqrt(s2);
   const betaStdErr = residualStdError / Math.sqrt(sxx);
@@ -54,9 +70,16 @@ export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>): LineFit {
   };
 }
 
-function* squaredResiduals(x: ArrayLike<number>, y: ArrayLike<number>, xbar: number, ybar: number, beta: number) {
+/** Sum of squared residuals e = (y - ybar) - beta (x - xbar), Neumaier-compensated. */
+export function residualSumOfSquares(x: ArrayLike<number>, y: ArrayLike<number>, xbar: number, ybar: number, beta: number): number {
+  let sum = 0;
+  let compensation = 0;
   for (let t = 0; t < x.length; t++) {
     const e = y[t]! - ybar - beta * (x[t]! - xbar);
-    yield e * e;
+    const term = e * e;
+    const next = sum + term;
+    compensation += sum >= term ? sum - next + term : term - next + sum;
+    sum = next;
   }
+  return sum + compensation;
 }

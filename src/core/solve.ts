@@ -12,7 +12,7 @@ import { diagnose, type Diagnostic } from "./diagnostics.js";
 import { candidateGrid, identifiedBounds, marketMoments, type MomentSummary } from "./identify.js";
 import { findLandmarks } from "./landmarks.js";
 import { crossProducts } from "./moments.js";
-import { fitLine } from "./regression.js";
+import { lineFitFromSums, residualSumOfSquares } from "./regression.js";
 import { failure, success, type Result } from "./result.js";
 import type { ReturnSample, SampleMoments, SeriesMoments, Solution, SolveOptions } from "./types.js";
 
@@ -53,7 +53,12 @@ export function solve(sample: ReturnSample, options: SolveOptions = {}): Result<
     covariance: { lowHigh: covariance(0, 1), lowMarket: covariance(0, 2), highMarket: covariance(1, 2) },
     correlation: { lowHigh: correlation(0, 1), lowMarket: correlation(0, 2), highMarket: correlation(1, 2) },
   };
-  const capm = { low: fitLine(market, low), high: fitLine(market, high) };
+  // Both CAPM fits from the same centred sums; only the residuals need another pass each.
+  const fit = (i: number, series: Float64Array) => {
+    const sums = { n, xbar: cp.means[2]!, ybar: cp.means[i]!, sxx: cp.sums[2]![2]!, sxy: cp.sums[i]![2]!, syy: cp.sums[i]![i]! };
+    return lineFitFromSums(sums, residualSumOfSquares(market, series, sums.xbar, sums.ybar, sums.sxy / sums.sxx));
+  };
+  const capm = { low: fit(0, low), high: fit(1, high) };
   const summary: MomentSummary = {
     weight,
     lowMean: moments.low.mean,
