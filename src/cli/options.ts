@@ -59,68 +59,82 @@ export const missingPolicies = ["drop", "error"] as const;
 
 const pairSchema = z.object({ low: z.string().min(1), high: z.string().min(1) }).strict();
 
-export const solveOptionsSchema = z
-  .object({
-    low: z.string().min(1).optional(),
-    high: z.string().min(1).optional(),
-    pair: z.array(pairSchema).optional(),
-    lows: z.array(z.string().min(1)).optional(),
-    highs: z.array(z.string().min(1)).optional(),
-    date: z.string().min(1).optional(),
-    weight: z.number().gt(0).lt(1),
-    rf: z.string().min(1).optional(),
-    units: z.enum(unitChoices),
-    steps: z.number().int().min(2).max(maximumSteps),
-    format: z.enum(solveFormats),
-    output: z.string().min(1).optional(),
-    allowExtreme: z.boolean(),
-    delimiter: z.string().length(1).optional(),
-    block: z.number().int().positive().optional(),
-    dateFormat: z.string().min(1).optional(),
-    sort: z.boolean(),
-    periodsPerYear: z.number().positive().optional(),
-    missing: z.array(z.string().min(1)).optional(),
-    onMissing: z.enum(missingPolicies),
-    input: z.enum(inputKinds),
-    idColumn: z.string().min(1).optional(),
-    valueColumn: z.string().min(1).optional(),
-    decimalComma: z.boolean(),
-    uncertainty: z.boolean(),
-    confidence: z.number().gt(0).lt(1),
-    longRun: z.enum(longRunMethods),
-    hacKernel: z.enum(hacKernels),
-    hacBandwidth: z.enum(automaticBandwidths),
-    hacLags: z.number().int().nonnegative().optional(),
-    hacPrewhite: z.boolean(),
-    hacAdjust: z.boolean(),
-    interval: z.enum(intervalMethods),
-    intervalSource: z.enum(intervalSources),
-    bootstrap: z.number().int().nonnegative(),
-    blockLength: z.union([z.literal("auto"), z.number().gte(1)]),
-    seed: z.number().int().nonnegative(),
-    threads: z.number().int().positive(),
-    chart: z.string().min(1).optional(),
-    chartY: z.enum(chartYChoices),
-    report: z.string().min(1).optional(),
-  })
-  .strict()
-  .refine((o) => o.intervalSource !== "bootstrap" || o.bootstrap >= 2, {
-    path: ["intervalSource"],
-    message: "bootstrap standard errors need --bootstrap with at least 2 replicates",
-  })
-  .refine((o) => (o.low === undefined) === (o.high === undefined), {
-    path: ["high"],
-    message: "--low and --high go together (or use --pair LOW:HIGH)",
-  })
-  .refine((o) => (o.lows === undefined) === (o.highs === undefined), { path: ["highs"], message: "--lows and --highs go together" })
-  .refine((o) => o.low !== undefined || (o.pair?.length ?? 0) > 0 || o.lows !== undefined, {
-    path: ["low"],
-    message: "name the books: --low COLUMN --high COLUMN, or --pair LOW:HIGH, or --lows A,B --highs X,Y",
-  })
-  .refine((o) => (o.idColumn === undefined) === (o.valueColumn === undefined), {
-    path: ["valueColumn"],
-    message: "the long layout needs both --id-column and --value-column",
-  });
+/** Options shared by every command that reads return files: which books, and how to read them. */
+export const inputOptionsShape = {
+  low: z.string().min(1).optional(),
+  high: z.string().min(1).optional(),
+  pair: z.array(pairSchema).optional(),
+  lows: z.array(z.string().min(1)).optional(),
+  highs: z.array(z.string().min(1)).optional(),
+  date: z.string().min(1).optional(),
+  weight: z.number().gt(0).lt(1),
+  rf: z.string().min(1).optional(),
+  units: z.enum(unitChoices),
+  output: z.string().min(1).optional(),
+  allowExtreme: z.boolean(),
+  delimiter: z.string().length(1).optional(),
+  block: z.number().int().positive().optional(),
+  dateFormat: z.string().min(1).optional(),
+  sort: z.boolean(),
+  periodsPerYear: z.number().positive().optional(),
+  missing: z.array(z.string().min(1)).optional(),
+  onMissing: z.enum(missingPolicies),
+  input: z.enum(inputKinds),
+  idColumn: z.string().min(1).optional(),
+  valueColumn: z.string().min(1).optional(),
+  decimalComma: z.boolean(),
+};
+
+/** The input options after validation (what the pair loader needs). */
+export type InputCliOptions = z.infer<z.ZodObject<typeof inputOptionsShape>>;
+
+/** Cross-field rules of the input options, for any schema that spreads inputOptionsShape. */
+export function refineInputOptions<T extends z.ZodType<InputCliOptions>>(schema: T) {
+  return schema
+    .refine((o) => (o.low === undefined) === (o.high === undefined), {
+      path: ["high"],
+      message: "--low and --high go together (or use --pair LOW:HIGH)",
+    })
+    .refine((o) => (o.lows === undefined) === (o.highs === undefined), { path: ["highs"], message: "--lows and --highs go together" })
+    .refine((o) => o.low !== undefined || (o.pair?.length ?? 0) > 0 || o.lows !== undefined, {
+      path: ["low"],
+      message: "name the books: --low COLUMN --high COLUMN, or --pair LOW:HIGH, or --lows A,B --highs X,Y",
+    })
+    .refine((o) => (o.idColumn === undefined) === (o.valueColumn === undefined), {
+      path: ["valueColumn"],
+      message: "the long layout needs both --id-column and --value-column",
+    });
+}
+
+export const solveOptionsSchema = refineInputOptions(
+  z
+    .object({
+      ...inputOptionsShape,
+      steps: z.number().int().min(2).max(maximumSteps),
+      format: z.enum(solveFormats),
+      uncertainty: z.boolean(),
+      confidence: z.number().gt(0).lt(1),
+      longRun: z.enum(longRunMethods),
+      hacKernel: z.enum(hacKernels),
+      hacBandwidth: z.enum(automaticBandwidths),
+      hacLags: z.number().int().nonnegative().optional(),
+      hacPrewhite: z.boolean(),
+      hacAdjust: z.boolean(),
+      interval: z.enum(intervalMethods),
+      intervalSource: z.enum(intervalSources),
+      bootstrap: z.number().int().nonnegative(),
+      blockLength: z.union([z.literal("auto"), z.number().gte(1)]),
+      seed: z.number().int().nonnegative(),
+      threads: z.number().int().positive(),
+      chart: z.string().min(1).optional(),
+      chartY: z.enum(chartYChoices),
+      report: z.string().min(1).optional(),
+    })
+    .strict(),
+).refine((o) => o.intervalSource !== "bootstrap" || o.bootstrap >= 2, {
+  path: ["intervalSource"],
+  message: "bootstrap standard errors need --bootstrap with at least 2 replicates",
+});
 
 export type SolveCliOptions = z.infer<typeof solveOptionsSchema>;
 

@@ -1,0 +1,195 @@
+/**
+ * From files and pairs to aligned tables: each (file, pair) is read on its own rows (a missing value
+ * in one pair's columns does not drop rows for another), or, in two-file mode (--low PATH:COLUMN
+ * --high PATH:COLUMN), the two books are read from their own files and joined on date.
+ */
+import type { ReturnSample } from "../core/types.js";
+import { decodeText } from "../input/decodeText.js";
+import { describeInputIssue, type InputIssue } from "../input/issues.js";
+import { joinOnDates } from "../input/joinOnDates.js";
+import { parseDecimal } from "../input/numbers.js";
+import type { ReadOptions } from "../input/options.js";
+import { readReturns } from "../input/readReturns.js";
+import type { ReturnTable } from "../input/returnTable.js";
+import type { InputDescription, JoinDescription, RiskFreeSource } from "../report/types.js";
+import type { CliIo } from "./io.js";
+import { describeCliIssue } from "./messages.js";
+import type { InputCliOptions } from "./options.js";
+import type { Pair } from "./pairs.js";
+
+/** Columns of a table that hold the books and the risk-free return (null: constant or none). */
+interface TableKeys {
+  readonly low: string;
+  readonly high: string;
+  readonly riskFree: string | null;
+}
+
+/** One (file, pair) read and aligned. */
+export interface PairTable {
+  readonly source: string;
+  readonly pair: Pair;
+  readonly table: ReturnTable;
+  readonly keys: TableKeys;
+  readonly riskFree: RiskFreeSource;
+  readonly join: JoinDescription | null;
+}
+
+export interface PairError {
+  readonly code: string;
+  readonly message: string;
+}
+
+export type PairLoad = { readonly ok: true; readonly value: PairTable } | { readonly ok: false; readonly source: string; readonly pair: Pair; readonly errors: readonly PairError[] };
+
+interface Side {
+  readonly file: string;
+  readonly column: string;
+}
+
+/** Two-file mode: no file arguments, and --low and --high both written as PATH:COLUMN (split at the last colon). */
+export function joinedSides(files: readonly string[], options: InputCliOptions): { low: Side; high: Side } | null {
+  if (files.length > 0 || options.low === undefined || options.high === undefined) return null;
+  const side = (value: string): Side | null => {
+    const at = value.lastIndexOf(":");
+    return at <= 0 || at === value.length - 1 ? null : { file: value.slice(0, at), column: value.slice(at + 1) };
+  };
+  const low = side(options.low);
+  const high = side(options.high);
+  return low === null || high === null ? null : { low, high };
+}
+
+/** Every (file, pair) of a run, read in order; `files` empty means standard input. */
+export async function* loadPairs(files: readonly string[], pairs: readonly Pair[], options: InputCliOptions, io: CliIo): AsyncGenerator<PairLoad> {
+  const joined = joinedSides(files, options);
+  if (joined !== null) {
+    yield await loadJoined(joined, options, io);
+    return;
+  }
+  for (const file of files.length === 0 ? ["-"] : files) {
+    const source = describe(file);
+    const failAll = (errors: PairError[]): PairLoad[] => pairs.map((pair) => ({ ok: false, source, pair, errors }));
+    const bytes = await io.readInput(file);
+    if (!bytes.ok) {
+      yield* failAll([{ code: bytes.issues.code, message: describeCliIssue(bytes.issues) }]);
+      continue;
+    }
+    const text = decodeText(bytes.value, source);
+    if (!text.ok) {
+      yield* failAll(inputErrors(text.issues));
+      continue;
+    }
+    const riskFree = riskFreeSource(options);
+    for (const pair of pairs) {
+      const table = readReturns(text.value, readOptions(source, [pair.low, pair.high, ...riskFreeColumn(riskFree)], options));
+      if (!table.ok) yield { ok: false, source, pair, errors: inputErrors(table.issues) };
+      else {
+        const keys = { low: pair.low, high: pair.high, riskFree: riskFree.kind === "column" ? riskFree.column : null };
+        yield { ok: true, value: { source, pair, table: table.value, keys, riskFree, join: null } };
+      }
+    }
+  }
+}
+
+/** The aligned series of a loaded pair, as the core takes them. */
+export function sampleOf(loaded: PairTable): ReturnSample & { riskFree: number | Float64Array } {
+  const values = loaded.table.columns;
+  return {
+    low: values.get(loaded.keys.low)!,
+    high: values.get(loaded.keys.high)!,
+    riskFree: loaded.keys.riskFree !== null ? values.get(loaded.keys.riskFree)! : loaded.riskFree.kind === "constant" ? loaded.riskFree.rate : 0,
+  };
+}
+
+/** Where the numbers of a loaded pair came from, for the reports. */
+export function describeInput(loaded: PairTable, options: InputCliOptions): InputDescription {
+  const { table } = loaded;
+  return {
+    source: loaded.source,
+    dateColumn: table.dateColumn,
+    lowColumn: loaded.pair.low,
+    highColumn: loaded.pair.high,
+    riskFree: loaded.riskFree,
+    units: options.units,
+    firstDate: table.dates[0] ?? "",
+    lastDate: table.dates[table.dates.length - 1] ?? "",
+    rowsRead: table.rowsRead,
+    rowsDropped: table.dropped.count,
+    droppedDates: table.dropped.firstDates,
+    frequency: table.frequency,
+    join: loaded.join,
+  };
+}
+
+const describe = (file: string): string => (file === "-" ? "<stdin>" : file);
+
+async function loadJoined(sides: { low: Side; high: Side }, options: InputCliOptions, io: CliIo): Promise<PairLoad> {
+  const source = `${describe(sides.low.file)} + ${describe(sides.high.file)}`;
+  const pair = { low: sides.low.column, high: sides.high.column };
+  const fail = (errors: PairError[]): PairLoad => ({ ok: false, source, pair, errors });
+  const riskFree = riskFreeSource(options);
+  const tables: ReturnTable[] = [];
+  for (const [key, side, extra] of [["low", sides.low, riskFreeColumn(riskFree)], ["high", sides.high, []]] as const) {
+    const bytes = await io.readInput(side.file);
+    if (!bytes.ok) return fail([{ code: bytes.issues.code, message: describeCliIssue(bytes.issues) }]);
+    const text = decodeText(bytes.value, describe(side.file));
+    if (!text.ok) return fail(inputErrors(text.issues));
+    const table = readReturns(text.value, readOptions(describe(side.file), [side.column, ...extra], options));
+    if (!table.ok) return fail(inputErrors(table.issues));
+    // Both files may call their column the same ("Return"): key them by role for the join.
+    const columns = new Map<string, Float64Array>([[key, table.value.columns.get(side.column)!]]);
+    for (const name of extra) columns.set(`rf:${name}`, table.value.columns.get(name)!);
+    tables.push({ ...table.value, columns });
+  }
+  const joined = joinOnDates(tables);
+  if (!joined.ok) return fail(inputErrors(joined.issues));
+  const { table, dateCounts, matched, unmatched } = joined.value;
+  const join: JoinDescription = {
+    sides: [sides.low, sides.high].map((side, i) => ({ source: describe(side.file), column: side.column, dates: dateCounts[i] ?? 0, unmatched: unmatched[i]?.count ?? 0 })),
+    matched,
+  };
+  const keys = { low: "low", high: "high", riskFree: riskFree.kind === "column" ? `rf:${riskFree.column}` : null };
+  return { ok: true, value: { source, pair, table, keys, riskFree, join } };
+}
+
+function riskFreeSource(options: InputCliOptions): RiskFreeSource {
+  if (options.rf === undefined) return { kind: "none" };
+  const rate = parseDecimal(options.rf);
+  if (rate === null) return { kind: "column", column: options.rf };
+  return { kind: "constant", rate: options.units === "percent" ? rate / 100 : rate };
+}
+
+function riskFreeColumn(riskFree: RiskFreeSource): string[] {
+  return riskFree.kind === "column" ? [riskFree.column] : [];
+}
+
+function readOptions(source: string, columns: readonly string[], options: InputCliOptions): ReadOptions {
+  return {
+    source,
+    columns,
+    units: options.units,
+    allowExtreme: options.allowExtreme,
+    sort: options.sort,
+    onMissing: options.onMissing,
+    input: options.input,
+    decimalComma: options.decimalComma,
+    ...definedOnly({
+      dateColumn: options.date,
+      delimiter: options.delimiter,
+      block: options.block,
+      dateFormat: options.dateFormat,
+      periodsPerYear: options.periodsPerYear,
+      missing: options.missing,
+      idColumn: options.idColumn,
+      valueColumn: options.valueColumn,
+    }),
+  };
+}
+
+/** The entries whose value is not undefined (optional properties must be absent, not undefined). */
+function definedOnly<T extends Record<string, unknown>>(entries: T): { [K in keyof T]?: Exclude<T[K], undefined> } {
+  return Object.fromEntries(Object.entries(entries).filter(([, v]) => v !== undefined)) as { [K in keyof T]?: Exclude<T[K], undefined> };
+}
+
+function inputErrors(issues: readonly InputIssue[]): PairError[] {
+  return issues.map((issue) => ({ code: issue.code, message: describeInputIssue(issue) }));
+}
