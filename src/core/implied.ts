@@ -8,7 +8,8 @@
 import { populationMoments, type Structure } from "./forward.js";
 import { marketMoments, structureAt } from "./identify.js";
 import { identifySet } from "./solve.js";
-import type { Candidate, SampleMoments, SeriesMoments, Solution } from "./types.js";
+import { momentsFromSummary } from "./summaryMoments.js";
+import type { Candidate, SampleMoments, Solution } from "./types.js";
 
 /** A population CAPM regression: no sampling error, so no standard errors. */
 export interface PopulationFit {
@@ -30,22 +31,7 @@ export interface ImpliedSolution extends Pick<Solution, "weight" | "bounds" | "g
 export function implied(structure: Structure, steps: number): ImpliedSolution {
   const summary = populationMoments(structure);
   const market = marketMoments(summary);
-  const series = (mean: number, variance: number): SeriesMoments => {
-    const stdev = Math.sqrt(variance);
-    return { mean, variance, stdev, sharpeRatio: stdev > 0 ? mean / stdev : null };
-  };
-  const correlation = (cov: number, a: number, b: number): number => cov / Math.sqrt(a * b);
-  const moments: SampleMoments = {
-    low: series(summary.lowMean, summary.lowVariance),
-    high: series(summary.highMean, summary.highVariance),
-    market: series(market.mean, market.variance),
-    covariance: { lowHigh: summary.covariance, lowMarket: market.lowCovariance, highMarket: market.highCovariance },
-    correlation: {
-      lowHigh: correlation(summary.covariance, summary.lowVariance, summary.highVariance),
-      lowMarket: correlation(market.lowCovariance, summary.lowVariance, market.variance),
-      highMarket: correlation(market.highCovariance, summary.highVariance, market.variance),
-    },
-  };
+  const moments = momentsFromSummary(summary);
   const truth = structureAt(structure.lowBeta, summary, market);
   const fit = (beta: number, variance: number, residualVariance: number, alpha: number): PopulationFit => ({
     alpha,

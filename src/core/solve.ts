@@ -98,13 +98,16 @@ export function identifySet(
   return { bounds, grid, landmarks, diagnostics };
 }
 
-/** The path of the first NaN or infinite number in `value`, or null: the core never reports either. */
-function firstNonFinite(value: unknown, path = ""): string | null {
-  if (typeof value === "number") return Number.isFinite(value) ? null : path;
+/**
+ * The path of the first NaN or infinite number in `value`, or null: the core never reports either.
+ * A plain walk without allocation (it runs once per window when rolling over a million rows).
+ */
+function firstNonFinite(value: unknown): string | null {
+  if (typeof value === "number") return Number.isFinite(value) ? null : "";
   if (value === null || typeof value !== "object") return null;
-  for (const [key, child] of Object.entries(value)) {
-    const found = firstNonFinite(child, path === "" ? key : `${path}.${key}`);
-    if (found !== null) return found;
+  for (const key in value) {
+    const found = firstNonFinite((value as Record<string, unknown>)[key]);
+    if (found !== null) return found === "" ? key : `${key}.${found}`;
   }
   return null;
 }
