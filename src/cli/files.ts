@@ -4,9 +4,11 @@
  * damages the previous one.
  */
 import { randomBytes } from "node:crypto";
+import { closeSync, openSync, renameSync, unlinkSync, writeSync } from "node:fs";
 import { readFile, rename, unlink, writeFile } from "node:fs/promises";
 import { basename, dirname, join } from "node:path";
 import { failure, success, type Result } from "../core/result.js";
+import type { OutputSink } from "./io.js";
 import { fileErrorReason, type CliIssue } from "./messages.js";
 
 /** Reads a whole file, or standard input for "-". */
@@ -25,9 +27,65 @@ async function readStream(stream: NodeJS.ReadableStream): Promise<Uint8Array> {
   return Buffer.concat(chunks);
 }
 
+function temporaryName(path: string): string {
+  return join(dirname(path), `.${basename(path)}.betabound-${process.pid}-${randomBytes(4).toString("hex")}.tmp`);
+}
+
+/** A sink for long outputs: chunks go to stdout, or to a temporary file renamed over `path` on close. */
+export function openSink(path: string | undefined): Result<OutputSink, CliIssue> {
+  if (path === undefined) {
+    return success({ write: (text) => void process.stdout.write(text), close: () => success(undefined), discard: () => undefined });
+  }
+  const temporary = temporaryName(path);
+  let fd: number;
+  try {
+    fd = openSync(temporary, "wx");
+  } catch (error) {
+    return failure({ code: "write-failed", path, reason: fileErrorReason(error) });
+  }
+  let failed: unknown = null;
+  const remove = (): void => {
+    try {
+      closeSync(fd);
+    } catch {
+      // already closed
+    }
+    try {
+      unlinkSync(temporary);
+    } catch {
+      // already gone
+    }
+  };
+  return success({
+    write(text) {
+      if (failed !== null) return;
+      try {
+        writeSync(fd, text);
+      } catch (error) {
+        failed = error;
+      }
+    },
+    close() {
+      if (failed !== null) {
+        remove();
+        return failure({ code: "write-failed", path, reason: fileErrorReason(failed) });
+      }
+      try {
+        closeSync(fd);
+        renameSync(temporary, path);
+        return success(undefined);
+      } catch (error) {
+        remove();
+        return failure({ code: "write-failed", path, reason: fileErrorReason(error) });
+      }
+    },
+    discard: remove,
+  });
+}
+
 /** Writes `text` to `path` atomically (temporary file + rename). */
 export async function writeFileAtomic(path: string, text: string): Promise<Result<void, CliIssue>> {
-  const temporary = join(dirname(path), `.${basename(path)}.betabound-${process.pid}-${randomBytes(4).toString("hex")}.tmp`);
+  const temporary = temporaryName(path);
   try {
     await writeFile(temporary, text, { flag: "wx" });
     await rename(temporary, path);

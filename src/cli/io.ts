@@ -13,4 +13,15 @@ export interface CliIo {
   /** Milliseconds on a monotonic clock (for the progress line only; results never depend on it). */
   now(): number;
   readonly env: Readonly<Record<string, string | undefined>>;
+  /**
+   * A place to write a long output piece by piece: standard output (path undefined) or a temporary
+   * file in the target's folder that `close` renames over the target (`discard` removes it).
+   */
+  openSink(path: string | undefined): Result<OutputSink, CliIssue>;
+}
+
+export interface OutputSink {
+  write(text: string): void;
+  close(): Result<void, CliIssue>;
+  discard(): void;
 }

@@ -3,7 +3,7 @@
  * is a bug: it is reported in one line with exit code 70 (set BETABOUND_DEBUG=1 for the stack).
  */
 import { exitCodes } from "./exitCodes.js";
-import { readInputBytes, writeFileAtomic } from "./files.js";
+import { openSink, readInputBytes, writeFileAtomic } from "./files.js";
 import { run } from "./program.js";
 
 const io = {
@@ -11,6 +11,7 @@ const io = {
   writeErr: (text: string) => void process.stderr.write(text),
   readInput: readInputBytes,
   writeOutput: writeFileAtomic,
+  openSink,
   stdoutIsTerminal: process.stdout.isTTY === true,
   stdinIsTerminal: process.stdin.isTTY === true,
   stderrIsTerminal: process.stderr.isTTY === true,

@@ -192,3 +192,30 @@ export const impliedOptionsSchema = z
   .refine((o) => o.lowBeta < 1 / o.weight, { path: ["lowBeta"], message: "must be below 1/w so that the high book's beta is positive" });
 
 export type ImpliedCliOptions = z.infer<typeof impliedOptionsSchema>;
+
+export const rollFormats = ["text", "csv", "jsonl"] as const;
+
+/** The options of `roll`: the input options, the windows, and the per-window outputs. */
+export const rollOptionsSchema = refineInputOptions(
+  z
+    .object({
+      ...inputOptionsShape,
+      window: z.number().int().min(3).optional(),
+      step: z.number().int().positive(),
+      expanding: z.boolean(),
+      minPeriods: z.number().int().min(3).optional(),
+      format: z.enum(rollFormats),
+      uncertainty: z.boolean(),
+      confidence: z.number().gt(0).lt(1),
+      longRun: z.enum(longRunMethods),
+      chart: z.string().min(1).optional(),
+    })
+    .strict(),
+)
+  .refine((o) => (o.window === undefined) !== !o.expanding, {
+    path: ["window"],
+    message: "give either --window N (a rolling window) or --expanding (with --min-periods N)",
+  })
+  .refine((o) => !o.expanding || o.minPeriods !== undefined, { path: ["minPeriods"], message: "--expanding needs --min-periods N (at least 3)" });
+
+export type RollCliOptions = z.infer<typeof rollOptionsSchema>;

@@ -6,6 +6,7 @@ import { Command, CommanderError } from "commander";
 import { exitCodes, type ExitCode } from "./exitCodes.js";
 import { impliedCommand } from "./impliedCommand.js";
 import type { CliIo } from "./io.js";
+import { rollCommand } from "./rollCommand.js";
 import { schemaCommand } from "./schemaCommand.js";
 import { simulateCommand } from "./simulateCommand.js";
 import { solveCommand } from "./solveCommand.js";
@@ -19,6 +20,7 @@ function buildProgram(io: CliIo, setExit: (code: ExitCode) => void): Command {
     .configureOutput({ writeOut: io.writeOut, writeErr: io.writeErr })
     .exitOverride();
   program.addCommand(solveCommand(io, setExit));
+  program.addCommand(rollCommand(io, setExit));
   program.addCommand(impliedCommand(io, setExit));
   program.addCommand(simulateCommand(io, setExit));
   program.addCommand(schemaCommand(io, setExit));

@@ -6,7 +6,7 @@ import type { CliIo } from "./io.js";
 
 export function schemaCommand(io: CliIo, setExit: (code: ExitCode) => void): Command {
   return new Command("schema")
-    .description("Print the JSON Schema of an output: solve (--format json), solve-record (one jsonl line), implied.")
+    .description("Print the JSON Schema of an output: solve (--format json), solve-record (one jsonl line), implied, roll-record.")
     .addArgument(new Argument("<name>", "which output").choices(outputNames))
     .addHelpText("after", "\nExamples:\n  $ betabound schema solve > solve.schema.json\n  $ betabound schema solve-record\n")
     .action((name: OutputName) => {

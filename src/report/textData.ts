@@ -12,7 +12,7 @@ import type { InputDescription, RiskFreeSource } from "./types.js";
 /** How many dropped dates the Input section lists before "and N more". */
 export const droppedDatesShown = 5;
 
-function riskFreeText(riskFree: RiskFreeSource): string {
+export function riskFreeText(riskFree: RiskFreeSource): string {
   switch (riskFree.kind) {
     case "none":
       return "none given: raw returns are analysed";

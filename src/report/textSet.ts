@@ -20,7 +20,7 @@ export const landmarkDescriptions: Record<LandmarkName, string> = {
 /** A discrepancy above this is reported as a failed check rather than as rounding. */
 export const reproductionTolerance = 1e-9;
 
-const candidateHeader = [
+export const candidateHeader = [
   "low\nbeta",
   "high\nbeta",
   "factor\nvariance",
@@ -31,7 +31,7 @@ const candidateHeader = [
   "expected\nhigh alpha",
 ];
 
-function candidateCells(c: Candidate): string[] {
+export function candidateCells(c: Candidate): string[] {
   return [
     c.lowBeta,
     c.highBeta,

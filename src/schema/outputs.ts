@@ -3,12 +3,14 @@
 import * as z from "zod";
 import { impliedOutputSchema } from "./impliedOutput.js";
 import { outputRegistry } from "./registry.js";
+import { rollRecordSchema } from "./rollOutput.js";
 import { solveOutputSchema, solveRecordSchema } from "./solveOutput.js";
 
 export const outputSchemas = {
   solve: solveOutputSchema,
   "solve-record": solveRecordSchema,
   implied: impliedOutputSchema,
+  "roll-record": rollRecordSchema,
 } as const;
 
 export type OutputName = keyof typeof outputSchemas;

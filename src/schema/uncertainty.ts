@@ -23,13 +23,13 @@ export const hacSettingsSchema = doc(
   "HacSettings",
 );
 
-const pointwiseSchema = doc(
+export const pointwiseSchema = doc(
   z.strictObject({ estimate: z.number(), stdError: z.number().nonnegative(), lower: z.number(), upper: z.number() }),
   "a bound of the identified set with its standard error and pointwise confidence limits",
   "PointwiseBound",
 );
 
-const betaIntervalSchema = doc(
+export const betaIntervalSchema = doc(
   z.strictObject({
     interval: z.strictObject({
       lower: z.number(),

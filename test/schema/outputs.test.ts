@@ -28,6 +28,6 @@ describe("output schemas", () => {
     expect(JSON.parse(ok.stdout())).toEqual(outputJsonSchema("solve-record"));
     const bad = fakeIo();
     expect(await run(["schema", "solv"], bad.io)).toBe(1);
-    expect(bad.stderr()).toContain("Allowed choices are solve, solve-record, implied");
+    expect(bad.stderr()).toContain("Allowed choices are solve, solve-record, implied, roll-record");
   });
 });

@@ -1,12 +1,13 @@
 /**
  * Shared pieces of the charts: rendering a Vega spec to an SVG string (Vega is loaded on first use,
  * never at start-up), the palette, text clean-up for strings from the input file, a text-width
- * estimate for placing labels, and the caption lines every chart carries.
+ * estimate for placing labels, the caption lines every chart carries, and a builder for the simple
+ * marks the charts are made of.
  *
  * Everything here is pure apart from the lazy module load: the same spec gives the same SVG.
  */
 
-import type { Spec } from "vega";
+import type { Mark, Spec } from "vega";
 import { printable } from "../layout.js";
 
 /**
@@ -137,6 +138,26 @@ export function chartConfig(): NonNullable<Spec["config"]> {
     },
     text: { font: fontFamily, fill: palette.text },
   };
+}
+
+/** A mark's `enter` encoding, by mark type. */
+export type EnterEncoding<T extends Mark["type"]> = NonNullable<NonNullable<Extract<Mark, { type: T }>["encode"]>["enter"]>;
+
+/** Where a mark takes its items from, and whether screen readers see it (`aria: false` hides it). */
+export interface MarkOptions {
+  readonly aria?: false;
+  readonly from?: { readonly data: string };
+}
+
+/** Marks that hide from screen readers: decoration, or text that another mark already describes. */
+export const decorative = { aria: false } as const;
+
+/**
+ * A mark with only an `enter` encoding: `{ type, name, ...options, encode: { enter } }`, its keys in
+ * that order (the options' in the order given).
+ */
+export function enterMark<T extends Mark["type"]>(type: T, name: string, enter: EnterEncoding<T>, options: MarkOptions = {}): Mark {
+  return { type, name, ...options, encode: { enter } } as Mark;
 }
 
 /** The title text of a spec (for the SVG's `<title>`). */

@@ -8,15 +8,16 @@
  * their XML namespace declarations (HTML does not need them).
  */
 
-import type { Candidate, LineFit, Solution } from "../../core/types.js";
+import type { LineFit, Solution } from "../../core/types.js";
 import { landmarkNames } from "../../core/types.js";
 import { largestCapmDiscrepancy } from "../check.js";
 import { excessReturnBasis, modelAssumptions } from "../conventions.js";
-import { formatCount, formatNumber, notAvailable, statisticDigits, tableDigits } from "../format.js";
+import { formatCount, formatNumber, notAvailable, statisticDigits } from "../format.js";
 import { printable } from "../layout.js";
 import { titleLine } from "../text.js";
 import { cautionLine } from "../textNotes.js";
-import { landmarkDescriptions, reproductionTolerance } from "../textSet.js";
+import { riskFreeText } from "../textData.js";
+import { candidateCells, candidateHeader as textCandidateHeader, landmarkDescriptions, reproductionTolerance } from "../textSet.js";
 import type { InputDescription, RiskFreeSource, SolveReport } from "../types.js";
 
 export interface HtmlReportCharts {
@@ -190,17 +191,6 @@ function chartSection(charts: HtmlReportCharts): string {
   return section("chart", "The identified set at a glance", ...figures);
 }
 
-function riskFreeText(riskFree: RiskFreeSource): string {
-  switch (riskFree.kind) {
-    case "none":
-      return "none given: raw returns are analysed";
-    case "constant":
-      return `constant, ${riskFree.rate} per period (decimal)`;
-    case "column":
-      return `column "${riskFree.column}"`;
-  }
-}
-
 function inputSection(input: InputDescription, observations: number): string {
   const frequency =
     input.frequency === null ? "could not be told from the dates" : `${input.frequency.name} (${input.frequency.periodsPerYear} periods per year)`;
@@ -218,6 +208,7 @@ function inputSection(input: InputDescription, observations: number): string {
       ["Low book", `column "${input.lowColumn}"`],
       ["High book", `column "${input.highColumn}"`],
       ["Dates", `column "${input.dateColumn}", ${input.firstDate} to ${input.lastDate}`],
+      // The text report's wording; its printable() of a column name is what escapeHtml does first anyway.
       ["Risk-free", riskFreeText(input.riskFree)],
       ["Units in file", units],
       ["Observations", `${formatCount(observations)} used of ${formatCount(input.rowsRead)} rows read`],
@@ -296,29 +287,8 @@ function boundsSection(s: Solution): string {
   );
 }
 
-const candidateHeader = [
-  "low beta",
-  "high beta",
-  "factor variance",
-  "low noise variance",
-  "high noise variance",
-  "noise share",
-  "expected low alpha",
-  "expected high alpha",
-];
-
-function candidateCells(c: Candidate): string[] {
-  return [
-    c.lowBeta,
-    c.highBeta,
-    c.factorVariance,
-    c.lowNoiseVariance,
-    c.highNoiseVariance,
-    c.noiseShare,
-    c.expectedLowAlpha,
-    c.expectedHighAlpha,
-  ].map((x) => formatNumber(x, tableDigits));
-}
+/** The text report's candidate columns, each heading on one line. */
+const candidateHeader = textCandidateHeader.map((h) => h.replace("\n", " "));
 
 function landmarksSection(s: Solution): string {
   const landmarks = s.landmarks!;

@@ -1,0 +1,65 @@
+/**
+ * Delta-method standard errors of the bounds and the Imbens-Manski interval for one window of rows
+ * (used by `roll --uncertainty`). The same computation as assessUncertainty's bounds part
+ * (boundsDelta.ts, imbensManski.ts), on the window's excess returns only; O(window x lags) per window.
+ */
+
+import type { MomentSummary } from "../identify.js";
+import { boundsDeltaFromData } from "./boundsDelta.js";
+import { imbensManskiInterval } from "./imbensManski.js";
+import { normalQuantile } from "./normal.js";
+import type { HacOptions, LongRunMethod } from "./options.js";
+import type { BetaInterval, PointwiseBound } from "./uncertaintyTypes.js";
+
+export interface WindowUncertainty {
+  readonly confidence: number;
+  readonly bounds: {
+    readonly lowBeta: { readonly min: PointwiseBound; readonly max: PointwiseBound };
+    readonly highBeta: { readonly min: PointwiseBound; readonly max: PointwiseBound };
+    readonly correlation: number;
+  };
+  readonly lowBeta: { readonly interval: BetaInterval };
+}
+
+/**
+ * @param lowExcess,highExcess the whole excess-return series; the window is rows [start, end].
+ * Returns null when the window has no identified set (C <= 0) or fewer than 10 rows.
+ */
+export function windowUncertainty(
+  lowExcess: Float64Array,
+  highExcess: Float64Array,
+  start: number,
+  end: number,
+  summary: MomentSummary,
+  options: { readonly confidence: number; readonly longRun: LongRunMethod; readonly hac?: HacOptions },
+): WindowUncertainty | null {
+  if (!(summary.covariance > 0) || end - start + 1 < 10) return null;
+  const x = lowExcess.subarray(start, end + 1);
+  const y = highExcess.subarray(start, end + 1);
+  const delta = boundsDeltaFromData(x, y, summary, options.longRun, options.hac ?? {});
+  const z = normalQuantile(1 - (1 - options.confidence) / 2);
+  const pointwise = (b: { estimate: number; stdError: number }): PointwiseBound => ({
+    estimate: b.estimate,
+    stdError: b.stdError,
+    lower: b.estimate - z * b.stdError,
+    upper: b.estimate + z * b.stdError,
+  });
+  const interval = imbensManskiInterval(
+    {
+      lower: delta.lowBeta.min.estimate,
+      upper: delta.lowBeta.max.estimate,
+      lowerStdError: delta.lowBeta.min.stdError,
+      upperStdError: delta.lowBeta.max.stdError,
+    },
+    options.confidence,
+  );
+  return {
+    confidence: options.confidence,
+    bounds: {
+      lowBeta: { min: pointwise(delta.lowBeta.min), max: pointwise(delta.lowBeta.max) },
+      highBeta: { min: pointwise(delta.highBeta.min), max: pointwise(delta.highBeta.max) },
+      correlation: delta.correlation,
+    },
+    lowBeta: { interval: { lower: interval.lower, upper: interval.upper, method: "imbens-manski", criticalValue: interval.criticalValue } },
+  };
+}

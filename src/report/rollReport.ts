@@ -1,0 +1,130 @@
+/**
+ * Outputs of `roll`: a CSV row per window (from typed-array columns, fast for a million windows),
+ * JSON Lines records per window with `solve`'s field names plus `start` and `end` dates, and a text
+ * table for a person. Each writes through `write` piece by piece, so no output is held whole.
+ */
+
+import type { WindowUncertainty } from "../core/inference/windowUncertainty.js";
+import { windowColumnNames, type WindowColumns, type WindowSolution, type WindowSpec } from "../core/rolling.js";
+import { momentsFromSummary } from "../core/summaryMoments.js";
+import { csvField } from "./csv.js";
+import { formatNumber } from "./format.js";
+import { assertJsonSafe, schemaVersion } from "./json.js";
+import { fields, indent, table, type Style } from "./layout.js";
+import type { InputDescription, SolveReport } from "./types.js";
+
+export interface RollMeta {
+  readonly tool: SolveReport["tool"];
+  readonly input: InputDescription;
+  readonly spec: WindowSpec;
+  readonly weight: number;
+  readonly dates: readonly string[];
+}
+
+export const uncertaintyColumnNames = [
+  "lowBetaMinStdError", "lowBetaMaxStdError", "highBetaMinStdError", "highBetaMaxStdError", "lowBetaIntervalLower", "lowBetaIntervalUpper",
+] as const;
+
+export function rollCsvHeader(withUncertainty: boolean): string {
+  const names = ["source", "lowColumn", "highColumn", "start", "end", "observations", ...windowColumnNames, ...(withUncertainty ? uncertaintyColumnNames : [])];
+  return `${names.join(",")}\n`;
+}
+
+const cell = (x: number): string => (Number.isNaN(x) ? "" : String(x));
+
+/** CSV rows of every window; an empty field where a quantity is undefined (no set, no CAPM fit). */
+export function writeRollCsv(
+  meta: RollMeta,
+  columns: WindowColumns,
+  uncertainty: ((k: number) => WindowUncertainty | null) | null,
+  write: (text: string) => void,
+): void {
+  const prefix = [meta.input.source, meta.input.lowColumn, meta.input.highColumn].map(csvField).join(",");
+  const series = windowColumnNames.map((name) => columns.columns[name]);
+  let chunk = "";
+  for (let k = 0; k < columns.count; k++) {
+    let line = `${prefix},${meta.dates[columns.start[k]!]},${meta.dates[columns.end[k]!]},${columns.observations[k]}`;
+    for (const values of series) line += `,${cell(values[k]!)}`;
+    if (uncertainty !== null) {
+      const u = uncertainty(k);
+      const values =
+        u === null
+          ? [Number.NaN, Number.NaN, Number.NaN, Number.NaN, Number.NaN, Number.NaN]
+          : [u.bounds.lowBeta.min.stdError, u.bounds.lowBeta.max.stdError, u.bounds.highBeta.min.stdError, u.bounds.highBeta.max.stdError, u.lowBeta.interval.lower, u.lowBeta.interval.upper];
+      for (const x of values) line += `,${cell(x)}`;
+    }
+    chunk += `${line}\n`;
+    if (chunk.length > 1 << 20) {
+      write(chunk);
+      chunk = "";
+    }
+  }
+  if (chunk !== "") write(chunk);
+}
+
+/** One JSON Lines record for a window: solve's field names, plus `window`, `start` and `end`. */
+export function rollRecord(meta: RollMeta, window: WindowSolution, uncertainty: WindowUncertainty | null) {
+  const { input } = meta;
+  const record = {
+    schemaVersion,
+    tool: { name: meta.tool.name, version: meta.tool.version },
+    command: "roll" as const,
+    status: window.bounds === null ? ("rejected" as const) : ("ok" as const),
+    input: {
+      source: input.source,
+      lowColumn: input.lowColumn,
+      highColumn: input.highColumn,
+      dateColumn: input.dateColumn,
+      riskFree: input.riskFree,
+      units: input.units,
+      frequency: input.frequency === null ? null : { name: input.frequency.name, periodsPerYear: input.frequency.periodsPerYear },
+    },
+    window: meta.spec.kind === "window" ? { kind: "window" as const, size: meta.spec.size, step: meta.spec.step } : { kind: "expanding" as const, minPeriods: meta.spec.minPeriods, step: meta.spec.step },
+    start: meta.dates[window.start] ?? "",
+    end: meta.dates[window.end] ?? "",
+    observations: window.observations,
+    weight: meta.weight,
+    moments: momentsFromSummary(window.summary),
+    capm: window.capm,
+    bounds: window.bounds,
+    landmarks: window.landmarks,
+    diagnostics: window.diagnostics,
+    uncertainty,
+  };
+  assertJsonSafe(record);
+  return record;
+}
+
+/** The text table: one line per window with the CAPM beta and the set of the low structural beta. */
+export function rollTextLines(meta: RollMeta, windows: readonly WindowSolution[], uncertainty: readonly (WindowUncertainty | null)[] | null, style: Style): string[] {
+  const spec = meta.spec.kind === "window" ? `${meta.spec.size} periods, every ${meta.spec.step}` : `expanding from ${meta.spec.minPeriods} periods, every ${meta.spec.step}`;
+  const confidence = uncertainty?.find((u) => u !== null)?.confidence ?? 0.95;
+  const level = `${Number((confidence * 100).toPrecision(4))}%`;
+  const header = ["window end", "n", "CAPM\nlow beta", "low beta\nmin", "low beta\nmax", "width", "return-\nimplied", ...(uncertainty === null ? [] : [`${level} interval\nfor low beta`])];
+  const rows = windows.map((w, k) => {
+    const u = uncertainty?.[k] ?? null;
+    return [
+      meta.dates[w.end] ?? "",
+      String(w.observations),
+      formatNumber(w.capm?.low.beta ?? null, 4),
+      formatNumber(w.bounds?.lowBeta.min ?? null, 4),
+      formatNumber(w.bounds?.lowBeta.max ?? null, 4),
+      w.bounds === null ? "no set" : formatNumber(w.bounds.lowBeta.max - w.bounds.lowBeta.min, 3),
+      w.landmarks?.returnImplied === null || w.landmarks === null ? "n/a" : `${formatNumber(w.landmarks.returnImplied.lowBeta, 4)}${w.landmarks.returnImplied.insideSet ? "" : " (out)"}`,
+      ...(uncertainty === null ? [] : [u === null ? "n/a" : `${formatNumber(u.lowBeta.interval.lower, 4)} to ${formatNumber(u.lowBeta.interval.upper, 4)}`]),
+    ];
+  });
+  return [
+    style.heading(`${meta.tool.name} ${meta.tool.version}: the identified set through time`),
+    "",
+    ...fields([
+      ["File", meta.input.source],
+      ["Books", `low "${meta.input.lowColumn}", high "${meta.input.highColumn}" (w = ${meta.weight})`],
+      ["Windows", `${windows.length}: ${spec}`],
+    ]),
+    "",
+    ...table({ header, rows }),
+    "",
+    `${indent}Statistical estimates under the one-factor model's assumptions, not investment advice.`,
+  ];
+}

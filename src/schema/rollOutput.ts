@@ -1,0 +1,62 @@
+/** Zod schema of one `roll --format jsonl` record: solve's field names per window, plus the window. */
+
+import * as z from "zod";
+import { boundsSchema, diagnosticSchema, landmarksSchema, momentsSchema } from "./parts.js";
+import { doc } from "./registry.js";
+import { riskFreeSchema, solveFailureSchema, toolSchema } from "./solveOutput.js";
+import { betaIntervalSchema, pointwiseSchema } from "./uncertainty.js";
+
+const capmLineSchema = z.strictObject({
+  alpha: z.number(),
+  beta: z.number(),
+  alphaStdErr: z.number().nonnegative(),
+  betaStdErr: z.number().nonnegative(),
+  rSquared: z.number(),
+  residualVariance: z.number().nonnegative(),
+});
+
+export const rollOutputSchema = doc(
+  z.strictObject({
+    schemaVersion: z.literal(1),
+    tool: toolSchema,
+    command: z.literal("roll"),
+    status: z.enum(["ok", "rejected"]),
+    input: z.strictObject({
+      source: z.string(),
+      lowColumn: z.string(),
+      highColumn: z.string(),
+      dateColumn: z.string(),
+      riskFree: riskFreeSchema,
+      units: z.enum(["decimal", "percent"]),
+      frequency: z.strictObject({ name: z.string(), periodsPerYear: z.number().positive() }).nullable(),
+    }),
+    window: z.discriminatedUnion("kind", [
+      z.strictObject({ kind: z.literal("window"), size: z.int().min(3), step: z.int().positive() }),
+      z.strictObject({ kind: z.literal("expanding"), minPeriods: z.int().min(3), step: z.int().positive() }),
+    ]),
+    start: doc(z.string(), "first date of the window"),
+    end: doc(z.string(), "last date of the window"),
+    observations: z.int().positive(),
+    weight: z.number().gt(0).lt(1),
+    moments: momentsSchema,
+    capm: z.strictObject({ low: capmLineSchema, high: capmLineSchema }).nullable(),
+    bounds: boundsSchema.nullable(),
+    landmarks: landmarksSchema.nullable(),
+    diagnostics: z.array(diagnosticSchema),
+    uncertainty: z
+      .strictObject({
+        confidence: z.number().gt(0).lt(1),
+        bounds: z.strictObject({
+          lowBeta: z.strictObject({ min: pointwiseSchema, max: pointwiseSchema }),
+          highBeta: z.strictObject({ min: pointwiseSchema, max: pointwiseSchema }),
+          correlation: z.number(),
+        }),
+        lowBeta: betaIntervalSchema,
+      })
+      .nullable(),
+  }),
+  "betabound roll record (one window)",
+);
+
+/** One line of `roll --format jsonl`: a window record or a failure record for a pair. */
+export const rollRecordSchema = z.union([rollOutputSchema, solveFailureSchema]);
