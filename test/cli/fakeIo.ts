@@ -25,6 +25,19 @@ export function fakeIo(
     stdinIsTerminal: settings.stdinIsTerminal ?? false,
     stderrIsTerminal: settings.stderrIsTerminal ?? false,
     now: settings.now ?? (() => 0),
+    openSink: (path) => {
+      if (path?.startsWith("/unwritable/")) return failure({ code: "write-failed", path, reason: "permission denied" });
+      const chunks: string[] = [];
+      return success({
+        write: (text) => void chunks.push(text),
+        close: () => {
+          if (path === undefined) out.push(chunks.join(""));
+          else written.set(path, chunks.join(""));
+          return success(undefined);
+        },
+        discard: () => undefined,
+      });
+    },
     env: settings.env ?? {},
   };
   return { io, stdout: () => out.join(""), stderr: () => err.join(""), written };

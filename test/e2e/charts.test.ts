@@ -50,4 +50,13 @@ describe("charts from the command line", () => {
     expect(result.status).toBe(1);
     expect(result.stderr).toContain("--chart");
   });
+
+  it("draws the roll band chart as well-formed SVG", () => {
+    const svg = join(scratch, "band.svg");
+    const result = spawnSync(process.execPath, [cli, "roll", monthly, ...books, "--window", "60", "--step", "6", "--uncertainty", "--format", "csv", "--chart", svg], { encoding: "utf8" });
+    expect(result.status).toBe(0);
+    const chart = readFileSync(svg, "utf8");
+    expect(XMLValidator.validate(chart)).toBe(true);
+    expect(chart).toContain("60-period rolling windows");
+  });
 });
