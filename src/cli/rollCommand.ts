@@ -105,7 +105,7 @@ async function rollPair(loaded: PairTable, spec: WindowSpec, options: RollCliOpt
   }
   if (options.chart !== undefined && points !== null) {
     const { renderRollChart } = await import("../report/charts/rollChart.js");
-    const windowWords = spec.kind === "window" ? `${spec.size}-period rolling windows` : `expanding windows from ${spec.minPeriods} periods`;
+    const windowWords = spec.kind === "window" ? `rolling windows of ${spec.size} periods` : `expanding windows from ${spec.minPeriods} periods`;
     const svg = await renderRollChart(
       points.map((w) => {
         const u = uncertaintyAt(w);

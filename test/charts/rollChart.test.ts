@@ -78,7 +78,7 @@ describe("renderRollChart", () => {
     const ws = windows();
     const caption = texts(groupWithClass(parseSvg(await renderRollChart(ws, meta)), "role-title-subtitle")).join(" ");
     expect(caption).toContain(meta.source);
-    expect(caption).toContain(`rolling windows of ${meta.window}`);
+    expect(caption).toContain(`Data: ${meta.source}; ${meta.window};`);
     expect(caption).toContain(`${ws.length} windows ending ${ws[0]!.end} to ${ws[ws.length - 1]!.end}`);
     expect(caption).toMatch(/Assumptions: one common factor/);
     expect(caption).toContain(cautionCaption);

@@ -57,6 +57,6 @@ describe("charts from the command line", () => {
     expect(result.status).toBe(0);
     const chart = readFileSync(svg, "utf8");
     expect(XMLValidator.validate(chart)).toBe(true);
-    expect(chart).toContain("60-period rolling windows");
+    expect(chart).toContain("rolling windows of 60 periods");
   });
 });

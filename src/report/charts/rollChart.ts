@@ -145,7 +145,7 @@ export function rollChartSpec(windows: readonly RollWindowPoint[], meta: RollCha
     },
     { swatch: { kind: "line", stroke: palette.vermillion, dash: [], width: 2.2 }, label: "CAPM beta of the low book on the market proxy" },
     ...(hasInterval
-      ? [{ swatch: { kind: "area", fill: palette.skyBlueLight, stroke: palette.skyBlueEdge, opacity: 1 }, label: "sampling interval (as supplied)" } as const]
+      ? [{ swatch: { kind: "area", fill: palette.skyBlueLight, stroke: palette.skyBlueEdge, opacity: 1 }, label: "confidence interval for b_low in the window" } as const]
       : []),
     ...(noSet.length > 0
       ? [{ swatch: { kind: "symbol", shape: "cross", fill: palette.grey, stroke: palette.grey }, label: "no identified set in this window (gap)" } as const]
@@ -153,7 +153,7 @@ export function rollChartSpec(windows: readonly RollWindowPoint[], meta: RollCha
   ];
   const legendWidth = rollPlotWidth + marginRight - 8;
   const dataLine =
-    `Data: ${source}; rolling windows of ${windowText}; ${rows.length} windows ending ${first.end} to ${last.end}` +
+    `Data: ${source}; ${windowText}; ${rows.length} windows ending ${first.end} to ${last.end}` +
     (noSet.length > 0 ? `; ${noSet.length} without an identified set.` : ".");
   const reading =
     "For each window the shaded band is the range of low structural betas that fit that window's sample moments; " +
@@ -220,7 +220,7 @@ export function rollChartSpec(windows: readonly RollWindowPoint[], meta: RollCha
   ];
   return {
     description:
-      `Chart of the identified set of the low structural beta in ${rows.length} rolling windows of ${windowText}, ` +
+      `Chart of the identified set of the low structural beta in ${rows.length} windows (${windowText}), ` +
       `ending ${first.end} to ${last.end}, with the CAPM beta of the low book.`,
     width: rollPlotWidth,
     height: rollPlotHeight,
