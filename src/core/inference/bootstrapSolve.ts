@@ -83,20 +83,18 @@ export function bootstrapRange(data: BootstrapData, plan: Omit<BootstrapPlan, "r
   }
   lowMean /= n;
   highMean /= n;
-  // Centred and doubled, so that a block starting anywhere in [0, n) with length <= n is contiguous.
-  const x = new Float64Array(2 * n);
-  const y = new Float64Array(2 * n);
-  for (let t = 0; t < n; t++) {
-    x[t] = x[t + n] = low[t]! - lowMean;
-    y[t] = y[t + n] = high[t]! - highMean;
-  }
+  // Prefix sums of the centred series, doubled so that a block starting anywhere in [0, n) with length
+  // <= n is contiguous: the sums over a block are two lookups whatever its length. Each prefix is
+  // accumulated with Neumaier compensation and rounded once, so a block sum is exact to about
+  // 2 n eps relative to the whole-sample sum of squares.
+  const prefix = prefixSums(low, high, lowMean, highMean);
   const count = to - from;
   const draws = new Float64Array(quantityCount * count);
   const starts = new Int32Array(n);
   const lengths = new Int32Array(n);
   const sums = new Float64Array(5);
   for (let r = from; r < to; r++) {
-    resampleSums(x, y, n, blockLength, replicateRandom(plan.seed, r), starts, lengths, sums);
+    resampleSums(prefix, n, blockLength, replicateRandom(plan.seed, r), starts, lengths, sums);
     const sx = sums[0]!;
     const sy = sums[1]!;
     const sxx = sums[2]!;
@@ -120,10 +118,45 @@ export function bootstrapRange(data: BootstrapData, plan: Omit<BootstrapPlan, "r
   return { from, to, blockLength, draws };
 }
 
-/** Sums of x, y, x^2, y^2 and xy over one resample of the doubled, centred series, into `sums`. */
+/** Running sums (length 2n + 1) of x, y, x^2, y^2 and xy over the centred series taken twice. */
+interface PrefixSums {
+  readonly x: Float64Array;
+  readonly y: Float64Array;
+  readonly xx: Float64Array;
+  readonly yy: Float64Array;
+  readonly xy: Float64Array;
+}
+
+function prefixSums(low: Float64Array, high: Float64Array, lowMean: number, highMean: number): PrefixSums {
+  const n = low.length;
+  const arrays = { x: new Float64Array(2 * n + 1), y: new Float64Array(2 * n + 1), xx: new Float64Array(2 * n + 1), yy: new Float64Array(2 * n + 1), xy: new Float64Array(2 * n + 1) };
+  const targets = [arrays.x, arrays.y, arrays.xx, arrays.yy, arrays.xy];
+  const sum = new Float64Array(5);
+  const carry = new Float64Array(5);
+  const terms = new Float64Array(5);
+  for (let t = 0; t < 2 * n; t++) {
+    const dx = low[t % n]! - lowMean;
+    const dy = high[t % n]! - highMean;
+    terms[0] = dx;
+    terms[1] = dy;
+    terms[2] = dx * dx;
+    terms[3] = dy * dy;
+    terms[4] = dx * dy;
+    for (let q = 0; q < 5; q++) {
+      const a = sum[q]!;
+      const b = terms[q]!;
+      const next = a + b;
+      carry[q] = carry[q]! + (Math.abs(a) >= Math.abs(b) ? a - next + b : b - next + a);
+      sum[q] = next;
+      targets[q]![t + 1] = next + carry[q]!;
+    }
+  }
+  return arrays;
+}
+
+/** Sums of x, y, x^2, y^2 and xy over one resample, from the prefix sums, into `sums`. */
 function resampleSums(
-  x: Float64Array,
-  y: Float64Array,
+  prefix: PrefixSums,
   n: number,
   blockLength: number,
   random: ReturnType<typeof replicateRandom>,
@@ -132,22 +165,20 @@ function resampleSums(
   sums: Float64Array,
 ): void {
   const blocks = drawBlocks(n, blockLength, random, starts, lengths);
+  const { x, y, xx, yy, xy } = prefix;
   let sx = 0;
   let sy = 0;
   let sxx = 0;
   let syy = 0;
   let sxy = 0;
   for (let b = 0; b < blocks; b++) {
-    const end = starts[b]! + lengths[b]!;
-    for (let i = starts[b]!; i < end; i++) {
-      const xi = x[i]!;
-      const yi = y[i]!;
-      sx += xi;
-      sy += yi;
-      sxx += xi * xi;
-      syy += yi * yi;
-      sxy += xi * yi;
-    }
+    const from = starts[b]!;
+    const to = from + lengths[b]!;
+    sx += x[to]! - x[from]!;
+    sy += y[to]! - y[from]!;
+    sxx += xx[to]! - xx[from]!;
+    syy += yy[to]! - yy[from]!;
+    sxy += xy[to]! - xy[from]!;
   }
   sums[0] = sx;
   sums[1] = sy;
