@@ -22,6 +22,8 @@ await build({
   // vega is loaded only when a chart is drawn (a dynamic import); leaving it out of the bundle keeps
   // start-up fast. It is a dependency, so it is there at run time.
   external: ["vega"],
+  // Minified: V8 compiles a 0.7 MB file faster than a 1.2 MB one (about 10 ms of every run).
+  minify: true,
   banner: {
     js: "#!/usr/bin/env node\nimport { createRequire as __createRequire } from 'node:module'; const require = __createRequire(import.meta.url);",
   },
