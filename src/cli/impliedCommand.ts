@@ -13,10 +13,10 @@ import { describeOptionIssue, impliedOptionsSchema, maximumSteps, reportFormats,
 import { version } from "./version.js";
 
 export async function runImplied(options: ImpliedCliOptions, io: CliIo): Promise<ExitCode> {
-  const { steps, format, output, ...structure } = options;
+  const { steps, format, output, rf, ...structure } = options;
   const solution = implied(structure, steps);
   const colour = wantsColour(io, output, format);
-  const text = renderImplied({ tool: { name: "betabound", version }, solution }, format, { colour });
+  const text = renderImplied({ tool: { name: "betabound", version }, solution, riskFree: rf }, format, { colour });
   const written = await emit(io, output, text);
   if (written !== exitCodes.ok) return written;
   return solution.bounds === null ? exitCodes.rejected : exitCodes.ok;
@@ -40,6 +40,7 @@ export function impliedCommand(io: CliIo, setExit: (code: ExitCode) => void): Co
     .requiredOption("--low-noise-vol <sd>", "standard deviation of the low book's noise", nonNegativeNumber)
     .requiredOption("--high-noise-vol <sd>", "standard deviation of the high book's noise", nonNegativeNumber)
     .option("--weight <w>", "weight of the low book in the market proxy", openUnitInterval, solveDefaults.weight)
+    .option("--rf <r>", "risk-free return per period (moments are of excess returns; it sets the raw means)", anyNumber, 0)
     .option("--steps <n>", "number of candidates in the grid, endpoints included", wholeNumber(2, maximumSteps), solveDefaults.steps)
     .addOption(new Option("--format <format>", "report format").choices(reportFormats).default(solveDefaults.format))
     .option("--output <path>", "write the report to this file (atomically) instead of standard output")

@@ -184,6 +184,7 @@ export const impliedOptionsSchema = z
     lowNoiseVol: z.number().nonnegative(),
     highNoiseVol: z.number().nonnegative(),
     weight: z.number().gt(0).lt(1),
+    rf: z.number(),
     steps: z.number().int().min(2).max(maximumSteps),
     format: z.enum(reportFormats),
     output: z.string().min(1).optional(),

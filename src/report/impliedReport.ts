@@ -20,6 +20,8 @@ import type { RenderOptions, ReportFormat, SolveReport } from "./types.js";
 export interface ImpliedReport {
   readonly tool: SolveReport["tool"];
   readonly solution: ImpliedSolution;
+  /** Risk-free return per period: raw expected returns are rf + b * factorMean. Default 0. */
+  readonly riskFree?: number;
 }
 
 export function impliedOutput(report: ImpliedReport) {
@@ -29,6 +31,12 @@ export function impliedOutput(report: ImpliedReport) {
     tool: { name: report.tool.name, version: report.tool.version },
     command: "implied" as const,
     structure: s.structure,
+    riskFree: report.riskFree ?? 0,
+    expectedReturns: {
+      low: (report.riskFree ?? 0) + s.moments.low.mean,
+      high: (report.riskFree ?? 0) + s.moments.high.mean,
+      market: (report.riskFree ?? 0) + s.moments.market.mean,
+    },
     truth: s.truth,
     weight: s.weight,
     moments: s.moments,
@@ -79,6 +87,8 @@ function renderImpliedText(report: ImpliedReport, options: RenderOptions): strin
         ["low noise sd / variance", `${formatNumber(st.lowNoiseVol)} / ${formatNumber(s.truth.lowNoiseVariance)}`],
         ["high noise sd / variance", `${formatNumber(st.highNoiseVol)} / ${formatNumber(s.truth.highNoiseVariance)}`],
         ["market proxy weight w", String(st.weight)],
+        ["risk-free return", formatNumber(report.riskFree ?? 0)],
+        ["expected raw returns", `low ${formatNumber((report.riskFree ?? 0) + s.moments.low.mean)}, high ${formatNumber((report.riskFree ?? 0) + s.moments.high.mean)}`],
       ]),
     ],
     momentsSection(s, style, "Population moments (excess returns, per period)"),

@@ -28,6 +28,11 @@ export const impliedOutputSchema = doc(
       lowNoiseVol: z.number(),
       highNoiseVol: z.number(),
     }),
+    riskFree: doc(z.number(), "risk-free return per period"),
+    expectedReturns: doc(
+      z.strictObject({ low: z.number(), high: z.number(), market: z.number() }),
+      "expected raw returns per period: rf + b * factorMean",
+    ),
     truth: candidateSchema,
     weight: z.number().gt(0).lt(1),
     moments: momentsSchema,

@@ -42,6 +42,15 @@ describe("betabound implied", () => {
     expect(json.bounds.lowBeta.max).toBeGreaterThan(0.72);
   });
 
+  it("adds --rf to the expected raw returns and leaves the excess moments alone", async () => {
+    const without = await runJson(["implied", ...structure, "--format", "json"]);
+    const withRf = await runJson(["implied", ...structure, "--rf", "0.002", "--format", "json"]);
+    expect(withRf.json.moments).toEqual(without.json.moments);
+    expect(withRf.json.riskFree).toBe(0.002);
+    // E[R_low] = rf + b_low * factorMean = 0.002 + 0.72 * 0.006.
+    expect(withRf.json.expectedReturns.low).toBeCloseTo(0.002 + 0.72 * 0.006, 15);
+  });
+
   it("refuses a low beta at or above 1/w with exit 1", async () => {
     const { code, stderr } = await runJson(["implied", ...structure.slice(2), "--low-beta", "2.5", "--weight", "0.4"]);
     expect(code).toBe(exitCodes.usage);
