@@ -4,12 +4,11 @@
  * --high PATH:COLUMN), the two books are read from their own files and joined on date.
  */
 import type { ReturnSample } from "../core/types.js";
-import { decodeText } from "../input/decodeText.js";
 import { describeInputIssue, type InputIssue } from "../input/issues.js";
 import { joinOnDates } from "../input/joinOnDates.js";
 import { parseDecimal } from "../input/numbers.js";
 import type { ReadOptions } from "../input/options.js";
-import { readReturns } from "../input/readReturns.js";
+import { readReturnsFromBytes } from "../input/readReturns.js";
 import type { ReturnTable } from "../input/returnTable.js";
 import type { InputDescription, JoinDescription, RiskFreeSource } from "../report/types.js";
 import type { CliIo } from "./io.js";
@@ -73,14 +72,10 @@ export async function* loadPairs(files: readonly string[], pairs: readonly Pair[
       yield* failAll([{ code: bytes.issues.code, message: describeCliIssue(bytes.issues) }]);
       continue;
     }
-    const text = decodeText(bytes.value, source);
-    if (!text.ok) {
-      yield* failAll(inputErrors(text.issues));
-      continue;
-    }
     const riskFree = riskFreeSource(options);
     for (const pair of pairs) {
-      const table = readReturns(text.value, readOptions(source, [pair.low, pair.high, ...riskFreeColumn(riskFree)], options));
+      // Validates the encoding and parses straight from the bytes (decodeText + readReturns semantics).
+      const table = readReturnsFromBytes(bytes.value, readOptions(source, [pair.low, pair.high, ...riskFreeColumn(riskFree)], options));
       if (!table.ok) yield { ok: false, source, pair, errors: inputErrors(table.issues) };
       else {
         const keys = { low: pair.low, high: pair.high, riskFree: riskFree.kind === "column" ? riskFree.column : null };
@@ -110,8 +105,8 @@ export function describeInput(loaded: PairTable, options: InputCliOptions): Inpu
     highColumn: loaded.pair.high,
     riskFree: loaded.riskFree,
     units: options.units,
-    firstDate: table.dates[0] ?? "",
-    lastDate: table.dates[table.dates.length - 1] ?? "",
+    firstDate: table.firstDate,
+    lastDate: table.lastDate,
     rowsRead: table.rowsRead,
     rowsDropped: table.dropped.count,
     droppedDates: table.dropped.firstDates,
@@ -131,9 +126,7 @@ async function loadJoined(sides: { low: Side; high: Side }, options: InputCliOpt
   for (const [key, side, extra] of [["low", sides.low, riskFreeColumn(riskFree)], ["high", sides.high, []]] as const) {
     const bytes = await io.readInput(side.file);
     if (!bytes.ok) return fail([{ code: bytes.issues.code, message: describeCliIssue(bytes.issues) }]);
-    const text = decodeText(bytes.value, describe(side.file));
-    if (!text.ok) return fail(inputErrors(text.issues));
-    const table = readReturns(text.value, readOptions(describe(side.file), [side.column, ...extra], options));
+    const table = readReturnsFromBytes(bytes.value, readOptions(describe(side.file), [side.column, ...extra], options));
     if (!table.ok) return fail(inputErrors(table.issues));
     // Both files may call their column the same ("Return"): key them by role for the join.
     const columns = new Map<string, Float64Array>([[key, table.value.columns.get(side.column)!]]);

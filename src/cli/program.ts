@@ -12,27 +12,43 @@ import { simulateCommand } from "./simulateCommand.js";
 import { solveCommand } from "./solveCommand.js";
 import { version } from "./version.js";
 
-function buildProgram(io: CliIo, setExit: (code: ExitCode) => void): Command {
+type CommandBuilder = (io: CliIo, setExit: (code: ExitCode) => void) => Command;
+
+/** The commands in help order. */
+const commands: readonly (readonly [string, CommandBuilder])[] = [
+  ["solve", solveCommand],
+  ["roll", rollCommand],
+  ["implied", impliedCommand],
+  ["simulate", simulateCommand],
+  ["schema", schemaCommand],
+];
+
+/**
+ * The program; when argv names a command, only that one is built (each definition costs start-up
+ * time), otherwise all of them, for the help listing and the "did you mean" suggestions.
+ */
+function buildProgram(io: CliIo, setExit: (code: ExitCode) => void, first: string | undefined): Command {
   const program = new Command("betabound")
     .description("Bounds on structural betas and noise variances for a low-beta / high-beta portfolio pair.")
     .version(version, "-V, --version")
     .showSuggestionAfterError(true)
     .configureOutput({ writeOut: io.writeOut, writeErr: io.writeErr })
     .exitOverride();
-  program.addCommand(solveCommand(io, setExit));
-  program.addCommand(rollCommand(io, setExit));
-  program.addCommand(impliedCommand(io, setExit));
-  program.addCommand(simulateCommand(io, setExit));
-  program.addCommand(schemaCommand(io, setExit));
+  const named = commands.filter(([name]) => name === first);
+  for (const [, build] of named.length === 1 ? named : commands) program.addCommand(build(io, setExit));
   return program;
 }
 
 /** Parses `argv` (without the node and script entries), runs the command and returns its exit code. */
 export async function run(argv: readonly string[], io: CliIo): Promise<ExitCode> {
   let exitCode: ExitCode = exitCodes.ok;
-  const program = buildProgram(io, (code) => {
-    exitCode = code;
-  });
+  const program = buildProgram(
+    io,
+    (code) => {
+      exitCode = code;
+    },
+    argv[0],
+  );
   for (const command of program.commands) command.exitOverride().configureOutput({ writeOut: io.writeOut, writeErr: io.writeErr });
   try {
     await program.parseAsync([...argv], { from: "user" });

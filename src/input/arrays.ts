@@ -20,3 +20,9 @@ export function arrayOf<T>(length: number, at: (i: number) => T): T[] {
   for (let i = 0; i < length; i++) out[i] = at(i);
   return out;
 }
+
+/** True when a[i] = i for every i. */
+export function isIdentity(a: Int32Array): boolean {
+  for (let i = 0; i < a.length; i++) if (a[i] !== i) return false;
+  return true;
+}

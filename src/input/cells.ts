@@ -13,10 +13,20 @@ export function readDecimalComma(text: string): number | null {
   return parseDecimal(`${text.slice(0, comma)}.${text.slice(comma + 1)}`);
 }
 
-/** Dates of the given rows; null (after adding issues) when any is unreadable. */
-export function readDates(grid: Grid, rows: Int32Array, dateIndex: number, dateColumn: string, options: ReadOptions, issues: IssueList):
-  { keys: Float64Array; isos: readonly string[]; texts: string[] } | null {
+/**
+ * Dates of the given rows; null (after adding issues) when any is unreadable. `isos` and `texts`
+ * are null when every date is a plain "YYYY-MM-DD" (see `Extracted`). `plainKeys`: the keys of
+ * those rows when already known to be all plain (see Grid.readRows).
+ */
+export function readDates(grid: Grid, rows: Int32Array, dateIndex: number, dateColumn: string, options: ReadOptions, issues: IssueList,
+  plainKeys: Float64Array | null = null): { keys: Float64Array; isos: readonly string[] | null; texts: readonly string[] | null } | null {
   const { source, dateFormat } = options;
+  if (dateFormat === undefined && plainKeys !== null) return { keys: plainKeys, isos: null, texts: null };
+  if (dateFormat === undefined && grid.plainIsoDates !== undefined) {
+    // Every date a plain "YYYY-MM-DD": its text is its ISO form, and both are recovered from the key.
+    const keys = new Float64Array(rows.length);
+    if (grid.plainIsoDates(rows, dateIndex, keys)) return { keys, isos: null, texts: null };
+  }
   const texts = arrayOf(rows.length, (i) => grid.field(rows[i] as number, dateIndex));
   const column = readDateColumn(texts, dateFormat);
   if (column.kind === "bad-format") {
@@ -45,13 +55,15 @@ export function readDates(grid: Grid, rows: Int32Array, dateIndex: number, dateC
  * Settle every NaN and sentinel cell of `values` (read from `grid` rows, field `fieldIndex`):
  * missing spellings and sentinels stay NaN (or become "missing-value" issues when onMissing is
  * "error"); any other text becomes a "not-a-number" issue. With options.decimalComma, "0,85" is 0.85.
+ * Returns how many cells are left NaN (every other value is a finite number).
  */
 export function settleCells(grid: Grid, rows: Int32Array, fieldIndex: number, column: string, values: Float64Array,
-  sentinels: Sentinels, options: ReadOptions, issues: IssueList): void {
+  sentinels: Sentinels, options: ReadOptions, issues: IssueList): number {
   const { source } = options;
   const strict = options.onMissing === "error";
   const numericSentinels = sentinels.numbers.size > 0;
   const decimalComma = options.decimalComma === true;
+  let missingCount = 0;
   for (let i = 0; i < values.length; i++) {
     const value = values[i] as number;
     if (!Number.isNaN(value) && !(numericSentinels && sentinels.numbers.has(value))) continue;
@@ -66,7 +78,9 @@ export function settleCells(grid: Grid, rows: Int32Array, fieldIndex: number, co
     }
     const missing = !Number.isNaN(value) || isMissingToken(text) || sentinels.texts.has(text.trim().toLowerCase());
     values[i] = Number.NaN;
+    missingCount++;
     if (!missing) issues.add({ code: "not-a-number", source, line: grid.line(row), column, value: text });
     else if (strict) issues.add({ code: "missing-value", source, line: grid.line(row), column, value: text });
   }
+  return missingCount;
 }

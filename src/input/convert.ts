@@ -5,6 +5,7 @@
  * price makes both returns that use it missing.
  */
 import type { Extracted } from "./extracted.js";
+import { isIdentity } from "./arrays.js";
 import type { IssueList } from "./issueList.js";
 import type { ReadOptions } from "./options.js";
 
@@ -27,7 +28,7 @@ export function toReturns(data: Extracted, order: Int32Array, options: ReadOptio
   const scale = options.units === "percent" ? 100 : 1;
   const { source } = options;
   const rows = input === "prices" ? order.subarray(Math.min(1, order.length)) : order;
-  const inOrder = order.every((row, k) => row === k);
+  const inOrder = isIdentity(order);
   const checkExtremes = (out: Float64Array, c: number): Float64Array => {
     if (options.allowExtreme === true) return out;
     for (let k = 0; k < rows.length; k++) {

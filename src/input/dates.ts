@@ -32,8 +32,8 @@ function daysFromCivil(year: number, month: number, day: number): number {
 const pad = (n: number, width = 2): string => String(n).padStart(width, "0");
 
 const isLeap = (year: number): boolean => year % 4 === 0 && (year % 100 !== 0 || year % 400 === 0);
-const daysInMonth = (year: number, month: number): number => (MONTH_DAYS[month - 1] as number) + (month === 2 && isLeap(year) ? 1 : 0);
-const DAY_MS = 86_400_000;
+export const daysInMonth = (year: number, month: number): number => (MONTH_DAYS[month - 1] as number) + (month === 2 && isLeap(year) ? 1 : 0);
+export const DAY_MS = 86_400_000;
 
 /** A calendar date from numeric parts, or null when it does not exist (e.g. 2021-02-29). */
 export function calendarDate(year: number, month: number, day?: number): ParsedDate | null {
@@ -80,8 +80,35 @@ export function plainIsoDateKey(text: string): number {
   const year = digitAt(text, 0) * 1000 + digitAt(text, 1) * 100 + digitAt(text, 2) * 10 + digitAt(text, 3);
   const month = digitAt(text, 5) * 10 + digitAt(text, 6);
   const day = digitAt(text, 8) * 10 + digitAt(text, 9);
+  return plainDateKey(year, month, day);
+}
+
+/**
+ * The key `plainIsoDateKey` gives for year, month and day read from "YYYY-MM-DD" (NaN digits give
+ * NaN): NaN unless it is a real date from year 1.
+ */
+export function plainDateKey(year: number, month: number, day: number): number {
   if (!(year >= 1 && month >= 1 && month <= 12 && day >= 1 && day <= daysInMonth(year, month))) return Number.NaN;
   return daysFromCivil(year, month, day) * DAY_MS;
+}
+
+const TWO_DIGITS = Array.from({ length: 100 }, (_, n) => pad(n));
+
+/**
+ * The "YYYY-MM-DD" text of a key given by `plainIsoDateKey` (years 1 to 9999): the inverse of
+ * that function (H. Hinnant's civil_from_days).
+ */
+export function plainIsoDateOfKey(key: number): string {
+  const z = Math.floor(key / DAY_MS) + 719468;
+  const era = Math.floor(z / 146097);
+  const doe = z - era * 146097;
+  const yoe = Math.floor((doe - Math.floor(doe / 1460) + Math.floor(doe / 36524) - Math.floor(doe / 146096)) / 365);
+  const doy = doe - (365 * yoe + Math.floor(yoe / 4) - Math.floor(yoe / 100));
+  const mp = Math.floor((5 * doy + 2) / 153);
+  const day = doy - Math.floor((153 * mp + 2) / 5) + 1;
+  const month = mp < 10 ? mp + 3 : mp - 9;
+  const year = yoe + era * 400 + (month <= 2 ? 1 : 0);
+  return `${TWO_DIGITS[Math.floor(year / 100)] as string}${TWO_DIGITS[year % 100] as string}-${TWO_DIGITS[month] as string}-${TWO_DIGITS[day] as string}`;
 }
 
 /**

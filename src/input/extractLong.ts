@@ -6,6 +6,7 @@
 import { float64Of, int32Of } from "./arrays.js";
 import { readDates, settleCells } from "./cells.js";
 import { resolveColumns } from "./columns.js";
+import { plainIsoDateOfKey } from "./dates.js";
 import type { Extracted } from "./extracted.js";
 import type { Grid } from "./grid.js";
 import type { IssueList } from "./issueList.js";
@@ -78,7 +79,7 @@ export function extractLong(grid: Grid, location: TableLocation, options: ReadOp
     const earlier = (source2[slot] as Int32Array)[at] as number;
     const row = rows[i] as number;
     if (earlier >= 0) {
-      issues.add({ code: "duplicate-date", source, line: grid.line(row), column: dateColumn, value: dated.texts[i] as string,
+      issues.add({ code: "duplicate-date", source, line: grid.line(row), column: dateColumn, value: dated.texts === null ? plainIsoDateOfKey(keys[i] as number) : (dated.texts[i] as string),
         firstLine: grid.line(rows[earlier] as number), series: series[slot] as string });
     }
     (source2[slot] as Int32Array)[at] = i;
@@ -89,10 +90,11 @@ export function extractLong(grid: Grid, location: TableLocation, options: ReadOp
     dateColumn,
     columns: series,
     keys: float64Of(firsts.length, (k) => keys[firsts[k] as number] as number),
-    isos: firsts.map((i) => dated.isos[i] as string),
-    dateTexts: firsts.map((i) => dated.texts[i] as string),
+    isos: dated.isos === null ? null : firsts.map((i) => dated.isos?.[i] as string),
+    dateTexts: dated.texts === null ? null : firsts.map((i) => dated.texts?.[i] as string),
     lines: int32Of(firsts.length, (k) => grid.line(rows[firsts[k] as number] as number)),
     values: out,
+    complete: false,
     rawText: (column, at) => {
       const i = (source2[column] as Int32Array)[at] as number;
       return i < 0 ? "" : grid.field(rows[i] as number, valueIndex);

@@ -1,5 +1,4 @@
 /** The wide layout: one row per date, one column per series. */
-import { int32Of } from "./arrays.js";
 import { readDates, settleCells } from "./cells.js";
 import { resolveColumns } from "./columns.js";
 import type { Extracted } from "./extracted.js";
@@ -29,16 +28,31 @@ export function extractWide(grid: Grid, location: TableLocation, options: ReadOp
     return null;
   }
   const count = location.endRow - location.firstDataRow;
-  const rows = int32Of(count, (i) => location.firstDataRow + i);
+  const first = location.firstDataRow;
+  const rows = new Int32Array(count);
+  for (let i = 0; i < count; i++) rows[i] = first + i;
   const columns = valueIndexes.map((index) => header[index] as string);
   const values = columns.map(() => new Float64Array(count));
   const slots = new Int32Array(header.length).fill(-1);
   valueIndexes.forEach((fieldIndex, slot) => (slots[fieldIndex] = slot));
-  const counts = int32Of(count, (i) => grid.readNumbers(rows[i] as number, slots, values, i));
+  const counts = new Int32Array(count);
+  let plainKeys: Float64Array | null = null;
+  let withNaN: readonly boolean[] = values.map(() => true);
+  if (grid.readRows === undefined) for (let i = 0; i < count; i++) counts[i] = grid.readNumbers(first + i, slots, values, i);
+  else {
+    plainKeys = new Float64Array(count);
+    const read = grid.readRows(first, count, slots, values, counts, dateIndex as number, plainKeys);
+    if (!read.plainDates) plainKeys = null;
+    withNaN = read.withNaN;
+  }
   if (!checkFieldCounts(grid, rows, counts, header, source, issues)) return null;
-  values.forEach((column, c) => settleCells(grid, rows, valueIndexes[c] as number, columns[c] as string, column, sentinels, options, issues));
+  let missing = 0;
+  values.forEach((column, c) => {
+    // Only NaN cells and numeric sentinels need settling.
+    if (withNaN[c] === true || sentinels.numbers.size > 0) missing += settleCells(grid, rows, valueIndexes[c] as number, columns[c] as string, column, sentinels, options, issues);
+  });
 
-  const dated = readDates(grid, rows, dateIndex as number, dateColumn, options, issues);
+  const dated = readDates(grid, rows, dateIndex as number, dateColumn, options, issues, plainKeys);
   if (dated === null || !issues.empty) return null;
   return {
     dateColumn,
@@ -46,8 +60,9 @@ export function extractWide(grid: Grid, location: TableLocation, options: ReadOp
     keys: dated.keys,
     isos: dated.isos,
     dateTexts: dated.texts,
-    lines: int32Of(count, (i) => grid.line(rows[i] as number)),
+    lines: linesOf(grid, rows),
     values,
+    complete: missing === 0,
     rawText: (column, row) => grid.field(rows[row] as number, valueIndexes[column] as number),
     rowsRead: count,
     ordered: false,
@@ -56,4 +71,11 @@ export function extractWide(grid: Grid, location: TableLocation, options: ReadOp
     titleRows: location.titleRows,
     headerLine,
   };
+}
+
+/** The source line of each row. */
+function linesOf(grid: Grid, rows: Int32Array): Int32Array {
+  const lines = new Int32Array(rows.length);
+  for (let i = 0; i < rows.length; i++) lines[i] = grid.line(rows[i] as number);
+  return lines;
 }

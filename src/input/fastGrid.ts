@@ -6,6 +6,7 @@
  * of ten are exact doubles, so one correctly rounded division gives the correctly rounded value;
  * anything else is handed to `parseDecimal`.
  */
+import { plainDateKey } from "./dates.js";
 import type { Grid } from "./grid.js";
 import { parseDecimal } from "./numbers.js";
 
@@ -108,6 +109,29 @@ class FastGrid implements Grid {
     }
   }
 
+  plainIsoDates(rows: Int32Array, index: number, keys: Float64Array): boolean {
+    const { text, delimiter } = this;
+    for (let k = 0; k < rows.length; k++) {
+      const row = rows[k] as number;
+      const end = this.ends[row] as number;
+      let p = this.starts[row] as number;
+      for (let f = 0; f < index && p >= 0; f++) {
+        const next = text.indexOf(delimiter, p);
+        p = next < 0 || next >= end ? -1 : next + 1;
+      }
+      if (p < 0 || p + 10 > end || (p + 10 < end && text.charCodeAt(p + 10) !== this.d)) return false;
+      if (text.charCodeAt(p + 4) !== 45 || text.charCodeAt(p + 7) !== 45) return false;
+      const key = plainDateKey(
+        digit(text, p) * 1000 + digit(text, p + 1) * 100 + digit(text, p + 2) * 10 + digit(text, p + 3),
+        digit(text, p + 5) * 10 + digit(text, p + 6),
+        digit(text, p + 8) * 10 + digit(text, p + 9),
+      );
+      if (Number.isNaN(key)) return false;
+      keys[k] = key;
+    }
+    return true;
+  }
+
   /**
    * Parse the number starting at `from` into target[at] (written there, not returned, so that no
    * double is boxed); returns the position of the delimiter or line end after the field.
@@ -152,4 +176,9 @@ class FastGrid implements Grid {
     target[at] = parseDecimal(text.slice(from, i)) ?? Number.NaN;
     return i;
   }
+}
+
+function digit(text: string, i: number): number {
+  const v = text.charCodeAt(i) - 48;
+  return v >= 0 && v <= 9 ? v : Number.NaN;
 }

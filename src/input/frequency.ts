@@ -67,11 +67,44 @@ function select(a: Float64Array, k: number): number {
 /** Frequency from date keys (ms, ascending): the band holding the median gap, or null when none does. */
 export function detectFrequency(keys: ArrayLike<number>): Frequency | null {
   if (keys.length < 2) return null;
-  const gaps = new Float64Array(keys.length - 1);
-  for (let i = 1; i < keys.length; i++) gaps[i - 1] = ((keys[i] as number) - (keys[i - 1] as number)) / DAY_MS;
-  const gap = median(gaps);
+  let gap = medianWholeDayGap(keys);
+  if (gap === null) {
+    const gaps = new Float64Array(keys.length - 1);
+    for (let i = 1; i < keys.length; i++) gaps[i - 1] = ((keys[i] as number) - (keys[i - 1] as number)) / DAY_MS;
+    gap = median(gaps);
+  }
   const band = BANDS.find(([, low, high]) => gap >= low && gap <= high);
   return band ? { name: band[0], periodsPerYear: band[3], from: "detected" } : null;
+}
+
+/** Gaps of whole days below this are counted in a histogram by `medianWholeDayGap`. */
+const HISTOGRAM_DAYS = 1024;
+
+/**
+ * The median of the gaps (days) between consecutive keys, from a histogram, when every gap is a whole
+ * number of days from 0 to HISTOGRAM_DAYS - 1 (then it is exactly what `median` gives); null otherwise.
+ */
+function medianWholeDayGap(keys: ArrayLike<number>): number | null {
+  const counts = new Int32Array(HISTOGRAM_DAYS);
+  let previous = keys[0] as number;
+  for (let i = 1; i < keys.length; i++) {
+    const key = keys[i] as number;
+    const gap = (key - previous) / DAY_MS;
+    if (!(gap >= 0 && gap < HISTOGRAM_DAYS && Math.floor(gap) === gap)) return null;
+    counts[gap] = (counts[gap] as number) + 1;
+    previous = key;
+  }
+  const n = keys.length - 1;
+  // The values at sorted positions k - 1 and k, k = floor(n / 2), as `median` takes them.
+  const k = n >> 1;
+  let below = -1;
+  let seen = 0;
+  for (let value = 0; value < HISTOGRAM_DAYS; value++) {
+    seen += counts[value] as number;
+    if (below < 0 && seen >= k) below = value;
+    if (seen > k) return n % 2 === 1 ? value : (value + below) / 2;
+  }
+  return null;
 }
 
 /** The frequency for an explicit periods-per-year: named after the nearest standard frequency. */

@@ -25,6 +25,20 @@ export interface Grid {
    * Returns the row's field count.
    */
   readNumbers(row: number, slots: Int32Array, out: readonly Float64Array[], at: number): number;
+  /**
+   * Optional shortcut for dates: when field `index` of every row in `rows` is exactly a real
+   * "YYYY-MM-DD" date, sets keys[k] = plainIsoDateKey(field of rows[k]) and returns true; returns
+   * false (keys partly written) otherwise.
+   */
+  plainIsoDates?(rows: Int32Array, index: number, keys: Float64Array): boolean;
+  /**
+   * Optional, one pass over the rows [first, first + count): for each k, counts[k] =
+   * readNumbers(first + k, slots, out, k), and plainIsoDates for field `dateIndex` (which no slot
+   * reads) of those rows into dateKeys, whose result is `plainDates`. withNaN[slot] is false only
+   * when no value written to out[slot] is NaN.
+   */
+  readRows?(first: number, count: number, slots: Int32Array, out: readonly Float64Array[], counts: Int32Array, dateIndex: number,
+    dateKeys: Float64Array): { readonly plainDates: boolean; readonly withNaN: readonly boolean[] };
 }
 
 /** Why csv-parse could not tokenise the text. */

@@ -1,5 +1,5 @@
 /** The input layer: pure functions from file text (or bytes) to return tables or typed issues. */
-export { readReturns, readReturnsWith, type Engine } from "./readReturns.js";
+export { readReturns, readReturnsWith, readReturnsFromBytes, type Engine } from "./readReturns.js";
 export type { ReadOptions, InputKind } from "./options.js";
 export type { ReturnTable } from "./returnTable.js";
 export type { Frequency, FrequencyName } from "./frequency.js";

@@ -67,6 +67,8 @@ export function joinOnDates(tables: readonly ReturnTable[]): Result<JoinedReturn
     source,
     dateColumn: first.dateColumn,
     dates,
+    firstDate: dates[0] as string,
+    lastDate: dates[dates.length - 1] as string,
     columns,
     lines: int32Of(firstPicks.length, (j) => first.lines[firstPicks[j] as number] as number),
     rowsRead: tables.reduce((sum, t) => sum + t.rowsRead, 0),

@@ -3,6 +3,8 @@
  * expected problem is an InputIssue (see issues.ts for the codes and their wording).
  */
 import { failure, type Result } from "../core/result.js";
+import { asciiText, byteGrid, isAsciiWhiteSpace, isPlain, plainLines, type PlainLines } from "./byteGrid.js";
+import { decodeText } from "./decodeText.js";
 import { detectDelimiter } from "./dialect.js";
 import { extractLong } from "./extractLong.js";
 import { extractWide } from "./extractWide.js";
@@ -37,13 +39,65 @@ export function readReturns(text: string, options: ReadOptions): Result<ReturnTa
 export function readReturnsWith(text: string, options: ReadOptions, engine: Engine): Result<ReturnTable, InputIssue[]> {
   const source = typeof options?.source === "string" ? options.source : "<input>";
   try {
-    return read(String(text), options, engine);
+    return readText(String(text), options, engine);
   } catch (error) {
     return failure([{ code: "internal-error", source, detail: error instanceof Error ? error.message : String(error) }]);
   }
 }
 
-function read(input: string, options: ReadOptions, engine: Engine): Result<ReturnTable, InputIssue[]> {
+/**
+ * `readReturns` on the bytes of a file: the same as `decodeText(bytes, options.source)` followed,
+ * when that succeeds, by `readReturns` on the text (a decoding failure is returned as it is).
+ * Plain ASCII files without quotes are read from the bytes directly, without building the text.
+ */
+export function readReturnsFromBytes(bytes: Uint8Array, options: ReadOptions): Result<ReturnTable, InputIssue[]> {
+  return readBytesWith(bytes, options, "auto");
+}
+
+/**
+ * `readReturnsFromBytes` with the byte engine ("auto"), through the text ("text"), or with the byte
+ * engine not even looking at the first bytes before reading ("speculative", for tests of the
+ * fallback); results are identical.
+ */
+export function readBytesWith(bytes: Uint8Array, options: ReadOptions, engine: "auto" | "text" | "speculative"): Result<ReturnTable, InputIssue[]> {
+  const source = typeof options?.source === "string" ? options.source : "<input>";
+  try {
+    const lines = engine === "text" ? null : plainLines(bytes, engine === "auto" ? undefined : 0);
+    let read: Result<ReturnTable, InputIssue[]> | null = null;
+    try {
+      read = lines === null ? null : readPlainBytes(bytes, lines, options);
+    } catch (error) {
+      // Only a bug can throw; on bytes that are not plain the text decides.
+      if (lines === null || isPlain(bytes, lines.start, bytes.length)) throw error;
+    }
+    if (read !== null) return read;
+    const text = decodeText(bytes, source);
+    return text.ok ? readText(text.value, options, "auto") : text;
+  } catch (error) {
+    return failure([{ code: "internal-error", source, detail: error instanceof Error ? error.message : String(error) }]);
+  }
+}
+
+/**
+ * `readText` on the file of `lines`, read from its bytes; null when the bytes turn out not to be
+ * plain (see byteGrid.ts), so that the text must be read instead.
+ */
+function readPlainBytes(bytes: Uint8Array, lines: PlainLines, options: ReadOptions): Result<ReturnTable, InputIssue[]> | null {
+  const { source } = options;
+  const { start } = lines;
+  const optionIssues = validateOptions(options);
+  if (optionIssues.length > 0) return isPlain(bytes, start, bytes.length) ? failure(optionIssues) : null;
+  // Only ASCII white space: the text is blank, whatever else.
+  if (isAsciiWhiteSpace(bytes, start, bytes.length)) return failure([{ code: "empty-file", source }]);
+  // detectDelimiter looks at no more than the first 65537 characters.
+  const head = (): string => asciiText(bytes, start, Math.min(bytes.length, start + 65537));
+  const delimiter = options.delimiter ?? detectDelimiter(head(), options.decimalComma === true ? [";", "\t"] : undefined);
+  const grid = byteGrid(bytes, lines, delimiter);
+  const result = readGrid(grid, options);
+  return grid.clean() ? result : null;
+}
+
+function readText(input: string, options: ReadOptions, engine: Engine): Result<ReturnTable, InputIssue[]> {
   const { source } = options;
   const optionIssues = validateOptions(options);
   if (optionIssues.length > 0) return failure(optionIssues);
@@ -53,7 +107,12 @@ function read(input: string, options: ReadOptions, engine: Engine): Result<Retur
   const fast = engine === "auto" ? fastGrid(text, delimiter) : null;
   const grid: Grid | { line: number; detail: string } = fast ?? csvGrid(text, delimiter);
   if (!("rowCount" in grid)) return failure([{ code: "malformed-quotes", source, line: grid.line, detail: grid.detail }]);
+  return readGrid(grid, options);
+}
 
+/** Locate, extract and finish the table of a tokenised file. */
+function readGrid(grid: Grid, options: ReadOptions): Result<ReturnTable, InputIssue[]> {
+  const { source } = options;
   const long = options.idColumn !== undefined && options.valueColumn !== undefined;
   const wanted = long
     ? [options.idColumn ?? "", options.valueColumn ?? "", ...(options.dateColumn === undefined ? [] : [options.dateColumn])]

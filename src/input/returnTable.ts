@@ -6,8 +6,15 @@ import type { InputWarning } from "./issues.js";
 export interface ReturnTable {
   readonly source: string;
   readonly dateColumn: string;
-  /** ISO 8601 at the precision written: "YYYY-MM-DD", "YYYY-MM", "YYYY" or a date-time; ascending, unique. */
+  /**
+   * ISO 8601 at the precision written: "YYYY-MM-DD", "YYYY-MM", "YYYY" or a date-time; ascending, unique.
+   * When every date is a plain "YYYY-MM-DD" the array is built on first access (from compact keys),
+   * so a caller that needs only the range should use firstDate and lastDate.
+   */
   readonly dates: readonly string[];
+  /** dates[0] and dates[dates.length - 1], without building `dates`. */
+  readonly firstDate: string;
+  readonly lastDate: string;
   /** One entry per requested column, in request order, same length as dates, decimal simple returns. */
   readonly columns: ReadonlyMap<string, Float64Array>;
   /** 1-based source line of each kept row. */

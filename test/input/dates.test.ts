@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { readDateColumn } from "../../src/input/dateColumn.js";
 import { compileDateFormat } from "../../src/input/dateFormat.js";
-import { parseUnambiguousDate } from "../../src/input/dates.js";
+import { parseUnambiguousDate, plainIsoDateKey, plainIsoDateOfKey } from "../../src/input/dates.js";
 import { readIssues, readOk } from "./helpers.js";
 
 const isos = (texts: string[], format?: string): readonly string[] => {
@@ -125,5 +125,16 @@ describe("date order", () => {
     const table = readOk(withDates(["202001", "202002", "202003", "202004"]));
     expect(table.dates).toEqual(["2020-01", "2020-02", "2020-03", "2020-04"]);
     expect(table.frequency?.name).toBe("monthly");
+  });
+});
+
+describe("plainIsoDateOfKey", () => {
+  it("is the inverse of plainIsoDateKey on every real date from year 1 to 9999", () => {
+    fc.assert(fc.property(fc.integer({ min: 1, max: 9999 }), fc.integer({ min: 1, max: 12 }), fc.integer({ min: 1, max: 31 }), (year, month, day) => {
+      const text = `${String(year).padStart(4, "0")}-${String(month).padStart(2, "0")}-${String(day).padStart(2, "0")}`;
+      const key = plainIsoDateKey(text);
+      if (!Number.isNaN(key)) expect(plainIsoDateOfKey(key)).toBe(text);
+    }), { numRuns: 5000 });
+    for (const text of ["0001-01-01", "1600-02-29", "1900-02-28", "2000-02-29", "2024-12-31", "9999-12-31"]) expect(plainIsoDateOfKey(plainIsoDateKey(text))).toBe(text);
   });
 });
