@@ -29,27 +29,69 @@ export interface KernelSum {
   readonly prewhite: boolean;
 }
 
-/** The weighted sum M + M' of `columns` (n rows each) for given lag weights. */
+/**
+ * The weighted sum M + M' of `columns` (n rows each) for given lag weights. Each lag is one pass over
+ * the rows accumulating all k^2 cross-products at once (each in the same order over t as separate
+ * passes would, so the result is the same bit for bit); k <= 3, the cases the tool uses, have loops
+ * of their own.
+ */
 export function weightedAutocovarianceSum(columns: readonly Float64Array[], weights: ArrayLike<number>): Matrix {
   const k = columns.length;
   const n = k === 0 ? 0 : columns[0]!.length;
   const m: Matrix = Array.from({ length: k }, () => new Array<number>(k).fill(0));
   const lastLag = Math.min(weights.length, n) - 1;
+  const totals = new Float64Array(k * k);
   for (let j = 0; j <= lastLag; j++) {
     const w = j === 0 ? 0.5 * weights[0]! : weights[j]!;
     if (w === 0) continue;
+    laggedCrossProducts(columns, j, totals);
     for (let a = 0; a < k; a++) {
-      const ua = columns[a]!;
       const row = m[a]!;
-      for (let b = 0; b < k; b++) {
-        const ub = columns[b]!;
-        let total = 0;
-        for (let t = 0; t + j < n; t++) total += ua[t]! * ub[t + j]!;
-        row[b] = row[b]! + w * total;
-      }
+      for (let b = 0; b < k; b++) row[b] = row[b]! + w * totals[a * k + b]!;
     }
   }
   return m.map((row, a) => row.map((value, b) => value + m[b]![a]!));
+}
+
+/** totals[a k + b] = sum_{t=0}^{n-j-1} u_a[t] u_b[t + j]. */
+function laggedCrossProducts(columns: readonly Float64Array[], j: number, totals: Float64Array): void {
+  const k = columns.length;
+  const n = columns[0]!.length;
+  const end = n - j;
+  if (k === 1) {
+    const u = columns[0]!;
+    let s = 0;
+    for (let t = 0; t < end; t++) s += u[t]! * u[t + j]!;
+    totals[0] = s;
+  } else if (k === 2) {
+    const [u, v] = columns as [Float64Array, Float64Array];
+    let uu = 0, uv = 0, vu = 0, vv = 0;
+    for (let t = 0; t < end; t++) {
+      const a = u[t]!, b = v[t]!, c = u[t + j]!, d = v[t + j]!;
+      uu += a * c; uv += a * d; vu += b * c; vv += b * d;
+    }
+    totals[0] = uu; totals[1] = uv; totals[2] = vu; totals[3] = vv;
+  } else if (k === 3) {
+    const [u, v, x] = columns as [Float64Array, Float64Array, Float64Array];
+    let s00 = 0, s01 = 0, s02 = 0, s10 = 0, s11 = 0, s12 = 0, s20 = 0, s21 = 0, s22 = 0;
+    for (let t = 0; t < end; t++) {
+      const a = u[t]!, b = v[t]!, c = x[t]!, d = u[t + j]!, e = v[t + j]!, f = x[t + j]!;
+      s00 += a * d; s01 += a * e; s02 += a * f;
+      s10 += b * d; s11 += b * e; s12 += b * f;
+      s20 += c * d; s21 += c * e; s22 += c * f;
+    }
+    totals.set([s00, s01, s02, s10, s11, s12, s20, s21, s22]);
+  } else {
+    for (let a = 0; a < k; a++) {
+      for (let b = 0; b < k; b++) {
+        const ua = columns[a]!;
+        const ub = columns[b]!;
+        let total = 0;
+        for (let t = 0; t < end; t++) total += ua[t]! * ub[t + j]!;
+        totals[a * k + b] = total;
+      }
+    }
+  }
 }
 
 /**
