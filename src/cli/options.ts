@@ -140,16 +140,27 @@ export type SolveCliOptions = z.infer<typeof solveOptionsSchema>;
 
 export const simulateFormats = ["csv", "jsonl"] as const;
 
+/** A structure given on the command line (simulate, implied): per period, decimal. */
+const structureShape = {
+  lowBeta: z.number().positive(),
+  factorVol: z.number().positive(),
+  factorMean: z.number(),
+  lowNoiseVol: z.number().nonnegative(),
+  highNoiseVol: z.number().nonnegative(),
+  weight: z.number().gt(0).lt(1),
+  rf: z.number(),
+};
+
+/** b_low < 1/w, so that the high book's structural beta is positive. */
+const positiveHighBeta: [(o: { lowBeta: number; weight: number }) => boolean, { path: PropertyKey[]; message: string }] = [
+  (o) => o.lowBeta < 1 / o.weight,
+  { path: ["lowBeta"], message: "must be below 1/w so that the high book's beta is positive" },
+];
+
 /** The options of `simulate` after commander's parsing (each number already checked by its argParser). */
 export const simulateOptionsSchema = z
   .object({
-    lowBeta: z.number().positive(),
-    factorVol: z.number().positive(),
-    factorMean: z.number(),
-    lowNoiseVol: z.number().nonnegative(),
-    highNoiseVol: z.number().nonnegative(),
-    weight: z.number().gt(0).lt(1),
-    rf: z.number(),
+    ...structureShape,
     periods: z.number().int().positive(),
     frequency: z.enum(frequencies),
     start: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "must be a date YYYY-MM-DD").refine((s) => !Number.isNaN(Date.parse(s)), "must be a real date"),
@@ -163,7 +174,7 @@ export const simulateOptionsSchema = z
     output: z.string().min(1).optional(),
   })
   .strict()
-  .refine((o) => o.lowBeta < 1 / o.weight, { path: ["lowBeta"], message: "must be below 1/w so that the high book's beta is positive" });
+  .refine(...positiveHighBeta);
 
 export type SimulateCliOptions = z.infer<typeof simulateOptionsSchema>;
 
@@ -178,19 +189,13 @@ export function describeOptionIssue(error: z.ZodError): string {
 /** The options of `implied`: a structure (per period, decimal) and the report settings. */
 export const impliedOptionsSchema = z
   .object({
-    lowBeta: z.number().positive(),
-    factorVol: z.number().positive(),
-    factorMean: z.number(),
-    lowNoiseVol: z.number().nonnegative(),
-    highNoiseVol: z.number().nonnegative(),
-    weight: z.number().gt(0).lt(1),
-    rf: z.number(),
+    ...structureShape,
     steps: z.number().int().min(2).max(maximumSteps),
     format: z.enum(reportFormats),
     output: z.string().min(1).optional(),
   })
   .strict()
-  .refine((o) => o.lowBeta < 1 / o.weight, { path: ["lowBeta"], message: "must be below 1/w so that the high book's beta is positive" });
+  .refine(...positiveHighBeta);
 
 export type ImpliedCliOptions = z.infer<typeof impliedOptionsSchema>;
 

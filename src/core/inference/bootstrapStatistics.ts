@@ -10,6 +10,8 @@
  * replicate (no set when C <= 0, no return-implied point) are NaN there.
  */
 
+import type { MomentSummary } from "../identify.js";
+
 export const bootstrapQuantities = [
   "lowBetaMin",
   "lowBetaMax",
@@ -30,14 +32,8 @@ export type BootstrapQuantity = (typeof bootstrapQuantities)[number];
 export const quantityCount = bootstrapQuantities.length;
 
 /** Moments of one (re)sample: means and second moments with divisor n - 1. */
-export interface ResampleMoments {
+export interface ResampleMoments extends MomentSummary {
   readonly n: number;
-  readonly weight: number;
-  readonly lowMean: number;
-  readonly highMean: number;
-  readonly lowVariance: number;
-  readonly highVariance: number;
-  readonly covariance: number;
 }
 
 /**
