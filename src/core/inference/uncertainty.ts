@@ -36,13 +36,11 @@ import { sharpeStdErrors } from "./sharpe.js";
 import { stoyeInterval } from "./stoye.js";
 import { excessReturns } from "./bootstrapSolve.js";
 import { crossProducts } from "../moments.js";
+import type { ReturnSample } from "../types.js";
 import type { Uncertainty, PointwiseBound, BetaInterval, CapmHac } from "./uncertaintyTypes.js";
 
-export interface UncertaintySample {
-  readonly low: ArrayLike<number>;
-  readonly high: ArrayLike<number>;
-  readonly riskFree?: number | ArrayLike<number>;
-}
+/** The aligned per-period returns (decimal) that `solve` takes. */
+export type UncertaintySample = ReturnSample;
 
 export interface UncertaintyOptions {
   /** Weight w of the low book in the market proxy. Default 0.5. */
