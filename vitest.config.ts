@@ -5,5 +5,6 @@ export default defineConfig({
     include: ["test/**/*.test.ts"],
     setupFiles: ["test/support/failOnConsole.ts"],
     testTimeout: 30_000,
+    reporters: ["default", "./test/support/summaryReporter.ts"],
   },
 });
