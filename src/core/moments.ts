@@ -34,6 +34,9 @@ export interface CrossProducts {
  * @example crossProducts([[1, 2, 3], [2, 4, 7]]).sums[0][1] // => 5
  */
 export function crossProducts(series: readonly ArrayLike<number>[]): CrossProducts {
+  if (series.length === 3 && series.every((s) => s instanceof Float64Array)) {
+    return crossProducts3(series[0] as Float64Array, series[1] as Float64Array, series[2] as Float64Array);
+  }
   const k = series.length;
   const n = k === 0 ? 0 : series[0]!.length;
   for (const s of series) {
@@ -124,4 +127,70 @@ export function compensatedSum(values: Iterable<number>): number {
     sum = t;
   }
   return sum + compensation;
+}
+
+/**
+ * crossProducts for exactly three Float64Array series (what solve uses), with the loops unrolled:
+ * the same operations in the same order as the general code, so the same results bit for bit.
+ */
+function crossProducts3(x: Float64Array, y: Float64Array, z: Float64Array): CrossProducts {
+  const n = x.length;
+  if (y.length !== n || z.length !== n) throw new RangeError(`crossProducts: series lengths differ`);
+  const kx = n > 0 ? x[0]! : 0;
+  const ky = n > 0 ? y[0]! : 0;
+  const kz = n > 0 ? z[0]! : 0;
+  let mx = 0, my = 0, mz = 0, ex = 0, ey = 0, ez = 0;
+  // Sums s_ab and their carried errors c_ab (upper triangle).
+  let sxx = 0, sxy = 0, sxz = 0, syy = 0, syz = 0, szz = 0;
+  let cxx = 0, cxy = 0, cxz = 0, cyy = 0, cyz = 0, czz = 0;
+  const add = (sum: number, term: number): number => sum + term;
+  const carry = (sum: number, term: number, next: number): number => (Math.abs(sum) >= Math.abs(term) ? sum - next + term : term - next + sum);
+  for (let t = 0; t < n; t++) {
+    const inverseCount = 1 / (t + 1);
+    const vx = x[t]! - kx;
+    const vy = y[t]! - ky;
+    const vz = z[t]! - kz;
+    const dx = vx - (mx + ex);
+    const dy = vy - (my + ey);
+    const dz = vz - (mz + ez);
+    let inc = dx * inverseCount;
+    let next = mx + inc;
+    ex += carry(mx, inc, next);
+    mx = next;
+    inc = dy * inverseCount;
+    next = my + inc;
+    ey += carry(my, inc, next);
+    my = next;
+    inc = dz * inverseCount;
+    next = mz + inc;
+    ez += carry(mz, inc, next);
+    mz = next;
+    const ax = vx - (mx + ex);
+    const ay = vy - (my + ey);
+    const az = vz - (mz + ez);
+    let term = dx * ax;
+    next = add(sxx, term); cxx += carry(sxx, term, next); sxx = next;
+    term = dx * ay;
+    next = add(sxy, term); cxy += carry(sxy, term, next); sxy = next;
+    term = dx * az;
+    next = add(sxz, term); cxz += carry(sxz, term, next); sxz = next;
+    term = dy * ay;
+    next = add(syy, term); cyy += carry(syy, term, next); syy = next;
+    term = dy * az;
+    next = add(syz, term); cyz += carry(syz, term, next); syz = next;
+    term = dz * az;
+    next = add(szz, term); czz += carry(szz, term, next); szz = next;
+  }
+  const xy = sxy + cxy;
+  const xz = sxz + cxz;
+  const yz = syz + cyz;
+  return {
+    n,
+    means: [kx + (mx + ex), ky + (my + ey), kz + (mz + ez)],
+    sums: [
+      [sxx + cxx, xy, xz],
+      [xy, syy + cyy, yz],
+      [xz, yz, szz + czz],
+    ],
+  };
 }
