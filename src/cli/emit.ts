@@ -19,3 +19,9 @@ export function wantsColour(io: CliIo, output: string | undefined, format: strin
   const noColour = io.env["NO_COLOR"];
   return output === undefined && io.stdoutIsTerminal && format === "text" && (noColour === undefined || noColour === "");
 }
+
+/** Reports a command-line problem on stderr and gives the usage exit code. */
+export function usage(io: CliIo, message: string): ExitCode {
+  io.writeErr(`error: ${message}\n`);
+  return exitCodes.usage;
+}

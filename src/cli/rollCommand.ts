@@ -4,6 +4,7 @@
  * output, so a million windows fit in memory; records from several pairs (or shards) concatenate.
  */
 import { Command, Option } from "commander";
+import { excessReturns } from "../core/inference/bootstrapSolve.js";
 import { windowUncertainty, type WindowUncertainty } from "../core/inference/windowUncertainty.js";
 import { iterateRollSolve, rollSolveColumns, windowCount, type WindowSolution, type WindowSpec } from "../core/rolling.js";
 import { describeInputWarning } from "../input/issues.js";
@@ -12,7 +13,7 @@ import { rollCsvHeader, rollRecord, rollTextLines, writeRollCsv, type RollMeta }
 import { styleFor } from "../report/layout.js";
 import { openUnitInterval, wholeNumber } from "./arguments.js";
 import { withConfig } from "./config.js";
-import { wantsColour } from "./emit.js";
+import { usage, wantsColour } from "./emit.js";
 import { exitCodes, type ExitCode } from "./exitCodes.js";
 import { addInputOptions } from "./inputOptions.js";
 import type { CliIo, OutputSink } from "./io.js";
@@ -74,7 +75,7 @@ async function rollPair(loaded: PairTable, spec: WindowSpec, options: RollCliOpt
     return exitCodes.input;
   }
   const meta: RollMeta = { tool, input: describeInput(loaded, options), spec, weight: options.weight, dates: loaded.table.dates };
-  const excess = excessReturns(sample);
+  const excess = excessReturns({ ...sample, weight: options.weight });
   const uncertaintyAt = (w: { start: number; end: number; summary: WindowSolution["summary"] }): WindowUncertainty | null =>
     options.uncertainty ? windowUncertainty(excess.low, excess.high, w.start, w.end, w.summary, { confidence: options.confidence, longRun: options.longRun }) : null;
 
@@ -126,24 +127,6 @@ async function rollPair(loaded: PairTable, spec: WindowSpec, options: RollCliOpt
     }
   }
   return exitCodes.ok;
-}
-
-function excessReturns(sample: ReturnType<typeof sampleOf>): { low: Float64Array; high: Float64Array } {
-  const n = sample.low.length;
-  const rf = sample.riskFree;
-  const low = new Float64Array(n);
-  const high = new Float64Array(n);
-  for (let t = 0; t < n; t++) {
-    const r = typeof rf === "number" ? rf : rf[t]!;
-    low[t] = sample.low[t]! - r;
-    high[t] = sample.high[t]! - r;
-  }
-  return { low, high };
-}
-
-function usage(io: CliIo, message: string): ExitCode {
-  io.writeErr(`error: ${message}\n`);
-  return exitCodes.usage;
 }
 
 const rollExamples = `

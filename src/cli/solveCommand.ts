@@ -15,7 +15,7 @@ import type { SolveReport } from "../report/types.js";
 import { openUnitInterval, wholeNumber } from "./arguments.js";
 import { chartYChoices, writeCharts } from "./charts.js";
 import { withConfig } from "./config.js";
-import { emit, wantsColour } from "./emit.js";
+import { emit, usage, wantsColour } from "./emit.js";
 import { exitCodes, type ExitCode } from "./exitCodes.js";
 import { addInputOptions } from "./inputOptions.js";
 import type { CliIo } from "./io.js";
@@ -88,11 +88,6 @@ export async function runSolve(files: readonly string[], options: SolveCliOption
   }
   if (!several) return outcomes[0]?.code ?? exitCodes.input;
   return outcomes.every((o) => o.code === exitCodes.ok) ? exitCodes.ok : exitCodes.partial;
-}
-
-function usage(io: CliIo, message: string): ExitCode {
-  io.writeErr(`error: ${message}\n`);
-  return exitCodes.usage;
 }
 
 async function solveLoaded(load: PairLoad, options: SolveCliOptions, io: CliIo): Promise<Outcome> {

@@ -45,7 +45,7 @@ function returnImpliedCandidate(
   lambdaStdErr: number,
   diagnostics: Diagnostic[],
 ): Candidate | null {
-  if (lambda === 0 || Math.abs(lambda) < lambdaStdErr) {
+  if (marketMeanNearZero(lambda, lambdaStdErr)) {
     const tStat = lambdaStdErr > 0 ? lambda / lambdaStdErr : 0;
     diagnostics.push(diagnose({ code: "market-mean-near-zero", marketMean: lambda, tStat }));
     return null;
@@ -55,9 +55,29 @@ function returnImpliedCandidate(
   if (lowBeta < min || lowBeta > max) {
     diagnostics.push(diagnose({ code: "return-implied-outside-set", lowBeta, min, max }));
   }
-  // Outside 0 < b_low < 1/w one structural beta is not positive and no structure exists to report.
-  if (!(lowBeta > 0 && lowBeta < 1 / m.weight)) return null;
+  if (!structureExists(lowBeta, m.weight)) return null;
   return structureAt(lowBeta, m);
+}
+
+/** The mean excess market return lambda is 0 or within one standard error of 0: no ratio of means is reported. */
+export function marketMeanNearZero(lambda: number, lambdaStdErr: number): boolean {
+  return lambda === 0 || Math.abs(lambda) < lambdaStdErr;
+}
+
+/** Both structural betas are positive (0 < b_low < 1/w), so a structure exists at b_low. */
+export function structureExists(lowBeta: number, weight: number): boolean {
+  return lowBeta > 0 && lowBeta < 1 / weight;
+}
+
+/**
+ * The return-implied low beta mean excess low / lambda by the rules of findLandmarks, as a number:
+ * null when lambda is near zero or no structure exists there (for rolling windows and bootstrap
+ * replicates, which keep numbers rather than candidates and diagnostics).
+ */
+export function returnImpliedLowBeta(lowMean: number, lambda: number, lambdaStdErr: number, weight: number): number | null {
+  if (marketMeanNearZero(lambda, lambdaStdErr)) return null;
+  const lowBeta = lowMean / lambda;
+  return structureExists(lowBeta, weight) ? lowBeta : null;
 }
 
 /** Rounding can put a point computed in closed form a hair outside [min, max]; keep it on the set. */

@@ -55,7 +55,8 @@
  */
 
 import { diagnose, type Diagnostic } from "./diagnostics.js";
-import { equalNoiseLowBeta, identifiedBounds, type MomentSummary } from "./identify.js";
+import { equalNoiseLowBeta, identifiedBounds, marketMoments, type MomentSummary } from "./identify.js";
+import { returnImpliedLowBeta } from "./landmarks.js";
 import { identifySet, minimumObservations } from "./solve.js";
 import type { IdentifiedBounds, Landmarks, LineFit, Maybe } from "./types.js";
 
@@ -261,16 +262,9 @@ function writeSetColumns(
   const w = m.weight;
   const v = 1 - w;
   const clamp = (x: number): number => Math.min(Math.max(x, min), max);
-  // marketMoments(m): the CAPM beta from the (n - 1)-scaled moments, as findLandmarks uses it.
-  const marketVariance = w * w * m.lowVariance + 2 * w * v * m.covariance + v * v * m.highVariance;
-  const capmBeta = (w * m.lowVariance + v * m.covariance) / marketVariance;
+  const capmBeta = marketMoments(m).lowCapmBeta; // as findLandmarks takes it
   const lambda = w * m.lowMean + v * m.highMean;
-  const lambdaStdErr = Math.sqrt(market.variance) / Math.sqrt(n);
-  let implied = Number.NaN;
-  if (!(lambda === 0 || Math.abs(lambda) < lambdaStdErr)) {
-    const b = m.lowMean / lambda;
-    if (b > 0 && b < 1 / w) implied = b;
-  }
+  const implied = returnImpliedLowBeta(m.lowMean, lambda, Math.sqrt(market.variance) / Math.sqrt(n), w) ?? Number.NaN;
   const values = [
     min, max, bounds.highBeta.min, bounds.highBeta.max, bounds.factorVariance.min, bounds.factorVariance.max,
     max, min, clamp(equalNoiseLowBeta(m)), clamp(capmBeta),

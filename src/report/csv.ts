@@ -50,13 +50,14 @@ function cellText(value: Cell): string {
   return typeof value === "boolean" ? String(value) : exactNumber(value);
 }
 
-function row(point: string, candidate: Candidate): string {
+/** One CSV line (without the line end) for a named candidate, in the order of `csvHeader`. */
+export function candidateRow(point: string, candidate: Candidate): string {
   return [point, ...candidateColumns.map(([, value]) => cellText(value(candidate)))].map(csvField).join(",");
 }
 
 /** A CSV table of named candidates: the header, then one row per (point, candidate). */
 export function candidateCsv(rows: readonly (readonly [point: string, candidate: Candidate])[]): string {
-  const lines = [csvHeader.map(csvField).join(","), ...rows.map(([point, candidate]) => row(point, candidate))];
+  const lines = [csvHeader.map(csvField).join(","), ...rows.map(([point, candidate]) => candidateRow(point, candidate))];
   return `${lines.join("\n")}\n`;
 }
 

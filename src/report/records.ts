@@ -4,7 +4,7 @@
  * landmark rows of every record, prefixed by its file and pair) and text (the reports in order).
  */
 
-import { csvField, csvHeader, candidateCsv, namedCandidates } from "./csv.js";
+import { candidateRow, csvField, csvHeader, namedCandidates } from "./csv.js";
 import { assertJsonSafe, schemaVersion, toSolveOutput } from "./json.js";
 import { renderText } from "./text.js";
 import type { RenderOptions, SolveReport } from "./types.js";
@@ -48,8 +48,7 @@ export function renderRecordsCsv(records: readonly SolveRecord[]): string {
     if (record.kind !== "report" || record.report.solution.bounds === null) continue;
     const { input, solution } = record.report;
     const prefix = [input.source, input.lowColumn, input.highColumn].map(csvField).join(",");
-    const body = candidateCsv(namedCandidates(solution.grid, solution.landmarks)).split("\n").slice(1, -1);
-    for (const row of body) lines.push(`${prefix},${row}`);
+    for (const [point, candidate] of namedCandidates(solution.grid, solution.landmarks)) lines.push(`${prefix},${candidateRow(point, candidate)}`);
   }
   return `${lines.join("\n")}\n`;
 }

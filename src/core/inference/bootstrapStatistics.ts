@@ -10,7 +10,8 @@
  * replicate (no set when C <= 0, no return-implied point) are NaN there.
  */
 
-import type { MomentSummary } from "../identify.js";
+import { equalNoiseLowBeta, type MomentSummary } from "../identify.js";
+import { returnImpliedLowBeta } from "../landmarks.js";
 
 export const bootstrapQuantities = [
   "lowBetaMin",
@@ -57,13 +58,8 @@ export function writeStatistics(m: ResampleMoments, out: Float64Array, offset: n
     lower = c / (v * vh + w * c);
     upper = Math.max(lower, vl / (w * vl + v * c));
     capmConsistent = Math.min(Math.max(lowBeta, lower), upper);
-    const d = vh - vl;
-    const ratio = (d + Math.hypot(d, 2 * c)) / (2 * c);
-    equalNoise = Math.min(Math.max(1 / (w + v * ratio), lower), upper);
-    if (marketMean !== 0 && Math.abs(marketMean) >= Math.sqrt(marketVariance / m.n)) {
-      const b = m.lowMean / marketMean;
-      if (b > 0 && b < 1 / w) returnImplied = b;
-    }
+    equalNoise = Math.min(Math.max(equalNoiseLowBeta(m), lower), upper);
+    returnImplied = returnImpliedLowBeta(m.lowMean, marketMean, Math.sqrt(marketVariance / m.n), w) ?? Number.NaN;
   }
   let q = offset;
   out[q] = lower;
