@@ -134,22 +134,82 @@ export function compensatedSum(values: Iterable<number>): number {
  * the same operations in the same order as the general code, so the same results bit for bit.
  */
 function crossProducts3(x: Float64Array, y: Float64Array, z: Float64Array): CrossProducts {
+  if (y.length !== x.length || z.length !== x.length) throw new RangeError(`crossProducts: series lengths differ`);
+  return welford3(x, y, z, 0, 0);
+}
+
+/**
+ * The moments of solve's three excess series, without building them: low - r, high - r and the
+ * market w (low - r) + (1 - w)(high - r), where r is the risk-free return (one number, or one per
+ * period). Equal bit for bit to `crossProducts` of the three series computed first.
+ */
+export function excessCrossProducts(low: ArrayLike<number>, high: ArrayLike<number>, riskFree: number | ArrayLike<number>, weight: number): CrossProducts {
+  const n = low.length;
+  if (high.length !== n || (typeof riskFree !== "number" && riskFree.length !== n)) throw new RangeError(`excessCrossProducts: series lengths differ`);
+  return welford3(low, high, null, riskFree, weight);
+}
+
+/** sum + term, as its own step so that each update below reads like the general loop's. */
+const add = (sum: number, term: number): number => sum + term;
+/** The rounding error of next = sum + term (Neumaier). Module-level, so optimised code inlines it. */
+const carry = (sum: number, term: number, next: number): number => (Math.abs(sum) >= Math.abs(term) ? sum - next + term : term - next + sum);
+
+/**
+ * The unrolled three-series Welford pass on (x - r, y - r, z), with z = w (x - r) + (1 - w)(y - r)
+ * when null; r = 0 gives crossProducts3 exactly (x - 0 is x). The rows are taken in chunks by a
+ * small function (`welfordChunk`) that V8 optimises as a whole after a few calls: one long loop would
+ * run in on-stack-replaced code, which boxes its doubles and is several times slower.
+ */
+function welford3(x: ArrayLike<number>, y: ArrayLike<number>, z: Float64Array | null, riskFree: number | ArrayLike<number>, weight: number): CrossProducts {
   const n = x.length;
-  if (y.length !== n || z.length !== n) throw new RangeError(`crossProducts: series lengths differ`);
-  const kx = n > 0 ? x[0]! : 0;
-  const ky = n > 0 ? y[0]! : 0;
-  const kz = n > 0 ? z[0]! : 0;
-  let mx = 0, my = 0, mz = 0, ex = 0, ey = 0, ez = 0;
-  // Sums s_ab and their carried errors c_ab (upper triangle).
-  let sxx = 0, sxy = 0, sxz = 0, syy = 0, syz = 0, szz = 0;
-  let cxx = 0, cxy = 0, cxz = 0, cyy = 0, cyz = 0, czz = 0;
-  const add = (sum: number, term: number): number => sum + term;
-  const carry = (sum: number, term: number, next: number): number => (Math.abs(sum) >= Math.abs(term) ? sum - next + term : term - next + sum);
-  for (let t = 0; t < n; t++) {
+  const rate = typeof riskFree === "number" ? riskFree : 0;
+  const rates = typeof riskFree === "number" ? null : riskFree;
+  const r0 = rates === null ? rate : n > 0 ? rates[0]! : 0;
+  const kx = n > 0 ? x[0]! - r0 : 0;
+  const ky = n > 0 ? y[0]! - r0 : 0;
+  const kz = n > 0 ? (z === null ? weight * kx + (1 - weight) * ky : z[0]!) : 0;
+  const state = new Float64Array(STATE_SIZE);
+  const shift = Float64Array.of(kx, ky, kz);
+  for (let from = 0; from < n; from += CHUNK) welfordChunk(x, y, z, rates, rate, weight, shift, from, Math.min(n, from + CHUNK), state);
+  // A running value plus its carried error: state[value] + state[error].
+  const total = (value: number, error: number): number => state[value]! + state[error]!;
+  const xy = total(7, 13);
+  const xz = total(8, 14);
+  const yz = total(10, 16);
+  return {
+    n,
+    means: [kx + total(0, 3), ky + total(1, 4), kz + total(2, 5)],
+    sums: [
+      [total(6, 12), xy, xz],
+      [xy, total(9, 15), yz],
+      [xz, yz, total(11, 17)],
+    ],
+  };
+}
+
+/** Rows per call of welfordChunk (and of the other chunked passes): small enough to be optimised early. */
+export const CHUNK = 1024;
+/** Running means m, their errors e, sums s and their errors c: mx my mz ex ey ez, sxx sxy sxz syy syz szz, cxx ... czz. */
+const STATE_SIZE = 18;
+
+/** Rows [from, to) of welford3, continuing from and updating `state`. */
+function welfordChunk(
+  x: ArrayLike<number>, y: ArrayLike<number>, z: Float64Array | null, rates: ArrayLike<number> | null, rate: number, weight: number,
+  shift: Float64Array, from: number, to: number, state: Float64Array,
+): void {
+  const other = 1 - weight;
+  const kx = shift[0]!, ky = shift[1]!, kz = shift[2]!;
+  let mx = state[0]!, my = state[1]!, mz = state[2]!, ex = state[3]!, ey = state[4]!, ez = state[5]!;
+  let sxx = state[6]!, sxy = state[7]!, sxz = state[8]!, syy = state[9]!, syz = state[10]!, szz = state[11]!;
+  let cxx = state[12]!, cxy = state[13]!, cxz = state[14]!, cyy = state[15]!, cyz = state[16]!, czz = state[17]!;
+  for (let t = from; t < to; t++) {
     const inverseCount = 1 / (t + 1);
-    const vx = x[t]! - kx;
-    const vy = y[t]! - ky;
-    const vz = z[t]! - kz;
+    const r = rates === null ? rate : rates[t]!;
+    const lt = x[t]! - r;
+    const ht = y[t]! - r;
+    const vx = lt - kx;
+    const vy = ht - ky;
+    const vz = (z === null ? weight * lt + other * ht : z[t]!) - kz;
     const dx = vx - (mx + ex);
     const dy = vy - (my + ey);
     const dz = vz - (mz + ez);
@@ -181,16 +241,7 @@ function crossProducts3(x: Float64Array, y: Float64Array, z: Float64Array): Cros
     term = dz * az;
     next = add(szz, term); czz += carry(szz, term, next); szz = next;
   }
-  const xy = sxy + cxy;
-  const xz = sxz + cxz;
-  const yz = syz + cyz;
-  return {
-    n,
-    means: [kx + (mx + ex), ky + (my + ey), kz + (mz + ez)],
-    sums: [
-      [sxx + cxx, xy, xz],
-      [xy, syy + cyy, yz],
-      [xz, yz, szz + czz],
-    ],
-  };
+  state[0] = mx; state[1] = my; state[2] = mz; state[3] = ex; state[4] = ey; state[5] = ez;
+  state[6] = sxx; state[7] = sxy; state[8] = sxz; state[9] = syy; state[10] = syz; state[11] = szz;
+  state[12] = cxx; state[13] = cxy; state[14] = cxz; state[15] = cyy; state[16] = cyz; state[17] = czz;
 }

@@ -14,7 +14,7 @@
  * Greene, W. H., Econometric Analysis, ch. 3-4 (standard results); NIST StRD "Norris" for the check.
  */
 
-import { crossProducts } from "./moments.js";
+import { CHUNK, crossProducts } from "./moments.js";
 import { studentTTwoSidedP } from "./studentT.js";
 import type { LineFit } from "./types.js";
 
@@ -82,4 +82,58 @@ export function residualSumOfSquares(x: ArrayLike<number>, y: ArrayLike<number>,
     sum = next;
   }
   return sum + compensation;
+}
+
+/**
+ * The residual sums of squares of solve's two CAPM fits in one pass, from the raw series: y = low - r
+ * (then high - r) on x = w (low - r) + (1 - w)(high - r), formed on the fly exactly as
+ * `excessCrossProducts` forms them, so each equals `residualSumOfSquares` on the built series bit for
+ * bit. In chunks of rows, for the reason given in moments.ts (`CHUNK`).
+ */
+export function excessResidualSums(
+  low: ArrayLike<number>,
+  high: ArrayLike<number>,
+  riskFree: number | ArrayLike<number>,
+  weight: number,
+  xbar: number,
+  lowLine: { readonly ybar: number; readonly beta: number },
+  highLine: { readonly ybar: number; readonly beta: number },
+): [number, number] {
+  const rates = typeof riskFree === "number" ? null : riskFree;
+  const rate = typeof riskFree === "number" ? riskFree : 0;
+  // Sums and compensations of the low and the high residuals.
+  const state = new Float64Array(4);
+  const fit = Float64Array.of(weight, xbar, lowLine.ybar, lowLine.beta, highLine.ybar, highLine.beta);
+  for (let from = 0; from < low.length; from += CHUNK) residualChunk(low, high, rates, rate, fit, from, Math.min(low.length, from + CHUNK), state);
+  return [state[0]! + state[1]!, state[2]! + state[3]!];
+}
+
+/** Rows [from, to) of excessResidualSums, continuing from and updating `state`. */
+function residualChunk(
+  low: ArrayLike<number>, high: ArrayLike<number>, rates: ArrayLike<number> | null, rate: number, fit: Float64Array,
+  from: number, to: number, state: Float64Array,
+): void {
+  const weight = fit[0]!, xbar = fit[1]!, lowBar = fit[2]!, lowBeta = fit[3]!, highBar = fit[4]!, highBeta = fit[5]!;
+  const other = 1 - weight;
+  let lowSum = state[0]!, lowCompensation = state[1]!, highSum = state[2]!, highCompensation = state[3]!;
+  for (let t = from; t < to; t++) {
+    const r = rates === null ? rate : rates[t]!;
+    const l = low[t]! - r;
+    const h = high[t]! - r;
+    const m = weight * l + other * h;
+    const el = l - lowBar - lowBeta * (m - xbar);
+    let term = el * el;
+    let next = lowSum + term;
+    lowCompensation += lowSum >= term ? lowSum - next + term : term - next + lowSum;
+    lowSum = next;
+    const eh = h - highBar - highBeta * (m - xbar);
+    term = eh * eh;
+    next = highSum + term;
+    highCompensation += highSum >= term ? highSum - next + term : term - next + highSum;
+    highSum = next;
+  }
+  state[0] = lowSum;
+  state[1] = lowCompensation;
+  state[2] = highSum;
+  state[3] = highCompensation;
 }

@@ -11,8 +11,8 @@
 import { diagnose, type Diagnostic } from "./diagnostics.js";
 import { candidateGrid, identifiedBounds, marketMoments, type MomentSummary } from "./identify.js";
 import { findLandmarks } from "./landmarks.js";
-import { crossProducts } from "./moments.js";
-import { lineFitFromSums, residualSumOfSquares } from "./regression.js";
+import { excessCrossProducts } from "./moments.js";
+import { excessResidualSums, lineFitFromSums, type LineSums } from "./regression.js";
 import { failure, success, type Result } from "./result.js";
 import type { ReturnSample, SampleMoments, SeriesMoments, Solution, SolveOptions } from "./types.js";
 
@@ -32,8 +32,10 @@ export function solve(sample: ReturnSample, options: SolveOptions = {}): Result<
   if (n < minimumObservations) {
     return failure([diagnose({ code: "too-few-observations", observations: n, minimum: minimumObservations })]);
   }
-  const { low, high, market } = excessSeries(sample, weight);
-  const cp = crossProducts([low, high, market]);
+  const riskFree = sample.riskFree ?? 0;
+  if (typeof riskFree !== "number" && riskFree.length !== n) throw new RangeError("solve: riskFree differs in length");
+  // The excess series low - rf, high - rf and the market are formed on the fly, never stored.
+  const cp = excessCrossProducts(sample.low, sample.high, riskFree, weight);
   const variance = (i: number): number => cp.sums[i]![i]! / (n - 1);
   const covariance = (i: number, j: number): number => cp.sums[i]![j]! / (n - 1);
   const names = ["low", "high", "market"] as const;
@@ -53,12 +55,12 @@ export function solve(sample: ReturnSample, options: SolveOptions = {}): Result<
     covariance: { lowHigh: covariance(0, 1), lowMarket: covariance(0, 2), highMarket: covariance(1, 2) },
     correlation: { lowHigh: correlation(0, 1), lowMarket: correlation(0, 2), highMarket: correlation(1, 2) },
   };
-  // Both CAPM fits from the same centred sums; only the residuals need another pass each.
-  const fit = (i: number, series: Float64Array) => {
-    const sums = { n, xbar: cp.means[2]!, ybar: cp.means[i]!, sxx: cp.sums[2]![2]!, sxy: cp.sums[i]![2]!, syy: cp.sums[i]![i]! };
-    return lineFitFromSums(sums, residualSumOfSquares(market, series, sums.xbar, sums.ybar, sums.sxy / sums.sxx));
-  };
-  const capm = { low: fit(0, low), high: fit(1, high) };
+  // Both CAPM fits from the same centred sums; their residuals take one more pass together.
+  const lineSums = (i: number) => ({ n, xbar: cp.means[2]!, ybar: cp.means[i]!, sxx: cp.sums[2]![2]!, sxy: cp.sums[i]![2]!, syy: cp.sums[i]![i]! });
+  const [lowSums, highSums] = [lineSums(0), lineSums(1)];
+  const line = (sums: LineSums) => ({ ybar: sums.ybar, beta: sums.sxy / sums.sxx });
+  const [lowSsr, highSsr] = excessResidualSums(sample.low, sample.high, riskFree, weight, cp.means[2]!, line(lowSums), line(highSums));
+  const capm = { low: lineFitFromSums(lowSums, lowSsr), high: lineFitFromSums(highSums, highSsr) };
   const summary: MomentSummary = {
     weight,
     lowMean: moments.low.mean,
@@ -110,24 +112,6 @@ function firstNonFinite(value: unknown): string | null {
     if (found !== null) return found === "" ? key : `${key}.${found}`;
   }
   return null;
-}
-
-function excessSeries(sample: ReturnSample, weight: number) {
-  const n = sample.low.length;
-  const rf = sample.riskFree ?? 0;
-  if (typeof rf !== "number" && rf.length !== n) throw new RangeError("solve: riskFree differs in length");
-  const low = new Float64Array(n);
-  const high = new Float64Array(n);
-  const market = new Float64Array(n);
-  for (let t = 0; t < n; t++) {
-    const r = typeof rf === "number" ? rf : rf[t]!;
-    const l = sample.low[t]! - r;
-    const h = sample.high[t]! - r;
-    low[t] = l;
-    high[t] = h;
-    market[t] = weight * l + (1 - weight) * h;
-  }
-  return { low, high, market };
 }
 
 export { marketMoments };

@@ -1,18 +1,66 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { crossProducts } from "../../src/core/moments.js";
+import { crossProducts, excessCrossProducts } from "../../src/core/moments.js";
+import { excessResidualSums, residualSumOfSquares } from "../../src/core/regression.js";
+
+const finite = fc.double({ min: -1e3, max: 1e3, noNaN: true, noDefaultInfinity: true });
+const rowsOf = (width: number) => fc.array(fc.array(finite, { minLength: width, maxLength: width }), { minLength: 1, maxLength: 60 });
+const columnOf = (rows: number[][], i: number): number[] => rows.map((r) => r[i]!);
 
 describe("crossProducts", () => {
   it("gives the same bits from the unrolled three-series path (Float64Array) and the general path", () => {
-    const finite = fc.double({ min: -1e3, max: 1e3, noNaN: true, noDefaultInfinity: true });
     fc.assert(
-      fc.property(fc.array(fc.tuple(finite, finite, finite), { minLength: 1, maxLength: 60 }), (rows) => {
-        const columns = [0, 1, 2].map((i) => rows.map((r) => r[i]!));
+      fc.property(rowsOf(3), (rows) => {
+        const columns = [0, 1, 2].map((i) => columnOf(rows, i));
         const unrolled = crossProducts(columns.map((c) => Float64Array.from(c)));
         const general = crossProducts(columns); // plain arrays take the general loop
         expect(unrolled).toEqual(general); // toEqual compares numbers with Object.is: bit for bit
       }),
       { seed: 20261202, numRuns: 300 },
     );
+  });
+});
+
+describe("the excess passes of solve (series formed on the fly)", () => {
+  const weight = fc.double({ min: 0.01, max: 0.99, noNaN: true });
+  // Each case: rows of (low, high, rf), the weight, and whether rf is one number (the first row's) or a series.
+  const cases = fc.tuple(rowsOf(3), weight, fc.boolean());
+
+  /** The three excess series built first, as solve did before the fused passes. */
+  function built(rows: number[][], w: number, constantRate: boolean) {
+    const rf = constantRate ? rows[0]![2]! : Float64Array.from(columnOf(rows, 2));
+    const rate = (t: number): number => (typeof rf === "number" ? rf : rf[t]!);
+    const low = Float64Array.from(rows, (r, t) => r[0]! - rate(t));
+    const high = Float64Array.from(rows, (r, t) => r[1]! - rate(t));
+    const market = Float64Array.from(low, (l, t) => w * l + (1 - w) * high[t]!);
+    return { rf, low, high, market, raw: { low: Float64Array.from(columnOf(rows, 0)), high: Float64Array.from(columnOf(rows, 1)) } };
+  }
+
+  it("excessCrossProducts equals crossProducts of the built series bit for bit", () => {
+    fc.assert(
+      fc.property(cases, ([rows, w, constantRate]) => {
+        const { rf, low, high, market, raw } = built(rows, w, constantRate);
+        expect(excessCrossProducts(raw.low, raw.high, rf, w)).toEqual(crossProducts([low, high, market]));
+      }),
+      { seed: 20261203, numRuns: 300 },
+    );
+  });
+
+  it("excessResidualSums equals residualSumOfSquares of each fit on the built series bit for bit", () => {
+    fc.assert(
+      fc.property(cases, fc.double({ min: -3, max: 3, noNaN: true }), fc.double({ min: -3, max: 3, noNaN: true }), ([rows, w, constantRate], lowBeta, highBeta) => {
+        const { rf, low, high, market, raw } = built(rows, w, constantRate);
+        const cp = crossProducts([low, high, market]);
+        const [xbar, lowBar, highBar] = [cp.means[2]!, cp.means[0]!, cp.means[1]!];
+        const sums = excessResidualSums(raw.low, raw.high, rf, w, xbar, { ybar: lowBar, beta: lowBeta }, { ybar: highBar, beta: highBeta });
+        expect(sums).toEqual([residualSumOfSquares(market, low, xbar, lowBar, lowBeta), residualSumOfSquares(market, high, xbar, highBar, highBeta)]);
+      }),
+      { seed: 20261204, numRuns: 300 },
+    );
+  });
+
+  it("refuses series of different lengths", () => {
+    expect(() => excessCrossProducts([1, 2, 3], [1, 2], 0, 0.5)).toThrow(RangeError);
+    expect(() => excessCrossProducts([1, 2, 3], [1, 2, 3], [0, 0], 0.5)).toThrow(RangeError);
   });
 });
