@@ -7,7 +7,7 @@
  */
 import { dirname, isAbsolute, join } from "node:path";
 import type { Command } from "commander";
-import { z } from "zod";
+import * as z from "zod";
 import { failure, success, type Result } from "../core/result.js";
 import type { CliIo } from "./io.js";
 import type { CliIssue } from "./messages.js";

@@ -2,7 +2,7 @@
  * The options of `solve`: one set of constants feeds commander's choices and defaults, the zod schema
  * that validates the merged options, and the TypeScript types.
  */
-import { z } from "zod";
+import * as z from "zod";
 import { frequencies } from "../core/calendar.js";
 import { chartYChoices } from "./charts.js";
 import { defaultSteps, defaultWeight } from "../core/solve.js";
