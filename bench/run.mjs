@@ -3,7 +3,7 @@
 // Each case: one untimed warm-up of each side, then N paired rounds (ours and the peer interleaved,
 // the order alternating between rounds); wall time of the whole process (start-up included) and peak
 // RSS from /usr/bin/time (%M) when present, else from a wrapper reading process.resourceUsage().
-// Data files are generated into a temporary folder with `node dist/cli.js simulate` and removed after.
+// Data files are generated into a temporary folder with `node dist/cli.cjs simulate` and removed after.
 import { execFileSync, spawnSync } from "node:child_process";
 import { existsSync, mkdtempSync, openSync, closeSync, fstatSync, readFileSync, readSync, rmSync, writeFileSync, createWriteStream } from "node:fs";
 import { cpus, tmpdir, totalmem, platform, release } from "node:os";
@@ -15,7 +15,7 @@ const root = fileURLToPath(new URL("..", import.meta.url));
 const benchDir = join(root, "bench");
 const roundsArg = process.argv.indexOf("--rounds");
 const rounds = roundsArg > 0 ? Number(process.argv[roundsArg + 1]) : 7;
-const cli = join(root, "dist", "cli.js");
+const cli = join(root, "dist", "cli.cjs");
 if (!existsSync(cli)) execFileSync("npm", ["run", "build"], { cwd: root, stdio: "inherit" });
 const tmp = mkdtempSync(join(tmpdir(), "betabound-bench-"));
 const log = (message) => process.stderr.write(`${message}\n`);
@@ -243,7 +243,7 @@ md += `- Machine: ${cpus()[0]?.model ?? "unknown"}, ${cpus().length} cores, ${(t
 md += `- Node ${process.version}; Python ${pythonVersion[0]}, numpy ${pythonVersion[1]}\n`;
 md += `- Date: ${new Date().toISOString()}\n`;
 md += `- Method: one untimed warm-up per side, then ${rounds} paired rounds (ours and numpy interleaved, order alternating); wall time of the whole process including interpreter start-up, output to a file; peak RSS by ${hasTime ? "/usr/bin/time -f %M" : "process.resourceUsage().maxRSS in a wrapper"}.\n`;
-md += `- Data: generated per run with \`node dist/cli.js simulate ${simulateArgs.join(" ")}\` (2,520 rows, seed 1, full precision, ${(sizes.daily / 1024).toFixed(0)} KiB; 1,000,000 rows, ${(sizes.big / 2 ** 20).toFixed(1)} MiB, seed 2, --digits 9, plus rf and a fourth numeric column).\n\n`;
+md += `- Data: generated per run with \`node dist/cli.cjs simulate ${simulateArgs.join(" ")}\` (2,520 rows, seed 1, full precision, ${(sizes.daily / 1024).toFixed(0)} KiB; 1,000,000 rows, ${(sizes.big / 2 ** 20).toFixed(1)} MiB, seed 2, --digits 9, plus rf and a fourth numeric column).\n\n`;
 md += `| case | ours median (min-max) s | numpy median (min-max) s | ratio ours/numpy | target | peak RSS ours / numpy MB | met |\n|---|---|---|---|---|---|---|\n`;
 for (const r of results) {
   if (r.skipped) {

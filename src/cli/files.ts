@@ -3,7 +3,6 @@
  * renamed over the target, so a failed or interrupted run never leaves a partial file and never
  * damages the previous one.
  */
-import { randomBytes } from "node:crypto";
 import { closeSync, openSync, readFileSync, renameSync, unlinkSync, writeSync } from "node:fs";
 import { rename, unlink, writeFile } from "node:fs/promises";
 import { basename, dirname, join } from "node:path";
@@ -29,8 +28,17 @@ async function readStream(stream: NodeJS.ReadableStream): Promise<Uint8Array> {
   return Buffer.concat(chunks);
 }
 
+let temporaries = 0;
+
+/**
+ * A name no other writer uses: the process id and a counter make it unique on this host, the random
+ * part across hosts sharing a folder; files are created exclusively ("wx"), so a clash fails rather
+ * than overwrites.
+ */
 function temporaryName(path: string): string {
-  return join(dirname(path), `.${basename(path)}.betabound-${process.pid}-${randomBytes(4).toString("hex")}.tmp`);
+  temporaries += 1;
+  const random = Math.floor(Math.random() * 0x1_0000_0000).toString(16).padStart(8, "0");
+  return join(dirname(path), `.${basename(path)}.betabound-${process.pid}-${temporaries}-${random}.tmp`);
 }
 
 /** A sink for long outputs: chunks go to stdout, or to a temporary file renamed over `path` on close. */

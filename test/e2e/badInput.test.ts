@@ -10,7 +10,7 @@ import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 
 const root = new URL("../../", import.meta.url).pathname;
-const cli = join(root, "dist/cli.js");
+const cli = join(root, "dist/cli.cjs");
 const scratch = mkdtempSync(join(tmpdir(), "betabound-bad-"));
 const header = "date,low,high";
 const good = [header, "2024-01-31,0.01,0.02", "2024-02-29,-0.02,-0.03", "2024-03-31,0.015,0.01", "2024-04-30,0.004,0.012"];

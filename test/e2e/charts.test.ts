@@ -7,7 +7,7 @@ import { XMLValidator } from "fast-xml-parser";
 import { describe, expect, it } from "vitest";
 
 const root = new URL("../../", import.meta.url).pathname;
-const cli = join(root, "dist/cli.js");
+const cli = join(root, "dist/cli.cjs");
 const trace = join(root, "test/e2e/support/traceImports.mjs");
 const monthly = join(root, "examples/harbourline-monthly.csv");
 const books = ["--low", "Stillwater Low Vol", "--high", "Kestrel High Beta", "--rf", "0.002"];

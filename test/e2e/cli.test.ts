@@ -1,5 +1,5 @@
 /**
- * End-to-end: the built executable (dist/cli.js, made by `npm run build`, which `npm test` runs first),
+ * End-to-end: the built executable (dist/cli.cjs, made by `npm run build`, which `npm test` runs first),
  * as a user runs it, in a scratch folder.
  */
 import { execFileSync, spawnSync } from "node:child_process";
@@ -9,7 +9,7 @@ import { join } from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
 
 const root = new URL("../../", import.meta.url).pathname;
-const cli = join(root, "dist/cli.js");
+const cli = join(root, "dist/cli.cjs");
 const monthly = join(root, "examples/harbourline-monthly.csv");
 const books = ["--low", "Stillwater Low Vol", "--high", "Kestrel High Beta"];
 
@@ -24,7 +24,7 @@ function betabound(args: string[], input?: string) {
 
 let scratch = "";
 beforeAll(() => {
-  expect(existsSync(cli), "dist/cli.js is missing: run npm run build").toBe(true);
+  expect(existsSync(cli), "dist/cli.cjs is missing: run npm run build").toBe(true);
   scratch = mkdtempSync(join(tmpdir(), "betabound-e2e-"));
 });
 

@@ -8,6 +8,7 @@
  */
 
 import type { Mark, Spec } from "vega";
+import { loadVega } from "./loadVega.js";
 import { printable } from "../layout.js";
 
 /**
@@ -182,7 +183,7 @@ export function escapeXml(text: string): string {
  * (Vega's string renderer writes neither), so screen readers announce what the chart shows.
  */
 export async function renderSvg(spec: Spec, title: string): Promise<string> {
-  const vega = await import("vega");
+  const vega = await loadVega();
   const view = new vega.View(vega.parse(spec), { renderer: "none", logLevel: vega.None });
   let svg: string;
   try {

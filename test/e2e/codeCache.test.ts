@@ -1,0 +1,56 @@
+/**
+ * End-to-end: the executable loads its bundle through V8's code cache (src/cli/bundleLoader.ts), and
+ * runs the same without it: with the cache missing, made from another bundle, or unusable.
+ */
+import { spawnSync } from "node:child_process";
+import { copyFileSync, mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { describe, expect, it } from "vitest";
+
+const root = new URL("../../", import.meta.url).pathname;
+const dist = join(root, "dist");
+const monthly = join(root, "examples/harbourline-monthly.csv");
+const args = ["solve", monthly, "--low", "Stillwater Low Vol", "--high", "Kestrel High Beta", "--format", "json"];
+
+interface Loader {
+  loadCliBundle(dir: string): { cache: string };
+}
+const loader = (await import(join(dist, "bundleLoader.js"))) as Loader;
+
+function run(dir: string) {
+  const result = spawnSync(process.execPath, [join(dir, "cli.cjs"), ...args], { encoding: "utf8" });
+  return { code: result.status, stdout: result.stdout, stderr: result.stderr };
+}
+
+/** A copy of the executable in a scratch folder, with `cache` as its code cache (none when null). */
+function copyWith(cache: Buffer | null): string {
+  const dir = mkdtempSync(join(tmpdir(), "betabound-cache-"));
+  for (const file of ["cli.cjs", "cli-bundle.cjs"]) copyFileSync(join(dist, file), join(dir, file));
+  if (cache !== null) writeFileSync(join(dir, "cli-bundle.cache"), cache);
+  return dir;
+}
+
+describe("the code cache", () => {
+  const built = readFileSync(join(dist, "cli-bundle.cache"));
+  const header = built.subarray(0, built.indexOf(10) + 1);
+  const expected = run(dist);
+
+  it("is written by the build and accepted by V8", () => {
+    expect(loader.loadCliBundle(dist).cache).toBe("used");
+    expect(expected.code).toBe(0);
+  });
+
+  it.each([
+    ["absent", null],
+    ["stale", Buffer.concat([Buffer.from("0".repeat(header.length - 1) + "\n"), built.subarray(header.length)])],
+    ["rejected", Buffer.concat([header, Buffer.from("not a code cache")])],
+  ])("is %s: the bundle is compiled from source, with the same output", (state, cache) => {
+    const dir = copyWith(cache);
+    expect(loader.loadCliBundle(dir).cache).toBe(state);
+    const result = run(dir);
+    expect(result.code).toBe(0);
+    expect(result.stderr).toBe(expected.stderr);
+    expect(result.stdout).toBe(expected.stdout);
+  });
+});
