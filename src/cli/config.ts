@@ -11,18 +11,19 @@ import * as z from "zod";
 import { failure, success, type Result } from "../core/result.js";
 import type { CliIo } from "./io.js";
 import type { CliIssue } from "./messages.js";
+import { once } from "./options.js";
 
-const pairEntry = z.union([
+const pairEntry = once(() => z.union([
   z.string().regex(/^[^:]+:.+$/, "must be \"LOW:HIGH\""),
   z.strictObject({ low: z.string().min(1), high: z.string().min(1) }),
-]);
+]));
 
 /** Values a config file may hold; types only here, ranges are checked with the merged options. */
-export const configFileSchema = z.strictObject({
+export const configFileSchema = once(() => z.strictObject({
   files: z.array(z.string().min(1)).min(1).optional(),
   low: z.string().optional(),
   high: z.string().optional(),
-  pair: z.array(pairEntry).optional(),
+  pair: z.array(pairEntry()).optional(),
   lows: z.array(z.string()).optional(),
   highs: z.array(z.string()).optional(),
   date: z.string().optional(),
@@ -65,9 +66,9 @@ export const configFileSchema = z.strictObject({
   chart: z.string().optional(),
   chartY: z.string().optional(),
   report: z.string().optional(),
-});
+}));
 
-export type ConfigFile = z.infer<typeof configFileSchema>;
+export type ConfigFile = z.infer<ReturnType<typeof configFileSchema>>;
 
 /** Reads and validates a config file; paths in it are made relative to its folder. */
 export async function readConfig(path: string, io: CliIo): Promise<Result<ConfigFile, CliIssue>> {
@@ -79,7 +80,7 @@ export async function readConfig(path: string, io: CliIo): Promise<Result<Config
   } catch (error) {
     return failure({ code: "invalid-config", path, at: "", reason: `not valid JSON (${error instanceof Error ? error.message : String(error)})` });
   }
-  const parsed = configFileSchema.safeParse(data);
+  const parsed = configFileSchema().safeParse(data);
   if (!parsed.success) {
     const issue = parsed.error.issues[0];
     const at = (issue?.path ?? []).map(String).join(".");

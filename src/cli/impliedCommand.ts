@@ -46,7 +46,7 @@ export function impliedCommand(io: CliIo, setExit: (code: ExitCode) => void): Co
     .option("--output <path>", "write the report to this file (atomically) instead of standard output")
     .addHelpText("after", impliedExamples)
     .action(async (raw: Record<string, unknown>) => {
-      const parsed = impliedOptionsSchema.safeParse(raw);
+      const parsed = impliedOptionsSchema().safeParse(raw);
       if (!parsed.success) {
         io.writeErr(`error: ${describeOptionIssue(parsed.error)}\n`);
         setExit(exitCodes.usage);

@@ -57,13 +57,20 @@ export const solveFormats = [...reportFormats, "jsonl"] as const;
 export const inputKinds = ["returns", "prices", "log-returns"] as const;
 export const missingPolicies = ["drop", "error"] as const;
 
-const pairSchema = z.object({ low: z.string().min(1), high: z.string().min(1) }).strict();
+/**
+ * A value built on first use. The schemas below are built only for the command that runs: building
+ * every command's schemas up front costs start-up time on every run.
+ */
+export function once<T>(build: () => T): () => T {
+  let value: T | undefined;
+  return () => (value ??= build());
+}
 
 /** Options shared by every command that reads return files: which books, and how to read them. */
-export const inputOptionsShape = {
+export const inputOptionsShape = once(() => ({
   low: z.string().min(1).optional(),
   high: z.string().min(1).optional(),
-  pair: z.array(pairSchema).optional(),
+  pair: z.array(z.object({ low: z.string().min(1), high: z.string().min(1) }).strict()).optional(),
   lows: z.array(z.string().min(1)).optional(),
   highs: z.array(z.string().min(1)).optional(),
   date: z.string().min(1).optional(),
@@ -83,10 +90,10 @@ export const inputOptionsShape = {
   idColumn: z.string().min(1).optional(),
   valueColumn: z.string().min(1).optional(),
   decimalComma: z.boolean(),
-};
+}));
 
 /** The input options after validation (what the pair loader needs). */
-export type InputCliOptions = z.infer<z.ZodObject<typeof inputOptionsShape>>;
+export type InputCliOptions = z.infer<z.ZodObject<ReturnType<typeof inputOptionsShape>>>;
 
 /** Cross-field rules of the input options, for any schema that spreads inputOptionsShape. */
 export function refineInputOptions<T extends z.ZodType<InputCliOptions>>(schema: T) {
@@ -106,10 +113,10 @@ export function refineInputOptions<T extends z.ZodType<InputCliOptions>>(schema:
     });
 }
 
-export const solveOptionsSchema = refineInputOptions(
+export const solveOptionsSchema = once(() => refineInputOptions(
   z
     .object({
-      ...inputOptionsShape,
+      ...inputOptionsShape(),
       steps: z.number().int().min(2).max(maximumSteps),
       format: z.enum(solveFormats),
       uncertainty: z.boolean(),
@@ -134,14 +141,14 @@ export const solveOptionsSchema = refineInputOptions(
 ).refine((o) => o.intervalSource !== "bootstrap" || o.bootstrap >= 2, {
   path: ["intervalSource"],
   message: "bootstrap standard errors need --bootstrap with at least 2 replicates",
-});
+}));
 
-export type SolveCliOptions = z.infer<typeof solveOptionsSchema>;
+export type SolveCliOptions = z.infer<ReturnType<typeof solveOptionsSchema>>;
 
 export const simulateFormats = ["csv", "jsonl"] as const;
 
 /** A structure given on the command line (simulate, implied): per period, decimal. */
-const structureShape = {
+const structureShape = once(() => ({
   lowBeta: z.number().positive(),
   factorVol: z.number().positive(),
   factorMean: z.number(),
@@ -149,7 +156,7 @@ const structureShape = {
   highNoiseVol: z.number().nonnegative(),
   weight: z.number().gt(0).lt(1),
   rf: z.number(),
-};
+}));
 
 /** b_low < 1/w, so that the high book's structural beta is positive. */
 const positiveHighBeta: [(o: { lowBeta: number; weight: number }) => boolean, { path: PropertyKey[]; message: string }] = [
@@ -158,9 +165,9 @@ const positiveHighBeta: [(o: { lowBeta: number; weight: number }) => boolean, { 
 ];
 
 /** The options of `simulate` after commander's parsing (each number already checked by its argParser). */
-export const simulateOptionsSchema = z
+export const simulateOptionsSchema = once(() => z
   .object({
-    ...structureShape,
+    ...structureShape(),
     periods: z.number().int().positive(),
     frequency: z.enum(frequencies),
     start: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "must be a date YYYY-MM-DD").refine((s) => !Number.isNaN(Date.parse(s)), "must be a real date"),
@@ -174,9 +181,9 @@ export const simulateOptionsSchema = z
     output: z.string().min(1).optional(),
   })
   .strict()
-  .refine(...positiveHighBeta);
+  .refine(...positiveHighBeta));
 
-export type SimulateCliOptions = z.infer<typeof simulateOptionsSchema>;
+export type SimulateCliOptions = z.infer<ReturnType<typeof simulateOptionsSchema>>;
 
 /** The first zod issue as a CLI usage message: the option in kebab case and what is wrong. */
 export function describeOptionIssue(error: z.ZodError): string {
@@ -187,25 +194,25 @@ export function describeOptionIssue(error: z.ZodError): string {
 }
 
 /** The options of `implied`: a structure (per period, decimal) and the report settings. */
-export const impliedOptionsSchema = z
+export const impliedOptionsSchema = once(() => z
   .object({
-    ...structureShape,
+    ...structureShape(),
     steps: z.number().int().min(2).max(maximumSteps),
     format: z.enum(reportFormats),
     output: z.string().min(1).optional(),
   })
   .strict()
-  .refine(...positiveHighBeta);
+  .refine(...positiveHighBeta));
 
-export type ImpliedCliOptions = z.infer<typeof impliedOptionsSchema>;
+export type ImpliedCliOptions = z.infer<ReturnType<typeof impliedOptionsSchema>>;
 
 export const rollFormats = ["text", "csv", "jsonl"] as const;
 
 /** The options of `roll`: the input options, the windows, and the per-window outputs. */
-export const rollOptionsSchema = refineInputOptions(
+export const rollOptionsSchema = once(() => refineInputOptions(
   z
     .object({
-      ...inputOptionsShape,
+      ...inputOptionsShape(),
       window: z.number().int().min(3).optional(),
       step: z.number().int().positive(),
       expanding: z.boolean(),
@@ -222,6 +229,6 @@ export const rollOptionsSchema = refineInputOptions(
     path: ["window"],
     message: "give either --window N (a rolling window) or --expanding (with --min-periods N)",
   })
-  .refine((o) => !o.expanding || o.minPeriods !== undefined, { path: ["minPeriods"], message: "--expanding needs --min-periods N (at least 3)" });
+  .refine((o) => !o.expanding || o.minPeriods !== undefined, { path: ["minPeriods"], message: "--expanding needs --min-periods N (at least 3)" }));
 
-export type RollCliOptions = z.infer<typeof rollOptionsSchema>;
+export type RollCliOptions = z.infer<ReturnType<typeof rollOptionsSchema>>;

@@ -158,7 +158,7 @@ export function rollCommand(io: CliIo, setExit: (code: ExitCode) => void): Comma
     .action(async (given: string[], _raw: Record<string, unknown>, self: Command) => {
       const job = await withConfig(self, given, io);
       if (!job.ok) return setExit(usage(io, describeCliIssue(job.issues)));
-      const parsed = rollOptionsSchema.safeParse(job.value.options);
+      const parsed = rollOptionsSchema().safeParse(job.value.options);
       if (!parsed.success) return setExit(usage(io, describeOptionIssue(parsed.error)));
       setExit(await runRoll(job.value.files, parsed.data, io));
     });

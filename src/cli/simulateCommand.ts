@@ -98,7 +98,7 @@ export function simulateCommand(io: CliIo, setExit: (code: ExitCode) => void): C
     .option("--output <path>", "write to this file (atomically) instead of standard output")
     .addHelpText("after", simulateExamples)
     .action(async (raw: Record<string, unknown>) => {
-      const parsed = simulateOptionsSchema.safeParse(raw);
+      const parsed = simulateOptionsSchema().safeParse(raw);
       if (!parsed.success) {
         io.writeErr(`error: ${describeOptionIssue(parsed.error)}\n`);
         setExit(exitCodes.usage);

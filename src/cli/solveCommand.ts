@@ -161,7 +161,7 @@ export function solveCommand(io: CliIo, setExit: (code: ExitCode) => void): Comm
     .action(async (given: string[], _raw: Record<string, unknown>, self: Command) => {
       const job = await withConfig(self, given, io);
       if (!job.ok) return setExit(usage(io, describeCliIssue(job.issues)));
-      const parsed = solveOptionsSchema.safeParse(job.value.options);
+      const parsed = solveOptionsSchema().safeParse(job.value.options);
       if (!parsed.success) return setExit(usage(io, describeOptionIssue(parsed.error)));
       setExit(await runSolve(job.value.files, parsed.data, io));
     });
