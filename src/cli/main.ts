@@ -3,15 +3,10 @@
  * binds the program to the process. An unexpected exception is a bug: it is reported in one line
  * with exit code 70 (set BETABOUND_DEBUG=1 for the stack).
  */
-import * as z from "zod";
 import { exitCodes, type ExitCode } from "./exitCodes.js";
 import { openSink, readInputBytes, writeFileAtomic } from "./files.js";
 import type { CliIo } from "./io.js";
 import { run } from "./program.js";
-
-// Each run validates its options once: zod's compiled fast path (generated with new Function) costs
-// more to build than it saves.
-z.config({ jitless: true });
 
 export { run };
 export { setVegaImporter } from "../report/charts/loadVega.js";

@@ -2,7 +2,8 @@
  * The options of `solve`: one set of constants feeds commander's choices and defaults, the zod schema
  * that validates the merged options, and the TypeScript types.
  */
-import * as z from "zod";
+import en from "zod/v4/locales/en.js";
+import * as z from "zod/mini";
 import { frequencies } from "../core/calendar.js";
 import { chartYChoices } from "./charts.js";
 import { defaultSteps, defaultWeight } from "../core/solve.js";
@@ -66,82 +67,94 @@ export function once<T>(build: () => T): () => T {
   return () => (value ??= build());
 }
 
+// zod/mini (smaller and quicker to build than the classic API) loads no messages of its own: English
+// ones; and no compiled fast path, which costs more to build than it saves when each run parses
+// its options once.
+z.config({ ...en(), jitless: true });
+
+/** A non-empty string. */
+const text = () => z.string().check(z.minLength(1));
+/** A number strictly between 0 and 1. */
+const fraction = () => z.number().check(z.gt(0), z.lt(1));
+
 /** Options shared by every command that reads return files: which books, and how to read them. */
 export const inputOptionsShape = once(() => ({
-  low: z.string().min(1).optional(),
-  high: z.string().min(1).optional(),
-  pair: z.array(z.object({ low: z.string().min(1), high: z.string().min(1) }).strict()).optional(),
-  lows: z.array(z.string().min(1)).optional(),
-  highs: z.array(z.string().min(1)).optional(),
-  date: z.string().min(1).optional(),
-  weight: z.number().gt(0).lt(1),
-  rf: z.string().min(1).optional(),
+  low: z.optional(text()),
+  high: z.optional(text()),
+  pair: z.optional(z.array(z.strictObject({ low: text(), high: text() }))),
+  lows: z.optional(z.array(text())),
+  highs: z.optional(z.array(text())),
+  date: z.optional(text()),
+  weight: fraction(),
+  rf: z.optional(text()),
   units: z.enum(unitChoices),
-  output: z.string().min(1).optional(),
+  output: z.optional(text()),
   allowExtreme: z.boolean(),
-  delimiter: z.string().length(1).optional(),
-  block: z.number().int().positive().optional(),
-  dateFormat: z.string().min(1).optional(),
+  delimiter: z.optional(z.string().check(z.length(1))),
+  block: z.optional(z.int().check(z.positive())),
+  dateFormat: z.optional(text()),
   sort: z.boolean(),
-  periodsPerYear: z.number().positive().optional(),
-  missing: z.array(z.string().min(1)).optional(),
+  periodsPerYear: z.optional(z.number().check(z.positive())),
+  missing: z.optional(z.array(text())),
   onMissing: z.enum(missingPolicies),
   input: z.enum(inputKinds),
-  idColumn: z.string().min(1).optional(),
-  valueColumn: z.string().min(1).optional(),
+  idColumn: z.optional(text()),
+  valueColumn: z.optional(text()),
   decimalComma: z.boolean(),
 }));
 
 /** The input options after validation (what the pair loader needs). */
-export type InputCliOptions = z.infer<z.ZodObject<ReturnType<typeof inputOptionsShape>>>;
+export type InputCliOptions = z.infer<z.ZodMiniObject<ReturnType<typeof inputOptionsShape>>>;
 
 /** Cross-field rules of the input options, for any schema that spreads inputOptionsShape. */
-export function refineInputOptions<T extends z.ZodType<InputCliOptions>>(schema: T) {
-  return schema
-    .refine((o) => (o.low === undefined) === (o.high === undefined), {
+export function refineInputOptions<T extends z.ZodMiniType<InputCliOptions>>(schema: T): T {
+  return schema.check(
+    z.refine<InputCliOptions>((o) => (o.low === undefined) === (o.high === undefined), {
       path: ["high"],
       message: "--low and --high go together (or use --pair LOW:HIGH)",
-    })
-    .refine((o) => (o.lows === undefined) === (o.highs === undefined), { path: ["highs"], message: "--lows and --highs go together" })
-    .refine((o) => o.low !== undefined || (o.pair?.length ?? 0) > 0 || o.lows !== undefined, {
+    }),
+    z.refine<InputCliOptions>((o) => (o.lows === undefined) === (o.highs === undefined), { path: ["highs"], message: "--lows and --highs go together" }),
+    z.refine<InputCliOptions>((o) => o.low !== undefined || (o.pair?.length ?? 0) > 0 || o.lows !== undefined, {
       path: ["low"],
       message: "name the books: --low COLUMN --high COLUMN, or --pair LOW:HIGH, or --lows A,B --highs X,Y",
-    })
-    .refine((o) => (o.idColumn === undefined) === (o.valueColumn === undefined), {
+    }),
+    z.refine<InputCliOptions>((o) => (o.idColumn === undefined) === (o.valueColumn === undefined), {
       path: ["valueColumn"],
       message: "the long layout needs both --id-column and --value-column",
-    });
+    }),
+  );
 }
 
-export const solveOptionsSchema = once(() => refineInputOptions(
-  z
-    .object({
-      ...inputOptionsShape(),
-      steps: z.number().int().min(2).max(maximumSteps),
-      format: z.enum(solveFormats),
-      uncertainty: z.boolean(),
-      confidence: z.number().gt(0).lt(1),
-      longRun: z.enum(longRunMethods),
-      hacKernel: z.enum(hacKernels),
-      hacBandwidth: z.enum(automaticBandwidths),
-      hacLags: z.number().int().nonnegative().optional(),
-      hacPrewhite: z.boolean(),
-      hacAdjust: z.boolean(),
-      interval: z.enum(intervalMethods),
-      intervalSource: z.enum(intervalSources),
-      bootstrap: z.number().int().nonnegative(),
-      blockLength: z.union([z.literal("auto"), z.number().gte(1)]),
-      seed: z.number().int().nonnegative(),
-      threads: z.number().int().positive(),
-      chart: z.string().min(1).optional(),
-      chartY: z.enum(chartYChoices),
-      report: z.string().min(1).optional(),
-    })
-    .strict(),
-).refine((o) => o.intervalSource !== "bootstrap" || o.bootstrap >= 2, {
-  path: ["intervalSource"],
-  message: "bootstrap standard errors need --bootstrap with at least 2 replicates",
-}));
+export const solveOptionsSchema = once(() => {
+  const schema = z.strictObject({
+    ...inputOptionsShape(),
+    steps: z.int().check(z.gte(2), z.lte(maximumSteps)),
+    format: z.enum(solveFormats),
+    uncertainty: z.boolean(),
+    confidence: fraction(),
+    longRun: z.enum(longRunMethods),
+    hacKernel: z.enum(hacKernels),
+    hacBandwidth: z.enum(automaticBandwidths),
+    hacLags: z.optional(z.int().check(z.nonnegative())),
+    hacPrewhite: z.boolean(),
+    hacAdjust: z.boolean(),
+    interval: z.enum(intervalMethods),
+    intervalSource: z.enum(intervalSources),
+    bootstrap: z.int().check(z.nonnegative()),
+    blockLength: z.union([z.literal("auto"), z.number().check(z.gte(1))]),
+    seed: z.int().check(z.nonnegative()),
+    threads: z.int().check(z.positive()),
+    chart: z.optional(text()),
+    chartY: z.enum(chartYChoices),
+    report: z.optional(text()),
+  });
+  return refineInputOptions(schema).check(
+    z.refine<z.infer<typeof schema>>((o) => o.intervalSource !== "bootstrap" || o.bootstrap >= 2, {
+      path: ["intervalSource"],
+      message: "bootstrap standard errors need --bootstrap with at least 2 replicates",
+    }),
+  );
+});
 
 export type SolveCliOptions = z.infer<ReturnType<typeof solveOptionsSchema>>;
 
@@ -149,44 +162,49 @@ export const simulateFormats = ["csv", "jsonl"] as const;
 
 /** A structure given on the command line (simulate, implied): per period, decimal. */
 const structureShape = once(() => ({
-  lowBeta: z.number().positive(),
-  factorVol: z.number().positive(),
+  lowBeta: z.number().check(z.positive()),
+  factorVol: z.number().check(z.positive()),
   factorMean: z.number(),
-  lowNoiseVol: z.number().nonnegative(),
-  highNoiseVol: z.number().nonnegative(),
-  weight: z.number().gt(0).lt(1),
+  lowNoiseVol: z.number().check(z.nonnegative()),
+  highNoiseVol: z.number().check(z.nonnegative()),
+  weight: fraction(),
   rf: z.number(),
 }));
 
 /** b_low < 1/w, so that the high book's structural beta is positive. */
-const positiveHighBeta: [(o: { lowBeta: number; weight: number }) => boolean, { path: PropertyKey[]; message: string }] = [
-  (o) => o.lowBeta < 1 / o.weight,
-  { path: ["lowBeta"], message: "must be below 1/w so that the high book's beta is positive" },
-];
+const positiveHighBeta = () =>
+  z.refine<{ lowBeta: number; weight: number }>((o) => o.lowBeta < 1 / o.weight, {
+    path: ["lowBeta"],
+    message: "must be below 1/w so that the high book's beta is positive",
+  });
 
 /** The options of `simulate` after commander's parsing (each number already checked by its argParser). */
-export const simulateOptionsSchema = once(() => z
-  .object({
-    ...structureShape(),
-    periods: z.number().int().positive(),
-    frequency: z.enum(frequencies),
-    start: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "must be a date YYYY-MM-DD").refine((s) => !Number.isNaN(Date.parse(s)), "must be a real date"),
-    seed: z.number().int().nonnegative(),
-    tails: z.number().gt(2).optional(),
-    noiseAr: z.number().gt(-1).lt(1).optional(),
-    garch: z.object({ alpha: z.number().nonnegative(), beta: z.number().nonnegative() }).optional(),
-    names: z.tuple([z.string().min(1), z.string().min(1), z.string().min(1)]),
-    digits: z.number().int().min(1).max(17).optional(),
-    format: z.enum(simulateFormats),
-    output: z.string().min(1).optional(),
-  })
-  .strict()
-  .refine(...positiveHighBeta));
+export const simulateOptionsSchema = once(() =>
+  z
+    .strictObject({
+      ...structureShape(),
+      periods: z.int().check(z.positive()),
+      frequency: z.enum(frequencies),
+      start: z.string().check(
+        z.regex(/^\d{4}-\d{2}-\d{2}$/, "must be a date YYYY-MM-DD"),
+        z.refine((s: string) => !Number.isNaN(Date.parse(s)), "must be a real date"),
+      ),
+      seed: z.int().check(z.nonnegative()),
+      tails: z.optional(z.number().check(z.gt(2))),
+      noiseAr: z.optional(z.number().check(z.gt(-1), z.lt(1))),
+      garch: z.optional(z.strictObject({ alpha: z.number().check(z.nonnegative()), beta: z.number().check(z.nonnegative()) })),
+      names: z.tuple([text(), text(), text()]),
+      digits: z.optional(z.int().check(z.gte(1), z.lte(17))),
+      format: z.enum(simulateFormats),
+      output: z.optional(text()),
+    })
+    .check(positiveHighBeta()),
+);
 
 export type SimulateCliOptions = z.infer<ReturnType<typeof simulateOptionsSchema>>;
 
 /** The first zod issue as a CLI usage message: the option in kebab case and what is wrong. */
-export function describeOptionIssue(error: z.ZodError): string {
+export function describeOptionIssue(error: z.core.$ZodError): string {
   const issue = error.issues[0];
   const key = String(issue?.path[0] ?? "");
   const flag = key.replace(/[A-Z]/g, (c) => `-${c.toLowerCase()}`);
@@ -194,41 +212,43 @@ export function describeOptionIssue(error: z.ZodError): string {
 }
 
 /** The options of `implied`: a structure (per period, decimal) and the report settings. */
-export const impliedOptionsSchema = once(() => z
-  .object({
-    ...structureShape(),
-    steps: z.number().int().min(2).max(maximumSteps),
-    format: z.enum(reportFormats),
-    output: z.string().min(1).optional(),
-  })
-  .strict()
-  .refine(...positiveHighBeta));
+export const impliedOptionsSchema = once(() =>
+  z
+    .strictObject({
+      ...structureShape(),
+      steps: z.int().check(z.gte(2), z.lte(maximumSteps)),
+      format: z.enum(reportFormats),
+      output: z.optional(text()),
+    })
+    .check(positiveHighBeta()),
+);
 
 export type ImpliedCliOptions = z.infer<ReturnType<typeof impliedOptionsSchema>>;
 
 export const rollFormats = ["text", "csv", "jsonl"] as const;
 
 /** The options of `roll`: the input options, the windows, and the per-window outputs. */
-export const rollOptionsSchema = once(() => refineInputOptions(
-  z
-    .object({
-      ...inputOptionsShape(),
-      window: z.number().int().min(3).optional(),
-      step: z.number().int().positive(),
-      expanding: z.boolean(),
-      minPeriods: z.number().int().min(3).optional(),
-      format: z.enum(rollFormats),
-      uncertainty: z.boolean(),
-      confidence: z.number().gt(0).lt(1),
-      longRun: z.enum(longRunMethods),
-      chart: z.string().min(1).optional(),
-    })
-    .strict(),
-)
-  .refine((o) => (o.window === undefined) !== !o.expanding, {
-    path: ["window"],
-    message: "give either --window N (a rolling window) or --expanding (with --min-periods N)",
-  })
-  .refine((o) => !o.expanding || o.minPeriods !== undefined, { path: ["minPeriods"], message: "--expanding needs --min-periods N (at least 3)" }));
+export const rollOptionsSchema = once(() => {
+  const schema = z.strictObject({
+    ...inputOptionsShape(),
+    window: z.optional(z.int().check(z.gte(3))),
+    step: z.int().check(z.positive()),
+    expanding: z.boolean(),
+    minPeriods: z.optional(z.int().check(z.gte(3))),
+    format: z.enum(rollFormats),
+    uncertainty: z.boolean(),
+    confidence: fraction(),
+    longRun: z.enum(longRunMethods),
+    chart: z.optional(text()),
+  });
+  type Roll = z.infer<typeof schema>;
+  return refineInputOptions(schema).check(
+    z.refine<Roll>((o) => (o.window === undefined) !== !o.expanding, {
+      path: ["window"],
+      message: "give either --window N (a rolling window) or --expanding (with --min-periods N)",
+    }),
+    z.refine<Roll>((o) => !o.expanding || o.minPeriods !== undefined, { path: ["minPeriods"], message: "--expanding needs --min-periods N (at least 3)" }),
+  );
+});
 
 export type RollCliOptions = z.infer<ReturnType<typeof rollOptionsSchema>>;
