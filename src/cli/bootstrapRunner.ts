@@ -5,7 +5,8 @@
  */
 import { existsSync } from "node:fs";
 import { fileURLToPath } from "node:url";
-import { Worker } from "node:worker_threads";
+import { createRequire } from "node:module";
+import type { Worker } from "node:worker_threads";
 import {
   bootstrapRange,
   mergeBootstrapRanges,
@@ -93,7 +94,9 @@ async function inWorkers(
       worker.once("error", reject);
       take();
     });
-  const workers = Array.from({ length: threads }, () => new Worker(workerUrl));
+  // Loaded here, not at start-up: only runs with bootstrap threads need it (a few ms to load).
+  const { Worker: WorkerThread } = createRequire(import.meta.url)("node:worker_threads") as typeof import("node:worker_threads");
+  const workers = Array.from({ length: threads }, () => new WorkerThread(workerUrl));
   try {
     await Promise.all(workers.map(work));
   } finally {

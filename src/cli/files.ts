@@ -3,8 +3,7 @@
  * renamed over the target, so a failed or interrupted run never leaves a partial file and never
  * damages the previous one.
  */
-import { closeSync, openSync, readFileSync, renameSync, unlinkSync, writeSync } from "node:fs";
-import { rename, unlink, writeFile } from "node:fs/promises";
+import { closeSync, openSync, readFileSync, renameSync, unlinkSync, writeFileSync, writeSync } from "node:fs";
 import { basename, dirname, join } from "node:path";
 import { failure, success, type Result } from "../core/result.js";
 import type { OutputSink } from "./io.js";
@@ -93,15 +92,22 @@ export function openSink(path: string | undefined): Result<OutputSink, CliIssue>
   });
 }
 
-/** Writes `text` to `path` atomically (temporary file + rename). */
+/**
+ * Writes `text` to `path` atomically (temporary file + rename). Synchronous inside, like the reads:
+ * the CLI has nothing else to do meanwhile (and node:fs/promises costs start-up time to load).
+ */
 export async function writeFileAtomic(path: string, text: string): Promise<Result<void, CliIssue>> {
   const temporary = temporaryName(path);
   try {
-    await writeFile(temporary, text, { flag: "wx" });
-    await rename(temporary, path);
+    writeFileSync(temporary, text, { flag: "wx" });
+    renameSync(temporary, path);
     return success(undefined);
   } catch (error) {
-    await unlink(temporary).catch(() => undefined);
+    try {
+      unlinkSync(temporary);
+    } catch {
+      // never created, or already gone
+    }
     return failure({ code: "write-failed", path, reason: fileErrorReason(error) });
   }
 }
