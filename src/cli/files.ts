@@ -3,21 +3,44 @@
  * renamed over the target, so a failed or interrupted run never leaves a partial file and never
  * damages the previous one.
  */
-import { closeSync, openSync, readFileSync, renameSync, unlinkSync, writeFileSync, writeSync } from "node:fs";
+import { closeSync, openSync, readFileSync, readSync, renameSync, statSync, unlinkSync, writeFileSync, writeSync } from "node:fs";
 import { basename, dirname, join } from "node:path";
 import { failure, success, type Result } from "../core/result.js";
+import { kernelBytes } from "../input/rowKernel.js";
 import type { OutputSink } from "./io.js";
 import { fileErrorReason, type CliIssue } from "./messages.js";
+
+/** Files from this size on are read into the row kernel's memory (src/input/rowKernel.ts). */
+const kernelInputBytes = 16 << 20;
 
 /** Reads a whole file, or standard input for "-". */
 export async function readInputBytes(path: string): Promise<Result<Uint8Array, CliIssue>> {
   try {
+    if (path === "-") return success(await readStream(process.stdin));
     // One synchronous read: for a large file this is much faster than the chunked asynchronous read,
     // and the CLI has nothing else to do meanwhile.
-    const bytes = path === "-" ? await readStream(process.stdin) : readFileSync(path);
-    return success(bytes);
+    const size = statSync(path).size;
+    return success(size < kernelInputBytes ? readFileSync(path) : readInto(path, kernelBytes(size)));
   } catch (error) {
     return failure({ code: "read-failed", path: path === "-" ? "<stdin>" : path, reason: fileErrorReason(error) });
+  }
+}
+
+/** Reads the file into `bytes` (its size when statted): the bytes read, fewer if it shrank meanwhile. */
+function readInto(path: string, bytes: Uint8Array): Uint8Array {
+  const fd = openSync(path, "r");
+  try {
+    let length = 0;
+    while (length < bytes.length) {
+      const read = readSync(fd, bytes, length, bytes.length - length, null);
+      if (read === 0) break;
+      length += read;
+    }
+    // A file that grew after the stat is read again whole, in plain memory.
+    if (length === bytes.length && readSync(fd, new Uint8Array(1), 0, 1, null) > 0) return readFileSync(path);
+    return length === bytes.length ? bytes : bytes.subarray(0, length);
+  } finally {
+    closeSync(fd);
   }
 }
 

@@ -17,6 +17,7 @@
 import { DAY_MS, daysInMonth, plainDateKey } from "./dates.js";
 import type { Grid } from "./grid.js";
 import { parseDecimal } from "./numbers.js";
+import { rowKernelFor, type KernelChunk, type RowKernel } from "./rowKernel.js";
 
 const POWERS_OF_TEN = Array.from({ length: 23 }, (_, k) => 10 ** k);
 /** 2^53: digits accumulated in a double are exact when the result is below it (rounding is monotonic). */
@@ -55,7 +56,8 @@ export function plainLines(bytes: Uint8Array, headCheck = HEAD_CHECK): PlainLine
   let firstBytes = new Uint8Array(starts.length);
   let rows = 0;
   let from = start;
-  for (let end = bytes.indexOf(10, from); end >= 0; end = bytes.indexOf(10, from)) {
+  const search = asBuffer(bytes);
+  for (let end = search.indexOf(10, from); end >= 0; end = search.indexOf(10, from)) {
     if (rows + 1 >= starts.length) [starts, firstBytes] = grow(starts, firstBytes);
     firstBytes[rows] = bytes[from] as number;
     starts[rows++] = from;
@@ -74,10 +76,18 @@ export function plainLines(bytes: Uint8Array, headCheck = HEAD_CHECK): PlainLine
 /** True when bytes [from, to) hold no NUL, quote or non-ASCII byte, and each CR there is followed by LF. */
 export function isPlain(bytes: Uint8Array, from: number, to: number): boolean {
   if (from >= to) return true;
-  const range = bytes.subarray(from, to);
+  const range = asBuffer(bytes).subarray(from, to);
   if (range.indexOf(0) >= 0 || range.indexOf(34) >= 0 || !isAscii(range)) return false;
   for (let cr = range.indexOf(13); cr >= 0; cr = range.indexOf(13, cr + 1)) if (bytes[from + cr + 1] !== 10) return false;
   return true;
+}
+
+/**
+ * The bytes as a Buffer (the same memory): Buffer's indexOf is a native byte search, several times
+ * faster than a plain Uint8Array's (the CLI's large files are plain Uint8Arrays, see rowKernel.ts).
+ */
+function asBuffer(bytes: Uint8Array): Buffer {
+  return Buffer.isBuffer(bytes) ? bytes : Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
 }
 
 /** True when no byte has the high bit set. */
@@ -184,6 +194,21 @@ export function scanDecimal(bytes: Uint8Array, from: number, end: number, d: num
   }
   target[at] = parseDecimal(asciiText(bytes, from, i)) ?? Number.NaN;
   return ~i;
+}
+
+/** Tables with fewer rows are read without the row kernel (setting it up costs more). */
+const KERNEL_MIN_ROWS = 64;
+
+/** What readRows carries from row to row (and between the kernel and scanRange). */
+interface RowScan {
+  plain: boolean;
+  /** The month of the previous plain date (y * 100 + m), its first day's key and its length. */
+  month: number;
+  monthKey: number;
+  monthLength: number;
+  /** Or of UNPLAIN over the bytes read. */
+  unplain: number;
+  readonly withNaN: boolean[];
 }
 
 class ByteGrid implements ByteGridOf {
@@ -305,17 +330,85 @@ class ByteGrid implements ByteGridOf {
 
   readRows(first: number, count: number, slots: Int32Array, out: readonly Float64Array[], counts: Int32Array,
     dateIndex: number, dateKeys: Float64Array): { readonly plainDates: boolean; readonly withNaN: readonly boolean[] } {
+    // Only a field handed to parseDecimal can give NaN.
+    const state: RowScan = { plain: true, month: -1, monthKey: 0, monthLength: 0, unplain: 0, withNaN: out.map(() => false) };
+    const kernel = count >= KERNEL_MIN_ROWS && this.d < 128 ? rowKernelFor(this.bytes) : null;
+    const chunk = kernel === null ? 0 : kernel.kernel.chunkRows(slots.length, out.length);
+    if (kernel === null || chunk === 0) this.scanRange(first, 0, count, slots, out, counts, dateIndex, dateKeys, state);
+    else this.kernelRange(kernel.kernel, kernel.base, chunk, first, count, slots, out, counts, dateIndex, dateKeys, state);
+    if (state.unplain !== 0) this.unplain = true;
+    else if (count > 0) {
+      this.checkedFrom = first;
+      this.checkedTo = first + count;
+    }
+    return { plainDates: state.plain, withNaN: state.withNaN };
+  }
+
+  /**
+   * readRows through the row kernel (rowKernel.ts), chunk by chunk: the numbers, field counts and
+   * date digits of the simple rows come from the kernel, their date keys are formed here as
+   * scanRange forms them, and every row the kernel flagged (and the open last row) is read by
+   * scanRange, in row order, so that the result is scanRange's bit for bit.
+   */
+  private kernelRange(kernel: RowKernel, base: number, chunk: number, first: number, count: number, slots: Int32Array,
+    out: readonly Float64Array[], counts: Int32Array, dateIndex: number, dateKeys: Float64Array, state: RowScan): void {
+    const lastRow = this.openEnd ? this.starts.length - 2 : -1;
+    for (let k0 = 0; k0 < count; k0 += chunk) {
+      const k1 = Math.min(count, k0 + chunk);
+      const kEnd = lastRow >= first + k0 && lastRow < first + k1 ? lastRow - first : k1;
+      if (kEnd > k0) {
+        const read = kernel.scan(base, this.starts, first + k0, first + kEnd, slots, out.length, this.d, dateIndex);
+        out.forEach((values, slot) => values.set(read.values(slot), k0));
+        counts.set(read.counts, k0);
+        if (state.plain) dateKeys.set(read.keys, k0);
+        if (read.badDate) state.plain = false;
+        if (read.flagged > 0) this.settleFlagged(read, kernel, first, k0, kEnd, slots, out, counts, dateIndex, dateKeys, state);
+      }
+      if (kEnd < k1) this.scanRange(first, kEnd, k1, slots, out, counts, dateIndex, dateKeys, state);
+    }
+  }
+
+  /**
+   * The flagged rows of a kernel chunk (rows k0 .. kEnd - 1): flag 1, read here (scanRange writes
+   * only what it reads, so what the kernel left for the row is cleared first); flag 2, the long
+   * numbers (NaN) parsed from their spans, as scanDecimal hands them to parseDecimal.
+   */
+  private settleFlagged(read: KernelChunk, kernel: RowKernel, first: number, k0: number, kEnd: number, slots: Int32Array,
+    out: readonly Float64Array[], counts: Int32Array, dateIndex: number, dateKeys: Float64Array, state: RowScan): void {
+    const { flags } = read;
+    for (let k = k0; k < kEnd; k++) {
+      const flag = flags[k - k0] as number;
+      if (flag === 1) {
+        for (const values of out) values[k] = 0;
+        dateKeys[k] = 0;
+        this.scanRange(first, k, k + 1, slots, out, counts, dateIndex, dateKeys, state);
+      } else if (flag === 2) {
+        out.forEach((values, slot) => {
+          if (!Number.isNaN(values[k] as number)) return;
+          const spans = read.spans(slot);
+          const from = spans[2 * (k - k0)] as number;
+          const to = spans[2 * (k - k0) + 1] as number;
+          const value = parseDecimal(kernel.text(from, to)) ?? Number.NaN;
+          values[k] = value;
+          if (Number.isNaN(value)) {
+            state.withNaN[slot] = true;
+            state.unplain |= kernel.unplainIn(from, to);
+          }
+        });
+      }
+    }
+  }
+
+  /** Rows first + [from, to) of readRows, in JavaScript, continuing `state`. */
+  private scanRange(first: number, from: number, to: number, slots: Int32Array, out: readonly Float64Array[], counts: Int32Array,
+    dateIndex: number, dateKeys: Float64Array, state: RowScan): void {
     const { bytes, d, starts } = this;
     const lastRow = this.openEnd ? starts.length - 2 : -1;
-    // Only a field handed to parseDecimal can give NaN.
-    const withNaN = out.map(() => false);
-    let plain = true;
-    let month = -1;
-    let monthKey = 0;
-    let monthLength = 0;
+    const { withNaN } = state;
+    let { plain, month, monthKey, monthLength } = state;
     // Or of UNPLAIN over every byte of the rows that the loop below does not otherwise check.
-    let unplain = 0;
-    for (let k = 0; k < count; k++) {
+    let unplain = state.unplain;
+    for (let k = from; k < to; k++) {
       const row = first + k;
       const start = starts[row] as number;
       if (row === lastRow) {
@@ -333,7 +426,7 @@ class ByteGrid implements ByteGridOf {
       for (;;) {
         const slot = f < slots.length ? (slots[f] as number) : -1;
         if (slot >= 0) {
-          const from = i;
+          const fieldStart = i;
           i = scanDecimal(bytes, i, end, d, out[slot] as Float64Array, k);
           // A field parseDecimal accepted holds only plain bytes (its pattern allows nothing else);
           // only a rejected one (NaN) needs checking.
@@ -341,7 +434,7 @@ class ByteGrid implements ByteGridOf {
             i = ~i;
             if (Number.isNaN((out[slot] as Float64Array)[k] as number)) {
               withNaN[slot] = true;
-              for (let j = from; j < i; j++) unplain |= UNPLAIN[bytes[j] as number] as number;
+              for (let j = fieldStart; j < i; j++) unplain |= UNPLAIN[bytes[j] as number] as number;
             }
           }
         } else {
@@ -379,12 +472,11 @@ class ByteGrid implements ByteGridOf {
       counts[k] = f;
       if (!dated) plain = false;
     }
-    if (unplain !== 0) this.unplain = true;
-    else if (count > 0) {
-      this.checkedFrom = first;
-      this.checkedTo = first + count;
-    }
-    return { plainDates: plain, withNaN };
+    state.plain = plain;
+    state.month = month;
+    state.monthKey = monthKey;
+    state.monthLength = monthLength;
+    state.unplain = unplain;
   }
 
   plainIsoDates(rows: Int32Array, index: number, keys: Float64Array): boolean {

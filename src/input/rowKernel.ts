@@ -1,0 +1,170 @@
+/**
+ * The row kernel: the simple rows of a plain CSV read by WebAssembly (rowKernel.wat), about twice as
+ * fast as the same loop in JavaScript, and fast from the first row (no interpreter warm-up). It reads
+ * the file's bytes where they are, in its own memory: a large file is read straight into it
+ * (`kernelBytes`, which the CLI uses), a small one is copied there. byteGrid.ts decides what the
+ * kernel's output means and reads every flagged row itself, so results are those of the JavaScript
+ * engine bit for bit.
+ *
+ * Memory layout (never grown, so views into it stay valid): pow10 table at 0, a scratch area for one
+ * chunk of rows (their starts, the slots, the outputs), then the file's bytes at `fileBase`.
+ */
+import { rowKernelWasm } from "./rowKernelWasm.js";
+
+const PAGE = 65_536;
+/** Bytes of scratch for one chunk of rows. */
+const SCRATCH = 4 << 20;
+/** Where the scratch area starts (after the 23 powers of ten) and where the file starts. */
+const SCRATCH_BASE = 256;
+const FILE_BASE = SCRATCH_BASE + SCRATCH;
+/** Bytes that are not already in kernel memory are copied there up to this size. */
+const COPY_LIMIT = 16 << 20;
+/** Most rows per chunk; fewer when many columns are read. */
+const MAX_CHUNK = 16_384;
+/** Fewer rows per chunk than this (very many fields or columns): the kernel is not used. */
+const MIN_CHUNK = 256;
+
+interface KernelExports {
+  readRows(starts: number, count: number, base: number, d: number, slots: number, nf: number, dateIndex: number,
+    out: number, keys: number, counts: number, flags: number, spans: number, status: number): number;
+}
+
+let compiled: WebAssembly.Module | null | undefined;
+
+/** The compiled kernel, or null where WebAssembly is unavailable (the JavaScript engine is used). */
+function kernelModule(): WebAssembly.Module | null {
+  if (compiled === undefined) {
+    try {
+      compiled = new WebAssembly.Module(Buffer.from(rowKernelWasm, "base64"));
+    } catch {
+      compiled = null;
+    }
+  }
+  return compiled;
+}
+
+/** Kernel memories by the ArrayBuffer of the file bytes they hold. */
+const memories = new WeakMap<ArrayBufferLike, RowKernel>();
+
+/**
+ * `size` zero bytes in kernel memory, for reading a file into (the kernel then reads them in place),
+ * or a plain Uint8Array when WebAssembly is unavailable.
+ */
+export function kernelBytes(size: number): Uint8Array {
+  const module = kernelModule();
+  if (module === null || size > 0xffff_ffff - FILE_BASE) return new Uint8Array(size);
+  const memory = new WebAssembly.Memory({ initial: Math.ceil((FILE_BASE + size) / PAGE) });
+  const kernel = new RowKernel(memory, module);
+  memories.set(memory.buffer, kernel);
+  return new Uint8Array(memory.buffer, FILE_BASE, size);
+}
+
+/** The kernel whose memory small files are copied into (made on first use, never grown). */
+let copyKernel: RowKernel | null | undefined;
+
+/**
+ * The kernel that reads `bytes`, and where they start in its memory: in place when they are kernel
+ * bytes; else a copy in a shared kernel when they are small enough (valid until the next call);
+ * null otherwise, and where WebAssembly is unavailable.
+ */
+export function rowKernelFor(bytes: Uint8Array): { readonly kernel: RowKernel; readonly base: number } | null {
+  const own = memories.get(bytes.buffer);
+  if (own !== undefined) return { kernel: own, base: bytes.byteOffset };
+  if (bytes.length > COPY_LIMIT) return null;
+  if (copyKernel === undefined) {
+    const module = kernelModule();
+    copyKernel = module === null ? null : new RowKernel(new WebAssembly.Memory({ initial: Math.ceil((FILE_BASE + COPY_LIMIT) / PAGE) }), module);
+  }
+  if (copyKernel === null) return null;
+  copyKernel.write(bytes, FILE_BASE);
+  return { kernel: copyKernel, base: FILE_BASE };
+}
+
+/** One chunk's outputs: views into the scratch area, valid until the next `scan`. */
+export interface KernelChunk {
+  /** values(slot)[k]: the number read for row k of the chunk; NaN for a long number (see spans). */
+  values(slot: number): Float64Array;
+  /** spans(slot)[2k], [2k + 1]: where the long number of row k starts and ends in memory. */
+  spans(slot: number): Int32Array;
+  /** The date key of each row (0 where the date is not a calendar date). */
+  readonly keys: Float64Array;
+  readonly counts: Int32Array;
+  /** 0: read; 1: the caller reads the row; 2: the caller parses the long numbers (NaN values). */
+  readonly flags: Uint8Array;
+  readonly flagged: number;
+  /** True when some row that was read has a well-formed date that is not in the calendar. */
+  readonly badDate: boolean;
+}
+
+export class RowKernel {
+  private readonly exports: KernelExports;
+  private readonly bytes: Uint8Array;
+  private readonly words: Int32Array;
+  private readonly doubles: Float64Array;
+
+  constructor(memory: WebAssembly.Memory, module: WebAssembly.Module) {
+    this.exports = new WebAssembly.Instance(module, { env: { memory } }).exports as unknown as KernelExports;
+    this.bytes = new Uint8Array(memory.buffer);
+    this.words = new Int32Array(memory.buffer);
+    this.doubles = new Float64Array(memory.buffer);
+    for (let k = 0; k <= 22; k++) this.doubles[k] = 10 ** k;
+  }
+
+  /** Copies `bytes` into the kernel's memory at `at`. */
+  write(bytes: Uint8Array, at: number): void {
+    this.bytes.set(bytes, at);
+  }
+
+  /** Rows per chunk for `fields` fields and `columns` outputs, or 0 when the kernel cannot take them. */
+  chunkRows(fields: number, columns: number): number {
+    const fixed = 4 * fields + 64;
+    // starts, values, spans, keys, counts, flags, with room for alignment
+    const perRow = 4 + 8 * columns + 8 * columns + 8 + 4 + 1;
+    const rows = Math.min(MAX_CHUNK, Math.floor((SCRATCH - fixed) / perRow) - 8);
+    return rows >= MIN_CHUNK ? rows : 0;
+  }
+
+  /** 1 when a byte of [from, to) of this memory is a NUL, CR, double quote or non-ASCII, else 0. */
+  unplainIn(from: number, to: number): number {
+    for (let i = from; i < to; i++) {
+      const b = this.bytes[i] as number;
+      if (b === 0 || b === 13 || b === 34 || b >= 0x80) return 1;
+    }
+    return 0;
+  }
+
+  /** The text of bytes [from, to) of this memory (ASCII: latin1 is the identity). */
+  text(from: number, to: number): string {
+    return Buffer.from(this.bytes.buffer, from, to - from).toString("latin1");
+  }
+
+  /**
+   * Reads rows [from, to) of a file at `base` whose rows start at `starts` (offsets into the file, as
+   * PlainLines.starts; every row must end with a line feed), at most chunkRows(...) rows.
+   */
+  scan(base: number, starts: Int32Array, from: number, to: number, slots: Int32Array, columns: number, delimiter: number, dateIndex: number): KernelChunk {
+    const count = to - from;
+    const align8 = (n: number): number => (n + 7) & ~7;
+    const statusAt = SCRATCH_BASE;
+    const slotsAt = statusAt + 8;
+    const startsAt = align8(slotsAt + 4 * slots.length);
+    const outAt = align8(startsAt + 4 * (count + 1));
+    const spansAt = outAt + 8 * columns * count;
+    const keysAt = spansAt + 8 * columns * count;
+    const countsAt = keysAt + 8 * count;
+    const flagsAt = countsAt + 4 * count;
+    const { words, doubles } = this;
+    words.set(slots, slotsAt >> 2);
+    words.set(starts.subarray(from, to + 1), startsAt >> 2);
+    const flagged = this.exports.readRows(startsAt, count, base, delimiter, slotsAt, slots.length, dateIndex, outAt, keysAt, countsAt, flagsAt, spansAt, statusAt);
+    return {
+      values: (slot) => doubles.subarray((outAt >> 3) + slot * count, (outAt >> 3) + (slot + 1) * count),
+      spans: (slot) => words.subarray((spansAt >> 2) + 2 * slot * count, (spansAt >> 2) + 2 * (slot + 1) * count),
+      keys: doubles.subarray(keysAt >> 3, (keysAt >> 3) + count),
+      counts: words.subarray(countsAt >> 2, (countsAt >> 2) + count),
+      flags: this.bytes.subarray(flagsAt, flagsAt + count),
+      flagged,
+      badDate: words[statusAt >> 2] !== 0,
+    };
+  }
+}
