@@ -21,8 +21,20 @@ export function arrayOf<T>(length: number, at: (i: number) => T): T[] {
   return out;
 }
 
+/** Arrays made by `identityOf` (never written to afterwards): isIdentity knows them without a pass. */
+const identities = new WeakSet<Int32Array>();
+
+/** Int32Array with a[i] = i; the caller must not change it (isIdentity remembers it). */
+export function identityOf(length: number): Int32Array {
+  const a = new Int32Array(length);
+  for (let i = 0; i < length; i++) a[i] = i;
+  identities.add(a);
+  return a;
+}
+
 /** True when a[i] = i for every i. */
 export function isIdentity(a: Int32Array): boolean {
+  if (identities.has(a)) return true;
   for (let i = 0; i < a.length; i++) if (a[i] !== i) return false;
   return true;
 }

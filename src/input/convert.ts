@@ -12,6 +12,12 @@ import type { ReadOptions } from "./options.js";
 /** |return| above this (decimal) is an error unless allowExtreme. */
 export const EXTREME_LIMIT = 10;
 
+/** The first k >= from with |values[k]| > EXTREME_LIMIT, or -1 (one tight loop: most columns have none). */
+function nextExtreme(values: Float64Array, from: number): number {
+  for (let k = from; k < values.length; k++) if (Math.abs(values[k] as number) > EXTREME_LIMIT) return k;
+  return -1;
+}
+
 /** Returns in date order. */
 export interface Converted {
   /** Extracted row index of each return, in date order. */
@@ -31,12 +37,10 @@ export function toReturns(data: Extracted, order: Int32Array, options: ReadOptio
   const inOrder = isIdentity(order);
   const checkExtremes = (out: Float64Array, c: number): Float64Array => {
     if (options.allowExtreme === true) return out;
-    for (let k = 0; k < rows.length; k++) {
+    for (let k = nextExtreme(out, 0); k >= 0; k = nextExtreme(out, k + 1)) {
       const value = out[k] as number;
-      if (Math.abs(value) > EXTREME_LIMIT) {
-        const row = rows[k] as number;
-        issues.add({ code: "extreme-value", source, line: data.lines[row] as number, column: data.columns[c] as string, value: data.rawText(c, row), decimalValue: value, limit: EXTREME_LIMIT });
-      }
+      const row = rows[k] as number;
+      issues.add({ code: "extreme-value", source, line: data.lines[row] as number, column: data.columns[c] as string, value: data.rawText(c, row), decimalValue: value, limit: EXTREME_LIMIT });
     }
     return out;
   };

@@ -1,5 +1,5 @@
 /** From extracted rows to a ReturnTable: date order, conversion to decimal returns, dropping, checks. */
-import { arrayOf, float64Of, int32Of, isIdentity } from "./arrays.js";
+import { arrayOf, float64Of, identityOf, int32Of, isIdentity } from "./arrays.js";
 import { success, failure, type Result } from "../core/result.js";
 import { dateTextAt, isoAt, type Extracted } from "./extracted.js";
 import { plainIsoDateOfKey } from "./dates.js";
@@ -15,16 +15,22 @@ import { unitWarnings, layoutWarnings } from "./warnings.js";
 export const MIN_ROWS = 3;
 const MAX_DROPPED_DATES = 5;
 
+/** The first k >= from with keys[k] <= keys[k - 1] (not later than the previous date), or keys.length. */
+function firstNotIncreasing(keys: Float64Array, from: number): number {
+  for (let k = from; k < keys.length; k++) if (!((keys[k] as number) - (keys[k - 1] as number) > 0)) return k;
+  return keys.length;
+}
+
 /** Row order by date: the identity when already ordered, else checked (or sorted with options.sort). */
 function orderRows(data: Extracted, options: ReadOptions, issues: IssueList): Int32Array {
   const { keys } = data;
   const n = keys.length;
-  const order = new Int32Array(n);
-  for (let i = 0; i < n; i++) order[i] = i;
-  if (options.sort === true && !data.ordered) order.sort((a, b) => (keys[a] as number) - (keys[b] as number) || a - b);
+  const sorted = options.sort === true && !data.ordered;
+  const order = sorted ? int32Of(n, (i) => i).sort((a, b) => (keys[a] as number) - (keys[b] as number) || a - b) : identityOf(n);
   const { source } = options;
   const column = data.dateColumn;
-  for (let k = 1; k < n; k++) {
+  // Unsorted, the order is the identity: find the first key that does not increase in one tight loop.
+  for (let k = sorted ? 1 : firstNotIncreasing(keys, 1); k < n; k = sorted ? k + 1 : firstNotIncreasing(keys, k + 1)) {
     const i = order[k] as number;
     const previous = order[k - 1] as number;
     const delta = (keys[i] as number) - (keys[previous] as number);
