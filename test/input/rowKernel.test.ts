@@ -1,0 +1,134 @@
+/**
+ * The row kernel (src/input/rowKernel.wat, driven by rowKernel.ts and byteGrid.ts): it must give what
+ * the JavaScript engines give, bit for bit, on every file; it must read the simple rows itself; and
+ * the committed binary must be the assembly of the committed text.
+ */
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
+import type { Result } from "../../src/core/result.js";
+import { plainLines } from "../../src/input/byteGrid.js";
+import { decodeText } from "../../src/input/decodeText.js";
+import type { InputIssue } from "../../src/input/issues.js";
+import { readReturnsFromBytes, readReturnsWith, type ReadOptions } from "../../src/input/readReturns.js";
+import type { ReturnTable } from "../../src/input/returnTable.js";
+import { kernelBytes, rowKernelFor } from "../../src/input/rowKernel.js";
+import { rowKernelWasm } from "../../src/input/rowKernelWasm.js";
+
+const ascii = (text: string): Uint8Array => Uint8Array.from(text, (c) => c.charCodeAt(0));
+const inKernel = (bytes: Uint8Array): Uint8Array => {
+  const copy = kernelBytes(bytes.length);
+  copy.set(bytes);
+  return copy;
+};
+
+/** The text engine on the decoded text: what the byte engine (and so the kernel) must give. */
+function throughText(bytes: Uint8Array, options: ReadOptions): Result<ReturnTable, InputIssue[]> {
+  const text = decodeText(bytes, options.source);
+  return text.ok ? readReturnsWith(text.value, options, "auto") : text;
+}
+
+function expectSame(actual: Result<ReturnTable, InputIssue[]>, expected: Result<ReturnTable, InputIssue[]>): void {
+  expect(actual.ok).toBe(expected.ok);
+  if (actual.ok && expected.ok) {
+    const { columns: a, ...restA } = actual.value;
+    const { columns: b, ...restB } = expected.value;
+    expect(restA).toEqual(restB);
+    for (const [name, values] of a) {
+      const other = b.get(name) as Float64Array;
+      expect(values.length).toBe(other.length);
+      values.forEach((v, i) => expect(Object.is(v, other[i]), `${name}[${i}]`).toBe(true));
+    }
+  } else expect(actual).toEqual(expected);
+}
+
+describe("the row kernel", () => {
+  it("is the assembly of rowKernel.wat (regenerate with npm run build:kernel)", async () => {
+    const script = "../../scripts/buildRowKernel.mjs";
+    const { assembleRowKernel } = (await import(script)) as { assembleRowKernel(): Promise<string> };
+    expect(await assembleRowKernel()).toBe(rowKernelWasm);
+  });
+
+  it("reads simple rows itself: numbers, date keys and field counts, nothing flagged", () => {
+    const rows = ["Date,A,B,Note", "2024-02-28,0.5,-12.25,x", "2024-02-29,-0,7,y", "2024-03-01,+.5,5.,z", ""];
+    const bytes = ascii(rows.join("\n"));
+    const lines = plainLines(bytes);
+    if (lines === null) throw new Error("plain");
+    const found = rowKernelFor(bytes);
+    if (found === null) throw new Error("the kernel is available on Node 20");
+    const read = found.kernel.scan(found.base, lines.starts, 1, 4, Int32Array.of(-1, 0, 1, -1), 2, ",".charCodeAt(0), 0);
+    expect(read.flagged).toBe(0);
+    expect([...read.values(0)]).toEqual([0.5, -0, 0.5]);
+    expect(Object.is(read.values(0)[1], -0)).toBe(true);
+    expect([...read.values(1)]).toEqual([-12.25, 7, 5]);
+    expect([...read.counts]).toEqual([4, 4, 4]);
+    // Date.UTC is the independent reference for the day count
+    expect([...read.keys]).toEqual([Date.UTC(2024, 1, 28), Date.UTC(2024, 1, 29), Date.UTC(2024, 2, 1)]);
+  });
+
+  it("flags what it does not read, and says when a well-formed date is not in the calendar", () => {
+    const rows = ["Date,A,B", "2023-02-29,1,2", "2023-03-01,1.5e3,2", "2023-03-02, 1,2", "2023-03-03,1", "2023-03-04,NA,2", "2023-03-05,0.12345678901234567,2", ""];
+    const bytes = ascii(rows.join("\n"));
+    const lines = plainLines(bytes);
+    const found = rowKernelFor(bytes);
+    if (lines === null || found === null) throw new Error("setup");
+    const read = found.kernel.scan(found.base, lines.starts, 1, 7, Int32Array.of(-1, 0, 1), 2, ",".charCodeAt(0), 0);
+    expect([...read.flags]).toEqual([0, 1, 1, 1, 1, 2]);
+    expect(read.badDate).toBe(true);
+    expect(Number.isNaN(read.values(0)[5])).toBe(true);
+  });
+
+  // Rows around the kernel's edges: long and odd numbers, odd dates, odd rows, odd bytes.
+  const oddCell = fc.constantFrom(
+    "0.12345678901234567", "-12345678901234567890", "9007199254740993", "0.00000000000000000000001", "1e5", " 1", "1 ", "", "NA", "+", "-", ".",
+    "1.", ".5", "-0", "0x10", "1,5", "1\"", "\u0000", "\r", "é", "1\t",
+  );
+  const oddDate = fc.constantFrom("2023-02-29", "2023-13-01", "2023-00-10", "0000-01-01", "2023-1-01", "2023/01/01", "20230101", "2023-01-01T00:00", "");
+  const oddRow = fc.oneof(
+    fc.record({ kind: fc.constant("cell" as const), column: fc.nat(2), text: oddCell }),
+    fc.record({ kind: fc.constant("date" as const), text: oddDate }),
+    fc.record({ kind: fc.constantFrom("short" as const, "long" as const, "crlf" as const, "blank" as const) }),
+  );
+  const tall = fc.record({
+    rows: fc.integer({ min: 64, max: 400 }),
+    digits: fc.integer({ min: 1, max: 19 }),
+    edits: fc.array(fc.tuple(fc.nat(), oddRow), { maxLength: 6 }),
+    seed: fc.integer({ min: 1, max: 1_000_000 }),
+    delimiter: fc.constantFrom(",", ";", "\t"),
+  });
+
+  type Tall = typeof tall extends fc.Arbitrary<infer T> ? T : never;
+  function tallFile({ rows, digits, edits, seed, delimiter }: Tall): string {
+    let state = seed;
+    const next = (): number => (state = (state * 16807) % 2147483647) / 2147483647;
+    const lines = Array.from({ length: rows }, (_, r) => {
+      const date = new Date(Date.UTC(2001, 0, 1) + r * 86_400_000).toISOString().slice(0, 10);
+      const cells = [0, 1, 2].map(() => ((next() - 0.5) / 10).toFixed(digits));
+      return [date, ...cells];
+    });
+    for (const [at, edit] of edits) {
+      const line = lines[at % rows] as string[];
+      if (edit.kind === "cell") line[1 + edit.column] = edit.text;
+      else if (edit.kind === "date") line[0] = edit.text;
+      else if (edit.kind === "short") line.pop();
+      else if (edit.kind === "long") line.push("1");
+      else if (edit.kind === "blank") line.splice(0, line.length);
+      else line.push("\r");
+    }
+    const body = lines.map((cells) => cells.join(delimiter).replace(`${delimiter}\r`, "\r"));
+    return `Date${delimiter}A${delimiter}B${delimiter}C\n${body.join("\n")}\n`;
+  }
+
+  it("gives the text engine's result bit for bit on tall generated files, read in place or copied", () => {
+    fc.assert(
+      fc.property(tall, fc.constantFrom(["A", "B"], ["A", "B", "C"], ["C"]), (spec, columns) => {
+        const text = tallFile(spec);
+        const bytes = new TextEncoder().encode(text);
+        const options: ReadOptions = { source: "tall.csv", columns, ...(spec.delimiter === "," ? {} : { delimiter: spec.delimiter }) };
+        const expected = throughText(bytes, options);
+        expectSame(readReturnsFromBytes(bytes, options), expected);
+        expectSame(readReturnsFromBytes(inKernel(bytes), options), expected);
+      }),
+      { seed: 20261205, numRuns: 300 },
+    );
+  });
+});
