@@ -7,7 +7,7 @@ import wabtInit from "wabt";
 export async function assembleRowKernel() {
   const wabt = await wabtInit();
   const text = readFileSync(new URL("../src/input/rowKernel.wat", import.meta.url), "utf8");
-  const module = wabt.parseWat("rowKernel.wat", text);
+  const module = wabt.parseWat("rowKernel.wat", text, { simd: true });
   module.validate();
   const { buffer } = module.toBinary({});
   module.destroy();

@@ -17,7 +17,7 @@
 import { DAY_MS, daysInMonth, plainDateKey } from "./dates.js";
 import type { Grid } from "./grid.js";
 import { parseDecimal } from "./numbers.js";
-import { rowKernelFor, type KernelChunk, type RowKernel } from "./rowKernel.js";
+import { lineEnds, rowKernelFor, type KernelChunk, type RowKernel } from "./rowKernel.js";
 
 const POWERS_OF_TEN = Array.from({ length: 23 }, (_, k) => 10 ** k);
 /** 2^53: digits accumulated in a double are exact when the result is below it (rounding is monotonic). */
@@ -51,6 +51,8 @@ export function plainLines(bytes: Uint8Array, headCheck = HEAD_CHECK): PlainLine
   // Offsets are kept in Int32Array.
   if (bytes.length >= 0x7fffffff || !isPlain(bytes, start, Math.min(bytes.length, start + headCheck))) return null;
   const length = bytes.length;
+  const ends = lineEnds(bytes, start);
+  if (ends !== null) return linesFromEnds(bytes, start, ends);
   // Room for rows of 16 bytes on average (pages never written are not resident); more is grown.
   let starts = new Int32Array(Math.max(1 << 12, (length - start) >> 4));
   let firstBytes = new Uint8Array(starts.length);
@@ -71,6 +73,22 @@ export function plainLines(bytes: Uint8Array, headCheck = HEAD_CHECK): PlainLine
   }
   starts[rows] = from;
   return { start, starts: starts.slice(0, rows + 1), firstBytes: firstBytes.slice(0, rows) };
+}
+
+/** plainLines from the offsets just past each line feed (the kernel finds them, see rowKernel.ts). */
+function linesFromEnds(bytes: Uint8Array, start: number, ends: Int32Array): PlainLines {
+  const length = bytes.length;
+  const last = ends.length > 0 ? (ends[ends.length - 1] as number) : start;
+  // A last row without a line feed ends one past the end, as in plainLines.
+  const open = last < length;
+  const starts = new Int32Array(ends.length + (open ? 2 : 1));
+  starts[0] = start;
+  starts.set(ends, 1);
+  if (open) starts[starts.length - 1] = length + 1;
+  const rows = starts.length - 1;
+  const firstBytes = new Uint8Array(rows);
+  for (let r = 0; r < rows; r++) firstBytes[r] = bytes[starts[r] as number] as number;
+  return { start, starts, firstBytes };
 }
 
 /** True when bytes [from, to) hold no NUL, quote or non-ASCII byte, and each CR there is followed by LF. */

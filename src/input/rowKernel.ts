@@ -25,6 +25,7 @@ const MAX_CHUNK = 16_384;
 const MIN_CHUNK = 256;
 
 interface KernelExports {
+  findLines(from: number, to: number, base: number, out: number): number;
   readRows(starts: number, count: number, base: number, d: number, slots: number, nf: number, dateIndex: number,
     out: number, keys: number, counts: number, flags: number, spans: number, status: number): number;
 }
@@ -57,6 +58,15 @@ export function kernelBytes(size: number): Uint8Array {
   const kernel = new RowKernel(memory, module);
   memories.set(memory.buffer, kernel);
   return new Uint8Array(memory.buffer, FILE_BASE, size);
+}
+
+/**
+ * The offsets just past each line feed of `bytes` from `from` on (where the next row starts), found
+ * by the kernel 16 bytes at a time; null when the bytes are not in kernel memory.
+ */
+export function lineEnds(bytes: Uint8Array, from: number): Int32Array | null {
+  const kernel = memories.get(bytes.buffer);
+  return kernel === undefined ? null : kernel.lineEnds(bytes.byteOffset, from, bytes.length);
 }
 
 /** The kernel whose memory small files are copied into (made on first use, never grown). */
@@ -108,6 +118,25 @@ export class RowKernel {
     this.words = new Int32Array(memory.buffer);
     this.doubles = new Float64Array(memory.buffer);
     for (let k = 0; k <= 22; k++) this.doubles[k] = 10 ** k;
+  }
+
+  /** See `lineEnds`: the file is at `base`, `length` bytes long. */
+  lineEnds(base: number, from: number, length: number): Int32Array {
+    // Each block can hold as many line feeds as bytes: one i32 each in the scratch area.
+    const block = SCRATCH >> 2;
+    let ends = new Int32Array(Math.max(4096, (length - from) >> 5));
+    let count = 0;
+    for (let at = from; at < length; at += block) {
+      const found = this.exports.findLines(base + at, base + Math.min(length, at + block), base, SCRATCH_BASE);
+      if (count + found > ends.length) {
+        const bigger = new Int32Array(Math.max(2 * ends.length, count + found));
+        bigger.set(ends.subarray(0, count));
+        ends = bigger;
+      }
+      ends.set(this.words.subarray(SCRATCH_BASE >> 2, (SCRATCH_BASE >> 2) + found), count);
+      count += found;
+    }
+    return ends.subarray(0, count);
   }
 
   /** Copies `bytes` into the kernel's memory at `at`. */
