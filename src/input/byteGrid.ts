@@ -389,11 +389,13 @@ class ByteGrid implements ByteGridOf {
   /**
    * The flagged rows of a kernel chunk (rows k0 .. kEnd - 1): flag 1, read here (scanRange writes
    * only what it reads, so what the kernel left for the row is cleared first); flag 2, the long
-   * numbers (NaN) parsed from their spans, as scanDecimal hands them to parseDecimal.
+   * numbers (NaN) parsed from their spans, as scanDecimal hands them to parseDecimal (their bytes
+   * are digits, signs and points, so plain).
    */
   private settleFlagged(read: KernelChunk, kernel: RowKernel, first: number, k0: number, kEnd: number, slots: Int32Array,
     out: readonly Float64Array[], counts: Int32Array, dateIndex: number, dateKeys: Float64Array, state: RowScan): void {
     const { flags } = read;
+    const spans = out.map((_, slot) => read.spans(slot));
     for (let k = k0; k < kEnd; k++) {
       const flag = flags[k - k0] as number;
       if (flag === 1) {
@@ -401,18 +403,20 @@ class ByteGrid implements ByteGridOf {
         dateKeys[k] = 0;
         this.scanRange(first, k, k + 1, slots, out, counts, dateIndex, dateKeys, state);
       } else if (flag === 2) {
-        out.forEach((values, slot) => {
-          if (!Number.isNaN(values[k] as number)) return;
-          const spans = read.spans(slot);
-          const from = spans[2 * (k - k0)] as number;
-          const to = spans[2 * (k - k0) + 1] as number;
-          const value = parseDecimal(kernel.text(from, to)) ?? Number.NaN;
-          values[k] = value;
-          if (Number.isNaN(value)) {
+        for (let slot = 0; slot < out.length; slot++) {
+          const values = out[slot] as Float64Array;
+          if (!Number.isNaN(values[k] as number)) continue;
+          const span = spans[slot] as Int32Array;
+          const from = span[2 * (k - k0)] as number;
+          const to = span[2 * (k - k0) + 1] as number;
+          // The kernel checked the syntax ([+-]digits[.digits]), so parseDecimal is Number here.
+          const value = Number(kernel.text(from, to));
+          if (Number.isFinite(value)) values[k] = value;
+          else {
+            values[k] = Number.NaN;
             state.withNaN[slot] = true;
-            state.unplain |= kernel.unplainIn(from, to);
           }
-        });
+        }
       }
     }
   }

@@ -111,8 +111,11 @@ export class RowKernel {
   private readonly bytes: Uint8Array;
   private readonly words: Int32Array;
   private readonly doubles: Float64Array;
+  /** The memory as a Buffer, for its native latin1 slices. */
+  private readonly latin1: Buffer;
 
   constructor(memory: WebAssembly.Memory, module: WebAssembly.Module) {
+    this.latin1 = Buffer.from(memory.buffer);
     this.exports = new WebAssembly.Instance(module, { env: { memory } }).exports as unknown as KernelExports;
     this.bytes = new Uint8Array(memory.buffer);
     this.words = new Int32Array(memory.buffer);
@@ -153,18 +156,9 @@ export class RowKernel {
     return rows >= MIN_CHUNK ? rows : 0;
   }
 
-  /** 1 when a byte of [from, to) of this memory is a NUL, CR, double quote or non-ASCII, else 0. */
-  unplainIn(from: number, to: number): number {
-    for (let i = from; i < to; i++) {
-      const b = this.bytes[i] as number;
-      if (b === 0 || b === 13 || b === 34 || b >= 0x80) return 1;
-    }
-    return 0;
-  }
-
   /** The text of bytes [from, to) of this memory (ASCII: latin1 is the identity). */
   text(from: number, to: number): string {
-    return Buffer.from(this.bytes.buffer, from, to - from).toString("latin1");
+    return this.latin1.toString("latin1", from, to);
   }
 
   /**
