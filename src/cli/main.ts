@@ -3,6 +3,7 @@
  * binds the program to the process. An unexpected exception is a bug: it is reported in one line
  * with exit code 70 (set BETABOUND_DEBUG=1 for the stack).
  */
+import { isatty } from "node:tty";
 import { exitCodes, type ExitCode } from "./exitCodes.js";
 import { openSink, readInputBytes, writeFileAtomic } from "./files.js";
 import type { CliIo } from "./io.js";
@@ -20,7 +21,9 @@ export function processIo(): CliIo {
     writeOutput: writeFileAtomic,
     openSink,
     stdoutIsTerminal: process.stdout.isTTY === true,
-    stdinIsTerminal: process.stdin.isTTY === true,
+    // isatty, not process.stdin.isTTY: touching process.stdin sets up a stream (a millisecond) that
+    // most runs never read.
+    stdinIsTerminal: isatty(0),
     stderrIsTerminal: process.stderr.isTTY === true,
     now: () => performance.now(),
     env: process.env,
