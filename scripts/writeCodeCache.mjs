@@ -1,9 +1,8 @@
 // Writes dist/cli-bundle.cache (see src/cli/bundleLoader.ts): loads the freshly built bundle without a
 // cache, runs the commands below in process with their output discarded, then saves V8's code cache
 // of the bundle, which now holds the bytecode of every function those runs executed (the rest is
-// compiled on first use). Run by
-// scripts/build.mjs in a process of its own with node's default flags (V8 rejects a cache made under
-// other flags).
+// compiled on first use). Run by scripts/build.mjs in a process of its own with node's default flags
+// (V8 rejects a cache made under other flags).
 import { writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { cacheContents, cacheFile, loadCliBundle } from "../dist/bundleLoader.js";
@@ -14,16 +13,30 @@ const monthly = ["examples/harbourline-monthly.csv", "--low", "Stillwater Low Vo
 const daily = ["examples/harbourline-daily.csv", "--low", "Stillwater Low Vol", "--high", "Kestrel High Beta"];
 // Only solve: a cache holding every command's functions is larger, and loading it costs the
 // common run more (about 5 ms) than compiling another command's functions on first use does.
+// The third file holds full-precision numbers (17 digits and more: the reader's other path), made here.
+const fullPrecision = "full-precision.csv";
 const runs = [
   ["solve", ...monthly],
   ["solve", ...daily, "--format", "json", "--no-uncertainty"],
+  ["solve", fullPrecision, "--low", "low", "--high", "high", "--format", "json", "--no-uncertainty"],
 ];
+const day = 86_400_000;
+const fullPrecisionText = [
+  "date,low,high",
+  ...Array.from({ length: 300 }, (_, i) => {
+    const factor = Math.sin(i * 1.3) / 100;
+    return `${new Date(Date.UTC(2001, 0, 1) + i * day).toISOString().slice(0, 10)},${0.7 * factor + Math.cos(i) / 400},${1.3 * factor - Math.cos(i * 0.7) / 300}`;
+  }),
+  "",
+].join("\n");
 
 const { bundle, script } = loadCliBundle(dist, false);
 const discard = () => undefined;
 const quietSink = { write: discard, close: () => ({ ok: true, value: undefined }), discard };
+const processIo = bundle.processIo();
 const io = {
-  ...bundle.processIo(),
+  ...processIo,
+  readInput: (path) => (path === fullPrecision ? Promise.resolve({ ok: true, value: Buffer.from(fullPrecisionText) }) : processIo.readInput(path)),
   writeOut: discard,
   writeErr: discard,
   openSink: () => ({ ok: true, value: quietSink }),
