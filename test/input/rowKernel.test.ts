@@ -108,10 +108,11 @@ describe("the row kernel", () => {
     edits: fc.array(fc.tuple(fc.nat(), oddRow), { maxLength: 6 }),
     seed: fc.integer({ min: 1, max: 1_000_000 }),
     delimiter: fc.constantFrom(",", ";", "\t"),
+    dateAt: fc.integer({ min: 0, max: 3 }),
   });
 
   type Tall = typeof tall extends fc.Arbitrary<infer T> ? T : never;
-  function tallFile({ rows, digits, edits, seed, delimiter }: Tall): string {
+  function tallFile({ rows, digits, edits, seed, delimiter, dateAt }: Tall): string {
     let state = seed;
     const next = (): number => (state = (state * 16807) % 2147483647) / 2147483647;
     const lines = Array.from({ length: rows }, (_, r) => {
@@ -128,16 +129,29 @@ describe("the row kernel", () => {
       else if (edit.kind === "blank") line.splice(0, line.length);
       else line.push("\r");
     }
-    const body = lines.map((cells) => cells.join(delimiter).replace(`${delimiter}\r`, "\r"));
-    return `Date${delimiter}A${delimiter}B${delimiter}C\n${body.join("\n")}\n`;
+    // The date field moved to position dateAt (the header too).
+    const moved = (cells: string[]): string[] => (cells.length === 0 ? cells : [...cells.slice(1, dateAt + 1), cells[0] as string, ...cells.slice(dateAt + 1)]);
+    const body = lines.map((cells) => moved(cells).join(delimiter).replace(`${delimiter}\r`, "\r"));
+    return `${moved(["Date", "A", "B", "C"]).join(delimiter)}\n${body.join("\n")}\n`;
   }
+
+  it("generates tall files that mostly read (so the comparison below is not between two failures)", () => {
+    const specs = fc.sample(tall, { seed: 20261207, numRuns: 60 });
+    const read = specs.filter((spec) => {
+      const options: ReadOptions = { source: "tall.csv", columns: ["A", "B"], dateColumn: "Date", ...(spec.delimiter === "," ? {} : { delimiter: spec.delimiter }) };
+      return readReturnsFromBytes(new TextEncoder().encode(tallFile(spec)), options).ok;
+    });
+    // A third read (20 of 60 with this seed); the others fail with the issues an odd row raises,
+    // which the comparison checks too.
+    expect(read.length).toBeGreaterThanOrEqual(10);
+  });
 
   it("gives the text engine's result bit for bit on tall generated files, read in place or copied", () => {
     fc.assert(
       fc.property(tall, fc.constantFrom(["A", "B"], ["A", "B", "C"], ["C"]), (spec, columns) => {
         const text = tallFile(spec);
         const bytes = new TextEncoder().encode(text);
-        const options: ReadOptions = { source: "tall.csv", columns, ...(spec.delimiter === "," ? {} : { delimiter: spec.delimiter }) };
+        const options: ReadOptions = { source: "tall.csv", columns, dateColumn: "Date", ...(spec.delimiter === "," ? {} : { delimiter: spec.delimiter }) };
         const expected = throughText(bytes, options);
         expectSame(readReturnsFromBytes(bytes, options), expected);
         expectSame(readReturnsFromBytes(inKernel(bytes), options), expected);
