@@ -3,36 +3,14 @@ import fc from "fast-check";
 import { decimalOfBytes, plainLines } from "../../src/input/byteGrid.js";
 import { decodeText } from "../../src/input/decodeText.js";
 import { parseDecimal } from "../../src/input/numbers.js";
-import { readBytesWith, readReturns, readReturnsFromBytes, readReturnsWith, type ReadOptions } from "../../src/input/readReturns.js";
-import type { ReturnTable } from "../../src/input/returnTable.js";
-import type { Result } from "../../src/core/result.js";
-import type { InputIssue } from "../../src/input/issues.js";
+import { readBytesWith, readReturns, readReturnsFromBytes, type ReadOptions } from "../../src/input/readReturns.js";
 import { dialect, generatedTable, mutated, writeLongTable, writeTable } from "./arbitraries.js";
+import { expectSameRead, throughText } from "./helpers.js";
 
 const utf8 = (text: string): Uint8Array => new TextEncoder().encode(text);
 const ascii = (text: string): Uint8Array => Uint8Array.from(text, (c) => c.charCodeAt(0));
 
-/** decodeText, then readReturns on the text: what readReturnsFromBytes must give. */
-function throughText(bytes: Uint8Array, options: ReadOptions, engine: "auto" | "general" = "auto"): Result<ReturnTable, InputIssue[]> {
-  const text = decodeText(bytes, options.source);
-  return text.ok ? readReturnsWith(text.value, options, engine) : text;
-}
-
-/** Same outcome, with values compared bit for bit. */
-function expectSame(actual: Result<ReturnTable, InputIssue[]>, expected: Result<ReturnTable, InputIssue[]>): void {
-  expect(actual.ok).toBe(expected.ok);
-  if (actual.ok && expected.ok) {
-    const { columns: a, ...restA } = actual.value;
-    const { columns: b, ...restB } = expected.value;
-    expect(restA).toEqual(restB);
-    expect([...a.keys()]).toEqual([...b.keys()]);
-    for (const [name, values] of a) {
-      const other = b.get(name) as Float64Array;
-      expect(values.length).toBe(other.length);
-      values.forEach((v, i) => expect(Object.is(v, other[i]), `${name}[${i}]`).toBe(true));
-    }
-  } else expect(actual).toEqual(expected);
-}
+const expectSame = expectSameRead;
 
 const options = (columns: readonly string[], extra: Partial<ReadOptions> = {}): ReadOptions => ({ source: "bytes.csv", columns, ...extra });
 

@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { readReturns, readReturnsWith, type ReadOptions } from "../../src/input/readReturns.js";
 import { dialect, generatedTable, mutated, writeLongTable, writeTable } from "./arbitraries.js";
+import { expectSameRead } from "./helpers.js";
 
 const options = (columns: readonly string[], extra: Partial<ReadOptions> = {}): ReadOptions => ({ source: "fuzz.csv", columns, ...extra });
 
@@ -60,18 +61,7 @@ describe("reading generated files", () => {
     const files = fc.oneof(unquoted, unquoted.chain(({ text, names }) => mutated(fc.constant(text)).map((t) => ({ text: t.replaceAll('"', ""), names }))));
     fc.assert(fc.property(files, fc.boolean(), ({ text, names }, sort) => {
       const opts = options(names, { sort });
-      const fast = readReturnsWith(text, opts, "auto");
-      const general = readReturnsWith(text, opts, "general");
-      expect(fast.ok).toBe(general.ok);
-      if (fast.ok && general.ok) {
-        const { columns: a, ...restA } = fast.value;
-        const { columns: b, ...restB } = general.value;
-        expect(restA).toEqual(restB);
-        for (const [name, values] of a) {
-          const other = b.get(name) as Float64Array;
-          values.forEach((v, i) => expect(Object.is(v, other[i])).toBe(true));
-        }
-      } else expect(fast).toEqual(general);
+      expectSameRead(readReturnsWith(text, opts, "auto"), readReturnsWith(text, opts, "general"));
     }), { numRuns: 500 });
   });
 

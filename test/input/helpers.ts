@@ -1,6 +1,8 @@
 import { expect } from "vitest";
+import type { Result } from "../../src/core/result.js";
+import { decodeText } from "../../src/input/decodeText.js";
 import type { InputIssue } from "../../src/input/issues.js";
-import { readReturns, type ReadOptions, type ReturnTable } from "../../src/input/readReturns.js";
+import { readReturns, readReturnsWith, type ReadOptions, type ReturnTable } from "../../src/input/readReturns.js";
 
 export const LOW = "Low Fund";
 export const HIGH = "High Fund";
@@ -35,3 +37,25 @@ export const MONTHLY = [
   "2020-04-30,0.012,0.05,x",
   "",
 ].join("\n");
+
+/** decodeText, then readReturns on the text: what reading the bytes must give. */
+export function throughText(bytes: Uint8Array, options: ReadOptions, engine: "auto" | "general" = "auto"): Result<ReturnTable, InputIssue[]> {
+  const text = decodeText(bytes, options.source);
+  return text.ok ? readReturnsWith(text.value, options, engine) : text;
+}
+
+/** The same outcome of two reads, with every value compared bit for bit (Object.is). */
+export function expectSameRead(actual: Result<ReturnTable, InputIssue[]>, expected: Result<ReturnTable, InputIssue[]>): void {
+  expect(actual.ok).toBe(expected.ok);
+  if (actual.ok && expected.ok) {
+    const { columns: a, ...restA } = actual.value;
+    const { columns: b, ...restB } = expected.value;
+    expect(restA).toEqual(restB);
+    expect([...a.keys()]).toEqual([...b.keys()]);
+    for (const [name, values] of a) {
+      const other = b.get(name) as Float64Array;
+      expect(values.length).toBe(other.length);
+      values.forEach((v, i) => expect(Object.is(v, other[i]), `${name}[${i}]`).toBe(true));
+    }
+  } else expect(actual).toEqual(expected);
+}

@@ -5,14 +5,11 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import type { Result } from "../../src/core/result.js";
 import { plainLines } from "../../src/input/byteGrid.js";
-import { decodeText } from "../../src/input/decodeText.js";
-import type { InputIssue } from "../../src/input/issues.js";
-import { readReturnsFromBytes, readReturnsWith, type ReadOptions } from "../../src/input/readReturns.js";
-import type { ReturnTable } from "../../src/input/returnTable.js";
+import { readReturnsFromBytes, type ReadOptions } from "../../src/input/readReturns.js";
 import { kernelBytes, rowKernelFor } from "../../src/input/rowKernel.js";
 import { rowKernelWasm } from "../../src/input/rowKernelWasm.js";
+import { expectSameRead, throughText } from "./helpers.js";
 
 const ascii = (text: string): Uint8Array => Uint8Array.from(text, (c) => c.charCodeAt(0));
 const inKernel = (bytes: Uint8Array): Uint8Array => {
@@ -21,25 +18,7 @@ const inKernel = (bytes: Uint8Array): Uint8Array => {
   return copy;
 };
 
-/** The text engine on the decoded text: what the byte engine (and so the kernel) must give. */
-function throughText(bytes: Uint8Array, options: ReadOptions): Result<ReturnTable, InputIssue[]> {
-  const text = decodeText(bytes, options.source);
-  return text.ok ? readReturnsWith(text.value, options, "auto") : text;
-}
-
-function expectSame(actual: Result<ReturnTable, InputIssue[]>, expected: Result<ReturnTable, InputIssue[]>): void {
-  expect(actual.ok).toBe(expected.ok);
-  if (actual.ok && expected.ok) {
-    const { columns: a, ...restA } = actual.value;
-    const { columns: b, ...restB } = expected.value;
-    expect(restA).toEqual(restB);
-    for (const [name, values] of a) {
-      const other = b.get(name) as Float64Array;
-      expect(values.length).toBe(other.length);
-      values.forEach((v, i) => expect(Object.is(v, other[i]), `${name}[${i}]`).toBe(true));
-    }
-  } else expect(actual).toEqual(expected);
-}
+const expectSame = expectSameRead;
 
 describe("the row kernel", () => {
   it("is the assembly of rowKernel.wat (regenerate with npm run build:kernel)", async () => {
