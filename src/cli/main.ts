@@ -3,7 +3,6 @@
  * binds the program to the process. An unexpected exception is a bug: it is reported in one line
  * with exit code 70 (set BETABOUND_DEBUG=1 for the stack).
  */
-import { isatty } from "node:tty";
 import { exitCodes, type ExitCode } from "./exitCodes.js";
 import { openSink, readInputBytes, writeFileAtomic } from "./files.js";
 import type { CliIo } from "./io.js";
@@ -20,11 +19,17 @@ export function processIo(): CliIo {
     readInput: readInputBytes,
     writeOutput: writeFileAtomic,
     openSink,
-    stdoutIsTerminal: process.stdout.isTTY === true,
-    // isatty, not process.stdin.isTTY: touching process.stdin sets up a stream (a millisecond) that
-    // most runs never read.
-    stdinIsTerminal: isatty(0),
-    stderrIsTerminal: process.stderr.isTTY === true,
+    // Getters: each stream is set up only when a run asks (stdin's, for instance, loads the network
+    // modules when it is a pipe, a few milliseconds that most runs, given files, never need).
+    get stdoutIsTerminal() {
+      return process.stdout.isTTY === true;
+    },
+    get stdinIsTerminal() {
+      return process.stdin.isTTY === true;
+    },
+    get stderrIsTerminal() {
+      return process.stderr.isTTY === true;
+    },
     now: () => performance.now(),
     env: process.env,
   };

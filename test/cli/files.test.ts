@@ -1,0 +1,56 @@
+/** The CLI's file access (src/cli/files.ts): reads, large reads into the row kernel's memory, atomic writes. */
+import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { describe, expect, it } from "vitest";
+import { readInputBytes, writeFileAtomic } from "../../src/cli/files.js";
+import { rowKernelFor } from "../../src/input/rowKernel.js";
+
+const scratch = mkdtempSync(join(tmpdir(), "betabound-files-"));
+
+describe("readInputBytes", () => {
+  it("reads a small file whole", async () => {
+    const path = join(scratch, "small.csv");
+    writeFileSync(path, "Date,A\n2020-01-31,1\n");
+    const read = await readInputBytes(path);
+    if (!read.ok) throw new Error("read failed");
+    expect(Buffer.from(read.value).toString()).toBe("Date,A\n2020-01-31,1\n");
+  });
+
+  it("reads a large file whole, into the row kernel's memory (read there in place)", async () => {
+    const path = join(scratch, "large.csv");
+    const row = "2020-01-31,0.012345,-0.5\n";
+    const text = `Date,A,B\n${row.repeat(Math.ceil((17 << 20) / row.length))}`;
+    writeFileSync(path, text);
+    const read = await readInputBytes(path);
+    if (!read.ok) throw new Error("read failed");
+    expect(read.value.length).toBe(text.length);
+    expect(Buffer.from(read.value.buffer, read.value.byteOffset, read.value.length).equals(readFileSync(path))).toBe(true);
+    // Above the size the kernel copies, it only takes bytes that are already in its memory.
+    expect(rowKernelFor(read.value)).not.toBeNull();
+  });
+
+  it("says which file could not be read, and why", async () => {
+    const read = await readInputBytes(join(scratch, "missing.csv"));
+    expect(read.ok).toBe(false);
+    if (!read.ok) expect(read.issues).toMatchObject({ code: "read-failed", path: join(scratch, "missing.csv") });
+  });
+});
+
+describe("writeFileAtomic", () => {
+  it("writes the text, and leaves no temporary file behind", async () => {
+    const dir = mkdtempSync(join(scratch, "out-"));
+    const path = join(dir, "report.json");
+    expect((await writeFileAtomic(path, "{}\n")).ok).toBe(true);
+    expect(readFileSync(path, "utf8")).toBe("{}\n");
+    expect(readdirSync(dir)).toEqual(["report.json"]);
+  });
+
+  it("fails on a path that cannot be written, leaving nothing behind", async () => {
+    const dir = mkdtempSync(join(scratch, "bad-"));
+    const written = await writeFileAtomic(join(dir, "no-such-folder", "report.json"), "{}\n");
+    expect(written.ok).toBe(false);
+    if (!written.ok) expect(written.issues).toMatchObject({ code: "write-failed" });
+    expect(readdirSync(dir)).toEqual([]);
+  });
+});
