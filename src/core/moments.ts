@@ -149,11 +149,6 @@ export function excessCrossProducts(low: ArrayLike<number>, high: ArrayLike<numb
   return welford3(low, high, null, riskFree, weight);
 }
 
-/** sum + term, as its own step so that each update below reads like the general loop's. */
-const add = (sum: number, term: number): number => sum + term;
-/** The rounding error of next = sum + term (Neumaier). Module-level, so optimised code inlines it. */
-const carry = (sum: number, term: number, next: number): number => (Math.abs(sum) >= Math.abs(term) ? sum - next + term : term - next + sum);
-
 /**
  * The unrolled three-series Welford pass on (x - r, y - r, z), with z = w (x - r) + (1 - w)(y - r)
  * when null; r = 0 gives crossProducts3 exactly (x - 0 is x). The rows are taken in chunks by a
@@ -202,6 +197,8 @@ function welfordChunk(
   let mx = state[0]!, my = state[1]!, mz = state[2]!, ex = state[3]!, ey = state[4]!, ez = state[5]!;
   let sxx = state[6]!, sxy = state[7]!, sxz = state[8]!, syy = state[9]!, syz = state[10]!, szz = state[11]!;
   let cxx = state[12]!, cxy = state[13]!, cxz = state[14]!, cyy = state[15]!, cyz = state[16]!, czz = state[17]!;
+  // Each update is next = s + t with Neumaier's carry c += |s| >= |t| ? s - next + t : t - next + s,
+  // written out: short series run in the interpreter, where a call per update costs more than the sum.
   for (let t = from; t < to; t++) {
     const inverseCount = 1 / (t + 1);
     const r = rates === null ? rate : rates[t]!;
@@ -215,31 +212,31 @@ function welfordChunk(
     const dz = vz - (mz + ez);
     let inc = dx * inverseCount;
     let next = mx + inc;
-    ex += carry(mx, inc, next);
+    ex += Math.abs(mx) >= Math.abs(inc) ? mx - next + inc : inc - next + mx;
     mx = next;
     inc = dy * inverseCount;
     next = my + inc;
-    ey += carry(my, inc, next);
+    ey += Math.abs(my) >= Math.abs(inc) ? my - next + inc : inc - next + my;
     my = next;
     inc = dz * inverseCount;
     next = mz + inc;
-    ez += carry(mz, inc, next);
+    ez += Math.abs(mz) >= Math.abs(inc) ? mz - next + inc : inc - next + mz;
     mz = next;
     const ax = vx - (mx + ex);
     const ay = vy - (my + ey);
     const az = vz - (mz + ez);
     let term = dx * ax;
-    next = add(sxx, term); cxx += carry(sxx, term, next); sxx = next;
+    next = sxx + term; cxx += Math.abs(sxx) >= Math.abs(term) ? sxx - next + term : term - next + sxx; sxx = next;
     term = dx * ay;
-    next = add(sxy, term); cxy += carry(sxy, term, next); sxy = next;
+    next = sxy + term; cxy += Math.abs(sxy) >= Math.abs(term) ? sxy - next + term : term - next + sxy; sxy = next;
     term = dx * az;
-    next = add(sxz, term); cxz += carry(sxz, term, next); sxz = next;
+    next = sxz + term; cxz += Math.abs(sxz) >= Math.abs(term) ? sxz - next + term : term - next + sxz; sxz = next;
     term = dy * ay;
-    next = add(syy, term); cyy += carry(syy, term, next); syy = next;
+    next = syy + term; cyy += Math.abs(syy) >= Math.abs(term) ? syy - next + term : term - next + syy; syy = next;
     term = dy * az;
-    next = add(syz, term); cyz += carry(syz, term, next); syz = next;
+    next = syz + term; cyz += Math.abs(syz) >= Math.abs(term) ? syz - next + term : term - next + syz; syz = next;
     term = dz * az;
-    next = add(szz, term); czz += carry(szz, term, next); szz = next;
+    next = szz + term; czz += Math.abs(szz) >= Math.abs(term) ? szz - next + term : term - next + szz; szz = next;
   }
   state[0] = mx; state[1] = my; state[2] = mz; state[3] = ex; state[4] = ey; state[5] = ez;
   state[6] = sxx; state[7] = sxy; state[8] = sxz; state[9] = syy; state[10] = syz; state[11] = szz;
