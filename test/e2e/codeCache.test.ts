@@ -2,7 +2,7 @@
  * End-to-end: the executable loads its bundle through V8's code cache (src/cli/bundleLoader.ts), and
  * runs the same without it: with the cache missing, made from another bundle, or unusable.
  */
-import { spawnSync } from "node:child_process";
+import { execFileSync, spawnSync } from "node:child_process";
 import { copyFileSync, mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
@@ -52,5 +52,17 @@ describe("the code cache", () => {
     expect(result.code).toBe(0);
     expect(result.stderr).toBe(expected.stderr);
     expect(result.stdout).toBe(expected.stdout);
+  });
+});
+
+describe("the published package", () => {
+  it("holds the executable, its bundle, the code cache and the worker (npm pack)", () => {
+    const npm = process.platform === "win32" ? "npm.cmd" : "npm";
+    const packed = JSON.parse(execFileSync(npm, ["pack", "--dry-run", "--json", "--ignore-scripts"], { cwd: root, encoding: "utf8" })) as { files: { path: string }[] }[];
+    const files = new Set(packed[0]?.files.map((f) => f.path));
+    const pkg = JSON.parse(readFileSync(join(root, "package.json"), "utf8")) as { bin: Record<string, string> };
+    for (const path of [pkg.bin["betabound"]?.replace(/^\.\//, ""), "dist/cli-bundle.cjs", "dist/cli-bundle.cache", "dist/bootstrapWorker.js", "dist/index.js"]) {
+      expect(files.has(path ?? ""), path).toBe(true);
+    }
   });
 });
