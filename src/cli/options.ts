@@ -72,35 +72,49 @@ export function once<T>(build: () => T): () => T {
 // its options once.
 z.config({ ...en(), jitless: true });
 
-/** A non-empty string. */
-const text = () => z.string().check(z.minLength(1));
-/** A number strictly between 0 and 1. */
-const fraction = () => z.number().check(z.gt(0), z.lt(1));
+/**
+ * The leaf schemas most options share, each built once (zod schemas are immutable, so one instance
+ * serves every field; issues carry the field's path, not the schema's).
+ */
+const leaves = once(() => ({
+  /** A non-empty string. */
+  text: z.string().check(z.minLength(1)),
+  optionalText: z.optional(z.string().check(z.minLength(1))),
+  boolean: z.boolean(),
+  /** A number strictly between 0 and 1. */
+  fraction: z.number().check(z.gt(0), z.lt(1)),
+  positive: z.number().check(z.positive()),
+  nonnegative: z.number().check(z.nonnegative()),
+  wholeNonnegative: z.int().check(z.nonnegative()),
+  wholePositive: z.int().check(z.positive()),
+}));
+const text = () => leaves().text;
+const fraction = () => leaves().fraction;
 
 /** Options shared by every command that reads return files: which books, and how to read them. */
 export const inputOptionsShape = once(() => ({
-  low: z.optional(text()),
-  high: z.optional(text()),
+  low: leaves().optionalText,
+  high: leaves().optionalText,
   pair: z.optional(z.array(z.strictObject({ low: text(), high: text() }))),
   lows: z.optional(z.array(text())),
   highs: z.optional(z.array(text())),
-  date: z.optional(text()),
+  date: leaves().optionalText,
   weight: fraction(),
-  rf: z.optional(text()),
+  rf: leaves().optionalText,
   units: z.enum(unitChoices),
-  output: z.optional(text()),
-  allowExtreme: z.boolean(),
+  output: leaves().optionalText,
+  allowExtreme: leaves().boolean,
   delimiter: z.optional(z.string().check(z.length(1))),
-  block: z.optional(z.int().check(z.positive())),
-  dateFormat: z.optional(text()),
-  sort: z.boolean(),
-  periodsPerYear: z.optional(z.number().check(z.positive())),
+  block: z.optional(leaves().wholePositive),
+  dateFormat: leaves().optionalText,
+  sort: leaves().boolean,
+  periodsPerYear: z.optional(leaves().positive),
   missing: z.optional(z.array(text())),
   onMissing: z.enum(missingPolicies),
   input: z.enum(inputKinds),
-  idColumn: z.optional(text()),
-  valueColumn: z.optional(text()),
-  decimalComma: z.boolean(),
+  idColumn: leaves().optionalText,
+  valueColumn: leaves().optionalText,
+  decimalComma: leaves().boolean,
 }));
 
 /** The input options after validation (what the pair loader needs). */
@@ -130,23 +144,23 @@ export const solveOptionsSchema = once(() => {
     ...inputOptionsShape(),
     steps: z.int().check(z.gte(2), z.lte(maximumSteps)),
     format: z.enum(solveFormats),
-    uncertainty: z.boolean(),
+    uncertainty: leaves().boolean,
     confidence: fraction(),
     longRun: z.enum(longRunMethods),
     hacKernel: z.enum(hacKernels),
     hacBandwidth: z.enum(automaticBandwidths),
-    hacLags: z.optional(z.int().check(z.nonnegative())),
-    hacPrewhite: z.boolean(),
-    hacAdjust: z.boolean(),
+    hacLags: z.optional(leaves().wholeNonnegative),
+    hacPrewhite: leaves().boolean,
+    hacAdjust: leaves().boolean,
     interval: z.enum(intervalMethods),
     intervalSource: z.enum(intervalSources),
-    bootstrap: z.int().check(z.nonnegative()),
+    bootstrap: leaves().wholeNonnegative,
     blockLength: z.union([z.literal("auto"), z.number().check(z.gte(1))]),
-    seed: z.int().check(z.nonnegative()),
-    threads: z.int().check(z.positive()),
-    chart: z.optional(text()),
+    seed: leaves().wholeNonnegative,
+    threads: leaves().wholePositive,
+    chart: leaves().optionalText,
     chartY: z.enum(chartYChoices),
-    report: z.optional(text()),
+    report: leaves().optionalText,
   });
   return refineInputOptions(schema).check(
     z.refine<z.infer<typeof schema>>((o) => o.intervalSource !== "bootstrap" || o.bootstrap >= 2, {
@@ -162,11 +176,11 @@ export const simulateFormats = ["csv", "jsonl"] as const;
 
 /** A structure given on the command line (simulate, implied): per period, decimal. */
 const structureShape = once(() => ({
-  lowBeta: z.number().check(z.positive()),
-  factorVol: z.number().check(z.positive()),
+  lowBeta: leaves().positive,
+  factorVol: leaves().positive,
   factorMean: z.number(),
-  lowNoiseVol: z.number().check(z.nonnegative()),
-  highNoiseVol: z.number().check(z.nonnegative()),
+  lowNoiseVol: leaves().nonnegative,
+  highNoiseVol: leaves().nonnegative,
   weight: fraction(),
   rf: z.number(),
 }));
@@ -183,20 +197,20 @@ export const simulateOptionsSchema = once(() =>
   z
     .strictObject({
       ...structureShape(),
-      periods: z.int().check(z.positive()),
+      periods: leaves().wholePositive,
       frequency: z.enum(frequencies),
       start: z.string().check(
         z.regex(/^\d{4}-\d{2}-\d{2}$/, "must be a date YYYY-MM-DD"),
         z.refine((s: string) => !Number.isNaN(Date.parse(s)), "must be a real date"),
       ),
-      seed: z.int().check(z.nonnegative()),
+      seed: leaves().wholeNonnegative,
       tails: z.optional(z.number().check(z.gt(2))),
       noiseAr: z.optional(z.number().check(z.gt(-1), z.lt(1))),
-      garch: z.optional(z.strictObject({ alpha: z.number().check(z.nonnegative()), beta: z.number().check(z.nonnegative()) })),
+      garch: z.optional(z.strictObject({ alpha: leaves().nonnegative, beta: leaves().nonnegative })),
       names: z.tuple([text(), text(), text()]),
       digits: z.optional(z.int().check(z.gte(1), z.lte(17))),
       format: z.enum(simulateFormats),
-      output: z.optional(text()),
+      output: leaves().optionalText,
     })
     .check(positiveHighBeta()),
 );
@@ -218,7 +232,7 @@ export const impliedOptionsSchema = once(() =>
       ...structureShape(),
       steps: z.int().check(z.gte(2), z.lte(maximumSteps)),
       format: z.enum(reportFormats),
-      output: z.optional(text()),
+      output: leaves().optionalText,
     })
     .check(positiveHighBeta()),
 );
@@ -232,14 +246,14 @@ export const rollOptionsSchema = once(() => {
   const schema = z.strictObject({
     ...inputOptionsShape(),
     window: z.optional(z.int().check(z.gte(3))),
-    step: z.int().check(z.positive()),
-    expanding: z.boolean(),
+    step: leaves().wholePositive,
+    expanding: leaves().boolean,
     minPeriods: z.optional(z.int().check(z.gte(3))),
     format: z.enum(rollFormats),
-    uncertainty: z.boolean(),
+    uncertainty: leaves().boolean,
     confidence: fraction(),
     longRun: z.enum(longRunMethods),
-    chart: z.optional(text()),
+    chart: leaves().optionalText,
   });
   type Roll = z.infer<typeof schema>;
   return refineInputOptions(schema).check(
