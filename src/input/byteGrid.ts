@@ -380,7 +380,7 @@ class ByteGrid implements ByteGridOf {
         counts.set(read.counts, k0);
         if (state.plain) dateKeys.set(read.keys, k0);
         if (read.badDate) state.plain = false;
-        if (read.flagged > 0) this.settleFlagged(read, kernel, first, k0, kEnd, slots, out, counts, dateIndex, dateKeys, state);
+        if (read.flagged > 0) this.settleFlagged(read, kernel, base, first, k0, kEnd, slots, out, counts, dateIndex, dateKeys, state);
       }
       if (kEnd < k1) this.scanRange(first, kEnd, k1, slots, out, counts, dateIndex, dateKeys, state);
     }
@@ -392,10 +392,13 @@ class ByteGrid implements ByteGridOf {
    * numbers (NaN) parsed from their spans, as scanDecimal hands them to parseDecimal (their bytes
    * are digits, signs and points, so plain).
    */
-  private settleFlagged(read: KernelChunk, kernel: RowKernel, first: number, k0: number, kEnd: number, slots: Int32Array,
+  private settleFlagged(read: KernelChunk, kernel: RowKernel, base: number, first: number, k0: number, kEnd: number, slots: Int32Array,
     out: readonly Float64Array[], counts: Int32Array, dateIndex: number, dateKeys: Float64Array, state: RowScan): void {
     const { flags } = read;
     const spans = out.map((_, slot) => read.spans(slot));
+    // The chunk's text, made once when a long number needs it: substrings of it are cheap.
+    const textFrom = base + (this.starts[first + k0] as number);
+    let text: string | null = null;
     for (let k = k0; k < kEnd; k++) {
       const flag = flags[k - k0] as number;
       if (flag === 1) {
@@ -410,7 +413,8 @@ class ByteGrid implements ByteGridOf {
           const from = span[2 * (k - k0)] as number;
           const to = span[2 * (k - k0) + 1] as number;
           // The kernel checked the syntax ([+-]digits[.digits]), so parseDecimal is Number here.
-          const value = Number(kernel.text(from, to));
+          text ??= kernel.text(textFrom, base + (this.starts[first + kEnd] as number));
+          const value = Number(text.substring(from - textFrom, to - textFrom));
           if (Number.isFinite(value)) values[k] = value;
           else {
             values[k] = Number.NaN;

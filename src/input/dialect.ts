@@ -5,14 +5,34 @@ export const candidateDelimiters = [",", ";", "\t"] as const;
 
 const SAMPLE_LINES = 64;
 
-function countFields(line: string, delimiter: string): number {
+function countFields(line: string, delimiter: number): number {
   let fields = 1;
   let quoted = false;
-  for (const char of line) {
-    if (char === '"') quoted = !quoted;
-    else if (char === delimiter && !quoted) fields++;
+  // By UTF-16 unit: the quote and the delimiters are single units, which no surrogate half equals.
+  for (let i = 0; i < line.length; i++) {
+    const unit = line.charCodeAt(i);
+    if (unit === 34) quoted = !quoted;
+    else if (unit === delimiter && !quoted) fields++;
   }
   return fields;
+}
+
+/**
+ * The first `count` non-blank lines of `text` (lines end at CRLF, LF or a lone CR), found one at a
+ * time: the same lines as splitting all of the text and keeping the first non-blank ones.
+ */
+function firstLines(text: string, count: number): string[] {
+  const lines: string[] = [];
+  let from = 0;
+  while (lines.length < count) {
+    let end = from;
+    while (end < text.length && text.charCodeAt(end) !== 10 && text.charCodeAt(end) !== 13) end++;
+    const line = text.slice(from, end);
+    if (line.trim() !== "") lines.push(line);
+    if (end >= text.length) break;
+    from = end + (text.charCodeAt(end) === 13 && text.charCodeAt(end + 1) === 10 ? 2 : 1);
+  }
+  return lines;
 }
 
 function modeOf(values: readonly number[]): { value: number; frequency: number } {
@@ -32,11 +52,13 @@ function modeOf(values: readonly number[]): { value: number; frequency: number }
  */
 export function detectDelimiter(text: string, candidates: readonly string[] = candidateDelimiters): string {
   const head = text.length > 65536 ? text.slice(0, text.lastIndexOf("\n", 65536) + 1 || 65536) : text;
-  const lines = head.split(/\r\n|\n|\r/).filter((line) => line.trim() !== "").slice(0, SAMPLE_LINES);
+  const lines = firstLines(head, SAMPLE_LINES);
   let best: string = candidates[0] ?? ",";
   let bestScore = 0;
   for (const delimiter of candidates) {
-    const { value, frequency } = modeOf(lines.map((line) => countFields(line, delimiter)));
+    // The candidates are single characters (a longer one would never split a line).
+    const code = delimiter.length === 1 ? delimiter.charCodeAt(0) : -1;
+    const { value, frequency } = modeOf(lines.map((line) => countFields(line, code)));
     const score = value >= 2 ? frequency : 0;
     if (score > bestScore) {
       best = delimiter;

@@ -1,3 +1,4 @@
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { detectDelimiter } from "../../src/input/dialect.js";
 import { column, HIGH, LOW, readIssues, readOk } from "./helpers.js";
@@ -5,7 +6,48 @@ import { column, HIGH, LOW, readIssues, readOk } from "./helpers.js";
 const rows = ["2020-01-31|0.01|0.02", "2020-02-29|-0.01|0.03", "2020-03-31|0.02|-0.04"];
 const file = (delimiter: string, header = `Date|${LOW}|${HIGH}`): string => [header, ...rows].join("\n").replaceAll("|", delimiter);
 
+/** The first implementation (split all lines, count code points): the reference the faster one must equal. */
+function referenceDetect(text: string, candidates: readonly string[] = [",", ";", "\t"]): string {
+  const head = text.length > 65536 ? text.slice(0, text.lastIndexOf("\n", 65536) + 1 || 65536) : text;
+  const lines = head.split(/\r\n|\n|\r/).filter((line) => line.trim() !== "").slice(0, 64);
+  const countFields = (line: string, delimiter: string): number => {
+    let fields = 1;
+    let quoted = false;
+    for (const char of line) {
+      if (char === '"') quoted = !quoted;
+      else if (char === delimiter && !quoted) fields++;
+    }
+    return fields;
+  };
+  let best = candidates[0] ?? ",";
+  let bestScore = 0;
+  for (const delimiter of candidates) {
+    const tally = new Map<number, number>();
+    for (const line of lines) tally.set(countFields(line, delimiter), (tally.get(countFields(line, delimiter)) ?? 0) + 1);
+    let mode = { value: 1, frequency: 0 };
+    for (const [value, frequency] of tally) if (frequency > mode.frequency || (frequency === mode.frequency && value > mode.value)) mode = { value, frequency };
+    const score = mode.value >= 2 ? mode.frequency : 0;
+    if (score > bestScore) {
+      best = delimiter;
+      bestScore = score;
+    }
+  }
+  return best;
+}
+
 describe("delimiter detection", () => {
+  it("equals the reference implementation on generated texts (line breaks, quotes, blank lines, astral characters)", () => {
+    const piece = fc.constantFrom(",", ";", "\t", '"', "\n", "\r", "\r\n", " ", "a", "1", "😀", "é", "\n\n", "  \n");
+    fc.assert(
+      fc.property(fc.array(piece, { maxLength: 400 }), fc.boolean(), (pieces, decimalComma) => {
+        const text = pieces.join("");
+        const candidates = decimalComma ? [";", "\t"] : undefined;
+        expect(detectDelimiter(text, candidates)).toBe(referenceDetect(text, candidates));
+      }),
+      { seed: 20261208, numRuns: 3000 },
+    );
+  });
+
   it.each([[",", "comma"], [";", "semicolon"], ["\t", "tab"]])("detects %j (%s)", (delimiter) => {
     expect(detectDelimiter(file(delimiter))).toBe(delimiter);
     expect(column(readOk(file(delimiter)), HIGH)).toEqual([0.02, 0.03, -0.04]);
