@@ -17,32 +17,13 @@ import fc from "fast-check";
 import { describe, expect, test } from "vitest";
 import type { Candidate, ReturnSample } from "../../src/core/types.js";
 import { expectClose } from "../support/close.js";
+import { normals } from "../support/random.js";
 import { solveWithSet } from "./helpers.js";
 
 const seed = 20261201;
 const numRuns = 150;
 const rel = 1e-9;
 
-/** mulberry32: a tiny deterministic uniform generator, so every sample is reproducible from its seed. */
-function uniforms(seedValue: number): () => number {
-  let a = seedValue >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
-/** Box-Muller standard normals. */
-function normals(seedValue: number): () => number {
-  const u = uniforms(seedValue);
-  return () => {
-    const u1 = 1 - u(); // (0, 1]
-    return Math.sqrt(-2 * Math.log(u1)) * Math.cos(2 * Math.PI * u());
-  };
-}
 
 interface ModelSample {
   readonly sample: { readonly low: number[]; readonly high: number[] };
