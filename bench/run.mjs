@@ -63,8 +63,6 @@ async function bundle(entry, outName) {
     return { ok: false, reason: String(error?.message ?? error).split("\n").slice(0, 3).join(" ") };
   }
 }
-const rollCli = /^\s+roll\b/m.test(spawnSync(process.execPath, [cli, "--help"], { encoding: "utf8" }).stdout ?? "");
-const rollEntry = rollCli ? null : await bundle("roll-case.ts", "roll-case.mjs");
 const bootstrapEntry = await bundle("bootstrap-case.ts", "bootstrap-case.mjs");
 
 // ---- measurement ---------------------------------------------------------------------------------
@@ -143,14 +141,10 @@ const cases = [
     id: "d",
     title: "rolling window 252 over 1,000,000 rows, CSV of every window",
     target: { ratio: 0.7 },
-    ours: rollCli
-      ? [process.execPath, cli, "roll", bigFile, "--low", "low", "--high", "high", "--window", "252", "--format", "csv"]
-      : rollEntry.ok
-        ? [process.execPath, rollEntry.outfile, bigFile, "low", "high", "252"]
-        : null,
+    ours: [process.execPath, cli, "roll", bigFile, "--low", "low", "--high", "high", "--window", "252", "--format", "csv"],
     peer: [python, join(benchDir, "peer_roll.py"), bigFile, "low", "high", "252"],
     check: (o, p) => compareRoll(o, p),
-    note: rollCli ? "ours: the CLI's roll command" : "ours: bench/roll-case.ts (readReturns + rollSolveColumns + CSV), bundled with esbuild; the CLI has no roll command yet",
+    note: "ours: the CLI's roll command",
   },
 ];
 

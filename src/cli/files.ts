@@ -6,12 +6,10 @@
 import { closeSync, openSync, readFileSync, readSync, renameSync, statSync, unlinkSync, writeFileSync, writeSync } from "node:fs";
 import { basename, dirname, join } from "node:path";
 import { failure, success, type Result } from "../core/result.js";
-import { kernelBytes } from "../input/rowKernel.js";
+import { COPY_LIMIT, kernelBytes } from "../input/rowKernel.js";
 import type { OutputSink } from "./io.js";
 import { fileErrorReason, type CliIssue } from "./messages.js";
 
-/** Files from this size on are read into the row kernel's memory (src/input/rowKernel.ts). */
-const kernelInputBytes = 16 << 20;
 
 /** Reads a whole file, or standard input for "-". */
 export async function readInputBytes(path: string): Promise<Result<Uint8Array, CliIssue>> {
@@ -20,7 +18,8 @@ export async function readInputBytes(path: string): Promise<Result<Uint8Array, C
     // One synchronous read: for a large file this is much faster than the chunked asynchronous read,
     // and the CLI has nothing else to do meanwhile.
     const size = statSync(path).size;
-    return success(size < kernelInputBytes ? readFileSync(path) : readInto(path, kernelBytes(size)));
+    // A file larger than the row kernel copies is read straight into its memory (src/input/rowKernel.ts).
+    return success(size <= COPY_LIMIT ? readFileSync(path) : readInto(path, kernelBytes(size)));
   } catch (error) {
     return failure({ code: "read-failed", path: path === "-" ? "<stdin>" : path, reason: fileErrorReason(error) });
   }

@@ -17,8 +17,11 @@ const SCRATCH = 4 << 20;
 /** Where the scratch area starts (after the 23 powers of ten) and where the file starts. */
 const SCRATCH_BASE = 256;
 const FILE_BASE = SCRATCH_BASE + SCRATCH;
-/** Bytes that are not already in kernel memory are copied there up to this size. */
-const COPY_LIMIT = 16 << 20;
+/**
+ * Bytes that are not already in kernel memory are copied there up to this size; larger ones are
+ * read by the kernel only when they were put in its memory (`kernelBytes`).
+ */
+export const COPY_LIMIT = 16 << 20;
 /** Most rows per chunk; fewer when many columns are read. */
 const MAX_CHUNK = 16_384;
 /** Fewer rows per chunk than this (very many fields or columns): the kernel is not used. */
