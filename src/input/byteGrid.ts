@@ -101,8 +101,9 @@ export function isPlain(bytes: Uint8Array, from: number, to: number): boolean {
 }
 
 /**
- * The bytes as a Buffer (the same memory): Buffer's indexOf is a native byte search, several times
- * faster than a plain Uint8Array's (the CLI's large files are plain Uint8Arrays, see rowKernel.ts).
+ * The bytes as a Buffer (the same memory), for Buffer's native searches and slices: its indexOf is
+ * several times faster than a plain Uint8Array's (the CLI's large files are plain Uint8Arrays, see
+ * rowKernel.ts).
  */
 function asBuffer(bytes: Uint8Array): Buffer {
   return Buffer.isBuffer(bytes) ? bytes : Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
@@ -145,8 +146,7 @@ function grow(starts: Int32Array<ArrayBuffer>, firstBytes: Uint8Array<ArrayBuffe
  * (full-precision numbers, 17 digits and more, come this way: see scanDecimal).
  */
 export function asciiText(bytes: Uint8Array, from: number, to: number): string {
-  const buffer = Buffer.isBuffer(bytes) ? bytes : Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-  return buffer.toString("latin1", from, to);
+  return asBuffer(bytes).toString("latin1", from, to);
 }
 
 /** True when bytes [from, to) are all space, tab, line feed, vertical tab, form feed or CR (what `trim` removes, in ASCII). */
