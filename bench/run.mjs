@@ -5,7 +5,18 @@
 // RSS from /usr/bin/time (%M) when present, else from a wrapper reading process.resourceUsage().
 // Data files are generated into a temporary folder with `node dist/cli.cjs simulate` and removed after.
 import { execFileSync, spawnSync } from "node:child_process";
-import { existsSync, mkdtempSync, openSync, closeSync, fstatSync, readFileSync, readSync, rmSync, writeFileSync, createWriteStream } from "node:fs";
+import {
+  existsSync,
+  mkdtempSync,
+  openSync,
+  closeSync,
+  fstatSync,
+  readFileSync,
+  readSync,
+  rmSync,
+  writeFileSync,
+  createWriteStream,
+} from "node:fs";
 import { cpus, tmpdir, totalmem, platform, release } from "node:os";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
@@ -22,13 +33,38 @@ const log = (message) => process.stderr.write(`${message}\n`);
 const hasTime = existsSync("/usr/bin/time");
 
 // ---- data ------------------------------------------------------------------------------------
-const simulateArgs = ["--low-beta", "0.7", "--factor-vol", "0.01", "--factor-mean", "0.0004", "--low-noise-vol", "0.004", "--high-noise-vol", "0.006", "--frequency", "daily"];
+const simulateArgs = [
+  "--low-beta",
+  "0.7",
+  "--factor-vol",
+  "0.01",
+  "--factor-mean",
+  "0.0004",
+  "--low-noise-vol",
+  "0.004",
+  "--high-noise-vol",
+  "0.006",
+  "--frequency",
+  "daily",
+];
 const dailyFile = join(tmp, "daily-2520.csv");
 execFileSync(process.execPath, [cli, "simulate", ...simulateArgs, "--periods", "2520", "--seed", "1", "--output", dailyFile]);
 const bigFile = join(tmp, "daily-1m.csv");
 {
   const raw = join(tmp, "raw-1m.csv");
-  execFileSync(process.execPath, [cli, "simulate", ...simulateArgs, "--periods", "1000000", "--seed", "2", "--digits", "9", "--output", raw]);
+  execFileSync(process.execPath, [
+    cli,
+    "simulate",
+    ...simulateArgs,
+    "--periods",
+    "1000000",
+    "--seed",
+    "2",
+    "--digits",
+    "9",
+    "--output",
+    raw,
+  ]);
   // Add a risk-free column and a fourth numeric column (a third return series), streamed.
   const lines = readFileSync(raw, "utf8").split("\n");
   const out = createWriteStream(bigFile);
@@ -57,10 +93,24 @@ const { build } = await import("esbuild");
 async function bundle(entry, outName) {
   const outfile = join(tmp, outName);
   try {
-    await build({ entryPoints: [join(benchDir, entry)], outfile, bundle: true, platform: "node", format: "esm", target: "node20", logLevel: "silent" });
+    await build({
+      entryPoints: [join(benchDir, entry)],
+      outfile,
+      bundle: true,
+      platform: "node",
+      format: "esm",
+      target: "node20",
+      logLevel: "silent",
+    });
     return { ok: true, outfile };
   } catch (error) {
-    return { ok: false, reason: String(error?.message ?? error).split("\n").slice(0, 3).join(" ") };
+    return {
+      ok: false,
+      reason: String(error?.message ?? error)
+        .split("\n")
+        .slice(0, 3)
+        .join(" "),
+    };
   }
 }
 const bootstrapEntry = await bundle("bootstrap-case.ts", "bootstrap-case.mjs");
@@ -136,7 +186,11 @@ const cases = [
           return `bootstrap SE of the lower low-beta bound: ours ${a.toPrecision(4)}, numpy ${b.toPrecision(4)} (different generators: Monte Carlo agreement only)`;
         },
       }
-    : { id: "c", title: "stationary bootstrap, B = 10,000, n = 2,520", skipped: `src/core/inference bootstrap did not build: ${bootstrapEntry.reason}` },
+    : {
+        id: "c",
+        title: "stationary bootstrap, B = 10,000, n = 2,520",
+        skipped: `src/core/inference bootstrap did not build: ${bootstrapEntry.reason}`,
+      },
   {
     id: "d",
     title: "rolling window 252 over 1,000,000 rows, CSV of every window",
@@ -170,7 +224,10 @@ function sampleLines(path) {
   };
   const head = read(0, 1 << 16).split("\n");
   const middle = read(Math.floor(size / 2), 1 << 16).split("\n")[1];
-  const tail = read(Math.max(0, size - (1 << 16)), 1 << 16).trimEnd().split("\n").at(-1);
+  const tail = read(Math.max(0, size - (1 << 16)), 1 << 16)
+    .trimEnd()
+    .split("\n")
+    .at(-1);
   let lines = 0;
   const buffer = Buffer.alloc(1 << 24);
   for (let position = 0; position < size; position += buffer.length) {
@@ -225,13 +282,20 @@ for (const c of cases) {
 rmSync(tmp, { recursive: true, force: true });
 
 // ---- report ------------------------------------------------------------------------------------
-const pythonVersion = spawnSync(python, ["-c", "import sys, numpy; print(sys.version.split()[0], numpy.__version__)"], { encoding: "utf8" }).stdout.trim().split(" ");
+const pythonVersion = spawnSync(python, ["-c", "import sys, numpy; print(sys.version.split()[0], numpy.__version__)"], { encoding: "utf8" })
+  .stdout.trim()
+  .split(" ");
 const fmtS = (x) => x.toFixed(3);
 const stats = (ms) => {
   const s = ms.map((m) => m.seconds);
   return { median: median(s), min: Math.min(...s), max: Math.max(...s), rss: Math.max(...ms.map((m) => m.rssMb ?? 0)) };
 };
-const display = (argv) => argv.map((a) => (a === process.execPath ? "node" : a.startsWith(tmp) ? a.replace(tmp, "$TMP") : a.startsWith(root) ? a.slice(root.length) : a)).join(" ");
+const display = (argv) =>
+  argv
+    .map((a) =>
+      a === process.execPath ? "node" : a.startsWith(tmp) ? a.replace(tmp, "$TMP") : a.startsWith(root) ? a.slice(root.length) : a,
+    )
+    .join(" ");
 let md = `# Benchmarks\n\nWritten by \`npm run bench\` (bench/run.mjs); do not edit by hand (bench/analysis.md is appended as it is).\n\n`;
 md += `- Machine: ${cpus()[0]?.model ?? "unknown"}, ${cpus().length} cores, ${(totalmem() / 2 ** 30).toFixed(1)} GiB memory, ${platform()} ${release()}\n`;
 md += `- Node ${process.version}; Python ${pythonVersion[0]}, numpy ${pythonVersion[1]}\n`;

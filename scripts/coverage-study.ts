@@ -94,7 +94,8 @@ for (const scenario of scenarios) {
   const upperBootstrapSe: number[] = [];
   for (let rep = 0; rep < reps; rep++) {
     const sample = simulateSample(scenario.structure, { periods: n, seed: 100_000 + rep, ...scenario.simulation });
-    const bootstrap = bootstrapReplicates > 0 ? { replicates: bootstrapReplicates, blockLength: "auto" as const, seed: rep + 1 } : undefined;
+    const bootstrap =
+      bootstrapReplicates > 0 ? { replicates: bootstrapReplicates, blockLength: "auto" as const, seed: rep + 1 } : undefined;
     const hac = scenario.hac ?? {};
     const u = assessUncertainty(sample, bootstrap === undefined ? { hac } : { hac, bootstrap });
     if (u.bounds === null || u.lowBeta === null) continue;
@@ -123,7 +124,8 @@ for (const scenario of scenarios) {
   if (bootstrapReplicates > 0) console.log(`| IM 95% interval covers b_low (bootstrap se) | ${pct(coveredBootstrap)} |`);
   console.log(`| pointwise 95% CI of the lower bound covers the population lower bound | ${pct(lowerCovered)} |`);
   console.log(`| pointwise 95% CI of the upper bound covers the population upper bound | ${pct(upperCovered)} |`);
-  const ratio = (se: number[], est: number[]) => `${mean(se).toExponential(4)} / ${sd(est).toExponential(4)} = ${(mean(se) / sd(est)).toFixed(3)}`;
+  const ratio = (se: number[], est: number[]) =>
+    `${mean(se).toExponential(4)} / ${sd(est).toExponential(4)} = ${(mean(se) / sd(est)).toFixed(3)}`;
   console.log(`| lower bound: mean delta se / MC sd of estimates | ${ratio(lowerSe, lowerEstimates)} |`);
   console.log(`| upper bound: mean delta se / MC sd of estimates | ${ratio(upperSe, upperEstimates)} |`);
   if (bootstrapReplicates > 0) {

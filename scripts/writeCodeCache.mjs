@@ -36,7 +36,8 @@ const quietSink = { write: discard, close: () => ({ ok: true, value: undefined }
 const processIo = bundle.processIo();
 const io = {
   ...processIo,
-  readInput: (path) => (path === fullPrecision ? Promise.resolve({ ok: true, value: Buffer.from(fullPrecisionText) }) : processIo.readInput(path)),
+  readInput: (path) =>
+    path === fullPrecision ? Promise.resolve({ ok: true, value: Buffer.from(fullPrecisionText) }) : processIo.readInput(path),
   writeOut: discard,
   writeErr: discard,
   openSink: () => ({ ok: true, value: quietSink }),

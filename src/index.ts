@@ -27,7 +27,15 @@ export { populationMoments, type Structure } from "./core/forward.js";
 export { simulateSample, type SimulatedSample, type SimulationOptions } from "./core/simulate.js";
 export { createRandom, type RandomSource } from "./core/rng.js";
 export { periodDates, frequencies, periodsPerYear, type Frequency } from "./core/calendar.js";
-export { describeDiagnostic, diagnose, hasError, type Diagnostic, type DiagnosticCode, type DiagnosticDetail, type Severity } from "./core/diagnostics.js";
+export {
+  describeDiagnostic,
+  diagnose,
+  hasError,
+  type Diagnostic,
+  type DiagnosticCode,
+  type DiagnosticDetail,
+  type Severity,
+} from "./core/diagnostics.js";
 export { failure, success, type Result } from "./core/result.js";
 export type * from "./core/types.js";
 export { landmarkNames } from "./core/types.js";

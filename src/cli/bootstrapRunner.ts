@@ -72,7 +72,9 @@ async function inWorkers(
     low: Float64Array.from(data.low),
     high: Float64Array.from(data.high),
     weight: data.weight,
-    ...(data.riskFree === undefined ? {} : { riskFree: typeof data.riskFree === "number" ? data.riskFree : Float64Array.from(data.riskFree) }),
+    ...(data.riskFree === undefined
+      ? {}
+      : { riskFree: typeof data.riskFree === "number" ? data.riskFree : Float64Array.from(data.riskFree) }),
   };
   let next = 0;
   let done = 0;
@@ -81,7 +83,10 @@ async function inWorkers(
       const take = (): void => {
         const index = next++;
         const chunk = chunks[index];
-        if (chunk === undefined) return resolve();
+        if (chunk === undefined) {
+          resolve();
+          return;
+        }
         worker.once("message", (range: BootstrapRange) => {
           ranges[index] = range;
           done += range.to - range.from;

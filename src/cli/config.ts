@@ -13,60 +13,64 @@ import type { CliIo } from "./io.js";
 import type { CliIssue } from "./messages.js";
 import { once } from "./options.js";
 
-const pairEntry = once(() => z.union([
-  z.string().check(z.regex(/^[^:]+:.+$/, "must be \"LOW:HIGH\"")),
-  z.strictObject({ low: z.string().check(z.minLength(1)), high: z.string().check(z.minLength(1)) }),
-]));
+const pairEntry = once(() =>
+  z.union([
+    z.string().check(z.regex(/^[^:]+:.+$/, 'must be "LOW:HIGH"')),
+    z.strictObject({ low: z.string().check(z.minLength(1)), high: z.string().check(z.minLength(1)) }),
+  ]),
+);
 
 /** Values a config file may hold; types only here, ranges are checked with the merged options. */
-export const configFileSchema = once(() => z.strictObject({
-  files: z.optional(z.array(z.string().check(z.minLength(1))).check(z.minLength(1))),
-  low: z.optional(z.string()),
-  high: z.optional(z.string()),
-  pair: z.optional(z.array(pairEntry())),
-  lows: z.optional(z.array(z.string())),
-  highs: z.optional(z.array(z.string())),
-  date: z.optional(z.string()),
-  weight: z.optional(z.number()),
-  rf: z.optional(z.union([z.string(), z.number()])),
-  units: z.optional(z.string()),
-  steps: z.optional(z.number()),
-  format: z.optional(z.string()),
-  output: z.optional(z.string()),
-  allowExtreme: z.optional(z.boolean()),
-  delimiter: z.optional(z.string()),
-  block: z.optional(z.number()),
-  dateFormat: z.optional(z.string()),
-  sort: z.optional(z.boolean()),
-  decimalComma: z.optional(z.boolean()),
-  periodsPerYear: z.optional(z.number()),
-  missing: z.optional(z.array(z.string())),
-  onMissing: z.optional(z.string()),
-  input: z.optional(z.string()),
-  idColumn: z.optional(z.string()),
-  valueColumn: z.optional(z.string()),
-  window: z.optional(z.number()),
-  step: z.optional(z.number()),
-  expanding: z.optional(z.boolean()),
-  minPeriods: z.optional(z.number()),
-  uncertainty: z.optional(z.boolean()),
-  confidence: z.optional(z.number()),
-  longRun: z.optional(z.string()),
-  hacKernel: z.optional(z.string()),
-  hacBandwidth: z.optional(z.string()),
-  hacLags: z.optional(z.number()),
-  hacPrewhite: z.optional(z.boolean()),
-  hacAdjust: z.optional(z.boolean()),
-  interval: z.optional(z.string()),
-  intervalSource: z.optional(z.string()),
-  bootstrap: z.optional(z.number()),
-  blockLength: z.optional(z.union([z.number(), z.literal("auto")])),
-  seed: z.optional(z.number()),
-  threads: z.optional(z.number()),
-  chart: z.optional(z.string()),
-  chartY: z.optional(z.string()),
-  report: z.optional(z.string()),
-}));
+export const configFileSchema = once(() =>
+  z.strictObject({
+    files: z.optional(z.array(z.string().check(z.minLength(1))).check(z.minLength(1))),
+    low: z.optional(z.string()),
+    high: z.optional(z.string()),
+    pair: z.optional(z.array(pairEntry())),
+    lows: z.optional(z.array(z.string())),
+    highs: z.optional(z.array(z.string())),
+    date: z.optional(z.string()),
+    weight: z.optional(z.number()),
+    rf: z.optional(z.union([z.string(), z.number()])),
+    units: z.optional(z.string()),
+    steps: z.optional(z.number()),
+    format: z.optional(z.string()),
+    output: z.optional(z.string()),
+    allowExtreme: z.optional(z.boolean()),
+    delimiter: z.optional(z.string()),
+    block: z.optional(z.number()),
+    dateFormat: z.optional(z.string()),
+    sort: z.optional(z.boolean()),
+    decimalComma: z.optional(z.boolean()),
+    periodsPerYear: z.optional(z.number()),
+    missing: z.optional(z.array(z.string())),
+    onMissing: z.optional(z.string()),
+    input: z.optional(z.string()),
+    idColumn: z.optional(z.string()),
+    valueColumn: z.optional(z.string()),
+    window: z.optional(z.number()),
+    step: z.optional(z.number()),
+    expanding: z.optional(z.boolean()),
+    minPeriods: z.optional(z.number()),
+    uncertainty: z.optional(z.boolean()),
+    confidence: z.optional(z.number()),
+    longRun: z.optional(z.string()),
+    hacKernel: z.optional(z.string()),
+    hacBandwidth: z.optional(z.string()),
+    hacLags: z.optional(z.number()),
+    hacPrewhite: z.optional(z.boolean()),
+    hacAdjust: z.optional(z.boolean()),
+    interval: z.optional(z.string()),
+    intervalSource: z.optional(z.string()),
+    bootstrap: z.optional(z.number()),
+    blockLength: z.optional(z.union([z.number(), z.literal("auto")])),
+    seed: z.optional(z.number()),
+    threads: z.optional(z.number()),
+    chart: z.optional(z.string()),
+    chartY: z.optional(z.string()),
+    report: z.optional(z.string()),
+  }),
+);
 
 export type ConfigFile = z.infer<ReturnType<typeof configFileSchema>>;
 
@@ -78,7 +82,12 @@ export async function readConfig(path: string, io: CliIo): Promise<Result<Config
   try {
     data = JSON.parse(new TextDecoder().decode(bytes.value));
   } catch (error) {
-    return failure({ code: "invalid-config", path, at: "", reason: `not valid JSON (${error instanceof Error ? error.message : String(error)})` });
+    return failure({
+      code: "invalid-config",
+      path,
+      at: "",
+      reason: `not valid JSON (${error instanceof Error ? error.message : String(error)})`,
+    });
   }
   const parsed = configFileSchema().safeParse(data);
   if (!parsed.success) {
@@ -105,7 +114,7 @@ export async function readConfig(path: string, io: CliIo): Promise<Result<Config
  */
 export function mergeWithConfig(command: Command, config: ConfigFile): Record<string, unknown> {
   const merged: Record<string, unknown> = { ...command.opts() };
-  delete merged["config"];
+  delete merged.config;
   const known = new Set(command.options.map((o) => o.attributeName()));
   for (const [key, value] of Object.entries(config)) {
     if (key === "files" || !known.has(key)) continue;
@@ -133,10 +142,10 @@ export async function withConfig(
   files: readonly string[],
   io: CliIo,
 ): Promise<Result<{ files: string[]; options: Record<string, unknown> }, CliIssue>> {
-  const path = command.opts()["config"];
+  const path = command.opts().config;
   if (typeof path !== "string") {
     const options: Record<string, unknown> = { ...command.opts() };
-    delete options["config"];
+    delete options.config;
     return success({ files: [...files], options });
   }
   const config = await readConfig(path, io);

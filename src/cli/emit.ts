@@ -16,7 +16,7 @@ export async function emit(io: CliIo, output: string | undefined, text: string):
 
 /** Colour only for a text report going to a terminal, and never when NO_COLOR is set (non-empty). */
 export function wantsColour(io: CliIo, output: string | undefined, format: string): boolean {
-  const noColour = io.env["NO_COLOR"];
+  const noColour = io.env.NO_COLOR;
   return output === undefined && io.stdoutIsTerminal && format === "text" && (noColour === undefined || noColour === "");
 }
 

@@ -10,7 +10,6 @@ import { COPY_LIMIT, kernelBytes } from "../input/rowKernel.js";
 import type { OutputSink } from "./io.js";
 import { fileErrorReason, type CliIssue } from "./messages.js";
 
-
 /** Reads a whole file, or standard input for "-". */
 export async function readInputBytes(path: string): Promise<Result<Uint8Array, CliIssue>> {
   try {
@@ -58,7 +57,9 @@ let temporaries = 0;
  */
 function temporaryName(path: string): string {
   temporaries += 1;
-  const random = Math.floor(Math.random() * 0x1_0000_0000).toString(16).padStart(8, "0");
+  const random = Math.floor(Math.random() * 0x1_0000_0000)
+    .toString(16)
+    .padStart(8, "0");
   return join(dirname(path), `.${basename(path)}.betabound-${process.pid}-${temporaries}-${random}.tmp`);
 }
 

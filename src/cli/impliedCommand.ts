@@ -9,7 +9,14 @@ import { anyNumber, nonNegativeNumber, openUnitInterval, positiveNumber, wholeNu
 import { exitCodes, type ExitCode } from "./exitCodes.js";
 import type { CliIo } from "./io.js";
 import { emit, wantsColour } from "./emit.js";
-import { describeOptionIssue, impliedOptionsSchema, maximumSteps, reportFormats, solveDefaults, type ImpliedCliOptions } from "./options.js";
+import {
+  describeOptionIssue,
+  impliedOptionsSchema,
+  maximumSteps,
+  reportFormats,
+  solveDefaults,
+  type ImpliedCliOptions,
+} from "./options.js";
 import { version } from "./version.js";
 
 export async function runImplied(options: ImpliedCliOptions, io: CliIo): Promise<ExitCode> {

@@ -47,7 +47,7 @@ export async function main(argv: readonly string[]): Promise<void> {
   } catch (error) {
     const detail = error instanceof Error ? error.message : String(error);
     process.stderr.write(`error: internal error (a bug in betabound, please report it with the command line): ${detail}\n`);
-    if (process.env["BETABOUND_DEBUG"] === "1" && error instanceof Error) process.stderr.write(`${error.stack ?? ""}\n`);
+    if (process.env.BETABOUND_DEBUG === "1" && error instanceof Error) process.stderr.write(`${error.stack ?? ""}\n`);
     code = exitCodes.internal;
   }
   exitOnceFlushed(code);

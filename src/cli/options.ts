@@ -127,7 +127,10 @@ export function refineInputOptions<T extends z.ZodMiniType<InputCliOptions>>(sch
       path: ["high"],
       message: "--low and --high go together (or use --pair LOW:HIGH)",
     }),
-    z.refine<InputCliOptions>((o) => (o.lows === undefined) === (o.highs === undefined), { path: ["highs"], message: "--lows and --highs go together" }),
+    z.refine<InputCliOptions>((o) => (o.lows === undefined) === (o.highs === undefined), {
+      path: ["highs"],
+      message: "--lows and --highs go together",
+    }),
     z.refine<InputCliOptions>((o) => o.low !== undefined || (o.pair?.length ?? 0) > 0 || o.lows !== undefined, {
       path: ["low"],
       message: "name the books: --low COLUMN --high COLUMN, or --pair LOW:HIGH, or --lows A,B --highs X,Y",
@@ -261,7 +264,10 @@ export const rollOptionsSchema = once(() => {
       path: ["window"],
       message: "give either --window N (a rolling window) or --expanding (with --min-periods N)",
     }),
-    z.refine<Roll>((o) => !o.expanding || o.minPeriods !== undefined, { path: ["minPeriods"], message: "--expanding needs --min-periods N (at least 3)" }),
+    z.refine<Roll>((o) => !o.expanding || o.minPeriods !== undefined, {
+      path: ["minPeriods"],
+      message: "--expanding needs --min-periods N (at least 3)",
+    }),
   );
 });
 

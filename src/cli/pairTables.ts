@@ -38,7 +38,9 @@ export interface PairError {
   readonly message: string;
 }
 
-export type PairLoad = { readonly ok: true; readonly value: PairTable } | { readonly ok: false; readonly source: string; readonly pair: Pair; readonly errors: readonly PairError[] };
+export type PairLoad =
+  | { readonly ok: true; readonly value: PairTable }
+  | { readonly ok: false; readonly source: string; readonly pair: Pair; readonly errors: readonly PairError[] };
 
 interface Side {
   readonly file: string;
@@ -58,7 +60,12 @@ export function joinedSides(files: readonly string[], options: InputCliOptions):
 }
 
 /** Every (file, pair) of a run, read in order; `files` empty means standard input. */
-export async function* loadPairs(files: readonly string[], pairs: readonly Pair[], options: InputCliOptions, io: CliIo): AsyncGenerator<PairLoad> {
+export async function* loadPairs(
+  files: readonly string[],
+  pairs: readonly Pair[],
+  options: InputCliOptions,
+  io: CliIo,
+): AsyncGenerator<PairLoad> {
   const joined = joinedSides(files, options);
   if (joined !== null) {
     yield await loadJoined(joined, options, io);
@@ -91,7 +98,8 @@ export function sampleOf(loaded: PairTable): ReturnSample & { riskFree: number |
   return {
     low: values.get(loaded.keys.low)!,
     high: values.get(loaded.keys.high)!,
-    riskFree: loaded.keys.riskFree !== null ? values.get(loaded.keys.riskFree)! : loaded.riskFree.kind === "constant" ? loaded.riskFree.rate : 0,
+    riskFree:
+      loaded.keys.riskFree !== null ? values.get(loaded.keys.riskFree)! : loaded.riskFree.kind === "constant" ? loaded.riskFree.rate : 0,
   };
 }
 
@@ -123,7 +131,10 @@ async function loadJoined(sides: { low: Side; high: Side }, options: InputCliOpt
   const fail = (errors: PairError[]): PairLoad => ({ ok: false, source, pair, errors });
   const riskFree = riskFreeSource(options);
   const tables: ReturnTable[] = [];
-  for (const [key, side, extra] of [["low", sides.low, riskFreeColumn(riskFree)], ["high", sides.high, []]] as const) {
+  for (const [key, side, extra] of [
+    ["low", sides.low, riskFreeColumn(riskFree)],
+    ["high", sides.high, []],
+  ] as const) {
     const bytes = await io.readInput(side.file);
     if (!bytes.ok) return fail([{ code: bytes.issues.code, message: describeCliIssue(bytes.issues) }]);
     const table = readReturnsFromBytes(bytes.value, readOptions(describe(side.file), [side.column, ...extra], options));
@@ -137,7 +148,12 @@ async function loadJoined(sides: { low: Side; high: Side }, options: InputCliOpt
   if (!joined.ok) return fail(inputErrors(joined.issues));
   const { table, dateCounts, matched, unmatched } = joined.value;
   const join: JoinDescription = {
-    sides: [sides.low, sides.high].map((side, i) => ({ source: describe(side.file), column: side.column, dates: dateCounts[i] ?? 0, unmatched: unmatched[i]?.count ?? 0 })),
+    sides: [sides.low, sides.high].map((side, i) => ({
+      source: describe(side.file),
+      column: side.column,
+      dates: dateCounts[i] ?? 0,
+      unmatched: unmatched[i]?.count ?? 0,
+    })),
     matched,
   };
   const keys = { low: "low", high: "high", riskFree: riskFree.kind === "column" ? `rf:${riskFree.column}` : null };

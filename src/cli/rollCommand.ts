@@ -18,7 +18,14 @@ import { exitCodes, type ExitCode } from "./exitCodes.js";
 import { addInputOptions } from "./inputOptions.js";
 import type { CliIo, OutputSink } from "./io.js";
 import { describeCliIssue } from "./messages.js";
-import { describeOptionIssue, longRunMethods, rollFormats, rollOptionsSchema, uncertaintyDefaults, type RollCliOptions } from "./options.js";
+import {
+  describeOptionIssue,
+  longRunMethods,
+  rollFormats,
+  rollOptionsSchema,
+  uncertaintyDefaults,
+  type RollCliOptions,
+} from "./options.js";
 import { describeInput, joinedSides, loadPairs, sampleOf, type PairTable } from "./pairTables.js";
 import { pairsFrom } from "./pairs.js";
 import { version } from "./version.js";
@@ -31,7 +38,15 @@ export async function runRoll(files: readonly string[], options: RollCliOptions,
   if (!joined && files.length === 0 && io.stdinIsTerminal) return usage(io, describeCliIssue({ code: "no-input" }));
   const several = !joined && Math.max(files.length, 1) * pairs.length > 1;
   if (several && options.chart !== undefined) {
-    return usage(io, describeCliIssue({ code: "invalid-option", option: "--chart", value: options.chart, expected: "draws one file and one pair; run it per pair" }));
+    return usage(
+      io,
+      describeCliIssue({
+        code: "invalid-option",
+        option: "--chart",
+        value: options.chart,
+        expected: "draws one file and one pair; run it per pair",
+      }),
+    );
   }
   const spec: WindowSpec = options.expanding
     ? { kind: "expanding", minPeriods: options.minPeriods ?? 3, step: options.step }
@@ -48,7 +63,13 @@ export async function runRoll(files: readonly string[], options: RollCliOptions,
     if (!load.ok) {
       for (const e of load.errors) io.writeErr(`error: ${e.message}\n`);
       if (options.format === "jsonl") {
-        const failure = failureOutput({ tool, source: load.source, lowColumn: load.pair.low, highColumn: load.pair.high, errors: load.errors });
+        const failure = failureOutput({
+          tool,
+          source: load.source,
+          lowColumn: load.pair.low,
+          highColumn: load.pair.high,
+          errors: load.errors,
+        });
         sink.value.write(`${JSON.stringify(failure)}\n`);
       }
       codes.push(exitCodes.input);
@@ -66,25 +87,37 @@ export async function runRoll(files: readonly string[], options: RollCliOptions,
   return codes.every((c) => c === exitCodes.ok) ? exitCodes.ok : exitCodes.partial;
 }
 
-async function rollPair(loaded: PairTable, spec: WindowSpec, options: RollCliOptions, sink: OutputSink, style: ReturnType<typeof styleFor>, io: CliIo): Promise<ExitCode> {
+async function rollPair(
+  loaded: PairTable,
+  spec: WindowSpec,
+  options: RollCliOptions,
+  sink: OutputSink,
+  style: ReturnType<typeof styleFor>,
+  io: CliIo,
+): Promise<ExitCode> {
   const sample = sampleOf(loaded);
   const n = sample.low.length;
   if (windowCount(n, spec) === 0) {
     const needed = spec.kind === "window" ? spec.size : spec.minPeriods;
-    io.writeErr(`error: ${loaded.source}: ${n} aligned rows are fewer than the ${needed} the first window needs; use a shorter --window or --min-periods\n`);
+    io.writeErr(
+      `error: ${loaded.source}: ${n} aligned rows are fewer than the ${needed} the first window needs; use a shorter --window or --min-periods\n`,
+    );
     return exitCodes.input;
   }
   const meta: RollMeta = { tool, input: describeInput(loaded, options), spec, weight: options.weight, dates: loaded.table.dates };
   const excess = excessReturns({ ...sample, weight: options.weight });
   const uncertaintyAt = (w: { start: number; end: number; summary: WindowSolution["summary"] }): WindowUncertainty | null =>
-    options.uncertainty ? windowUncertainty(excess.low, excess.high, w.start, w.end, w.summary, { confidence: options.confidence, longRun: options.longRun }) : null;
+    options.uncertainty
+      ? windowUncertainty(excess.low, excess.high, w.start, w.end, w.summary, { confidence: options.confidence, longRun: options.longRun })
+      : null;
 
   let points: WindowSolution[] | null = null;
   if (options.format === "csv") {
     const columns = rollSolveColumns(sample.low, sample.high, sample.riskFree, options.weight, spec);
     const summaries = options.uncertainty ? [...iterateRollSolve(sample.low, sample.high, sample.riskFree, options.weight, spec)] : null;
     writeRollCsv(meta, columns, summaries === null ? null : (k) => uncertaintyAt(summaries[k]!), (text) => sink.write(text));
-    if (options.chart !== undefined) points = summaries ?? [...iterateRollSolve(sample.low, sample.high, sample.riskFree, options.weight, spec)];
+    if (options.chart !== undefined)
+      points = summaries ?? [...iterateRollSolve(sample.low, sample.high, sample.riskFree, options.weight, spec)];
   } else if (options.format === "jsonl") {
     let chunk = "";
     const kept: WindowSolution[] = [];
@@ -106,7 +139,8 @@ async function rollPair(loaded: PairTable, spec: WindowSpec, options: RollCliOpt
   }
   if (options.chart !== undefined && points !== null) {
     const { renderRollChart } = await import("../report/charts/rollChart.js");
-    const windowWords = spec.kind === "window" ? `rolling windows of ${spec.size} periods` : `expanding windows from ${spec.minPeriods} periods`;
+    const windowWords =
+      spec.kind === "window" ? `rolling windows of ${spec.size} periods` : `expanding windows from ${spec.minPeriods} periods`;
     const svg = await renderRollChart(
       points.map((w) => {
         const u = uncertaintyAt(w);
@@ -148,10 +182,18 @@ export function rollCommand(io: CliIo, setExit: (code: ExitCode) => void): Comma
     .option("--step <k>", "periods between consecutive windows", wholeNumber(1, 100_000_000), 1)
     .option("--expanding", "expanding windows from the first row instead of a rolling window", false)
     .option("--min-periods <n>", "with --expanding: the first window's length", wholeNumber(3, 100_000_000))
-    .addOption(new Option("--format <format>", "output format (csv: one row per window; jsonl: one record per window)").choices(rollFormats).default("text"))
+    .addOption(
+      new Option("--format <format>", "output format (csv: one row per window; jsonl: one record per window)")
+        .choices(rollFormats)
+        .default("text"),
+    )
     .option("--uncertainty", "delta-method standard errors of the bounds and an interval for the low beta in every window", false)
     .option("--confidence <level>", "confidence level with --uncertainty", openUnitInterval, uncertaintyDefaults.confidence)
-    .addOption(new Option("--long-run <method>", "long-run covariance for --uncertainty").choices(longRunMethods).default(uncertaintyDefaults.longRun))
+    .addOption(
+      new Option("--long-run <method>", "long-run covariance for --uncertainty")
+        .choices(longRunMethods)
+        .default(uncertaintyDefaults.longRun),
+    )
     .option("--chart <file.svg>", "also draw the band of the low beta's bounds through time")
     .option("--config <file>", "JSON file with files, pairs and options for a job; flags override it")
     .addHelpText("after", rollExamples)

@@ -32,7 +32,8 @@ export async function runSimulate(options: SimulateCliOptions, io: CliIo): Promi
   };
   const sample = simulateSample(structure, simulation);
   const dates = periodDates(options.frequency, options.start, options.periods);
-  const text = options.format === "csv" ? toCsv(dates, sample.low, sample.high, options) : toJsonLines(dates, sample.low, sample.high, options);
+  const text =
+    options.format === "csv" ? toCsv(dates, sample.low, sample.high, options) : toJsonLines(dates, sample.low, sample.high, options);
   return emit(io, options.output, text);
 }
 
@@ -89,8 +90,16 @@ export function simulateCommand(io: CliIo, setExit: (code: ExitCode) => void): C
     .addOption(new Option("--frequency <f>", "spacing of the dates").choices(frequencies).default("monthly"))
     .option("--start <date>", "first date (YYYY-MM-DD); the first period end on or after it is used", "2000-01-01")
     .option("--seed <n>", "seed of the random generator", wholeNumber(0, Number.MAX_SAFE_INTEGER), 1)
-    .option("--tails <df>", "Student t innovations with this many degrees of freedom (> 2)", numberArgument("must be a number > 2", (x) => x > 2))
-    .option("--noise-ar <rho>", "AR(1) coefficient of both noises", numberArgument("must lie strictly between -1 and 1", (x) => Math.abs(x) < 1))
+    .option(
+      "--tails <df>",
+      "Student t innovations with this many degrees of freedom (> 2)",
+      numberArgument("must be a number > 2", (x) => x > 2),
+    )
+    .option(
+      "--noise-ar <rho>",
+      "AR(1) coefficient of both noises",
+      numberArgument("must lie strictly between -1 and 1", (x) => Math.abs(x) < 1),
+    )
     .option("--garch <alpha,beta>", "GARCH(1,1) volatility clustering of the factor", garchArgument)
     .option("--names <date,low,high>", "column names", nameList(3), ["date", "low", "high"])
     .option("--digits <n>", "write returns with this many decimals (default: full precision)", wholeNumber(1, 17))

@@ -55,7 +55,15 @@ export async function runSolve(files: readonly string[], options: SolveCliOption
   const several = !joined && Math.max(files.length, 1) * pairs.length > 1;
   if (several && (options.chart !== undefined || options.report !== undefined)) {
     const option = options.chart === undefined ? "--report" : "--chart";
-    return usage(io, describeCliIssue({ code: "invalid-option", option, value: options.chart ?? options.report ?? "", expected: "draws one file and one pair; run it per pair" }));
+    return usage(
+      io,
+      describeCliIssue({
+        code: "invalid-option",
+        option,
+        value: options.chart ?? options.report ?? "",
+        expected: "draws one file and one pair; run it per pair",
+      }),
+    );
   }
   if (several && options.format === "json") {
     const expected = "several files or pairs need --format jsonl (one record per line), csv or text";
@@ -70,7 +78,8 @@ export async function runSolve(files: readonly string[], options: SolveCliOption
   let text: string | null;
   if (single !== null && options.format !== "jsonl") text = renderReport(single, options.format, { colour });
   else if (options.format === "jsonl") text = renderJsonLines(records);
-  else if (!several) text = null; // one pair that failed: its messages go to stderr, nothing to stdout
+  else if (!several)
+    text = null; // one pair that failed: its messages go to stderr, nothing to stdout
   else text = options.format === "csv" ? renderRecordsCsv(records) : renderRecordsText(records, { colour });
 
   if (single !== null) {
@@ -97,7 +106,12 @@ async function solveLoaded(load: PairLoad, options: SolveCliOptions, io: CliIo):
   const sample = sampleOf(loaded);
   const solved = solve(sample, { weight: options.weight, steps: options.steps });
   if (!solved.ok) {
-    return failed(source, pair, exitCodes.input, solved.issues.map((d) => ({ code: d.code, message: `${source}: ${d.message}` })));
+    return failed(
+      source,
+      pair,
+      exitCodes.input,
+      solved.issues.map((d) => ({ code: d.code, message: `${source}: ${d.message}` })),
+    );
   }
   const assessed = await uncertaintyFor(sample, solved.value, options, io);
   const solution = assessed.note === null ? solved.value : { ...solved.value, diagnostics: [...solved.value.diagnostics, assessed.note] };
@@ -109,7 +123,12 @@ async function solveLoaded(load: PairLoad, options: SolveCliOptions, io: CliIo):
   return { record: { kind: "report", report }, code: solved.value.bounds === null ? exitCodes.rejected : exitCodes.ok, messages };
 }
 
-function failed(source: string, pair: { low: string; high: string }, code: ExitCode, errors: readonly { code: string; message: string }[]): Outcome {
+function failed(
+  source: string,
+  pair: { low: string; high: string },
+  code: ExitCode,
+  errors: readonly { code: string; message: string }[],
+): Outcome {
   const failure = { tool, source, lowColumn: pair.low, highColumn: pair.high, errors };
   return { record: { kind: "failure", failure }, code, messages: errors.map((e) => `error: ${e.message}\n`) };
 }
@@ -132,26 +151,58 @@ export function solveCommand(io: CliIo, setExit: (code: ExitCode) => void): Comm
       .argument("[files...]", "CSV files of per-period returns, or '-' for standard input"),
   );
   return command
-    .addOption(new Option("--steps <n>", "number of candidates in the grid, endpoints included").argParser(wholeNumber(2, maximumSteps)).default(solveDefaults.steps))
-    .addOption(new Option("--format <format>", "report format (jsonl: one record per file and pair)").choices(solveFormats).default(solveDefaults.format))
+    .addOption(
+      new Option("--steps <n>", "number of candidates in the grid, endpoints included")
+        .argParser(wholeNumber(2, maximumSteps))
+        .default(solveDefaults.steps),
+    )
+    .addOption(
+      new Option("--format <format>", "report format (jsonl: one record per file and pair)")
+        .choices(solveFormats)
+        .default(solveDefaults.format),
+    )
     .option("--no-uncertainty", "skip standard errors and intervals (faster on very long files)")
     .option("--confidence <level>", "confidence level of every interval", openUnitInterval, uncertaintyDefaults.confidence)
-    .addOption(new Option("--long-run <method>", "long-run covariance of the moment contributions for the bounds' standard errors").choices(longRunMethods).default(uncertaintyDefaults.longRun))
+    .addOption(
+      new Option("--long-run <method>", "long-run covariance of the moment contributions for the bounds' standard errors")
+        .choices(longRunMethods)
+        .default(uncertaintyDefaults.longRun),
+    )
     .addOption(new Option("--hac-kernel <kernel>", "HAC kernel").choices(hacKernels).default(uncertaintyDefaults.hacKernel))
-    .addOption(new Option("--hac-bandwidth <rule>", "automatic HAC bandwidth rule").choices(automaticBandwidths).default(uncertaintyDefaults.hacBandwidth))
+    .addOption(
+      new Option("--hac-bandwidth <rule>", "automatic HAC bandwidth rule")
+        .choices(automaticBandwidths)
+        .default(uncertaintyDefaults.hacBandwidth),
+    )
     .option("--hac-lags <n>", "fixed HAC lag truncation instead of the automatic rule", wholeNumber(0, 100_000))
     .option("--hac-prewhite", "VAR(1) prewhitening before the HAC kernel", false)
     .option("--hac-adjust", "small-sample factor T/(T - k) on the CAPM HAC covariances", false)
-    .addOption(new Option("--interval <method>", "confidence interval for the structural betas").choices(intervalMethods).default(uncertaintyDefaults.interval))
-    .addOption(new Option("--interval-source <source>", "standard errors of the bounds: delta method or bootstrap").choices(intervalSources).default(uncertaintyDefaults.intervalSource))
     .addOption(
-      new Option("--bootstrap [replicates]", `stationary bootstrap replicates (${uncertaintyDefaults.bootstrapReplicates} when no number is given; 0 = off)`)
+      new Option("--interval <method>", "confidence interval for the structural betas")
+        .choices(intervalMethods)
+        .default(uncertaintyDefaults.interval),
+    )
+    .addOption(
+      new Option("--interval-source <source>", "standard errors of the bounds: delta method or bootstrap")
+        .choices(intervalSources)
+        .default(uncertaintyDefaults.intervalSource),
+    )
+    .addOption(
+      new Option(
+        "--bootstrap [replicates]",
+        `stationary bootstrap replicates (${uncertaintyDefaults.bootstrapReplicates} when no number is given; 0 = off)`,
+      )
         .argParser(wholeNumber(0, 10_000_000))
         .preset(uncertaintyDefaults.bootstrapReplicates)
         .default(0),
     )
     .option("--block-length <b|auto>", "mean block length of the bootstrap (auto: Politis-White)", blockLengthArgument, "auto" as const)
-    .option("--seed <n>", "seed of the bootstrap (the same seed gives the same intervals)", wholeNumber(0, Number.MAX_SAFE_INTEGER), uncertaintyDefaults.seed)
+    .option(
+      "--seed <n>",
+      "seed of the bootstrap (the same seed gives the same intervals)",
+      wholeNumber(0, Number.MAX_SAFE_INTEGER),
+      uncertaintyDefaults.seed,
+    )
     .option("--threads <n>", "worker threads for the bootstrap (results do not depend on it)", wholeNumber(1, 256), defaultThreads())
     .option("--chart <file.svg>", "also draw the identified set as an SVG chart")
     .addOption(new Option("--chart-y <quantity>", "what the chart's y axis shows").choices(chartYChoices).default("variance"))

@@ -29,7 +29,13 @@ export async function uncertaintyFor(
     const progress = createProgress(io, "bootstrap", options.bootstrap);
     bootstrapSummary = await runBootstrap(
       { ...sample, weight: options.weight },
-      { replicates: options.bootstrap, blockLength: options.blockLength, seed: options.seed, confidence: options.confidence, threads: options.threads },
+      {
+        replicates: options.bootstrap,
+        blockLength: options.blockLength,
+        seed: options.seed,
+        confidence: options.confidence,
+        threads: options.threads,
+      },
       (done) => progress.update(done),
     );
     progress.finish();
@@ -46,7 +52,9 @@ export async function uncertaintyFor(
   return { uncertainty, note: null };
 }
 
-export function hacOptions(options: Pick<SolveCliOptions, "hacKernel" | "hacBandwidth" | "hacPrewhite" | "hacAdjust" | "hacLags">): HacOptions {
+export function hacOptions(
+  options: Pick<SolveCliOptions, "hacKernel" | "hacBandwidth" | "hacPrewhite" | "hacAdjust" | "hacLags">,
+): HacOptions {
   return {
     kernel: options.hacKernel,
     bandwidth: options.hacBandwidth,

@@ -123,8 +123,7 @@ export function structureAt(
   const determinant = lowBeta * lowBeta * phi * sHigh + highBeta * highBeta * phi * sLow + sLow * sHigh;
   const lambda = capmBetas.mean;
   const expectedLowAlpha = (lowBeta - capmBetas.lowCapmBeta) * lambda;
-  const sharpe = (beta: number, variance: number): number | null =>
-    variance > 0 ? (beta * lambda) / Math.sqrt(variance) : null;
+  const sharpe = (beta: number, variance: number): number | null => (variance > 0 ? (beta * lambda) / Math.sqrt(variance) : null);
   return {
     lowBeta,
     highBeta,

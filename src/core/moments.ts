@@ -143,9 +143,15 @@ function crossProducts3(x: Float64Array, y: Float64Array, z: Float64Array): Cros
  * market w (low - r) + (1 - w)(high - r), where r is the risk-free return (one number, or one per
  * period). Equal bit for bit to `crossProducts` of the three series computed first.
  */
-export function excessCrossProducts(low: ArrayLike<number>, high: ArrayLike<number>, riskFree: number | ArrayLike<number>, weight: number): CrossProducts {
+export function excessCrossProducts(
+  low: ArrayLike<number>,
+  high: ArrayLike<number>,
+  riskFree: number | ArrayLike<number>,
+  weight: number,
+): CrossProducts {
   const n = low.length;
-  if (high.length !== n || (typeof riskFree !== "number" && riskFree.length !== n)) throw new RangeError(`excessCrossProducts: series lengths differ`);
+  if (high.length !== n || (typeof riskFree !== "number" && riskFree.length !== n))
+    throw new RangeError(`excessCrossProducts: series lengths differ`);
   return welford3(low, high, null, riskFree, weight);
 }
 
@@ -155,7 +161,13 @@ export function excessCrossProducts(low: ArrayLike<number>, high: ArrayLike<numb
  * small function (`welfordChunk`) that V8 optimises as a whole after a few calls: one long loop would
  * run in on-stack-replaced code, which boxes its doubles and is several times slower.
  */
-function welford3(x: ArrayLike<number>, y: ArrayLike<number>, z: Float64Array | null, riskFree: number | ArrayLike<number>, weight: number): CrossProducts {
+function welford3(
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  z: Float64Array | null,
+  riskFree: number | ArrayLike<number>,
+  weight: number,
+): CrossProducts {
   const n = x.length;
   const rate = typeof riskFree === "number" ? riskFree : 0;
   const rates = typeof riskFree === "number" ? null : riskFree;
@@ -189,14 +201,39 @@ const STATE_SIZE = 18;
 
 /** Rows [from, to) of welford3, continuing from and updating `state`. */
 function welfordChunk(
-  x: ArrayLike<number>, y: ArrayLike<number>, z: Float64Array | null, rates: ArrayLike<number> | null, rate: number, weight: number,
-  shift: Float64Array, from: number, to: number, state: Float64Array,
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  z: Float64Array | null,
+  rates: ArrayLike<number> | null,
+  rate: number,
+  weight: number,
+  shift: Float64Array,
+  from: number,
+  to: number,
+  state: Float64Array,
 ): void {
   const other = 1 - weight;
-  const kx = shift[0]!, ky = shift[1]!, kz = shift[2]!;
-  let mx = state[0]!, my = state[1]!, mz = state[2]!, ex = state[3]!, ey = state[4]!, ez = state[5]!;
-  let sxx = state[6]!, sxy = state[7]!, sxz = state[8]!, syy = state[9]!, syz = state[10]!, szz = state[11]!;
-  let cxx = state[12]!, cxy = state[13]!, cxz = state[14]!, cyy = state[15]!, cyz = state[16]!, czz = state[17]!;
+  const kx = shift[0]!,
+    ky = shift[1]!,
+    kz = shift[2]!;
+  let mx = state[0]!,
+    my = state[1]!,
+    mz = state[2]!,
+    ex = state[3]!,
+    ey = state[4]!,
+    ez = state[5]!;
+  let sxx = state[6]!,
+    sxy = state[7]!,
+    sxz = state[8]!,
+    syy = state[9]!,
+    syz = state[10]!,
+    szz = state[11]!;
+  let cxx = state[12]!,
+    cxy = state[13]!,
+    cxz = state[14]!,
+    cyy = state[15]!,
+    cyz = state[16]!,
+    czz = state[17]!;
   // Each update is next = s + t with Neumaier's carry c += |s| >= |t| ? s - next + t : t - next + s,
   // written out: short series run in the interpreter, where a call per update costs more than the sum.
   for (let t = from; t < to; t++) {
@@ -226,19 +263,46 @@ function welfordChunk(
     const ay = vy - (my + ey);
     const az = vz - (mz + ez);
     let term = dx * ax;
-    next = sxx + term; cxx += Math.abs(sxx) >= Math.abs(term) ? sxx - next + term : term - next + sxx; sxx = next;
+    next = sxx + term;
+    cxx += Math.abs(sxx) >= Math.abs(term) ? sxx - next + term : term - next + sxx;
+    sxx = next;
     term = dx * ay;
-    next = sxy + term; cxy += Math.abs(sxy) >= Math.abs(term) ? sxy - next + term : term - next + sxy; sxy = next;
+    next = sxy + term;
+    cxy += Math.abs(sxy) >= Math.abs(term) ? sxy - next + term : term - next + sxy;
+    sxy = next;
     term = dx * az;
-    next = sxz + term; cxz += Math.abs(sxz) >= Math.abs(term) ? sxz - next + term : term - next + sxz; sxz = next;
+    next = sxz + term;
+    cxz += Math.abs(sxz) >= Math.abs(term) ? sxz - next + term : term - next + sxz;
+    sxz = next;
     term = dy * ay;
-    next = syy + term; cyy += Math.abs(syy) >= Math.abs(term) ? syy - next + term : term - next + syy; syy = next;
+    next = syy + term;
+    cyy += Math.abs(syy) >= Math.abs(term) ? syy - next + term : term - next + syy;
+    syy = next;
     term = dy * az;
-    next = syz + term; cyz += Math.abs(syz) >= Math.abs(term) ? syz - next + term : term - next + syz; syz = next;
+    next = syz + term;
+    cyz += Math.abs(syz) >= Math.abs(term) ? syz - next + term : term - next + syz;
+    syz = next;
     term = dz * az;
-    next = szz + term; czz += Math.abs(szz) >= Math.abs(term) ? szz - next + term : term - next + szz; szz = next;
+    next = szz + term;
+    czz += Math.abs(szz) >= Math.abs(term) ? szz - next + term : term - next + szz;
+    szz = next;
   }
-  state[0] = mx; state[1] = my; state[2] = mz; state[3] = ex; state[4] = ey; state[5] = ez;
-  state[6] = sxx; state[7] = sxy; state[8] = sxz; state[9] = syy; state[10] = syz; state[11] = szz;
-  state[12] = cxx; state[13] = cxy; state[14] = cxz; state[15] = cyy; state[16] = cyz; state[17] = czz;
+  state[0] = mx;
+  state[1] = my;
+  state[2] = mz;
+  state[3] = ex;
+  state[4] = ey;
+  state[5] = ez;
+  state[6] = sxx;
+  state[7] = sxy;
+  state[8] = sxz;
+  state[9] = syy;
+  state[10] = syz;
+  state[11] = szz;
+  state[12] = cxx;
+  state[13] = cxy;
+  state[14] = cxz;
+  state[15] = cyy;
+  state[16] = cyz;
+  state[17] = czz;
 }

@@ -104,18 +104,33 @@ export function excessResidualSums(
   // Sums and compensations of the low and the high residuals.
   const state = new Float64Array(4);
   const fit = Float64Array.of(weight, xbar, lowLine.ybar, lowLine.beta, highLine.ybar, highLine.beta);
-  for (let from = 0; from < low.length; from += CHUNK) residualChunk(low, high, rates, rate, fit, from, Math.min(low.length, from + CHUNK), state);
+  for (let from = 0; from < low.length; from += CHUNK)
+    residualChunk(low, high, rates, rate, fit, from, Math.min(low.length, from + CHUNK), state);
   return [state[0]! + state[1]!, state[2]! + state[3]!];
 }
 
 /** Rows [from, to) of excessResidualSums, continuing from and updating `state`. */
 function residualChunk(
-  low: ArrayLike<number>, high: ArrayLike<number>, rates: ArrayLike<number> | null, rate: number, fit: Float64Array,
-  from: number, to: number, state: Float64Array,
+  low: ArrayLike<number>,
+  high: ArrayLike<number>,
+  rates: ArrayLike<number> | null,
+  rate: number,
+  fit: Float64Array,
+  from: number,
+  to: number,
+  state: Float64Array,
 ): void {
-  const weight = fit[0]!, xbar = fit[1]!, lowBar = fit[2]!, lowBeta = fit[3]!, highBar = fit[4]!, highBeta = fit[5]!;
+  const weight = fit[0]!,
+    xbar = fit[1]!,
+    lowBar = fit[2]!,
+    lowBeta = fit[3]!,
+    highBar = fit[4]!,
+    highBeta = fit[5]!;
   const other = 1 - weight;
-  let lowSum = state[0]!, lowCompensation = state[1]!, highSum = state[2]!, highCompensation = state[3]!;
+  let lowSum = state[0]!,
+    lowCompensation = state[1]!,
+    highSum = state[2]!,
+    highCompensation = state[3]!;
   for (let t = from; t < to; t++) {
     const r = rates === null ? rate : rates[t]!;
     const l = low[t]! - r;

@@ -173,11 +173,36 @@ export function solveWindow(window: WindowMoments): WindowSolution {
 
 /** Names of the per-window columns of `rollSolveColumns`, in order. */
 export const windowColumnNames = [
-  "lowMean", "highMean", "lowVariance", "highVariance", "covariance", "marketMean", "marketVariance",
-  "lowAlpha", "lowBeta", "lowAlphaStdErr", "lowBetaStdErr", "lowRSquared", "lowResidualVariance",
-  "highAlpha", "highBeta", "highAlphaStdErr", "highBetaStdErr", "highRSquared", "highResidualVariance",
-  "lowBetaMin", "lowBetaMax", "highBetaMin", "highBetaMax", "factorVarianceMin", "factorVarianceMax",
-  "lowNoiseFreeLowBeta", "highNoiseFreeLowBeta", "equalNoiseLowBeta", "capmConsistentLowBeta", "returnImpliedLowBeta",
+  "lowMean",
+  "highMean",
+  "lowVariance",
+  "highVariance",
+  "covariance",
+  "marketMean",
+  "marketVariance",
+  "lowAlpha",
+  "lowBeta",
+  "lowAlphaStdErr",
+  "lowBetaStdErr",
+  "lowRSquared",
+  "lowResidualVariance",
+  "highAlpha",
+  "highBeta",
+  "highAlphaStdErr",
+  "highBetaStdErr",
+  "highRSquared",
+  "highResidualVariance",
+  "lowBetaMin",
+  "lowBetaMax",
+  "highBetaMin",
+  "highBetaMax",
+  "factorVarianceMin",
+  "factorVarianceMax",
+  "lowNoiseFreeLowBeta",
+  "highNoiseFreeLowBeta",
+  "equalNoiseLowBeta",
+  "capmConsistentLowBeta",
+  "returnImpliedLowBeta",
 ] as const;
 export type WindowColumnName = (typeof windowColumnNames)[number];
 
@@ -266,8 +291,16 @@ function writeSetColumns(
   const lambda = w * m.lowMean + v * m.highMean;
   const implied = returnImpliedLowBeta(m.lowMean, lambda, Math.sqrt(market.variance) / Math.sqrt(n), w) ?? Number.NaN;
   const values = [
-    min, max, bounds.highBeta.min, bounds.highBeta.max, bounds.factorVariance.min, bounds.factorVariance.max,
-    max, min, clamp(equalNoiseLowBeta(m)), clamp(capmBeta),
+    min,
+    max,
+    bounds.highBeta.min,
+    bounds.highBeta.max,
+    bounds.factorVariance.min,
+    bounds.factorVariance.max,
+    max,
+    min,
+    clamp(equalNoiseLowBeta(m)),
+    clamp(capmBeta),
   ];
   if (!values.every(Number.isFinite)) return; // identifySet's degenerate-moments rejection
   c.lowBetaMin[k] = values[0]!;

@@ -56,7 +56,14 @@ export function solve(sample: ReturnSample, options: SolveOptions = {}): Result<
     correlation: { lowHigh: correlation(0, 1), lowMarket: correlation(0, 2), highMarket: correlation(1, 2) },
   };
   // Both CAPM fits from the same centred sums; their residuals take one more pass together.
-  const lineSums = (i: number) => ({ n, xbar: cp.means[2]!, ybar: cp.means[i]!, sxx: cp.sums[2]![2]!, sxy: cp.sums[i]![2]!, syy: cp.sums[i]![i]! });
+  const lineSums = (i: number) => ({
+    n,
+    xbar: cp.means[2]!,
+    ybar: cp.means[i]!,
+    sxx: cp.sums[2]![2]!,
+    sxy: cp.sums[i]![2]!,
+    syy: cp.sums[i]![i]!,
+  });
   const [lowSums, highSums] = [lineSums(0), lineSums(1)];
   const line = (sums: LineSums) => ({ ybar: sums.ybar, beta: sums.sxy / sums.sxx });
   const [lowSsr, highSsr] = excessResidualSums(sample.low, sample.high, riskFree, weight, cp.means[2]!, line(lowSums), line(highSums));

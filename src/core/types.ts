@@ -116,13 +116,7 @@ export interface Candidate {
   readonly insideSet: boolean;
 }
 
-export const landmarkNames = [
-  "lowNoiseFree",
-  "highNoiseFree",
-  "equalNoise",
-  "capmConsistent",
-  "returnImplied",
-] as const;
+export const landmarkNames = ["lowNoiseFree", "highNoiseFree", "equalNoise", "capmConsistent", "returnImplied"] as const;
 export type LandmarkName = (typeof landmarkNames)[number];
 
 /** Named points of the identified set. `returnImplied` is null when the market's mean excess return is too close to 0. */

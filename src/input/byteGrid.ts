@@ -120,7 +120,8 @@ function isAscii(bytes: Uint8Array): boolean {
     const blocked = wordCount & ~255;
     for (let w = 0; w < blocked; w += 256) {
       let high = 0;
-      for (let k = w; k < w + 256; k += 4) high |= (words[k] as number) | (words[k + 1] as number) | (words[k + 2] as number) | (words[k + 3] as number);
+      for (let k = w; k < w + 256; k += 4)
+        high |= (words[k] as number) | (words[k + 1] as number) | (words[k + 2] as number) | (words[k + 3] as number);
       if ((high & 0x80808080) !== 0) return false;
     }
     let high = 0;
@@ -242,7 +243,11 @@ class ByteGrid implements ByteGridOf {
   /** Set when readRows met a byte that is not plain. */
   private unplain = false;
 
-  constructor(private readonly bytes: Uint8Array, readonly delimiter: string, lines: PlainLines) {
+  constructor(
+    private readonly bytes: Uint8Array,
+    readonly delimiter: string,
+    lines: PlainLines,
+  ) {
     this.d = delimiter.charCodeAt(0);
     this.start = lines.start;
     this.starts = lines.starts;
@@ -346,8 +351,15 @@ class ByteGrid implements ByteGridOf {
     }
   }
 
-  readRows(first: number, count: number, slots: Int32Array, out: readonly Float64Array[], counts: Int32Array,
-    dateIndex: number, dateKeys: Float64Array): { readonly plainDates: boolean; readonly withNaN: readonly boolean[] } {
+  readRows(
+    first: number,
+    count: number,
+    slots: Int32Array,
+    out: readonly Float64Array[],
+    counts: Int32Array,
+    dateIndex: number,
+    dateKeys: Float64Array,
+  ): { readonly plainDates: boolean; readonly withNaN: readonly boolean[] } {
     // Only a field handed to parseDecimal can give NaN.
     const state: RowScan = { plain: true, month: -1, monthKey: 0, monthLength: 0, unplain: 0, withNaN: out.map(() => false) };
     const kernel = count >= KERNEL_MIN_ROWS && this.d < 128 ? rowKernelFor(this.bytes) : null;
@@ -368,8 +380,19 @@ class ByteGrid implements ByteGridOf {
    * scanRange forms them, and every row the kernel flagged (and the open last row) is read by
    * scanRange, in row order, so that the result is scanRange's bit for bit.
    */
-  private kernelRange(kernel: RowKernel, base: number, chunk: number, first: number, count: number, slots: Int32Array,
-    out: readonly Float64Array[], counts: Int32Array, dateIndex: number, dateKeys: Float64Array, state: RowScan): void {
+  private kernelRange(
+    kernel: RowKernel,
+    base: number,
+    chunk: number,
+    first: number,
+    count: number,
+    slots: Int32Array,
+    out: readonly Float64Array[],
+    counts: Int32Array,
+    dateIndex: number,
+    dateKeys: Float64Array,
+    state: RowScan,
+  ): void {
     const lastRow = this.openEnd ? this.starts.length - 2 : -1;
     for (let k0 = 0; k0 < count; k0 += chunk) {
       const k1 = Math.min(count, k0 + chunk);
@@ -392,8 +415,20 @@ class ByteGrid implements ByteGridOf {
    * numbers (NaN) parsed from their spans, as scanDecimal hands them to parseDecimal (their bytes
    * are digits, signs and points, so plain).
    */
-  private settleFlagged(read: KernelChunk, kernel: RowKernel, base: number, first: number, k0: number, kEnd: number, slots: Int32Array,
-    out: readonly Float64Array[], counts: Int32Array, dateIndex: number, dateKeys: Float64Array, state: RowScan): void {
+  private settleFlagged(
+    read: KernelChunk,
+    kernel: RowKernel,
+    base: number,
+    first: number,
+    k0: number,
+    kEnd: number,
+    slots: Int32Array,
+    out: readonly Float64Array[],
+    counts: Int32Array,
+    dateIndex: number,
+    dateKeys: Float64Array,
+    state: RowScan,
+  ): void {
     const { flags } = read;
     const spans = out.map((_, slot) => read.spans(slot));
     // The chunk's text, made once when a long number needs it: substrings of it are cheap.
@@ -426,8 +461,17 @@ class ByteGrid implements ByteGridOf {
   }
 
   /** Rows first + [from, to) of readRows, in JavaScript, continuing `state`. */
-  private scanRange(first: number, from: number, to: number, slots: Int32Array, out: readonly Float64Array[], counts: Int32Array,
-    dateIndex: number, dateKeys: Float64Array, state: RowScan): void {
+  private scanRange(
+    first: number,
+    from: number,
+    to: number,
+    slots: Int32Array,
+    out: readonly Float64Array[],
+    counts: Int32Array,
+    dateIndex: number,
+    dateKeys: Float64Array,
+    state: RowScan,
+  ): void {
     const { bytes, d, starts } = this;
     const lastRow = this.openEnd ? starts.length - 2 : -1;
     const { withNaN } = state;

@@ -18,8 +18,15 @@ export function readDecimalComma(text: string): number | null {
  * are null when every date is a plain "YYYY-MM-DD" (see `Extracted`). `plainKeys`: the keys of
  * those rows when already known to be all plain (see Grid.readRows).
  */
-export function readDates(grid: Grid, rows: Int32Array, dateIndex: number, dateColumn: string, options: ReadOptions, issues: IssueList,
-  plainKeys: Float64Array | null = null): { keys: Float64Array; isos: readonly string[] | null; texts: readonly string[] | null } | null {
+export function readDates(
+  grid: Grid,
+  rows: Int32Array,
+  dateIndex: number,
+  dateColumn: string,
+  options: ReadOptions,
+  issues: IssueList,
+  plainKeys: Float64Array | null = null,
+): { keys: Float64Array; isos: readonly string[] | null; texts: readonly string[] | null } | null {
   const { source, dateFormat } = options;
   if (dateFormat === undefined && plainKeys !== null) return { keys: plainKeys, isos: null, texts: null };
   if (dateFormat === undefined && grid.plainIsoDates !== undefined) {
@@ -35,7 +42,15 @@ export function readDates(grid: Grid, rows: Int32Array, dateIndex: number, dateC
   }
   if (column.kind === "ambiguous") {
     const { index, dayFirst, monthFirst } = column;
-    issues.add({ code: "ambiguous-dates", source, line: grid.line(rows[index] as number), column: dateColumn, value: texts[index] as string, dayFirst, monthFirst });
+    issues.add({
+      code: "ambiguous-dates",
+      source,
+      line: grid.line(rows[index] as number),
+      column: dateColumn,
+      value: texts[index] as string,
+      dayFirst,
+      monthFirst,
+    });
     return null;
   }
   const { keys, isos } = column;
@@ -44,7 +59,11 @@ export function readDates(grid: Grid, rows: Int32Array, dateIndex: number, dateC
     if (!Number.isNaN(keys[i] as number)) continue;
     fine = false;
     issues.add({
-      code: "bad-date", source, line: grid.line(rows[i] as number), column: dateColumn, value: texts[i] as string,
+      code: "bad-date",
+      source,
+      line: grid.line(rows[i] as number),
+      column: dateColumn,
+      value: texts[i] as string,
       ...(dateFormat === undefined ? {} : { dateFormat }),
     });
   }
@@ -57,8 +76,16 @@ export function readDates(grid: Grid, rows: Int32Array, dateIndex: number, dateC
  * "error"); any other text becomes a "not-a-number" issue. With options.decimalComma, "0,85" is 0.85.
  * Returns how many cells are left NaN (every other value is a finite number).
  */
-export function settleCells(grid: Grid, rows: Int32Array, fieldIndex: number, column: string, values: Float64Array,
-  sentinels: Sentinels, options: ReadOptions, issues: IssueList): number {
+export function settleCells(
+  grid: Grid,
+  rows: Int32Array,
+  fieldIndex: number,
+  column: string,
+  values: Float64Array,
+  sentinels: Sentinels,
+  options: ReadOptions,
+  issues: IssueList,
+): number {
   const { source } = options;
   const strict = options.onMissing === "error";
   const numericSentinels = sentinels.numbers.size > 0;

@@ -17,7 +17,11 @@ export interface HeaderContext {
 }
 
 /** Field index of each wanted column, or issues (unknown with suggestion, or named twice in the header). */
-export function resolveColumns(header: readonly string[], wanted: readonly WantedColumn[], context: HeaderContext): number[] | InputIssue[] {
+export function resolveColumns(
+  header: readonly string[],
+  wanted: readonly WantedColumn[],
+  context: HeaderContext,
+): number[] | InputIssue[] {
   const { source, line } = context;
   const names = header.map((name) => name.trim());
   const available = names.filter((name) => name !== "");
@@ -32,7 +36,12 @@ export function resolveColumns(header: readonly string[], wanted: readonly Wante
       const suggestion = closestName(target, available);
       const foundInBlock = context.findInOtherTable(target);
       issues.push({
-        code: "unknown-column", source, line, column: target, role, available,
+        code: "unknown-column",
+        source,
+        line,
+        column: target,
+        role,
+        available,
         ...(suggestion === undefined ? {} : { suggestion }),
         ...(foundInBlock === undefined ? {} : { foundInBlock }),
       });

@@ -40,7 +40,15 @@ export function toReturns(data: Extracted, order: Int32Array, options: ReadOptio
     for (let k = nextExtreme(out, 0); k >= 0; k = nextExtreme(out, k + 1)) {
       const value = out[k] as number;
       const row = rows[k] as number;
-      issues.add({ code: "extreme-value", source, line: data.lines[row] as number, column: data.columns[c] as string, value: data.rawText(c, row), decimalValue: value, limit: EXTREME_LIMIT });
+      issues.add({
+        code: "extreme-value",
+        source,
+        line: data.lines[row] as number,
+        column: data.columns[c] as string,
+        value: data.rawText(c, row),
+        decimalValue: value,
+        limit: EXTREME_LIMIT,
+      });
     }
     return out;
   };
@@ -53,9 +61,11 @@ export function toReturns(data: Extracted, order: Int32Array, options: ReadOptio
       for (const row of order) {
         const price = column[row] as number;
         if (price <= 0) checked = false;
-        if (price <= 0) issues.add({ code: "non-positive-price", source, line: data.lines[row] as number, column: name, value: data.rawText(c, row) });
+        if (price <= 0)
+          issues.add({ code: "non-positive-price", source, line: data.lines[row] as number, column: name, value: data.rawText(c, row) });
       }
-      for (let k = 0; k < rows.length; k++) out[k] = (column[order[k + 1] as number] as number) / (column[order[k] as number] as number) - 1;
+      for (let k = 0; k < rows.length; k++)
+        out[k] = (column[order[k + 1] as number] as number) / (column[order[k] as number] as number) - 1;
     } else if (input === "log-returns") {
       for (let k = 0; k < rows.length; k++) out[k] = Math.expm1((column[rows[k] as number] as number) / scale);
     } else if (scale === 1) {

@@ -27,7 +27,10 @@ export function readDateColumn(texts: readonly string[], dateFormat?: string): D
   let isos = texts as string[];
   let copied = false;
   const put = (index: number, date: ParsedDate | null): void => {
-    if (!copied && date !== null && date.iso !== texts[index]) (isos = texts.slice()), (copied = true);
+    if (!copied && date !== null && date.iso !== texts[index]) {
+      isos = texts.slice();
+      copied = true;
+    }
     set(keys, isos, index, date);
   };
   const slashes: { index: number; readings: SlashReadings }[] = [];

@@ -7,8 +7,18 @@
 import { calendarDate, type ParsedDate } from "./dates.js";
 
 const MONTH_NAMES = [
-  "january", "february", "march", "april", "may", "june",
-  "july", "august", "september", "october", "november", "december",
+  "january",
+  "february",
+  "march",
+  "april",
+  "may",
+  "june",
+  "july",
+  "august",
+  "september",
+  "october",
+  "november",
+  "december",
 ];
 
 type Part = "year" | "month" | "monthName" | "day";

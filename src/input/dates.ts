@@ -32,7 +32,8 @@ function daysFromCivil(year: number, month: number, day: number): number {
 const pad = (n: number, width = 2): string => String(n).padStart(width, "0");
 
 const isLeap = (year: number): boolean => year % 4 === 0 && (year % 100 !== 0 || year % 400 === 0);
-export const daysInMonth = (year: number, month: number): number => (MONTH_DAYS[month - 1] as number) + (month === 2 && isLeap(year) ? 1 : 0);
+export const daysInMonth = (year: number, month: number): number =>
+  (MONTH_DAYS[month - 1] as number) + (month === 2 && isLeap(year) ? 1 : 0);
 export const DAY_MS = 86_400_000;
 
 /** A calendar date from numeric parts, or null when it does not exist (e.g. 2021-02-29). */

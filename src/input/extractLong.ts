@@ -17,8 +17,14 @@ import { checkFieldCounts } from "./rowShape.js";
 import { closestName } from "./suggest.js";
 
 /** Extract and pivot the requested series of the located table; null (after adding issues) on any problem. */
-export function extractLong(grid: Grid, location: TableLocation, options: ReadOptions, sentinels: Sentinels, issues: IssueList,
-  findInOtherTable: (name: string) => number | undefined): Extracted | null {
+export function extractLong(
+  grid: Grid,
+  location: TableLocation,
+  options: ReadOptions,
+  sentinels: Sentinels,
+  issues: IssueList,
+  findInOtherTable: (name: string) => number | undefined,
+): Extracted | null {
   const { source } = options;
   const header = grid.fields(location.headerRow).map((name) => name.trim());
   const headerLine = grid.line(location.headerRow);
@@ -30,10 +36,23 @@ export function extractLong(grid: Grid, location: TableLocation, options: ReadOp
     { name: (options.valueColumn ?? "").trim(), role: "series value" as const },
   ];
   const resolved = resolveColumns(header, wanted, { source, line: headerLine, findInOtherTable });
-  if (typeof resolved[0] !== "number") return void issues.addAll(resolved as never[]), null;
+  if (typeof resolved[0] !== "number") {
+    issues.addAll(resolved as never[]);
+    return null;
+  }
   const [dateIndex, idIndex, valueIndex] = resolved as [number, number, number];
   const all = int32Of(location.endRow - location.firstDataRow, (i) => location.firstDataRow + i);
-  if (!checkFieldCounts(grid, all, int32Of(all.length, (i) => grid.fieldCount(all[i] as number)), header, source, issues)) return null;
+  if (
+    !checkFieldCounts(
+      grid,
+      all,
+      int32Of(all.length, (i) => grid.fieldCount(all[i] as number)),
+      header,
+      source,
+      issues,
+    )
+  )
+    return null;
 
   const series = options.columns.map((name) => name.trim());
   const slotOf = new Map(series.map((name, slot) => [name, slot]));
@@ -44,7 +63,10 @@ export function extractLong(grid: Grid, location: TableLocation, options: ReadOp
     const id = grid.field(row, idIndex).trim();
     present.add(id);
     const slot = slotOf.get(id);
-    if (slot !== undefined) picked.push(row), slots.push(slot);
+    if (slot !== undefined) {
+      picked.push(row);
+      slots.push(slot);
+    }
   }
   for (const name of series) {
     if (present.has(name)) continue;
@@ -79,8 +101,15 @@ export function extractLong(grid: Grid, location: TableLocation, options: ReadOp
     const earlier = (source2[slot] as Int32Array)[at] as number;
     const row = rows[i] as number;
     if (earlier >= 0) {
-      issues.add({ code: "duplicate-date", source, line: grid.line(row), column: dateColumn, value: dated.texts === null ? plainIsoDateOfKey(keys[i] as number) : (dated.texts[i] as string),
-        firstLine: grid.line(rows[earlier] as number), series: series[slot] as string });
+      issues.add({
+        code: "duplicate-date",
+        source,
+        line: grid.line(row),
+        column: dateColumn,
+        value: dated.texts === null ? plainIsoDateOfKey(keys[i] as number) : (dated.texts[i] as string),
+        firstLine: grid.line(rows[earlier] as number),
+        series: series[slot] as string,
+      });
     }
     (source2[slot] as Int32Array)[at] = i;
     (out[slot] as Float64Array)[at] = values[i] as number;

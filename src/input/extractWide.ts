@@ -10,13 +10,22 @@ import type { ReadOptions } from "./options.js";
 import { checkFieldCounts } from "./rowShape.js";
 
 /** Extract the requested columns of the located table; null (after adding issues) on any problem. */
-export function extractWide(grid: Grid, location: TableLocation, options: ReadOptions, sentinels: Sentinels, issues: IssueList,
-  findInOtherTable: (name: string) => number | undefined): Extracted | null {
+export function extractWide(
+  grid: Grid,
+  location: TableLocation,
+  options: ReadOptions,
+  sentinels: Sentinels,
+  issues: IssueList,
+  findInOtherTable: (name: string) => number | undefined,
+): Extracted | null {
   const { source } = options;
   const header = grid.fields(location.headerRow).map((name) => name.trim());
   const headerLine = grid.line(location.headerRow);
   const dateColumn = options.dateColumn?.trim() ?? header[0] ?? "";
-  const wanted = [{ name: dateColumn, role: "date" as const }, ...options.columns.map((name) => ({ name: name.trim(), role: "value" as const }))];
+  const wanted = [
+    { name: dateColumn, role: "date" as const },
+    ...options.columns.map((name) => ({ name: name.trim(), role: "value" as const })),
+  ];
   const resolved = resolveColumns(header, wanted, { source, line: headerLine, findInOtherTable });
   if (typeof resolved[0] !== "number") {
     issues.addAll(resolved as never[]);
@@ -49,7 +58,8 @@ export function extractWide(grid: Grid, location: TableLocation, options: ReadOp
   let missing = 0;
   values.forEach((column, c) => {
     // Only NaN cells and numeric sentinels need settling.
-    if (withNaN[c] === true || sentinels.numbers.size > 0) missing += settleCells(grid, rows, valueIndexes[c] as number, columns[c] as string, column, sentinels, options, issues);
+    if (withNaN[c] === true || sentinels.numbers.size > 0)
+      missing += settleCells(grid, rows, valueIndexes[c] as number, columns[c] as string, column, sentinels, options, issues);
   });
 
   const dated = readDates(grid, rows, dateIndex as number, dateColumn, options, issues, plainKeys);

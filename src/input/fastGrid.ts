@@ -36,7 +36,12 @@ class FastGrid implements Grid {
   private readonly counts: Int32Array;
   private readonly d: number;
 
-  constructor(private readonly text: string, readonly delimiter: string, private readonly starts: Int32Array, private readonly ends: Int32Array) {
+  constructor(
+    private readonly text: string,
+    readonly delimiter: string,
+    private readonly starts: Int32Array,
+    private readonly ends: Int32Array,
+  ) {
     this.counts = new Int32Array(starts.length).fill(-1);
     this.d = delimiter.charCodeAt(0);
   }

@@ -38,7 +38,15 @@ function orderRows(data: Extracted, options: ReadOptions, issues: IssueList): In
     const line = data.lines[i] as number;
     const value = dateTextAt(data, i);
     const previousLine = data.lines[previous] as number;
-    if (delta === 0) issues.add({ code: "duplicate-date", source, line: Math.max(line, previousLine), column, value, firstLine: Math.min(line, previousLine) });
+    if (delta === 0)
+      issues.add({
+        code: "duplicate-date",
+        source,
+        line: Math.max(line, previousLine),
+        column,
+        value,
+        firstLine: Math.min(line, previousLine),
+      });
     else issues.add({ code: "unsorted-dates", source, line, column, value, previousValue: dateTextAt(data, previous), previousLine });
   }
   return order;
@@ -53,9 +61,10 @@ export function finishTable(data: Extracted, options: ReadOptions, issues: Issue
   const { rows, values } = converted;
   // A row is kept when no column is missing (NaN) there.
   let missing: Uint8Array | null = null;
-  if (!data.complete) for (const column of values) {
-    for (let k = 0; k < column.length; k++) if (Number.isNaN(column[k] as number)) (missing ??= new Uint8Array(rows.length))[k] = 1;
-  }
+  if (!data.complete)
+    for (const column of values) {
+      for (let k = 0; k < column.length; k++) if (Number.isNaN(column[k] as number)) (missing ??= new Uint8Array(rows.length))[k] = 1;
+    }
   let kept = rows.length;
   let keep: Int32Array | null = null;
   const droppedDates: string[] = [];
@@ -72,11 +81,13 @@ export function finishTable(data: Extracted, options: ReadOptions, issues: Issue
     return failure([{ code: "too-few-rows", source: options.source, kept, required: MIN_ROWS, rowsRead: data.rowsRead, dropped }]);
   }
   const source = keep === null || kept === rows.length ? null : keep.subarray(0, kept);
-  const pick = (column: Float64Array): Float64Array => (source === null ? column : float64Of(source.length, (i) => column[source[i] as number] as number));
+  const pick = (column: Float64Array): Float64Array =>
+    source === null ? column : float64Of(source.length, (i) => column[source[i] as number] as number);
   const keptRows = source === null ? rows : int32Of(source.length, (i) => rows[source[i] as number] as number);
   const columns = new Map<string, Float64Array>();
   data.columns.forEach((name, c) => columns.set(name, pick(values[c] as Float64Array)));
-  const frequency = options.periodsPerYear === undefined ? detectFrequency(orderedKeys(data.keys, order)) : frequencyFromPeriods(options.periodsPerYear);
+  const frequency =
+    options.periodsPerYear === undefined ? detectFrequency(orderedKeys(data.keys, order)) : frequencyFromPeriods(options.periodsPerYear);
   const identity = keptRows.length === data.keys.length && isIdentity(keptRows);
   const { isos } = data;
   let dates: readonly string[] | null = null;

@@ -37,8 +37,15 @@ export interface Grid {
    * reads) of those rows into dateKeys, whose result is `plainDates`. withNaN[slot] is false only
    * when no value written to out[slot] is NaN.
    */
-  readRows?(first: number, count: number, slots: Int32Array, out: readonly Float64Array[], counts: Int32Array, dateIndex: number,
-    dateKeys: Float64Array): { readonly plainDates: boolean; readonly withNaN: readonly boolean[] };
+  readRows?(
+    first: number,
+    count: number,
+    slots: Int32Array,
+    out: readonly Float64Array[],
+    counts: Int32Array,
+    dateIndex: number,
+    dateKeys: Float64Array,
+  ): { readonly plainDates: boolean; readonly withNaN: readonly boolean[] };
 }
 
 /** Why csv-parse could not tokenise the text. */

@@ -9,6 +9,11 @@ export { parseDecimal, isMissingToken } from "./numbers.js";
 export { compileDateFormat } from "./dateFormat.js";
 export { detectDelimiter } from "./dialect.js";
 export {
-  describeInputIssue, describeInputWarning, inputIssueCodes,
-  type InputIssue, type InputIssueCode, type InputWarning, type ColumnRole,
+  describeInputIssue,
+  describeInputWarning,
+  inputIssueCodes,
+  type InputIssue,
+  type InputIssueCode,
+  type InputWarning,
+  type ColumnRole,
 } from "./issues.js";

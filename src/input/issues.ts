@@ -6,11 +6,32 @@
 
 /** Stable issue codes, in a fixed order, so callers can map them to exit codes. */
 export const inputIssueCodes = [
-  "empty-file", "header-only", "no-table", "no-such-block", "unknown-column", "duplicate-column",
-  "unknown-series", "not-a-number", "missing-value", "wrong-field-count", "unquoted-delimiter",
-  "malformed-quotes", "bad-date", "ambiguous-dates", "duplicate-date", "unsorted-dates", "too-few-rows", "too-few-common-dates",
-  "extreme-value", "non-positive-price", "invalid-encoding", "binary-content", "unsupported-encoding",
-  "invalid-option", "too-many-issues", "internal-error",
+  "empty-file",
+  "header-only",
+  "no-table",
+  "no-such-block",
+  "unknown-column",
+  "duplicate-column",
+  "unknown-series",
+  "not-a-number",
+  "missing-value",
+  "wrong-field-count",
+  "unquoted-delimiter",
+  "malformed-quotes",
+  "bad-date",
+  "ambiguous-dates",
+  "duplicate-date",
+  "unsorted-dates",
+  "too-few-rows",
+  "too-few-common-dates",
+  "extreme-value",
+  "non-positive-price",
+  "invalid-encoding",
+  "binary-content",
+  "unsupported-encoding",
+  "invalid-option",
+  "too-many-issues",
+  "internal-error",
 ] as const;
 
 /** One of `inputIssueCodes`. */
@@ -30,21 +51,58 @@ export type InputIssue =
   | Issue<"header-only", { readonly line: number }>
   | Issue<"no-table">
   | Issue<"no-such-block", { readonly block: number; readonly available: number }>
-  | Issue<"unknown-column", { readonly column: string; readonly role: ColumnRole; readonly available: readonly string[]; readonly suggestion?: string; readonly foundInBlock?: number }>
+  | Issue<
+      "unknown-column",
+      {
+        readonly column: string;
+        readonly role: ColumnRole;
+        readonly available: readonly string[];
+        readonly suggestion?: string;
+        readonly foundInBlock?: number;
+      }
+    >
   | Issue<"duplicate-column", { readonly column: string }>
-  | Issue<"unknown-series", { readonly column: string; readonly idColumn: string; readonly available: readonly string[]; readonly suggestion?: string }>
+  | Issue<
+      "unknown-series",
+      { readonly column: string; readonly idColumn: string; readonly available: readonly string[]; readonly suggestion?: string }
+    >
   | Issue<"not-a-number", { readonly line: number; readonly column: string; readonly value: string }>
   | Issue<"missing-value", { readonly line: number; readonly column: string; readonly value: string }>
   | Issue<"wrong-field-count", { readonly line: number; readonly expected: number; readonly actual: number }>
   | Issue<"unquoted-delimiter", { readonly line: number; readonly column: string; readonly value: string; readonly delimiter: string }>
   | Issue<"malformed-quotes", { readonly detail: string }>
   | Issue<"bad-date", { readonly line: number; readonly column: string; readonly value: string; readonly dateFormat?: string }>
-  | Issue<"ambiguous-dates", { readonly line: number; readonly column: string; readonly value: string; readonly dayFirst: string; readonly monthFirst: string }>
-  | Issue<"duplicate-date", { readonly line: number; readonly column: string; readonly value: string; readonly firstLine: number; readonly series?: string }>
-  | Issue<"unsorted-dates", { readonly line: number; readonly column: string; readonly value: string; readonly previousValue: string; readonly previousLine: number }>
+  | Issue<
+      "ambiguous-dates",
+      { readonly line: number; readonly column: string; readonly value: string; readonly dayFirst: string; readonly monthFirst: string }
+    >
+  | Issue<
+      "duplicate-date",
+      { readonly line: number; readonly column: string; readonly value: string; readonly firstLine: number; readonly series?: string }
+    >
+  | Issue<
+      "unsorted-dates",
+      {
+        readonly line: number;
+        readonly column: string;
+        readonly value: string;
+        readonly previousValue: string;
+        readonly previousLine: number;
+      }
+    >
   | Issue<"too-few-rows", { readonly kept: number; readonly required: number; readonly rowsRead: number; readonly dropped: number }>
-  | Issue<"too-few-common-dates", { readonly matched: number; readonly required: number; readonly counts: readonly { readonly source: string; readonly dates: number }[] }>
-  | Issue<"extreme-value", { readonly line: number; readonly column: string; readonly value: string; readonly decimalValue: number; readonly limit: number }>
+  | Issue<
+      "too-few-common-dates",
+      {
+        readonly matched: number;
+        readonly required: number;
+        readonly counts: readonly { readonly source: string; readonly dates: number }[];
+      }
+    >
+  | Issue<
+      "extreme-value",
+      { readonly line: number; readonly column: string; readonly value: string; readonly decimalValue: number; readonly limit: number }
+    >
   | Issue<"non-positive-price", { readonly line: number; readonly column: string; readonly value: string }>
   | Issue<"invalid-encoding", { readonly line: number; readonly offset: number }>
   | Issue<"binary-content", { readonly line: number; readonly offset: number }>
@@ -91,7 +149,8 @@ export function describeInputIssue(issue: InputIssue): string {
       return `${at}: table ${issue.block} was asked for but the file has ${issue.available}; use --block 1 to ${issue.available}`;
     case "unknown-column": {
       const hint = issue.suggestion === undefined ? "" : `did you mean ${quote(issue.suggestion)}? `;
-      const block = issue.foundInBlock === undefined ? "" : `; it is in table ${issue.foundInBlock} of the file (use --block ${issue.foundInBlock})`;
+      const block =
+        issue.foundInBlock === undefined ? "" : `; it is in table ${issue.foundInBlock} of the file (use --block ${issue.foundInBlock})`;
       return `${whereLine(issue)}: no ${issue.role} column ${quote(issue.column)}; ${hint}available columns: ${listOf(issue.available)}${block}`;
     }
     case "duplicate-column":

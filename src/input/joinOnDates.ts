@@ -28,7 +28,8 @@ export interface JoinedReturns {
 export function joinOnDates(tables: readonly ReturnTable[]): Result<JoinedReturns, InputIssue[]> {
   const first = tables[0];
   const source = tables.map((t) => t.source).join(" + ");
-  if (first === undefined) return failure([{ code: "invalid-option", source: "<join>", option: "tables", reason: "give at least one table" }]);
+  if (first === undefined)
+    return failure([{ code: "invalid-option", source: "<join>", option: "tables", reason: "give at least one table" }]);
   const issues: InputIssue[] = [];
   const owner = new Map<string, string>();
   for (const t of tables) {
@@ -47,14 +48,26 @@ export function joinOnDates(tables: readonly ReturnTable[]): Result<JoinedReturn
   const matched = picks[0]?.length ?? 0;
   const dateCounts = tables.map((t) => t.dates.length);
   if (matched < MIN_ROWS) {
-    return failure([{ code: "too-few-common-dates", source, matched, required: MIN_ROWS, counts: tables.map((t) => ({ source: t.source, dates: t.dates.length })) }]);
+    return failure([
+      {
+        code: "too-few-common-dates",
+        source,
+        matched,
+        required: MIN_ROWS,
+        counts: tables.map((t) => ({ source: t.source, dates: t.dates.length })),
+      },
+    ]);
   }
   const firstPicks = picks[0] as number[];
   const dates = firstPicks.map((i) => first.dates[i] as string);
   const columns = new Map<string, Float64Array>();
   tables.forEach((t, k) => {
     const rows = picks[k] as number[];
-    for (const [name, values] of t.columns) columns.set(name, float64Of(rows.length, (j) => values[rows[j] as number] as number));
+    for (const [name, values] of t.columns)
+      columns.set(
+        name,
+        float64Of(rows.length, (j) => values[rows[j] as number] as number),
+      );
   });
   const shared = new Set(dates);
   const unmatched = tables.map((t) => {

@@ -113,7 +113,8 @@ function noTableIssue(grid: Grid, source: string): InputIssue {
   const first = nonBlank[0];
   if (first === undefined) return { code: "empty-file", source };
   for (let row = 0; row < grid.rowCount; row++) {
-    if (grid.fieldCount(row) >= 2 || nonBlank.length === 1) return { code: "header-only", source, line: grid.line(nonBlank.length === 1 ? first : row) };
+    if (grid.fieldCount(row) >= 2 || nonBlank.length === 1)
+      return { code: "header-only", source, line: grid.line(nonBlank.length === 1 ? first : row) };
   }
   return { code: "no-table", source };
 }

@@ -61,17 +61,21 @@ export function validateOptions(options: ReadOptions): InputIssue[] {
     issues.push(invalid(source, "columns", `${JSON.stringify(options.dateColumn)} is the date column`));
   }
   const { delimiter, block, periodsPerYear } = options;
-  if (delimiter !== undefined && (delimiter.length !== 1 || /[\r\n"\d.+\-]/.test(delimiter))) {
+  if (delimiter !== undefined && (delimiter.length !== 1 || /[\r\n"\d.+-]/.test(delimiter))) {
     issues.push(invalid(source, "delimiter", "must be one character other than a quote, a line break, a digit, a sign or a point"));
   }
-  if (block !== undefined && !(Number.isInteger(block) && block >= 1)) issues.push(invalid(source, "block", "must be a whole number from 1"));
+  if (block !== undefined && !(Number.isInteger(block) && block >= 1))
+    issues.push(invalid(source, "block", "must be a whole number from 1"));
   if (periodsPerYear !== undefined && !(Number.isFinite(periodsPerYear) && periodsPerYear > 0)) {
     issues.push(invalid(source, "periodsPerYear", "must be a positive number"));
   }
-  if (options.decimalComma === true && delimiter === ",") issues.push(invalid(source, "decimalComma", "the delimiter is a comma, so it cannot also be the decimal separator"));
+  if (options.decimalComma === true && delimiter === ",")
+    issues.push(invalid(source, "decimalComma", "the delimiter is a comma, so it cannot also be the decimal separator"));
   if (options.input === "prices" && options.units === "percent") issues.push(invalid(source, "units", "percent does not apply to prices"));
   if ((options.idColumn === undefined) !== (options.valueColumn === undefined)) {
-    issues.push(invalid(source, options.idColumn === undefined ? "idColumn" : "valueColumn", "the long layout needs both idColumn and valueColumn"));
+    issues.push(
+      invalid(source, options.idColumn === undefined ? "idColumn" : "valueColumn", "the long layout needs both idColumn and valueColumn"),
+    );
   }
   return issues;
 }

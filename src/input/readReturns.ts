@@ -59,7 +59,11 @@ export function readReturnsFromBytes(bytes: Uint8Array, options: ReadOptions): R
  * engine not even looking at the first bytes before reading ("speculative", for tests of the
  * fallback); results are identical.
  */
-export function readBytesWith(bytes: Uint8Array, options: ReadOptions, engine: "auto" | "text" | "speculative"): Result<ReturnTable, InputIssue[]> {
+export function readBytesWith(
+  bytes: Uint8Array,
+  options: ReadOptions,
+  engine: "auto" | "text" | "speculative",
+): Result<ReturnTable, InputIssue[]> {
   const source = typeof options?.source === "string" ? options.source : "<input>";
   try {
     const lines = engine === "text" ? null : plainLines(bytes, engine === "auto" ? undefined : 0);

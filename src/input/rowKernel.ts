@@ -29,8 +29,21 @@ const MIN_CHUNK = 256;
 
 interface KernelExports {
   findLines(from: number, to: number, base: number, out: number): number;
-  readRows(starts: number, count: number, base: number, d: number, slots: number, nf: number, dateIndex: number,
-    out: number, keys: number, counts: number, flags: number, spans: number, status: number): number;
+  readRows(
+    starts: number,
+    count: number,
+    base: number,
+    d: number,
+    slots: number,
+    nf: number,
+    dateIndex: number,
+    out: number,
+    keys: number,
+    counts: number,
+    flags: number,
+    spans: number,
+    status: number,
+  ): number;
 }
 
 let compiled: WebAssembly.Module | null | undefined;
@@ -86,7 +99,8 @@ export function rowKernelFor(bytes: Uint8Array): { readonly kernel: RowKernel; r
   if (bytes.length > COPY_LIMIT) return null;
   if (copyKernel === undefined) {
     const module = kernelModule();
-    copyKernel = module === null ? null : new RowKernel(new WebAssembly.Memory({ initial: Math.ceil((FILE_BASE + COPY_LIMIT) / PAGE) }), module);
+    copyKernel =
+      module === null ? null : new RowKernel(new WebAssembly.Memory({ initial: Math.ceil((FILE_BASE + COPY_LIMIT) / PAGE) }), module);
   }
   if (copyKernel === null) return null;
   copyKernel.write(bytes, FILE_BASE);
@@ -168,7 +182,16 @@ export class RowKernel {
    * Reads rows [from, to) of a file at `base` whose rows start at `starts` (offsets into the file, as
    * PlainLines.starts; every row must end with a line feed), at most chunkRows(...) rows.
    */
-  scan(base: number, starts: Int32Array, from: number, to: number, slots: Int32Array, columns: number, delimiter: number, dateIndex: number): KernelChunk {
+  scan(
+    base: number,
+    starts: Int32Array,
+    from: number,
+    to: number,
+    slots: Int32Array,
+    columns: number,
+    delimiter: number,
+    dateIndex: number,
+  ): KernelChunk {
     const count = to - from;
     const align8 = (n: number): number => (n + 7) & ~7;
     const statusAt = SCRATCH_BASE;
@@ -182,7 +205,21 @@ export class RowKernel {
     const { words, doubles } = this;
     words.set(slots, slotsAt >> 2);
     words.set(starts.subarray(from, to + 1), startsAt >> 2);
-    const flagged = this.exports.readRows(startsAt, count, base, delimiter, slotsAt, slots.length, dateIndex, outAt, keysAt, countsAt, flagsAt, spansAt, statusAt);
+    const flagged = this.exports.readRows(
+      startsAt,
+      count,
+      base,
+      delimiter,
+      slotsAt,
+      slots.length,
+      dateIndex,
+      outAt,
+      keysAt,
+      countsAt,
+      flagsAt,
+      spansAt,
+      statusAt,
+    );
     return {
       values: (slot) => doubles.subarray((outAt >> 3) + slot * count, (outAt >> 3) + (slot + 1) * count),
       spans: (slot) => words.subarray((spansAt >> 2) + 2 * slot * count, (spansAt >> 2) + 2 * (slot + 1) * count),

@@ -10,7 +10,14 @@ const FRACTION_PART = /^\d+\s*$/;
  * are accepted. `counts[i]` is the field count of rows[i]. A row with extra fields where a number seems split at the delimiter ("1,5" read as
  * "1" and "5") is reported as "unquoted-delimiter". Returns true when every row is fine.
  */
-export function checkFieldCounts(grid: Grid, rows: Int32Array, counts: Int32Array, header: readonly string[], source: string, issues: IssueList): boolean {
+export function checkFieldCounts(
+  grid: Grid,
+  rows: Int32Array,
+  counts: Int32Array,
+  header: readonly string[],
+  source: string,
+  issues: IssueList,
+): boolean {
   const expected = header.length;
   let fine = true;
   for (let i = 0; i < rows.length; i++) {

@@ -21,8 +21,10 @@ export function unitWarnings(columns: ReadonlyMap<string, Float64Array>, options
   for (const [column, values] of columns) {
     const step = Math.max(1, Math.floor(values.length / SAMPLE));
     const medianAbs = median(float64Of(Math.ceil(values.length / step), (i) => Math.abs(values[i * step] as number)));
-    if (!percent && medianAbs > PERCENT_LOOKING_MEDIAN) warnings.push({ code: "looks-like-percent", source: options.source, column, medianAbs });
-    if (percent && medianAbs > 0 && medianAbs < DECIMAL_LOOKING_MEDIAN) warnings.push({ code: "looks-like-decimal", source: options.source, column, medianAbs });
+    if (!percent && medianAbs > PERCENT_LOOKING_MEDIAN)
+      warnings.push({ code: "looks-like-percent", source: options.source, column, medianAbs });
+    if (percent && medianAbs > 0 && medianAbs < DECIMAL_LOOKING_MEDIAN)
+      warnings.push({ code: "looks-like-decimal", source: options.source, column, medianAbs });
   }
   return warnings;
 }

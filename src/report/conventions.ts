@@ -10,10 +10,8 @@ export const modelAssumptions = [
   "one common latent factor F drives both books: R = a + b F + e",
   "each book's noise e is uncorrelated with the factor and with the other book's noise",
   "betas and variances are constant over the sample",
-  "the market proxy is M = w low + (1 - w) high, and the structural betas are scaled so that " +
-    "w b_low + (1 - w) b_high = 1",
-  "for the expected alphas and the return-implied point only: the factor is the only priced risk, " +
-    "so E[R - rf] = b E[M - rf]",
+  "the market proxy is M = w low + (1 - w) high, and the structural betas are scaled so that " + "w b_low + (1 - w) b_high = 1",
+  "for the expected alphas and the return-implied point only: the factor is the only priced risk, " + "so E[R - rf] = b E[M - rf]",
 ] as const;
 
 /** The `conventions` block of the JSON output. */

@@ -88,7 +88,10 @@ function renderImpliedText(report: ImpliedReport, options: RenderOptions): strin
         ["high noise sd / variance", `${formatNumber(st.highNoiseVol)} / ${formatNumber(s.truth.highNoiseVariance)}`],
         ["market proxy weight w", String(st.weight)],
         ["risk-free return", formatNumber(report.riskFree ?? 0)],
-        ["expected raw returns", `low ${formatNumber((report.riskFree ?? 0) + s.moments.low.mean)}, high ${formatNumber((report.riskFree ?? 0) + s.moments.high.mean)}`],
+        [
+          "expected raw returns",
+          `low ${formatNumber((report.riskFree ?? 0) + s.moments.low.mean)}, high ${formatNumber((report.riskFree ?? 0) + s.moments.high.mean)}`,
+        ],
       ]),
     ],
     momentsSection(s, style, "Population moments (excess returns, per period)"),

@@ -52,7 +52,12 @@ function inputOf(input: InputDescription): InputDescription {
       input.join === null
         ? null
         : {
-            sides: input.join.sides.map((side) => ({ source: side.source, column: side.column, dates: side.dates, unmatched: side.unmatched })),
+            sides: input.join.sides.map((side) => ({
+              source: side.source,
+              column: side.column,
+              dates: side.dates,
+              unmatched: side.unmatched,
+            })),
             matched: input.join.matched,
           },
   };

@@ -22,9 +22,7 @@ const plain = (text: string): string => text;
 
 /** ANSI bold headings, yellow warnings and red errors when `options.colour`; plain text otherwise. */
 export function styleFor(options: RenderOptions): Style {
-  return options.colour
-    ? { heading: ansi("1"), warning: ansi("33"), error: ansi("31") }
-    : { heading: plain, warning: plain, error: plain };
+  return options.colour ? { heading: ansi("1"), warning: ansi("33"), error: ansi("31") } : { heading: plain, warning: plain, error: plain };
 }
 
 /**
@@ -32,6 +30,7 @@ export function styleFor(options: RenderOptions): Style {
  * name cannot move the cursor or change the terminal's colours.
  */
 export function printable(text: string): string {
+  // biome-ignore lint/suspicious/noControlCharactersInRegex: matching control characters is the point
   return text.replace(/[\u0000-\u001f\u007f-\u009f]/g, (c) => `\\u{${c.charCodeAt(0).toString(16)}}`);
 }
 

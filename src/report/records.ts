@@ -18,7 +18,9 @@ export interface SolveFailure {
   readonly errors: readonly { readonly code: string; readonly message: string }[];
 }
 
-export type SolveRecord = { readonly kind: "report"; readonly report: SolveReport } | { readonly kind: "failure"; readonly failure: SolveFailure };
+export type SolveRecord =
+  | { readonly kind: "report"; readonly report: SolveReport }
+  | { readonly kind: "failure"; readonly failure: SolveFailure };
 
 export function failureOutput(failure: SolveFailure) {
   return {
@@ -48,7 +50,8 @@ export function renderRecordsCsv(records: readonly SolveRecord[]): string {
     if (record.kind !== "report" || record.report.solution.bounds === null) continue;
     const { input, solution } = record.report;
     const prefix = [input.source, input.lowColumn, input.highColumn].map(csvField).join(",");
-    for (const [point, candidate] of namedCandidates(solution.grid, solution.landmarks)) lines.push(`${prefix},${candidateRow(point, candidate)}`);
+    for (const [point, candidate] of namedCandidates(solution.grid, solution.landmarks))
+      lines.push(`${prefix},${candidateRow(point, candidate)}`);
   }
   return `${lines.join("\n")}\n`;
 }

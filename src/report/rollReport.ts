@@ -22,11 +22,25 @@ export interface RollMeta {
 }
 
 export const uncertaintyColumnNames = [
-  "lowBetaMinStdError", "lowBetaMaxStdError", "highBetaMinStdError", "highBetaMaxStdError", "lowBetaIntervalLower", "lowBetaIntervalUpper",
+  "lowBetaMinStdError",
+  "lowBetaMaxStdError",
+  "highBetaMinStdError",
+  "highBetaMaxStdError",
+  "lowBetaIntervalLower",
+  "lowBetaIntervalUpper",
 ] as const;
 
 export function rollCsvHeader(withUncertainty: boolean): string {
-  const names = ["source", "lowColumn", "highColumn", "start", "end", "observations", ...windowColumnNames, ...(withUncertainty ? uncertaintyColumnNames : [])];
+  const names = [
+    "source",
+    "lowColumn",
+    "highColumn",
+    "start",
+    "end",
+    "observations",
+    ...windowColumnNames,
+    ...(withUncertainty ? uncertaintyColumnNames : []),
+  ];
   return `${names.join(",")}\n`;
 }
 
@@ -50,7 +64,14 @@ export function writeRollCsv(
       const values =
         u === null
           ? [Number.NaN, Number.NaN, Number.NaN, Number.NaN, Number.NaN, Number.NaN]
-          : [u.bounds.lowBeta.min.stdError, u.bounds.lowBeta.max.stdError, u.bounds.highBeta.min.stdError, u.bounds.highBeta.max.stdError, u.lowBeta.interval.lower, u.lowBeta.interval.upper];
+          : [
+              u.bounds.lowBeta.min.stdError,
+              u.bounds.lowBeta.max.stdError,
+              u.bounds.highBeta.min.stdError,
+              u.bounds.highBeta.max.stdError,
+              u.lowBeta.interval.lower,
+              u.lowBeta.interval.upper,
+            ];
       for (const x of values) line += `,${cell(x)}`;
     }
     chunk += `${line}\n`;
@@ -79,7 +100,10 @@ export function rollRecord(meta: RollMeta, window: WindowSolution, uncertainty: 
       units: input.units,
       frequency: input.frequency === null ? null : { name: input.frequency.name, periodsPerYear: input.frequency.periodsPerYear },
     },
-    window: meta.spec.kind === "window" ? { kind: "window" as const, size: meta.spec.size, step: meta.spec.step } : { kind: "expanding" as const, minPeriods: meta.spec.minPeriods, step: meta.spec.step },
+    window:
+      meta.spec.kind === "window"
+        ? { kind: "window" as const, size: meta.spec.size, step: meta.spec.step }
+        : { kind: "expanding" as const, minPeriods: meta.spec.minPeriods, step: meta.spec.step },
     start: meta.dates[window.start] ?? "",
     end: meta.dates[window.end] ?? "",
     observations: window.observations,
@@ -96,11 +120,28 @@ export function rollRecord(meta: RollMeta, window: WindowSolution, uncertainty: 
 }
 
 /** The text table: one line per window with the CAPM beta and the set of the low structural beta. */
-export function rollTextLines(meta: RollMeta, windows: readonly WindowSolution[], uncertainty: readonly (WindowUncertainty | null)[] | null, style: Style): string[] {
-  const spec = meta.spec.kind === "window" ? `${meta.spec.size} periods, every ${meta.spec.step}` : `expanding from ${meta.spec.minPeriods} periods, every ${meta.spec.step}`;
+export function rollTextLines(
+  meta: RollMeta,
+  windows: readonly WindowSolution[],
+  uncertainty: readonly (WindowUncertainty | null)[] | null,
+  style: Style,
+): string[] {
+  const spec =
+    meta.spec.kind === "window"
+      ? `${meta.spec.size} periods, every ${meta.spec.step}`
+      : `expanding from ${meta.spec.minPeriods} periods, every ${meta.spec.step}`;
   const confidence = uncertainty?.find((u) => u !== null)?.confidence ?? 0.95;
   const level = `${Number((confidence * 100).toPrecision(4))}%`;
-  const header = ["window end", "n", "CAPM\nlow beta", "low beta\nmin", "low beta\nmax", "width", "return-\nimplied", ...(uncertainty === null ? [] : [`${level} interval\nfor low beta`])];
+  const header = [
+    "window end",
+    "n",
+    "CAPM\nlow beta",
+    "low beta\nmin",
+    "low beta\nmax",
+    "width",
+    "return-\nimplied",
+    ...(uncertainty === null ? [] : [`${level} interval\nfor low beta`]),
+  ];
   const rows = windows.map((w, k) => {
     const u = uncertainty?.[k] ?? null;
     return [
@@ -110,8 +151,12 @@ export function rollTextLines(meta: RollMeta, windows: readonly WindowSolution[]
       formatNumber(w.bounds?.lowBeta.min ?? null, 4),
       formatNumber(w.bounds?.lowBeta.max ?? null, 4),
       w.bounds === null ? "no set" : formatNumber(w.bounds.lowBeta.max - w.bounds.lowBeta.min, 3),
-      w.landmarks?.returnImplied === null || w.landmarks === null ? "n/a" : `${formatNumber(w.landmarks.returnImplied.lowBeta, 4)}${w.landmarks.returnImplied.insideSet ? "" : " (out)"}`,
-      ...(uncertainty === null ? [] : [u === null ? "n/a" : `${formatNumber(u.lowBeta.interval.lower, 4)} to ${formatNumber(u.lowBeta.interval.upper, 4)}`]),
+      w.landmarks?.returnImplied === null || w.landmarks === null
+        ? "n/a"
+        : `${formatNumber(w.landmarks.returnImplied.lowBeta, 4)}${w.landmarks.returnImplied.insideSet ? "" : " (out)"}`,
+      ...(uncertainty === null
+        ? []
+        : [u === null ? "n/a" : `${formatNumber(u.lowBeta.interval.lower, 4)} to ${formatNumber(u.lowBeta.interval.upper, 4)}`]),
     ];
   });
   return [

@@ -41,10 +41,9 @@ export function renderText(report: SolveReport, options: RenderOptions): string 
     sections.push(gridSection(s, style));
   }
   if (u !== null) sections.push(sharpeSection(u, report.input.frequency?.periodsPerYear ?? null, style), bootstrapSection(u, style));
-  sections.push(
-    diagnosticsSection(s.diagnostics, style),
-    assumptionsSection(s.weight, style),
-    closingLines(report.input.riskFree),
-  );
-  return `${sections.filter((lines) => lines.length > 0).map((lines) => lines.join("\n")).join("\n\n")}\n`;
+  sections.push(diagnosticsSection(s.diagnostics, style), assumptionsSection(s.weight, style), closingLines(report.input.riskFree));
+  return `${sections
+    .filter((lines) => lines.length > 0)
+    .map((lines) => lines.join("\n"))
+    .join("\n\n")}\n`;
 }

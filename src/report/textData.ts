@@ -37,8 +37,7 @@ export function inputSection(input: InputDescription, observations: number, styl
     input.frequency === null
       ? "could not be told from the dates"
       : `${printable(input.frequency.name)} (${input.frequency.periodsPerYear} periods per year)`;
-  const units =
-    input.units === "percent" ? "percent (divided by 100: every figure below is decimal)" : "decimal";
+  const units = input.units === "percent" ? "percent (divided by 100: every figure below is decimal)" : "decimal";
   return [
     style.heading("Input"),
     ...fields([
@@ -59,7 +58,8 @@ export function inputSection(input: InputDescription, observations: number, styl
 function joinFields(input: InputDescription): [string, string][] {
   if (input.join === null) return [];
   const sides = input.join.sides.map(
-    (side) => `${printable(side.source)} ("${printable(side.column)}") ${formatCount(side.dates)} dates, ${formatCount(side.unmatched)} unmatched`,
+    (side) =>
+      `${printable(side.source)} ("${printable(side.column)}") ${formatCount(side.dates)} dates, ${formatCount(side.unmatched)} unmatched`,
   );
   return [["Joined on date", `${formatCount(input.join.matched)} dates in both files: ${sides.join("; ")}`]];
 }
@@ -139,8 +139,7 @@ export function capmSection(solution: Solution, style: Style, uncertainty: Uncer
   return [
     style.heading("CAPM regressions on the market proxy"),
     `${indent}book = alpha + beta M + error, M = w low + (1 - w) high with w = ${solution.weight};`,
-    `${indent}least squares, classical standard errors, two-sided p-values from Student's t ` +
-      `with ${low.observations - 2} d.f.`,
+    `${indent}least squares, classical standard errors, two-sided p-values from Student's t ` + `with ${low.observations - 2} d.f.`,
     ...hacNote,
     ...table({
       header: ["", "low", "high"],

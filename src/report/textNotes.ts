@@ -9,8 +9,7 @@ import { indent, printable, wrap, type Style } from "./layout.js";
 import type { RiskFreeSource } from "./types.js";
 
 /** The closing caution, printed verbatim. */
-export const cautionLine =
-  "Caution: these are statistical estimates under the assumptions above, not investment advice.";
+export const cautionLine = "Caution: these are statistical estimates under the assumptions above, not investment advice.";
 
 /** The Diagnostics section: each diagnostic with its severity, or "none". */
 export function diagnosticsSection(diagnostics: readonly Diagnostic[], style: Style): string[] {
@@ -34,11 +33,7 @@ export function assumptionsSection(weight: number, style: Style): string[] {
 /** The closing caution and the conventions footer. */
 export function closingLines(riskFree: RiskFreeSource): string[] {
   const basis =
-    riskFree.kind === "none"
-      ? "returns are raw (no risk-free rate was given)"
-      : `returns are in excess of ${excessReturnBasis(riskFree)}`;
-  const footer =
-    `Conventions: decimal units per period (0.01 is one percent); variances and covariances use the ` +
-    `divisor n - 1; ${basis}.`;
+    riskFree.kind === "none" ? "returns are raw (no risk-free rate was given)" : `returns are in excess of ${excessReturnBasis(riskFree)}`;
+  const footer = `Conventions: decimal units per period (0.01 is one percent); variances and covariances use the divisor n - 1; ${basis}.`;
   return [...wrap(cautionLine, "", ""), "", ...wrap(footer, "", "")];
 }

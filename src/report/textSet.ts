@@ -46,8 +46,7 @@ export function candidateCells(c: Candidate): string[] {
 
 /** The Identified set section: the ranges and what they mean. */
 export function boundsSection(bounds: IdentifiedBounds, style: Style): string[] {
-  const range = (i: { readonly min: number; readonly max: number }): string =>
-    `${formatNumber(i.min)} to ${formatNumber(i.max)}`;
+  const range = (i: { readonly min: number; readonly max: number }): string => `${formatNumber(i.min)} to ${formatNumber(i.max)}`;
   const meaning =
     "Every pair of betas in this range fits the data equally well: the pairs differ only in how " +
     "each book's risk splits between the common factor and its own noise.";
@@ -79,8 +78,7 @@ export function landmarksSection(landmarks: Landmarks, style: Style): string[] {
   const width = Math.max(...landmarkNames.map((name) => name.length));
   const legend = landmarkNames.flatMap((name) => {
     const c = landmarks[name];
-    const note =
-      c === null ? " (not reported: see Diagnostics)" : c.insideSet ? "" : " (outside the identified set: see Diagnostics)";
+    const note = c === null ? " (not reported: see Diagnostics)" : c.insideSet ? "" : " (outside the identified set: see Diagnostics)";
     return wrap(`${landmarkDescriptions[name]}${note}`, `${indent}${name.padEnd(width)}  `, " ".repeat(indent.length + width + 2));
   });
   return [style.heading("Landmarks"), ...table({ header: ["", ...candidateHeader], rows }), "", ...legend];

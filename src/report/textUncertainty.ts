@@ -28,7 +28,10 @@ export function boundsWithUncertaintySection(bounds: IdentifiedBounds, u: Uncert
     formatNumber(p.stdError),
     limits(p.lower, p.upper),
   ];
-  const source = u.method.intervalSource === "bootstrap" ? "bootstrap" : `delta method, ${u.method.longRun === "hac" ? "HAC" : "iid"} long-run covariance`;
+  const source =
+    u.method.intervalSource === "bootstrap"
+      ? "bootstrap"
+      : `delta method, ${u.method.longRun === "hac" ? "HAC" : "iid"} long-run covariance`;
   const method = intervalNames[u.lowBeta.interval.method];
   return [
     style.heading(`How precisely the set is known (${c} confidence)`),
@@ -63,7 +66,13 @@ export function sharpeSection(u: Uncertainty, periodsPerYear: number | null, sty
   return [
     style.heading("Sharpe ratios (excess returns)"),
     ...table({
-      header: ["", "per period", "iid\nstd. error", "HAC\nstd. error", ...(annual === null ? [] : [`annualised\n(x sqrt(${periodsPerYear}))`])],
+      header: [
+        "",
+        "per period",
+        "iid\nstd. error",
+        "HAC\nstd. error",
+        ...(annual === null ? [] : [`annualised\n(x sqrt(${periodsPerYear}))`]),
+      ],
       rows: names.map((name) => {
         const s = u.sharpe[name];
         return [
@@ -101,12 +110,19 @@ export function bootstrapSection(u: Uncertainty, style: Style): string[] {
   if (bs === null) return [];
   const c = percent(bs.confidence);
   return [
-    style.heading(`Stationary bootstrap (${bs.replicates} replicates, mean block length ${formatNumber(bs.blockLength, 3)}, seed ${bs.seed})`),
+    style.heading(
+      `Stationary bootstrap (${bs.replicates} replicates, mean block length ${formatNumber(bs.blockLength, 3)}, seed ${bs.seed})`,
+    ),
     ...table({
       header: ["", "std. error", `${c} percentile\ninterval`, "replicates\nused"],
       rows: bootstrapQuantities.map((q) => {
         const interval = bs.intervals[q];
-        return [quantityLabels[q], formatNumber(bs.stdErrors[q]), interval === null ? "n/a" : limits(interval.lower, interval.upper), String(bs.validReplicates[q])];
+        return [
+          quantityLabels[q],
+          formatNumber(bs.stdErrors[q]),
+          interval === null ? "n/a" : limits(interval.lower, interval.upper),
+          String(bs.validReplicates[q]),
+        ];
       }),
     }),
   ];
@@ -121,7 +137,8 @@ export function precisionSection(solution: Solution, u: Uncertainty, style: Styl
     const fit = solution.capm[book];
     const se = u.capm[book].hac.alphaStdErr;
     const t = se > 0 ? fit.alpha / se : null;
-    const verdict = t === null ? "its standard error is 0" : Math.abs(t) < z ? "not distinguishable from zero" : "distinguishable from zero";
+    const verdict =
+      t === null ? "its standard error is 0" : Math.abs(t) < z ? "not distinguishable from zero" : "distinguishable from zero";
     lines.push(`CAPM alpha of the ${book} book: ${formatNumber(fit.alpha)} +/- ${formatNumber(z * se, 2)} (${c}, HAC): ${verdict}.`);
   }
   if (u.bounds !== null && solution.bounds !== null) {

@@ -56,7 +56,6 @@ export const lineFitSchema = doc(
   "LineFit",
 );
 
-
 export const intervalSchema = doc(z.strictObject({ min: z.number(), max: z.number() }), "closed interval", "Interval");
 
 export const boundsSchema = doc(

@@ -117,11 +117,20 @@ describe("renderHtmlReport", () => {
     expect(input).toContainEqual(["File", report.input.source]);
     expect(input).toContainEqual(["Low book", `column "${report.input.lowColumn}"`]);
     const moments = rows(all(sectionById(root, "moments"), "table")[0]!);
-    expect(moments[1]).toEqual(["low", ...[solution.moments.low.mean, solution.moments.low.stdev, solution.moments.low.variance, solution.moments.low.sharpeRatio].map((x) => formatNumber(x))]);
+    expect(moments[1]).toEqual([
+      "low",
+      ...[solution.moments.low.mean, solution.moments.low.stdev, solution.moments.low.variance, solution.moments.low.sharpeRatio].map((x) =>
+        formatNumber(x),
+      ),
+    ]);
     const capm = rows(all(sectionById(root, "capm"), "table")[0]!);
     expect(capm).toContainEqual(["beta", formatNumber(solution.capm.low.beta), formatNumber(solution.capm.high.beta)]);
     const set = rows(all(sectionById(root, "set"), "table")[0]!);
-    expect(set).toContainEqual(["low structural beta", formatNumber(solution.bounds!.lowBeta.min), formatNumber(solution.bounds!.lowBeta.max)]);
+    expect(set).toContainEqual([
+      "low structural beta",
+      formatNumber(solution.bounds!.lowBeta.min),
+      formatNumber(solution.bounds!.lowBeta.max),
+    ]);
     const landmarks = rows(all(sectionById(root, "landmarks"), "table")[0]!);
     expect(landmarks.slice(1).map((r) => r[0])).toEqual([...landmarkNames]);
     for (const [i, name] of landmarkNames.entries()) expect(landmarks[i + 1]![1]).toContain(landmarkDescriptions[name]);

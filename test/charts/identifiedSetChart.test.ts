@@ -9,7 +9,18 @@ import {
 } from "../../src/report/charts/identifiedSetChart.js";
 import type { SolveReport } from "../../src/report/types.js";
 import { rejectedSolution, reportOf, solvedFixtures, typicalSolution, zeroMeanSolution } from "../report/fixtures.js";
-import { descendants, groupWithClass, hasMark, markItems, parseSvg, rectExtent, symbolArea, texts, translation, xAxisScale } from "./svg.js";
+import {
+  descendants,
+  groupWithClass,
+  hasMark,
+  markItems,
+  parseSvg,
+  rectExtent,
+  symbolArea,
+  texts,
+  translation,
+  xAxisScale,
+} from "./svg.js";
 
 const variance: IdentifiedSetChartOptions = { y: "variance" };
 const share: IdentifiedSetChartOptions = { y: "share" };
@@ -97,7 +108,9 @@ describe("renderIdentifiedSetChart", () => {
       const [px] = translation(symbol!);
       const x = xAxisScale(root);
       expect(Math.abs(px - x(point.lowBeta))).toBeLessThanOrEqual(pixelTolerance);
-      const [plotLeft, plotRight] = rectExtent(descendants(root).find((e) => e.attrs.class === "background" && e.tag === "path" && /^M0,0h\d/.test(e.attrs.d ?? ""))!);
+      const [plotLeft, plotRight] = rectExtent(
+        descendants(root).find((e) => e.attrs.class === "background" && e.tag === "path" && /^M0,0h\d/.test(e.attrs.d ?? ""))!,
+      );
       expect(px).toBeGreaterThan(plotLeft);
       expect(px).toBeLessThan(plotRight);
       const label = markItems(root, "landmark-label").find((l) => l.text.startsWith(landmarkLabels.returnImplied));

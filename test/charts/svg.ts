@@ -103,7 +103,9 @@ export function texts(root: Element): string[] {
  * tick labels: each label's text is a value, its translate() x the pixel it is drawn at.
  */
 export function xAxisScale(root: Element): (value: number) => number {
-  const axis = descendants(root).find((e) => e.tag === "g" && classes(e).includes("role-axis") && (e.attrs["aria-label"] ?? "").startsWith("X-axis"));
+  const axis = descendants(root).find(
+    (e) => e.tag === "g" && classes(e).includes("role-axis") && (e.attrs["aria-label"] ?? "").startsWith("X-axis"),
+  );
   expect(axis, "x axis").toBeDefined();
   const labelGroup = descendants(axis!).find((e) => e.tag === "g" && classes(e).includes("role-axis-label"));
   const ticks = labelGroup!.children
@@ -137,7 +139,10 @@ export function symbolArea(d: string): number {
   let x = 0;
   let y = 0;
   for (const [, command, args] of d.matchAll(/([MLmlhvHVZz])([^MLmlhvHVZz]*)/g)) {
-    const n = (args ?? "").split(/[\s,]+/).filter((t) => t !== "").map(Number);
+    const n = (args ?? "")
+      .split(/[\s,]+/)
+      .filter((t) => t !== "")
+      .map(Number);
     if (command === "M" || command === "L") [x, y] = [n[0]!, n[1]!];
     else if (command === "m" || command === "l") [x, y] = [x + n[0]!, y + n[1]!];
     else if (command === "h") x += n[0]!;

@@ -24,11 +24,24 @@ async function runBatch(args: string[], files: Record<string, string> = { "desk.
   return { code, stdout: stdout(), stderr: stderr() };
 }
 
-const parseLines = (text: string) => text.trim().split("\n").map((line) => JSON.parse(line));
+const parseLines = (text: string) =>
+  text
+    .trim()
+    .split("\n")
+    .map((line) => JSON.parse(line));
 
 describe("solve with several pairs and files", () => {
   it("writes one valid JSON Lines record per file and pair, each naming them", async () => {
-    const { code, stdout } = await runBatch(["desk.csv", "m.csv", "--lows", "Stillwater Low Vol", "--highs", "Kestrel High Beta", "--format", "jsonl"]);
+    const { code, stdout } = await runBatch([
+      "desk.csv",
+      "m.csv",
+      "--lows",
+      "Stillwater Low Vol",
+      "--highs",
+      "Kestrel High Beta",
+      "--format",
+      "jsonl",
+    ]);
     expect(code).toBe(exitCodes.ok);
     const records = parseLines(stdout);
     expect(records.map((r) => r.input.source)).toEqual(["desk.csv", "m.csv"]);
@@ -43,8 +56,15 @@ describe("solve with several pairs and files", () => {
 
   it("reports a failing pair in its record, carries on, and exits 5", async () => {
     const { code, stdout, stderr } = await runBatch([
-      "desk.csv", "--pair", "Stillwater Low Vol:Kestrel High Beta", "--pair", "Flat:Kestrel High Beta",
-      "--pair", "Stillwater Low Vol:No Such Column", "--format", "jsonl",
+      "desk.csv",
+      "--pair",
+      "Stillwater Low Vol:Kestrel High Beta",
+      "--pair",
+      "Flat:Kestrel High Beta",
+      "--pair",
+      "Stillwater Low Vol:No Such Column",
+      "--format",
+      "jsonl",
     ]);
     expect(code).toBe(exitCodes.partial);
     const records = parseLines(stdout);
@@ -56,7 +76,15 @@ describe("solve with several pairs and files", () => {
   });
 
   it("gives every combination of --lows and --highs, in order", async () => {
-    const { stdout } = await runBatch(["desk.csv", "--lows", "Stillwater Low Vol,Calm Copy", "--highs", "Kestrel High Beta", "--format", "jsonl"]);
+    const { stdout } = await runBatch([
+      "desk.csv",
+      "--lows",
+      "Stillwater Low Vol,Calm Copy",
+      "--highs",
+      "Kestrel High Beta",
+      "--format",
+      "jsonl",
+    ]);
     expect(parseLines(stdout).map((r) => `${r.input.lowColumn}/${r.input.highColumn}`)).toEqual([
       "Stillwater Low Vol/Kestrel High Beta",
       "Calm Copy/Kestrel High Beta",
@@ -72,7 +100,17 @@ describe("solve with several pairs and files", () => {
   });
 
   it("writes one CSV table with the file and pair in front of each row", async () => {
-    const { code, stdout } = await runBatch(["desk.csv", "--lows", "Stillwater Low Vol,Calm Copy", "--highs", "Kestrel High Beta", "--format", "csv", "--steps", "3"]);
+    const { code, stdout } = await runBatch([
+      "desk.csv",
+      "--lows",
+      "Stillwater Low Vol,Calm Copy",
+      "--highs",
+      "Kestrel High Beta",
+      "--format",
+      "csv",
+      "--steps",
+      "3",
+    ]);
     expect(code).toBe(exitCodes.ok);
     const lines = stdout.trim().split("\n");
     expect(lines[0]).toMatch(/^source,lowColumn,highColumn,point,lowBeta/);
@@ -80,7 +118,16 @@ describe("solve with several pairs and files", () => {
   });
 
   it("refuses --format json for several records and points to jsonl", async () => {
-    const { code, stdout, stderr } = await runBatch(["desk.csv", "m.csv", "--low", "Stillwater Low Vol", "--high", "Kestrel High Beta", "--format", "json"]);
+    const { code, stdout, stderr } = await runBatch([
+      "desk.csv",
+      "m.csv",
+      "--low",
+      "Stillwater Low Vol",
+      "--high",
+      "Kestrel High Beta",
+      "--format",
+      "json",
+    ]);
     expect(code).toBe(exitCodes.usage);
     expect(stdout).toBe("");
     expect(stderr).toContain("--format jsonl");

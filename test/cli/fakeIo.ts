@@ -14,7 +14,9 @@ export function fakeIo(
     writeErr: (text) => void err.push(text),
     readInput: async (path) => {
       const text = files[path];
-      return text === undefined ? failure({ code: "read-failed", path, reason: "no such file or directory" }) : success(new TextEncoder().encode(text));
+      return text === undefined
+        ? failure({ code: "read-failed", path, reason: "no such file or directory" })
+        : success(new TextEncoder().encode(text));
     },
     writeOutput: async (path, text) => {
       if (path.startsWith("/unwritable/")) return failure({ code: "write-failed", path, reason: "permission denied" });

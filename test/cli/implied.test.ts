@@ -3,7 +3,18 @@ import { exitCodes } from "../../src/cli/exitCodes.js";
 import { run } from "../../src/cli/program.js";
 import { fakeIo } from "./fakeIo.js";
 
-const structure = ["--low-beta", "0.72", "--factor-vol", "0.045", "--factor-mean", "0.006", "--low-noise-vol", "0.014", "--high-noise-vol", "0.022"];
+const structure = [
+  "--low-beta",
+  "0.72",
+  "--factor-vol",
+  "0.045",
+  "--factor-mean",
+  "0.006",
+  "--low-noise-vol",
+  "0.014",
+  "--high-noise-vol",
+  "0.022",
+];
 
 /** Every key path of a JSON value, arrays collapsed to their first element. */
 function keyPaths(value: unknown, prefix = ""): string[] {
@@ -85,8 +96,14 @@ describe("betabound simulate", () => {
 
   it("writes JSON Lines with the requested column names", async () => {
     const { io, stdout } = fakeIo();
-    await run(["simulate", ...structure, "--periods", "3", "--format", "jsonl", "--names", "when,calm,bold", "--frequency", "quarterly"], io);
-    const records = stdout().trim().split("\n").map((line) => JSON.parse(line));
+    await run(
+      ["simulate", ...structure, "--periods", "3", "--format", "jsonl", "--names", "when,calm,bold", "--frequency", "quarterly"],
+      io,
+    );
+    const records = stdout()
+      .trim()
+      .split("\n")
+      .map((line) => JSON.parse(line));
     expect(records).toHaveLength(3);
     expect(Object.keys(records[0])).toEqual(["when", "calm", "bold"]);
     expect(records.map((r) => r.when)).toEqual(["2000-03-31", "2000-06-30", "2000-09-30"]);

@@ -5,7 +5,11 @@ import { run } from "../../src/cli/program.js";
 import { fakeIo } from "./fakeIo.js";
 
 const monthly = readFileSync(new URL("../../examples/harbourline-monthly.csv", import.meta.url), "utf8");
-const rows = monthly.trim().split("\n").slice(1).map((line) => line.split(","));
+const rows = monthly
+  .trim()
+  .split("\n")
+  .slice(1)
+  .map((line) => line.split(","));
 const books = ["--low", "Stillwater Low Vol", "--high", "Kestrel High Beta"];
 
 async function solveJson(files: Record<string, string>, args: string[]) {
@@ -15,7 +19,13 @@ async function solveJson(files: Record<string, string>, args: string[]) {
 }
 
 /** The parts of solve's JSON that must not depend on how the same data were written. */
-const numbers = (json: Record<string, unknown>) => ({ moments: json["moments"], capm: json["capm"], bounds: json["bounds"], grid: json["grid"], landmarks: json["landmarks"] });
+const numbers = (json: Record<string, unknown>) => ({
+  moments: json.moments,
+  capm: json.capm,
+  bounds: json.bounds,
+  grid: json.grid,
+  landmarks: json.landmarks,
+});
 
 describe("solve reads the same data in other layouts identically", () => {
   const reference = solveJson({ "m.csv": monthly }, ["m.csv", ...books]);
@@ -24,7 +34,12 @@ describe("solve reads the same data in other layouts identically", () => {
     // The high file lacks the first two months and has an extra month: 178 dates match.
     const low = ["Month End,Return", ...rows.map((r) => `${r[0]},${r[1]}`)].join("\n");
     const high = ["Month End,Return", ...rows.slice(2).map((r) => `${r[0]},${r[2]}`), "2026-01-31,0.01"].join("\n");
-    const { code, json } = await solveJson({ "calm.csv": low, "bold.csv": high }, ["--low", "calm.csv:Return", "--high", "bold.csv:Return"]);
+    const { code, json } = await solveJson({ "calm.csv": low, "bold.csv": high }, [
+      "--low",
+      "calm.csv:Return",
+      "--high",
+      "bold.csv:Return",
+    ]);
     expect(code).toBe(exitCodes.ok);
     expect(json.observations).toBe(178);
     expect(json.input.source).toBe("calm.csv + bold.csv");
@@ -41,8 +56,16 @@ describe("solve reads the same data in other layouts identically", () => {
   });
 
   it("semicolons with a title line, and the long layout", async () => {
-    const semicolons = ["Harbourline Capital monthly export", "", ["Month End", "Stillwater Low Vol", "Kestrel High Beta"].join(";"), ...rows.map((r) => r.join(";"))].join("\n");
-    const long = ["date,book,ret", ...rows.flatMap((r) => [`${r[0]},Stillwater Low Vol,${r[1]}`, `${r[0]},Kestrel High Beta,${r[2]}`])].join("\n");
+    const semicolons = [
+      "Harbourline Capital monthly export",
+      "",
+      ["Month End", "Stillwater Low Vol", "Kestrel High Beta"].join(";"),
+      ...rows.map((r) => r.join(";")),
+    ].join("\n");
+    const long = [
+      "date,book,ret",
+      ...rows.flatMap((r) => [`${r[0]},Stillwater Low Vol,${r[1]}`, `${r[0]},Kestrel High Beta,${r[2]}`]),
+    ].join("\n");
     const ref = (await reference).json;
     const a = await solveJson({ "s.csv": semicolons }, ["s.csv", ...books]);
     expect(a.code).toBe(exitCodes.ok);

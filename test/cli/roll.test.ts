@@ -8,7 +8,11 @@ import { rollRecordSchema } from "../../src/schema/rollOutput.js";
 import { fakeIo } from "./fakeIo.js";
 
 const monthly = readFileSync(new URL("../../examples/harbourline-monthly.csv", import.meta.url), "utf8");
-const rows = monthly.trim().split("\n").slice(1).map((line) => line.split(","));
+const rows = monthly
+  .trim()
+  .split("\n")
+  .slice(1)
+  .map((line) => line.split(","));
 const low = rows.map((r) => Number(r[1]));
 const high = rows.map((r) => Number(r[2]));
 const books = ["--low", "Stillwater Low Vol", "--high", "Kestrel High Beta"];
@@ -33,23 +37,37 @@ describe("betabound roll", () => {
     const windows = parseCsv(stdout);
     expect(windows).toHaveLength(Math.floor((180 - 48) / 7) + 1);
     for (const w of windows) {
-      const from = rows.findIndex((r) => r[0] === w["start"]);
-      const to = rows.findIndex((r) => r[0] === w["end"]);
+      const from = rows.findIndex((r) => r[0] === w.start);
+      const to = rows.findIndex((r) => r[0] === w.end);
       expect(to - from + 1).toBe(48);
       const direct = solve({ low: low.slice(from, to + 1), high: high.slice(from, to + 1) });
       if (!direct.ok) throw new Error("window did not solve");
       // Incremental windows agree with recomputation within 1e-10 relative (src/core/rolling.ts).
-      expect(Number(w["lowBetaMin"])).toBeCloseTo(direct.value.bounds!.lowBeta.min, 10);
-      expect(Number(w["lowBetaMax"])).toBeCloseTo(direct.value.bounds!.lowBeta.max, 10);
-      expect(Number(w["lowBeta"])).toBeCloseTo(direct.value.capm.low.beta, 10);
-      expect(Number(w["highBeta"])).toBeCloseTo(direct.value.capm.high.beta, 10);
+      expect(Number(w.lowBetaMin)).toBeCloseTo(direct.value.bounds!.lowBeta.min, 10);
+      expect(Number(w.lowBetaMax)).toBeCloseTo(direct.value.bounds!.lowBeta.max, 10);
+      expect(Number(w.lowBeta)).toBeCloseTo(direct.value.capm.low.beta, 10);
+      expect(Number(w.highBeta)).toBeCloseTo(direct.value.capm.high.beta, 10);
     }
   });
 
   it("writes JSON Lines records that validate against the roll-record schema, with solve's field names", async () => {
-    const { code, stdout } = await roll(["m.csv", ...books, "--expanding", "--min-periods", "120", "--step", "30", "--format", "jsonl", "--uncertainty"]);
+    const { code, stdout } = await roll([
+      "m.csv",
+      ...books,
+      "--expanding",
+      "--min-periods",
+      "120",
+      "--step",
+      "30",
+      "--format",
+      "jsonl",
+      "--uncertainty",
+    ]);
     expect(code).toBe(exitCodes.ok);
-    const records = stdout.trim().split("\n").map((line) => JSON.parse(line));
+    const records = stdout
+      .trim()
+      .split("\n")
+      .map((line) => JSON.parse(line));
     expect(records.map((r) => r.observations)).toEqual([120, 150, 180]);
     for (const record of records) {
       const parsed = rollRecordSchema.safeParse(record);
@@ -62,14 +80,41 @@ describe("betabound roll", () => {
     if (!direct.ok) throw new Error("did not solve");
     expect(last.bounds.lowBeta.min).toBeCloseTo(direct.value.bounds!.lowBeta.min, 12);
     expect(last.moments.covariance.lowHigh).toBeCloseTo(direct.value.moments.covariance.lowHigh, 15);
-    const u = windowUncertainty(Float64Array.from(low), Float64Array.from(high), 0, 179, { weight: 0.5, lowMean: 0, highMean: 0, lowVariance: direct.value.moments.low.variance, highVariance: direct.value.moments.high.variance, covariance: direct.value.moments.covariance.lowHigh }, { confidence: 0.95, longRun: "hac" });
+    const u = windowUncertainty(
+      Float64Array.from(low),
+      Float64Array.from(high),
+      0,
+      179,
+      {
+        weight: 0.5,
+        lowMean: 0,
+        highMean: 0,
+        lowVariance: direct.value.moments.low.variance,
+        highVariance: direct.value.moments.high.variance,
+        covariance: direct.value.moments.covariance.lowHigh,
+      },
+      { confidence: 0.95, longRun: "hac" },
+    );
     expect(last.uncertainty.lowBeta.interval.lower).toBeCloseTo(u!.lowBeta.interval.lower, 10);
   });
 
   it("reports a failing pair in its own record and exits 5, carrying on with the others", async () => {
-    const { code, stdout, stderr } = await roll(["m.csv", "--pair", "Stillwater Low Vol:Kestrel High Beta", "--pair", "Stillwater Low Vol:Nope", "--window", "170", "--format", "jsonl"]);
+    const { code, stdout, stderr } = await roll([
+      "m.csv",
+      "--pair",
+      "Stillwater Low Vol:Kestrel High Beta",
+      "--pair",
+      "Stillwater Low Vol:Nope",
+      "--window",
+      "170",
+      "--format",
+      "jsonl",
+    ]);
     expect(code).toBe(exitCodes.partial);
-    const records = stdout.trim().split("\n").map((line) => JSON.parse(line));
+    const records = stdout
+      .trim()
+      .split("\n")
+      .map((line) => JSON.parse(line));
     expect(records.filter((r) => r.status === "ok")).toHaveLength(11);
     const failure = records.find((r) => r.status === "failed");
     expect(failure.errors[0].code).toBe("unknown-column");

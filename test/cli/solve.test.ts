@@ -2,6 +2,7 @@ import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { run } from "../../src/cli/program.js";
 import { exitCodes } from "../../src/cli/exitCodes.js";
+import type { SolveOutputJson } from "../../src/schema/solveOutput.js";
 import { fakeIo } from "./fakeIo.js";
 
 const monthly = readFileSync(new URL("../../examples/harbourline-monthly.csv", import.meta.url), "utf8");
@@ -13,30 +14,37 @@ const opposite = "date,a,b\n2024-01-31,0.01,-0.02\n2024-02-29,-0.02,0.03\n2024-0
 async function solveJson(files: Record<string, string>, args: string[]) {
   const { io, stdout, stderr } = fakeIo(files);
   const code = await run(["solve", ...args, "--format", "json"], io);
-  return { code, json: JSON.parse(stdout()) as Record<string, any>, stderr: stderr() };
+  return { code, json: JSON.parse(stdout()) as SolveOutputJson, stderr: stderr() };
 }
 
 describe("betabound solve (in process)", () => {
   it("prints the JSON report with exit code 0 for the bundled example", async () => {
     const { code, json } = await solveJson({ "m.csv": monthly }, ["m.csv", ...books, "--rf", "0.002"]);
     expect(code).toBe(exitCodes.ok);
-    expect(json["status"]).toBe("ok");
-    expect(json["observations"]).toBe(180);
-    expect(json["bounds"].lowBeta.min).toBeLessThan(json["capm"].low.beta);
-    expect(json["bounds"].lowBeta.max).toBeGreaterThan(json["capm"].low.beta);
-    expect(json["grid"]).toHaveLength(11);
+    expect(json.status).toBe("ok");
+    expect(json.observations).toBe(180);
+    expect(json.bounds?.lowBeta.min).toBeLessThan(json.capm.low.beta);
+    expect(json.bounds?.lowBeta.max).toBeGreaterThan(json.capm.low.beta);
+    expect(json.grid).toHaveLength(11);
   });
 
   it("reads percent units as the same decimal returns", async () => {
     const percent = monthly
       .split("\n")
-      .map((line, i) => (i === 0 || line === "" ? line : line.split(",").map((f, j) => (j === 0 ? f : String(Number(f) * 100))).join(",")))
+      .map((line, i) =>
+        i === 0 || line === ""
+          ? line
+          : line
+              .split(",")
+              .map((f, j) => (j === 0 ? f : String(Number(f) * 100)))
+              .join(","),
+      )
       .join("\n");
     const decimal = await solveJson({ "m.csv": monthly }, ["m.csv", ...books, "--rf", "0.002"]);
     const fromPercent = await solveJson({ "p.csv": percent }, ["p.csv", ...books, "--rf", "0.2", "--units", "percent"]);
     // Multiplying by 100 and dividing back is not exact in binary floating point: 1e-12 relative.
-    expect(fromPercent.json["bounds"].lowBeta.min).toBeCloseTo(decimal.json["bounds"].lowBeta.min, 12);
-    expect(fromPercent.json["capm"].low.alpha).toBeCloseTo(decimal.json["capm"].low.alpha, 14);
+    expect(fromPercent.json.bounds?.lowBeta.min).toBeCloseTo(decimal.json.bounds?.lowBeta.min ?? Number.NaN, 12);
+    expect(fromPercent.json.capm.low.alpha).toBeCloseTo(decimal.json.capm.low.alpha, 14);
   });
 
   it("treats a risk-free column and the same constant alike", async () => {
@@ -46,19 +54,19 @@ describe("betabound solve (in process)", () => {
       .join("\n");
     const constant = await solveJson({ "m.csv": monthly }, ["m.csv", ...books, "--rf", "0.002"]);
     const column = await solveJson({ "c.csv": withColumn }, ["c.csv", ...books, "--rf", "Cash"]);
-    expect(column.json["input"].riskFree).toEqual({ kind: "column", column: "Cash" });
-    expect(column.json["moments"]).toEqual(constant.json["moments"]);
-    expect(column.json["bounds"]).toEqual(constant.json["bounds"]);
+    expect(column.json.input.riskFree).toEqual({ kind: "column", column: "Cash" });
+    expect(column.json.moments).toEqual(constant.json.moments);
+    expect(column.json.bounds).toEqual(constant.json.bounds);
   });
 
   it("exits 3 with the report and the reason when the covariance is not positive", async () => {
     const { code, json, stderr } = await solveJson({ "o.csv": opposite }, ["o.csv", "--low", "a", "--high", "b"]);
     expect(code).toBe(exitCodes.rejected);
-    expect(json["bounds"]).toBeNull();
-    expect(json["grid"]).toEqual([]);
-    expect(json["diagnostics"].map((d: { code: string }) => d.code)).toContain("nonpositive-covariance");
+    expect(json.bounds).toBeNull();
+    expect(json.grid).toEqual([]);
+    expect(json.diagnostics.map((d: { code: string }) => d.code)).toContain("nonpositive-covariance");
     expect(stderr).toMatch(/^error: o\.csv: the covariance of low and high is -/m);
-    expect(json["status"]).toBe("rejected");
+    expect(json.status).toBe("rejected");
   });
 
   it("exits 2 and names the file when it cannot be read", async () => {
@@ -125,15 +133,15 @@ describe("betabound solve (in process)", () => {
   });
 
   it("colours the text report only on a terminal without NO_COLOR", async () => {
-    const escape = "\u001b[";
+    const ansiEscape = "\u001b[";
     const terminal = fakeIo({ "m.csv": monthly }, { stdoutIsTerminal: true });
     await run(["solve", "m.csv", ...books], terminal.io);
-    expect(terminal.stdout()).toContain(escape);
+    expect(terminal.stdout()).toContain(ansiEscape);
     const noColour = fakeIo({ "m.csv": monthly }, { stdoutIsTerminal: true, env: { NO_COLOR: "1" } });
     await run(["solve", "m.csv", ...books], noColour.io);
-    expect(noColour.stdout()).not.toContain(escape);
+    expect(noColour.stdout()).not.toContain(ansiEscape);
     const piped = fakeIo({ "m.csv": monthly });
     await run(["solve", "m.csv", ...books], piped.io);
-    expect(piped.stdout()).not.toContain(escape);
+    expect(piped.stdout()).not.toContain(ansiEscape);
   });
 });

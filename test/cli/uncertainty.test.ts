@@ -7,7 +7,11 @@ import { solveOutputSchema } from "../../src/schema/solveOutput.js";
 import { fakeIo } from "./fakeIo.js";
 
 const monthly = readFileSync(new URL("../../examples/harbourline-monthly.csv", import.meta.url), "utf8");
-const rows = monthly.trim().split("\n").slice(1).map((line) => line.split(","));
+const rows = monthly
+  .trim()
+  .split("\n")
+  .slice(1)
+  .map((line) => line.split(","));
 const low = Float64Array.from(rows, (r) => Number(r[1]));
 const high = Float64Array.from(rows, (r) => Number(r[2]));
 const books = ["--low", "Stillwater Low Vol", "--high", "Kestrel High Beta", "--rf", "0.002"];
@@ -18,7 +22,8 @@ async function solveJson(args: string[], files: Record<string, string> = { "m.cs
   return { code, json: stdout() === "" ? null : JSON.parse(stdout()), stderr: stderr() };
 }
 
-const get = (json: unknown, path: string): unknown => path.split(".").reduce((node: any, key) => node?.[key], json);
+const get = (json: unknown, path: string): unknown =>
+  path.split(".").reduce<unknown>((node, key) => (node as Record<string, unknown> | undefined)?.[key], json);
 
 describe("solve reports the uncertainty of every headline number", () => {
   it("carries every JSON field of the contract, equal to the core's assessUncertainty", async () => {
@@ -26,11 +31,21 @@ describe("solve reports the uncertainty of every headline number", () => {
     expect(code).toBe(exitCodes.ok);
     expect(solveOutputSchema.safeParse(json).success).toBe(true);
     for (const path of [
-      "capm.low.hac.alphaStdErr", "capm.low.hac.betaStdErr", "capm.high.hac.alphaStdErr", "capm.high.hac.betaStdErr",
-      "capm.hac.lags", "uncertainty.confidence",
-      ...["lowBeta", "highBeta"].flatMap((b) => ["min", "max"].flatMap((e) => ["stdError", "lower", "upper"].map((f) => `uncertainty.bounds.${b}.${e}.${f}`))),
-      "uncertainty.lowBeta.interval.lower", "uncertainty.lowBeta.interval.upper", "uncertainty.highBeta.interval.lower",
-      "uncertainty.bootstrap.replicates", "uncertainty.bootstrap.blockLength", "uncertainty.bootstrap.seed",
+      "capm.low.hac.alphaStdErr",
+      "capm.low.hac.betaStdErr",
+      "capm.high.hac.alphaStdErr",
+      "capm.high.hac.betaStdErr",
+      "capm.hac.lags",
+      "uncertainty.confidence",
+      ...["lowBeta", "highBeta"].flatMap((b) =>
+        ["min", "max"].flatMap((e) => ["stdError", "lower", "upper"].map((f) => `uncertainty.bounds.${b}.${e}.${f}`)),
+      ),
+      "uncertainty.lowBeta.interval.lower",
+      "uncertainty.lowBeta.interval.upper",
+      "uncertainty.highBeta.interval.lower",
+      "uncertainty.bootstrap.replicates",
+      "uncertainty.bootstrap.blockLength",
+      "uncertainty.bootstrap.seed",
     ]) {
       expect(typeof get(json, path), path).toBe("number");
     }
@@ -46,7 +61,10 @@ describe("solve reports the uncertainty of every headline number", () => {
 
   it("passes the interval, long-run and HAC options through", async () => {
     const { json } = await solveJson(["--interval", "stoye", "--long-run", "iid", "--hac-lags", "6", "--confidence", "0.9"]);
-    const direct = assessUncertainty({ low, high, riskFree: 0.002 }, { interval: "stoye", longRun: "iid", hac: { lags: 6 }, confidence: 0.9 });
+    const direct = assessUncertainty(
+      { low, high, riskFree: 0.002 },
+      { interval: "stoye", longRun: "iid", hac: { lags: 6 }, confidence: 0.9 },
+    );
     expect(json.uncertainty.confidence).toBe(0.9);
     expect(json.capm.hac.lags).toBe(6);
     expect(json.uncertainty.lowBeta).toEqual(direct.lowBeta);
@@ -94,7 +112,12 @@ describe("solve reports the uncertainty of every headline number", () => {
     const { io, stdout } = fakeIo({ "m.csv": monthly });
     await run(["solve", "m.csv", ...books, "--bootstrap", "300"], io);
     const text = stdout();
-    for (const heading of ["How precisely the set is known (95% confidence)", "Reading the uncertainty", "Sharpe ratios (excess returns)", "Stationary bootstrap (300 replicates"]) {
+    for (const heading of [
+      "How precisely the set is known (95% confidence)",
+      "Reading the uncertainty",
+      "Sharpe ratios (excess returns)",
+      "Stationary bootstrap (300 replicates",
+    ]) {
       expect(text).toContain(heading);
     }
     expect(text).toMatch(/alpha HAC std\. error/);

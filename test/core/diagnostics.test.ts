@@ -26,7 +26,10 @@ const exampleB = (lowMean: number, highMean: number) => ({
 /** Example A's market: Var(M) = 23/4 (§1.7), n = 7, so the standard error of its mean is sqrt(23/4 / 7). */
 const marketMeanStdErrA = Math.sqrt(23 / 4 / 7);
 
-function find<C extends DiagnosticDetail["code"]>(diagnostics: readonly Diagnostic[], code: C): Diagnostic & { detail: Extract<DiagnosticDetail, { code: C }> } {
+function find<C extends DiagnosticDetail["code"]>(
+  diagnostics: readonly Diagnostic[],
+  code: C,
+): Diagnostic & { detail: Extract<DiagnosticDetail, { code: C }> } {
   const d = nonNull(
     diagnostics.find((x) => x.code === code),
     `diagnostic ${code} among [${codes(diagnostics).join(", ")}]`,

@@ -105,7 +105,14 @@ describe("moments are invariant to adding a constant (1e6) to the data", () => {
     fc.assert(
       fc.property(dyadicPairs, ([x, y]) => {
         const scale = Math.sqrt(sampleVariance(x) * sampleVariance(y));
-        expectClose(sampleCovariance(x.map((v) => v + shift), y.map((v) => v + shift)), sampleCovariance(x, y), { rel, abs: rel * scale });
+        expectClose(
+          sampleCovariance(
+            x.map((v) => v + shift),
+            y.map((v) => v + shift),
+          ),
+          sampleCovariance(x, y),
+          { rel, abs: rel * scale },
+        );
       }),
       { seed, numRuns },
     );

@@ -30,15 +30,15 @@ interface Requirement {
 // prettier-ignore
 const requirements: Record<UnivariateSetName, Requirement> = {
   //           difficulty (file)             numpy mean  numpy SD
-  NumAcc1:  { difficulty: "lower",   numpyMean: 15.0, numpyStdev: 15.0 },
-  NumAcc2:  { difficulty: "average", numpyMean: 15.0, numpyStdev: 15.0 },
-  NumAcc3:  { difficulty: "average", numpyMean: 15.0, numpyStdev: 9.5 },
-  NumAcc4:  { difficulty: "higher",  numpyMean: 15.0, numpyStdev: 8.3 },
-  PiDigits: { difficulty: "lower",   numpyMean: 15.0, numpyStdev: 15.0 },
-  Lew:      { difficulty: "lower",   numpyMean: 15.0, numpyStdev: 15.0 },
-  Lottery:  { difficulty: "lower",   numpyMean: 15.0, numpyStdev: 15.0 },
-  Mavro:    { difficulty: "lower",   numpyMean: 15.0, numpyStdev: 13.1 },
-  Michelso: { difficulty: "lower",   numpyMean: 15.0, numpyStdev: 13.8 }, // difficulty not stated in the file
+  NumAcc1: { difficulty: "lower", numpyMean: 15.0, numpyStdev: 15.0 },
+  NumAcc2: { difficulty: "average", numpyMean: 15.0, numpyStdev: 15.0 },
+  NumAcc3: { difficulty: "average", numpyMean: 15.0, numpyStdev: 9.5 },
+  NumAcc4: { difficulty: "higher", numpyMean: 15.0, numpyStdev: 8.3 },
+  PiDigits: { difficulty: "lower", numpyMean: 15.0, numpyStdev: 15.0 },
+  Lew: { difficulty: "lower", numpyMean: 15.0, numpyStdev: 15.0 },
+  Lottery: { difficulty: "lower", numpyMean: 15.0, numpyStdev: 15.0 },
+  Mavro: { difficulty: "lower", numpyMean: 15.0, numpyStdev: 13.1 },
+  Michelso: { difficulty: "lower", numpyMean: 15.0, numpyStdev: 13.8 }, // difficulty not stated in the file
 };
 
 /** Lower-difficulty sets must reach 13 digits whatever numpy manages. */
@@ -80,19 +80,19 @@ describe("moments on the NIST StRD univariate sets (certified values from the fi
   test.each(cases)(
     "$name: the square root of the sample covariance of the series with itself agrees with the NIST certified SD to at least $stdevDigits digits",
     ({ set, stdevDigits }) => {
-      expect(logRelativeError(Math.sqrt(sampleCovariance(set.data, set.data)), set.certified.stdev)).toBeGreaterThanOrEqual(
-        stdevDigits,
-      );
+      expect(logRelativeError(Math.sqrt(sampleCovariance(set.data, set.data)), set.certified.stdev)).toBeGreaterThanOrEqual(stdevDigits);
     },
   );
-
 });
 
 describe("the NIST StRD fixture files", () => {
   // The sha256 column of test/fixtures/nist-strd/README.md repeats the reference README's table
   // ("SHA-256 of the files as placed here"); a line-ending conversion would change it.
   const readme = readFileSync(new URL("../fixtures/nist-strd/README.md", import.meta.url), "utf8");
-  const rows = [...readme.matchAll(/^\| `([A-Za-z0-9]+\.dat)` \|.*\| ([0-9a-f]{64}) \|$/gm)].map((m) => ({ file: m[1] ?? "", sha256: m[2] ?? "" }));
+  const rows = [...readme.matchAll(/^\| `([A-Za-z0-9]+\.dat)` \|.*\| ([0-9a-f]{64}) \|$/gm)].map((m) => ({
+    file: m[1] ?? "",
+    sha256: m[2] ?? "",
+  }));
 
   test("the README lists a checksum for each of the ten files", () => {
     expect(rows.map((r) => r.file).sort()).toEqual([...Object.keys(requirements).map((n) => `${n}.dat`), "Norris.dat"].sort());

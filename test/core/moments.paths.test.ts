@@ -48,13 +48,29 @@ describe("the excess passes of solve (series formed on the fly)", () => {
 
   it("excessResidualSums equals residualSumOfSquares of each fit on the built series bit for bit", () => {
     fc.assert(
-      fc.property(cases, fc.double({ min: -3, max: 3, noNaN: true }), fc.double({ min: -3, max: 3, noNaN: true }), ([rows, w, constantRate], lowBeta, highBeta) => {
-        const { rf, low, high, market, raw } = built(rows, w, constantRate);
-        const cp = crossProducts([low, high, market]);
-        const [xbar, lowBar, highBar] = [cp.means[2]!, cp.means[0]!, cp.means[1]!];
-        const sums = excessResidualSums(raw.low, raw.high, rf, w, xbar, { ybar: lowBar, beta: lowBeta }, { ybar: highBar, beta: highBeta });
-        expect(sums).toEqual([residualSumOfSquares(market, low, xbar, lowBar, lowBeta), residualSumOfSquares(market, high, xbar, highBar, highBeta)]);
-      }),
+      fc.property(
+        cases,
+        fc.double({ min: -3, max: 3, noNaN: true }),
+        fc.double({ min: -3, max: 3, noNaN: true }),
+        ([rows, w, constantRate], lowBeta, highBeta) => {
+          const { rf, low, high, market, raw } = built(rows, w, constantRate);
+          const cp = crossProducts([low, high, market]);
+          const [xbar, lowBar, highBar] = [cp.means[2]!, cp.means[0]!, cp.means[1]!];
+          const sums = excessResidualSums(
+            raw.low,
+            raw.high,
+            rf,
+            w,
+            xbar,
+            { ybar: lowBar, beta: lowBeta },
+            { ybar: highBar, beta: highBeta },
+          );
+          expect(sums).toEqual([
+            residualSumOfSquares(market, low, xbar, lowBar, lowBeta),
+            residualSumOfSquares(market, high, xbar, highBar, highBeta),
+          ]);
+        },
+      ),
       { seed: 20261204, numRuns: 300 },
     );
   });

@@ -84,7 +84,9 @@ function compareTree(actual: unknown, expected: Json, path: string, floors: Reco
     }
     const bound = rel * Math.abs(expected) + rel * (floors[key] ?? 0);
     if (!(Math.abs(actual - expected) <= bound)) {
-      failures.push(`${path}: expected ${expected} (numpy), got ${actual}, relative difference ${Math.abs(actual - expected) / Math.abs(expected)}`);
+      failures.push(
+        `${path}: expected ${expected} (numpy), got ${actual}, relative difference ${Math.abs(actual - expected) / Math.abs(expected)}`,
+      );
     }
     return;
   }
@@ -102,12 +104,17 @@ function compareTree(actual: unknown, expected: Json, path: string, floors: Reco
   }
   const actualKeys = Object.keys(actual).sort();
   const expectedKeys = Object.keys(expected).sort();
-  if (actualKeys.join() !== expectedKeys.join()) failures.push(`${path}: fields ${actualKeys.join(", ")} but numpy has ${expectedKeys.join(", ")}`);
-  for (const key of expectedKeys) compareTree((actual as Record<string, unknown>)[key], expected[key] as Json, `${path}.${key}`, floors, failures);
+  if (actualKeys.join() !== expectedKeys.join())
+    failures.push(`${path}: fields ${actualKeys.join(", ")} but numpy has ${expectedKeys.join(", ")}`);
+  for (const key of expectedKeys)
+    compareTree((actual as Record<string, unknown>)[key], expected[key] as Json, `${path}.${key}`, floors, failures);
 }
 
 describe.each(expectedFile.solutions.map((e) => ({ w: e.weight, e })))("solve on the numpy reference data set, w = $w", ({ w, e }) => {
-  const solution: Solution = solveOk({ low: data.low, high: data.high, riskFree: data.rf }, { weight: w, steps: expectedFile.generator.steps });
+  const solution: Solution = solveOk(
+    { low: data.low, high: data.high, riskFree: data.rf },
+    { weight: w, steps: expectedFile.generator.steps },
+  );
   const lowVariance = (e.moments as { low: { variance: number } }).low.variance;
   const highVariance = (e.moments as { high: { variance: number } }).high.variance;
   const lambda = (e.moments as { market: { mean: number } }).market.mean;
@@ -134,7 +141,16 @@ describe.each(expectedFile.solutions.map((e) => ({ w: e.weight, e })))("solve on
   });
 
   test("the Solution has exactly the fields the numpy reference computes", () => {
-    expect(Object.keys(solution).sort()).toEqual(["bounds", "capm", "diagnostics", "grid", "landmarks", "moments", "observations", "weight"]);
+    expect(Object.keys(solution).sort()).toEqual([
+      "bounds",
+      "capm",
+      "diagnostics",
+      "grid",
+      "landmarks",
+      "moments",
+      "observations",
+      "weight",
+    ]);
   });
 
   test("moments of excess returns (means, variances, SDs, Sharpe ratios, covariances, correlations) match numpy to 1e-10", () => {

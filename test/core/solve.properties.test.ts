@@ -24,7 +24,6 @@ const seed = 20261201;
 const numRuns = 150;
 const rel = 1e-9;
 
-
 interface ModelSample {
   readonly sample: { readonly low: number[]; readonly high: number[] };
   readonly weight: number;

@@ -30,26 +30,88 @@ interface Case {
 }
 
 const books = ["--low", "low", "--high", "high"];
-const solve = (path: string, ...extra: string[]) => (output: string) => ["solve", path, ...books, "--output", output, ...extra];
+const solve =
+  (path: string, ...extra: string[]) =>
+  (output: string) => ["solve", path, ...books, "--output", output, ...extra];
 
 const cases: Case[] = [
   { name: "a missing file", args: solve(join(scratch, "absent.csv")), code: 2, says: ["absent.csv", "no such file"] },
   { name: "an unreadable path (a folder)", args: solve(scratch), code: 2, says: ["it is a directory"] },
   { name: "an empty file", args: solve(file("empty.csv", "")), code: 2, says: ["empty.csv", "empty"] },
   { name: "a header only", args: solve(file("header.csv", `${header}\n`)), code: 2, says: ["header.csv", "line 1"] },
-  { name: "an unknown column, with a suggestion", args: (o) => ["solve", file("u.csv", good.join("\n")), "--low", "lwo", "--high", "high", "--output", o], code: 2, says: ['"lwo"', 'did you mean "low"'] },
-  { name: "duplicate column names", args: solve(file("dup.csv", ["date,low,low,high", "2024-01-31,1,1,1"].join("\n"))), code: 2, says: ["dup.csv", '"low"'] },
-  { name: "a non-numeric value", args: solve(file("nan.csv", [...good.slice(0, 3), "2024-03-31,0.01,abc", good[4]].join("\n"))), code: 2, says: ["nan.csv line 4", 'column "high"', '"abc"'] },
-  { name: "a row with the wrong number of fields", args: solve(file("fields.csv", [...good.slice(0, 2), "2024-02-29,0.01", ...good.slice(3)].join("\n"))), code: 2, says: ["fields.csv line 3", "2"] },
-  { name: "duplicate dates", args: solve(file("dd.csv", [...good, "2024-04-30,0.01,0.02"].join("\n"))), code: 2, says: ["dd.csv line 6", "2024-04-30"] },
-  { name: "unsorted dates", args: solve(file("us.csv", [header, good[2], good[1], good[3], good[4]].join("\n"))), code: 2, says: ["us.csv line 3", "--sort"] },
-  { name: "an unparseable date", args: solve(file("bd.csv", [...good, "someday,0.01,0.02"].join("\n"))), code: 2, says: ["bd.csv line 6", '"someday"', "--date-format"] },
+  {
+    name: "an unknown column, with a suggestion",
+    args: (o) => ["solve", file("u.csv", good.join("\n")), "--low", "lwo", "--high", "high", "--output", o],
+    code: 2,
+    says: ['"lwo"', 'did you mean "low"'],
+  },
+  {
+    name: "duplicate column names",
+    args: solve(file("dup.csv", ["date,low,low,high", "2024-01-31,1,1,1"].join("\n"))),
+    code: 2,
+    says: ["dup.csv", '"low"'],
+  },
+  {
+    name: "a non-numeric value",
+    args: solve(file("nan.csv", [...good.slice(0, 3), "2024-03-31,0.01,abc", good[4]].join("\n"))),
+    code: 2,
+    says: ["nan.csv line 4", 'column "high"', '"abc"'],
+  },
+  {
+    name: "a row with the wrong number of fields",
+    args: solve(file("fields.csv", [...good.slice(0, 2), "2024-02-29,0.01", ...good.slice(3)].join("\n"))),
+    code: 2,
+    says: ["fields.csv line 3", "2"],
+  },
+  {
+    name: "duplicate dates",
+    args: solve(file("dd.csv", [...good, "2024-04-30,0.01,0.02"].join("\n"))),
+    code: 2,
+    says: ["dd.csv line 6", "2024-04-30"],
+  },
+  {
+    name: "unsorted dates",
+    args: solve(file("us.csv", [header, good[2], good[1], good[3], good[4]].join("\n"))),
+    code: 2,
+    says: ["us.csv line 3", "--sort"],
+  },
+  {
+    name: "an unparseable date",
+    args: solve(file("bd.csv", [...good, "someday,0.01,0.02"].join("\n"))),
+    code: 2,
+    says: ["bd.csv line 6", '"someday"', "--date-format"],
+  },
   { name: "too few aligned observations", args: solve(file("few.csv", good.slice(0, 3).join("\n"))), code: 2, says: ["few.csv", "3"] },
-  { name: "a constant series", args: solve(file("flat.csv", [header, "2024-01-31,0.01,0.02", "2024-02-29,0.01,-0.03", "2024-03-31,0.01,0.01"].join("\n"))), code: 2, says: ["flat.csv", "constant"] },
-  { name: "an absurd return (> 10 in decimal units)", args: solve(file("big.csv", [...good, "2024-05-31,12,0.02"].join("\n"))), code: 2, says: ["big.csv line 6", '"12"', "--allow-extreme"] },
-  { name: "binary content", args: solve(file("bin.csv", new Uint8Array([0x64, 0x61, 0x74, 0x65, 0x00, 0x01, 0x02]))), code: 2, says: ["bin.csv"] },
-  { name: "invalid UTF-8", args: solve(file("latin.csv", readFileSync(join(root, "test/fixtures/csv/latin1.csv")))), code: 2, says: ["latin.csv line 1"] },
-  { name: "an unquoted delimiter inside a value", args: solve(file("split.csv", [...good.slice(0, 2), "2024-02-29,0,01,0.02", ...good.slice(3)].join("\n"))), code: 2, says: ["split.csv line 3"] },
+  {
+    name: "a constant series",
+    args: solve(file("flat.csv", [header, "2024-01-31,0.01,0.02", "2024-02-29,0.01,-0.03", "2024-03-31,0.01,0.01"].join("\n"))),
+    code: 2,
+    says: ["flat.csv", "constant"],
+  },
+  {
+    name: "an absurd return (> 10 in decimal units)",
+    args: solve(file("big.csv", [...good, "2024-05-31,12,0.02"].join("\n"))),
+    code: 2,
+    says: ["big.csv line 6", '"12"', "--allow-extreme"],
+  },
+  {
+    name: "binary content",
+    args: solve(file("bin.csv", new Uint8Array([0x64, 0x61, 0x74, 0x65, 0x00, 0x01, 0x02]))),
+    code: 2,
+    says: ["bin.csv"],
+  },
+  {
+    name: "invalid UTF-8",
+    args: solve(file("latin.csv", readFileSync(join(root, "test/fixtures/csv/latin1.csv")))),
+    code: 2,
+    says: ["latin.csv line 1"],
+  },
+  {
+    name: "an unquoted delimiter inside a value",
+    args: solve(file("split.csv", [...good.slice(0, 2), "2024-02-29,0,01,0.02", ...good.slice(3)].join("\n"))),
+    code: 2,
+    says: ["split.csv line 3"],
+  },
   { name: "a weight outside (0, 1)", args: solve(file("w.csv", good.join("\n")), "--weight", "1"), code: 1, says: ["--weight", "'1'"] },
   { name: "steps below 2", args: solve(file("s.csv", good.join("\n")), "--steps", "1"), code: 1, says: ["--steps", "'1'"] },
   { name: "an unknown format", args: solve(file("f.csv", good.join("\n")), "--format", "xlsx"), code: 1, says: ["--format", "xlsx"] },
@@ -64,13 +126,16 @@ describe("bad input end to end", () => {
     expect(result.stdout).toBe("");
     expect(result.stderr).toMatch(/^error: /);
     expect(result.stderr).not.toMatch(/\n\s+at .+:\d+:\d+/);
-    for (const text of says) expect(result.stderr).toMatch(typeof text === "string" ? new RegExp(text.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")) : text);
+    for (const text of says)
+      expect(result.stderr).toMatch(typeof text === "string" ? new RegExp(text.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")) : text);
     expect(readFileSync(output, "utf8")).toBe("previous\n");
   });
 
   it("refuses an output path that cannot be written with exit 4 and no stdout", () => {
     const input = file("ok.csv", good.join("\n"));
-    const result = spawnSync(process.execPath, [cli, "solve", input, ...books, "--output", join(scratch, "missing-dir", "out.json")], { encoding: "utf8" });
+    const result = spawnSync(process.execPath, [cli, "solve", input, ...books, "--output", join(scratch, "missing-dir", "out.json")], {
+      encoding: "utf8",
+    });
     expect(result.status).toBe(4);
     expect(result.stdout).toBe("");
     expect(result.stderr).toContain("cannot write");

@@ -46,14 +46,20 @@ describe("charts from the command line", () => {
   });
 
   it("refuses --chart for several pairs", () => {
-    const result = spawnSync(process.execPath, [cli, "solve", monthly, monthly, ...books, "--chart", join(scratch, "x.svg")], { encoding: "utf8" });
+    const result = spawnSync(process.execPath, [cli, "solve", monthly, monthly, ...books, "--chart", join(scratch, "x.svg")], {
+      encoding: "utf8",
+    });
     expect(result.status).toBe(1);
     expect(result.stderr).toContain("--chart");
   });
 
   it("draws the roll band chart as well-formed SVG", () => {
     const svg = join(scratch, "band.svg");
-    const result = spawnSync(process.execPath, [cli, "roll", monthly, ...books, "--window", "60", "--step", "6", "--uncertainty", "--format", "csv", "--chart", svg], { encoding: "utf8" });
+    const result = spawnSync(
+      process.execPath,
+      [cli, "roll", monthly, ...books, "--window", "60", "--step", "6", "--uncertainty", "--format", "csv", "--chart", svg],
+      { encoding: "utf8" },
+    );
     expect(result.status).toBe(0);
     const chart = readFileSync(svg, "utf8");
     expect(XMLValidator.validate(chart)).toBe(true);

@@ -35,21 +35,41 @@ describe("the betabound executable", () => {
     const json = JSON.parse(stdout);
     const paths = [
       "observations",
-      "moments.low.mean", "moments.low.variance", "moments.low.stdev",
-      "moments.high.mean", "moments.high.variance", "moments.high.stdev",
-      "moments.market.mean", "moments.market.variance", "moments.market.stdev",
-      "moments.covariance.lowHigh", "moments.covariance.lowMarket", "moments.covariance.highMarket",
+      "moments.low.mean",
+      "moments.low.variance",
+      "moments.low.stdev",
+      "moments.high.mean",
+      "moments.high.variance",
+      "moments.high.stdev",
+      "moments.market.mean",
+      "moments.market.variance",
+      "moments.market.stdev",
+      "moments.covariance.lowHigh",
+      "moments.covariance.lowMarket",
+      "moments.covariance.highMarket",
       "moments.correlation.lowHigh",
       ...["low", "high"].flatMap((book) =>
         ["alpha", "beta", "alphaStdErr", "betaStdErr", "rSquared", "residualVariance"].map((f) => `capm.${book}.${f}`),
       ),
-      "bounds.lowBeta.min", "bounds.lowBeta.max", "bounds.highBeta.min", "bounds.highBeta.max",
+      "bounds.lowBeta.min",
+      "bounds.lowBeta.max",
+      "bounds.highBeta.min",
+      "bounds.highBeta.max",
     ];
     for (const path of paths) {
-      const value = path.split(".").reduce((node: any, key) => node?.[key], json);
+      const value = path.split(".").reduce<unknown>((node, key) => (node as Record<string, unknown> | undefined)?.[key], json);
       expect(typeof value, path).toBe("number");
     }
-    const candidateFields = ["lowBeta", "highBeta", "factorVariance", "lowNoiseVariance", "highNoiseVariance", "noiseShare", "expectedLowAlpha", "expectedHighAlpha"];
+    const candidateFields = [
+      "lowBeta",
+      "highBeta",
+      "factorVariance",
+      "lowNoiseVariance",
+      "highNoiseVariance",
+      "noiseShare",
+      "expectedLowAlpha",
+      "expectedHighAlpha",
+    ];
     expect(json.grid).toHaveLength(11);
     for (const candidate of [...json.grid, ...Object.values(json.landmarks)]) {
       for (const field of candidateFields) expect(candidate, field).toHaveProperty(field);
@@ -67,20 +87,57 @@ describe("the betabound executable", () => {
 
   it("regenerates the bundled example byte for byte from its documented command and seed", () => {
     const { code, stdout } = betabound([
-      "simulate", "--low-beta", "0.72", "--factor-vol", "0.045", "--factor-mean", "0.006",
-      "--low-noise-vol", "0.014", "--high-noise-vol", "0.022", "--rf", "0.002", "--periods", "180",
-      "--start", "2011-01-01", "--seed", "8", "--digits", "6",
-      "--names", "Month End,Stillwater Low Vol,Kestrel High Beta",
+      "simulate",
+      "--low-beta",
+      "0.72",
+      "--factor-vol",
+      "0.045",
+      "--factor-mean",
+      "0.006",
+      "--low-noise-vol",
+      "0.014",
+      "--high-noise-vol",
+      "0.022",
+      "--rf",
+      "0.002",
+      "--periods",
+      "180",
+      "--start",
+      "2011-01-01",
+      "--seed",
+      "8",
+      "--digits",
+      "6",
+      "--names",
+      "Month End,Stillwater Low Vol,Kestrel High Beta",
     ]);
     expect(code).toBe(0);
     expect(stdout).toBe(readFileSync(monthly, "utf8"));
   });
 
   it("works as a pipeline: simulate | solve -", () => {
-    const sample = execFileSync(process.execPath, [
-      cli, "simulate", "--low-beta", "0.8", "--factor-vol", "0.01", "--low-noise-vol", "0.003",
-      "--high-noise-vol", "0.004", "--periods", "2520", "--frequency", "daily", "--seed", "3",
-    ], { encoding: "utf8" });
+    const sample = execFileSync(
+      process.execPath,
+      [
+        cli,
+        "simulate",
+        "--low-beta",
+        "0.8",
+        "--factor-vol",
+        "0.01",
+        "--low-noise-vol",
+        "0.003",
+        "--high-noise-vol",
+        "0.004",
+        "--periods",
+        "2520",
+        "--frequency",
+        "daily",
+        "--seed",
+        "3",
+      ],
+      { encoding: "utf8" },
+    );
     const { code, stdout } = betabound(["solve", "-", "--low", "low", "--high", "high", "--format", "json"], sample);
     expect(code).toBe(0);
     const json = JSON.parse(stdout);

@@ -43,7 +43,7 @@ describe("the code cache", () => {
 
   it.each([
     ["absent", null],
-    ["stale", Buffer.concat([Buffer.from("0".repeat(header.length - 1) + "\n"), built.subarray(header.length)])],
+    ["stale", Buffer.concat([Buffer.from(`${"0".repeat(header.length - 1)}\n`), built.subarray(header.length)])],
     ["rejected", Buffer.concat([header, Buffer.from("not a code cache")])],
   ])("is %s: the bundle is compiled from source, with the same output", (state, cache) => {
     const dir = copyWith(cache);
@@ -58,10 +58,18 @@ describe("the code cache", () => {
 describe("the published package", () => {
   it("holds the executable, its bundle, the code cache and the worker (npm pack)", () => {
     const npm = process.platform === "win32" ? "npm.cmd" : "npm";
-    const packed = JSON.parse(execFileSync(npm, ["pack", "--dry-run", "--json", "--ignore-scripts"], { cwd: root, encoding: "utf8" })) as { files: { path: string }[] }[];
+    const packed = JSON.parse(execFileSync(npm, ["pack", "--dry-run", "--json", "--ignore-scripts"], { cwd: root, encoding: "utf8" })) as {
+      files: { path: string }[];
+    }[];
     const files = new Set(packed[0]?.files.map((f) => f.path));
     const pkg = JSON.parse(readFileSync(join(root, "package.json"), "utf8")) as { bin: Record<string, string> };
-    for (const path of [pkg.bin["betabound"]?.replace(/^\.\//, ""), "dist/cli-bundle.cjs", "dist/cli-bundle.cache", "dist/bootstrapWorker.js", "dist/index.js"]) {
+    for (const path of [
+      pkg.bin.betabound?.replace(/^\.\//, ""),
+      "dist/cli-bundle.cjs",
+      "dist/cli-bundle.cache",
+      "dist/bootstrapWorker.js",
+      "dist/index.js",
+    ]) {
       expect(files.has(path ?? ""), path).toBe(true);
     }
   });

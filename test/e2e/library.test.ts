@@ -5,7 +5,7 @@ import { describe, expect, it } from "vitest";
 
 const root = new URL("../../", import.meta.url).pathname;
 
-describe("import { ... } from \"betabound\"", () => {
+describe('import { ... } from "betabound"', () => {
   it("gives the pure core, which solves a sample without loading the CLI's packages", () => {
     const script = `
       import { solve, assessUncertainty, implied } from "betabound";

@@ -70,7 +70,14 @@ describe("populationMoments", () => {
   it("gives the two-indicator set [15/26, 17/16] of methods.md section 3's exact example", () => {
     // Section 3: truth b_low = 3/4, b_high = 5/4, phi = 4, s = (2, 3) -> V_low = 17/4, V_high = 37/4,
     // C = 15/4; "the two-indicator set from the same (V_L, V_H, C_LH) is [15/26, 17/16]".
-    const m = populationMoments({ lowBeta: 0.75, weight: 0.5, factorVol: 2, factorMean: 0, lowNoiseVol: Math.sqrt(2), highNoiseVol: Math.sqrt(3) });
+    const m = populationMoments({
+      lowBeta: 0.75,
+      weight: 0.5,
+      factorVol: 2,
+      factorMean: 0,
+      lowNoiseVol: Math.sqrt(2),
+      highNoiseVol: Math.sqrt(3),
+    });
     expectClose(m.lowVariance, 17 / 4);
     expectClose(m.highVariance, 37 / 4);
     expectClose(m.covariance, 15 / 4);

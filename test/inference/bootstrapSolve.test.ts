@@ -79,7 +79,14 @@ describe("ranges of replicates", () => {
 describe("summaries", () => {
   test("type-7 quantiles: numpy.quantile([1, 2, 3, 4], 0.25) = 1.75; numpy.quantile(1..10, 0.975) = 9.775", () => {
     expectClose(quantileSorted(Float64Array.from([1, 2, 3, 4]), 0.25), 1.75, { rel: 1e-15 });
-    expectClose(quantileSorted(Float64Array.from({ length: 10 }, (_, i) => i + 1), 0.975), 9.775, { rel: 1e-15 });
+    expectClose(
+      quantileSorted(
+        Float64Array.from({ length: 10 }, (_, i) => i + 1),
+        0.975,
+      ),
+      9.775,
+      { rel: 1e-15 },
+    );
   });
 
   test("percentile limits and standard errors are the quantiles and sd (divisor B - 1) of the replicates", () => {

@@ -23,9 +23,9 @@ export function readCsvColumns(name: string): Record<string, number[]> {
 /** The statsmodels test_hac_simple regression: 400 dlog realinv on [1, 400 dlog realgdp, realint(-1)]. */
 export function macrodataRegression(): { design: Float64Array[]; y: Float64Array } {
   const data = readCsvColumns("macrodata.csv");
-  const gdp = data["realgdp"]!;
-  const inv = data["realinv"]!;
-  const realint = data["realint"]!;
+  const gdp = data.realgdp!;
+  const inv = data.realinv!;
+  const realint = data.realint!;
   const n = gdp.length - 1;
   const growth = (x: number[]) => Float64Array.from({ length: n }, (_, t) => 400 * (Math.log(x[t + 1]!) - Math.log(x[t]!)));
   return {
@@ -37,7 +37,7 @@ export function macrodataRegression(): { design: Float64Array[]; y: Float64Array
 /** R sandwich's fm = lm(RealInv ~ RealGNP + RealInt, data = Investment): the first row (RealInt NA) dropped. */
 export function investmentRegression(): { design: Float64Array[]; y: Float64Array } {
   const data = readCsvColumns("Investment.csv");
-  const keep = data["RealInt"]!.map((v, i) => (Number.isNaN(v) ? -1 : i)).filter((i) => i >= 0);
+  const keep = data.RealInt!.map((v, i) => (Number.isNaN(v) ? -1 : i)).filter((i) => i >= 0);
   const pick = (name: string) => Float64Array.from(keep, (i) => data[name]![i]!);
   return {
     design: [new Float64Array(keep.length).fill(1), pick("RealGNP"), pick("RealInt")],

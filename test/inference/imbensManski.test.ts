@@ -11,8 +11,16 @@ import { expectClose } from "../support/close.js";
 describe("Imbens-Manski critical value C_N (methods.md §5.1, alpha = 0.05)", () => {
   // r = Delta / max(se):   0        0.1      0.25     0.5      1        1.5      2        3        >= 4
   const table: [number, number][] = [
-    [0, 1.959964], [0.1, 1.912412], [0.25, 1.850183], [0.5, 1.769713], [1, 1.681477],
-    [1.5, 1.652746], [2, 1.646146], [3, 1.64487], [4, 1.644854], [35, 1.644854],
+    [0, 1.959964],
+    [0.1, 1.912412],
+    [0.25, 1.850183],
+    [0.5, 1.769713],
+    [1, 1.681477],
+    [1.5, 1.652746],
+    [2, 1.646146],
+    [3, 1.64487],
+    [4, 1.644854],
+    [35, 1.644854],
   ];
   test.each(table)("r = %s gives C = %s", (r, c) => {
     expectClose(imbensManskiCriticalValue(r, 0.95), c, { abs: 5e-7 });
@@ -20,7 +28,13 @@ describe("Imbens-Manski critical value C_N (methods.md §5.1, alpha = 0.05)", ()
 });
 
 describe("Imbens-Manski critical value C_N (methods.md §5.1, alpha = 0.10)", () => {
-  const table: [number, number][] = [[0, 1.644854], [0.5, 1.445581], [1, 1.338751], [2, 1.284468], [4, 1.281552]];
+  const table: [number, number][] = [
+    [0, 1.644854],
+    [0.5, 1.445581],
+    [1, 1.338751],
+    [2, 1.284468],
+    [4, 1.281552],
+  ];
   test.each(table)("r = %s gives C = %s", (r, c) => {
     expectClose(imbensManskiCriticalValue(r, 0.9), c, { abs: 5e-7 });
   });

@@ -29,20 +29,28 @@ describe("long-run covariance of OLS scores, sandwiched", () => {
   test("Bartlett lag 4 on macrodata gives statsmodels' NW covariance (adjust = FALSE)", () => {
     const { omega, covariance } = scoreSandwich(macrodataRegression(), { lags: 4 });
     expect(omega.lags).toBe(4);
-    expectMatrixClose(covariance, [
-      ["1.3855512908840137", "-0.3133096102522685", "-0.0597207976835705"],
-      ["-0.3133096102522685", "0.108101169035130618", "0.000389440793564339"],
-      ["-0.0597207976835705", "0.000389440793564336", "0.086211852740503622"],
-    ], 1e-10);
+    expectMatrixClose(
+      covariance,
+      [
+        ["1.3855512908840137", "-0.3133096102522685", "-0.0597207976835705"],
+        ["-0.3133096102522685", "0.108101169035130618", "0.000389440793564339"],
+        ["-0.0597207976835705", "0.000389440793564336", "0.086211852740503622"],
+      ],
+      1e-10,
+    );
   });
 
   test("VAR(1)-prewhitened lag 0 on Investment gives R's NeweyWest(fm)", () => {
     const { covariance } = scoreSandwich(investmentRegression(), { lags: 0, prewhite: true });
-    expectMatrixClose(covariance, [
-      ["594.1004817", "-0.5617817294", "36.04992496"],
-      ["-0.5617817", "0.0005563172", "-0.04815937"],
-      ["36.0499250", "-0.0481593694", "13.24912546"],
-    ], 1e-9);
+    expectMatrixClose(
+      covariance,
+      [
+        ["594.1004817", "-0.5617817294", "36.04992496"],
+        ["-0.5617817", "0.0005563172", "-0.04815937"],
+        ["36.0499250", "-0.0481593694", "13.24912546"],
+      ],
+      1e-9,
+    );
   });
 });
 

@@ -13,8 +13,20 @@ import { normalCdf, normalPdf, normalQuantile, normalSurvival } from "../../src/
 import { expectClose } from "../support/close.js";
 import { fixtureText } from "./fixtures.js";
 
-interface Point { x: number; cdf: number; sf: number; pdf: number; exactCdf: number; exactSf: number; exactPdf: number }
-interface QuantilePoint { p: number; quantile: number; exactQuantile: number }
+interface Point {
+  x: number;
+  cdf: number;
+  sf: number;
+  pdf: number;
+  exactCdf: number;
+  exactSf: number;
+  exactPdf: number;
+}
+interface QuantilePoint {
+  p: number;
+  quantile: number;
+  exactQuantile: number;
+}
 const fixture = JSON.parse(fixtureText("normal.json")) as { points: Point[]; quantiles: QuantilePoint[] };
 
 const ulps = 5e-15;

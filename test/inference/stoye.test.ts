@@ -10,7 +10,13 @@ import { stoyeInterval, stoyeProbability } from "../../src/core/inference/stoye.
 import { expectClose } from "../support/close.js";
 import { fixtureText } from "./fixtures.js";
 
-interface Case { a: number; b: number; rho: number; quad: number; genz: number }
+interface Case {
+  a: number;
+  b: number;
+  rho: number;
+  quad: number;
+  genz: number;
+}
 const fixture = JSON.parse(fixtureText("bivariate.json")) as { cases: Case[] };
 
 describe("the integral P(a, b, rho) = P(Z1 <= a, Z2 >= -b)", () => {
@@ -45,7 +51,10 @@ describe("Stoye interval (methods.md §5.2)", () => {
   });
 
   test("Example A, T = 120, rho = 7/18: Stoye's interval equals Imbens-Manski's [0.6685506, 0.9380745] to 7 d.p. (methods.md §1.7)", () => {
-    const interval = stoyeInterval({ lower: 5 / 7, upper: 8 / 9, lowerStdError: 0.027805, upperStdError: 0.0299027, correlation: 7 / 18 }, 0.95);
+    const interval = stoyeInterval(
+      { lower: 5 / 7, upper: 8 / 9, lowerStdError: 0.027805, upperStdError: 0.0299027, correlation: 7 / 18 },
+      0.95,
+    );
     expectClose(interval.lower, 0.6685506, { abs: 5e-8 });
     expectClose(interval.upper, 0.9380745, { abs: 5e-8 });
   });

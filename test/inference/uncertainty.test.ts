@@ -77,7 +77,11 @@ describe("the intervals for the structural betas", () => {
   });
 
   test("with intervalSource 'bootstrap' the bounds use the bootstrap standard errors", () => {
-    const boot = assessUncertainty(input, { weight: w, intervalSource: "bootstrap", bootstrap: { replicates: 200, blockLength: 5, seed: 3 } });
+    const boot = assessUncertainty(input, {
+      weight: w,
+      intervalSource: "bootstrap",
+      bootstrap: { replicates: 200, blockLength: 5, seed: 3 },
+    });
     expect(boot.method.intervalSource).toBe("bootstrap");
     expect(boot.bounds?.lowBeta.min.stdError).toBe(boot.bootstrap?.stdErrors.lowBetaMin);
     expect(boot.bounds?.lowBeta.max.stdError).toBe(boot.bootstrap?.stdErrors.lowBetaMax);
@@ -106,8 +110,14 @@ describe("CAPM HAC standard errors", () => {
     const e = y.map((v, t) => v - (ybar - beta * xbar) - beta * x[t]!);
     const sx = x.reduce((s, v) => s + v, 0);
     const sxx = x.reduce((s, v) => s + v * v, 0);
-    const bread = inverse([[n, sx], [sx, sxx]]);
-    const meat = [[0, 0], [0, 0]];
+    const bread = inverse([
+      [n, sx],
+      [sx, sxx],
+    ]);
+    const meat = [
+      [0, 0],
+      [0, 0],
+    ];
     for (let t = 0; t < n; t++) {
       const row = [1, x[t]!];
       for (let i = 0; i < 2; i++) for (let j = 0; j < 2; j++) meat[i]![j]! += row[i]! * row[j]! * e[t]! ** 2;
@@ -129,7 +139,12 @@ describe("contract", () => {
 
   test("the bootstrap is off unless replicates > 0; iid Omega reports no kernel", () => {
     expect(result.bootstrap).toBeNull();
-    expect(assessUncertainty(input, { weight: w, longRun: "iid" }).method).toMatchObject({ longRun: "iid", kernel: null, bandwidth: null, lags: null });
+    expect(assessUncertainty(input, { weight: w, longRun: "iid" }).method).toMatchObject({
+      longRun: "iid",
+      kernel: null,
+      bandwidth: null,
+      lags: null,
+    });
   });
 
   test("no identified set (covariance <= 0) gives null bounds and intervals, other fields still computed", () => {

@@ -36,9 +36,12 @@ export const generatedTable: fc.Arbitrary<GeneratedTable> = fc
   .chain(({ names, start, gaps }) => {
     let day = start;
     const dates = [start, ...gaps.map((g) => (day += g))].map((d) => new Date(d * DAY_MS).toISOString().slice(0, 10));
-    return fc.array(fc.array(returnValue, { minLength: names.length, maxLength: names.length }), {
-      minLength: dates.length, maxLength: dates.length,
-    }).map((values) => ({ names, dates, values }));
+    return fc
+      .array(fc.array(returnValue, { minLength: names.length, maxLength: names.length }), {
+        minLength: dates.length,
+        maxLength: dates.length,
+      })
+      .map((values) => ({ names, dates, values }));
   });
 
 export const dialect: fc.Arbitrary<Dialect> = fc.record({
@@ -77,10 +80,15 @@ const MUTATION_ALPHABET = ["0", "1", "9", ".", "-", "e", ",", ";", "\t", " ", "\
 
 /** Random edits (insert, delete, replace) of a text, with characters that matter to a CSV reader. */
 export function mutated(text: fc.Arbitrary<string>): fc.Arbitrary<string> {
-  const edit = fc.record({ at: fc.nat(), remove: fc.integer({ min: 0, max: 3 }), insert: fc.array(fc.constantFrom(...MUTATION_ALPHABET), { maxLength: 3 }) });
+  const edit = fc.record({
+    at: fc.nat(),
+    remove: fc.integer({ min: 0, max: 3 }),
+    insert: fc.array(fc.constantFrom(...MUTATION_ALPHABET), { maxLength: 3 }),
+  });
   return fc.tuple(text, fc.array(edit, { minLength: 1, maxLength: 6 })).map(([t, edits]) =>
     edits.reduce((s, e) => {
       const at = s.length === 0 ? 0 : e.at % (s.length + 1);
       return s.slice(0, at) + e.insert.join("") + s.slice(at + e.remove);
-    }, t));
+    }, t),
+  );
 }

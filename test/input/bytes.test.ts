@@ -19,20 +19,41 @@ describe("the byte number parser", () => {
     fc.double({ noNaN: true }).map(String),
     fc.double({ min: -1, max: 1, noNaN: true }).map(String),
     fc.tuple(fc.double({ min: -100, max: 100, noNaN: true }), fc.integer({ min: 0, max: 30 })).map(([x, k]) => x.toFixed(k)),
-    fc.tuple(fc.constantFrom("", "-", "+", " ", "\t", " -"), fc.stringMatching(/^[0-9]{0,26}$/), fc.constantFrom("", "."),
-      fc.stringMatching(/^[0-9]{0,26}$/), fc.constantFrom("", " ", "\t", "e5", "E-3", "x", "  ")).map((parts) => parts.join("")),
+    fc
+      .tuple(
+        fc.constantFrom("", "-", "+", " ", "\t", " -"),
+        fc.stringMatching(/^[0-9]{0,26}$/),
+        fc.constantFrom("", "."),
+        fc.stringMatching(/^[0-9]{0,26}$/),
+        fc.constantFrom("", " ", "\t", "e5", "E-3", "x", "  "),
+      )
+      .map((parts) => parts.join("")),
     fc.stringMatching(/^[0-9.eE+\- \tNA,;x]{0,12}$/),
-    fc.constantFrom("9007199254740993", "9007199254740992.5", "0.9007199254740993", "900719925474099.3", "1e999", "-0", "-0.0", ".5", "5.", "."),
+    fc.constantFrom(
+      "9007199254740993",
+      "9007199254740992.5",
+      "0.9007199254740993",
+      "900719925474099.3",
+      "1e999",
+      "-0",
+      "-0.0",
+      ".5",
+      "5.",
+      ".",
+    ),
   );
 
   it("gives exactly parseDecimal (NaN for null) on every ASCII token, and so Number on accepted ones", () => {
-    fc.assert(fc.property(token, fc.constantFrom(",", ";", "\t"), (text, delimiter) => {
-      const field = text.split(delimiter)[0] as string;
-      const read = decimalOfBytes(ascii(field), delimiter);
-      const expected = parseDecimal(field);
-      expect(Object.is(read, expected ?? Number.NaN), JSON.stringify(field)).toBe(true);
-      if (expected !== null) expect(Object.is(read, Number(field))).toBe(true);
-    }), { numRuns: 20_000 });
+    fc.assert(
+      fc.property(token, fc.constantFrom(",", ";", "\t"), (text, delimiter) => {
+        const field = text.split(delimiter)[0] as string;
+        const read = decimalOfBytes(ascii(field), delimiter);
+        const expected = parseDecimal(field);
+        expect(Object.is(read, expected ?? Number.NaN), JSON.stringify(field)).toBe(true);
+        if (expected !== null) expect(Object.is(read, Number(field))).toBe(true);
+      }),
+      { numRuns: 20_000 },
+    );
   });
 
   it("reads 16-digit mantissas below 2^53 on the fast path, exactly", () => {
@@ -45,7 +66,11 @@ describe("the byte number parser", () => {
 describe("readReturnsFromBytes", () => {
   it("takes the byte engine only for plain ASCII without NUL, quotes or lone CR", () => {
     expect(plainLines(ascii("Date,A\n2020-01-31,1\n"))).toEqual({ start: 0, starts: Int32Array.of(0, 7, 20), firstBytes: ascii("D2") });
-    expect(plainLines(utf8("\uFEFFDate,A\r\n\r\n2020-01-31,1"))).toEqual({ start: 3, starts: Int32Array.of(3, 11, 13, 26), firstBytes: ascii("D\r2") });
+    expect(plainLines(utf8("\uFEFFDate,A\r\n\r\n2020-01-31,1"))).toEqual({
+      start: 3,
+      starts: Int32Array.of(3, 11, 13, 26),
+      firstBytes: ascii("D\r2"),
+    });
     expect(plainLines(utf8("Date,Zürich\n"))).toBeNull();
     expect(plainLines(ascii('Date,"A"\n'))).toBeNull();
     expect(plainLines(ascii("Date,A\r2020,1"))).toBeNull();
@@ -66,7 +91,11 @@ describe("readReturnsFromBytes", () => {
   });
 
   it("returns the decoding issues of decodeText", () => {
-    for (const bytes of [Uint8Array.of(0xff, 0xfe, 0x41, 0), ascii("Date,A\n\u0000"), Uint8Array.of(...ascii("Date,A\n2020-01-31,"), 0xe9, 10)]) {
+    for (const bytes of [
+      Uint8Array.of(0xff, 0xfe, 0x41, 0),
+      ascii("Date,A\n\u0000"),
+      Uint8Array.of(...ascii("Date,A\n2020-01-31,"), 0xe9, 10),
+    ]) {
       const decoded = decodeText(bytes, "bytes.csv");
       expect(decoded.ok).toBe(false);
       expect(readReturnsFromBytes(bytes, options(["A"]))).toEqual(decoded);
@@ -113,19 +142,35 @@ describe("readReturnsFromBytes", () => {
   });
 
   it("goes back to the text when a byte far into the file is not plain", () => {
-    const rows = Array.from({ length: 6000 }, (_, i) => `${new Date(Date.UTC(2000, 0, 1) + i * 86_400_000).toISOString().slice(0, 10)},0.00${i % 97},-0.01${i % 13},note ${i}`);
+    const rows = Array.from(
+      { length: 6000 },
+      (_, i) => `${new Date(Date.UTC(2000, 0, 1) + i * 86_400_000).toISOString().slice(0, 10)},0.00${i % 97},-0.01${i % 13},note ${i}`,
+    );
     const plain = `Date,A,B,Note\n${rows.join("\n")}\n`;
     const at = plain.indexOf("note 5000");
     const at2 = plain.indexOf("0.0044", at);
     const variants = [
-      plain, `${plain.slice(0, at)}é${plain.slice(at)}`, `${plain.slice(0, at)}"x"${plain.slice(at)}`, `${plain.slice(0, at)}\u0000${plain.slice(at)}`,
-      `${plain.slice(0, at)}\r${plain.slice(at)}`, `${plain.slice(0, at2)}\r${plain.slice(at2)}`, `${plain.slice(0, at2)}é${plain.slice(at2)}`,
-      `${plain}\n\nDate,A\n2020-01-31,"1"\n`, `${plain.slice(0, at)}"${plain.slice(at)}`, `${plain}2020-01-31,1,2,x\r`, `${plain}2020-01-31,1,2\u0000`,
+      plain,
+      `${plain.slice(0, at)}é${plain.slice(at)}`,
+      `${plain.slice(0, at)}"x"${plain.slice(at)}`,
+      `${plain.slice(0, at)}\u0000${plain.slice(at)}`,
+      `${plain.slice(0, at)}\r${plain.slice(at)}`,
+      `${plain.slice(0, at2)}\r${plain.slice(at2)}`,
+      `${plain.slice(0, at2)}é${plain.slice(at2)}`,
+      `${plain}\n\nDate,A\n2020-01-31,"1"\n`,
+      `${plain.slice(0, at)}"${plain.slice(at)}`,
+      `${plain}2020-01-31,1,2,x\r`,
+      `${plain}2020-01-31,1,2\u0000`,
     ];
     expect(plain.length).toBeGreaterThan(1 << 17);
     for (const text of variants) {
       const bytes = text.includes("é") ? utf8(text) : ascii(text);
-      for (const opts of [options(["A", "B"]), options(["A"], { idColumn: "Note", valueColumn: "B" }), options(["Nope"]), options(["A"], { block: 2 })]) {
+      for (const opts of [
+        options(["A", "B"]),
+        options(["A"], { idColumn: "Note", valueColumn: "B" }),
+        options(["Nope"]),
+        options(["A"], { block: 2 }),
+      ]) {
         const expected = throughText(bytes, opts);
         expectSame(readReturnsFromBytes(bytes, opts), expected);
         expectSame(readBytesWith(bytes, opts, "speculative"), expected);
@@ -136,40 +181,70 @@ describe("readReturnsFromBytes", () => {
   });
 
   it("gives the result of decodeText and readReturns, bit for bit, on generated and mutated files", () => {
-    const files = fc.tuple(generatedTable, dialect).map(([table, d]) => ({ text: writeTable(table, { ...d, quoteAll: false }), names: table.names }));
+    const files = fc
+      .tuple(generatedTable, dialect)
+      .map(([table, d]) => ({ text: writeTable(table, { ...d, quoteAll: false }), names: table.names }));
     const mutatedFiles = files.chain(({ text, names }) => mutated(fc.constant(text)).map((t) => ({ text: t, names })));
-    const extra = fc.record({
-      sort: fc.boolean(), input: fc.constantFrom("returns", "prices", "log-returns"), onMissing: fc.constantFrom("drop", "error"),
-      missing: fc.constantFrom([], ["-99"], ["x"]), allowExtreme: fc.boolean(), decimalComma: fc.boolean(),
-    }, { requiredKeys: [] });
-    fc.assert(fc.property(fc.oneof(files, mutatedFiles, mutatedFiles.map(({ text, names }) => ({ text: text.replaceAll('"', ""), names }))), extra,
-      ({ text, names }, e) => {
-        const bytes = utf8(text);
-        const opts = options(names, e as Partial<ReadOptions>);
-        const fromBytes = readReturnsFromBytes(bytes, opts);
-        expectSame(fromBytes, throughText(bytes, opts));
-        expectSame(fromBytes, throughText(bytes, opts, "general"));
-        expectSame(fromBytes, readBytesWith(bytes, opts, "text"));
-        expectSame(readBytesWith(bytes, opts, "speculative"), fromBytes);
-      }), { numRuns: 600 });
+    const extra = fc.record(
+      {
+        sort: fc.boolean(),
+        input: fc.constantFrom("returns", "prices", "log-returns"),
+        onMissing: fc.constantFrom("drop", "error"),
+        missing: fc.constantFrom([], ["-99"], ["x"]),
+        allowExtreme: fc.boolean(),
+        decimalComma: fc.boolean(),
+      },
+      { requiredKeys: [] },
+    );
+    fc.assert(
+      fc.property(
+        fc.oneof(
+          files,
+          mutatedFiles,
+          mutatedFiles.map(({ text, names }) => ({ text: text.replaceAll('"', ""), names })),
+        ),
+        extra,
+        ({ text, names }, e) => {
+          const bytes = utf8(text);
+          const opts = options(names, e as Partial<ReadOptions>);
+          const fromBytes = readReturnsFromBytes(bytes, opts);
+          expectSame(fromBytes, throughText(bytes, opts));
+          expectSame(fromBytes, throughText(bytes, opts, "general"));
+          expectSame(fromBytes, readBytesWith(bytes, opts, "text"));
+          expectSame(readBytesWith(bytes, opts, "speculative"), fromBytes);
+        },
+      ),
+      { numRuns: 600 },
+    );
   });
 
   it("agrees with the text path on the long layout and on arbitrary bytes", () => {
-    fc.assert(fc.property(generatedTable, fc.integer(), (table, seed) => {
-      const bytes = utf8(writeLongTable(table, seed, ","));
-      const opts = options(table.names, { idColumn: "Series", valueColumn: "Value", allowExtreme: true });
-      expectSame(readReturnsFromBytes(bytes, opts), throughText(bytes, opts));
-    }), { numRuns: 100 });
-    const alphabet = fc.constantFrom(...ascii("0123456789.-,;\t \n\r\"Ae/:"), 0, 0xc3, 0xa9, 0xef, 0xbb, 0xbf);
+    fc.assert(
+      fc.property(generatedTable, fc.integer(), (table, seed) => {
+        const bytes = utf8(writeLongTable(table, seed, ","));
+        const opts = options(table.names, { idColumn: "Series", valueColumn: "Value", allowExtreme: true });
+        expectSame(readReturnsFromBytes(bytes, opts), throughText(bytes, opts));
+      }),
+      { numRuns: 100 },
+    );
+    const alphabet = fc.constantFrom(...ascii('0123456789.-,;\t \n\r"Ae/:'), 0, 0xc3, 0xa9, 0xef, 0xbb, 0xbf);
     // At every alignment of the bytes in their buffer (the scanner reads 4-byte words).
-    fc.assert(fc.property(fc.array(alphabet, { maxLength: 200 }), fc.integer({ min: 0, max: 3 }), fc.constantFrom(["A"], ["a", "b"]), (values, shift, columns) => {
-      const bytes = new Uint8Array(values.length + shift).subarray(shift);
-      bytes.set(values);
-      const opts = options(columns);
-      const expected = throughText(bytes, opts);
-      expectSame(readReturnsFromBytes(bytes, opts), expected);
-      expectSame(readBytesWith(bytes, opts, "speculative"), expected);
-      expectSame(readBytesWith(bytes, { ...opts, delimiter: "::" }, "speculative"), throughText(bytes, { ...opts, delimiter: "::" }));
-    }), { numRuns: 1000 });
+    fc.assert(
+      fc.property(
+        fc.array(alphabet, { maxLength: 200 }),
+        fc.integer({ min: 0, max: 3 }),
+        fc.constantFrom(["A"], ["a", "b"]),
+        (values, shift, columns) => {
+          const bytes = new Uint8Array(values.length + shift).subarray(shift);
+          bytes.set(values);
+          const opts = options(columns);
+          const expected = throughText(bytes, opts);
+          expectSame(readReturnsFromBytes(bytes, opts), expected);
+          expectSame(readBytesWith(bytes, opts, "speculative"), expected);
+          expectSame(readBytesWith(bytes, { ...opts, delimiter: "::" }, "speculative"), throughText(bytes, { ...opts, delimiter: "::" }));
+        },
+      ),
+      { numRuns: 1000 },
+    );
   });
 });

@@ -15,18 +15,36 @@ const withDates = (dates: string[]): string => ["Date,Low Fund,High Fund", ...da
 
 describe("unambiguous dates", () => {
   it.each([
-    ["2020-03-31", "2020-03-31"], [" 2020-03-31 ", "2020-03-31"], ["20200331", "2020-03-31"], ["202003", "2020-03"],
-    ["2020-03", "2020-03"], ["2020/03", "2020-03"], ["2020/3/31", "2020-03-31"], ["2020", "2020"],
-    ["2020-03-31T09:30", "2020-03-31T09:30:00"], ["2020-03-31 09:30:15", "2020-03-31T09:30:15"],
-    ["2020-03-31T09:30:15.250Z", "2020-03-31T09:30:15.250Z"], ["2020-03-31T09:30:00+0100", "2020-03-31T09:30:00+01:00"],
+    ["2020-03-31", "2020-03-31"],
+    [" 2020-03-31 ", "2020-03-31"],
+    ["20200331", "2020-03-31"],
+    ["202003", "2020-03"],
+    ["2020-03", "2020-03"],
+    ["2020/03", "2020-03"],
+    ["2020/3/31", "2020-03-31"],
+    ["2020", "2020"],
+    ["2020-03-31T09:30", "2020-03-31T09:30:00"],
+    ["2020-03-31 09:30:15", "2020-03-31T09:30:15"],
+    ["2020-03-31T09:30:15.250Z", "2020-03-31T09:30:15.250Z"],
+    ["2020-03-31T09:30:00+0100", "2020-03-31T09:30:00+01:00"],
   ])("reads %j as %j", (text, iso) => {
     expect(parseUnambiguousDate(text)?.iso).toBe(iso);
   });
 
-  it.each(["2021-02-29", "2020-13-01", "2020-00-10", "2020-04-31", "20201301", "2020-1-5", "31.03.2020", "March 2020", "", "2020-03-31T25:00"])(
-    "rejects %j", (text) => {
-      expect(parseUnambiguousDate(text)).toBeNull();
-    });
+  it.each([
+    "2021-02-29",
+    "2020-13-01",
+    "2020-00-10",
+    "2020-04-31",
+    "20201301",
+    "2020-1-5",
+    "31.03.2020",
+    "March 2020",
+    "",
+    "2020-03-31T25:00",
+  ])("rejects %j", (text) => {
+    expect(parseUnambiguousDate(text)).toBeNull();
+  });
 
   it("accepts 29 February in leap years only", () => {
     expect(parseUnambiguousDate("2000-02-29")).not.toBeNull();
@@ -41,12 +59,14 @@ describe("unambiguous dates", () => {
   });
 
   it("gives every calendar day a key one day after the previous one", () => {
-    fc.assert(fc.property(fc.date({ min: new Date("1800-01-01"), max: new Date("2200-12-31"), noInvalidDate: true }), (date) => {
-      const iso = date.toISOString().slice(0, 10);
-      const parsed = parseUnambiguousDate(iso);
-      expect(parsed?.iso).toBe(iso);
-      expect(parsed?.key).toBe(Date.parse(`${iso}T00:00:00Z`));
-    }));
+    fc.assert(
+      fc.property(fc.date({ min: new Date("1800-01-01"), max: new Date("2200-12-31"), noInvalidDate: true }), (date) => {
+        const iso = date.toISOString().slice(0, 10);
+        const parsed = parseUnambiguousDate(iso);
+        expect(parsed?.iso).toBe(iso);
+        expect(parsed?.key).toBe(Date.parse(`${iso}T00:00:00Z`));
+      }),
+    );
   });
 });
 
@@ -60,7 +80,12 @@ describe("slash dates", () => {
   });
 
   it("reports an ambiguous column naming both readings of its first ambiguous date", () => {
-    expect(readDateColumn(["01/01/2020", "03/04/2020", "05/06/2020"])).toEqual({ kind: "ambiguous", index: 1, dayFirst: "2020-04-03", monthFirst: "2020-03-04" });
+    expect(readDateColumn(["01/01/2020", "03/04/2020", "05/06/2020"])).toEqual({
+      kind: "ambiguous",
+      index: 1,
+      dayFirst: "2020-04-03",
+      monthFirst: "2020-03-04",
+    });
   });
 
   it("is not ambiguous when day and month are equal everywhere", () => {
@@ -68,17 +93,31 @@ describe("slash dates", () => {
   });
 
   it("reports the ambiguous date with its line through readReturns", () => {
-    expect(readIssues(withDates(["01/02/2020", "01/03/2020", "01/04/2020"]))).toEqual([{
-      code: "ambiguous-dates", source: "returns.csv", line: 2, column: "Date", value: "01/02/2020", dayFirst: "2020-02-01", monthFirst: "2020-01-02",
-    }]);
+    expect(readIssues(withDates(["01/02/2020", "01/03/2020", "01/04/2020"]))).toEqual([
+      {
+        code: "ambiguous-dates",
+        source: "returns.csv",
+        line: 2,
+        column: "Date",
+        value: "01/02/2020",
+        dayFirst: "2020-02-01",
+        monthFirst: "2020-01-02",
+      },
+    ]);
   });
 });
 
 describe("explicit date formats", () => {
   it.each([
-    ["DD/MM/YYYY", "03/04/2020", "2020-04-03"], ["MM/DD/YYYY", "03/04/2020", "2020-03-04"], ["DD.MM.YYYY", "31.03.2020", "2020-03-31"],
-    ["D MMM YYYY", "3 Apr 2020", "2020-04-03"], ["D MMM YYYY", "3  april 2020", "2020-04-03"], ["MMM YYYY", "Sep 2020", "2020-09"],
-    ["MMMM D, YYYY", "September 3, 2020", "2020-09-03"], ["YYYYMMDD", "20200403", "2020-04-03"], ["D-M-YYYY", "3-4-2020", "2020-04-03"],
+    ["DD/MM/YYYY", "03/04/2020", "2020-04-03"],
+    ["MM/DD/YYYY", "03/04/2020", "2020-03-04"],
+    ["DD.MM.YYYY", "31.03.2020", "2020-03-31"],
+    ["D MMM YYYY", "3 Apr 2020", "2020-04-03"],
+    ["D MMM YYYY", "3  april 2020", "2020-04-03"],
+    ["MMM YYYY", "Sep 2020", "2020-09"],
+    ["MMMM D, YYYY", "September 3, 2020", "2020-09-03"],
+    ["YYYYMMDD", "20200403", "2020-04-03"],
+    ["D-M-YYYY", "3-4-2020", "2020-04-03"],
   ])("%s reads %j as %j", (format, text, iso) => {
     expect(isos([text], format)).toEqual([iso]);
   });
@@ -103,7 +142,10 @@ describe("explicit date formats", () => {
   });
 
   it("reports an invalid layout as an option problem", () => {
-    expect(readIssues(withDates(["2020-01-31", "2020-02-29", "2020-03-31"]), { dateFormat: "DD/MM" })[0]).toMatchObject({ code: "invalid-option", option: "dateFormat" });
+    expect(readIssues(withDates(["2020-01-31", "2020-02-29", "2020-03-31"]), { dateFormat: "DD/MM" })[0]).toMatchObject({
+      code: "invalid-option",
+      option: "dateFormat",
+    });
   });
 });
 
@@ -118,7 +160,9 @@ describe("date order", () => {
 
   it("still reports duplicate dates after sorting", () => {
     const text = "Date,Low Fund,High Fund\n2020-03-31,0.03,0.3\n2020-01-31,0.01,0.1\n2020-03-31,0.02,0.2\n";
-    expect(readIssues(text, { sort: true })).toEqual([{ code: "duplicate-date", source: "returns.csv", line: 4, column: "Date", value: "2020-03-31", firstLine: 2 }]);
+    expect(readIssues(text, { sort: true })).toEqual([
+      { code: "duplicate-date", source: "returns.csv", line: 4, column: "Date", value: "2020-03-31", firstLine: 2 },
+    ]);
   });
 
   it("normalises compact monthly dates and detects a monthly frequency", () => {
@@ -130,11 +174,20 @@ describe("date order", () => {
 
 describe("plainIsoDateOfKey", () => {
   it("is the inverse of plainIsoDateKey on every real date from year 1 to 9999", () => {
-    fc.assert(fc.property(fc.integer({ min: 1, max: 9999 }), fc.integer({ min: 1, max: 12 }), fc.integer({ min: 1, max: 31 }), (year, month, day) => {
-      const text = `${String(year).padStart(4, "0")}-${String(month).padStart(2, "0")}-${String(day).padStart(2, "0")}`;
-      const key = plainIsoDateKey(text);
-      if (!Number.isNaN(key)) expect(plainIsoDateOfKey(key)).toBe(text);
-    }), { numRuns: 5000 });
-    for (const text of ["0001-01-01", "1600-02-29", "1900-02-28", "2000-02-29", "2024-12-31", "9999-12-31"]) expect(plainIsoDateOfKey(plainIsoDateKey(text))).toBe(text);
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 1, max: 9999 }),
+        fc.integer({ min: 1, max: 12 }),
+        fc.integer({ min: 1, max: 31 }),
+        (year, month, day) => {
+          const text = `${String(year).padStart(4, "0")}-${String(month).padStart(2, "0")}-${String(day).padStart(2, "0")}`;
+          const key = plainIsoDateKey(text);
+          if (!Number.isNaN(key)) expect(plainIsoDateOfKey(key)).toBe(text);
+        },
+      ),
+      { numRuns: 5000 },
+    );
+    for (const text of ["0001-01-01", "1600-02-29", "1900-02-28", "2000-02-29", "2024-12-31", "9999-12-31"])
+      expect(plainIsoDateOfKey(plainIsoDateKey(text))).toBe(text);
   });
 });

@@ -9,7 +9,10 @@ const file = (delimiter: string, header = `Date|${LOW}|${HIGH}`): string => [hea
 /** The first implementation (split all lines, count code points): the reference the faster one must equal. */
 function referenceDetect(text: string, candidates: readonly string[] = [",", ";", "\t"]): string {
   const head = text.length > 65536 ? text.slice(0, text.lastIndexOf("\n", 65536) + 1 || 65536) : text;
-  const lines = head.split(/\r\n|\n|\r/).filter((line) => line.trim() !== "").slice(0, 64);
+  const lines = head
+    .split(/\r\n|\n|\r/)
+    .filter((line) => line.trim() !== "")
+    .slice(0, 64);
   const countFields = (line: string, delimiter: string): number => {
     let fields = 1;
     let quoted = false;
@@ -25,7 +28,8 @@ function referenceDetect(text: string, candidates: readonly string[] = [",", ";"
     const tally = new Map<number, number>();
     for (const line of lines) tally.set(countFields(line, delimiter), (tally.get(countFields(line, delimiter)) ?? 0) + 1);
     let mode = { value: 1, frequency: 0 };
-    for (const [value, frequency] of tally) if (frequency > mode.frequency || (frequency === mode.frequency && value > mode.value)) mode = { value, frequency };
+    for (const [value, frequency] of tally)
+      if (frequency > mode.frequency || (frequency === mode.frequency && value > mode.value)) mode = { value, frequency };
     const score = mode.value >= 2 ? mode.frequency : 0;
     if (score > bestScore) {
       best = delimiter;
@@ -48,7 +52,11 @@ describe("delimiter detection", () => {
     );
   });
 
-  it.each([[",", "comma"], [";", "semicolon"], ["\t", "tab"]])("detects %j (%s)", (delimiter) => {
+  it.each([
+    [",", "comma"],
+    [";", "semicolon"],
+    ["\t", "tab"],
+  ])("detects %j (%s)", (delimiter) => {
     expect(detectDelimiter(file(delimiter))).toBe(delimiter);
     expect(column(readOk(file(delimiter)), HIGH)).toEqual([0.02, 0.03, -0.04]);
   });
@@ -132,7 +140,9 @@ describe("title lines and blocks", () => {
 describe("an unquoted delimiter inside a value", () => {
   it("reports a decimal comma that split a number, naming the column and the joined value", () => {
     const text = "Date,Low Fund,High Fund\n2020-01-31,0.01,0.02\n2020-02-29,0.01,-2,5\n2020-03-31,0.01,0.02\n";
-    expect(readIssues(text)).toEqual([{ code: "unquoted-delimiter", source: "returns.csv", line: 3, column: HIGH, value: "-2,5", delimiter: "," }]);
+    expect(readIssues(text)).toEqual([
+      { code: "unquoted-delimiter", source: "returns.csv", line: 3, column: HIGH, value: "-2,5", delimiter: "," },
+    ]);
   });
 
   it("reports a plain field-count error when no split number explains the extra field", () => {

@@ -17,7 +17,12 @@ const HIGH = "Kestrel High Beta";
 
 describe("fixture files", () => {
   it("reads a European export: title lines, semicolons, decimal commas, DD.MM.YYYY, percent", () => {
-    const result = read("european-semicolon.csv", { columns: [LOW, HIGH, "T-Bill"], dateFormat: "DD.MM.YYYY", decimalComma: true, units: "percent" });
+    const result = read("european-semicolon.csv", {
+      columns: [LOW, HIGH, "T-Bill"],
+      dateFormat: "DD.MM.YYYY",
+      decimalComma: true,
+      units: "percent",
+    });
     if (!result.ok) expect.fail(result.issues.map(describeInputIssue).join("\n"));
     expect(result.value.dates).toEqual(["2023-01-31", "2023-02-28", "2023-03-31", "2023-04-30"]);
     expect([...(result.value.columns.get(HIGH) ?? [])]).toEqual([2.1 / 100, -3.05 / 100, 4.55 / 100, 1.02 / 100]);
@@ -53,13 +58,22 @@ describe("fixture files", () => {
   });
 
   it("refuses ambiguous slash dates until a layout is given", () => {
-    expect(read("ambiguous-slash-dates.csv", { columns: ["Low", "High"] })).toMatchObject({ ok: false, issues: [{ code: "ambiguous-dates", line: 2 }] });
+    expect(read("ambiguous-slash-dates.csv", { columns: ["Low", "High"] })).toMatchObject({
+      ok: false,
+      issues: [{ code: "ambiguous-dates", line: 2 }],
+    });
     const dayFirst = read("ambiguous-slash-dates.csv", { columns: ["Low", "High"], dateFormat: "DD/MM/YYYY" });
     expect(dayFirst.ok && dayFirst.value.dates).toEqual(["2023-01-03", "2023-02-03", "2023-03-03"]);
   });
 
   it("refuses binary and non-UTF-8 files", () => {
-    expect(read("binary.csv", { columns: ["Low"] })).toEqual({ ok: false, issues: [{ code: "binary-content", source: "binary.csv", line: 3, offset: 54 }] });
-    expect(read("latin1.csv", { columns: ["Low"] })).toEqual({ ok: false, issues: [{ code: "invalid-encoding", source: "latin1.csv", line: 1, offset: 12 }] });
+    expect(read("binary.csv", { columns: ["Low"] })).toEqual({
+      ok: false,
+      issues: [{ code: "binary-content", source: "binary.csv", line: 3, offset: 54 }],
+    });
+    expect(read("latin1.csv", { columns: ["Low"] })).toEqual({
+      ok: false,
+      issues: [{ code: "invalid-encoding", source: "latin1.csv", line: 1, offset: 12 }],
+    });
   });
 });

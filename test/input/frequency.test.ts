@@ -12,14 +12,16 @@ describe("median", () => {
   });
 
   it("agrees with sorting on arbitrary arrays and leaves the input unchanged", () => {
-    fc.assert(fc.property(fc.array(fc.double({ noNaN: true, min: -1e6, max: 1e6 }), { minLength: 1, maxLength: 200 }), (values) => {
-      const copy = [...values];
-      const sorted = [...values].sort((a, b) => a - b);
-      const n = sorted.length;
-      const expected = n % 2 === 1 ? sorted[(n - 1) / 2] : ((sorted[n / 2 - 1] as number) + (sorted[n / 2] as number)) / 2;
-      expect(median(values)).toBe(expected);
-      expect(values).toEqual(copy);
-    }));
+    fc.assert(
+      fc.property(fc.array(fc.double({ noNaN: true, min: -1e6, max: 1e6 }), { minLength: 1, maxLength: 200 }), (values) => {
+        const copy = [...values];
+        const sorted = [...values].sort((a, b) => a - b);
+        const n = sorted.length;
+        const expected = n % 2 === 1 ? sorted[(n - 1) / 2] : ((sorted[n / 2 - 1] as number) + (sorted[n / 2] as number)) / 2;
+        expect(median(values)).toBe(expected);
+        expect(values).toEqual(copy);
+      }),
+    );
   });
 });
 
@@ -39,18 +41,31 @@ describe("detectFrequency", () => {
   });
 
   it("gives what the median of all gaps gives, with whole-day gaps counted in a histogram or not", () => {
-    const BANDS = [["daily", 0.5, 4.5], ["weekly", 5, 10], ["monthly", 25, 35], ["quarterly", 80, 100], ["annual", 350, 380]] as const;
+    const BANDS = [
+      ["daily", 0.5, 4.5],
+      ["weekly", 5, 10],
+      ["monthly", 25, 35],
+      ["quarterly", 80, 100],
+      ["annual", 350, 380],
+    ] as const;
     const reference = (keys: readonly number[]): string | null => {
       const gaps = keys.slice(1).map((k, i) => (k - (keys[i] as number)) / DAY_MS);
       const gap = median(gaps);
       return BANDS.find(([, low, high]) => gap >= low && gap <= high)?.[0] ?? null;
     };
-    const gap = fc.oneof(fc.integer({ min: 0, max: 1100 }), fc.constantFrom(1, 3, 7, 28, 30, 31, 91, 365, 366), fc.double({ min: 0, max: 400, noNaN: true }));
-    fc.assert(fc.property(fc.array(gap, { minLength: 1, maxLength: 60 }), fc.integer({ min: -1e6, max: 1e6 }), (gaps, start) => {
-      const keys = [start * DAY_MS];
-      for (const g of gaps) keys.push((keys[keys.length - 1] as number) + g * DAY_MS);
-      expect(detectFrequency(keys)?.name ?? null).toBe(reference(keys));
-    }), { numRuns: 2000 });
+    const gap = fc.oneof(
+      fc.integer({ min: 0, max: 1100 }),
+      fc.constantFrom(1, 3, 7, 28, 30, 31, 91, 365, 366),
+      fc.double({ min: 0, max: 400, noNaN: true }),
+    );
+    fc.assert(
+      fc.property(fc.array(gap, { minLength: 1, maxLength: 60 }), fc.integer({ min: -1e6, max: 1e6 }), (gaps, start) => {
+        const keys = [start * DAY_MS];
+        for (const g of gaps) keys.push((keys[keys.length - 1] as number) + g * DAY_MS);
+        expect(detectFrequency(keys)?.name ?? null).toBe(reference(keys));
+      }),
+      { numRuns: 2000 },
+    );
     // Medians that fall right on the edge of a band: (4 + 5) / 2 = 4.5 is daily, (10 + 11) / 2 is not weekly.
     expect(detectFrequency([0, 4, 9, 13, 18].map((d) => d * DAY_MS))?.name).toBe("daily");
     expect(detectFrequency([0, 10, 21].map((d) => d * DAY_MS))).toBeNull();

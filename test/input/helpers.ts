@@ -33,13 +33,17 @@ export const MONTHLY = [
   "Date,Low Fund,High Fund,Comment",
   "2020-01-31,0.01,0.02,first",
   "2020-02-29,-0.005,0.031,",
-  "2020-03-31,0.002,-0.04,\"quoted, text\"",
+  '2020-03-31,0.002,-0.04,"quoted, text"',
   "2020-04-30,0.012,0.05,x",
   "",
 ].join("\n");
 
 /** decodeText, then readReturns on the text: what reading the bytes must give. */
-export function throughText(bytes: Uint8Array, options: ReadOptions, engine: "auto" | "general" = "auto"): Result<ReturnTable, InputIssue[]> {
+export function throughText(
+  bytes: Uint8Array,
+  options: ReadOptions,
+  engine: "auto" | "general" = "auto",
+): Result<ReturnTable, InputIssue[]> {
   const text = decodeText(bytes, options.source);
   return text.ok ? readReturnsWith(text.value, options, engine) : text;
 }

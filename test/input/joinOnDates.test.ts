@@ -3,8 +3,14 @@ import { joinOnDates } from "../../src/input/joinOnDates.js";
 import type { ReturnTable } from "../../src/input/readReturns.js";
 import { readOk } from "./helpers.js";
 
-const low = readOk("Date,Low\n2020-01-31,0.01\n2020-02-29,0.02\n2020-03-31,0.03\n2020-04-30,0.04\n", { source: "low.csv", columns: ["Low"] });
-const high = readOk("Date,High\n2020-02-29,0.2\n2020-03-31,0.3\n2020-04-30,0.4\n2020-05-31,0.5\n2020-06-30,0.6\n", { source: "high.csv", columns: ["High"] });
+const low = readOk("Date,Low\n2020-01-31,0.01\n2020-02-29,0.02\n2020-03-31,0.03\n2020-04-30,0.04\n", {
+  source: "low.csv",
+  columns: ["Low"],
+});
+const high = readOk("Date,High\n2020-02-29,0.2\n2020-03-31,0.3\n2020-04-30,0.4\n2020-05-31,0.5\n2020-06-30,0.6\n", {
+  source: "high.csv",
+  columns: ["High"],
+});
 
 describe("joinOnDates", () => {
   it("keeps the dates present in every table, with counts per side and matched", () => {
@@ -31,11 +37,23 @@ describe("joinOnDates", () => {
   });
 
   it("reports too few common dates with the count of each table", () => {
-    const other: ReturnTable = readOk("Date,X\n2021-01-31,1\n2021-02-28,1\n2021-03-31,1\n", { source: "x.csv", columns: ["X"], allowExtreme: true });
+    const other: ReturnTable = readOk("Date,X\n2021-01-31,1\n2021-02-28,1\n2021-03-31,1\n", {
+      source: "x.csv",
+      columns: ["X"],
+      allowExtreme: true,
+    });
     const joined = joinOnDates([low, other]);
-    expect(joined.ok ? [] : joined.issues).toEqual([{
-      code: "too-few-common-dates", source: "low.csv + x.csv", matched: 0, required: 3,
-      counts: [{ source: "low.csv", dates: 4 }, { source: "x.csv", dates: 3 }],
-    }]);
+    expect(joined.ok ? [] : joined.issues).toEqual([
+      {
+        code: "too-few-common-dates",
+        source: "low.csv + x.csv",
+        matched: 0,
+        required: 3,
+        counts: [
+          { source: "low.csv", dates: 4 },
+          { source: "x.csv", dates: 3 },
+        ],
+      },
+    ]);
   });
 });

@@ -35,20 +35,39 @@ describe("the long layout", () => {
   });
 
   it("reports an unknown series with a suggestion and the series present", () => {
-    expect(readIssues(LONG, { ...long, columns: ["Stillwater Low", "kestrel hgh"] })).toEqual([{
-      code: "unknown-series", source: "returns.csv", column: "kestrel hgh", idColumn: "Fund",
-      available: ["Kestrel High", "Stillwater Low", "Other"], suggestion: "Kestrel High",
-    }]);
+    expect(readIssues(LONG, { ...long, columns: ["Stillwater Low", "kestrel hgh"] })).toEqual([
+      {
+        code: "unknown-series",
+        source: "returns.csv",
+        column: "kestrel hgh",
+        idColumn: "Fund",
+        available: ["Kestrel High", "Stillwater Low", "Other"],
+        suggestion: "Kestrel High",
+      },
+    ]);
   });
 
   it("reports a repeated date within a series with both lines", () => {
-    expect(readIssues(`${LONG}\n2020-01-31,Kestrel High,0.05,`, long)).toEqual([{
-      code: "duplicate-date", source: "returns.csv", line: 9, column: "Date", value: "2020-01-31", firstLine: 2, series: "Kestrel High",
-    }]);
+    expect(readIssues(`${LONG}\n2020-01-31,Kestrel High,0.05,`, long)).toEqual([
+      {
+        code: "duplicate-date",
+        source: "returns.csv",
+        line: 9,
+        column: "Date",
+        value: "2020-01-31",
+        firstLine: 2,
+        series: "Kestrel High",
+      },
+    ]);
   });
 
   it("reports an unknown id or value column", () => {
-    expect(readIssues(LONG, { ...long, valueColumn: "Returns" })[0]).toMatchObject({ code: "unknown-column", column: "Returns", role: "series value", suggestion: "Return" });
+    expect(readIssues(LONG, { ...long, valueColumn: "Returns" })[0]).toMatchObject({
+      code: "unknown-column",
+      column: "Returns",
+      role: "series value",
+      suggestion: "Return",
+    });
   });
 
   it("needs both the id and the value column", () => {

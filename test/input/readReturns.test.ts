@@ -53,8 +53,16 @@ describe("readReturns: the basic layout", () => {
 describe("readReturns: missing values", () => {
   it("drops rows with a missing value and counts them with their dates", () => {
     const text = [
-      "Date,Low Fund,High Fund", "2020-01-31,0.01,", "2020-02-29,NA,0.02", "2020-03-31,nan,0.02", "2020-04-30,0.01,null",
-      "2020-05-31,N/A,0.03", "2020-06-30,n/a,0.01", "2020-07-31,0.01,0.02", "2020-08-31,0.02,0.03", "2020-09-30,0.03,0.04",
+      "Date,Low Fund,High Fund",
+      "2020-01-31,0.01,",
+      "2020-02-29,NA,0.02",
+      "2020-03-31,nan,0.02",
+      "2020-04-30,0.01,null",
+      "2020-05-31,N/A,0.03",
+      "2020-06-30,n/a,0.01",
+      "2020-07-31,0.01,0.02",
+      "2020-08-31,0.02,0.03",
+      "2020-09-30,0.03,0.04",
     ].join("\n");
     const table = readOk(text);
     expect(table.dates).toEqual(["2020-07-31", "2020-08-31", "2020-09-30"]);
@@ -98,8 +106,13 @@ describe("readReturns: errors", () => {
     const [issue, ...rest] = readIssues(MONTHLY, { columns: ["low fund", "High Fund"] });
     expect(rest).toEqual([]);
     expect(issue).toEqual({
-      code: "unknown-column", source: "returns.csv", line: 1, column: "low fund", role: "value",
-      available: ["Date", "Low Fund", "High Fund", "Comment"], suggestion: "Low Fund",
+      code: "unknown-column",
+      source: "returns.csv",
+      line: 1,
+      column: "low fund",
+      role: "value",
+      available: ["Date", "Low Fund", "High Fund", "Comment"],
+      suggestion: "Low Fund",
     });
   });
 
@@ -125,14 +138,24 @@ describe("readReturns: errors", () => {
 
   it("reports duplicate dates with both lines", () => {
     const text = "Date,Low Fund,High Fund\n2020-01-31,0.01,0.02\n2020-02-29,0.01,0.02\n2020-02-29,0.01,0.02\n2020-03-31,0.01,0.02\n";
-    expect(readIssues(text)).toEqual([{ code: "duplicate-date", source: "returns.csv", line: 4, column: "Date", value: "2020-02-29", firstLine: 3 }]);
+    expect(readIssues(text)).toEqual([
+      { code: "duplicate-date", source: "returns.csv", line: 4, column: "Date", value: "2020-02-29", firstLine: 3 },
+    ]);
   });
 
   it("reports unsorted dates with the previous date and its line", () => {
     const text = "Date,Low Fund,High Fund\n2020-01-31,0.01,0.02\n2020-03-31,0.01,0.02\n2020-02-29,0.01,0.02\n2020-04-30,0.01,0.02\n";
-    expect(readIssues(text)).toEqual([{
-      code: "unsorted-dates", source: "returns.csv", line: 4, column: "Date", value: "2020-02-29", previousValue: "2020-03-31", previousLine: 3,
-    }]);
+    expect(readIssues(text)).toEqual([
+      {
+        code: "unsorted-dates",
+        source: "returns.csv",
+        line: 4,
+        column: "Date",
+        value: "2020-02-29",
+        previousValue: "2020-03-31",
+        previousLine: 3,
+      },
+    ]);
   });
 
   it("reports a date that is not a date, or not a real calendar day", () => {
@@ -154,7 +177,11 @@ describe("readReturns: errors", () => {
   it("checks the extreme-value limit after the percent conversion", () => {
     const text = "Date,Low Fund,High Fund\n2020-01-31,1,2\n2020-02-29,900,2\n2020-03-31,1,2\n";
     expect(readOk(text, { units: "percent" }).dates).toHaveLength(3);
-    expect(readIssues(text.replace("900", "1001"), { units: "percent" })[0]).toMatchObject({ code: "extreme-value", line: 3, value: "1001" });
+    expect(readIssues(text.replace("900", "1001"), { units: "percent" })[0]).toMatchObject({
+      code: "extreme-value",
+      line: 3,
+      value: "1001",
+    });
   });
 
   it("reports invalid options before reading", () => {
@@ -162,8 +189,13 @@ describe("readReturns: errors", () => {
     expect(readIssues(MONTHLY, { columns: [LOW, LOW] })[0]).toMatchObject({ code: "invalid-option", option: "columns" });
     expect(readIssues(MONTHLY, { delimiter: ";;" })[0]).toMatchObject({ code: "invalid-option", option: "delimiter" });
     expect(readIssues(MONTHLY, { block: 0 })[0]).toMatchObject({ code: "invalid-option", option: "block" });
-    expect(readIssues(MONTHLY, { columns: ["Date", LOW] })).toEqual([{ code: "invalid-option", source: "returns.csv", option: "columns", reason: '"Date" is the date column' }]);
-    expect(readIssues(MONTHLY, { decimalComma: true, delimiter: "," })[0]).toMatchObject({ code: "invalid-option", option: "decimalComma" });
+    expect(readIssues(MONTHLY, { columns: ["Date", LOW] })).toEqual([
+      { code: "invalid-option", source: "returns.csv", option: "columns", reason: '"Date" is the date column' },
+    ]);
+    expect(readIssues(MONTHLY, { decimalComma: true, delimiter: "," })[0]).toMatchObject({
+      code: "invalid-option",
+      option: "decimalComma",
+    });
   });
 
   it("reports broken quoting with its line", () => {

@@ -2,7 +2,13 @@ import { describe, expect, it } from "vitest";
 import { closestName, editDistance } from "../../src/input/suggest.js";
 
 describe("editDistance", () => {
-  it.each([["", "", 0], ["abc", "", 3], ["kitten", "sitting", 3], ["Low", "Low", 0], ["flaw", "lawn", 2]])("between %j and %j is %i", (a, b, d) => {
+  it.each([
+    ["", "", 0],
+    ["abc", "", 3],
+    ["kitten", "sitting", 3],
+    ["Low", "Low", 0],
+    ["flaw", "lawn", 2],
+  ])("between %j and %j is %i", (a, b, d) => {
     expect(editDistance(a, b)).toBe(d);
     expect(editDistance(b, a)).toBe(d);
   });

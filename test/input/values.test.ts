@@ -7,13 +7,17 @@ const withValues = (low: string[], high: string[]): string => file(low.map((l, i
 
 describe("missing-value sentinels", () => {
   it("treats numeric sentinels as missing, whatever their spelling", () => {
-    const table = readOk(withValues(["0.01", "-99.99", "0.02", "0.03", "-99.990"], ["0.1", "0.2", "0.3", "0.4", "0.5"]), { missing: ["-99.99"] });
+    const table = readOk(withValues(["0.01", "-99.99", "0.02", "0.03", "-99.990"], ["0.1", "0.2", "0.3", "0.4", "0.5"]), {
+      missing: ["-99.99"],
+    });
     expect(table.dates).toEqual(["2020-01-31", "2020-03-31", "2020-04-30"]);
     expect(table.dropped).toEqual({ count: 2, firstDates: ["2020-02-29", "2020-05-31"] });
   });
 
   it("treats text sentinels as missing, case-insensitively", () => {
-    const table = readOk(withValues(["0.01", "#N/A", "0.02", "0.03", "0.04"], ["0.1", "0.2", "0.3", "-", "0.5"]), { missing: ["#n/a", "-"] });
+    const table = readOk(withValues(["0.01", "#N/A", "0.02", "0.03", "0.04"], ["0.1", "0.2", "0.3", "-", "0.5"]), {
+      missing: ["#n/a", "-"],
+    });
     expect(table.dropped.count).toBe(2);
   });
 
@@ -22,7 +26,9 @@ describe("missing-value sentinels", () => {
   });
 
   it("reports every missing value with onMissing error", () => {
-    expect(readIssues(withValues(["0.01", "", "0.02", "NA"], ["0.1", "0.2", "-99", "0.4"]), { onMissing: "error", missing: ["-99"] })).toEqual([
+    expect(
+      readIssues(withValues(["0.01", "", "0.02", "NA"], ["0.1", "0.2", "-99", "0.4"]), { onMissing: "error", missing: ["-99"] }),
+    ).toEqual([
       { code: "missing-value", source: "returns.csv", line: 3, column: LOW, value: "" },
       { code: "missing-value", source: "returns.csv", line: 4, column: HIGH, value: "-99" },
       { code: "missing-value", source: "returns.csv", line: 5, column: LOW, value: "NA" },
@@ -57,7 +63,10 @@ describe("prices and log returns", () => {
   });
 
   it("drops both returns that need a missing price", () => {
-    const table = readOk(file(["2020-01-31,100,1", "2020-02-29,110,1", "2020-03-31,,1", "2020-04-30,99,1", "2020-05-31,100,1", "2020-06-30,90,1"]), { input: "prices" });
+    const table = readOk(
+      file(["2020-01-31,100,1", "2020-02-29,110,1", "2020-03-31,,1", "2020-04-30,99,1", "2020-05-31,100,1", "2020-06-30,90,1"]),
+      { input: "prices" },
+    );
     expect(table.dates).toEqual(["2020-02-29", "2020-05-31", "2020-06-30"]);
     expect(column(table, LOW)).toEqual([110 / 100 - 1, 100 / 99 - 1, 90 / 100 - 1]);
     expect(table.dropped).toEqual({ count: 2, firstDates: ["2020-03-31", "2020-04-30"] });
@@ -70,7 +79,10 @@ describe("prices and log returns", () => {
   });
 
   it("refuses percent units for prices", () => {
-    expect(readIssues(withValues(["1", "2", "3"], ["1", "2", "3"]), { input: "prices", units: "percent" })[0]).toMatchObject({ code: "invalid-option", option: "units" });
+    expect(readIssues(withValues(["1", "2", "3"], ["1", "2", "3"]), { input: "prices", units: "percent" })[0]).toMatchObject({
+      code: "invalid-option",
+      option: "units",
+    });
   });
 
   it("turns log returns into simple returns with expm1", () => {
@@ -80,6 +92,11 @@ describe("prices and log returns", () => {
   });
 
   it("checks the extreme-value limit on the simple returns", () => {
-    expect(readIssues(withValues(["0.01", "2.5", "0"], ["0", "0", "0"]), { input: "log-returns" })[0]).toMatchObject({ code: "extreme-value", line: 3, value: "2.5", decimalValue: Math.expm1(2.5) });
+    expect(readIssues(withValues(["0.01", "2.5", "0"], ["0", "0", "0"]), { input: "log-returns" })[0]).toMatchObject({
+      code: "extreme-value",
+      line: 3,
+      value: "2.5",
+      decimalValue: Math.expm1(2.5),
+    });
   });
 });

@@ -59,7 +59,9 @@ describe("renderCsv", () => {
 
   test("there is one row per grid step, then one per landmark, named in the point column", () => {
     const solution = typicalSolution();
-    const points = records(renderCsv(reportOf(solution), plain)).slice(1).map((r) => r[0]);
+    const points = records(renderCsv(reportOf(solution), plain))
+      .slice(1)
+      .map((r) => r[0]);
     expect(points).toEqual([...solution.grid.map((_, i) => `grid-${i + 1}`), ...landmarkNames]);
     expect(points).toHaveLength(11 + 5);
   });

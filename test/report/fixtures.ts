@@ -67,7 +67,11 @@ export const input: InputDescription = {
   frequency: { name: "monthly", periodsPerYear: 12 },
 };
 
-export function reportOf(solution: Solution, overrides: Partial<InputDescription> = {}, uncertainty: Uncertainty | null = null): SolveReport {
+export function reportOf(
+  solution: Solution,
+  overrides: Partial<InputDescription> = {},
+  uncertainty: Uncertainty | null = null,
+): SolveReport {
   const rowsRead = solution.observations + input.rowsDropped;
   return { tool: { name: "betabound", version: "0.1.0-test" }, input: { ...input, rowsRead, ...overrides }, solution, uncertainty };
 }

@@ -36,7 +36,13 @@ describe("formatNumber", () => {
 
 describe("layout", () => {
   test("tables left-align the first column, right-align the rest and bottom-align split headings", () => {
-    const lines = table({ header: ["", "a\nlong", "b"], rows: [["x", "1", "22"], ["yy", "333", "4"]] });
+    const lines = table({
+      header: ["", "a\nlong", "b"],
+      rows: [
+        ["x", "1", "22"],
+        ["yy", "333", "4"],
+      ],
+    });
     expect(lines).toEqual(["         a", "      long   b", "  x      1  22", "  yy   333   4"]);
   });
 
@@ -52,7 +58,12 @@ describe("layout", () => {
   });
 
   test("fields pad labels to a common width", () => {
-    expect(fields([["a", "1"], ["long", "2"]])).toEqual(["  a     1", "  long  2"]);
+    expect(
+      fields([
+        ["a", "1"],
+        ["long", "2"],
+      ]),
+    ).toEqual(["  a     1", "  long  2"]);
   });
 
   test("printable escapes control characters and keeps everything else", () => {
@@ -64,7 +75,11 @@ describe("layout", () => {
     const off = styleFor({ colour: false });
     expect([off.heading("h"), off.warning("w"), off.error("e")]).toEqual(["h", "w", "e"]);
     const on = styleFor({ colour: true });
-    expect([on.heading("h"), on.warning("w"), on.error("e")]).toEqual(["\u001b[1mh\u001b[0m", "\u001b[33mw\u001b[0m", "\u001b[31me\u001b[0m"]);
+    expect([on.heading("h"), on.warning("w"), on.error("e")]).toEqual([
+      "\u001b[1mh\u001b[0m",
+      "\u001b[33mw\u001b[0m",
+      "\u001b[31me\u001b[0m",
+    ]);
   });
 });
 

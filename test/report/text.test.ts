@@ -32,7 +32,10 @@ describe("renderText", () => {
     const text = renderText(reportOf(typicalSolution()), plain);
     expect(text.split("\n")[0]).toMatch(/^betabound 0\.1\.0-test: /);
     const positions = headingOrder(text, sectionHeadings);
-    expect(positions.every((p) => p > 0), `missing heading: ${sectionHeadings[positions.indexOf(-1)]}`).toBe(true);
+    expect(
+      positions.every((p) => p > 0),
+      `missing heading: ${sectionHeadings[positions.indexOf(-1)]}`,
+    ).toBe(true);
     expect([...positions].sort((a, b) => a - b)).toEqual(positions);
     expect(text.indexOf(cautionLine)).toBeGreaterThan(text.indexOf("\nAssumptions\n"));
     expect(text.indexOf("Conventions: decimal units per period")).toBeGreaterThan(text.indexOf(cautionLine));
@@ -79,7 +82,9 @@ describe("renderText", () => {
 
   test("says every candidate reproduces the observed CAPM fits, with the largest relative difference", () => {
     const text = renderText(reportOf(typicalSolution()), plain);
-    expect(text).toMatch(/Check: every candidate reproduces the observed CAPM betas and residual variances \(largest\s+relative difference across the grid: (\d\.\de-\d+|0)\)/);
+    expect(text).toMatch(
+      /Check: every candidate reproduces the observed CAPM betas and residual variances \(largest\s+relative difference across the grid: (\d\.\de-\d+|0)\)/,
+    );
   });
 
   test("flags a grid that does not reproduce the CAPM fits", () => {
@@ -113,11 +118,23 @@ describe("renderText", () => {
   test("the input section names the file, columns, risk-free, units, dates, frequency and dropped rows", () => {
     const report = reportOf(typicalSolution(), { droppedDates: ["d1", "d2", "d3", "d4", "d5", "d6"], rowsDropped: 9 });
     const text = renderText(report, plain);
-    for (const piece of ["examples/books.csv", '"Low Vol"', '"High Beta"', '"Date"', "0.001 per period", "percent", "2019-01-31 to 2023-12-31", "monthly (12 periods per year)"]) {
+    for (const piece of [
+      "examples/books.csv",
+      '"Low Vol"',
+      '"High Beta"',
+      '"Date"',
+      "0.001 per period",
+      "percent",
+      "2019-01-31 to 2023-12-31",
+      "monthly (12 periods per year)",
+    ]) {
       expect(text).toContain(piece);
     }
     expect(text).toContain("9 with a missing value; first: d1, d2, d3, d4, d5, and 4 more");
-    const none = renderText(reportOf(typicalSolution(), { rowsDropped: 0, droppedDates: [], frequency: null, riskFree: { kind: "none" } }), plain);
+    const none = renderText(
+      reportOf(typicalSolution(), { rowsDropped: 0, droppedDates: [], frequency: null, riskFree: { kind: "none" } }),
+      plain,
+    );
     expect(none).toMatch(/Dropped rows +none\n/);
     expect(none).toContain("could not be told from the dates");
     expect(none).toContain("returns are raw");

@@ -17,28 +17,49 @@ function expectedRow(w: WindowSolution): number[] {
   const b = w.bounds;
   const m = w.landmarks;
   return [
-    s.lowMean, s.highMean, s.lowVariance, s.highVariance, s.covariance, w.market.mean, w.market.variance,
-    ...line("low"), ...line("high"),
-    b?.lowBeta.min, b?.lowBeta.max, b?.highBeta.min, b?.highBeta.max, b?.factorVariance.min, b?.factorVariance.max,
-    m?.lowNoiseFree.lowBeta, m?.highNoiseFree.lowBeta, m?.equalNoise.lowBeta, m?.capmConsistent.lowBeta, m?.returnImplied?.lowBeta,
+    s.lowMean,
+    s.highMean,
+    s.lowVariance,
+    s.highVariance,
+    s.covariance,
+    w.market.mean,
+    w.market.variance,
+    ...line("low"),
+    ...line("high"),
+    b?.lowBeta.min,
+    b?.lowBeta.max,
+    b?.highBeta.min,
+    b?.highBeta.max,
+    b?.factorVariance.min,
+    b?.factorVariance.max,
+    m?.lowNoiseFree.lowBeta,
+    m?.highNoiseFree.lowBeta,
+    m?.equalNoise.lowBeta,
+    m?.capmConsistent.lowBeta,
+    m?.returnImplied?.lowBeta,
   ].map((x) => x ?? Number.NaN);
 }
 
 describe.each(dataSets(600).map((data) => ({ name: data.name, data })))("rollSolveColumns on $name", ({ data }) => {
-  test.each(specs.map((spec) => ({ label: describeSpec(spec), spec })))("every window ($label) holds exactly rollSolve's numbers, NaN where it has null", ({ spec }) => {
-    const records = rollSolve(data.low, data.high, data.riskFree, 0.5, spec);
-    const table = rollSolveColumns(data.low, data.high, data.riskFree, 0.5, spec);
-    expect(table.count).toBe(records.length);
-    const mismatches: string[] = [];
-    records.forEach((w, k) => {
-      if (table.start[k] !== w.start || table.end[k] !== w.end || table.observations[k] !== w.observations) mismatches.push(`${k}: indices`);
-      expectedRow(w).forEach((value, j) => {
-        const name = windowColumnNames[j]!;
-        if (!Object.is(table.columns[name][k], value)) mismatches.push(`[${w.start}, ${w.end}] ${name}: ${table.columns[name][k]} vs ${value}`);
+  test.each(specs.map((spec) => ({ label: describeSpec(spec), spec })))(
+    "every window ($label) holds exactly rollSolve's numbers, NaN where it has null",
+    ({ spec }) => {
+      const records = rollSolve(data.low, data.high, data.riskFree, 0.5, spec);
+      const table = rollSolveColumns(data.low, data.high, data.riskFree, 0.5, spec);
+      expect(table.count).toBe(records.length);
+      const mismatches: string[] = [];
+      records.forEach((w, k) => {
+        if (table.start[k] !== w.start || table.end[k] !== w.end || table.observations[k] !== w.observations)
+          mismatches.push(`${k}: indices`);
+        expectedRow(w).forEach((value, j) => {
+          const name = windowColumnNames[j]!;
+          if (!Object.is(table.columns[name][k], value))
+            mismatches.push(`[${w.start}, ${w.end}] ${name}: ${table.columns[name][k]} vs ${value}`);
+        });
       });
-    });
-    expect(mismatches.slice(0, 10)).toEqual([]);
-  });
+      expect(mismatches.slice(0, 10)).toEqual([]);
+    },
+  );
 });
 
 test("a window rollSolve rejects for a constant book has NaN bounds and landmarks in the columns", () => {

@@ -38,7 +38,10 @@ export function riskFreeSeries(n: number): Float64Array {
  */
 export function dataSets(n = 1200, burstScale = 1e4): DataSet[] {
   const daily = simulateSample(dailyStructure, { periods: n, seed: 11 });
-  const tiny = simulateSample({ ...dailyStructure, factorVol: 1e-9, lowNoiseVol: 4e-10, highNoiseVol: 6e-10 }, { periods: n, seed: 12, riskFree: 0.01 });
+  const tiny = simulateSample(
+    { ...dailyStructure, factorVol: 1e-9, lowNoiseVol: 4e-10, highNoiseVol: 6e-10 },
+    { periods: n, seed: 12, riskFree: 0.01 },
+  );
   const walk = simulateSample(dailyStructure, { periods: n, seed: 13 });
   const level = (x: Float64Array): Float64Array => {
     const out = new Float64Array(x.length);

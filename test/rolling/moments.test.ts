@@ -40,7 +40,8 @@ describe.each(dataSets().map((data) => ({ name: data.name, data })))("rolling mo
 describe("window placement", () => {
   const n = 100;
   const data = dataSets(n)[0]!;
-  const spans = (spec: WindowSpec) => rollingMoments(data.low, data.high, data.riskFree, 0.5, spec).map((w) => [w.start, w.end, w.observations]);
+  const spans = (spec: WindowSpec) =>
+    rollingMoments(data.low, data.high, data.riskFree, 0.5, spec).map((w) => [w.start, w.end, w.observations]);
 
   test("sliding windows start at row 0 and advance by step; a trailing partial window is not reported", () => {
     expect(spans({ kind: "window", size: 30, step: 25 })).toEqual([

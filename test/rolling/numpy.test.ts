@@ -43,40 +43,45 @@ const fixture = JSON.parse(readFileSync(new URL("../fixtures/rolling/rolling_exp
 
 const rel = 1e-10;
 
-describe.each(fixture.cases.map((c) => ({ label: `${c.spec.kind}, w = ${c.weight}`, c })))("rollSolve on the numpy fixture ($label)", ({ c }) => {
-  const windows = rollSolve(fixture.data.low, fixture.data.high, fixture.data.riskFree, c.weight, c.spec);
+describe.each(fixture.cases.map((c) => ({ label: `${c.spec.kind}, w = ${c.weight}`, c })))(
+  "rollSolve on the numpy fixture ($label)",
+  ({ c }) => {
+    const windows = rollSolve(fixture.data.low, fixture.data.high, fixture.data.riskFree, c.weight, c.spec);
 
-  test("reports the windows numpy enumerates, with their rows and counts (generate_rolling.py)", () => {
-    expect(windows.map((w) => [w.start, w.end, w.observations])).toEqual(c.windows.map((e) => [e.start, e.end, e.observations]));
-  });
-
-  test("moments, CAPM fits, bounds and landmark betas of each window match numpy to 1e-10 (generate_rolling.py)", () => {
-    const bad = new Mismatches();
-    c.windows.forEach((e, i) => {
-      const w = windows[i]!;
-      const at = `[${e.start}, ${e.end}]`;
-      for (const key of ["lowMean", "highMean", "lowVariance", "highVariance", "covariance"] as const) bad.check(`${at} ${key}`, w.summary[key], e.summary[key], rel);
-      bad.check(`${at} market mean`, w.market.mean, e.market.mean, rel);
-      bad.check(`${at} market variance`, w.market.variance, e.market.variance, rel);
-      for (const book of ["low", "high"] as const) {
-        const a = w.capm?.[book];
-        const x = e.capm[book];
-        const ybar = book === "low" ? e.summary.lowMean : e.summary.highMean;
-        bad.check(`${at} ${book} alpha`, a?.alpha, x.alpha, rel, rel * (Math.abs(ybar) + Math.abs(x.beta * e.market.mean)));
-        for (const key of ["beta", "alphaStdErr", "betaStdErr", "rSquared", "residualVariance"] as const) bad.check(`${at} ${book} ${key}`, a?.[key], x[key], rel);
-      }
-      for (const key of ["lowBeta", "highBeta", "factorVariance"] as const) {
-        bad.check(`${at} bounds.${key}.min`, w.bounds?.[key].min, e.bounds[key].min, rel);
-        bad.check(`${at} bounds.${key}.max`, w.bounds?.[key].max, e.bounds[key].max, rel);
-      }
-      for (const name of landmarkNames) {
-        const expected = e.landmarkLowBetas[name];
-        const actual = w.landmarks?.[name]?.lowBeta ?? null;
-        if (expected === null || actual === null) {
-          if (expected !== actual) bad.list.push(`${at} ${name}: ${actual} vs numpy ${expected}`);
-        } else bad.check(`${at} ${name}.lowBeta`, actual, expected, rel);
-      }
+    test("reports the windows numpy enumerates, with their rows and counts (generate_rolling.py)", () => {
+      expect(windows.map((w) => [w.start, w.end, w.observations])).toEqual(c.windows.map((e) => [e.start, e.end, e.observations]));
     });
-    expect(bad.head()).toEqual([]);
-  });
-});
+
+    test("moments, CAPM fits, bounds and landmark betas of each window match numpy to 1e-10 (generate_rolling.py)", () => {
+      const bad = new Mismatches();
+      c.windows.forEach((e, i) => {
+        const w = windows[i]!;
+        const at = `[${e.start}, ${e.end}]`;
+        for (const key of ["lowMean", "highMean", "lowVariance", "highVariance", "covariance"] as const)
+          bad.check(`${at} ${key}`, w.summary[key], e.summary[key], rel);
+        bad.check(`${at} market mean`, w.market.mean, e.market.mean, rel);
+        bad.check(`${at} market variance`, w.market.variance, e.market.variance, rel);
+        for (const book of ["low", "high"] as const) {
+          const a = w.capm?.[book];
+          const x = e.capm[book];
+          const ybar = book === "low" ? e.summary.lowMean : e.summary.highMean;
+          bad.check(`${at} ${book} alpha`, a?.alpha, x.alpha, rel, rel * (Math.abs(ybar) + Math.abs(x.beta * e.market.mean)));
+          for (const key of ["beta", "alphaStdErr", "betaStdErr", "rSquared", "residualVariance"] as const)
+            bad.check(`${at} ${book} ${key}`, a?.[key], x[key], rel);
+        }
+        for (const key of ["lowBeta", "highBeta", "factorVariance"] as const) {
+          bad.check(`${at} bounds.${key}.min`, w.bounds?.[key].min, e.bounds[key].min, rel);
+          bad.check(`${at} bounds.${key}.max`, w.bounds?.[key].max, e.bounds[key].max, rel);
+        }
+        for (const name of landmarkNames) {
+          const expected = e.landmarkLowBetas[name];
+          const actual = w.landmarks?.[name]?.lowBeta ?? null;
+          if (expected === null || actual === null) {
+            if (expected !== actual) bad.list.push(`${at} ${name}: ${actual} vs numpy ${expected}`);
+          } else bad.check(`${at} ${name}.lowBeta`, actual, expected, rel);
+        }
+      });
+      expect(bad.head()).toEqual([]);
+    });
+  },
+);

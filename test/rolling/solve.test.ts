@@ -87,7 +87,9 @@ function reference(data: DataSet, start: number, end: number): Solution | string
   if (!raw.ok) return raw.issues.map((d) => d.code).join(",");
   if (data.level === 0) return raw.value;
   const c = data.level;
-  const shifted = solve(windowSample({ ...data, low: data.low.map((x) => x - c), high: data.high.map((x) => x - c) }, start, end), { weight: 0.5 });
+  const shifted = solve(windowSample({ ...data, low: data.low.map((x) => x - c), high: data.high.map((x) => x - c) }, start, end), {
+    weight: 0.5,
+  });
   if (!shifted.ok) return shifted.issues.map((d) => d.code).join(",");
   const s = shifted.value;
   const n = s.observations;
@@ -102,7 +104,8 @@ function reference(data: DataSet, start: number, end: number): Solution | string
     ...s,
     moments: { ...s.moments, low: raw.value.moments.low, high: raw.value.moments.high, market: { ...s.moments.market, mean: marketMean } },
     capm: { low: line(s.capm.low), high: line(s.capm.high) },
-    landmarks: s.landmarks === null || raw.value.landmarks === null ? null : { ...s.landmarks, returnImplied: raw.value.landmarks.returnImplied },
+    landmarks:
+      s.landmarks === null || raw.value.landmarks === null ? null : { ...s.landmarks, returnImplied: raw.value.landmarks.returnImplied },
     diagnostics: raw.value.diagnostics,
   };
 }
@@ -168,7 +171,17 @@ describe("rollSolve records", () => {
   const solved = solve(windowSample(data, 0, 99));
 
   test("a record has the window's indices, counts, moments, CAPM fits, bounds, landmarks and diagnostics", () => {
-    expect(Object.keys(first ?? {}).sort()).toEqual(["bounds", "capm", "diagnostics", "end", "landmarks", "market", "observations", "start", "summary"]);
+    expect(Object.keys(first ?? {}).sort()).toEqual([
+      "bounds",
+      "capm",
+      "diagnostics",
+      "end",
+      "landmarks",
+      "market",
+      "observations",
+      "start",
+      "summary",
+    ]);
   });
 
   test("landmarks are full candidates with solve's field names", () => {
@@ -186,7 +199,14 @@ describe("rollSolve records", () => {
   });
 
   test("CAPM lines carry solve's LineFit field names for the fields they report", () => {
-    expect(Object.keys(first?.capm?.low ?? {}).sort()).toEqual(["alpha", "alphaStdErr", "beta", "betaStdErr", "rSquared", "residualVariance"]);
+    expect(Object.keys(first?.capm?.low ?? {}).sort()).toEqual([
+      "alpha",
+      "alphaStdErr",
+      "beta",
+      "betaStdErr",
+      "rSquared",
+      "residualVariance",
+    ]);
   });
 });
 

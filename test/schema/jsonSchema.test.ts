@@ -25,8 +25,21 @@ describe("solveOutputJsonSchema", () => {
     expect(schema.$schema).toBe("https://json-schema.org/draft/2020-12/schema");
     expect(Object.keys(schema.$defs as object).sort()).toEqual(
       [
-        "BetaInterval", "Bootstrap", "Candidate", "CapmFit", "CapmHac", "Diagnostic", "HacSettings", "IdentifiedBounds", "Input",
-        "Interval", "Landmarks", "PointwiseBound", "SeriesMoments", "SharpeRatio", "Uncertainty",
+        "BetaInterval",
+        "Bootstrap",
+        "Candidate",
+        "CapmFit",
+        "CapmHac",
+        "Diagnostic",
+        "HacSettings",
+        "IdentifiedBounds",
+        "Input",
+        "Interval",
+        "Landmarks",
+        "PointwiseBound",
+        "SeriesMoments",
+        "SharpeRatio",
+        "Uncertainty",
       ].sort(),
     );
   });

@@ -32,8 +32,7 @@ function typeOf(value: unknown): string {
   return typeof value;
 }
 
-const hasType = (value: unknown, type: string): boolean =>
-  typeOf(value) === type || (type === "number" && typeOf(value) === "integer");
+const hasType = (value: unknown, type: string): boolean => typeOf(value) === type || (type === "number" && typeOf(value) === "integer");
 
 /** Returns the validation errors of `value` against `schema` (empty when valid). */
 export function validate(root: Schema, value: unknown, schema: Schema = root, path = "$"): string[] {

@@ -11,17 +11,7 @@ import { readFileSync } from "node:fs";
 const fixtureDir = new URL("../fixtures/nist-strd/", import.meta.url);
 
 /** The nine univariate summary-statistics sets. */
-export const univariateSetNames = [
-  "NumAcc1",
-  "NumAcc2",
-  "NumAcc3",
-  "NumAcc4",
-  "PiDigits",
-  "Lew",
-  "Lottery",
-  "Mavro",
-  "Michelso",
-] as const;
+export const univariateSetNames = ["NumAcc1", "NumAcc2", "NumAcc3", "NumAcc4", "PiDigits", "Lew", "Lottery", "Mavro", "Michelso"] as const;
 export type UnivariateSetName = (typeof univariateSetNames)[number];
 
 export interface UnivariateSet {

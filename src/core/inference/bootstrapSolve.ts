@@ -129,7 +129,13 @@ interface PrefixSums {
 
 function prefixSums(low: Float64Array, high: Float64Array, lowMean: number, highMean: number): PrefixSums {
   const n = low.length;
-  const arrays = { x: new Float64Array(2 * n + 1), y: new Float64Array(2 * n + 1), xx: new Float64Array(2 * n + 1), yy: new Float64Array(2 * n + 1), xy: new Float64Array(2 * n + 1) };
+  const arrays = {
+    x: new Float64Array(2 * n + 1),
+    y: new Float64Array(2 * n + 1),
+    xx: new Float64Array(2 * n + 1),
+    yy: new Float64Array(2 * n + 1),
+    xy: new Float64Array(2 * n + 1),
+  };
   const targets = [arrays.x, arrays.y, arrays.xx, arrays.yy, arrays.xy];
   const sum = new Float64Array(5);
   const carry = new Float64Array(5);

@@ -9,7 +9,14 @@
  * says how many remained. With fewer than 2 the interval and standard error are null.
  */
 
-import { bootstrapRange, mergeBootstrapRanges, resolveBlockLength, type BootstrapData, type BootstrapPlan, type BootstrapRange } from "./bootstrapSolve.js";
+import {
+  bootstrapRange,
+  mergeBootstrapRanges,
+  resolveBlockLength,
+  type BootstrapData,
+  type BootstrapPlan,
+  type BootstrapRange,
+} from "./bootstrapSolve.js";
 import { bootstrapQuantities, type BootstrapQuantity } from "./bootstrapStatistics.js";
 
 export interface PercentileInterval {

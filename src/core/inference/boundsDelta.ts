@@ -38,7 +38,12 @@ export interface BoundsDelta {
 
 export interface BoundsDeltaFromData extends BoundsDelta {
   readonly omega: Matrix;
-  readonly longRun: { readonly method: LongRunMethod; readonly kernel: HacKernel | null; readonly bandwidth: number | null; readonly lags: number | null };
+  readonly longRun: {
+    readonly method: LongRunMethod;
+    readonly kernel: HacKernel | null;
+    readonly bandwidth: number | null;
+    readonly lags: number | null;
+  };
 }
 
 /** Gradients of (Lb, U) with respect to (V_low, V_high, C). */

@@ -9,7 +9,15 @@ export { kernelValue, lagWeights } from "./kernels.js";
 export { andrews1991Bandwidth, neweyWest1994Bandwidth } from "./bandwidth.js";
 export { prewhitenVar1, type Prewhitened } from "./prewhiten.js";
 export { leastSquares, classicalCovariance, type LeastSquaresFit } from "./leastSquares.js";
-export { boundGradients, boundsDelta, boundsDeltaFromData, momentSeries, type BoundsDelta, type BoundsDeltaFromData, type SecondMoments } from "./boundsDelta.js";
+export {
+  boundGradients,
+  boundsDelta,
+  boundsDeltaFromData,
+  momentSeries,
+  type BoundsDelta,
+  type BoundsDeltaFromData,
+  type SecondMoments,
+} from "./boundsDelta.js";
 export { imbensManskiCriticalValue, imbensManskiInterval, type BoundsEstimate, type ParameterInterval } from "./imbensManski.js";
 export { stoyeInterval, stoyeProbability, type StoyeInput } from "./stoye.js";
 export { normalCdf, normalPdf, normalQuantile, normalSurvival } from "./normal.js";
@@ -28,4 +36,11 @@ export {
   type BootstrapPlan,
   type BootstrapRange,
 } from "./bootstrapSolve.js";
-export { bootstrapSolve, quantileSorted, summariseBootstrap, type BootstrapSolveOptions, type BootstrapSummary, type PercentileInterval } from "./bootstrapSummary.js";
+export {
+  bootstrapSolve,
+  quantileSorted,
+  summariseBootstrap,
+  type BootstrapSolveOptions,
+  type BootstrapSummary,
+  type PercentileInterval,
+} from "./bootstrapSummary.js";

@@ -65,20 +65,51 @@ function laggedCrossProducts(columns: readonly Float64Array[], j: number, totals
     totals[0] = s;
   } else if (k === 2) {
     const [u, v] = columns as [Float64Array, Float64Array];
-    let uu = 0, uv = 0, vu = 0, vv = 0;
+    let uu = 0,
+      uv = 0,
+      vu = 0,
+      vv = 0;
     for (let t = 0; t < end; t++) {
-      const a = u[t]!, b = v[t]!, c = u[t + j]!, d = v[t + j]!;
-      uu += a * c; uv += a * d; vu += b * c; vv += b * d;
+      const a = u[t]!,
+        b = v[t]!,
+        c = u[t + j]!,
+        d = v[t + j]!;
+      uu += a * c;
+      uv += a * d;
+      vu += b * c;
+      vv += b * d;
     }
-    totals[0] = uu; totals[1] = uv; totals[2] = vu; totals[3] = vv;
+    totals[0] = uu;
+    totals[1] = uv;
+    totals[2] = vu;
+    totals[3] = vv;
   } else if (k === 3) {
     const [u, v, x] = columns as [Float64Array, Float64Array, Float64Array];
-    let s00 = 0, s01 = 0, s02 = 0, s10 = 0, s11 = 0, s12 = 0, s20 = 0, s21 = 0, s22 = 0;
+    let s00 = 0,
+      s01 = 0,
+      s02 = 0,
+      s10 = 0,
+      s11 = 0,
+      s12 = 0,
+      s20 = 0,
+      s21 = 0,
+      s22 = 0;
     for (let t = 0; t < end; t++) {
-      const a = u[t]!, b = v[t]!, c = x[t]!, d = u[t + j]!, e = v[t + j]!, f = x[t + j]!;
-      s00 += a * d; s01 += a * e; s02 += a * f;
-      s10 += b * d; s11 += b * e; s12 += b * f;
-      s20 += c * d; s21 += c * e; s22 += c * f;
+      const a = u[t]!,
+        b = v[t]!,
+        c = x[t]!,
+        d = u[t + j]!,
+        e = v[t + j]!,
+        f = x[t + j]!;
+      s00 += a * d;
+      s01 += a * e;
+      s02 += a * f;
+      s10 += b * d;
+      s11 += b * e;
+      s12 += b * f;
+      s20 += c * d;
+      s21 += c * e;
+      s22 += c * f;
     }
     totals.set([s00, s01, s02, s10, s11, s12, s20, s21, s22]);
   } else {

@@ -34,7 +34,11 @@ export function longRunCovariance(columns: readonly Float64Array[], options: Hac
     for (let t = 0; t < n; t++) h[t] = column[t]! - mean;
     return h;
   });
-  const estimate = kernelSum(demeaned, options, columns.map(() => 1));
+  const estimate = kernelSum(
+    demeaned,
+    options,
+    columns.map(() => 1),
+  );
   return {
     covariance: symmetrise(scale(estimate.sum, 1 / n)),
     kernel: estimate.kernel,

@@ -81,24 +81,30 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
     options.bootstrapSummary !== undefined
       ? options.bootstrapSummary
       : replicates > 0
-      ? bootstrapSolve(sample.low, sample.high, sample.riskFree, weight, {
-          replicates,
-          blockLength: options.bootstrap?.blockLength ?? "auto",
-          seed: options.bootstrap?.seed ?? 1,
-          confidence,
-        })
-      : null;
+        ? bootstrapSolve(sample.low, sample.high, sample.riskFree, weight, {
+            replicates,
+            blockLength: options.bootstrap?.blockLength ?? "auto",
+            seed: options.bootstrap?.seed ?? 1,
+            confidence,
+          })
+        : null;
   if (source === "bootstrap" && bootstrap === null) throw new RangeError('intervalSource "bootstrap" needs bootstrap replicates > 0');
 
   const delta = boundsDeltaFromData(low, high, moments, longRun, hac);
   const z = normalQuantile(1 - (1 - confidence) / 2);
-  const pointwise = (estimate: number, stdError: number): PointwiseBound => ({ estimate, stdError, lower: estimate - z * stdError, upper: estimate + z * stdError });
+  const pointwise = (estimate: number, stdError: number): PointwiseBound => ({
+    estimate,
+    stdError,
+    lower: estimate - z * stdError,
+    upper: estimate + z * stdError,
+  });
   let bounds: Uncertainty["bounds"] = null;
   let lowBeta: Uncertainty["lowBeta"] = null;
   let highBeta: Uncertainty["highBeta"] = null;
   if (moments.covariance > 0) {
     const useBootstrap = source === "bootstrap" && bootstrap !== null;
-    const se = (name: "lowBetaMin" | "lowBetaMax", fallback: number) => (useBootstrap ? (bootstrap.stdErrors[name] ?? Number.NaN) : fallback);
+    const se = (name: "lowBetaMin" | "lowBetaMax", fallback: number) =>
+      useBootstrap ? (bootstrap.stdErrors[name] ?? Number.NaN) : fallback;
     const seLower = se("lowBetaMin", delta.lowBeta.min.stdError);
     const seUpper = se("lowBetaMax", delta.lowBeta.max.stdError);
     const correlation = useBootstrap ? (bootstrap.boundsCorrelation ?? 0) : delta.correlation;
@@ -107,14 +113,19 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
     const ub = delta.lowBeta.max.estimate;
     bounds = {
       lowBeta: { min: pointwise(lb, seLower), max: pointwise(ub, seUpper) },
-      highBeta: { min: pointwise(delta.highBeta.min.estimate, ratio * seUpper), max: pointwise(delta.highBeta.max.estimate, ratio * seLower) },
+      highBeta: {
+        min: pointwise(delta.highBeta.min.estimate, ratio * seUpper),
+        max: pointwise(delta.highBeta.max.estimate, ratio * seLower),
+      },
       correlation,
     };
     const estimate = { lower: lb, upper: ub, lowerStdError: seLower, upperStdError: seUpper };
     const interval: ParameterInterval =
       method === "stoye" ? stoyeInterval({ ...estimate, correlation }, confidence) : imbensManskiInterval(estimate, confidence);
     const toHigh = (b: number) => (1 - weight * b) / (1 - weight);
-    lowBeta = { interval: { lower: interval.lower, upper: interval.upper, method, criticalValue: interval.criticalValue } satisfies BetaInterval };
+    lowBeta = {
+      interval: { lower: interval.lower, upper: interval.upper, method, criticalValue: interval.criticalValue } satisfies BetaInterval,
+    };
     highBeta = {
       interval: {
         lower: toHigh(interval.upper),

@@ -34,27 +34,15 @@ export interface HtmlReportOptions {
 
 /** Escapes text for HTML element content and attribute values, after neutralising control characters. */
 export function escapeHtml(text: string): string {
-  return printable(text)
-    .replace(/&/g, "&amp;")
-    .replace(/</g, "&lt;")
-    .replace(/>/g, "&gt;")
-    .replace(/"/g, "&quot;")
-    .replace(/'/g, "&#39;");
+  return printable(text).replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;").replace(/'/g, "&#39;");
 }
 
 /** Renders the HTML document (LF line endings, trailing newline). */
 export function renderHtmlReport(report: SolveReport, charts: HtmlReportCharts, options: HtmlReportOptions = {}): string {
   const s = report.solution;
   const input = report.input;
-  const title =
-    options.title ??
-    `${report.tool.name}: "${input.lowColumn}" and "${input.highColumn}" (${input.source})`;
-  const sections: string[] = [
-    chartSection(charts),
-    inputSection(input, s.observations),
-    momentsSection(s),
-    capmSection(s),
-  ];
+  const title = options.title ?? `${report.tool.name}: "${input.lowColumn}" and "${input.highColumn}" (${input.source})`;
+  const sections: string[] = [chartSection(charts), inputSection(input, s.observations), momentsSection(s), capmSection(s)];
   if (s.bounds === null) {
     const reason = s.diagnostics.find((d) => d.severity === "error")?.message ?? null;
     sections.push(
@@ -141,7 +129,11 @@ function paragraph(text: string, className?: string): string {
 }
 
 /** A table: a header row, then rows whose first cell is a row heading. Cells are plain text, escaped. */
-function table(header: readonly string[], rows: readonly (readonly string[])[], options: { caption?: string; textColumns?: readonly number[] } = {}): string {
+function table(
+  header: readonly string[],
+  rows: readonly (readonly string[])[],
+  options: { caption?: string; textColumns?: readonly number[] } = {},
+): string {
   const textColumns = new Set(options.textColumns ?? []);
   const head = `<thead><tr>${header.map((h) => `<th scope="col">${escapeHtml(h)}</th>`).join("")}</tr></thead>`;
   const body = rows
@@ -149,7 +141,9 @@ function table(header: readonly string[], rows: readonly (readonly string[])[], 
       (row) =>
         `<tr>${row
           .map((cell, i) =>
-            i === 0 ? `<th scope="row">${escapeHtml(cell)}</th>` : `<td class="${textColumns.has(i) ? "text" : "num"}">${escapeHtml(cell)}</td>`,
+            i === 0
+              ? `<th scope="row">${escapeHtml(cell)}</th>`
+              : `<td class="${textColumns.has(i) ? "text" : "num"}">${escapeHtml(cell)}</td>`,
           )
           .join("")}</tr>`,
     )
@@ -160,7 +154,9 @@ function table(header: readonly string[], rows: readonly (readonly string[])[], 
 
 /** A two-column label / value table. */
 function fields(pairs: readonly (readonly [string, string])[]): string {
-  const rows = pairs.map(([label, value]) => `<tr><th scope="row">${escapeHtml(label)}</th><td class="text">${escapeHtml(value)}</td></tr>`);
+  const rows = pairs.map(
+    ([label, value]) => `<tr><th scope="row">${escapeHtml(label)}</th><td class="text">${escapeHtml(value)}</td></tr>`,
+  );
   return `<table class="fields">\n<tbody>\n${rows.join("\n")}\n</tbody></table>`;
 }
 
@@ -193,13 +189,14 @@ function chartSection(charts: HtmlReportCharts): string {
 
 function inputSection(input: InputDescription, observations: number): string {
   const frequency =
-    input.frequency === null ? "could not be told from the dates" : `${input.frequency.name} (${input.frequency.periodsPerYear} periods per year)`;
+    input.frequency === null
+      ? "could not be told from the dates"
+      : `${input.frequency.name} (${input.frequency.periodsPerYear} periods per year)`;
   const units = input.units === "percent" ? "percent (divided by 100: every figure below is decimal)" : "decimal";
   const dropped =
     input.rowsDropped === 0
       ? "none"
-      : `${input.rowsDropped} with a missing value` +
-        (input.droppedDates.length > 0 ? `: ${input.droppedDates.join(", ")}` : "");
+      : `${input.rowsDropped} with a missing value${input.droppedDates.length > 0 ? `: ${input.droppedDates.join(", ")}` : ""}`;
   return section(
     "input",
     "Input",
@@ -262,7 +259,10 @@ function capmSection(s: Solution): string {
         `errors, two-sided p-values from Student's t with ${low.observations - 2} d.f.`,
       "note",
     ),
-    table(["", "low", "high"], rows.map(([label, value]) => [label, value(low), value(high)])),
+    table(
+      ["", "low", "high"],
+      rows.map(([label, value]) => [label, value(low), value(high)]),
+    ),
   );
 }
 
@@ -298,11 +298,7 @@ function landmarksSection(s: Solution): string {
     const cells = c === null ? candidateHeader.map(() => notAvailable) : candidateCells(c);
     return [name, `${landmarkDescriptions[name]}${note}`, ...cells];
   });
-  return section(
-    "landmarks",
-    "Landmarks",
-    table(["", "meaning", ...candidateHeader], rows, { textColumns: [1] }),
-  );
+  return section("landmarks", "Landmarks", table(["", "meaning", ...candidateHeader], rows, { textColumns: [1] }));
 }
 
 function gridSection(s: Solution): string {
@@ -332,7 +328,8 @@ function gridSection(s: Solution): string {
 function diagnosticsSection(s: Solution): string {
   if (s.diagnostics.length === 0) return section("diagnostics", "Diagnostics", paragraph("none"));
   const rows = s.diagnostics.map(
-    (d) => `<tr><th scope="row" class="${d.severity === "info" ? "" : d.severity}">${escapeHtml(d.severity)}</th><td class="text">${escapeHtml(d.message)}</td></tr>`,
+    (d) =>
+      `<tr><th scope="row" class="${d.severity === "info" ? "" : d.severity}">${escapeHtml(d.severity)}</th><td class="text">${escapeHtml(d.message)}</td></tr>`,
   );
   return section(
     "diagnostics",

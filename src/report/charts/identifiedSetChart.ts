@@ -138,10 +138,7 @@ export function identifiedSetSpec(report: SolveReport, options: IdentifiedSetCha
       {
         orient: "left",
         scale: "y",
-        title:
-          options.y === "variance"
-            ? "noise variance per period (decimal units)"
-            : "noise share s_low / (s_low + s_high)",
+        title: options.y === "variance" ? "noise variance per period (decimal units)" : "noise share s_low / (s_low + s_high)",
         tickCount: 6,
         grid: true,
         titlePadding: 10,

@@ -75,7 +75,8 @@ export function legendMarks(entries: readonly LegendEntry[], x: number, y: numbe
   );
   const lines = placed.flatMap(({ entry, x0, yc }) => {
     const s = entry.swatch;
-    if (s.kind === "line") return [{ x: x0, x2: x0 + swatchWidth, y: yc, y2: yc, stroke: s.stroke, dash: [...s.dash], width: s.width ?? 2 }];
+    if (s.kind === "line")
+      return [{ x: x0, x2: x0 + swatchWidth, y: yc, y2: yc, stroke: s.stroke, dash: [...s.dash], width: s.width ?? 2 }];
     if (s.kind === "interval") {
       const a = x0 + 3;
       const b = x0 + swatchWidth - 3;

@@ -145,10 +145,20 @@ export function rollChartSpec(windows: readonly RollWindowPoint[], meta: RollCha
     },
     { swatch: { kind: "line", stroke: palette.vermillion, dash: [], width: 2.2 }, label: "CAPM beta of the low book on the market proxy" },
     ...(hasInterval
-      ? [{ swatch: { kind: "area", fill: palette.skyBlueLight, stroke: palette.skyBlueEdge, opacity: 1 }, label: "confidence interval for b_low in the window" } as const]
+      ? [
+          {
+            swatch: { kind: "area", fill: palette.skyBlueLight, stroke: palette.skyBlueEdge, opacity: 1 },
+            label: "confidence interval for b_low in the window",
+          } as const,
+        ]
       : []),
     ...(noSet.length > 0
-      ? [{ swatch: { kind: "symbol", shape: "cross", fill: palette.grey, stroke: palette.grey }, label: "no identified set in this window (gap)" } as const]
+      ? [
+          {
+            swatch: { kind: "symbol", shape: "cross", fill: palette.grey, stroke: palette.grey },
+            label: "no identified set in this window (gap)",
+          } as const,
+        ]
       : []),
   ];
   const legendWidth = rollPlotWidth + marginRight - 8;

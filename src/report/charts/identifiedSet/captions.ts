@@ -25,7 +25,9 @@ export function captionLines(report: SolveReport, y?: YQuantity): string[] {
           : "the line shows the low book's share of the noise variance that it implies.");
   const missing =
     y !== undefined && report.solution.landmarks !== null && report.solution.landmarks.returnImplied === null
-      ? ["Not shown: the point implied by mean returns (the mean excess market return is too close to zero, or the ratio gives no positive pair of betas)."]
+      ? [
+          "Not shown: the point implied by mean returns (the mean excess market return is too close to zero, or the ratio gives no positive pair of betas).",
+        ]
       : [];
   return [data, ...(reading === null ? [] : [reading]), ...missing, assumptionsLine(report.solution.weight), cautionCaption];
 }

@@ -119,9 +119,7 @@ export function chartCurves(
   }));
   const drawn = curves.flatMap((c) => [...c.inside, ...c.left, ...c.right]).map((p) => p.value);
   const yDomain: [number, number] =
-    y === "variance"
-      ? [Math.min(0, ...drawn), Math.max(0, ...drawn)]
-      : [Math.min(0, ...drawn), Math.max(1, ...drawn)];
+    y === "variance" ? [Math.min(0, ...drawn), Math.max(0, ...drawn)] : [Math.min(0, ...drawn), Math.max(1, ...drawn)];
   if (!(yDomain[1] > yDomain[0])) yDomain[1] = yDomain[0] + 1;
   return { curves, yDomain };
 }
@@ -146,11 +144,9 @@ export function xDomain(
 ): [number, number] {
   const xs = [min, max];
   if (landmarks.returnImplied !== null) xs.push(landmarks.returnImplied.lowBeta);
-  const intervals = [
-    uncertainty.lowBetaInterval,
-    uncertainty.boundIntervals?.min,
-    uncertainty.boundIntervals?.max,
-  ].filter((i): i is BetaInterval => i !== undefined);
+  const intervals = [uncertainty.lowBetaInterval, uncertainty.boundIntervals?.min, uncertainty.boundIntervals?.max].filter(
+    (i): i is BetaInterval => i !== undefined,
+  );
   for (const i of intervals) xs.push(i.lower, i.upper);
   const finite = xs.filter((x) => Number.isFinite(x));
   const lo = Math.min(...finite);
@@ -161,19 +157,12 @@ export function xDomain(
 }
 
 /** `insidePoints` structures evenly spaced over the set, b_high interpolated like the core's grid. */
-function insideStructures(
-  m: MomentSummary,
-  market: MarketMoments,
-  bounds: IdentifiedBounds,
-  landmarks: Landmarks,
-): Candidate[] {
+function insideStructures(m: MomentSummary, market: MarketMoments, bounds: IdentifiedBounds, landmarks: Landmarks): Candidate[] {
   const { lowBeta, highBeta } = bounds;
   const out: Candidate[] = [landmarks.highNoiseFree];
   for (let k = 1; k < insidePoints - 1; k++) {
     const f = k / (insidePoints - 1);
-    out.push(
-      structureAt(lowBeta.min + (lowBeta.max - lowBeta.min) * f, m, market, highBeta.max + (highBeta.min - highBeta.max) * f),
-    );
+    out.push(structureAt(lowBeta.min + (lowBeta.max - lowBeta.min) * f, m, market, highBeta.max + (highBeta.min - highBeta.max) * f));
   }
   out.push(landmarks.lowNoiseFree);
   return out;

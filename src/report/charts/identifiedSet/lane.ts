@@ -93,7 +93,13 @@ export function laneLayout(landmarks: Landmarks, uncertainty: IdentifiedSetUncer
       { kind: "lowerBound", x: px(bounds.min.lower), x2: px(bounds.min.upper), y, description: intervalText("lower bound", bounds.min) },
       { kind: "upperBound", x: px(bounds.max.lower), x2: px(bounds.max.upper), y, description: intervalText("upper bound", bounds.max) },
     );
-    labelBar(`${levelText(uncertainty)}intervals for the two ends`, `${levelText(uncertainty)}each end`, px(bounds.min.lower), px(bounds.max.upper), y);
+    labelBar(
+      `${levelText(uncertainty)}intervals for the two ends`,
+      `${levelText(uncertainty)}each end`,
+      px(bounds.min.lower),
+      px(bounds.max.upper),
+      y,
+    );
   }
   const lowBeta = uncertainty.lowBetaInterval;
   if (lowBeta !== undefined) {
