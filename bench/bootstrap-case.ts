@@ -6,7 +6,7 @@
  * Usage: node bootstrap-case.mjs FILE LOW HIGH REPLICATES BLOCK SEED
  */
 import { readFileSync } from "node:fs";
-import { bootstrapSolve } from "../src/core/inference/bootstrapSummary.js";
+import { bootstrapSolve } from "../src/core/inference/bootstrap/summary.js";
 import { readReturns } from "../src/input/readReturns.js";
 
 const [file, lowName, highName, replicates, block, seed] = process.argv.slice(2);

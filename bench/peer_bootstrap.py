@@ -1,5 +1,5 @@
 """numpy peer of case (c): a vectorised stationary bootstrap (Politis & Romano 1994) of the
-quantities src/core/inference/bootstrapStatistics.ts recomputes per replicate, with percentile
+quantities src/core/inference/bootstrap/statistics.ts recomputes per replicate, with percentile
 intervals (type 7, numpy's default) and bootstrap standard errors, JSON out.
 
 Resampling, vectorised over a chunk of replicates at a time (a replicate x row matrix): a new block

@@ -28,10 +28,10 @@ const lazyChildProcess = {
 };
 
 // The CLI: the program bundled into one CommonJS file (dependencies inlined), loaded by a small
-// launcher through V8's code cache (src/cli/bundleLoader.ts); CommonJS because only a classic script
+// launcher through V8's code cache (src/cli/runtime/bundleLoader.ts); CommonJS because only a classic script
 // can be compiled with a cache on Node 20.
 await build({
-  entryPoints: ["src/cli/main.ts"],
+  entryPoints: ["src/cli/runtime/main.ts"],
   outfile: "dist/cli-bundle.cjs",
   bundle: true,
   platform: "node",
@@ -53,7 +53,7 @@ const loaderDefine = { __BETABOUND_BUNDLE_ID__: JSON.stringify(bundleId) };
 
 // The executable, and the loader on its own for writing the cache below.
 await build({
-  entryPoints: ["src/cli/launcher.ts"],
+  entryPoints: ["src/cli/runtime/launcher.ts"],
   outfile: "dist/cli.cjs",
   bundle: true,
   platform: "node",
@@ -66,7 +66,7 @@ await build({
 });
 chmodSync("dist/cli.cjs", 0o755);
 await build({
-  entryPoints: ["src/cli/bundleLoader.ts"],
+  entryPoints: ["src/cli/runtime/bundleLoader.ts"],
   outfile: "dist/bundleLoader.js",
   bundle: true,
   platform: "node",
@@ -79,7 +79,7 @@ await build({
 
 // The bootstrap's worker thread, loaded by dist/cli.cjs from its own folder.
 await build({
-  entryPoints: ["src/cli/bootstrapWorker.ts"],
+  entryPoints: ["src/cli/runtime/bootstrapWorker.ts"],
   outfile: "dist/bootstrapWorker.js",
   bundle: true,
   platform: "node",

@@ -1,12 +1,12 @@
-// Assembles src/input/rowKernel.wat (WebAssembly text) with wabt and writes the binary, base64, to
-// src/input/rowKernelWasm.ts. Run it after editing the .wat (npm run build:kernel) and commit both;
+// Assembles src/input/engines/rowKernel.wat (WebAssembly text) with wabt and writes the binary, base64, to
+// src/input/engines/rowKernelWasm.ts. Run it after editing the .wat (npm run build:kernel) and commit both;
 // test/input/rowKernel.test.ts checks that the committed binary is the assembly of the committed text.
 import { readFileSync, writeFileSync } from "node:fs";
 import wabtInit from "wabt";
 
 export async function assembleRowKernel() {
   const wabt = await wabtInit();
-  const text = readFileSync(new URL("../src/input/rowKernel.wat", import.meta.url), "utf8");
+  const text = readFileSync(new URL("../src/input/engines/rowKernel.wat", import.meta.url), "utf8");
   const module = wabt.parseWat("rowKernel.wat", text, { simd: true });
   module.validate();
   const { buffer } = module.toBinary({});
@@ -25,5 +25,5 @@ export function kernelModuleText(base64) {
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
-  writeFileSync(new URL("../src/input/rowKernelWasm.ts", import.meta.url), kernelModuleText(await assembleRowKernel()));
+  writeFileSync(new URL("../src/input/engines/rowKernelWasm.ts", import.meta.url), kernelModuleText(await assembleRowKernel()));
 }

@@ -19,9 +19,9 @@
 
 import type { HacOptions } from "../src/core/inference/options.js";
 import { assessUncertainty } from "../src/core/inference/uncertainty.js";
-import { populationMoments, type Structure } from "../src/core/forward.js";
+import { populationMoments, type Structure } from "../src/core/forward/populationMoments.js";
 import { identifiedBounds } from "../src/core/identify.js";
-import { simulateSample, type SimulationOptions } from "../src/core/simulate.js";
+import { simulateSample, type SimulationOptions } from "../src/core/forward/simulate.js";
 
 interface Scenario {
   readonly name: string;

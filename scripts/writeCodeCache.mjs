@@ -1,4 +1,4 @@
-// Writes dist/cli-bundle.cache (see src/cli/bundleLoader.ts): loads the freshly built bundle without a
+// Writes dist/cli-bundle.cache (see src/cli/runtime/bundleLoader.ts): loads the freshly built bundle without a
 // cache, runs the commands below in process with their output discarded, then saves V8's code cache
 // of the bundle, which now holds the bytecode of every function those runs executed (the rest is
 // compiled on first use). Run by scripts/build.mjs in a process of its own with node's default flags

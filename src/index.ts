@@ -22,10 +22,10 @@ export {
 export { findLandmarks, type LandmarkResult } from "./core/landmarks.js";
 export { compensatedSum, crossProducts, mean, sampleCovariance, sampleStdev, sampleVariance, type CrossProducts } from "./core/moments.js";
 export { fitLine } from "./core/regression.js";
-export { studentTTwoSidedP } from "./core/studentT.js";
-export { populationMoments, type Structure } from "./core/forward.js";
-export { simulateSample, type SimulatedSample, type SimulationOptions } from "./core/simulate.js";
-export { createRandom, type RandomSource } from "./core/rng.js";
+export { studentTTwoSidedP } from "./core/numerics/studentT.js";
+export { populationMoments, type Structure } from "./core/forward/populationMoments.js";
+export { simulateSample, type SimulatedSample, type SimulationOptions } from "./core/forward/simulate.js";
+export { createRandom, type RandomSource } from "./core/numerics/rng.js";
 export { periodDates, frequencies, periodsPerYear, type Frequency } from "./core/calendar.js";
 export {
   describeDiagnostic,
@@ -39,5 +39,5 @@ export {
 export { failure, success, type Result } from "./core/result.js";
 export type * from "./core/types.js";
 export { landmarkNames } from "./core/types.js";
-export { implied, type ImpliedSolution, type PopulationFit } from "./core/implied.js";
+export { implied, type ImpliedSolution, type PopulationFit } from "./core/forward/implied.js";
 export * from "./core/inference/index.js";

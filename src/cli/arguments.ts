@@ -1,6 +1,6 @@
 /** Commander argument parsers: strict numbers with the expected range stated in the error. */
 import { InvalidArgumentError } from "commander";
-import { parseDecimal } from "../input/numbers.js";
+import { parseDecimal } from "../input/values/numbers.js";
 
 /** A parser accepting a strict decimal number for which `accept` holds; `expected` is the error text. */
 export function numberArgument(expected: string, accept: (x: number) => boolean = () => true) {

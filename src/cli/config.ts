@@ -9,7 +9,7 @@ import { dirname, isAbsolute, join } from "node:path";
 import type { Command } from "commander";
 import * as z from "zod/mini";
 import { failure, success, type Result } from "../core/result.js";
-import type { CliIo } from "./io.js";
+import type { CliIo } from "./runtime/io.js";
 import type { CliIssue } from "./messages.js";
 import { once } from "./options.js";
 

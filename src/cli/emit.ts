@@ -1,6 +1,6 @@
 /** Writes a command's output to standard output, or atomically to `--output`, and says how it went. */
-import { exitCodes, type ExitCode } from "./exitCodes.js";
-import type { CliIo } from "./io.js";
+import { exitCodes, type ExitCode } from "./runtime/exitCodes.js";
+import type { CliIo } from "./runtime/io.js";
 import { describeCliIssue } from "./messages.js";
 
 export async function emit(io: CliIo, output: string | undefined, text: string): Promise<ExitCode> {

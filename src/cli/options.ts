@@ -5,7 +5,7 @@
 import en from "zod/v4/locales/en.js";
 import * as z from "zod/mini";
 import { frequencies } from "../core/calendar.js";
-import { chartYChoices } from "./charts.js";
+import { chartYChoices } from "./commands/charts.js";
 import { defaultSteps, defaultWeight } from "../core/solve.js";
 import {
   automaticBandwidths,

@@ -5,13 +5,13 @@
  */
 import type { ReturnSample } from "../core/types.js";
 import { describeInputIssue, type InputIssue } from "../input/issues.js";
-import { joinOnDates } from "../input/joinOnDates.js";
-import { parseDecimal } from "../input/numbers.js";
+import { joinOnDates } from "../input/table/joinOnDates.js";
+import { parseDecimal } from "../input/values/numbers.js";
 import type { ReadOptions } from "../input/options.js";
 import { readReturnsFromBytes } from "../input/readReturns.js";
-import type { ReturnTable } from "../input/returnTable.js";
+import type { ReturnTable } from "../input/table/returnTable.js";
 import type { InputDescription, JoinDescription, RiskFreeSource } from "../report/types.js";
-import type { CliIo } from "./io.js";
+import type { CliIo } from "./runtime/io.js";
 import { describeCliIssue } from "./messages.js";
 import type { InputCliOptions } from "./options.js";
 import type { Pair } from "./pairs.js";

@@ -3,14 +3,14 @@
  * code; it never calls process.exit, so tests drive it in process.
  */
 import { Command, CommanderError } from "commander";
-import { exitCodes, type ExitCode } from "./exitCodes.js";
-import { impliedCommand } from "./impliedCommand.js";
-import type { CliIo } from "./io.js";
-import { rollCommand } from "./rollCommand.js";
-import { schemaCommand } from "./schemaCommand.js";
-import { simulateCommand } from "./simulateCommand.js";
-import { solveCommand } from "./solveCommand.js";
-import { version } from "./version.js";
+import { exitCodes, type ExitCode } from "./runtime/exitCodes.js";
+import { impliedCommand } from "./commands/implied.js";
+import type { CliIo } from "./runtime/io.js";
+import { rollCommand } from "./commands/roll.js";
+import { schemaCommand } from "./commands/schema.js";
+import { simulateCommand } from "./commands/simulate.js";
+import { solveCommand } from "./commands/solve.js";
+import { version } from "./runtime/version.js";
 
 type CommandBuilder = (io: CliIo, setExit: (code: ExitCode) => void) => Command;
 

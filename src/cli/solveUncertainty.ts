@@ -1,14 +1,14 @@
 /** The uncertainty step of `solve`: HAC, delta method, intervals, and the bootstrap when asked for. */
 import { diagnose, type Diagnostic } from "../core/diagnostics.js";
-import type { BootstrapSummary } from "../core/inference/bootstrapSummary.js";
+import type { BootstrapSummary } from "../core/inference/bootstrap/summary.js";
 import type { HacOptions } from "../core/inference/options.js";
 import { assessUncertainty, type UncertaintySample } from "../core/inference/uncertainty.js";
 import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
 import type { Solution } from "../core/types.js";
-import { runBootstrap } from "./bootstrapRunner.js";
-import type { CliIo } from "./io.js";
+import { runBootstrap } from "./runtime/bootstrapThreads.js";
+import type { CliIo } from "./runtime/io.js";
 import { minimumForUncertainty, type SolveCliOptions } from "./options.js";
-import { createProgress } from "./progress.js";
+import { createProgress } from "./runtime/progress.js";
 
 /** Standard errors and intervals as the options ask, or null with the reason as a diagnostic. */
 export async function uncertaintyFor(

@@ -15,7 +15,7 @@
  */
 
 import { CHUNK, crossProducts } from "./moments.js";
-import { studentTTwoSidedP } from "./studentT.js";
+import { studentTTwoSidedP } from "./numerics/studentT.js";
 import type { LineFit } from "./types.js";
 
 /** Fits y = alpha + beta x + e. Needs n >= 3 and a non-constant x (callers check; see solve.ts). */

@@ -3,23 +3,23 @@
  * expected problem is an InputIssue (see issues.ts for the codes and their wording).
  */
 import { failure, type Result } from "../core/result.js";
-import { asciiText, byteGrid, isAsciiWhiteSpace, isPlain, plainLines, type PlainLines } from "./byteGrid.js";
+import { asciiText, byteGrid, isAsciiWhiteSpace, isPlain, plainLines, type PlainLines } from "./engines/byteGrid.js";
 import { decodeText } from "./decodeText.js";
 import { detectDelimiter } from "./dialect.js";
-import { extractLong } from "./extractLong.js";
-import { extractWide } from "./extractWide.js";
-import { finishTable } from "./finish.js";
-import { fastGrid } from "./fastGrid.js";
-import { csvGrid, type Grid } from "./grid.js";
+import { extractLong } from "./table/extractLong.js";
+import { extractWide } from "./table/extractWide.js";
+import { finishTable } from "./table/finish.js";
+import { fastGrid } from "./engines/fastGrid.js";
+import { csvGrid, type Grid } from "./engines/grid.js";
 import { IssueList } from "./issueList.js";
 import type { InputIssue } from "./issues.js";
-import { listTables, locateTable } from "./layout.js";
-import { compileSentinels } from "./numbers.js";
+import { listTables, locateTable } from "./table/layout.js";
+import { compileSentinels } from "./values/numbers.js";
 import { validateOptions, type ReadOptions } from "./options.js";
-import type { ReturnTable } from "./returnTable.js";
+import type { ReturnTable } from "./table/returnTable.js";
 
 export type { ReadOptions, InputKind } from "./options.js";
-export type { ReturnTable } from "./returnTable.js";
+export type { ReturnTable } from "./table/returnTable.js";
 
 /** Which tokeniser to use: "auto" takes the fast scanner whenever the text allows it. */
 export type Engine = "auto" | "general";

@@ -6,15 +6,15 @@
  * same set sections as `solve`.
  */
 
-import type { ImpliedSolution } from "../core/implied.js";
+import type { ImpliedSolution } from "../core/forward/implied.js";
 import { modelAssumptions } from "./conventions.js";
 import { candidateCsv, namedCandidates } from "./csv.js";
 import { formatNumber } from "./format.js";
 import { assertJsonSafe, schemaVersion } from "./json.js";
 import { fields, indent, styleFor, table, wrap } from "./layout.js";
-import { momentsSection } from "./textData.js";
-import { assumptionsSection, cautionLine, diagnosticsSection } from "./textNotes.js";
-import { boundsSection, gridSection, landmarksSection, rejectedSection } from "./textSet.js";
+import { momentsSection } from "./text/textData.js";
+import { assumptionsSection, cautionLine, diagnosticsSection } from "./text/textNotes.js";
+import { boundsSection, gridSection, landmarksSection, rejectedSection } from "./text/textSet.js";
 import type { RenderOptions, ReportFormat, SolveReport } from "./types.js";
 
 export interface ImpliedReport {

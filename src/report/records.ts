@@ -6,7 +6,7 @@
 
 import { candidateRow, csvField, csvHeader, namedCandidates } from "./csv.js";
 import { assertJsonSafe, schemaVersion, toSolveOutput } from "./json.js";
-import { renderText } from "./text.js";
+import { renderText } from "./text/text.js";
 import type { RenderOptions, SolveReport } from "./types.js";
 
 /** A (file, pair) that could not be solved, with the stable codes and messages of what stopped it. */

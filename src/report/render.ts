@@ -1,7 +1,7 @@
 /** Picks the renderer for a format. */
 import { renderCsv } from "./csv.js";
 import { renderJson } from "./json.js";
-import { renderText } from "./text.js";
+import { renderText } from "./text/text.js";
 import type { RenderOptions, ReportFormat, SolveReport } from "./types.js";
 
 const renderers: Record<ReportFormat, (report: SolveReport, options: RenderOptions) => string> = {

@@ -5,7 +5,7 @@
  */
 
 import type { WindowUncertainty } from "../core/inference/windowUncertainty.js";
-import { windowColumnNames, type WindowColumns, type WindowSolution, type WindowSpec } from "../core/rolling.js";
+import { windowColumnNames, type WindowColumns, type WindowSolution, type WindowSpec } from "../core/rolling/rolling.js";
 import { momentsFromSummary } from "../core/summaryMoments.js";
 import { csvField } from "./csv.js";
 import { formatNumber } from "./format.js";

@@ -1,7 +1,7 @@
 /** Zod schemas of the uncertainty parts of the solve output: HAC, bound standard errors, intervals, bootstrap. */
 
 import * as z from "zod";
-import { bootstrapQuantities } from "../core/inference/bootstrapStatistics.js";
+import { bootstrapQuantities } from "../core/inference/bootstrap/statistics.js";
 import { automaticBandwidths, hacKernels, intervalMethods, intervalSources, longRunMethods } from "../core/inference/options.js";
 import { doc } from "./registry.js";
 

@@ -1,5 +1,5 @@
 import { failure, success } from "../../src/core/result.js";
-import type { CliIo } from "../../src/cli/io.js";
+import type { CliIo } from "../../src/cli/runtime/io.js";
 
 /** An in-memory CliIo: files by name, captured stdout/stderr and written outputs. */
 export function fakeIo(

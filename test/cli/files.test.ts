@@ -1,10 +1,10 @@
-/** The CLI's file access (src/cli/files.ts): reads, large reads into the row kernel's memory, atomic writes. */
+/** The CLI's file access (src/cli/runtime/files.ts): reads, large reads into the row kernel's memory, atomic writes. */
 import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
-import { readInputBytes, writeFileAtomic } from "../../src/cli/files.js";
-import { rowKernelFor } from "../../src/input/rowKernel.js";
+import { readInputBytes, writeFileAtomic } from "../../src/cli/runtime/files.js";
+import { rowKernelFor } from "../../src/input/engines/rowKernel.js";
 
 const scratch = mkdtempSync(join(tmpdir(), "betabound-files-"));
 

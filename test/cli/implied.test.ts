@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { exitCodes } from "../../src/cli/exitCodes.js";
+import { exitCodes } from "../../src/cli/runtime/exitCodes.js";
 import { run } from "../../src/cli/program.js";
 import { fakeIo } from "./fakeIo.js";
 

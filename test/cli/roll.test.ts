@@ -1,6 +1,6 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
-import { exitCodes } from "../../src/cli/exitCodes.js";
+import { exitCodes } from "../../src/cli/runtime/exitCodes.js";
 import { run } from "../../src/cli/program.js";
 import { windowUncertainty } from "../../src/core/inference/windowUncertainty.js";
 import { solve } from "../../src/core/solve.js";
@@ -42,7 +42,7 @@ describe("betabound roll", () => {
       expect(to - from + 1).toBe(48);
       const direct = solve({ low: low.slice(from, to + 1), high: high.slice(from, to + 1) });
       if (!direct.ok) throw new Error("window did not solve");
-      // Incremental windows agree with recomputation within 1e-10 relative (src/core/rolling.ts).
+      // Incremental windows agree with recomputation within 1e-10 relative (src/core/rolling/).
       expect(Number(w.lowBetaMin)).toBeCloseTo(direct.value.bounds!.lowBeta.min, 10);
       expect(Number(w.lowBetaMax)).toBeCloseTo(direct.value.bounds!.lowBeta.max, 10);
       expect(Number(w.lowBeta)).toBeCloseTo(direct.value.capm.low.beta, 10);

@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { run } from "../../src/cli/program.js";
-import { exitCodes } from "../../src/cli/exitCodes.js";
+import { exitCodes } from "../../src/cli/runtime/exitCodes.js";
 import type { SolveOutputJson } from "../../src/schema/solveOutput.js";
 import { fakeIo } from "./fakeIo.js";
 

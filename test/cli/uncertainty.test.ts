@@ -1,6 +1,6 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
-import { exitCodes } from "../../src/cli/exitCodes.js";
+import { exitCodes } from "../../src/cli/runtime/exitCodes.js";
 import { run } from "../../src/cli/program.js";
 import { assessUncertainty } from "../../src/core/inference/uncertainty.js";
 import { solveOutputSchema } from "../../src/schema/solveOutput.js";

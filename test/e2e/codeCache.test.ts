@@ -1,5 +1,5 @@
 /**
- * End-to-end: the executable loads its bundle through V8's code cache (src/cli/bundleLoader.ts), and
+ * End-to-end: the executable loads its bundle through V8's code cache (src/cli/runtime/bundleLoader.ts), and
  * runs the same without it: with the cache missing, made from another bundle, or unusable.
  */
 import { execFileSync, spawnSync } from "node:child_process";

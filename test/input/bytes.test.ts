@@ -1,8 +1,8 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { decimalOfBytes, plainLines } from "../../src/input/byteGrid.js";
+import { decimalOfBytes, plainLines } from "../../src/input/engines/byteGrid.js";
 import { decodeText } from "../../src/input/decodeText.js";
-import { parseDecimal } from "../../src/input/numbers.js";
+import { parseDecimal } from "../../src/input/values/numbers.js";
 import { readBytesWith, readReturns, readReturnsFromBytes, type ReadOptions } from "../../src/input/readReturns.js";
 import { dialect, generatedTable, mutated, writeLongTable, writeTable } from "./arbitraries.js";
 import { expectSameRead, throughText } from "./helpers.js";

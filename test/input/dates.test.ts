@@ -1,8 +1,8 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { readDateColumn } from "../../src/input/dateColumn.js";
-import { compileDateFormat } from "../../src/input/dateFormat.js";
-import { parseUnambiguousDate, plainIsoDateKey, plainIsoDateOfKey } from "../../src/input/dates.js";
+import { readDateColumn } from "../../src/input/values/dateColumn.js";
+import { compileDateFormat } from "../../src/input/values/dateFormat.js";
+import { parseUnambiguousDate, plainIsoDateKey, plainIsoDateOfKey } from "../../src/input/values/dates.js";
 import { readIssues, readOk } from "./helpers.js";
 
 const isos = (texts: string[], format?: string): readonly string[] => {

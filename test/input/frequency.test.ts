@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { detectFrequency, frequencyFromPeriods, median } from "../../src/input/frequency.js";
+import { detectFrequency, frequencyFromPeriods, median } from "../../src/input/values/frequency.js";
 
 const DAY_MS = 86_400_000;
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { joinOnDates } from "../../src/input/joinOnDates.js";
+import { joinOnDates } from "../../src/input/table/joinOnDates.js";
 import type { ReturnTable } from "../../src/input/readReturns.js";
 import { readOk } from "./helpers.js";
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { compileSentinels, isMissingToken, parseDecimal } from "../../src/input/numbers.js";
+import { compileSentinels, isMissingToken, parseDecimal } from "../../src/input/values/numbers.js";
 
 describe("parseDecimal", () => {
   it.each([

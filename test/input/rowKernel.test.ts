@@ -1,14 +1,14 @@
 /**
- * The row kernel (src/input/rowKernel.wat, driven by rowKernel.ts and byteGrid.ts): it must give what
+ * The row kernel (src/input/engines/rowKernel.wat, driven by rowKernel.ts and byteGrid.ts): it must give what
  * the JavaScript engines give, bit for bit, on every file; it must read the simple rows itself; and
  * the committed binary must be the assembly of the committed text.
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { plainLines } from "../../src/input/byteGrid.js";
+import { plainLines } from "../../src/input/engines/byteGrid.js";
 import { readReturnsFromBytes, type ReadOptions } from "../../src/input/readReturns.js";
-import { kernelBytes, rowKernelFor } from "../../src/input/rowKernel.js";
-import { rowKernelWasm } from "../../src/input/rowKernelWasm.js";
+import { kernelBytes, rowKernelFor } from "../../src/input/engines/rowKernel.js";
+import { rowKernelWasm } from "../../src/input/engines/rowKernelWasm.js";
 import { expectSameRead, throughText } from "./helpers.js";
 
 const ascii = (text: string): Uint8Array => Uint8Array.from(text, (c) => c.charCodeAt(0));

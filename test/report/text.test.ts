@@ -2,9 +2,9 @@ import { describe, expect, test } from "vitest";
 import { landmarkNames } from "../../src/core/types.js";
 import { modelAssumptions } from "../../src/report/conventions.js";
 import { formatNumber, tableDigits } from "../../src/report/format.js";
-import { renderText } from "../../src/report/text.js";
-import { cautionLine } from "../../src/report/textNotes.js";
-import { landmarkDescriptions } from "../../src/report/textSet.js";
+import { renderText } from "../../src/report/text/text.js";
+import { cautionLine } from "../../src/report/text/textNotes.js";
+import { landmarkDescriptions } from "../../src/report/text/textSet.js";
 import { rejectedSolution, reportOf, solvedFixtures, typicalSolution, zeroMeanSolution } from "./fixtures.js";
 
 const plain = { colour: false };

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { implied } from "../../src/core/implied.js";
+import { implied } from "../../src/core/forward/implied.js";
 import { run } from "../../src/cli/program.js";
 import { impliedOutput } from "../../src/report/impliedReport.js";
 import { impliedOutputSchema } from "../../src/schema/impliedOutput.js";

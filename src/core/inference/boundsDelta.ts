@@ -13,8 +13,8 @@
  * correlation of the two bound estimates is unchanged.
  */
 
-import { bilinear, type Matrix } from "./linearAlgebra.js";
-import { longRunCovariance, sampleCovarianceOf } from "./longRun.js";
+import { bilinear, type Matrix } from "../numerics/linearAlgebra.js";
+import { longRunCovariance, sampleCovarianceOf } from "./hac/longRun.js";
 import type { HacKernel, HacOptions, LongRunMethod } from "./options.js";
 
 export interface SecondMoments {

@@ -10,8 +10,8 @@
  * is a point, the one-sided value when it is wide relative to the standard errors.
  */
 
-import { normalCdf, normalQuantile, normalSurvival } from "./normal.js";
-import { findRoot } from "./scalarSolvers.js";
+import { normalCdf, normalQuantile, normalSurvival } from "../numerics/normal.js";
+import { findRoot } from "../numerics/scalarSolvers.js";
 
 /** C_N for r = Delta / max(se) >= 0 and confidence level 1 - alpha. */
 export function imbensManskiCriticalValue(ratio: number, confidence: number): number {

@@ -3,12 +3,12 @@
 export * from "./options.js";
 export { assessUncertainty, type UncertaintyOptions, type UncertaintySample } from "./uncertainty.js";
 export type { BetaInterval, CapmHac, PointwiseBound, Uncertainty } from "./uncertaintyTypes.js";
-export { hacCovariance, interceptWeights, type HacCovariance } from "./hac.js";
-export { longRunCovariance, sampleCovarianceOf, type LongRunCovariance } from "./longRun.js";
-export { kernelValue, lagWeights } from "./kernels.js";
-export { andrews1991Bandwidth, neweyWest1994Bandwidth } from "./bandwidth.js";
-export { prewhitenVar1, type Prewhitened } from "./prewhiten.js";
-export { leastSquares, classicalCovariance, type LeastSquaresFit } from "./leastSquares.js";
+export { hacCovariance, interceptWeights, type HacCovariance } from "./hac/hac.js";
+export { longRunCovariance, sampleCovarianceOf, type LongRunCovariance } from "./hac/longRun.js";
+export { kernelValue, lagWeights } from "./hac/kernels.js";
+export { andrews1991Bandwidth, neweyWest1994Bandwidth } from "./hac/bandwidth.js";
+export { prewhitenVar1, type Prewhitened } from "./hac/prewhiten.js";
+export { leastSquares, classicalCovariance, type LeastSquaresFit } from "../numerics/leastSquares.js";
 export {
   boundGradients,
   boundsDelta,
@@ -20,13 +20,13 @@ export {
 } from "./boundsDelta.js";
 export { imbensManskiCriticalValue, imbensManskiInterval, type BoundsEstimate, type ParameterInterval } from "./imbensManski.js";
 export { stoyeInterval, stoyeProbability, type StoyeInput } from "./stoye.js";
-export { normalCdf, normalPdf, normalQuantile, normalSurvival } from "./normal.js";
-export { findRoot, minimiseUnimodal } from "./scalarSolvers.js";
-export { integrate } from "./quadrature.js";
+export { normalCdf, normalPdf, normalQuantile, normalSurvival } from "../numerics/normal.js";
+export { findRoot, minimiseUnimodal } from "../numerics/scalarSolvers.js";
+export { integrate } from "../numerics/quadrature.js";
 export { sharpeIidStdErr, sharpeMertensStdErr, sharpeStdErrors, type SharpeStdErrors } from "./sharpe.js";
-export { commonBlockLength, optimalBlockLength, type OptimalBlockLength } from "./blockLength.js";
-export { drawBlocks, replicateRandom, resampleIndices } from "./stationaryBootstrap.js";
-export { bootstrapQuantities, type BootstrapQuantity } from "./bootstrapStatistics.js";
+export { commonBlockLength, optimalBlockLength, type OptimalBlockLength } from "./bootstrap/blockLength.js";
+export { drawBlocks, replicateRandom, resampleIndices } from "./bootstrap/stationaryBootstrap.js";
+export { bootstrapQuantities, type BootstrapQuantity } from "./bootstrap/statistics.js";
 export {
   bootstrapRange,
   excessReturns,
@@ -35,7 +35,7 @@ export {
   type BootstrapData,
   type BootstrapPlan,
   type BootstrapRange,
-} from "./bootstrapSolve.js";
+} from "./bootstrap/replicates.js";
 export {
   bootstrapSolve,
   quantileSorted,
@@ -43,4 +43,4 @@ export {
   type BootstrapSolveOptions,
   type BootstrapSummary,
   type PercentileInterval,
-} from "./bootstrapSummary.js";
+} from "./bootstrap/summary.js";

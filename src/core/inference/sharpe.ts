@@ -12,8 +12,8 @@
  * The estimate uses the sample standard deviation (divisor T - 1), as the rest of the project.
  */
 
-import { longRunCovariance } from "./longRun.js";
-import { bilinear } from "./linearAlgebra.js";
+import { longRunCovariance } from "./hac/longRun.js";
+import { bilinear } from "../numerics/linearAlgebra.js";
 import type { HacOptions } from "./options.js";
 
 export interface SharpeStdErrors {

@@ -17,9 +17,9 @@
  */
 
 import type { BoundsEstimate, ParameterInterval } from "./imbensManski.js";
-import { normalCdf, normalPdf, normalQuantile } from "./normal.js";
-import { integrate } from "./quadrature.js";
-import { findRoot, minimiseUnimodal } from "./scalarSolvers.js";
+import { normalCdf, normalPdf, normalQuantile } from "../numerics/normal.js";
+import { integrate } from "../numerics/quadrature.js";
+import { findRoot, minimiseUnimodal } from "../numerics/scalarSolvers.js";
 
 const correlationCap = 0.999;
 

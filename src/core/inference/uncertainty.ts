@@ -10,18 +10,18 @@
  *   is the image of the low beta's under b_high = (1 - w b_low)/(1 - w) (both methods are equivariant
  *   under this decreasing affine map: standard errors scale, roles of the ends swap).
  * - Sharpe ratios: Lo (2002) iid and HAC delta-method standard errors (sharpe.ts).
- * - Optional stationary bootstrap of all of it (bootstrapSummary.ts), off unless replicates > 0.
+ * - Optional stationary bootstrap of all of it (bootstrap/summary.ts), off unless replicates > 0.
  * Defaults (options.ts): confidence 0.95; HAC = Bartlett kernel, Newey-West (1994) lag, no
  * prewhitening, no T/(T - k) adjustment; Omega by HAC; Imbens-Manski; delta-method standard errors.
  * All series are excess returns (return minus risk-free); M = w low + (1 - w) high.
  */
 
 import { boundsDeltaFromData } from "./boundsDelta.js";
-import { bootstrapSolve, type BootstrapSummary } from "./bootstrapSummary.js";
-import { hacCovariance } from "./hac.js";
+import { bootstrapSolve, type BootstrapSummary } from "./bootstrap/summary.js";
+import { hacCovariance } from "./hac/hac.js";
 import { imbensManskiInterval, type ParameterInterval } from "./imbensManski.js";
-import { leastSquares } from "./leastSquares.js";
-import { normalQuantile } from "./normal.js";
+import { leastSquares } from "../numerics/leastSquares.js";
+import { normalQuantile } from "../numerics/normal.js";
 import {
   defaultConfidence,
   defaultIntervalMethod,
@@ -34,7 +34,7 @@ import {
 } from "./options.js";
 import { sharpeStdErrors } from "./sharpe.js";
 import { stoyeInterval } from "./stoye.js";
-import { excessReturns } from "./bootstrapSolve.js";
+import { excessReturns } from "./bootstrap/replicates.js";
 import { crossProducts } from "../moments.js";
 import type { ReturnSample } from "../types.js";
 import type { Uncertainty, PointwiseBound, BetaInterval, CapmHac } from "./uncertaintyTypes.js";

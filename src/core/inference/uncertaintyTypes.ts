@@ -3,7 +3,7 @@
  * per period, in the units of the input returns (betas and Sharpe ratios are unit-free).
  */
 
-import type { BootstrapSummary } from "./bootstrapSummary.js";
+import type { BootstrapSummary } from "./bootstrap/summary.js";
 import type { SharpeStdErrors } from "./sharpe.js";
 import type { HacKernel, IntervalMethod, IntervalSource, LongRunMethod } from "./options.js";
 

@@ -7,7 +7,7 @@
 import type { MomentSummary } from "../identify.js";
 import { boundsDeltaFromData } from "./boundsDelta.js";
 import { imbensManskiInterval } from "./imbensManski.js";
-import { normalQuantile } from "./normal.js";
+import { normalQuantile } from "../numerics/normal.js";
 import type { HacOptions, LongRunMethod } from "./options.js";
 import type { BetaInterval, PointwiseBound } from "./uncertaintyTypes.js";
 

@@ -14,10 +14,10 @@ import { largestCapmDiscrepancy } from "../check.js";
 import { excessReturnBasis, modelAssumptions } from "../conventions.js";
 import { formatCount, formatNumber, notAvailable, statisticDigits } from "../format.js";
 import { printable } from "../layout.js";
-import { titleLine } from "../text.js";
-import { cautionLine } from "../textNotes.js";
-import { riskFreeText } from "../textData.js";
-import { candidateCells, candidateHeader as textCandidateHeader, landmarkDescriptions, reproductionTolerance } from "../textSet.js";
+import { titleLine } from "../text/text.js";
+import { cautionLine } from "../text/textNotes.js";
+import { riskFreeText } from "../text/textData.js";
+import { candidateCells, candidateHeader as textCandidateHeader, landmarkDescriptions, reproductionTolerance } from "../text/textSet.js";
 import type { InputDescription, RiskFreeSource, SolveReport } from "../types.js";
 
 export interface HtmlReportCharts {

@@ -1,6 +1,6 @@
 /**
  * Loads vega on first use. The CLI bundle runs as a classic script compiled with V8's code cache
- * (src/cli/bundleLoader.ts), where `import()` cannot be used; its loader hands in an importer of its
+ * (src/cli/runtime/bundleLoader.ts), where `import()` cannot be used; its loader hands in an importer of its
  * own with `setVegaImporter`. Everywhere else (the library, tests) the plain dynamic import is used.
  */
 type VegaModule = typeof import("vega");

@@ -1,0 +1,51 @@
+/**
+ * `--chart` and `--report` for one solved record. The chart modules (and vega behind them) are
+ * imported only here, when a chart is asked for, so plain runs never load them.
+ */
+import type { SolveReport } from "../../report/types.js";
+import { exitCodes, type ExitCode } from "../runtime/exitCodes.js";
+import type { CliIo } from "../runtime/io.js";
+import { describeCliIssue } from "../messages.js";
+
+export const chartYChoices = ["variance", "share"] as const;
+export type ChartY = (typeof chartYChoices)[number];
+
+export interface ChartRequest {
+  readonly chart?: string | undefined;
+  readonly chartY: ChartY;
+  readonly report?: string | undefined;
+}
+
+/** Renders and writes the requested chart and HTML report; returns the exit code of the writing. */
+export async function writeCharts(report: SolveReport, request: ChartRequest, io: CliIo): Promise<ExitCode> {
+  if (request.chart === undefined && request.report === undefined) return exitCodes.ok;
+  const { renderIdentifiedSetChart } = await import("../../report/charts/identifiedSetChart.js");
+  const u = report.uncertainty;
+  const uncertainty =
+    u === null || u.bounds === null || u.lowBeta === null
+      ? undefined
+      : {
+          lowBetaInterval: { lower: u.lowBeta.interval.lower, upper: u.lowBeta.interval.upper },
+          boundIntervals: {
+            min: { lower: u.bounds.lowBeta.min.lower, upper: u.bounds.lowBeta.min.upper },
+            max: { lower: u.bounds.lowBeta.max.lower, upper: u.bounds.lowBeta.max.upper },
+          },
+          confidence: u.confidence,
+        };
+  const svg = await renderIdentifiedSetChart(report, { y: request.chartY, ...(uncertainty === undefined ? {} : { uncertainty }) });
+  if (request.chart !== undefined) {
+    const written = await io.writeOutput(request.chart, svg);
+    if (!written.ok) return fail(io, written.issues);
+  }
+  if (request.report !== undefined) {
+    const { renderHtmlReport } = await import("../../report/charts/htmlReport.js");
+    const written = await io.writeOutput(request.report, renderHtmlReport(report, { identifiedSet: svg }));
+    if (!written.ok) return fail(io, written.issues);
+  }
+  return exitCodes.ok;
+}
+
+function fail(io: CliIo, issue: Parameters<typeof describeCliIssue>[0]): ExitCode {
+  io.writeErr(`error: ${describeCliIssue(issue)}\n`);
+  return exitCodes.output;
+}

@@ -1,0 +1,79 @@
+/**
+ * The statistics recomputed on every bootstrap replicate, from the five sums of one resample.
+ *
+ * From the excess returns x (low) and y (high), resampled means and second moments (divisor n - 1)
+ * give, exactly as `solve` does from a sample (methods.md sections 1.2-1.6, 10, 12):
+ * the bounds of both structural betas; both CAPM betas and alphas on M = w x + (1 - w) y; the
+ * landmark low betas capmConsistent (the CAPM beta, kept inside the set), equalNoise (the Deming
+ * slope with ratio 1) and returnImplied (mean x / mean M, only when |mean M| >= sd(M)/sqrt(n) and
+ * 0 < b < 1/w, as in landmarks.ts); and the three Sharpe ratios. Quantities that are undefined on a
+ * replicate (no set when C <= 0, no return-implied point) are NaN there.
+ */
+
+import { equalNoiseLowBeta, type MomentSummary } from "../../identify.js";
+import { returnImpliedLowBeta } from "../../landmarks.js";
+
+export const bootstrapQuantities = [
+  "lowBetaMin",
+  "lowBetaMax",
+  "highBetaMin",
+  "highBetaMax",
+  "lowCapmBeta",
+  "highCapmBeta",
+  "lowCapmAlpha",
+  "highCapmAlpha",
+  "capmConsistentLowBeta",
+  "equalNoiseLowBeta",
+  "returnImpliedLowBeta",
+  "lowSharpe",
+  "highSharpe",
+  "marketSharpe",
+] as const;
+export type BootstrapQuantity = (typeof bootstrapQuantities)[number];
+export const quantityCount = bootstrapQuantities.length;
+
+/** Moments of one (re)sample: means and second moments with divisor n - 1. */
+export interface ResampleMoments extends MomentSummary {
+  readonly n: number;
+}
+
+/**
+ * Writes the statistics of one resample into out[offset + q * stride] for q = 0..quantityCount-1,
+ * in the order of `bootstrapQuantities`.
+ */
+export function writeStatistics(m: ResampleMoments, out: Float64Array, offset: number, stride: number): void {
+  const w = m.weight;
+  const v = 1 - w;
+  const { lowVariance: vl, highVariance: vh, covariance: c } = m;
+  const marketVariance = w * w * vl + 2 * w * v * c + v * v * vh;
+  const marketMean = w * m.lowMean + v * m.highMean;
+  const lowBeta = (w * vl + v * c) / marketVariance;
+  const highBeta = (w * c + v * vh) / marketVariance;
+  let lower = Number.NaN;
+  let upper = Number.NaN;
+  let capmConsistent = Number.NaN;
+  let equalNoise = Number.NaN;
+  let returnImplied = Number.NaN;
+  if (c > 0) {
+    lower = c / (v * vh + w * c);
+    upper = Math.max(lower, vl / (w * vl + v * c));
+    capmConsistent = Math.min(Math.max(lowBeta, lower), upper);
+    equalNoise = Math.min(Math.max(equalNoiseLowBeta(m), lower), upper);
+    returnImplied = returnImpliedLowBeta(m.lowMean, marketMean, Math.sqrt(marketVariance / m.n), w) ?? Number.NaN;
+  }
+  let q = offset;
+  out[q] = lower;
+  out[(q += stride)] = upper;
+  out[(q += stride)] = (1 - w * upper) / v;
+  out[(q += stride)] = (1 - w * lower) / v;
+  out[(q += stride)] = lowBeta;
+  out[(q += stride)] = highBeta;
+  out[(q += stride)] = m.lowMean - lowBeta * marketMean;
+  out[(q += stride)] = m.highMean - highBeta * marketMean;
+  out[(q += stride)] = capmConsistent;
+  out[(q += stride)] = equalNoise;
+  out[(q += stride)] = returnImplied;
+  out[(q += stride)] = m.lowMean / Math.sqrt(vl);
+  out[(q += stride)] = m.highMean / Math.sqrt(vh);
+  out[(q += stride)] = marketMean / Math.sqrt(marketVariance);
+}

@@ -1,0 +1,61 @@
+/**
+ * HAC (heteroskedasticity- and autocorrelation-consistent) covariance of OLS coefficients.
+ *
+ * ## Convention (R sandwich NeweyWest / kernHAC / vcovHAC; methods.md section 8)
+ *   Cov(b_hat) = (X'X)^{-1} S (X'X)^{-1},   S = kernel sum of h_t = x_t e_t (kernelSum.ts),
+ * times T/(T - k) when `adjust` is set. Kernels: Bartlett (Newey & West 1987, Econometrica 55(3),
+ * 703-708) or quadratic spectral (Andrews 1991); bandwidth fixed (`lags` L <=> Bartlett bandwidth
+ * L + 1), Newey & West (1994) or Andrews (1991) AR(1); optional VAR(1) prewhitening (Andrews &
+ * Monahan 1992). For the automatic bandwidths a design column of ones (the intercept) gets weight 0,
+ * as in R. Defaults: Bartlett, Newey-West 1994 lag, no prewhitening, no adjustment. R's NeweyWest()
+ * instead defaults to prewhite = TRUE and kernHAC() to adjust = TRUE: pass those to reproduce them.
+ */
+
+import { kernelSum } from "./kernelSum.js";
+import { crossColumns, inverse, scale, symmetrise, type Matrix } from "../../numerics/linearAlgebra.js";
+import type { HacKernel, HacOptions } from "../options.js";
+
+export interface HacCovariance {
+  /** k x k covariance of the coefficients, in the order of the design columns. */
+  readonly covariance: Matrix;
+  readonly kernel: HacKernel;
+  /** Bandwidth S chosen or given (for Newey-West 1994 Bartlett, before rounding down to `lags`). */
+  readonly bandwidth: number;
+  /** Bartlett lag truncation actually used; null for the quadratic-spectral kernel. */
+  readonly lags: number | null;
+  readonly prewhite: boolean;
+  readonly adjust: boolean;
+}
+
+/**
+ * @param design k columns, intercept included as a column of ones
+ * @param residuals OLS residuals of the same regression
+ */
+export function hacCovariance(design: readonly Float64Array[], residuals: Float64Array, options: HacOptions = {}): HacCovariance {
+  const n = residuals.length;
+  const k = design.length;
+  if (k === 0) throw new RangeError("hacCovariance: the design has no columns");
+  for (const column of design) if (column.length !== n) throw new RangeError("hacCovariance: design and residuals differ in length");
+  const scores = design.map((column) => {
+    const h = new Float64Array(n);
+    for (let t = 0; t < n; t++) h[t] = column[t]! * residuals[t]!;
+    return h;
+  });
+  const estimate = kernelSum(scores, options, interceptWeights(design));
+  const adjust = options.adjust ?? false;
+  const meat = adjust ? scale(estimate.sum, n / (n - k)) : estimate.sum;
+  const bread = inverse(crossColumns(design, design));
+  const covariance = symmetrise(multiplyThree(bread, meat, bread));
+  return { covariance, kernel: estimate.kernel, bandwidth: estimate.bandwidth, lags: estimate.lags, prewhite: estimate.prewhite, adjust };
+}
+
+/** 0 for columns of ones (an intercept), 1 otherwise; all 1 if every column is an intercept. */
+export function interceptWeights(design: readonly Float64Array[]): number[] {
+  const weights = design.map((column) => (column.every((value) => value === 1) ? 0 : 1));
+  return weights.every((w) => w === 0) ? weights.map(() => 1) : weights;
+}
+
+function multiplyThree(a: Matrix, b: Matrix, c: Matrix): Matrix {
+  const ab = a.map((row) => b[0]!.map((_, j) => row.reduce((sum, value, l) => sum + value * b[l]![j]!, 0)));
+  return ab.map((row) => c[0]!.map((_, j) => row.reduce((sum, value, l) => sum + value * c[l]![j]!, 0)));
+}

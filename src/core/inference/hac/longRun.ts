@@ -1,0 +1,55 @@
+/**
+ * Long-run covariance of a vector series z_t (the spectral density at frequency 0 times 2 pi).
+ *
+ * ## Convention (Newey & West 1987; Andrews 1991; methods.md sections 4 and 8)
+ *   Omega_hat = S / T,  S = kernel sum (kernelSum.ts) of h_t = z_t - zbar,
+ * so that Var(zbar) is approximately Omega_hat / T. Kernels, bandwidths and prewhitening as for the
+ * HAC regression covariance; every component gets weight 1 in the automatic bandwidths (there is no
+ * intercept). No small-sample adjustment. The "iid" alternative is the sample covariance of z_t
+ * with divisor T - 1 (`sampleCovarianceOf`).
+ */
+
+import { kernelSum } from "./kernelSum.js";
+import { scale, symmetrise, type Matrix } from "../../numerics/linearAlgebra.js";
+import type { HacKernel, HacOptions } from "../options.js";
+import { crossProducts } from "../../moments.js";
+
+export interface LongRunCovariance {
+  readonly covariance: Matrix;
+  readonly kernel: HacKernel;
+  readonly bandwidth: number;
+  readonly lags: number | null;
+  readonly prewhite: boolean;
+}
+
+/** Omega_hat of the series given as columns (all of one length T). */
+export function longRunCovariance(columns: readonly Float64Array[], options: HacOptions = {}): LongRunCovariance {
+  const n = columns[0]?.length ?? 0;
+  if (n < 2) throw new RangeError("longRunCovariance: needs at least 2 rows");
+  const demeaned = columns.map((column) => {
+    let mean = 0;
+    for (let t = 0; t < n; t++) mean += column[t]!;
+    mean /= n;
+    const h = new Float64Array(n);
+    for (let t = 0; t < n; t++) h[t] = column[t]! - mean;
+    return h;
+  });
+  const estimate = kernelSum(
+    demeaned,
+    options,
+    columns.map(() => 1),
+  );
+  return {
+    covariance: symmetrise(scale(estimate.sum, 1 / n)),
+    kernel: estimate.kernel,
+    bandwidth: estimate.bandwidth,
+    lags: estimate.lags,
+    prewhite: estimate.prewhite,
+  };
+}
+
+/** The sample covariance matrix of the columns, divisor T - 1 (compensated one-pass sums). */
+export function sampleCovarianceOf(columns: readonly Float64Array[]): Matrix {
+  const cp = crossProducts(columns);
+  return cp.sums.map((row) => row.map((value) => value / (cp.n - 1)));
+}

@@ -1,0 +1,91 @@
+/** The wide layout: one row per date, one column per series. */
+import { readDates, settleCells } from "./cells.js";
+import { resolveColumns } from "./columns.js";
+import type { Extracted } from "./extracted.js";
+import type { Grid } from "../engines/grid.js";
+import type { IssueList } from "../issueList.js";
+import type { TableLocation } from "./layout.js";
+import type { Sentinels } from "../values/numbers.js";
+import type { ReadOptions } from "../options.js";
+import { checkFieldCounts } from "./rowShape.js";
+
+/** Extract the requested columns of the located table; null (after adding issues) on any problem. */
+export function extractWide(
+  grid: Grid,
+  location: TableLocation,
+  options: ReadOptions,
+  sentinels: Sentinels,
+  issues: IssueList,
+  findInOtherTable: (name: string) => number | undefined,
+): Extracted | null {
+  const { source } = options;
+  const header = grid.fields(location.headerRow).map((name) => name.trim());
+  const headerLine = grid.line(location.headerRow);
+  const dateColumn = options.dateColumn?.trim() ?? header[0] ?? "";
+  const wanted = [
+    { name: dateColumn, role: "date" as const },
+    ...options.columns.map((name) => ({ name: name.trim(), role: "value" as const })),
+  ];
+  const resolved = resolveColumns(header, wanted, { source, line: headerLine, findInOtherTable });
+  if (typeof resolved[0] !== "number") {
+    issues.addAll(resolved as never[]);
+    return null;
+  }
+  const [dateIndex, ...valueIndexes] = resolved as number[];
+  if (valueIndexes.includes(dateIndex as number)) {
+    issues.add({ code: "invalid-option", source, option: "columns", reason: `${JSON.stringify(dateColumn)} is the date column` });
+    return null;
+  }
+  const count = location.endRow - location.firstDataRow;
+  const first = location.firstDataRow;
+  const rows = new Int32Array(count);
+  for (let i = 0; i < count; i++) rows[i] = first + i;
+  const columns = valueIndexes.map((index) => header[index] as string);
+  const values = columns.map(() => new Float64Array(count));
+  const slots = new Int32Array(header.length).fill(-1);
+  valueIndexes.forEach((fieldIndex, slot) => (slots[fieldIndex] = slot));
+  const counts = new Int32Array(count);
+  let plainKeys: Float64Array | null = null;
+  let withNaN: readonly boolean[] = values.map(() => true);
+  if (grid.readRows === undefined) for (let i = 0; i < count; i++) counts[i] = grid.readNumbers(first + i, slots, values, i);
+  else {
+    plainKeys = new Float64Array(count);
+    const read = grid.readRows(first, count, slots, values, counts, dateIndex as number, plainKeys);
+    if (!read.plainDates) plainKeys = null;
+    withNaN = read.withNaN;
+  }
+  if (!checkFieldCounts(grid, rows, counts, header, source, issues)) return null;
+  let missing = 0;
+  values.forEach((column, c) => {
+    // Only NaN cells and numeric sentinels need settling.
+    if (withNaN[c] === true || sentinels.numbers.size > 0)
+      missing += settleCells(grid, rows, valueIndexes[c] as number, columns[c] as string, column, sentinels, options, issues);
+  });
+
+  const dated = readDates(grid, rows, dateIndex as number, dateColumn, options, issues, plainKeys);
+  if (dated === null || !issues.empty) return null;
+  return {
+    dateColumn,
+    columns,
+    keys: dated.keys,
+    isos: dated.isos,
+    dateTexts: dated.texts,
+    lines: linesOf(grid, rows),
+    values,
+    complete: missing === 0,
+    rawText: (column, row) => grid.field(rows[row] as number, valueIndexes[column] as number),
+    rowsRead: count,
+    ordered: false,
+    blocks: location.blocks,
+    block: location.block,
+    titleRows: location.titleRows,
+    headerLine,
+  };
+}
+
+/** The source line of each row. */
+function linesOf(grid: Grid, rows: Int32Array): Int32Array {
+  const lines = new Int32Array(rows.length);
+  for (let i = 0; i < rows.length; i++) lines[i] = grid.line(rows[i] as number);
+  return lines;
+}

@@ -1,0 +1,44 @@
+/** The rows of a located table before dates are ordered and values are converted. */
+import { plainIsoDateOfKey } from "../values/dates.js";
+
+/** Rows of one table, in file order (or date order when `ordered`), values in file units. */
+export interface Extracted {
+  readonly dateColumn: string;
+  readonly columns: readonly string[];
+  /**
+   * Date of each row: sort key (see ParsedDate), ISO text, and the text it was read from. `isos` and
+   * `dateTexts` are null when every date is written as a plain "YYYY-MM-DD", which is then both
+   * texts and is recovered from the key (see `isoAt`, `dateTextAt`).
+   */
+  readonly keys: Float64Array;
+  readonly isos: readonly string[] | null;
+  readonly dateTexts: readonly string[] | null;
+  readonly lines: Int32Array;
+  /** One array per column, in file units; NaN marks a missing value. */
+  readonly values: readonly Float64Array[];
+  /**
+   * True when no value is missing: every value is then a number (never NaN), and so is every
+   * converted return (see convert.ts), so no row is dropped. False when some may be missing.
+   */
+  readonly complete: boolean;
+  /** The file text behind values[column][row], for messages. */
+  readonly rawText: (column: number, row: number) => string;
+  /** Data rows in the file. */
+  readonly rowsRead: number;
+  /** True when rows are already in date order (the long layout sorts while pivoting). */
+  readonly ordered: boolean;
+  readonly blocks: number;
+  readonly block: number;
+  readonly titleRows: number;
+  readonly headerLine: number;
+}
+
+/** ISO text of the date of row i. */
+export function isoAt(data: Extracted, i: number): string {
+  return data.isos === null ? plainIsoDateOfKey(data.keys[i] as number) : (data.isos[i] as string);
+}
+
+/** The date of row i as written. */
+export function dateTextAt(data: Extracted, i: number): string {
+  return data.dateTexts === null ? plainIsoDateOfKey(data.keys[i] as number) : (data.dateTexts[i] as string);
+}

@@ -1,0 +1,118 @@
+/** From extracted rows to a ReturnTable: date order, conversion to decimal returns, dropping, checks. */
+import { arrayOf, float64Of, identityOf, int32Of, isIdentity } from "./arrays.js";
+import { success, failure, type Result } from "../../core/result.js";
+import { dateTextAt, isoAt, type Extracted } from "./extracted.js";
+import { plainIsoDateOfKey } from "../values/dates.js";
+import { detectFrequency, frequencyFromPeriods } from "../values/frequency.js";
+import type { IssueList } from "../issueList.js";
+import type { InputIssue } from "../issues.js";
+import type { ReadOptions } from "../options.js";
+import type { ReturnTable } from "./returnTable.js";
+import { toReturns } from "./convert.js";
+import { unitWarnings, layoutWarnings } from "./warnings.js";
+
+/** A table needs at least this many usable rows (after dropping and, for prices, the first row). */
+export const MIN_ROWS = 3;
+const MAX_DROPPED_DATES = 5;
+
+/** The first k >= from with keys[k] <= keys[k - 1] (not later than the previous date), or keys.length. */
+function firstNotIncreasing(keys: Float64Array, from: number): number {
+  for (let k = from; k < keys.length; k++) if (!((keys[k] as number) - (keys[k - 1] as number) > 0)) return k;
+  return keys.length;
+}
+
+/** Row order by date: the identity when already ordered, else checked (or sorted with options.sort). */
+function orderRows(data: Extracted, options: ReadOptions, issues: IssueList): Int32Array {
+  const { keys } = data;
+  const n = keys.length;
+  const sorted = options.sort === true && !data.ordered;
+  const order = sorted ? int32Of(n, (i) => i).sort((a, b) => (keys[a] as number) - (keys[b] as number) || a - b) : identityOf(n);
+  const { source } = options;
+  const column = data.dateColumn;
+  // Unsorted, the order is the identity: find the first key that does not increase in one tight loop.
+  for (let k = sorted ? 1 : firstNotIncreasing(keys, 1); k < n; k = sorted ? k + 1 : firstNotIncreasing(keys, k + 1)) {
+    const i = order[k] as number;
+    const previous = order[k - 1] as number;
+    const delta = (keys[i] as number) - (keys[previous] as number);
+    if (delta > 0) continue;
+    const line = data.lines[i] as number;
+    const value = dateTextAt(data, i);
+    const previousLine = data.lines[previous] as number;
+    if (delta === 0)
+      issues.add({
+        code: "duplicate-date",
+        source,
+        line: Math.max(line, previousLine),
+        column,
+        value,
+        firstLine: Math.min(line, previousLine),
+      });
+    else issues.add({ code: "unsorted-dates", source, line, column, value, previousValue: dateTextAt(data, previous), previousLine });
+  }
+  return order;
+}
+
+/** Finish the table (the frequency comes from the dates of all rows, dropped ones included); fails with the collected issues when anything is wrong. */
+export function finishTable(data: Extracted, options: ReadOptions, issues: IssueList): Result<ReturnTable, InputIssue[]> {
+  const order = orderRows(data, options, issues);
+  if (!issues.empty) return failure(issues.list());
+  const converted = toReturns(data, order, options, issues);
+  if (!issues.empty) return failure(issues.list());
+  const { rows, values } = converted;
+  // A row is kept when no column is missing (NaN) there.
+  let missing: Uint8Array | null = null;
+  if (!data.complete)
+    for (const column of values) {
+      for (let k = 0; k < column.length; k++) if (Number.isNaN(column[k] as number)) (missing ??= new Uint8Array(rows.length))[k] = 1;
+    }
+  let kept = rows.length;
+  let keep: Int32Array | null = null;
+  const droppedDates: string[] = [];
+  let dropped = 0;
+  if (missing !== null) {
+    keep = new Int32Array(rows.length);
+    kept = 0;
+    for (let k = 0; k < rows.length; k++) {
+      if (missing[k] === 0) keep[kept++] = k;
+      else if (++dropped <= MAX_DROPPED_DATES) droppedDates.push(isoAt(data, rows[k] as number));
+    }
+  }
+  if (kept < MIN_ROWS) {
+    return failure([{ code: "too-few-rows", source: options.source, kept, required: MIN_ROWS, rowsRead: data.rowsRead, dropped }]);
+  }
+  const source = keep === null || kept === rows.length ? null : keep.subarray(0, kept);
+  const pick = (column: Float64Array): Float64Array =>
+    source === null ? column : float64Of(source.length, (i) => column[source[i] as number] as number);
+  const keptRows = source === null ? rows : int32Of(source.length, (i) => rows[source[i] as number] as number);
+  const columns = new Map<string, Float64Array>();
+  data.columns.forEach((name, c) => columns.set(name, pick(values[c] as Float64Array)));
+  const frequency =
+    options.periodsPerYear === undefined ? detectFrequency(orderedKeys(data.keys, order)) : frequencyFromPeriods(options.periodsPerYear);
+  const identity = keptRows.length === data.keys.length && isIdentity(keptRows);
+  const { isos } = data;
+  let dates: readonly string[] | null = null;
+  let keptKeys: Float64Array | null = null;
+  if (isos !== null) dates = identity ? isos : arrayOf(keptRows.length, (i) => isos[keptRows[i] as number] as string);
+  else keptKeys = identity ? data.keys : float64Of(keptRows.length, (i) => data.keys[keptRows[i] as number] as number);
+  const plainKeys = keptKeys;
+  return success({
+    source: options.source,
+    dateColumn: data.dateColumn,
+    get dates(): readonly string[] {
+      return (dates ??= arrayOf((plainKeys as Float64Array).length, (i) => plainIsoDateOfKey((plainKeys as Float64Array)[i] as number)));
+    },
+    firstDate: isoAt(data, keptRows[0] as number),
+    lastDate: isoAt(data, keptRows[keptRows.length - 1] as number),
+    columns,
+    lines: identity ? data.lines : int32Of(keptRows.length, (i) => data.lines[keptRows[i] as number] as number),
+    rowsRead: data.rowsRead,
+    dropped: { count: dropped, firstDates: droppedDates },
+    frequency,
+    warnings: [...layoutWarnings(data, options.source), ...unitWarnings(columns, options)],
+  });
+}
+
+/** keys[order[i]] for each i (the identity order is common and skips the copy). */
+function orderedKeys(keys: Float64Array, order: Int32Array): Float64Array {
+  return isIdentity(order) ? keys : float64Of(order.length, (k) => keys[order[k] as number] as number);
+}

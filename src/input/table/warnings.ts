@@ -1,0 +1,38 @@
+/** Warnings about a table that was read: units that look wrong, skipped titles, other tables. */
+import { float64Of } from "./arrays.js";
+import type { Extracted } from "./extracted.js";
+import { median } from "../values/frequency.js";
+import type { InputWarning } from "../issues.js";
+import type { ReadOptions } from "../options.js";
+
+/** Decimal returns with a median |r| above this look like percent. */
+export const PERCENT_LOOKING_MEDIAN = 0.5;
+/** Percent-read returns with a median |r| (decimal) below this look like decimal data. */
+export const DECIMAL_LOOKING_MEDIAN = 0.0005;
+
+/** The unit check looks at about this many evenly spaced values of each column. */
+const SAMPLE = 10_000;
+
+/** "looks-like-percent" / "looks-like-decimal" per column, from the median |return| of a sample (not for prices). */
+export function unitWarnings(columns: ReadonlyMap<string, Float64Array>, options: ReadOptions): InputWarning[] {
+  if (options.input === "prices") return [];
+  const percent = options.units === "percent";
+  const warnings: InputWarning[] = [];
+  for (const [column, values] of columns) {
+    const step = Math.max(1, Math.floor(values.length / SAMPLE));
+    const medianAbs = median(float64Of(Math.ceil(values.length / step), (i) => Math.abs(values[i * step] as number)));
+    if (!percent && medianAbs > PERCENT_LOOKING_MEDIAN)
+      warnings.push({ code: "looks-like-percent", source: options.source, column, medianAbs });
+    if (percent && medianAbs > 0 && medianAbs < DECIMAL_LOOKING_MEDIAN)
+      warnings.push({ code: "looks-like-decimal", source: options.source, column, medianAbs });
+  }
+  return warnings;
+}
+
+/** "skipped-lines" for title rows above the header and "other-blocks" when the file holds several tables. */
+export function layoutWarnings(data: Extracted, source: string): InputWarning[] {
+  const warnings: InputWarning[] = [];
+  if (data.titleRows > 0) warnings.push({ code: "skipped-lines", source, line: data.headerLine, count: data.titleRows });
+  if (data.blocks > 1) warnings.push({ code: "other-blocks", source, used: data.block, blocks: data.blocks });
+  return warnings;
+}

@@ -1,0 +1,106 @@
+/**
+ * Text report sections about the identified set: its ranges, the landmarks, the candidate grid and
+ * the check that every candidate reproduces the observed CAPM regressions. Each returns its lines.
+ */
+
+import { landmarkNames, type Candidate, type IdentifiedBounds, type LandmarkName, type Landmarks } from "../../core/types.js";
+import { largestCapmDiscrepancy, type CapmCheckInput } from "../check.js";
+import { formatNumber, notAvailable, tableDigits } from "../format.js";
+import { fields, indent, printable, table, wrap, type Style } from "../layout.js";
+
+/** Plain-language descriptions of the landmarks, for a reader who has never seen the tool. */
+export const landmarkDescriptions: Record<LandmarkName, string> = {
+  lowNoiseFree: "low book has no noise (the largest low beta in the set)",
+  highNoiseFree: "high book has no noise (the smallest low beta in the set)",
+  equalNoise: "both books have the same noise variance",
+  capmConsistent: "structural betas equal the CAPM betas, so the expected alphas are zero",
+  returnImplied: "betas implied by the mean returns if only the factor is priced",
+};
+
+/** A discrepancy above this is reported as a failed check rather than as rounding. */
+export const reproductionTolerance = 1e-9;
+
+export const candidateHeader = [
+  "low\nbeta",
+  "high\nbeta",
+  "factor\nvariance",
+  "low noise\nvariance",
+  "high noise\nvariance",
+  "noise\nshare",
+  "expected\nlow alpha",
+  "expected\nhigh alpha",
+];
+
+export function candidateCells(c: Candidate): string[] {
+  return [
+    c.lowBeta,
+    c.highBeta,
+    c.factorVariance,
+    c.lowNoiseVariance,
+    c.highNoiseVariance,
+    c.noiseShare,
+    c.expectedLowAlpha,
+    c.expectedHighAlpha,
+  ].map((x) => formatNumber(x, tableDigits));
+}
+
+/** The Identified set section: the ranges and what they mean. */
+export function boundsSection(bounds: IdentifiedBounds, style: Style): string[] {
+  const range = (i: { readonly min: number; readonly max: number }): string => `${formatNumber(i.min)} to ${formatNumber(i.max)}`;
+  const meaning =
+    "Every pair of betas in this range fits the data equally well: the pairs differ only in how " +
+    "each book's risk splits between the common factor and its own noise.";
+  return [
+    style.heading("The identified set"),
+    ...fields([
+      ["low structural beta", range(bounds.lowBeta)],
+      ["high structural beta", range(bounds.highBeta)],
+      ["factor variance", range(bounds.factorVariance)],
+    ]),
+    ...wrap(meaning, indent, indent),
+  ];
+}
+
+/** What the set sections say instead when the model is rejected. */
+export function rejectedSection(reason: string | null, style: Style): string[] {
+  const text =
+    "None: no one-factor structure fits these data, so no set, landmarks or candidates are shown." +
+    (reason === null ? "" : ` Why: ${printable(reason)}.`);
+  return [style.heading("The identified set"), ...wrap(text, indent, indent)];
+}
+
+/** The Landmarks section: one row per named point, then what each name means. */
+export function landmarksSection(landmarks: Landmarks, style: Style): string[] {
+  const rows = landmarkNames.map((name) => {
+    const c = landmarks[name];
+    return c === null ? [name, ...candidateHeader.map(() => notAvailable)] : [name, ...candidateCells(c)];
+  });
+  const width = Math.max(...landmarkNames.map((name) => name.length));
+  const legend = landmarkNames.flatMap((name) => {
+    const c = landmarks[name];
+    const note = c === null ? " (not reported: see Diagnostics)" : c.insideSet ? "" : " (outside the identified set: see Diagnostics)";
+    return wrap(`${landmarkDescriptions[name]}${note}`, `${indent}${name.padEnd(width)}  `, " ".repeat(indent.length + width + 2));
+  });
+  return [style.heading("Landmarks"), ...table({ header: ["", ...candidateHeader], rows }), "", ...legend];
+}
+
+/** The Candidate grid section and the CAPM reproduction check under it. */
+export function gridSection(solution: CapmCheckInput, style: Style): string[] {
+  const grid = solution.grid;
+  const rows = grid.map((c, i) => [String(i + 1), ...candidateCells(c)]);
+  const lines = [
+    style.heading("Candidate grid"),
+    `${indent}${grid.length} structures with the low beta evenly spaced over the set, ends included.`,
+    ...table({ header: ["#", ...candidateHeader], rows }),
+  ];
+  const discrepancy = largestCapmDiscrepancy(solution);
+  if (discrepancy !== null) {
+    const ok = discrepancy <= reproductionTolerance;
+    const difference = `largest relative difference across the grid: ${formatNumber(discrepancy, 2)}`;
+    const text = ok
+      ? `Check: every candidate reproduces the observed CAPM betas and residual variances (${difference}).`
+      : `Check FAILED: the candidates do not reproduce the observed CAPM betas and residual variances (${difference}).`;
+    lines.push("", ...wrap(text, indent, indent).map((line) => (ok ? line : style.warning(line))));
+  }
+  return lines;
+}

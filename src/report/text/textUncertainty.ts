@@ -1,0 +1,166 @@
+/**
+ * Text report sections about sampling uncertainty: the bounds with their standard errors and limits,
+ * intervals for the structural betas themselves, Sharpe ratios with standard errors, the bootstrap
+ * summary, and a plain-language reading of which numbers are well determined.
+ */
+
+import { bootstrapQuantities, type BootstrapQuantity } from "../../core/inference/bootstrap/statistics.js";
+import { normalQuantile } from "../../core/numerics/normal.js";
+import type { Uncertainty } from "../../core/inference/uncertaintyTypes.js";
+import type { IdentifiedBounds, Solution } from "../../core/types.js";
+import { formatNumber } from "../format.js";
+import { fields, indent, table, wrap, type Style } from "../layout.js";
+
+const percent = (confidence: number): string => `${Number((confidence * 100).toPrecision(4))}%`;
+const limits = (lower: number, upper: number): string => `${formatNumber(lower)} to ${formatNumber(upper)}`;
+
+const intervalNames = { "imbens-manski": "Imbens-Manski", stoye: "Stoye" } as const;
+
+/** The identified set with a standard error and pointwise limits for each bound, and the beta intervals. */
+export function boundsWithUncertaintySection(bounds: IdentifiedBounds, u: Uncertainty, style: Style): string[] {
+  const c = percent(u.confidence);
+  if (u.bounds === null || u.lowBeta === null || u.highBeta === null) return [];
+  const b = u.bounds;
+  const row = (label: string, end: string, p: { estimate: number; stdError: number; lower: number; upper: number }) => [
+    label,
+    end,
+    formatNumber(p.estimate),
+    formatNumber(p.stdError),
+    limits(p.lower, p.upper),
+  ];
+  const source =
+    u.method.intervalSource === "bootstrap"
+      ? "bootstrap"
+      : `delta method, ${u.method.longRun === "hac" ? "HAC" : "iid"} long-run covariance`;
+  const method = intervalNames[u.lowBeta.interval.method];
+  return [
+    style.heading(`How precisely the set is known (${c} confidence)`),
+    ...table({
+      header: ["", "", "estimate", "std. error", `${c} limits\nof this end`],
+      rows: [
+        row("low structural beta", "lower end", b.lowBeta.min),
+        row("", "upper end", b.lowBeta.max),
+        row("high structural beta", "lower end", b.highBeta.min),
+        row("", "upper end", b.highBeta.max),
+      ],
+    }),
+    ...wrap(`Standard errors: ${source}; correlation of the two ends ${formatNumber(b.correlation, 3)}.`, indent, indent),
+    "",
+    ...fields([
+      [`low structural beta (${method}, ${c})`, limits(u.lowBeta.interval.lower, u.lowBeta.interval.upper)],
+      [`high structural beta (${method}, ${c})`, limits(u.highBeta.interval.lower, u.highBeta.interval.upper)],
+    ]),
+    ...wrap(
+      `These intervals cover the true structural beta, wherever it lies in the set, with ${c} probability: ` +
+        `wider than the set [${formatNumber(bounds.lowBeta.min)}, ${formatNumber(bounds.lowBeta.max)}] by the sampling error of its ends.`,
+      indent,
+      indent,
+    ),
+  ];
+}
+
+/** Per-period Sharpe ratios with Lo (2002) iid and HAC standard errors. */
+export function sharpeSection(u: Uncertainty, periodsPerYear: number | null, style: Style): string[] {
+  const names = ["low", "high", "market"] as const;
+  const annual = periodsPerYear === null ? null : Math.sqrt(periodsPerYear);
+  return [
+    style.heading("Sharpe ratios (excess returns)"),
+    ...table({
+      header: [
+        "",
+        "per period",
+        "iid\nstd. error",
+        "HAC\nstd. error",
+        ...(annual === null ? [] : [`annualised\n(x sqrt(${periodsPerYear}))`]),
+      ],
+      rows: names.map((name) => {
+        const s = u.sharpe[name];
+        return [
+          name,
+          formatNumber(s.estimate),
+          formatNumber(s.iidStdErr),
+          formatNumber(s.hacStdErr),
+          ...(annual === null ? [] : [formatNumber(s.estimate * annual)]),
+        ];
+      }),
+    }),
+  ];
+}
+
+const quantityLabels: Record<BootstrapQuantity, string> = {
+  lowBetaMin: "low beta, lower end",
+  lowBetaMax: "low beta, upper end",
+  highBetaMin: "high beta, lower end",
+  highBetaMax: "high beta, upper end",
+  lowCapmBeta: "CAPM beta, low",
+  highCapmBeta: "CAPM beta, high",
+  lowCapmAlpha: "CAPM alpha, low",
+  highCapmAlpha: "CAPM alpha, high",
+  capmConsistentLowBeta: "capmConsistent low beta",
+  equalNoiseLowBeta: "equalNoise low beta",
+  returnImpliedLowBeta: "returnImplied low beta",
+  lowSharpe: "Sharpe ratio, low",
+  highSharpe: "Sharpe ratio, high",
+  marketSharpe: "Sharpe ratio, market",
+};
+
+/** The bootstrap's percentile intervals and standard errors. */
+export function bootstrapSection(u: Uncertainty, style: Style): string[] {
+  const bs = u.bootstrap;
+  if (bs === null) return [];
+  const c = percent(bs.confidence);
+  return [
+    style.heading(
+      `Stationary bootstrap (${bs.replicates} replicates, mean block length ${formatNumber(bs.blockLength, 3)}, seed ${bs.seed})`,
+    ),
+    ...table({
+      header: ["", "std. error", `${c} percentile\ninterval`, "replicates\nused"],
+      rows: bootstrapQuantities.map((q) => {
+        const interval = bs.intervals[q];
+        return [
+          quantityLabels[q],
+          formatNumber(bs.stdErrors[q]),
+          interval === null ? "n/a" : limits(interval.lower, interval.upper),
+          String(bs.validReplicates[q]),
+        ];
+      }),
+    }),
+  ];
+}
+
+/** Plain sentences: which headline numbers are well determined and which are not. */
+export function precisionSection(solution: Solution, u: Uncertainty, style: Style): string[] {
+  const c = percent(u.confidence);
+  const z = normalQuantile(1 - (1 - u.confidence) / 2);
+  const lines: string[] = [];
+  for (const book of ["low", "high"] as const) {
+    const fit = solution.capm[book];
+    const se = u.capm[book].hac.alphaStdErr;
+    const t = se > 0 ? fit.alpha / se : null;
+    const verdict =
+      t === null ? "its standard error is 0" : Math.abs(t) < z ? "not distinguishable from zero" : "distinguishable from zero";
+    lines.push(`CAPM alpha of the ${book} book: ${formatNumber(fit.alpha)} +/- ${formatNumber(z * se, 2)} (${c}, HAC): ${verdict}.`);
+  }
+  if (u.bounds !== null && solution.bounds !== null) {
+    const width = solution.bounds.lowBeta.max - solution.bounds.lowBeta.min;
+    const error = z * Math.max(u.bounds.lowBeta.min.stdError, u.bounds.lowBeta.max.stdError);
+    const ratio = width / error;
+    const verdict =
+      ratio >= 2
+        ? "so the range itself is well determined"
+        : "so sampling error is as large as the set itself: rely on the interval below, not on the set";
+    lines.push(
+      `Ends of the set of the low structural beta: each known to about +/- ${formatNumber(error, 2)} (${c}); ` +
+        `the set is ${formatNumber(width, 3)} wide, ${formatNumber(ratio, 2)} times that, ${verdict}.`,
+    );
+  }
+  if (u.lowBeta !== null) {
+    lines.push(`Low structural beta itself: from ${limits(u.lowBeta.interval.lower, u.lowBeta.interval.upper)} with ${c} confidence.`);
+  }
+  const low = u.sharpe.low;
+  lines.push(
+    `Sharpe ratio of the low book: ${formatNumber(low.estimate)} per period +/- ${formatNumber(z * low.hacStdErr, 2)} (${c}, HAC)` +
+      (Math.abs(low.estimate) < z * low.hacStdErr ? ": not distinguishable from zero." : "."),
+  );
+  return [style.heading("Reading the uncertainty"), ...lines.flatMap((line) => wrap(line, `${indent}- `, `${indent}  `))];
+}

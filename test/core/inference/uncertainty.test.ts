@@ -1,0 +1,163 @@
+/**
+ * assessUncertainty: how its parts fit together, its defaults and its output contract.
+ * Expected values come from independent code (solve's identified set), from published formulas
+ * (White's 1980 HC0 covariance, to which HAC reduces at lag 0; the affine map b_high = (1 - w b)/(1 - w)
+ * of methods.md §1) or from scipy (z_0.975 = 1.959963984540054). The statistical methods themselves
+ * are checked against their references in the other files of this folder.
+ */
+
+import { describe, expect, test } from "vitest";
+import {
+  assessUncertainty,
+  automaticBandwidths,
+  hacKernels,
+  imbensManskiCriticalValue,
+  intervalMethods,
+  intervalSources,
+  longRunMethods,
+} from "../../../src/core/inference/index.js";
+import { inverse } from "../../../src/core/numerics/linearAlgebra.js";
+import { simulateSample } from "../../../src/core/forward/simulate.js";
+import { solve } from "../../../src/core/solve.js";
+import { expectClose } from "../../support/close.js";
+
+const w = 0.4;
+const sample = simulateSample(
+  { lowBeta: 0.8, weight: w, factorVol: 0.012, factorMean: 0.0005, lowNoiseVol: 0.005, highNoiseVol: 0.006 },
+  { periods: 600, seed: 17, noiseAr: 0.2 },
+);
+const input = { low: sample.low, high: sample.high, riskFree: 0.0001 };
+const result = assessUncertainty(input, { weight: w });
+const z975 = 1.959963984540054;
+
+describe("the bounds", () => {
+  test("their estimates are solve()'s identified set", () => {
+    const solved = solve(input, { weight: w });
+    if (!solved.ok || solved.value.bounds === null) expect.fail("solve found no set");
+    expectClose(result.bounds?.lowBeta.min.estimate, solved.value.bounds.lowBeta.min, { rel: 1e-12 });
+    expectClose(result.bounds?.lowBeta.max.estimate, solved.value.bounds.lowBeta.max, { rel: 1e-12 });
+    expectClose(result.bounds?.highBeta.min.estimate, solved.value.bounds.highBeta.min, { rel: 1e-12 });
+    expectClose(result.bounds?.highBeta.max.estimate, solved.value.bounds.highBeta.max, { rel: 1e-12 });
+  });
+
+  test("pointwise limits are estimate -/+ z_0.975 se, z = 1.959963984540054 (scipy norm.ppf)", () => {
+    const min = result.bounds!.lowBeta.min;
+    expectClose(min.lower, min.estimate - z975 * min.stdError, { rel: 1e-14 });
+    expectClose(min.upper, min.estimate + z975 * min.stdError, { rel: 1e-14 });
+  });
+
+  test("the high beta's standard errors are the low beta's times w/(1 - w), ends swapped", () => {
+    const b = result.bounds!;
+    expectClose(b.highBeta.min.stdError, (w / (1 - w)) * b.lowBeta.max.stdError, { rel: 1e-14 });
+    expectClose(b.highBeta.max.stdError, (w / (1 - w)) * b.lowBeta.min.stdError, { rel: 1e-14 });
+  });
+});
+
+describe("the intervals for the structural betas", () => {
+  test("the default is Imbens-Manski on the delta-method bounds", () => {
+    const b = result.bounds!;
+    const ratio = (b.lowBeta.max.estimate - b.lowBeta.min.estimate) / Math.max(b.lowBeta.min.stdError, b.lowBeta.max.stdError);
+    const c = imbensManskiCriticalValue(ratio, 0.95);
+    expect(result.lowBeta?.interval.method).toBe("imbens-manski");
+    expectClose(result.lowBeta?.interval.lower, b.lowBeta.min.estimate - c * b.lowBeta.min.stdError, { rel: 1e-14 });
+    expectClose(result.lowBeta?.interval.upper, b.lowBeta.max.estimate + c * b.lowBeta.max.stdError, { rel: 1e-14 });
+  });
+
+  test("the high beta's interval is the image of the low beta's under b_high = (1 - w b)/(1 - w)", () => {
+    const h = (b: number) => (1 - w * b) / (1 - w);
+    expectClose(result.highBeta?.interval.lower, h(result.lowBeta!.interval.upper), { rel: 1e-14 });
+    expectClose(result.highBeta?.interval.upper, h(result.lowBeta!.interval.lower), { rel: 1e-14 });
+  });
+
+  test("Stoye's interval is never longer than Imbens-Manski's (it minimises the length; methods.md §5.2)", () => {
+    const stoye = assessUncertainty(input, { weight: w, interval: "stoye" }).lowBeta!.interval;
+    const im = result.lowBeta!.interval;
+    expect(stoye.method).toBe("stoye");
+    expect(stoye.upper - stoye.lower).toBeLessThanOrEqual(im.upper - im.lower + 1e-9);
+  });
+
+  test("with intervalSource 'bootstrap' the bounds use the bootstrap standard errors", () => {
+    const boot = assessUncertainty(input, {
+      weight: w,
+      intervalSource: "bootstrap",
+      bootstrap: { replicates: 200, blockLength: 5, seed: 3 },
+    });
+    expect(boot.method.intervalSource).toBe("bootstrap");
+    expect(boot.bounds?.lowBeta.min.stdError).toBe(boot.bootstrap?.stdErrors.lowBetaMin);
+    expect(boot.bounds?.lowBeta.max.stdError).toBe(boot.bootstrap?.stdErrors.lowBetaMax);
+    expect(boot.bounds?.correlation).toBe(boot.bootstrap?.boundsCorrelation);
+    expect(boot.bootstrap?.replicates).toBe(200);
+  });
+});
+
+describe("CAPM HAC standard errors", () => {
+  test("defaults: Bartlett kernel, Newey-West 1994 lag (floor of the bandwidth), no prewhitening, no adjustment", () => {
+    expect(result.capm.hac.kernel).toBe("bartlett");
+    expect(result.capm.hac.prewhite).toBe(false);
+    expect(result.capm.hac.adjust).toBe(false);
+    expect(result.capm.hac.lags).toBe(Math.floor(result.capm.hac.bandwidth));
+    expect(result.method).toMatchObject({ longRun: "hac", kernel: "bartlett", intervalSource: "delta" });
+  });
+
+  test("with lag 0 they are White's (1980) HC0 standard errors", () => {
+    const lagZero = assessUncertainty(input, { weight: w, hac: { lags: 0 } });
+    const y = Float64Array.from(sample.low, (v) => v - 0.0001);
+    const x = Float64Array.from(sample.low, (v, t) => w * (v - 0.0001) + (1 - w) * (sample.high[t]! - 0.0001));
+    const n = x.length;
+    const xbar = x.reduce((s, v) => s + v, 0) / n;
+    const ybar = y.reduce((s, v) => s + v, 0) / n;
+    const beta = x.reduce((s, v, t) => s + (v - xbar) * (y[t]! - ybar), 0) / x.reduce((s, v) => s + (v - xbar) ** 2, 0);
+    const e = y.map((v, t) => v - (ybar - beta * xbar) - beta * x[t]!);
+    const sx = x.reduce((s, v) => s + v, 0);
+    const sxx = x.reduce((s, v) => s + v * v, 0);
+    const bread = inverse([
+      [n, sx],
+      [sx, sxx],
+    ]);
+    const meat = [
+      [0, 0],
+      [0, 0],
+    ];
+    for (let t = 0; t < n; t++) {
+      const row = [1, x[t]!];
+      for (let i = 0; i < 2; i++) for (let j = 0; j < 2; j++) meat[i]![j]! += row[i]! * row[j]! * e[t]! ** 2;
+    }
+    const v = (i: number) => [0, 1].reduce((s, k) => s + [0, 1].reduce((u, l) => u + bread[i]![k]! * meat[k]![l]! * bread[l]![i]!, 0), 0);
+    expectClose(lagZero.capm.low.hac.alphaStdErr, Math.sqrt(v(0)), { rel: 1e-9 });
+    expectClose(lagZero.capm.low.hac.betaStdErr, Math.sqrt(v(1)), { rel: 1e-9 });
+  });
+});
+
+describe("contract", () => {
+  test("option tuples list the accepted values (the CLI builds its choices from them)", () => {
+    expect(hacKernels).toEqual(["bartlett", "quadratic-spectral"]);
+    expect(automaticBandwidths).toEqual(["newey-west-1994", "andrews-1991"]);
+    expect(longRunMethods).toEqual(["hac", "iid"]);
+    expect(intervalMethods).toEqual(["imbens-manski", "stoye"]);
+    expect(intervalSources).toEqual(["delta", "bootstrap"]);
+  });
+
+  test("the bootstrap is off unless replicates > 0; iid Omega reports no kernel", () => {
+    expect(result.bootstrap).toBeNull();
+    expect(assessUncertainty(input, { weight: w, longRun: "iid" }).method).toMatchObject({
+      longRun: "iid",
+      kernel: null,
+      bandwidth: null,
+      lags: null,
+    });
+  });
+
+  test("no identified set (covariance <= 0) gives null bounds and intervals, other fields still computed", () => {
+    const negative = { low: Float64Array.from(sample.low), high: Float64Array.from(sample.low, (v, t) => -v + 0.001 * Math.sin(t)) };
+    const r = assessUncertainty(negative);
+    expect(r.bounds).toBeNull();
+    expect(r.lowBeta).toBeNull();
+    expect(r.highBeta).toBeNull();
+    expect(r.sharpe.low.estimate).toBeTypeOf("number");
+  });
+
+  test("invalid requests are refused: confidence outside (0, 1); bootstrap standard errors without a bootstrap", () => {
+    expect(() => assessUncertainty(input, { confidence: 1 })).toThrow(RangeError);
+    expect(() => assessUncertainty(input, { intervalSource: "bootstrap" })).toThrow(RangeError);
+  });
+});

@@ -1,0 +1,179 @@
+import { Parser } from "htmlparser2";
+import { describe, expect, test } from "vitest";
+import { landmarkNames } from "../../../src/core/types.js";
+import { modelAssumptions } from "../../../src/report/conventions.js";
+import { renderIdentifiedSetChart } from "../../../src/report/charts/identifiedSetChart.js";
+import { renderHtmlReport } from "../../../src/report/charts/htmlReport.js";
+import { formatNumber } from "../../../src/report/format.js";
+import { cautionLine } from "../../../src/report/text/textNotes.js";
+import { landmarkDescriptions } from "../../../src/report/text/textSet.js";
+import type { SolveReport } from "../../../src/report/types.js";
+import { rejectedSolution, reportOf, typicalSolution } from "../fixtures.js";
+
+interface Node {
+  readonly name: string;
+  readonly attribs: Record<string, string>;
+  readonly children: (Node | string)[];
+}
+
+/** Parses HTML into a tree with htmlparser2, failing on any parser error or unclosed element. */
+function parseHtml(html: string): { root: Node; doctype: string | null } {
+  const root: Node = { name: "#document", attribs: {}, children: [] };
+  const stack: Node[] = [root];
+  let doctype: string | null = null;
+  const errors: string[] = [];
+  const selfClosing: boolean[] = [];
+  const parser: Parser = new Parser(
+    {
+      onprocessinginstruction: (name, data) => {
+        if (name.toLowerCase() === "!doctype") doctype = data;
+      },
+      onopentag: (name, attribs) => {
+        selfClosing.push(html.slice(parser.startIndex, parser.endIndex + 1).endsWith("/>"));
+        const node: Node = { name, attribs, children: [] };
+        stack[stack.length - 1]!.children.push(node);
+        stack.push(node);
+      },
+      ontext: (text) => stack[stack.length - 1]!.children.push(text),
+      onclosetag: (name, implied) => {
+        const top = stack.pop();
+        const wasSelfClosing = selfClosing.pop() ?? false;
+        if (top?.name !== name) errors.push(`</${name}> closes <${top?.name}>`);
+        if (implied && !wasSelfClosing && !voidElements.has(name)) errors.push(`<${name}> was not closed`);
+      },
+      onerror: (error) => errors.push(error.message),
+    },
+    { decodeEntities: true, recognizeSelfClosing: true },
+  );
+  parser.write(html);
+  parser.end();
+  expect(errors).toEqual([]);
+  expect(stack).toHaveLength(1);
+  return { root, doctype };
+}
+
+const voidElements = new Set(["meta", "br", "hr", "img", "input", "link", "area", "base", "col", "embed", "source", "track", "wbr"]);
+
+function all(node: Node, name: string): Node[] {
+  return node.children.flatMap((c) => (typeof c === "string" ? [] : [...(c.name === name ? [c] : []), ...all(c, name)]));
+}
+
+function textOf(node: Node | string): string {
+  return typeof node === "string" ? node : node.children.map(textOf).join("");
+}
+
+function sectionById(root: Node, id: string): Node {
+  const found = all(root, "section").filter((s) => s.attribs.id === id);
+  expect(found, `section #${id}`).toHaveLength(1);
+  return found[0]!;
+}
+
+/** The rows of a table as arrays of cell texts (th and td), header row included. */
+function rows(table: Node): string[][] {
+  return all(table, "tr").map((tr) => tr.children.filter((c): c is Node => typeof c !== "string").map((c) => textOf(c).trim()));
+}
+
+async function htmlFor(report: SolveReport): Promise<string> {
+  return renderHtmlReport(report, { identifiedSet: await renderIdentifiedSetChart(report, { y: "variance" }) });
+}
+
+describe("renderHtmlReport", () => {
+  test("is one well-formed HTML document with the chart inline as SVG", async () => {
+    const html = await htmlFor(reportOf(typicalSolution()));
+    const { root, doctype } = parseHtml(html);
+    expect(doctype).toMatch(/^!doctype html$/i);
+    const [htmlElement] = all(root, "html");
+    expect(htmlElement?.attribs.lang).toBe("en");
+    expect(all(root, "meta").some((m) => m.attribs.charset === "utf-8")).toBe(true);
+    expect(all(root, "svg")).toHaveLength(1);
+    expect(all(sectionById(root, "chart"), "svg")).toHaveLength(1);
+    expect(textOf(all(root, "h1")[0]!)).toMatch(/^betabound 0\.1\.0-test: /);
+  });
+
+  test("is self-contained: no scripts, no external style sheets, fonts or images, no http(s) references", async () => {
+    const html = await htmlFor(reportOf(typicalSolution()));
+    const { root } = parseHtml(html);
+    expect(html).not.toMatch(/https?:\/\//i);
+    expect(html).not.toMatch(/@import|url\(|@font-face/i);
+    for (const tag of ["script", "link", "img", "iframe", "object", "embed"]) expect(all(root, tag), tag).toHaveLength(0);
+    expect(html).not.toMatch(/\s(src|href|xlink:href)=/i);
+    expect(all(root, "style")).toHaveLength(1);
+  });
+
+  test("has print rules: an A4 page, no breaks inside the chart or a table row, repeated table headers", async () => {
+    const html = await htmlFor(reportOf(typicalSolution()));
+    const css = textOf(all(parseHtml(html).root, "style")[0]!);
+    expect(css).toMatch(/@page\s*\{\s*size:\s*A4/);
+    expect(css).toMatch(/@media print\s*\{/);
+    expect(css).toMatch(/figure, tr, \.caution \{ break-inside: avoid/);
+    expect(css).toMatch(/thead \{ display: table-header-group; \}/);
+  });
+
+  test("gives every section of the text report as a table or list, with the solution's values", async () => {
+    const solution = typicalSolution();
+    const report = reportOf(solution);
+    const { root } = parseHtml(await htmlFor(report));
+    const input = rows(all(sectionById(root, "input"), "table")[0]!);
+    expect(input).toContainEqual(["File", report.input.source]);
+    expect(input).toContainEqual(["Low book", `column "${report.input.lowColumn}"`]);
+    const moments = rows(all(sectionById(root, "moments"), "table")[0]!);
+    expect(moments[1]).toEqual([
+      "low",
+      ...[solution.moments.low.mean, solution.moments.low.stdev, solution.moments.low.variance, solution.moments.low.sharpeRatio].map((x) =>
+        formatNumber(x),
+      ),
+    ]);
+    const capm = rows(all(sectionById(root, "capm"), "table")[0]!);
+    expect(capm).toContainEqual(["beta", formatNumber(solution.capm.low.beta), formatNumber(solution.capm.high.beta)]);
+    const set = rows(all(sectionById(root, "set"), "table")[0]!);
+    expect(set).toContainEqual([
+      "low structural beta",
+      formatNumber(solution.bounds!.lowBeta.min),
+      formatNumber(solution.bounds!.lowBeta.max),
+    ]);
+    const landmarks = rows(all(sectionById(root, "landmarks"), "table")[0]!);
+    expect(landmarks.slice(1).map((r) => r[0])).toEqual([...landmarkNames]);
+    for (const [i, name] of landmarkNames.entries()) expect(landmarks[i + 1]![1]).toContain(landmarkDescriptions[name]);
+    expect(landmarks.find((r) => r[0] === "returnImplied")![1]).toContain("(outside the identified set: see Diagnostics)");
+    const grid = rows(all(sectionById(root, "grid"), "table")[0]!);
+    expect(grid).toHaveLength(solution.grid.length + 1);
+    expect(textOf(sectionById(root, "grid"))).toContain("Check: every candidate reproduces the observed CAPM betas");
+    const diagnostics = rows(all(sectionById(root, "diagnostics"), "table")[0]!);
+    expect(diagnostics.slice(1).map((r) => r[1])).toEqual(solution.diagnostics.map((d) => d.message));
+    const assumptions = all(sectionById(root, "assumptions"), "li").map((li) => textOf(li));
+    expect(assumptions).toHaveLength(modelAssumptions.length);
+    expect(assumptions[3]).toContain("(w = 0.5)");
+    expect(textOf(all(root, "footer")[0]!)).toContain(cautionLine);
+  });
+
+  test("escapes every text taken from the data: a column name with <script> in it stays text", async () => {
+    const lowColumn = '<script>alert("low")</script>';
+    const highColumn = "High & <b>Beta</b> \u001b[31m";
+    const source = "dir/<img src=x onerror=alert(1)>.csv";
+    const report = reportOf(typicalSolution(), { lowColumn, highColumn, source, dateColumn: "Date' onload='x" });
+    const html = await htmlFor(report);
+    const { root } = parseHtml(html);
+    expect(all(root, "script")).toHaveLength(0);
+    expect(all(root, "img")).toHaveLength(0);
+    expect(all(root, "b")).toHaveLength(0);
+    expect(html).not.toContain("\u001b");
+    const input = rows(all(sectionById(root, "input"), "table")[0]!);
+    expect(input).toContainEqual(["Low book", `column "${lowColumn}"`]);
+    expect(input).toContainEqual(["High book", 'column "High & <b>Beta</b> \\u{1b}[31m"']);
+    expect(input).toContainEqual(["File", source]);
+    expect(textOf(all(root, "title")[0]!)).toContain(lowColumn);
+  });
+
+  test("says there is no identified set, and shows no landmark or grid tables, when the model is rejected", async () => {
+    const report = reportOf(rejectedSolution());
+    const { root } = parseHtml(await htmlFor(report));
+    expect(textOf(sectionById(root, "set"))).toContain("None: no one-factor structure fits these data");
+    expect(all(root, "section").map((s) => s.attribs.id)).not.toContain("landmarks");
+    expect(all(root, "section").map((s) => s.attribs.id)).not.toContain("grid");
+    expect(textOf(sectionById(root, "diagnostics"))).toContain("error");
+  });
+
+  test("refuses a chart that is not an SVG document", () => {
+    expect(() => renderHtmlReport(reportOf(typicalSolution()), { identifiedSet: "<p>not a chart</p>" })).toThrow(RangeError);
+  });
+});
