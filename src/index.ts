@@ -26,7 +26,7 @@ export { studentTTwoSidedP } from "./core/numerics/studentT.js";
 export { populationMoments, type Structure } from "./core/forward/populationMoments.js";
 export { simulateSample, type SimulatedSample, type SimulationOptions } from "./core/forward/simulate.js";
 export { createRandom, type RandomSource } from "./core/numerics/rng.js";
-export { periodDates, frequencies, periodsPerYear, type Frequency } from "./core/calendar.js";
+export { periodDates, frequencies, frequencyTable, periodsPerYear, type FrequencyName } from "./core/calendar.js";
 export {
   describeDiagnostic,
   diagnose,

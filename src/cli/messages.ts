@@ -2,6 +2,7 @@
  * Failures the CLI itself detects (reading and writing files, option values), as typed values with
  * stable codes. All of their wording is here.
  */
+import { flagOf, type OptionIssue } from "../options/index.js";
 
 export type CliIssue =
   | { readonly code: "no-input" }
@@ -26,6 +27,13 @@ export function describeCliIssue(issue: CliIssue): string {
     case "invalid-config":
       return `config file '${issue.path}'${issue.at === "" ? "" : `, at '${issue.at}'`}: ${issue.reason}; fix the file (keys are the long option names in camelCase, plus "files")`;
   }
+}
+
+/** A refused option, as a usage message: "option '--weight' argument '1.3' is invalid: must be ...". */
+export function describeOptionIssue(issue: OptionIssue): string {
+  if (issue.option === "") return `the options are invalid: ${issue.message}`;
+  const argument = issue.value === undefined ? "" : ` argument '${issue.value}'`;
+  return `option '${flagOf(issue.option)}'${argument} is invalid: ${issue.message}`;
 }
 
 /** A short reason from a Node.js file-system error code. */

@@ -10,7 +10,7 @@ import { rollCommand } from "./commands/roll.js";
 import { schemaCommand } from "./commands/schema.js";
 import { simulateCommand } from "./commands/simulate.js";
 import { solveCommand } from "./commands/solve.js";
-import { version } from "./runtime/version.js";
+import { version } from "../jobs/tool.js";
 
 type CommandBuilder = (io: CliIo, setExit: (code: ExitCode) => void) => Command;
 

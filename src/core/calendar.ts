@@ -6,10 +6,31 @@
  */
 
 export const frequencies = ["daily", "weekly", "monthly", "quarterly", "annual"] as const;
-export type Frequency = (typeof frequencies)[number];
+export type FrequencyName = (typeof frequencies)[number];
 
-/** Periods per year by frequency (common practice: 252 trading days, 52 weeks, 12, 4, 1). */
-export const periodsPerYear: Record<Frequency, number> = { daily: 252, weekly: 52, monthly: 12, quarterly: 4, annual: 1 };
+/**
+ * The standard sampling frequencies: periods per year (common practice: 252 trading days, 52 weeks,
+ * 12, 4, 1) and the range of the median gap between dates, in days, by which a file's frequency is
+ * detected (daily covers business-day data with weekend gaps).
+ */
+export const frequencyTable: Readonly<
+  Record<FrequencyName, { readonly periodsPerYear: number; readonly medianGapDays: readonly [number, number] }>
+> = {
+  daily: { periodsPerYear: 252, medianGapDays: [0.5, 4.5] },
+  weekly: { periodsPerYear: 52, medianGapDays: [5, 10] },
+  monthly: { periodsPerYear: 12, medianGapDays: [25, 35] },
+  quarterly: { periodsPerYear: 4, medianGapDays: [80, 100] },
+  annual: { periodsPerYear: 1, medianGapDays: [350, 380] },
+};
+
+/** Periods per year by frequency. */
+export const periodsPerYear: Readonly<Record<FrequencyName, number>> = {
+  daily: frequencyTable.daily.periodsPerYear,
+  weekly: frequencyTable.weekly.periodsPerYear,
+  monthly: frequencyTable.monthly.periodsPerYear,
+  quarterly: frequencyTable.quarterly.periodsPerYear,
+  annual: frequencyTable.annual.periodsPerYear,
+};
 
 const dayMs = 86_400_000;
 
@@ -19,7 +40,7 @@ const iso = (time: number): string => new Date(time).toISOString().slice(0, 10);
 const monthEnd = (year: number, monthIndex: number): number => Date.UTC(year, monthIndex + 1, 0);
 
 /** `count` period-end dates from `start` ("YYYY-MM-DD"). */
-export function periodDates(frequency: Frequency, start: string, count: number): string[] {
+export function periodDates(frequency: FrequencyName, start: string, count: number): string[] {
   const startTime = Date.parse(`${start}T00:00:00Z`);
   const first = new Date(startTime);
   const dates: string[] = [];

@@ -15,17 +15,17 @@ import { excessCrossProducts } from "./moments.js";
 import { excessResidualSums, lineFitFromSums, type LineSums } from "./regression.js";
 import { failure, success, type Result } from "./result.js";
 import type { ReturnSample, SampleMoments, SeriesMoments, Solution, SolveOptions } from "./types.js";
+import { assertParameter, defaultSteps, defaultWeight } from "./parameters.js";
 
-export const defaultWeight = 0.5;
-export const defaultSteps = 11;
+export { defaultSteps, defaultWeight };
 export const minimumObservations = 3;
 
 /** Solves the identified set for one sample. Fails (with diagnostics) only when nothing can be computed. */
 export function solve(sample: ReturnSample, options: SolveOptions = {}): Result<Solution, Diagnostic[]> {
   const weight = options.weight ?? defaultWeight;
   const steps = options.steps ?? defaultSteps;
-  if (!(weight > 0 && weight < 1)) throw new RangeError(`solve: weight must lie in (0, 1), got ${weight}`);
-  if (!(Number.isInteger(steps) && steps >= 2)) throw new RangeError(`solve: steps must be an integer >= 2, got ${steps}`);
+  assertParameter("solve", "weight", weight);
+  assertParameter("solve", "steps", steps);
   if (sample.low.length !== sample.high.length) throw new RangeError("solve: low and high differ in length");
 
   const n = sample.low.length;

@@ -1,13 +1,28 @@
-/** The input layer: pure functions from file text (or bytes) to return tables or typed issues. */
-export { readReturns, readReturnsWith, readReturnsFromBytes, type Engine } from "./readReturns.js";
-export type { ReadOptions, InputKind } from "./options.js";
+/**
+ * The input layer: pure functions from a file's text (or bytes) to a return table, or typed issues.
+ * This is its one entry point; the engines (engines/), the table steps (table/) and the value parsers
+ * (values/) behind it are internal.
+ */
+export { readReturns, readReturnsFromBytes } from "./readReturns.js";
+export {
+  type InputKind,
+  inputKinds,
+  inputRules,
+  type MissingPolicy,
+  missingPolicies,
+  type ReadOptions,
+  type Units,
+  unitChoices,
+} from "./options.js";
 export type { ReturnTable } from "./table/returnTable.js";
-export type { Frequency, FrequencyName } from "./values/frequency.js";
+export type { DetectedFrequency, FrequencyName } from "./values/frequency.js";
 export { decodeText } from "./decodeText.js";
 export { joinOnDates, type JoinedReturns } from "./table/joinOnDates.js";
 export { parseDecimal, isMissingToken } from "./values/numbers.js";
 export { compileDateFormat } from "./values/dateFormat.js";
 export { detectDelimiter } from "./dialect.js";
+export { closestName } from "./suggest.js";
+export { largeInputBuffer } from "./engines/rowKernel.js";
 export {
   describeInputIssue,
   describeInputWarning,

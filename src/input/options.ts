@@ -1,8 +1,33 @@
-/** Options of `readReturns` and their validation. */
+/** Options of `readReturns`, their vocabularies and rules, and their validation. */
+import { integerRule, numberRule, type Rule } from "../core/parameters.js";
 import type { InputIssue } from "./issues.js";
+import { compileDateFormat } from "./values/dateFormat.js";
 
 /** What the numbers in the requested columns are. */
-export type InputKind = "returns" | "prices" | "log-returns";
+export const inputKinds = ["returns", "prices", "log-returns"] as const;
+export type InputKind = (typeof inputKinds)[number];
+
+/** Units of a file's numbers: every figure the tool reports is decimal whatever they are. */
+export const unitChoices = ["decimal", "percent"] as const;
+export type Units = (typeof unitChoices)[number];
+
+/** What to do with a row holding a missing value in a used column. */
+export const missingPolicies = ["drop", "error"] as const;
+export type MissingPolicy = (typeof missingPolicies)[number];
+
+/** The rules of the reading options, each written once (the option table uses them too). */
+export const inputRules = {
+  delimiter: {
+    accept: (d: string) => d.length === 1 && !/[\r\n"\d.+-]/.test(d),
+    expected: "one character other than a quote, a line break, a digit, a sign or a point",
+  } satisfies Rule<string>,
+  block: integerRule(1, 1_000_000),
+  periodsPerYear: numberRule({ gt: 0 }),
+  dateFormat: {
+    accept: (layout: string) => typeof compileDateFormat(layout) !== "string",
+    expected: "a date layout of the tokens YYYY, MM, M, DD, D and MMM with separators, e.g. DD/MM/YYYY",
+  } satisfies Rule<string>,
+} as const;
 
 /** How to read a file; only `source` and `columns` are required. */
 export interface ReadOptions {
@@ -13,7 +38,7 @@ export interface ReadOptions {
   /** The numeric columns wanted (wide layout), or the series ids wanted (long layout, see idColumn). */
   readonly columns: readonly string[];
   /** percent: every value is divided by 100 on read. Default decimal. Not allowed with input "prices". */
-  readonly units?: "decimal" | "percent";
+  readonly units?: Units;
   /** Default false: a return with |value| > 10 (decimal, after conversion) is an error. */
   readonly allowExtreme?: boolean;
   /** Field delimiter (one character); default: detected among comma, semicolon and tab. */
@@ -31,7 +56,7 @@ export interface ReadOptions {
   /** Extra missing-value sentinels, e.g. ["-99.99", "#N/A"] (see compileSentinels). */
   readonly missing?: readonly string[];
   /** drop (default): rows with a missing value are dropped and counted; error: each is an issue. */
-  readonly onMissing?: "drop" | "error";
+  readonly onMissing?: MissingPolicy;
   /**
    * returns (default); prices: simple returns P_t / P_{t-1} - 1 (the first date has no return and
    * is consumed; a missing price makes both returns that use it missing); log-returns: exp(l) - 1.
@@ -61,13 +86,11 @@ export function validateOptions(options: ReadOptions): InputIssue[] {
     issues.push(invalid(source, "columns", `${JSON.stringify(options.dateColumn)} is the date column`));
   }
   const { delimiter, block, periodsPerYear } = options;
-  if (delimiter !== undefined && (delimiter.length !== 1 || /[\r\n"\d.+-]/.test(delimiter))) {
-    issues.push(invalid(source, "delimiter", "must be one character other than a quote, a line break, a digit, a sign or a point"));
-  }
-  if (block !== undefined && !(Number.isInteger(block) && block >= 1))
-    issues.push(invalid(source, "block", "must be a whole number from 1"));
-  if (periodsPerYear !== undefined && !(Number.isFinite(periodsPerYear) && periodsPerYear > 0)) {
-    issues.push(invalid(source, "periodsPerYear", "must be a positive number"));
+  const broken = <T>(value: T | undefined, rule: Rule<T>): boolean => value !== undefined && !rule.accept(value);
+  if (broken(delimiter, inputRules.delimiter)) issues.push(invalid(source, "delimiter", `must be ${inputRules.delimiter.expected}`));
+  if (broken(block, inputRules.block)) issues.push(invalid(source, "block", `must be ${inputRules.block.expected}`));
+  if (broken(periodsPerYear, inputRules.periodsPerYear)) {
+    issues.push(invalid(source, "periodsPerYear", `must be ${inputRules.periodsPerYear.expected}`));
   }
   if (options.decimalComma === true && delimiter === ",")
     issues.push(invalid(source, "decimalComma", "the delimiter is a comma, so it cannot also be the decimal separator"));

@@ -15,6 +15,7 @@ import { fields, indent, styleFor, table, wrap } from "./layout.js";
 import { momentsSection } from "./text/textData.js";
 import { assumptionsSection, cautionLine, diagnosticsSection } from "./text/textNotes.js";
 import { boundsSection, gridSection, landmarksSection, rejectedSection } from "./text/textSet.js";
+import type { ImpliedOutputJson } from "../schema/impliedOutput.js";
 import type { RenderOptions, ReportFormat, SolveReport } from "./types.js";
 
 export interface ImpliedReport {
@@ -24,7 +25,7 @@ export interface ImpliedReport {
   readonly riskFree?: number;
 }
 
-export function impliedOutput(report: ImpliedReport) {
+export function impliedOutput(report: ImpliedReport): ImpliedOutputJson {
   const s = report.solution;
   return {
     schemaVersion,

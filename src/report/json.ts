@@ -5,33 +5,18 @@
  * infinity, because the core uses null for undefined quantities and this module refuses to write one.
  */
 
-import type { CapmHac, Uncertainty } from "../core/inference/uncertaintyTypes.js";
+import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
 import type { Solution } from "../core/types.js";
-import { conventionsFor, type Conventions } from "./conventions.js";
+import type { SolveOutputJson } from "../schema/solveOutput.js";
+import { conventionsFor } from "./conventions.js";
 import type { InputDescription, RenderOptions, SolveReport } from "./types.js";
 
-export const schemaVersion = 1;
+export const schemaVersion = 1 as const;
 
-/** A CAPM fit as written: the classical fit plus its HAC standard errors (null when not computed). */
-export type CapmOutput = {
-  readonly [book in "low" | "high"]: Solution["capm"][book] & { readonly hac: CapmHac | null };
-} & { readonly hac: Uncertainty["capm"]["hac"] | null };
-
-/** The `uncertainty` block: everything of the core's Uncertainty except the CAPM part (under `capm`). */
-export type UncertaintyOutput = Omit<Uncertainty, "capm">;
-
-/** The JSON document renderJson writes. */
-export interface SolveOutput
-  extends Pick<Solution, "observations" | "weight" | "moments" | "bounds" | "grid" | "landmarks" | "diagnostics"> {
-  readonly schemaVersion: typeof schemaVersion;
-  readonly capm: CapmOutput;
-  readonly uncertainty: UncertaintyOutput | null;
-  readonly tool: SolveReport["tool"];
-  /** "ok": an identified set was found; "rejected": the data were read but no set can be reported. */
-  readonly status: "ok" | "rejected";
-  readonly input: InputDescription;
-  readonly conventions: Conventions;
-}
+/** The JSON document renderJson writes: its type is the output schema's (src/schema/solveOutput.ts). */
+export type SolveOutput = SolveOutputJson;
+type CapmOutput = SolveOutput["capm"];
+type UncertaintyOutput = NonNullable<SolveOutput["uncertainty"]>;
 
 /** Copies the input description field by field, so the key order is fixed and no stray field leaks out. */
 function inputOf(input: InputDescription): InputDescription {

@@ -6,6 +6,7 @@
 
 import { candidateRow, csvField, csvHeader, namedCandidates } from "./csv.js";
 import { assertJsonSafe, schemaVersion, toSolveOutput } from "./json.js";
+import type { SolveFailureJson } from "../schema/solveOutput.js";
 import { renderText } from "./text/text.js";
 import type { RenderOptions, SolveReport } from "./types.js";
 
@@ -22,7 +23,7 @@ export type SolveRecord =
   | { readonly kind: "report"; readonly report: SolveReport }
   | { readonly kind: "failure"; readonly failure: SolveFailure };
 
-export function failureOutput(failure: SolveFailure) {
+export function failureOutput(failure: SolveFailure): SolveFailureJson {
   return {
     schemaVersion,
     tool: { name: failure.tool.name, version: failure.tool.version },

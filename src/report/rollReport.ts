@@ -5,8 +5,10 @@
  */
 
 import type { WindowUncertainty } from "../core/inference/windowUncertainty.js";
-import { windowColumnNames, type WindowColumns, type WindowSolution, type WindowSpec } from "../core/rolling/rolling.js";
+import { windowColumnNames, type WindowColumns, type WindowSolution, type WindowSpec } from "../core/rolling/index.js";
 import { momentsFromSummary } from "../core/summaryMoments.js";
+import type { RollOutputJson } from "../schema/rollOutput.js";
+import type { RollWindowPoint } from "./charts/rollChart.js";
 import { csvField } from "./csv.js";
 import { formatNumber } from "./format.js";
 import { assertJsonSafe, schemaVersion } from "./json.js";
@@ -83,8 +85,31 @@ export function writeRollCsv(
   if (chunk !== "") write(chunk);
 }
 
+/** The points of the roll chart: each window's end date, bounds, CAPM beta and interval. */
+export function rollChartPoints(
+  meta: RollMeta,
+  windows: readonly WindowSolution[],
+  uncertaintyAt: (window: WindowSolution) => WindowUncertainty | null,
+): RollWindowPoint[] {
+  return windows.map((w) => {
+    const u = uncertaintyAt(w);
+    return {
+      end: meta.dates[w.end] ?? "",
+      lowBetaMin: w.bounds?.lowBeta.min ?? null,
+      lowBetaMax: w.bounds?.lowBeta.max ?? null,
+      capmLowBeta: w.capm?.low.beta ?? Number.NaN,
+      ...(u === null ? {} : { interval: { lower: u.lowBeta.interval.lower, upper: u.lowBeta.interval.upper } }),
+    };
+  });
+}
+
+/** The window in words, for the chart: "rolling windows of 36 periods". */
+export function windowWords(spec: WindowSpec): string {
+  return spec.kind === "window" ? `rolling windows of ${spec.size} periods` : `expanding windows from ${spec.minPeriods} periods`;
+}
+
 /** One JSON Lines record for a window: solve's field names, plus `window`, `start` and `end`. */
-export function rollRecord(meta: RollMeta, window: WindowSolution, uncertainty: WindowUncertainty | null) {
+export function rollRecord(meta: RollMeta, window: WindowSolution, uncertainty: WindowUncertainty | null): RollOutputJson {
   const { input } = meta;
   const record = {
     schemaVersion,

@@ -3,11 +3,11 @@
  * Renderers are pure functions of this value; they never read files, the clock or the terminal.
  */
 
+import type { Units } from "../input/options.js";
 import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
 import type { Solution } from "../core/types.js";
 
-export const reportFormats = ["text", "json", "csv"] as const;
-export type ReportFormat = (typeof reportFormats)[number];
+export { type ReportFormat, reportFormats } from "./formats.js";
 
 /** How the risk-free return was supplied. */
 export type RiskFreeSource =
@@ -23,7 +23,7 @@ export interface InputDescription {
   readonly highColumn: string;
   readonly riskFree: RiskFreeSource;
   /** Units of the file's numbers; every reported figure is in decimal units regardless. */
-  readonly units: "decimal" | "percent";
+  readonly units: Units;
   readonly firstDate: string;
   readonly lastDate: string;
   /** Data rows in the file, and rows dropped because a used column had a missing value. */

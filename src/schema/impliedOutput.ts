@@ -5,6 +5,7 @@
 
 import * as z from "zod";
 import { boundsSchema, candidateSchema, diagnosticSchema, landmarksSchema, momentsSchema } from "./parts.js";
+import type { Document } from "./document.js";
 import { doc } from "./registry.js";
 import { toolSchema } from "./solveOutput.js";
 
@@ -52,3 +53,6 @@ export const impliedOutputSchema = doc(
   }),
   "betabound implied output",
 );
+
+/** The JSON document of `implied --format json`. */
+export type ImpliedOutputJson = Document<z.output<typeof impliedOutputSchema>>;

@@ -1,7 +1,9 @@
 /** Zod schema of one `roll --format jsonl` record: solve's field names per window, plus the window. */
 
 import * as z from "zod";
+import { unitChoices } from "../input/options.js";
 import { boundsSchema, diagnosticSchema, landmarksSchema, momentsSchema } from "./parts.js";
+import type { Document } from "./document.js";
 import { doc } from "./registry.js";
 import { riskFreeSchema, solveFailureSchema, toolSchema } from "./solveOutput.js";
 import { betaIntervalSchema, pointwiseSchema } from "./uncertainty.js";
@@ -27,7 +29,7 @@ export const rollOutputSchema = doc(
       highColumn: z.string(),
       dateColumn: z.string(),
       riskFree: riskFreeSchema,
-      units: z.enum(["decimal", "percent"]),
+      units: z.enum(unitChoices),
       frequency: z.strictObject({ name: z.string(), periodsPerYear: z.number().positive() }).nullable(),
     }),
     window: z.discriminatedUnion("kind", [
@@ -60,3 +62,6 @@ export const rollOutputSchema = doc(
 
 /** One line of `roll --format jsonl`: a window record or a failure record for a pair. */
 export const rollRecordSchema = z.union([rollOutputSchema, solveFailureSchema]);
+
+/** One `roll --format jsonl` record of a window. */
+export type RollOutputJson = Document<z.output<typeof rollOutputSchema>>;

@@ -4,7 +4,9 @@
  */
 
 import * as z from "zod";
+import { unitChoices } from "../input/options.js";
 import { boundsSchema, candidateSchema, diagnosticSchema, landmarksSchema, lineFitSchema, momentsSchema } from "./parts.js";
+import type { Document } from "./document.js";
 import { doc } from "./registry.js";
 import { capmHacSchema, hacSettingsSchema, uncertaintySchema } from "./uncertainty.js";
 
@@ -29,7 +31,7 @@ export const inputSchema = doc(
     lowColumn: z.string(),
     highColumn: z.string(),
     riskFree: riskFreeSchema,
-    units: doc(z.enum(["decimal", "percent"]), "units of the file's numbers; the output is always decimal"),
+    units: doc(z.enum(unitChoices), "units of the file's numbers; the output is always decimal"),
     firstDate: z.string(),
     lastDate: z.string(),
     rowsRead: z.int().nonnegative(),
@@ -84,8 +86,8 @@ export const solveOutputSchema = doc(
   "betabound solve output",
 );
 
-/** The parsed (validated) JSON output. */
-export type SolveOutputJson = z.infer<typeof solveOutputSchema>;
+/** The JSON document of `solve --format json`. */
+export type SolveOutputJson = Document<z.output<typeof solveOutputSchema>>;
 
 /** A JSON Lines record for a (file, pair) that could not be solved: what was asked and why it failed. */
 export const solveFailureSchema = doc(
@@ -105,4 +107,5 @@ export const solveFailureSchema = doc(
 /** One line of `solve --format jsonl`: a full solve document or a failure record. */
 export const solveRecordSchema = z.union([solveOutputSchema, solveFailureSchema]);
 
-export type SolveFailureJson = z.infer<typeof solveFailureSchema>;
+/** The JSON record of a (file, pair) that failed. */
+export type SolveFailureJson = Document<z.output<typeof solveFailureSchema>>;

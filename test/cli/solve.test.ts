@@ -99,8 +99,8 @@ describe("betabound solve (in process)", () => {
     [["--weight", "0.5x"], "--weight", "strictly between 0 and 1"],
     [["--steps", "1"], "--steps", "whole number from 2"],
     [["--steps", "2.5"], "--steps", "whole number from 2"],
-    [["--format", "xml"], "--format", "Allowed choices are text, json, csv"],
-    [["--units", "basis-points"], "--units", "Allowed choices are decimal, percent"],
+    [["--format", "xml"], "--format", "must be one of text, json, csv"],
+    [["--units", "basis-points"], "--units", "must be one of decimal, percent"],
   ])("exits 1 for the invalid option value %j", async (extra, option, expected) => {
     const { io, stdout, stderr } = fakeIo({ "m.csv": monthly });
     const code = await run(["solve", "m.csv", ...books, ...extra], io);

@@ -67,7 +67,7 @@ describe("describeInputIssue", () => {
       { code: "invalid-encoding", source: "f.csv", line: 2, offset: 17 },
       { code: "binary-content", source: "f.csv", line: 1, offset: 3 },
       { code: "unsupported-encoding", source: "f.csv", encoding: "UTF-16LE" },
-      { code: "invalid-option", source: "f.csv", option: "block", reason: "must be a whole number from 1" },
+      { code: "invalid-option", source: "f.csv", option: "block", reason: "must be a whole number from 1 to 1000000" },
       { code: "too-many-issues", source: "f.csv", omitted: 12 },
       { code: "internal-error", source: "f.csv", detail: "boom" },
     ];

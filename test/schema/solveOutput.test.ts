@@ -2,22 +2,21 @@ import fc from "fast-check";
 import { describe, expect, expectTypeOf, test } from "vitest";
 import { solve } from "../../src/core/solve.js";
 import type { Solution } from "../../src/core/types.js";
-import { renderJson, type SolveOutput } from "../../src/report/json.js";
+import type * as z from "zod";
+import { renderJson, type SolveOutput, toSolveOutput } from "../../src/report/json.js";
+import type { Document } from "../../src/schema/document.js";
 import { solveOutputSchema, type SolveOutputJson } from "../../src/schema/solveOutput.js";
 import { rejectedSolution, reportOf, solvedFixtures } from "../report/fixtures.js";
-
-type DeepMutable<T> = T extends readonly (infer U)[]
-  ? DeepMutable<U>[]
-  : T extends object
-    ? { -readonly [K in keyof T]: DeepMutable<T[K]> }
-    : T;
 
 const rendered = (solution: Solution): unknown => JSON.parse(renderJson(reportOf(solution), { colour: false }));
 const fixtures: [string, Solution][] = [...Object.entries(solvedFixtures()), ["rejected", rejectedSolution()]];
 
 describe("solveOutputSchema", () => {
   test("describes exactly the type renderJson produces", () => {
-    expectTypeOf<SolveOutputJson>().toEqualTypeOf<DeepMutable<SolveOutput>>();
+    // The renderer's document type is the schema's output type: toSolveOutput compiles only if every
+    // field it builds from the core's values has the schema's type.
+    expectTypeOf(toSolveOutput).returns.toEqualTypeOf<SolveOutputJson>();
+    expectTypeOf<SolveOutput>().toEqualTypeOf<Document<z.output<typeof solveOutputSchema>>>();
   });
 
   test.each(fixtures)("validates the rendered JSON of a real solution (%s)", (_, solution) => {

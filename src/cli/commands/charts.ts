@@ -7,8 +7,9 @@ import { exitCodes, type ExitCode } from "../runtime/exitCodes.js";
 import type { CliIo } from "../runtime/io.js";
 import { describeCliIssue } from "../messages.js";
 
-export const chartYChoices = ["variance", "share"] as const;
-export type ChartY = (typeof chartYChoices)[number];
+import type { ChartY } from "../../report/charts/chartOptions.js";
+
+export { chartYChoices } from "../../report/charts/chartOptions.js";
 
 export interface ChartRequest {
   readonly chart?: string | undefined;

@@ -1,73 +1,24 @@
 /**
- * Runs the stationary bootstrap for the CLI: in chunks of replicates, spread over worker threads when
- * asked, with progress reported between chunks. Chunks are merged in replicate order, so the result is
- * the same bit for bit whatever the number of threads (each replicate draws from its own stream).
+ * The bootstrap on worker threads: the chunks of replicates handed out to `threads` workers as each
+ * finishes one. Chunks are merged in replicate order by the job, so the result is the same bit for
+ * bit whatever the number of threads (each replicate draws from its own stream).
  */
 import { existsSync } from "node:fs";
-import { fileURLToPath } from "node:url";
 import { createRequire } from "node:module";
+import { fileURLToPath } from "node:url";
 import type { Worker } from "node:worker_threads";
-import {
-  bootstrapRange,
-  mergeBootstrapRanges,
-  resolveBlockLength,
-  type BootstrapData,
-  type BootstrapRange,
-} from "../../core/inference/bootstrap/replicates.js";
-import { summariseBootstrap, type BootstrapSummary } from "../../core/inference/bootstrap/summary.js";
-import type { BootstrapTask } from "./bootstrapWorker.js";
-
-export interface BootstrapRun {
-  readonly replicates: number;
-  readonly blockLength: number | "auto";
-  readonly seed: number;
-  readonly confidence: number;
-  readonly threads: number;
-}
-
-/** Replicates per chunk: small enough for smooth progress, large enough to keep messaging cheap. */
-const chunkSize = 500;
+import type { BootstrapData, BootstrapRange } from "../../core/inference/bootstrap/replicates.js";
+import { inThisThread } from "../../jobs/bootstrapStep.js";
+import type { BootstrapExecutor } from "../../jobs/context.js";
+import type { BootstrapChunk } from "./bootstrapWorker.js";
 
 /** The worker script next to the bundled CLI; absent when running from source (tests), then 1 thread. */
 const workerUrl = new URL("./bootstrapWorker.js", import.meta.url);
 
-export async function runBootstrap(data: BootstrapData, run: BootstrapRun, progress: (done: number) => void): Promise<BootstrapSummary> {
-  const blockLength = resolveBlockLength(data, run.blockLength);
-  const chunks: [number, number][] = [];
-  for (let from = 0; from < run.replicates; from += chunkSize) chunks.push([from, Math.min(run.replicates, from + chunkSize)]);
-  const threads = Math.min(run.threads, chunks.length);
-  const ranges =
-    threads > 1 && existsSync(fileURLToPath(workerUrl))
-      ? await inWorkers(data, blockLength, run.seed, chunks, threads, progress)
-      : await inThisThread(data, blockLength, run.seed, chunks, progress);
-  return summariseBootstrap(mergeBootstrapRanges(ranges, run.replicates), run.seed, run.confidence);
-}
-
-async function inThisThread(
-  data: BootstrapData,
-  blockLength: number,
-  seed: number,
-  chunks: readonly [number, number][],
-  progress: (done: number) => void,
-): Promise<BootstrapRange[]> {
-  const ranges: BootstrapRange[] = [];
-  for (const [from, to] of chunks) {
-    ranges.push(bootstrapRange(data, { blockLength, seed }, from, to));
-    progress(to);
-    await new Promise((resolve) => setImmediate(resolve)); // let the progress line reach the terminal
-  }
-  return ranges;
-}
-
-async function inWorkers(
-  data: BootstrapData,
-  blockLength: number,
-  seed: number,
-  chunks: readonly [number, number][],
-  threads: number,
-  progress: (done: number) => void,
-): Promise<BootstrapRange[]> {
-  const ranges: BootstrapRange[] = new Array(chunks.length);
+export const inWorkerThreads: BootstrapExecutor = async (task, threads, progress) => {
+  if (threads <= 1 || !existsSync(fileURLToPath(workerUrl))) return inThisThread(task, threads, progress);
+  const ranges: BootstrapRange[] = new Array(task.chunks.length);
+  const data = task.data;
   const plain: BootstrapData = {
     low: Float64Array.from(data.low),
     high: Float64Array.from(data.high),
@@ -82,7 +33,7 @@ async function inWorkers(
     new Promise((resolve, reject) => {
       const take = (): void => {
         const index = next++;
-        const chunk = chunks[index];
+        const chunk = task.chunks[index];
         if (chunk === undefined) {
           resolve();
           return;
@@ -93,8 +44,8 @@ async function inWorkers(
           progress(done);
           take();
         });
-        const task: BootstrapTask = { data: plain, blockLength, seed, from: chunk[0], to: chunk[1] };
-        worker.postMessage(task);
+        const message: BootstrapChunk = { data: plain, blockLength: task.blockLength, seed: task.seed, from: chunk[0], to: chunk[1] };
+        worker.postMessage(message);
       };
       worker.once("error", reject);
       take();
@@ -108,4 +59,4 @@ async function inWorkers(
     await Promise.all(workers.map((w) => w.terminate()));
   }
   return ranges;
-}
+};

@@ -5,7 +5,7 @@
 import { parentPort } from "node:worker_threads";
 import { bootstrapRange, type BootstrapData } from "../../core/inference/bootstrap/replicates.js";
 
-export interface BootstrapTask {
+export interface BootstrapChunk {
   readonly data: BootstrapData;
   readonly blockLength: number;
   readonly seed: number;
@@ -13,7 +13,7 @@ export interface BootstrapTask {
   readonly to: number;
 }
 
-parentPort?.on("message", (task: BootstrapTask) => {
+parentPort?.on("message", (task: BootstrapChunk) => {
   const range = bootstrapRange(task.data, { blockLength: task.blockLength, seed: task.seed }, task.from, task.to);
   parentPort?.postMessage(range, [range.draws.buffer as ArrayBuffer]);
 });

@@ -6,7 +6,7 @@
 import { closeSync, openSync, readFileSync, readSync, renameSync, statSync, unlinkSync, writeFileSync, writeSync } from "node:fs";
 import { basename, dirname, join } from "node:path";
 import { failure, success, type Result } from "../../core/result.js";
-import { COPY_LIMIT, kernelBytes } from "../../input/engines/rowKernel.js";
+import { largeInputBuffer } from "../../input/index.js";
 import type { OutputSink } from "./io.js";
 import { fileErrorReason, type CliIssue } from "../messages.js";
 
@@ -17,8 +17,9 @@ export async function readInputBytes(path: string): Promise<Result<Uint8Array, C
     // One synchronous read: for a large file this is much faster than the chunked asynchronous read,
     // and the CLI has nothing else to do meanwhile.
     const size = statSync(path).size;
-    // A file larger than the row kernel copies is read straight into its memory (src/input/engines/rowKernel.ts).
-    return success(size <= COPY_LIMIT ? readFileSync(path) : readInto(path, kernelBytes(size)));
+    // A large file is read straight into the memory the reader works in (src/input/engines/rowKernel.ts).
+    const target = largeInputBuffer(size);
+    return success(target === null ? readFileSync(path) : readInto(path, target));
   } catch (error) {
     return failure({ code: "read-failed", path: path === "-" ? "<stdin>" : path, reason: fileErrorReason(error) });
   }

@@ -12,10 +12,11 @@
 
 import { normalCdf, normalQuantile, normalSurvival } from "../numerics/normal.js";
 import { findRoot } from "../numerics/scalarSolvers.js";
+import { assertParameter } from "../parameters.js";
 
 /** C_N for r = Delta / max(se) >= 0 and confidence level 1 - alpha. */
 export function imbensManskiCriticalValue(ratio: number, confidence: number): number {
-  if (!(confidence > 0 && confidence < 1)) throw new RangeError(`confidence must lie in (0, 1), got ${confidence}`);
+  assertParameter("imbensManski", "confidence", confidence);
   if (!(ratio >= 0)) throw new RangeError(`Imbens-Manski: Delta / se must be >= 0, got ${ratio}`);
   const alpha = 1 - confidence;
   const lo = normalQuantile(1 - alpha);

@@ -53,7 +53,7 @@ export const defaultHac = {
   adjust: false,
 } as const satisfies Required<Omit<HacOptions, "lags">>;
 
-export const defaultConfidence = 0.95;
+export { defaultConfidence } from "../parameters.js";
 export const defaultLongRun: LongRunMethod = "hac";
 export const defaultIntervalMethod: IntervalMethod = "imbens-manski";
 export const defaultIntervalSource: IntervalSource = "delta";

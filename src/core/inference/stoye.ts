@@ -20,6 +20,7 @@ import type { BoundsEstimate, ParameterInterval } from "./imbensManski.js";
 import { normalCdf, normalPdf, normalQuantile } from "../numerics/normal.js";
 import { integrate } from "../numerics/quadrature.js";
 import { findRoot, minimiseUnimodal } from "../numerics/scalarSolvers.js";
+import { assertParameter } from "../parameters.js";
 
 const correlationCap = 0.999;
 
@@ -36,7 +37,7 @@ export interface StoyeInput extends BoundsEstimate {
 }
 
 export function stoyeInterval(input: StoyeInput, confidence: number): ParameterInterval {
-  if (!(confidence > 0 && confidence < 1)) throw new RangeError(`confidence must lie in (0, 1), got ${confidence}`);
+  assertParameter("stoyeInterval", "confidence", confidence);
   const { lowerStdError: sl, upperStdError: su, correlation: rho } = input;
   if (!(sl > 0 && su > 0)) throw new RangeError("stoyeInterval: both standard errors must be positive");
   const delta = Math.max(input.upper - input.lower, 0);

@@ -38,6 +38,10 @@ import { excessReturns } from "./bootstrap/replicates.js";
 import { crossProducts } from "../moments.js";
 import type { ReturnSample } from "../types.js";
 import type { Uncertainty, PointwiseBound, BetaInterval, CapmHac } from "./uncertaintyTypes.js";
+import { assertParameter, defaultWeight } from "../parameters.js";
+
+/** Standard errors need this many observations; with fewer, none are reported. */
+export const minimumForUncertainty = 10;
 
 /** The aligned per-period returns (decimal) that `solve` takes. */
 export type UncertaintySample = ReturnSample;
@@ -60,18 +64,18 @@ export interface UncertaintyOptions {
 }
 
 export function assessUncertainty(sample: UncertaintySample, options: UncertaintyOptions = {}): Uncertainty {
-  const weight = options.weight ?? 0.5;
+  const weight = options.weight ?? defaultWeight;
   const confidence = options.confidence ?? defaultConfidence;
   const longRun = options.longRun ?? defaultLongRun;
   const hac = options.hac ?? {};
   const method = options.interval ?? defaultIntervalMethod;
   const source = options.intervalSource ?? defaultIntervalSource;
-  if (!(weight > 0 && weight < 1)) throw new RangeError(`weight must lie in (0, 1), got ${weight}`);
-  if (!(confidence > 0 && confidence < 1)) throw new RangeError(`confidence must lie in (0, 1), got ${confidence}`);
+  assertParameter("assessUncertainty", "weight", weight);
+  assertParameter("assessUncertainty", "confidence", confidence);
   const data = sample.riskFree === undefined ? { low: sample.low, high: sample.high, weight } : { ...sample, weight };
   const { low, high } = excessReturns(data);
   const n = low.length;
-  if (n < 10) throw new RangeError(`assessUncertainty: needs at least 10 observations, got ${n}`);
+  if (n < minimumForUncertainty) throw new RangeError(`assessUncertainty: needs at least ${minimumForUncertainty} observations, got ${n}`);
   const market = Float64Array.from(low, (l, t) => weight * l + (1 - weight) * high[t]!);
 
   const moments = secondMoments(low, high, weight);

@@ -60,6 +60,15 @@ function kernelModule(): WebAssembly.Module | null {
   return compiled;
 }
 
+/**
+ * Where to read a file of `size` bytes that will be given to `readReturnsFromBytes`: a large file
+ * straight into the kernel's memory (read there in place, no copy), or null for a file small enough
+ * that a plain read is best (the kernel copies it).
+ */
+export function largeInputBuffer(size: number): Uint8Array | null {
+  return size <= COPY_LIMIT ? null : kernelBytes(size);
+}
+
 /** Kernel memories by the ArrayBuffer of the file bytes they hold. */
 const memories = new WeakMap<ArrayBufferLike, RowKernel>();
 

@@ -1,5 +1,5 @@
 /** The result of reading a return file. */
-import type { Frequency } from "../values/frequency.js";
+import type { DetectedFrequency } from "../values/frequency.js";
 import type { InputWarning } from "../issues.js";
 
 /** Decimal simple returns of the requested columns, by date. */
@@ -24,6 +24,6 @@ export interface ReturnTable {
   /** Rows dropped for missing values, with up to 5 of their dates. */
   readonly dropped: { readonly count: number; readonly firstDates: readonly string[] };
   /** Detected from the median gap between dates (null when no standard frequency fits), or set by option. */
-  readonly frequency: Frequency | null;
+  readonly frequency: DetectedFrequency | null;
   readonly warnings: readonly InputWarning[];
 }

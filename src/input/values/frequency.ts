@@ -1,10 +1,10 @@
-/** Sampling frequency from the spacing of dates, and a linear-time median. */
+/** Sampling frequency from the spacing of dates (the one table: src/core/calendar.ts), and a linear-time median. */
+import { type FrequencyName, frequencies, frequencyTable } from "../../core/calendar.js";
 
-/** The standard sampling frequencies. */
-export type FrequencyName = "daily" | "weekly" | "monthly" | "quarterly" | "annual";
+export type { FrequencyName };
 
-/** A sampling frequency and the periods per year used to annualise. */
-export interface Frequency {
+/** The sampling frequency of a file and the periods per year used to annualise. */
+export interface DetectedFrequency {
   readonly name: FrequencyName;
   readonly periodsPerYear: number;
   /** "detected" from the median gap between dates, or "option" when the caller set periodsPerYear. */
@@ -13,14 +13,11 @@ export interface Frequency {
 
 const DAY_MS = 86_400_000;
 
-/** Median gap (days) ranges per frequency; daily covers business-day data with weekend gaps. */
-const BANDS: readonly (readonly [FrequencyName, number, number, number])[] = [
-  ["daily", 0.5, 4.5, 252],
-  ["weekly", 5, 10, 52],
-  ["monthly", 25, 35, 12],
-  ["quarterly", 80, 100, 4],
-  ["annual", 350, 380, 1],
-];
+/** Median gap (days) ranges per frequency, with its periods per year. */
+const BANDS: readonly (readonly [FrequencyName, number, number, number])[] = frequencies.map((name) => {
+  const { periodsPerYear, medianGapDays } = frequencyTable[name];
+  return [name, medianGapDays[0], medianGapDays[1], periodsPerYear] as const;
+});
 
 /** Median of the values (NaN for none); the input is not modified. Quickselect, O(n) expected. */
 export function median(values: ArrayLike<number>): number {
@@ -65,7 +62,7 @@ function select(a: Float64Array, k: number): number {
 }
 
 /** Frequency from date keys (ms, ascending): the band holding the median gap, or null when none does. */
-export function detectFrequency(keys: ArrayLike<number>): Frequency | null {
+export function detectFrequency(keys: ArrayLike<number>): DetectedFrequency | null {
   if (keys.length < 2) return null;
   let gap = medianWholeDayGap(keys);
   if (gap === null) {
@@ -108,7 +105,7 @@ function medianWholeDayGap(keys: ArrayLike<number>): number | null {
 }
 
 /** The frequency for an explicit periods-per-year: named after the nearest standard frequency. */
-export function frequencyFromPeriods(periodsPerYear: number): Frequency {
+export function frequencyFromPeriods(periodsPerYear: number): DetectedFrequency {
   let nearest = BANDS[0] as (typeof BANDS)[number];
   for (const band of BANDS) {
     if (Math.abs(Math.log(band[3] / periodsPerYear)) < Math.abs(Math.log(nearest[3] / periodsPerYear))) nearest = band;

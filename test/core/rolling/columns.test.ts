@@ -5,7 +5,7 @@
  */
 
 import { describe, expect, test } from "vitest";
-import { rollSolve, rollSolveColumns, windowColumnNames, type WindowSolution } from "../../../src/core/rolling/rolling.js";
+import { rollSolve, rollSolveColumns, windowColumnNames, type WindowSolution } from "../../../src/core/rolling/index.js";
 import { dataSets, describeSpec, specs } from "./helpers.js";
 
 function expectedRow(w: WindowSolution): number[] {

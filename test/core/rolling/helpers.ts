@@ -3,7 +3,7 @@
 import { crossProducts } from "../../../src/core/moments.js";
 import { simulateSample } from "../../../src/core/forward/simulate.js";
 import type { Structure } from "../../../src/core/forward/populationMoments.js";
-import type { WindowSpec } from "../../../src/core/rolling/rolling.js";
+import type { WindowSpec } from "../../../src/core/rolling/index.js";
 
 export const dailyStructure: Structure = {
   lowBeta: 0.7,

@@ -10,7 +10,7 @@
  */
 
 import { describe, expect, test } from "vitest";
-import { iterateRollingMoments, rollingMoments, windowCount, type WindowSpec } from "../../../src/core/rolling/rolling.js";
+import { iterateRollingMoments, rollingMoments, windowCount, type WindowSpec } from "../../../src/core/rolling/index.js";
 import { dataSets, describeSpec, fromScratch, Mismatches, specs } from "./helpers.js";
 
 const rel = 1e-10;

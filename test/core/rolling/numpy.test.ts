@@ -13,7 +13,7 @@
 
 import { readFileSync } from "node:fs";
 import { describe, expect, test } from "vitest";
-import { rollSolve, type WindowSpec } from "../../../src/core/rolling/rolling.js";
+import { rollSolve, type WindowSpec } from "../../../src/core/rolling/index.js";
 import { landmarkNames } from "../../../src/core/types.js";
 import { Mismatches } from "./helpers.js";
 

@@ -26,7 +26,7 @@
 
 import { describe, expect, test } from "vitest";
 import { solve } from "../../../src/core/solve.js";
-import { iterateRollSolve, rollSolve, type CapmLine, type WindowSolution } from "../../../src/core/rolling/rolling.js";
+import { iterateRollSolve, rollSolve, type CapmLine, type WindowSolution } from "../../../src/core/rolling/index.js";
 import type { Candidate, LineFit, Solution } from "../../../src/core/types.js";
 import { landmarkNames } from "../../../src/core/types.js";
 import { dataSets, describeSpec, Mismatches, specs, windowSample, type DataSet } from "./helpers.js";

@@ -18,6 +18,7 @@ import {
   type BootstrapRange,
 } from "./replicates.js";
 import { bootstrapQuantities, type BootstrapQuantity } from "./statistics.js";
+import { assertParameter, defaultConfidence } from "../../parameters.js";
 
 export interface PercentileInterval {
   readonly lower: number;
@@ -50,7 +51,7 @@ function column(range: BootstrapRange, q: number): Float64Array {
 }
 
 export function summariseBootstrap(range: BootstrapRange, seed: number, confidence: number): BootstrapSummary {
-  if (!(confidence > 0 && confidence < 1)) throw new RangeError(`confidence must lie in (0, 1), got ${confidence}`);
+  assertParameter("summariseBootstrap", "confidence", confidence);
   const alpha = 1 - confidence;
   const intervals = {} as Record<BootstrapQuantity, PercentileInterval | null>;
   const stdErrors = {} as Record<BootstrapQuantity, number | null>;
@@ -133,5 +134,5 @@ export function bootstrapSolve(
   const data: BootstrapData = riskFree === undefined ? { low, high, weight } : { low, high, riskFree, weight };
   const blockLength = resolveBlockLength(data, options.blockLength);
   const range = bootstrapRange(data, { blockLength, seed: options.seed }, 0, options.replicates);
-  return summariseBootstrap(mergeBootstrapRanges([range], options.replicates), options.seed, options.confidence ?? 0.95);
+  return summariseBootstrap(mergeBootstrapRanges([range], options.replicates), options.seed, options.confidence ?? defaultConfidence);
 }

@@ -4,17 +4,41 @@
  * --high PATH:COLUMN), the two books are read from their own files and joined on date.
  */
 import type { ReturnSample } from "../core/types.js";
-import { describeInputIssue, type InputIssue } from "../input/issues.js";
-import { joinOnDates } from "../input/table/joinOnDates.js";
-import { parseDecimal } from "../input/values/numbers.js";
-import type { ReadOptions } from "../input/options.js";
-import { readReturnsFromBytes } from "../input/readReturns.js";
-import type { ReturnTable } from "../input/table/returnTable.js";
+import {
+  describeInputIssue,
+  type InputIssue,
+  joinOnDates,
+  parseDecimal,
+  type ReadOptions,
+  readReturnsFromBytes,
+  type ReturnTable,
+} from "../input/index.js";
+import type { CommandOptions } from "../options/index.js";
 import type { InputDescription, JoinDescription, RiskFreeSource } from "../report/types.js";
-import type { CliIo } from "./runtime/io.js";
-import { describeCliIssue } from "./messages.js";
-import type { InputCliOptions } from "./options.js";
 import type { Pair } from "./pairs.js";
+import { type ReadSource, sourceName } from "./sources.js";
+
+/** The options that say which files, which columns and how to read them (solve's and roll's are the same). */
+export type ReadingOptions = Pick<
+  CommandOptions<"solve">,
+  | "low"
+  | "high"
+  | "date"
+  | "rf"
+  | "units"
+  | "allowExtreme"
+  | "delimiter"
+  | "block"
+  | "dateFormat"
+  | "sort"
+  | "periodsPerYear"
+  | "missing"
+  | "onMissing"
+  | "input"
+  | "idColumn"
+  | "valueColumn"
+  | "decimalComma"
+>;
 
 /** Columns of a table that hold the books and the risk-free return (null: constant or none). */
 interface TableKeys {
@@ -48,7 +72,7 @@ interface Side {
 }
 
 /** Two-file mode: no file arguments, and --low and --high both written as PATH:COLUMN (split at the last colon). */
-export function joinedSides(files: readonly string[], options: InputCliOptions): { low: Side; high: Side } | null {
+export function joinedSides(files: readonly string[], options: ReadingOptions): { low: Side; high: Side } | null {
   if (files.length > 0 || options.low === undefined || options.high === undefined) return null;
   const side = (value: string): Side | null => {
     const at = value.lastIndexOf(":");
@@ -63,20 +87,20 @@ export function joinedSides(files: readonly string[], options: InputCliOptions):
 export async function* loadPairs(
   files: readonly string[],
   pairs: readonly Pair[],
-  options: InputCliOptions,
-  io: CliIo,
+  options: ReadingOptions,
+  read: ReadSource,
 ): AsyncGenerator<PairLoad> {
   const joined = joinedSides(files, options);
   if (joined !== null) {
-    yield await loadJoined(joined, options, io);
+    yield await loadJoined(joined, options, read);
     return;
   }
   for (const file of files.length === 0 ? ["-"] : files) {
-    const source = describe(file);
+    const source = sourceName(file);
     const failAll = (errors: PairError[]): PairLoad[] => pairs.map((pair) => ({ ok: false, source, pair, errors }));
-    const bytes = await io.readInput(file);
+    const bytes = await read(file);
     if (!bytes.ok) {
-      yield* failAll([{ code: bytes.issues.code, message: describeCliIssue(bytes.issues) }]);
+      yield* failAll([bytes.issues]);
       continue;
     }
     const riskFree = riskFreeSource(options);
@@ -104,7 +128,7 @@ export function sampleOf(loaded: PairTable): ReturnSample & { riskFree: number |
 }
 
 /** Where the numbers of a loaded pair came from, for the reports. */
-export function describeInput(loaded: PairTable, options: InputCliOptions): InputDescription {
+export function describeInput(loaded: PairTable, options: ReadingOptions): InputDescription {
   const { table } = loaded;
   return {
     source: loaded.source,
@@ -123,10 +147,8 @@ export function describeInput(loaded: PairTable, options: InputCliOptions): Inpu
   };
 }
 
-const describe = (file: string): string => (file === "-" ? "<stdin>" : file);
-
-async function loadJoined(sides: { low: Side; high: Side }, options: InputCliOptions, io: CliIo): Promise<PairLoad> {
-  const source = `${describe(sides.low.file)} + ${describe(sides.high.file)}`;
+async function loadJoined(sides: { low: Side; high: Side }, options: ReadingOptions, read: ReadSource): Promise<PairLoad> {
+  const source = `${sourceName(sides.low.file)} + ${sourceName(sides.high.file)}`;
   const pair = { low: sides.low.column, high: sides.high.column };
   const fail = (errors: PairError[]): PairLoad => ({ ok: false, source, pair, errors });
   const riskFree = riskFreeSource(options);
@@ -135,9 +157,9 @@ async function loadJoined(sides: { low: Side; high: Side }, options: InputCliOpt
     ["low", sides.low, riskFreeColumn(riskFree)],
     ["high", sides.high, []],
   ] as const) {
-    const bytes = await io.readInput(side.file);
-    if (!bytes.ok) return fail([{ code: bytes.issues.code, message: describeCliIssue(bytes.issues) }]);
-    const table = readReturnsFromBytes(bytes.value, readOptions(describe(side.file), [side.column, ...extra], options));
+    const bytes = await read(side.file);
+    if (!bytes.ok) return fail([bytes.issues]);
+    const table = readReturnsFromBytes(bytes.value, readOptions(sourceName(side.file), [side.column, ...extra], options));
     if (!table.ok) return fail(inputErrors(table.issues));
     // Both files may call their column the same ("Return"): key them by role for the join.
     const columns = new Map<string, Float64Array>([[key, table.value.columns.get(side.column)!]]);
@@ -149,7 +171,7 @@ async function loadJoined(sides: { low: Side; high: Side }, options: InputCliOpt
   const { table, dateCounts, matched, unmatched } = joined.value;
   const join: JoinDescription = {
     sides: [sides.low, sides.high].map((side, i) => ({
-      source: describe(side.file),
+      source: sourceName(side.file),
       column: side.column,
       dates: dateCounts[i] ?? 0,
       unmatched: unmatched[i]?.count ?? 0,
@@ -160,7 +182,7 @@ async function loadJoined(sides: { low: Side; high: Side }, options: InputCliOpt
   return { ok: true, value: { source, pair, table, keys, riskFree, join } };
 }
 
-function riskFreeSource(options: InputCliOptions): RiskFreeSource {
+function riskFreeSource(options: ReadingOptions): RiskFreeSource {
   if (options.rf === undefined) return { kind: "none" };
   const rate = parseDecimal(options.rf);
   if (rate === null) return { kind: "column", column: options.rf };
@@ -171,7 +193,7 @@ function riskFreeColumn(riskFree: RiskFreeSource): string[] {
   return riskFree.kind === "column" ? [riskFree.column] : [];
 }
 
-function readOptions(source: string, columns: readonly string[], options: InputCliOptions): ReadOptions {
+function readOptions(source: string, columns: readonly string[], options: ReadingOptions): ReadOptions {
   return {
     source,
     columns,

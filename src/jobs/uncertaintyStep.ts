@@ -1,21 +1,23 @@
-/** The uncertainty step of `solve`: HAC, delta method, intervals, and the bootstrap when asked for. */
-import { diagnose, type Diagnostic } from "../core/diagnostics.js";
+/** The uncertainty step of a solve: HAC, delta method, intervals, and the bootstrap when asked for. */
+import { type Diagnostic, diagnose } from "../core/diagnostics.js";
 import type { BootstrapSummary } from "../core/inference/bootstrap/summary.js";
 import type { HacOptions } from "../core/inference/options.js";
-import { assessUncertainty, type UncertaintySample } from "../core/inference/uncertainty.js";
+import { assessUncertainty, minimumForUncertainty, type UncertaintySample } from "../core/inference/uncertainty.js";
 import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
 import type { Solution } from "../core/types.js";
-import { runBootstrap } from "./runtime/bootstrapThreads.js";
-import type { CliIo } from "./runtime/io.js";
-import { minimumForUncertainty, type SolveCliOptions } from "./options.js";
-import { createProgress } from "./runtime/progress.js";
+import type { CommandOptions } from "../options/index.js";
+import { runBootstrap } from "./bootstrapStep.js";
+import type { JobContext } from "./context.js";
+
+/** Bootstrap threads when none are asked for: the cores, at most 4 (more rarely pays for a worker's start-up). */
+export const defaultThreads = (cores: number): number => Math.max(1, Math.min(4, cores));
 
 /** Standard errors and intervals as the options ask, or null with the reason as a diagnostic. */
 export async function uncertaintyFor(
   sample: UncertaintySample,
   solution: Solution,
-  options: SolveCliOptions,
-  io: CliIo,
+  options: CommandOptions<"solve">,
+  context: JobContext,
 ): Promise<{ uncertainty: Uncertainty | null; note: Diagnostic | null }> {
   if (!options.uncertainty) return { uncertainty: null, note: null };
   if (solution.observations < minimumForUncertainty) {
@@ -26,19 +28,14 @@ export async function uncertaintyFor(
   }
   let bootstrapSummary: BootstrapSummary | undefined;
   if (options.bootstrap > 0) {
-    const progress = createProgress(io, "bootstrap", options.bootstrap);
-    bootstrapSummary = await runBootstrap(
-      { ...sample, weight: options.weight },
-      {
-        replicates: options.bootstrap,
-        blockLength: options.blockLength,
-        seed: options.seed,
-        confidence: options.confidence,
-        threads: options.threads,
-      },
-      (done) => progress.update(done),
-    );
-    progress.finish();
+    const settings = {
+      replicates: options.bootstrap,
+      blockLength: options.blockLength,
+      seed: options.seed,
+      confidence: options.confidence,
+      threads: options.threads ?? 1,
+    };
+    bootstrapSummary = await runBootstrap({ ...sample, weight: options.weight }, settings, context);
   }
   const uncertainty = assessUncertainty(sample, {
     weight: options.weight,
@@ -53,7 +50,7 @@ export async function uncertaintyFor(
 }
 
 export function hacOptions(
-  options: Pick<SolveCliOptions, "hacKernel" | "hacBandwidth" | "hacPrewhite" | "hacAdjust" | "hacLags">,
+  options: Pick<CommandOptions<"solve">, "hacKernel" | "hacBandwidth" | "hacPrewhite" | "hacAdjust" | "hacLags">,
 ): HacOptions {
   return {
     kernel: options.hacKernel,

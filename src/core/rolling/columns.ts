@@ -1,0 +1,155 @@
+/**
+ * The numbers of every window as typed-array columns (what `roll --format csv` writes): no object per
+ * window, so a million windows cost memory for the columns only.
+ */
+
+import { equalNoiseLowBeta, identifiedBounds, marketMoments, type MomentSummary } from "../identify.js";
+import { returnImpliedLowBeta } from "../landmarks.js";
+import { scanWindows } from "./scan.js";
+import { type WindowSpec, windowCount } from "./windowPlan.js";
+import { describeWindow, type WindowMoments } from "./windows.js";
+
+/** Names of the per-window columns of `rollSolveColumns`, in order. */
+export const windowColumnNames = [
+  "lowMean",
+  "highMean",
+  "lowVariance",
+  "highVariance",
+  "covariance",
+  "marketMean",
+  "marketVariance",
+  "lowAlpha",
+  "lowBeta",
+  "lowAlphaStdErr",
+  "lowBetaStdErr",
+  "lowRSquared",
+  "lowResidualVariance",
+  "highAlpha",
+  "highBeta",
+  "highAlphaStdErr",
+  "highBetaStdErr",
+  "highRSquared",
+  "highResidualVariance",
+  "lowBetaMin",
+  "lowBetaMax",
+  "highBetaMin",
+  "highBetaMax",
+  "factorVarianceMin",
+  "factorVarianceMax",
+  "lowNoiseFreeLowBeta",
+  "highNoiseFreeLowBeta",
+  "equalNoiseLowBeta",
+  "capmConsistentLowBeta",
+  "returnImpliedLowBeta",
+] as const;
+export type WindowColumnName = (typeof windowColumnNames)[number];
+
+/** rollSolve's numbers as columns: one Float64Array per quantity, NaN where rollSolve reports null. */
+export interface WindowColumns {
+  readonly count: number;
+  readonly start: Int32Array;
+  readonly end: Int32Array;
+  readonly observations: Int32Array;
+  readonly columns: Readonly<Record<WindowColumnName, Float64Array>>;
+}
+
+/**
+ * The numbers of `rollSolve` for every window as typed-array columns, with the landmarks reduced to
+ * their low structural betas: no objects per window (no Candidate, no diagnostic text), so a
+ * million windows cost memory for the columns only and a fraction of rollSolve's time. The values
+ * are the ones rollSolve reports (the same moments, the same closed forms of identify.ts and
+ * landmarks.ts); a window rollSolve rejects (constant series, C <= 0, non-finite set) has NaN bounds
+ * and landmarks, and a window without CAPM fits NaN CAPM columns.
+ */
+export function rollSolveColumns(
+  low: ArrayLike<number>,
+  high: ArrayLike<number>,
+  riskFree: number | ArrayLike<number>,
+  weight: number,
+  spec: WindowSpec,
+): WindowColumns {
+  const count = windowCount(low.length, spec);
+  const start = new Int32Array(count);
+  const end = new Int32Array(count);
+  const observations = new Int32Array(count);
+  const columns = Object.fromEntries(windowColumnNames.map((name) => [name, new Float64Array(count).fill(Number.NaN)])) as Record<
+    WindowColumnName,
+    Float64Array
+  >;
+  const c = columns;
+  let k = 0;
+  for (const raw of scanWindows(low, high, riskFree, weight, spec)) {
+    const window = describeWindow(raw, weight);
+    const { summary: m, market, capm } = window;
+    start[k] = window.start;
+    end[k] = window.end;
+    observations[k] = window.observations;
+    c.lowMean[k] = m.lowMean;
+    c.highMean[k] = m.highMean;
+    c.lowVariance[k] = m.lowVariance;
+    c.highVariance[k] = m.highVariance;
+    c.covariance[k] = m.covariance;
+    c.marketMean[k] = market.mean;
+    c.marketVariance[k] = market.variance;
+    if (capm !== null) {
+      c.lowAlpha[k] = capm.low.alpha;
+      c.lowBeta[k] = capm.low.beta;
+      c.lowAlphaStdErr[k] = capm.low.alphaStdErr;
+      c.lowBetaStdErr[k] = capm.low.betaStdErr;
+      c.lowRSquared[k] = capm.low.rSquared;
+      c.lowResidualVariance[k] = capm.low.residualVariance;
+      c.highAlpha[k] = capm.high.alpha;
+      c.highBeta[k] = capm.high.beta;
+      c.highAlphaStdErr[k] = capm.high.alphaStdErr;
+      c.highBetaStdErr[k] = capm.high.betaStdErr;
+      c.highRSquared[k] = capm.high.rSquared;
+      c.highResidualVariance[k] = capm.high.residualVariance;
+    }
+    const solvable = m.lowVariance !== 0 && m.highVariance !== 0 && market.variance !== 0 && capm !== null && m.covariance > 0;
+    if (solvable) writeSetColumns(c, k, m, market, window.observations);
+    k++;
+  }
+  return { count, start, end, observations, columns };
+}
+
+/** Bounds and landmark low betas as identifySet and findLandmarks compute them (identify.ts, landmarks.ts). */
+function writeSetColumns(
+  c: Record<WindowColumnName, Float64Array>,
+  k: number,
+  m: MomentSummary,
+  market: WindowMoments["market"],
+  n: number,
+): void {
+  const bounds = identifiedBounds(m);
+  const { min, max } = bounds.lowBeta;
+  const w = m.weight;
+  const v = 1 - w;
+  const clamp = (x: number): number => Math.min(Math.max(x, min), max);
+  const capmBeta = marketMoments(m).lowCapmBeta; // as findLandmarks takes it
+  const lambda = w * m.lowMean + v * m.highMean;
+  const implied = returnImpliedLowBeta(m.lowMean, lambda, Math.sqrt(market.variance) / Math.sqrt(n), w) ?? Number.NaN;
+  const values = [
+    min,
+    max,
+    bounds.highBeta.min,
+    bounds.highBeta.max,
+    bounds.factorVariance.min,
+    bounds.factorVariance.max,
+    max,
+    min,
+    clamp(equalNoiseLowBeta(m)),
+    clamp(capmBeta),
+  ];
+  if (!values.every(Number.isFinite)) return; // identifySet's degenerate-moments rejection
+  c.lowBetaMin[k] = values[0]!;
+  c.lowBetaMax[k] = values[1]!;
+  c.highBetaMin[k] = values[2]!;
+  c.highBetaMax[k] = values[3]!;
+  c.factorVarianceMin[k] = values[4]!;
+  c.factorVarianceMax[k] = values[5]!;
+  c.lowNoiseFreeLowBeta[k] = values[6]!;
+  c.highNoiseFreeLowBeta[k] = values[7]!;
+  c.equalNoiseLowBeta[k] = values[8]!;
+  c.capmConsistentLowBeta[k] = values[9]!;
+  c.returnImpliedLowBeta[k] = implied;
+}

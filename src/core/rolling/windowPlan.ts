@@ -1,0 +1,36 @@
+/**
+ * Rolling and expanding windows: which windows a spec gives. The moments of every window are kept in
+ * O(1) amortised work each (scan.ts), their CAPM fits and sets follow in closed form (windows.ts).
+ * Pure: numbers in, values out.
+ *
+ * Conventions are solve's (solve.ts): excess returns r - rf formed row by row exactly as solve forms
+ * them, market proxy M = w low + (1 - w) high, divisor n - 1. A window spec is either
+ * - `{ kind: "window", size, step }`: rows [s, s + size - 1] for s = 0, step, 2 step, ... while the
+ *   window fits in the sample (the first window starts at row 0; trailing rows that do not complete a
+ *   window are not reported), or
+ * - `{ kind: "expanding", minPeriods, step }`: rows [0, e] for e = minPeriods - 1, minPeriods - 1 + step, ...
+ */
+
+import { minimumObservations } from "../solve.js";
+
+/** Which windows to compute. `step` is the distance between consecutive windows' ends (and starts). */
+export type WindowSpec =
+  | { readonly kind: "window"; readonly size: number; readonly step: number }
+  | { readonly kind: "expanding"; readonly minPeriods: number; readonly step: number };
+
+/** The number of windows `spec` gives on `length` rows (0 when the first window does not fit). */
+export function windowCount(length: number, spec: WindowSpec): number {
+  checkSpec(spec);
+  const first = spec.kind === "window" ? spec.size : spec.minPeriods;
+  return length < first ? 0 : Math.floor((length - first) / spec.step) + 1;
+}
+
+/** Throws a RangeError (a programming error) for a window smaller than the minimum or a step below 1. */
+export function checkSpec(spec: WindowSpec): void {
+  const first = spec.kind === "window" ? spec.size : spec.minPeriods;
+  const name = spec.kind === "window" ? "size" : "minPeriods";
+  if (!(Number.isInteger(first) && first >= minimumObservations)) {
+    throw new RangeError(`rolling: ${name} must be an integer >= ${minimumObservations}, got ${first}`);
+  }
+  if (!(Number.isInteger(spec.step) && spec.step >= 1)) throw new RangeError(`rolling: step must be an integer >= 1, got ${spec.step}`);
+}

@@ -1,0 +1,29 @@
+/**
+ * The implied job: a structure (per period, decimal) in, what it implies out: population moments,
+ * CAPM betas and alphas, the identified set a sample would show, with `solve`'s field names. Its
+ * JSON document is what `implied --format json` prints.
+ */
+import { implied } from "../core/forward/implied.js";
+import { failure, type Result, success } from "../core/result.js";
+import { type CommandOptions, type CommandOptionsInput, type OptionIssue, optionIssueOf, optionsSchema } from "../options/index.js";
+import { type ImpliedReport, impliedOutput } from "../report/impliedReport.js";
+import type { ImpliedOutputJson } from "../schema/impliedOutput.js";
+import { tool } from "./tool.js";
+
+export interface ImpliedJobResult {
+  readonly options: CommandOptions<"implied">;
+  readonly report: ImpliedReport;
+  readonly document: ImpliedOutputJson;
+  /** ok: the structure implies an identified set; rejected: it does not (a diagnostic says why). */
+  readonly status: "ok" | "rejected";
+}
+
+export function impliedJob(input: CommandOptionsInput<"implied">): Result<ImpliedJobResult, OptionIssue> {
+  const parsed = optionsSchema("implied").safeParse(input);
+  if (!parsed.success) return failure(optionIssueOf(parsed.error));
+  const options = parsed.data;
+  const { lowBeta, factorVol, factorMean, lowNoiseVol, highNoiseVol, weight } = options;
+  const solution = implied({ lowBeta, factorVol, factorMean, lowNoiseVol, highNoiseVol, weight }, options.steps);
+  const report: ImpliedReport = { tool, solution, riskFree: options.rf };
+  return success({ options, report, document: impliedOutput(report), status: solution.bounds === null ? "rejected" : "ok" });
+}

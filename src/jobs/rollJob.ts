@@ -1,0 +1,124 @@
+/**
+ * The roll job: the identified set over rolling or expanding windows, for every (file, pair). Nothing
+ * is held whole: each pair offers its windows as an iterator (computed in amortised O(1) each), as
+ * typed-array columns (for CSV), and as the JSON records `roll --format jsonl` writes, one at a time.
+ */
+import { excessReturns } from "../core/inference/bootstrap/replicates.js";
+import { type WindowUncertainty, windowUncertainty } from "../core/inference/windowUncertainty.js";
+import { failure, type Result, success } from "../core/result.js";
+import {
+  iterateRollSolve,
+  rollSolveColumns,
+  type WindowColumns,
+  type WindowSolution,
+  type WindowSpec,
+  windowCount,
+} from "../core/rolling/index.js";
+import { describeInputWarning } from "../input/index.js";
+import { type CommandOptions, type CommandOptionsInput, type OptionIssue, optionIssueOf, optionsSchema } from "../options/index.js";
+import { failureOutput } from "../report/records.js";
+import { type RollMeta, rollRecord } from "../report/rollReport.js";
+import type { RollOutputJson } from "../schema/rollOutput.js";
+import type { SolveFailureJson } from "../schema/solveOutput.js";
+import type { JobContext } from "./context.js";
+import { describeInput, joinedSides, loadPairs, type PairTable, sampleOf } from "./pairTables.js";
+import { pairsFrom } from "./pairs.js";
+import type { JobMessage } from "./solveJob.js";
+import { tool } from "./tool.js";
+
+/** The windows of one (file, pair). */
+export interface RolledPair {
+  readonly kind: "windows";
+  readonly meta: RollMeta;
+  readonly messages: readonly JobMessage[];
+  /** Every window in order, computed as it is reached. */
+  windows(): Iterable<WindowSolution>;
+  /** Every window as typed-array columns (the CSV's numbers). */
+  columns(): WindowColumns;
+  /** A window's standard errors and interval (null without `uncertainty`, or when the window has no set). */
+  uncertaintyAt(window: WindowSolution): WindowUncertainty | null;
+  /** The JSON record of every window, in order: one `roll --format jsonl` line each. */
+  records(): Iterable<RollOutputJson>;
+}
+
+/** A (file, pair) that was not rolled; `document` is its failure record (null when none is written). */
+export interface RollFailure {
+  readonly kind: "failure";
+  readonly document: SolveFailureJson | null;
+  readonly messages: readonly JobMessage[];
+}
+
+export interface RollJob {
+  readonly options: CommandOptions<"roll">;
+  readonly spec: WindowSpec;
+  readonly several: boolean;
+  /** The pairs in order, each read when it is reached. */
+  readonly pairs: AsyncIterable<RolledPair | RollFailure>;
+}
+
+/** Validates `input` (filling in defaults) and plans the windows; the pairs are read as they are iterated. */
+export function rollJob(files: readonly string[], input: CommandOptionsInput<"roll">, context: JobContext): Result<RollJob, OptionIssue> {
+  const parsed = optionsSchema("roll").safeParse(input);
+  if (!parsed.success) return failure(optionIssueOf(parsed.error));
+  const options = parsed.data;
+  const pairs = pairsFrom(options);
+  const joined = joinedSides(files, options) !== null;
+  const several = !joined && Math.max(files.length, 1) * pairs.length > 1;
+  if (several && options.chart !== undefined) {
+    return failure({ option: "chart", value: options.chart, message: "draws one file and one pair; run it per pair" });
+  }
+  const spec: WindowSpec = options.expanding
+    ? { kind: "expanding", minPeriods: options.minPeriods ?? 3, step: options.step }
+    : { kind: "window", size: options.window ?? 3, step: options.step };
+  return success({ options, spec, several, pairs: rollPairs(files, options, spec, context) });
+}
+
+async function* rollPairs(
+  files: readonly string[],
+  options: CommandOptions<"roll">,
+  spec: WindowSpec,
+  context: JobContext,
+): AsyncGenerator<RolledPair | RollFailure> {
+  for await (const load of loadPairs(files, pairsFrom(options), options, context.read)) {
+    if (!load.ok) {
+      const document = failureOutput({
+        tool,
+        source: load.source,
+        lowColumn: load.pair.low,
+        highColumn: load.pair.high,
+        errors: load.errors,
+      });
+      yield { kind: "failure", document, messages: load.errors.map((e) => ({ severity: "error", text: e.message })) };
+    } else yield rollPair(load.value, options, spec);
+  }
+}
+
+function rollPair(loaded: PairTable, options: CommandOptions<"roll">, spec: WindowSpec): RolledPair | RollFailure {
+  const warnings: JobMessage[] = loaded.table.warnings.map((w) => ({ severity: "warning", text: describeInputWarning(w) }));
+  const sample = sampleOf(loaded);
+  const n = sample.low.length;
+  if (windowCount(n, spec) === 0) {
+    const needed = spec.kind === "window" ? spec.size : spec.minPeriods;
+    const text = `${loaded.source}: ${n} aligned rows are fewer than the ${needed} the first window needs; use a shorter --window or --min-periods`;
+    return { kind: "failure", document: null, messages: [...warnings, { severity: "error", text }] };
+  }
+  const meta: RollMeta = { tool, input: describeInput(loaded, options), spec, weight: options.weight, dates: loaded.table.dates };
+  const { low, high, riskFree } = sample;
+  const excess = options.uncertainty ? excessReturns({ ...sample, weight: options.weight }) : null;
+  const windows = () => iterateRollSolve(low, high, riskFree, options.weight, spec);
+  const uncertaintyAt = (w: WindowSolution): WindowUncertainty | null =>
+    excess === null
+      ? null
+      : windowUncertainty(excess.low, excess.high, w.start, w.end, w.summary, { confidence: options.confidence, longRun: options.longRun });
+  return {
+    kind: "windows",
+    meta,
+    messages: warnings,
+    windows,
+    columns: () => rollSolveColumns(low, high, riskFree, options.weight, spec),
+    uncertaintyAt,
+    *records() {
+      for (const window of windows()) yield rollRecord(meta, window, uncertaintyAt(window));
+    },
+  };
+}

@@ -1,0 +1,131 @@
+/**
+ * The solve job: file names and one options object in, one record per (file, pair) out: a report with
+ * its JSON document (what `solve --format json` prints), or a failure with its errors. Each (file,
+ * pair) is read on its own rows (a missing value in one pair's columns drops no row of another), or,
+ * with `low` and `high` written PATH:COLUMN and no files, the two books come from their own files
+ * joined on date. A pair that fails does not stop the others.
+ */
+import { solve } from "../core/solve.js";
+import { describeInputWarning } from "../input/index.js";
+import { type CommandOptions, type CommandOptionsInput, type OptionIssue, optionIssueOf, optionsSchema } from "../options/index.js";
+import { toSolveOutput } from "../report/json.js";
+import { failureOutput, type SolveRecord } from "../report/records.js";
+import type { SolveReport } from "../report/types.js";
+import type { SolveFailureJson, SolveOutputJson } from "../schema/solveOutput.js";
+import type { JobContext } from "./context.js";
+import { describeInput, joinedSides, loadPairs, type PairLoad, sampleOf } from "./pairTables.js";
+import { pairsFrom } from "./pairs.js";
+import { tool } from "./tool.js";
+import { uncertaintyFor } from "./uncertaintyStep.js";
+import { failure, type Result, success } from "../core/result.js";
+
+/** A message for a person: what a report also carries as a diagnostic, or why a pair failed. */
+export interface JobMessage {
+  readonly severity: "warning" | "error";
+  readonly text: string;
+}
+
+/** How one (file, pair) went: ok (a set was found), rejected (read, but no set fits), failed (not solved). */
+export type PairStatus = "ok" | "rejected" | "failed";
+
+export interface SolvedPair {
+  readonly record: SolveRecord;
+  /** The JSON document of the record: a solve document, or a failure record (one `--format jsonl` line). */
+  readonly document: SolveOutputJson | SolveFailureJson;
+  readonly status: PairStatus;
+  readonly messages: readonly JobMessage[];
+}
+
+export interface SolveJobResult {
+  /** The options as validated, with every default filled in. */
+  readonly options: CommandOptions<"solve">;
+  readonly pairs: readonly SolvedPair[];
+  /** More than one (file, pair) was asked for: outputs are lists of records. */
+  readonly several: boolean;
+}
+
+/** Validates `input` (filling in defaults) and the rules that depend on how many files and pairs there are. */
+export function solveOptions(files: readonly string[], input: CommandOptionsInput<"solve">): Result<SolveJobPlan, OptionIssue> {
+  const parsed = optionsSchema("solve").safeParse(input);
+  if (!parsed.success) return failure(optionIssueOf(parsed.error));
+  const options = parsed.data;
+  const pairs = pairsFrom(options);
+  const joined = joinedSides(files, options) !== null;
+  const several = !joined && Math.max(files.length, 1) * pairs.length > 1;
+  if (several && (options.chart !== undefined || options.report !== undefined)) {
+    const option = options.chart === undefined ? "report" : "chart";
+    const value = options.chart ?? options.report ?? "";
+    return failure({ option, value, message: "draws one file and one pair; run it per pair" });
+  }
+  if (several && options.format === "json") {
+    return failure({
+      option: "format",
+      value: "json",
+      message: "several files or pairs need --format jsonl (one record per line), csv or text",
+    });
+  }
+  return success({ options, several });
+}
+
+export interface SolveJobPlan {
+  readonly options: CommandOptions<"solve">;
+  readonly several: boolean;
+}
+
+/**
+ * Solves every (file, pair) of `files` ("-" or none: standard input, as `context.read` provides it)
+ * with `options` (a library call may leave out anything with a default).
+ */
+export async function solveJob(
+  files: readonly string[],
+  input: CommandOptionsInput<"solve">,
+  context: JobContext,
+): Promise<Result<SolveJobResult, OptionIssue>> {
+  const plan = solveOptions(files, input);
+  return plan.ok ? success(await solvePlanned(files, plan.value, context)) : plan;
+}
+
+/** `solveJob` with options already validated by `solveOptions`. */
+export async function solvePlanned(files: readonly string[], plan: SolveJobPlan, context: JobContext): Promise<SolveJobResult> {
+  const { options, several } = plan;
+  const pairs: SolvedPair[] = [];
+  for await (const load of loadPairs(files, pairsFrom(options), options, context.read))
+    pairs.push(await solveLoaded(load, options, context));
+  return { options, pairs, several };
+}
+
+async function solveLoaded(load: PairLoad, options: CommandOptions<"solve">, context: JobContext): Promise<SolvedPair> {
+  if (!load.ok) return failed(load.source, load.pair, load.errors);
+  const loaded = load.value;
+  const { source, pair } = loaded;
+  const sample = sampleOf(loaded);
+  const solved = solve(sample, { weight: options.weight, steps: options.steps });
+  if (!solved.ok) {
+    return failed(
+      source,
+      pair,
+      solved.issues.map((d) => ({ code: d.code, message: `${source}: ${d.message}` })),
+    );
+  }
+  const assessed = await uncertaintyFor(sample, solved.value, options, context);
+  const solution = assessed.note === null ? solved.value : { ...solved.value, diagnostics: [...solved.value.diagnostics, assessed.note] };
+  const report: SolveReport = { tool, input: describeInput(loaded, options), solution, uncertainty: assessed.uncertainty };
+  const messages: JobMessage[] = [
+    ...loaded.table.warnings.map((w) => ({ severity: "warning" as const, text: describeInputWarning(w) })),
+    ...solved.value.diagnostics
+      .filter((d) => d.severity !== "info")
+      .map((d) => ({ severity: d.severity === "error" ? ("error" as const) : ("warning" as const), text: `${source}: ${d.message}` })),
+  ];
+  const record: SolveRecord = { kind: "report", report };
+  return { record, document: toSolveOutput(report), status: solved.value.bounds === null ? "rejected" : "ok", messages };
+}
+
+function failed(source: string, pair: { low: string; high: string }, errors: readonly { code: string; message: string }[]): SolvedPair {
+  const failure = { tool, source, lowColumn: pair.low, highColumn: pair.high, errors };
+  return {
+    record: { kind: "failure", failure },
+    document: failureOutput(failure),
+    status: "failed",
+    messages: errors.map((e) => ({ severity: "error", text: e.message })),
+  };
+}

@@ -1,0 +1,160 @@
+/**
+ * The zod schema of each command's options, generated from the option table, and their TypeScript
+ * types, inferred from the table. The rules across options (--low with --high, a window or
+ * --expanding, ...) are here too, each with its message. Schemas are built on first use, for the
+ * command that runs: building every command's up front costs start-up time on every run.
+ */
+import en from "zod/v4/locales/en.js";
+import * as z from "zod/mini";
+import type { Kind } from "./kinds.js";
+import { type CommandName, commandNames, type OptionKey, type OptionSpec, type OptionTable, optionTable } from "./table.js";
+
+// zod/mini loads no messages of its own: English ones (only the structural issues use them, such
+// as an unknown key; every value's message comes from its kind); and no compiled fast path, which
+// costs more to build than it saves when each run parses its options once.
+z.config({ ...en(), jitless: true });
+
+type EntriesOf<C extends CommandName> = { [K in OptionKey]: C extends OptionTable[K]["commands"][number] ? K : never }[OptionKey];
+type ValueOf<K extends OptionKey> = OptionTable[K]["kind"] extends Kind<infer T> ? T : never;
+type NameOf<K extends OptionKey> = OptionTable[K] extends { flagOnly: true } ? never : OptionTable[K]["name"];
+type Defaulted<K extends OptionKey> = OptionTable[K] extends { default: unknown } ? true : false;
+type Required<K extends OptionKey> = OptionTable[K] extends { required: true } ? true : false;
+type Simplify<T> = { [K in keyof T]: T[K] } & {};
+
+/** The options of command `C` once validated: an option with a default is always there. */
+export type CommandOptions<C extends CommandName> = Simplify<
+  { [K in EntriesOf<C> as Defaulted<K> extends true ? NameOf<K> : Required<K> extends true ? NameOf<K> : never]: ValueOf<K> } & {
+    [K in EntriesOf<C> as Defaulted<K> extends true ? never : Required<K> extends true ? never : NameOf<K>]?: ValueOf<K> | undefined;
+  }
+>;
+
+/** The options of command `C` as a library call or a config file gives them: defaults may be left out. */
+export type CommandOptionsInput<C extends CommandName> = Simplify<
+  { [K in EntriesOf<C> as Required<K> extends true ? NameOf<K> : never]: ValueOf<K> } & {
+    [K in EntriesOf<C> as Required<K> extends true ? never : NameOf<K>]?: ValueOf<K> | undefined;
+  }
+>;
+
+/** The table's entries for `command`, in table order, without the flag-only ones when `flagsOnly` is false. */
+export function entriesFor(command: CommandName, { withFlagOnly = false } = {}): readonly OptionSpec<unknown>[] {
+  const entries = Object.values(optionTable) as readonly OptionSpec<unknown>[];
+  return entries.filter((entry) => entry.commands.includes(command) && (withFlagOnly || entry.flagOnly !== true));
+}
+
+/** Each command's defaults, from the table (the library's and the CLI's). */
+export function defaultsFor(command: CommandName): Readonly<Record<string, unknown>> {
+  const defaults: Record<string, unknown> = {};
+  for (const entry of entriesFor(command)) if (entry.default !== undefined) defaults[entry.name] = entry.default;
+  return defaults;
+}
+
+/** The schema of one option's value: its kind's, with the default filled in or made optional. */
+function fieldSchema(entry: OptionSpec<unknown>): z.ZodMiniType {
+  const schema = entry.kind.schema();
+  if (entry.default !== undefined) return z._default(schema, entry.default as never);
+  if (entry.required === true) return schema;
+  return z.optional(schema);
+}
+
+/** A rule across options: a zod check on the options object (checked after every value's own rule). */
+type Rule = z.core.$ZodCheck<never>;
+
+interface ReaderOptions {
+  readonly low?: string | undefined;
+  readonly high?: string | undefined;
+  readonly pair?: readonly unknown[] | undefined;
+  readonly lows?: readonly string[] | undefined;
+  readonly highs?: readonly string[] | undefined;
+  readonly idColumn?: string | undefined;
+  readonly valueColumn?: string | undefined;
+}
+
+/** Rules across options of the commands that read files. */
+function readerRules(): Rule[] {
+  return [
+    z.refine<ReaderOptions>((o) => (o.low === undefined) === (o.high === undefined), {
+      path: ["high"],
+      message: "--low and --high go together (or use --pair LOW:HIGH)",
+    }),
+    z.refine<ReaderOptions>((o) => (o.lows === undefined) === (o.highs === undefined), {
+      path: ["highs"],
+      message: "--lows and --highs go together",
+    }),
+    z.refine<ReaderOptions>((o) => o.low !== undefined || (o.pair?.length ?? 0) > 0 || o.lows !== undefined, {
+      path: ["low"],
+      message: "name the books: --low COLUMN --high COLUMN, or --pair LOW:HIGH, or --lows A,B --highs X,Y",
+    }),
+    z.refine<ReaderOptions>((o) => (o.idColumn === undefined) === (o.valueColumn === undefined), {
+      path: ["valueColumn"],
+      message: "the long layout needs both --id-column and --value-column",
+    }),
+  ];
+}
+
+/** b_low < 1/w, so that the high book's structural beta is positive. */
+const positiveHighBeta = (): Rule =>
+  z.refine<{ lowBeta: number; weight: number }>((o) => o.lowBeta < 1 / o.weight, {
+    path: ["lowBeta"],
+    message: "must be below 1/w so that the high book's beta is positive",
+  });
+
+const rulesAcross: { readonly [C in CommandName]: () => Rule[] } = {
+  solve: () => [
+    ...readerRules(),
+    z.refine<CommandOptions<"solve">>((o) => o.intervalSource !== "bootstrap" || o.bootstrap >= 2, {
+      path: ["intervalSource"],
+      message: "bootstrap standard errors need --bootstrap with at least 2 replicates",
+    }),
+  ],
+  roll: () => [
+    ...readerRules(),
+    z.refine<CommandOptions<"roll">>((o) => (o.window === undefined) !== !o.expanding, {
+      path: ["window"],
+      message: "give either --window N (a rolling window) or --expanding (with --min-periods N)",
+    }),
+    z.refine<CommandOptions<"roll">>((o) => !o.expanding || o.minPeriods !== undefined, {
+      path: ["minPeriods"],
+      message: "--expanding needs --min-periods N (at least 3)",
+    }),
+  ],
+  implied: () => [positiveHighBeta()],
+  simulate: () => [positiveHighBeta()],
+};
+
+const built = new Map<CommandName, z.ZodMiniType>();
+
+/** The schema of `command`'s options: a strict object of the table's fields and the rules across them. */
+export function optionsSchema<C extends CommandName>(command: C): z.ZodMiniType<CommandOptions<C>, CommandOptionsInput<C>> {
+  let schema = built.get(command);
+  if (schema === undefined) {
+    const shape = Object.fromEntries(entriesFor(command).map((entry) => [entry.name, fieldSchema(entry)]));
+    const checks = rulesAcross[command]() as z.core.$ZodCheck<Record<string, unknown>>[];
+    schema = z.strictObject(shape).check(...checks);
+    built.set(command, schema);
+  }
+  return schema as z.ZodMiniType<CommandOptions<C>, CommandOptionsInput<C>>;
+}
+
+/** A refused option value: the option and why. */
+export interface OptionIssue {
+  /** The option's name (camelCase), or "" for the options object as a whole. */
+  readonly option: string;
+  /** The value refused, when one value is the problem. */
+  readonly value?: string;
+  readonly message: string;
+}
+
+/** The first problem zod found, as the option it concerns and the message. */
+export function optionIssueOf(error: z.core.$ZodError): OptionIssue {
+  const issue = error.issues[0];
+  const option = String(issue?.path[0] ?? "");
+  const message =
+    issue?.code === "unrecognized_keys" ? `unknown option ${issue.keys.map((k) => `"${k}"`).join(", ")}` : (issue?.message ?? "invalid");
+  return { option: issue?.code === "unrecognized_keys" ? "" : option, message };
+}
+
+/** The kebab-case flag of an option name: "hacLags" -> "--hac-lags". */
+export const flagOf = (name: string): string => `--${name.replace(/[A-Z]/g, (c) => `-${c.toLowerCase()}`)}`;
+
+/** Every command name, for tests and the docs. */
+export { commandNames };
