@@ -88,17 +88,23 @@ await build({
   logLevel: "warning",
 });
 
-await build({
-  entryPoints: ["src/index.ts"],
-  outfile: "dist/index.js",
-  bundle: true,
-  platform: "node",
-  format: "esm",
-  target: "node20",
-  define,
-  packages: "external",
-  logLevel: "warning",
-});
+// The library: everything (jobs, options, renderers, core), and the pure core alone (no package).
+for (const [entry, outfile] of [
+  ["src/index.ts", "dist/index.js"],
+  ["src/core/index.ts", "dist/core.js"],
+]) {
+  await build({
+    entryPoints: [entry],
+    outfile,
+    bundle: true,
+    platform: "node",
+    format: "esm",
+    target: "node20",
+    define,
+    packages: "external",
+    logLevel: "warning",
+  });
+}
 
 execFileSync(process.execPath, [require.resolve("typescript/bin/tsc"), "-p", "tsconfig.build.json"], {
   stdio: "inherit",

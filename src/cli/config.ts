@@ -18,8 +18,8 @@ export async function withConfig(
   io: CliIo,
 ): Promise<Result<{ files: string[]; options: Record<string, unknown> }, CliIssue>> {
   const options: Record<string, unknown> = { ...command.opts() };
-  const path = options["config"];
-  delete options["config"];
+  const path = options.config;
+  delete options.config;
   if (typeof path !== "string") return success({ files: [...files], options });
   const bytes = await io.readInput(path);
   if (!bytes.ok) return bytes;

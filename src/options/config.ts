@@ -38,7 +38,7 @@ function configSchema(command: CommandName): z.ZodMiniType {
     const shape: Record<string, z.ZodMiniType> = Object.fromEntries(knownKeys().map((key) => [key, z.optional(z.unknown())]));
     for (const entry of entriesFor(command)) shape[entry.name] = z.optional(entry.kind.schema());
     const file = textKind("a file path").schema();
-    shape["files"] = z.optional(z.array(file).check(z.minLength(1, { error: "must list at least one file" })));
+    shape.files = z.optional(z.array(file).check(z.minLength(1, { error: "must list at least one file" })));
     schema = z.strictObject(shape);
     schemas.set(command, schema);
   }
