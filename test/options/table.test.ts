@@ -66,7 +66,8 @@ describe("the option table", () => {
     for (const command of ["solve", "roll"] as const) {
       const parsed = optionsSchema(command).safeParse({ low: "a", high: "b", ...(command === "roll" ? { window: 12 } : {}) });
       expect(parsed.success, command).toBe(true);
-      if (parsed.success) for (const [name, value] of Object.entries(defaultsFor(command))) expect(parsed.data[name as never], name).toEqual(value);
+      if (parsed.success)
+        for (const [name, value] of Object.entries(defaultsFor(command))) expect(parsed.data[name as never], name).toEqual(value);
     }
   });
 
@@ -90,7 +91,19 @@ const baseline: Record<CommandName, string[]> = {
   solve: ["solve", "m.csv", "--low", "a", "--high", "b"],
   roll: ["roll", "m.csv", "--low", "a", "--high", "b", "--window", "12"],
   implied: ["implied", "--low-beta", "0.7", "--factor-vol", "0.01", "--low-noise-vol", "0.01", "--high-noise-vol", "0.01"],
-  simulate: ["simulate", "--low-beta", "0.7", "--factor-vol", "0.01", "--low-noise-vol", "0.01", "--high-noise-vol", "0.01", "--periods", "3"],
+  simulate: [
+    "simulate",
+    "--low-beta",
+    "0.7",
+    "--factor-vol",
+    "0.01",
+    "--low-noise-vol",
+    "0.01",
+    "--high-noise-vol",
+    "0.01",
+    "--periods",
+    "3",
+  ],
 };
 const baselineOptions: Record<CommandName, Record<string, unknown>> = {
   solve: { low: "a", high: "b" },
