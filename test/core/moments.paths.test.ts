@@ -1,7 +1,9 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { crossProducts, excessCrossProducts } from "../../src/core/moments.js";
+import { CHUNK } from "../../src/core/moments.js";
 import { excessResidualSums, residualSumOfSquares } from "../../src/core/regression.js";
+import { normals } from "../support/random.js";
 
 const finite = fc.double({ min: -1e3, max: 1e3, noNaN: true, noDefaultInfinity: true });
 const rowsOf = (width: number) => fc.array(fc.array(finite, { minLength: width, maxLength: width }), { minLength: 1, maxLength: 60 });
@@ -78,5 +80,82 @@ describe("the excess passes of solve (series formed on the fly)", () => {
   it("refuses series of different lengths", () => {
     expect(() => excessCrossProducts([1, 2, 3], [1, 2], 0, 0.5)).toThrow(RangeError);
     expect(() => excessCrossProducts([1, 2, 3], [1, 2, 3], [0, 0], 0.5)).toThrow(RangeError);
+  });
+});
+
+/**
+ * The passes above take their rows in chunks of CHUNK (1,024) rows; the short samples above never
+ * reach a second chunk. Here the samples run to a few thousand rows, so every case crosses at least
+ * one chunk boundary, and the chunked passes must still equal the plain ones bit for bit.
+ */
+describe("the chunked passes across chunk boundaries", () => {
+  /** n rows of returns (low, high, rf) drawn from a seeded normal generator at a given scale and level. */
+  function sample(n: number, seed: number, scale: number, level: number) {
+    const z = normals(seed);
+    const low = new Float64Array(n);
+    const high = new Float64Array(n);
+    const rf = new Float64Array(n);
+    for (let t = 0; t < n; t++) {
+      low[t] = level + scale * z();
+      high[t] = level + 1.5 * scale * z();
+      rf[t] = 0.0001 + 1e-6 * z();
+    }
+    return { low, high, rf };
+  }
+  const lengths = fc.oneof(
+    fc.constantFrom(CHUNK - 1, CHUNK, CHUNK + 1, 2 * CHUNK - 1, 2 * CHUNK, 2 * CHUNK + 1, 3 * CHUNK + 7),
+    fc.integer({ min: CHUNK + 1, max: 4 * CHUNK }),
+  );
+  const cases = fc.record({
+    n: lengths,
+    seed: fc.integer({ min: 1, max: 2 ** 31 - 1 }),
+    scale: fc.constantFrom(1e-4, 0.01, 1, 1e3),
+    level: fc.constantFrom(0, 0.05, 100),
+    weight: fc.double({ min: 0.01, max: 0.99, noNaN: true }),
+    constantRate: fc.boolean(),
+  });
+
+  it("excessCrossProducts equals crossProducts of the built series bit for bit", () => {
+    fc.assert(
+      fc.property(cases, ({ n, seed, scale, level, weight, constantRate }) => {
+        const { low, high, rf } = sample(n, seed, scale, level);
+        const rate = (t: number): number => (constantRate ? rf[0]! : rf[t]!);
+        const lowX = Float64Array.from(low, (x, t) => x - rate(t));
+        const highX = Float64Array.from(high, (x, t) => x - rate(t));
+        const market = Float64Array.from(lowX, (l, t) => weight * l + (1 - weight) * highX[t]!);
+        const chunked = excessCrossProducts(low, high, constantRate ? rf[0]! : rf, weight);
+        expect(chunked).toEqual(crossProducts([lowX, highX, market])); // unrolled path, chunked
+        expect(chunked).toEqual(crossProducts([Array.from(lowX), Array.from(highX), Array.from(market)])); // general loop, one pass
+      }),
+      { seed: 20261205, numRuns: 40 },
+    );
+  });
+
+  it("excessResidualSums equals residualSumOfSquares on the built series bit for bit", () => {
+    fc.assert(
+      fc.property(cases, fc.double({ min: -3, max: 3, noNaN: true }), ({ n, seed, scale, level, weight, constantRate }, beta) => {
+        const { low, high, rf } = sample(n, seed, scale, level);
+        const rate = (t: number): number => (constantRate ? rf[0]! : rf[t]!);
+        const lowX = Float64Array.from(low, (x, t) => x - rate(t));
+        const highX = Float64Array.from(high, (x, t) => x - rate(t));
+        const market = Float64Array.from(lowX, (l, t) => weight * l + (1 - weight) * highX[t]!);
+        const cp = crossProducts([lowX, highX, market]);
+        const [xbar, lowBar, highBar] = [cp.means[2]!, cp.means[0]!, cp.means[1]!];
+        const sums = excessResidualSums(
+          low,
+          high,
+          constantRate ? rf[0]! : rf,
+          weight,
+          xbar,
+          { ybar: lowBar, beta },
+          { ybar: highBar, beta: 2 - beta },
+        );
+        expect(sums).toEqual([
+          residualSumOfSquares(market, lowX, xbar, lowBar, beta),
+          residualSumOfSquares(market, highX, xbar, highBar, 2 - beta),
+        ]);
+      }),
+      { seed: 20261206, numRuns: 40 },
+    );
   });
 });

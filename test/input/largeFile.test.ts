@@ -1,3 +1,7 @@
+/**
+ * A file of 1,000,000 rows (a date and four numeric columns) reads whole and the same from its text and
+ * its bytes. How fast is the benchmark's business (npm run bench), never a test's.
+ */
 import { describe, expect, it } from "vitest";
 import { readReturns, readReturnsFromBytes } from "../../src/input/readReturns.js";
 
@@ -17,33 +21,25 @@ function bigFile(): string {
   return parts.join("");
 }
 
-describe("speed", () => {
-  it("reads a 1,000,000-row file with a date and four numeric columns in well under a second", () => {
+describe("a 1,000,000-row file", () => {
+  it("reads whole, a date and four numeric columns, with its frequency", () => {
     const text = bigFile();
     const options = { source: "big.csv", columns: ["A", "B", "C", "D"] };
-    readReturns(text, options);
-    const started = performance.now();
     const result = readReturns(text, options);
-    const elapsed = performance.now() - started;
     expect(result.ok).toBe(true);
     if (result.ok) {
       expect(result.value.dates).toHaveLength(ROWS);
       expect(result.value.columns.get("D")?.length).toBe(ROWS);
       expect(result.value.frequency?.name).toBe("daily");
     }
-    // Measured about 0.5 s on a slow shared machine; the bound leaves room for loaded CI runners.
-    expect(elapsed).toBeLessThan(1500);
   });
 
-  it("reads the same file from its bytes faster still, with the same numbers", () => {
+  it("reads the same from its bytes as from its text", () => {
     const text = bigFile();
     const bytes = new TextEncoder().encode(text);
     const options = { source: "big.csv", columns: ["A", "B", "C", "D"] };
     const fromText = readReturns(text, options);
-    readReturnsFromBytes(bytes, options);
-    const started = performance.now();
     const result = readReturnsFromBytes(bytes, options);
-    const elapsed = performance.now() - started;
     if (!result.ok || !fromText.ok) expect.fail("expected both reads to succeed");
     expect(result.value.firstDate).toBe("1800-01-01");
     expect(result.value.lastDate).toBe(fromText.value.lastDate);
@@ -54,7 +50,5 @@ describe("speed", () => {
       for (let i = 0; i < a.length; i++) if (!Object.is(a[i], b[i])) differing++;
       expect(differing).toBe(0);
     }
-    // Measured about 0.2 s on a slow shared machine.
-    expect(elapsed).toBeLessThan(1000);
   });
 });
