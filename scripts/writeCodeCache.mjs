@@ -33,7 +33,7 @@ const fullPrecisionText = [
 const { bundle, script } = loadCliBundle(dist, false);
 const discard = () => undefined;
 const quietSink = { write: discard, close: () => ({ ok: true, value: undefined }), discard };
-const processIo = bundle.processIo();
+const processIo = bundle.processIo({ loadVega: () => import("vega") });
 const io = {
   ...processIo,
   readInput: (path) =>

@@ -1,5 +1,6 @@
 import { failure, success } from "../../src/core/result.js";
 import type { CliIo } from "../../src/cli/runtime/io.js";
+import { importVega } from "../../src/report/charts/loadVega.js";
 
 /** An in-memory CliIo: files by name, captured stdout/stderr and written outputs. */
 export function fakeIo(
@@ -41,6 +42,7 @@ export function fakeIo(
       });
     },
     env: settings.env ?? {},
+    loadVega: importVega,
   };
   return { io, stdout: () => out.join(""), stderr: () => err.join(""), written };
 }

@@ -33,7 +33,11 @@ export async function writeCharts(report: SolveReport, request: ChartRequest, io
           },
           confidence: u.confidence,
         };
-  const svg = await renderIdentifiedSetChart(report, { y: request.chartY, ...(uncertainty === undefined ? {} : { uncertainty }) });
+  const svg = await renderIdentifiedSetChart(
+    report,
+    { y: request.chartY, ...(uncertainty === undefined ? {} : { uncertainty }) },
+    io.loadVega,
+  );
   if (request.chart !== undefined) {
     const written = await io.writeOutput(request.chart, svg);
     if (!written.ok) return fail(io, written.issues);

@@ -78,7 +78,7 @@ async function writePair(pair: RolledPair, job: RollJob, sink: OutputSink, io: C
   if (!chart) return exitCodes.ok;
   const { renderRollChart } = await import("../../report/charts/rollChart.js");
   const points = rollChartPoints(meta, kept, (w) => pair.uncertaintyAt(w));
-  const svg = await renderRollChart(points, { source: meta.input.source, window: windowWords(job.spec) });
+  const svg = await renderRollChart(points, { source: meta.input.source, window: windowWords(job.spec) }, io.loadVega);
   const written = await io.writeOutput(options.chart ?? "", svg);
   if (written.ok) return exitCodes.ok;
   io.writeErr(`error: ${describeCliIssue(written.issues)}\n`);

@@ -63,7 +63,5 @@ export function loadCliBundle(dir: string, useCache = true): LoadedBundle {
   const module = { exports: {} as CliBundle };
   const wrapper = script.runInThisContext() as (...args: unknown[]) => void;
   wrapper(module.exports, createRequire(path), module, path, dir, pathToFileURL(path).href);
-  // import() is not available in a script compiled from a code cache: vega comes through this module.
-  module.exports.setVegaImporter(() => import("vega"));
   return { bundle: module.exports, script, cache };
 }

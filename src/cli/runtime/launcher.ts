@@ -5,4 +5,5 @@
  */
 import { loadCliBundle } from "./bundleLoader.js";
 
-void loadCliBundle(__dirname).bundle.main(process.argv.slice(2));
+// import() is not available in a script compiled from a code cache (the bundle): vega is imported here.
+void loadCliBundle(__dirname).bundle.main(process.argv.slice(2), { loadVega: () => import("vega") });

@@ -5,15 +5,21 @@
  */
 import { exitCodes, type ExitCode } from "./exitCodes.js";
 import { openSink, readInputBytes, writeFileAtomic } from "./files.js";
+import type { VegaLoader } from "../../report/charts/loadVega.js";
 import type { CliIo } from "./io.js";
 import { run } from "../program.js";
 
 export { run };
-export { setVegaImporter } from "../../report/charts/loadVega.js";
+
+/** What the launcher hands in: the bundle cannot import() on its own (see bundleLoader.ts). */
+export interface Launch {
+  readonly loadVega: VegaLoader;
+}
 
 /** The CLI's seams bound to this process. */
-export function processIo(): CliIo {
+export function processIo(launch: Launch): CliIo {
   return {
+    loadVega: launch.loadVega,
     writeOut: (text: string) => void process.stdout.write(text),
     writeErr: (text: string) => void process.stderr.write(text),
     readInput: readInputBytes,
@@ -36,14 +42,14 @@ export function processIo(): CliIo {
 }
 
 /** Runs the command line `argv` (without node and the script) and ends the process with its exit code. */
-export async function main(argv: readonly string[]): Promise<void> {
+export async function main(argv: readonly string[], launch: Launch): Promise<void> {
   // A closed pipe (e.g. `betabound solve ... | head`) is not an error of ours.
   process.stdout.on("error", (error: NodeJS.ErrnoException) => {
     if (error.code === "EPIPE") process.exit(exitCodes.ok);
   });
   let code: ExitCode;
   try {
-    code = await run(argv, processIo());
+    code = await run(argv, processIo(launch));
   } catch (error) {
     const detail = error instanceof Error ? error.message : String(error);
     process.stderr.write(`error: internal error (a bug in betabound, please report it with the command line): ${detail}\n`);

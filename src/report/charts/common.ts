@@ -8,7 +8,7 @@
  */
 
 import type { Mark, Spec } from "vega";
-import { loadVega } from "./loadVega.js";
+import { importVega, type VegaLoader } from "./loadVega.js";
 import { printable } from "../layout.js";
 
 /**
@@ -175,14 +175,14 @@ export function escapeXml(text: string): string {
 }
 
 /**
- * Renders a Vega spec to an SVG string. Vega is imported here, on first use, so that commands which
+ * Renders a Vega spec to an SVG string. Vega is imported here (by `loadVega`), on first use, so that commands which
  * draw no chart never load it. The specs use no clip paths or gradients, so the SVG has no generated
  * ids and depends on the spec alone. Vega's own log is off: a pure function does not print.
  *
  * The root element gets role="img", the spec's title as `<title>` and its description as `<desc>`
  * (Vega's string renderer writes neither), so screen readers announce what the chart shows.
  */
-export async function renderSvg(spec: Spec, title: string): Promise<string> {
+export async function renderSvg(spec: Spec, title: string, loadVega: VegaLoader = importVega): Promise<string> {
   const vega = await loadVega();
   const view = new vega.View(vega.parse(spec), { renderer: "none", logLevel: vega.None });
   let svg: string;

@@ -33,6 +33,7 @@ import {
   zeroRuleMark,
 } from "./identifiedSet/plotMarks.js";
 import { legendHeight, legendMarks } from "./legend.js";
+import type { VegaLoader } from "./loadVega.js";
 
 export { insidePoints } from "./identifiedSet/curves.js";
 export { plotHeight, plotWidth } from "./identifiedSet/dimensions.js";
@@ -42,9 +43,13 @@ export type { BetaInterval, IdentifiedSetChartOptions, IdentifiedSetUncertainty 
 export const chartTitle = "Which structural betas fit the data? The identified set of the low book's beta";
 
 /** Renders the chart as an SVG document (UTF-8 text, trailing newline). */
-export async function renderIdentifiedSetChart(report: SolveReport, options: IdentifiedSetChartOptions): Promise<string> {
+export async function renderIdentifiedSetChart(
+  report: SolveReport,
+  options: IdentifiedSetChartOptions,
+  loadVega?: VegaLoader,
+): Promise<string> {
   const spec = identifiedSetSpec(report, options);
-  return renderSvg(spec, specTitle(spec));
+  return renderSvg(spec, specTitle(spec), loadVega);
 }
 
 /** The Vega spec of the chart; exported for tests and for embedding elsewhere. */

@@ -1,16 +1,10 @@
 /**
- * Loads vega on first use. The CLI bundle runs as a classic script compiled with V8's code cache
- * (src/cli/runtime/bundleLoader.ts), where `import()` cannot be used; its loader hands in an importer of its
- * own with `setVegaImporter`. Everywhere else (the library, tests) the plain dynamic import is used.
+ * How the charts get vega: a function that imports it, handed to the renderers. By default the plain
+ * dynamic import (the library, tests). The CLI's bundle runs as a classic script compiled with V8's
+ * code cache (src/cli/runtime/bundleLoader.ts), where `import()` cannot be used, so its launcher
+ * hands in an importer of its own through the CLI's io (src/cli/runtime/io.ts).
  */
-type VegaModule = typeof import("vega");
+export type VegaModule = typeof import("vega");
+export type VegaLoader = () => Promise<VegaModule>;
 
-let importVega: () => Promise<VegaModule> = () => import("vega");
-
-export function setVegaImporter(importer: () => Promise<unknown>): void {
-  importVega = importer as () => Promise<VegaModule>;
-}
-
-export function loadVega(): Promise<VegaModule> {
-  return importVega();
-}
+export const importVega: VegaLoader = () => import("vega");

@@ -21,6 +21,7 @@ import {
   wrapToWidth,
 } from "./common.js";
 import { legendHeight, legendMarks, type LegendEntry } from "./legend.js";
+import type { VegaLoader } from "./loadVega.js";
 
 export interface RollWindowPoint {
   /** Last date of the window, ISO 8601 (YYYY-MM-DD, optionally with a time). */
@@ -50,9 +51,9 @@ const captionWidth = marginLeft + rollPlotWidth + marginRight - 40;
 export const rollChartTitle = "How the identified set of the low book's structural beta moves over time";
 
 /** Renders the chart as an SVG document (UTF-8 text, trailing newline). */
-export async function renderRollChart(windows: readonly RollWindowPoint[], meta: RollChartMeta): Promise<string> {
+export async function renderRollChart(windows: readonly RollWindowPoint[], meta: RollChartMeta, loadVega?: VegaLoader): Promise<string> {
   const spec = rollChartSpec(windows, meta);
-  return renderSvg(spec, specTitle(spec));
+  return renderSvg(spec, specTitle(spec), loadVega);
 }
 
 interface Row {
