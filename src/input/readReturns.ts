@@ -3,7 +3,8 @@
  * expected problem is an InputIssue (see issues.ts for the codes and their wording).
  */
 import { failure, type Result } from "../core/result.js";
-import { asciiText, byteGrid, isAsciiWhiteSpace, isPlain, plainLines, type PlainLines } from "./engines/byteGrid.js";
+import { byteGrid } from "./engines/byteGrid.js";
+import { asciiText, isAsciiWhiteSpace, isPlain, plainLines, type PlainLines } from "./engines/plainLines.js";
 import { decodeText } from "./decodeText.js";
 import { detectDelimiter } from "./dialect.js";
 import { extractLong } from "./table/extractLong.js";

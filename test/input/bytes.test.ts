@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { decimalOfBytes, plainLines } from "../../src/input/engines/byteGrid.js";
+import { decimalOfBytes } from "../../src/input/engines/byteNumbers.js";
+import { plainLines } from "../../src/input/engines/plainLines.js";
 import { decodeText } from "../../src/input/decodeText.js";
 import { parseDecimal } from "../../src/input/values/numbers.js";
 import { readBytesWith, readReturns, readReturnsFromBytes, type ReadOptions } from "../../src/input/readReturns.js";

@@ -5,7 +5,7 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { plainLines } from "../../src/input/engines/byteGrid.js";
+import { plainLines } from "../../src/input/engines/plainLines.js";
 import { readReturnsFromBytes, type ReadOptions } from "../../src/input/readReturns.js";
 import { kernelBytes, rowKernelFor } from "../../src/input/engines/rowKernel.js";
 import { rowKernelWasm } from "../../src/input/engines/rowKernelWasm.js";

@@ -12,7 +12,7 @@ describe("the README's option tables", () => {
   it("are the ones the option table generates (npm run docs rewrites them)", () => {
     const readme = readFileSync(readmeUrl, "utf8");
     const current = updateOptionDocs(readme);
-    if (process.env["BETABOUND_WRITE_DOCS"] === "1" && current !== readme) writeFileSync(readmeUrl, current);
+    if (process.env.BETABOUND_WRITE_DOCS === "1" && current !== readme) writeFileSync(readmeUrl, current);
     else expect(readme).toBe(current);
   });
 

@@ -18,6 +18,7 @@ import {
   optionTable,
   parseConfig,
 } from "../../src/options/index.js";
+import { optionTableParts } from "../../src/options/table.js";
 import { fakeIo } from "../cli/fakeIo.js";
 
 const entries = Object.entries(optionTable) as [string, OptionSpec<unknown>][];
@@ -34,6 +35,12 @@ function refusedValue(entry: OptionSpec<unknown>): { text: string; json: unknown
 }
 
 describe("the option table", () => {
+  it("has no entry of one part hidden by another's (the parts' keys are distinct)", () => {
+    const keys = optionTableParts.flatMap((part) => Object.keys(part));
+    expect(new Set(keys).size).toBe(keys.length);
+    expect(keys).toEqual(Object.keys(optionTable));
+  });
+
   it("gives each option of a command a unique name and flag", () => {
     for (const command of commandNames) {
       const names = entriesFor(command, { withFlagOnly: true }).map((e) => e.name);

@@ -13,12 +13,15 @@ import { landmarkNames } from "../../core/types.js";
 import { largestCapmDiscrepancy } from "../check.js";
 import { excessReturnBasis, modelAssumptions } from "../conventions.js";
 import { formatCount, formatNumber, notAvailable, statisticDigits } from "../format.js";
-import { printable } from "../layout.js";
 import { titleLine } from "../text/text.js";
 import { cautionLine } from "../text/textNotes.js";
 import { riskFreeText } from "../text/textData.js";
 import { candidateCells, candidateHeader as textCandidateHeader, landmarkDescriptions, reproductionTolerance } from "../text/textSet.js";
 import type { InputDescription, RiskFreeSource, SolveReport } from "../types.js";
+import { escapeHtml, fields, inlineSvg, paragraph, section, table } from "./htmlElements.js";
+import { css } from "./htmlStyle.js";
+
+export { escapeHtml };
 
 export interface HtmlReportCharts {
   /** The identified-set chart (SVG from renderIdentifiedSetChart). */
@@ -30,11 +33,6 @@ export interface HtmlReportCharts {
 export interface HtmlReportOptions {
   /** The document title (the browser tab); by default the tool, the two columns and the file. */
   readonly title?: string;
-}
-
-/** Escapes text for HTML element content and attribute values, after neutralising control characters. */
-export function escapeHtml(text: string): string {
-  return printable(text).replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;").replace(/'/g, "&#39;");
 }
 
 /** Renders the HTML document (LF line endings, trailing newline). */
@@ -84,87 +82,6 @@ export function renderHtmlReport(report: SolveReport, charts: HtmlReportCharts, 
     "</html>",
     "",
   ].join("\n");
-}
-
-const css = `:root { color-scheme: light; }
-body { font-family: Helvetica, Arial, "Liberation Sans", "DejaVu Sans", sans-serif; color: #222; background: #fff;
-  margin: 0 auto; max-width: 60rem; padding: 1.5rem; line-height: 1.45; }
-h1 { font-size: 1.45rem; margin: 0 0 0.4rem; }
-h2 { font-size: 1.15rem; margin: 2rem 0 0.5rem; border-bottom: 1px solid #ccc; padding-bottom: 0.2rem; }
-p { margin: 0.4rem 0; }
-.lede { color: #444; }
-table { border-collapse: collapse; margin: 0.5rem 0; font-size: 0.9rem; }
-th, td { padding: 0.2rem 0.6rem; border-bottom: 1px solid #e2e2e2; vertical-align: top; }
-thead th { border-bottom: 2px solid #999; text-align: right; font-weight: bold; }
-thead th:first-child, tbody th { text-align: left; }
-tbody th { font-weight: normal; white-space: nowrap; }
-td.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
-td.text { text-align: left; }
-table.fields th { color: #444; }
-.note { color: #444; font-size: 0.9rem; }
-.warning { color: #8a4b00; font-weight: bold; }
-.error { color: #a40000; font-weight: bold; }
-figure { margin: 0.5rem 0; }
-figure svg { display: block; max-width: 100%; height: auto; }
-figcaption { color: #444; font-size: 0.9rem; margin-top: 0.3rem; }
-.caution { border: 1px solid #bbb; background: #f6f6f6; padding: 0.6rem 0.8rem; margin-top: 2rem; }
-code { font-family: "DejaVu Sans Mono", Menlo, Consolas, monospace; font-size: 0.9em; }
-@page { size: A4; margin: 14mm; }
-@media print {
-  body { max-width: none; padding: 0; font-size: 9.5pt; }
-  h2 { break-after: avoid; page-break-after: avoid; }
-  figure, tr, .caution { break-inside: avoid; page-break-inside: avoid; }
-  thead { display: table-header-group; }
-  table { font-size: 8.5pt; }
-  .caution { background: none; }
-}
-`;
-
-function section(id: string, heading: string, ...body: string[]): string {
-  return [`<section id="${id}">`, `<h2>${escapeHtml(heading)}</h2>`, ...body, "</section>"].join("\n");
-}
-
-function paragraph(text: string, className?: string): string {
-  return `<p${className === undefined ? "" : ` class="${className}"`}>${escapeHtml(text)}</p>`;
-}
-
-/** A table: a header row, then rows whose first cell is a row heading. Cells are plain text, escaped. */
-function table(
-  header: readonly string[],
-  rows: readonly (readonly string[])[],
-  options: { caption?: string; textColumns?: readonly number[] } = {},
-): string {
-  const textColumns = new Set(options.textColumns ?? []);
-  const head = `<thead><tr>${header.map((h) => `<th scope="col">${escapeHtml(h)}</th>`).join("")}</tr></thead>`;
-  const body = rows
-    .map(
-      (row) =>
-        `<tr>${row
-          .map((cell, i) =>
-            i === 0
-              ? `<th scope="row">${escapeHtml(cell)}</th>`
-              : `<td class="${textColumns.has(i) ? "text" : "num"}">${escapeHtml(cell)}</td>`,
-          )
-          .join("")}</tr>`,
-    )
-    .join("\n");
-  const caption = options.caption === undefined ? "" : `<caption class="note">${escapeHtml(options.caption)}</caption>`;
-  return `<table>${caption}\n${head}\n<tbody>\n${body}\n</tbody></table>`;
-}
-
-/** A two-column label / value table. */
-function fields(pairs: readonly (readonly [string, string])[]): string {
-  const rows = pairs.map(
-    ([label, value]) => `<tr><th scope="row">${escapeHtml(label)}</th><td class="text">${escapeHtml(value)}</td></tr>`,
-  );
-  return `<table class="fields">\n<tbody>\n${rows.join("\n")}\n</tbody></table>`;
-}
-
-/** Inlines an SVG document from this package's chart renderers. */
-function inlineSvg(svg: string): string {
-  const trimmed = svg.trim().replace(/^<\?xml[^>]*\?>\s*/, "");
-  if (!trimmed.startsWith("<svg")) throw new RangeError("renderHtmlReport: a chart must be an SVG document starting with <svg");
-  return trimmed.replace(/^<svg([^>]*)>/, (_, attributes: string) => `<svg${attributes.replace(/\s+xmlns(:\w+)?="[^"]*"/g, "")}>`);
 }
 
 function chartSection(charts: HtmlReportCharts): string {

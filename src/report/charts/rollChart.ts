@@ -22,6 +22,7 @@ import {
 } from "./common.js";
 import { legendHeight, legendMarks, type LegendEntry } from "./legend.js";
 import type { VegaLoader } from "./loadVega.js";
+import { bandMarks, runs } from "./rollBands.js";
 
 export interface RollWindowPoint {
   /** Last date of the window, ISO 8601 (YYYY-MM-DD, optionally with a time). */
@@ -72,24 +73,6 @@ function timestamp(end: string): number {
   const t = m === null ? NaN : Date.UTC(+m[1]!, +m[2]! - 1, +m[3]!, +(m[4] ?? 0), +(m[5] ?? 0), +(m[6] ?? 0));
   if (!Number.isFinite(t)) throw new RangeError(`renderRollChart: window end ${JSON.stringify(end)} is not an ISO date`);
   return t;
-}
-
-/** Consecutive rows for which `has` holds, numbered, with their length. */
-function runs<T extends object>(rows: readonly T[], has: (r: T) => boolean): { segment: number; length: number; row: T }[] {
-  const out: { segment: number; length: number; row: T }[] = [];
-  let segment = -1;
-  let start = 0;
-  for (const [i, row] of rows.entries()) {
-    if (!has(row)) continue;
-    if (i === 0 || !has(rows[i - 1]!)) {
-      segment++;
-      start = out.length;
-    }
-    out.push({ segment, length: 0, row });
-    const length = out.length - start;
-    for (let k = start; k < out.length; k++) out[k] = { ...out[k]!, length };
-  }
-  return out;
 }
 
 /** The Vega spec of the chart; exported for tests and for embedding elsewhere. */
@@ -266,53 +249,4 @@ export function rollChartSpec(windows: readonly RollWindowPoint[], meta: RollCha
 
 function finiteOrNull(x: number | null): number | null {
   return x !== null && Number.isFinite(x) ? x : null;
-}
-
-/** One area per run of windows (so gaps stay gaps), and a short bar for a run of one window. */
-function bandMarks(data: string, name: string, low: string, high: string, fill: string, stroke: string, opacity: number): Mark[] {
-  return [
-    {
-      type: "group",
-      name: `${name}-runs`,
-      aria: false,
-      from: { facet: { name: `${data}-run`, data, groupby: "segment" } },
-      marks: [
-        {
-          type: "area",
-          name,
-          from: { data: `${data}-run` },
-          encode: {
-            enter: {
-              x: { scale: "x", field: "t" },
-              y: { scale: "y", field: high },
-              y2: { scale: "y", field: low },
-              fill: { value: fill },
-              fillOpacity: { value: opacity },
-              stroke: { value: stroke },
-              strokeWidth: { value: 0.8 },
-              strokeOpacity: { value: 0.8 },
-              description: { value: name === "set-band" ? "identified set of the low structural beta" : "sampling interval" },
-              ariaRoleDescription: { value: "band" },
-            },
-          },
-        },
-      ],
-    },
-    {
-      type: "rect",
-      name: `${name}-single`,
-      aria: false,
-      from: { data: `${data}-single` },
-      encode: {
-        enter: {
-          xc: { scale: "x", field: "t" },
-          width: { value: 3 },
-          y: { scale: "y", field: high },
-          y2: { scale: "y", field: low },
-          fill: { value: fill },
-          fillOpacity: { value: Math.min(1, opacity * 2) },
-        },
-      },
-    },
-  ];
 }

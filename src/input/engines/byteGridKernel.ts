@@ -1,0 +1,128 @@
+/**
+ * The byte engine's rows read through the row kernel (rowKernel.ts), chunk by chunk: the numbers,
+ * field counts and date digits of the simple rows come from the kernel, and every row the kernel
+ * flagged (and the open last row) is read by the grid's JavaScript reader, in row order, so that the
+ * result is that reader's bit for bit.
+ */
+import type { KernelChunk, RowKernel } from "./rowKernel.js";
+
+/** What readRows carries from row to row (and between the kernel and scanRange). */
+export interface RowScan {
+  plain: boolean;
+  /** The month of the previous plain date (y * 100 + m), its first day's key and its length. */
+  month: number;
+  monthKey: number;
+  monthLength: number;
+  /** Or of UNPLAIN over the bytes read. */
+  unplain: number;
+  readonly withNaN: boolean[];
+}
+
+/** What the kernel path needs of a byte grid: its rows, its delimiter, and its JavaScript reader. */
+export interface RowRanges {
+  readonly starts: Int32Array;
+  /** The last row ends at the end of the bytes (no line feed). */
+  readonly openEnd: boolean;
+  /** The delimiter's byte. */
+  readonly d: number;
+  /** Rows first + [from, to), read in JavaScript, continuing `state`. */
+  scanRange(
+    first: number,
+    from: number,
+    to: number,
+    slots: Int32Array,
+    out: readonly Float64Array[],
+    counts: Int32Array,
+    dateIndex: number,
+    dateKeys: Float64Array,
+    state: RowScan,
+  ): void;
+}
+
+/**
+ * readRows through the row kernel (rowKernel.ts), chunk by chunk: the numbers, field counts and
+ * date digits of the simple rows come from the kernel, their date keys are formed here as
+ * scanRange forms them, and every row the kernel flagged (and the open last row) is read by
+ * scanRange, in row order, so that the result is scanRange's bit for bit.
+ */
+export function kernelRange(
+  grid: RowRanges,
+  kernel: RowKernel,
+  base: number,
+  chunk: number,
+  first: number,
+  count: number,
+  slots: Int32Array,
+  out: readonly Float64Array[],
+  counts: Int32Array,
+  dateIndex: number,
+  dateKeys: Float64Array,
+  state: RowScan,
+): void {
+  const lastRow = grid.openEnd ? grid.starts.length - 2 : -1;
+  for (let k0 = 0; k0 < count; k0 += chunk) {
+    const k1 = Math.min(count, k0 + chunk);
+    const kEnd = lastRow >= first + k0 && lastRow < first + k1 ? lastRow - first : k1;
+    if (kEnd > k0) {
+      const read = kernel.scan(base, grid.starts, first + k0, first + kEnd, slots, out.length, grid.d, dateIndex);
+      out.forEach((values, slot) => values.set(read.values(slot), k0));
+      counts.set(read.counts, k0);
+      if (state.plain) dateKeys.set(read.keys, k0);
+      if (read.badDate) state.plain = false;
+      if (read.flagged > 0) settleFlagged(grid, read, kernel, base, first, k0, kEnd, slots, out, counts, dateIndex, dateKeys, state);
+    }
+    if (kEnd < k1) grid.scanRange(first, kEnd, k1, slots, out, counts, dateIndex, dateKeys, state);
+  }
+}
+
+/**
+ * The flagged rows of a kernel chunk (rows k0 .. kEnd - 1): flag 1, read here (scanRange writes
+ * only what it reads, so what the kernel left for the row is cleared first); flag 2, the long
+ * numbers (NaN) parsed from their spans, as scanDecimal hands them to parseDecimal (their bytes
+ * are digits, signs and points, so plain).
+ */
+function settleFlagged(
+  grid: RowRanges,
+  read: KernelChunk,
+  kernel: RowKernel,
+  base: number,
+  first: number,
+  k0: number,
+  kEnd: number,
+  slots: Int32Array,
+  out: readonly Float64Array[],
+  counts: Int32Array,
+  dateIndex: number,
+  dateKeys: Float64Array,
+  state: RowScan,
+): void {
+  const { flags } = read;
+  const spans = out.map((_, slot) => read.spans(slot));
+  // The chunk's text, made once when a long number needs it: substrings of it are cheap.
+  const textFrom = base + (grid.starts[first + k0] as number);
+  let text: string | null = null;
+  for (let k = k0; k < kEnd; k++) {
+    const flag = flags[k - k0] as number;
+    if (flag === 1) {
+      for (const values of out) values[k] = 0;
+      dateKeys[k] = 0;
+      grid.scanRange(first, k, k + 1, slots, out, counts, dateIndex, dateKeys, state);
+    } else if (flag === 2) {
+      for (let slot = 0; slot < out.length; slot++) {
+        const values = out[slot] as Float64Array;
+        if (!Number.isNaN(values[k] as number)) continue;
+        const span = spans[slot] as Int32Array;
+        const from = span[2 * (k - k0)] as number;
+        const to = span[2 * (k - k0) + 1] as number;
+        // The kernel checked the syntax ([+-]digits[.digits]), so parseDecimal is Number here.
+        text ??= kernel.text(textFrom, base + (grid.starts[first + kEnd] as number));
+        const value = Number(text.substring(from - textFrom, to - textFrom));
+        if (Number.isFinite(value)) values[k] = value;
+        else {
+          values[k] = Number.NaN;
+          state.withNaN[slot] = true;
+        }
+      }
+    }
+  }
+}

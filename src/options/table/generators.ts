@@ -1,0 +1,151 @@
+/** Windows (roll), a structure (implied, simulate) and the simulation (entries of the option table, table.ts). */
+import { choiceKind, garchKind, isoDateKind, nameListKind, numberKind, switchKind } from "../kinds.js";
+import { option, structureCommands } from "../spec.js";
+import { frequencies } from "../../core/calendar.js";
+import { integerRule, parameters } from "../../core/parameters.js";
+
+export const generatorOptions = {
+  // ---- windows -----------------------------------------------------------------------------
+  window: option(numberKind(integerRule(3, 100_000_000)), {
+    name: "window",
+    argument: "<n>",
+    help: "rolling window length in periods",
+    group: "windows",
+    commands: ["roll"],
+  }),
+  step: option(numberKind(integerRule(1, 100_000_000)), {
+    name: "step",
+    argument: "<k>",
+    help: "periods between consecutive windows",
+    group: "windows",
+    commands: ["roll"],
+    default: 1,
+  }),
+  expanding: option(switchKind(), {
+    name: "expanding",
+    help: "expanding windows from the first row instead of a rolling window",
+    group: "windows",
+    commands: ["roll"],
+    default: false,
+  }),
+  minPeriods: option(numberKind(integerRule(3, 100_000_000)), {
+    name: "minPeriods",
+    argument: "<n>",
+    help: "with --expanding: the first window's length",
+    group: "windows",
+    commands: ["roll"],
+  }),
+  // ---- a structure (implied, simulate) -----------------------------------------------------
+  lowBeta: option(numberKind(parameters.lowBeta), {
+    name: "lowBeta",
+    argument: "<b>",
+    help: "structural beta of the low book (0 < b < 1/w)",
+    group: "structure",
+    commands: structureCommands,
+    required: true,
+  }),
+  factorVol: option(numberKind(parameters.factorVol), {
+    name: "factorVol",
+    argument: "<sd>",
+    help: "standard deviation of the latent factor per period",
+    group: "structure",
+    commands: structureCommands,
+    required: true,
+  }),
+  factorMean: option(numberKind(parameters.mean), {
+    name: "factorMean",
+    argument: "<m>",
+    help: "mean excess return of the factor per period",
+    group: "structure",
+    commands: structureCommands,
+    default: 0,
+  }),
+  lowNoiseVol: option(numberKind(parameters.noiseVol), {
+    name: "lowNoiseVol",
+    argument: "<sd>",
+    help: "standard deviation of the low book's noise",
+    group: "structure",
+    commands: structureCommands,
+    required: true,
+  }),
+  highNoiseVol: option(numberKind(parameters.noiseVol), {
+    name: "highNoiseVol",
+    argument: "<sd>",
+    help: "standard deviation of the high book's noise",
+    group: "structure",
+    commands: structureCommands,
+    required: true,
+  }),
+  rfRate: option(numberKind(parameters.mean), {
+    name: "rf",
+    argument: "<r>",
+    help: "risk-free return per period: moments are of excess returns; it sets the raw means (implied) or is added to both books (simulate)",
+    group: "structure",
+    commands: structureCommands,
+    default: 0,
+  }),
+  // ---- simulation --------------------------------------------------------------------------
+  periods: option(numberKind(parameters.periods), {
+    name: "periods",
+    argument: "<n>",
+    help: "number of periods",
+    group: "simulation",
+    commands: ["simulate"],
+    required: true,
+  }),
+  frequency: option(choiceKind(frequencies), {
+    name: "frequency",
+    argument: "<f>",
+    help: "spacing of the dates (daily: business days)",
+    group: "simulation",
+    commands: ["simulate"],
+    default: "monthly",
+  }),
+  start: option(isoDateKind(), {
+    name: "start",
+    argument: "<date>",
+    help: "first date (YYYY-MM-DD); the first period end on or after it is used",
+    group: "simulation",
+    commands: ["simulate"],
+    default: "2000-01-01",
+  }),
+  tails: option(numberKind(parameters.tails), {
+    name: "tails",
+    argument: "<df>",
+    help: "Student t innovations with this many degrees of freedom, scaled to the same variance",
+    group: "simulation",
+    commands: ["simulate"],
+    otherwise: "normal",
+  }),
+  noiseAr: option(numberKind(parameters.noiseAr), {
+    name: "noiseAr",
+    argument: "<rho>",
+    help: "AR(1) coefficient of both noises",
+    group: "simulation",
+    commands: ["simulate"],
+    otherwise: "0",
+  }),
+  garch: option(garchKind(), {
+    name: "garch",
+    argument: "<alpha,beta>",
+    help: "GARCH(1,1) volatility clustering of the factor, with the same unconditional variance",
+    group: "simulation",
+    commands: ["simulate"],
+  }),
+  names: option(nameListKind(3), {
+    name: "names",
+    argument: "<date,low,high>",
+    help: "column names",
+    group: "simulation",
+    commands: ["simulate"],
+    default: ["date", "low", "high"],
+  }),
+  digits: option(numberKind(integerRule(1, 17)), {
+    name: "digits",
+    argument: "<n>",
+    help: "write returns with this many decimals",
+    group: "simulation",
+    commands: ["simulate"],
+    otherwise: "full precision",
+  }),
+} as const;

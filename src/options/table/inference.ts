@@ -1,0 +1,138 @@
+/** Uncertainty and the bootstrap (entries of the option table, table.ts). */
+import { autoOrNumberKind, choiceKind, numberKind, switchKind } from "../kinds.js";
+import { option, readers } from "../spec.js";
+import {
+  automaticBandwidths,
+  defaultHac,
+  defaultIntervalMethod,
+  defaultIntervalSource,
+  defaultLongRun,
+  hacKernels,
+  intervalMethods,
+  intervalSources,
+  longRunMethods,
+} from "../../core/inference/options.js";
+import { defaultConfidence, integerRule, parameters } from "../../core/parameters.js";
+
+export const inferenceOptions = {
+  // ---- uncertainty -------------------------------------------------------------------------
+  uncertainty: option(switchKind(), {
+    name: "uncertainty",
+    help: "skip standard errors and intervals (faster on very long files)",
+    group: "uncertainty",
+    commands: ["solve"],
+    default: true,
+    negated: true,
+  }),
+  windowUncertainty: option(switchKind(), {
+    name: "uncertainty",
+    help: "delta-method standard errors of the bounds and an interval for the low beta in every window",
+    group: "uncertainty",
+    commands: ["roll"],
+    default: false,
+  }),
+  confidence: option(numberKind(parameters.confidence), {
+    name: "confidence",
+    argument: "<level>",
+    help: "confidence level of every interval",
+    group: "uncertainty",
+    commands: readers,
+    default: defaultConfidence,
+  }),
+  longRun: option(choiceKind(longRunMethods), {
+    name: "longRun",
+    argument: "<method>",
+    help: "long-run covariance of the moment contributions behind the bounds' delta-method standard errors",
+    group: "uncertainty",
+    commands: readers,
+    default: defaultLongRun,
+  }),
+  hacKernel: option(choiceKind(hacKernels), {
+    name: "hacKernel",
+    argument: "<kernel>",
+    help: "HAC kernel (Newey-West 1987; Andrews 1991)",
+    group: "uncertainty",
+    commands: ["solve"],
+    default: defaultHac.kernel,
+  }),
+  hacBandwidth: option(choiceKind(automaticBandwidths), {
+    name: "hacBandwidth",
+    argument: "<rule>",
+    help: "automatic HAC bandwidth rule",
+    group: "uncertainty",
+    commands: ["solve"],
+    default: defaultHac.bandwidth,
+  }),
+  hacLags: option(numberKind(parameters.hacLags), {
+    name: "hacLags",
+    argument: "<n>",
+    help: "a fixed HAC lag truncation instead of the automatic rule",
+    group: "uncertainty",
+    commands: ["solve"],
+    otherwise: "automatic",
+  }),
+  hacPrewhite: option(switchKind(), {
+    name: "hacPrewhite",
+    help: "VAR(1) prewhitening before the HAC kernel (Andrews-Monahan 1992)",
+    group: "uncertainty",
+    commands: ["solve"],
+    default: defaultHac.prewhite,
+  }),
+  hacAdjust: option(switchKind(), {
+    name: "hacAdjust",
+    help: "small-sample factor T/(T - k) on the CAPM HAC covariances",
+    group: "uncertainty",
+    commands: ["solve"],
+    default: defaultHac.adjust,
+  }),
+  interval: option(choiceKind(intervalMethods), {
+    name: "interval",
+    argument: "<method>",
+    help: "confidence interval for the structural betas themselves",
+    group: "uncertainty",
+    commands: ["solve"],
+    default: defaultIntervalMethod,
+  }),
+  intervalSource: option(choiceKind(intervalSources), {
+    name: "intervalSource",
+    argument: "<source>",
+    help: "standard errors of the bounds behind those intervals: delta method or bootstrap",
+    group: "uncertainty",
+    commands: ["solve"],
+    default: defaultIntervalSource,
+  }),
+  // ---- bootstrap ---------------------------------------------------------------------------
+  bootstrap: option(numberKind(parameters.replicates), {
+    name: "bootstrap",
+    argument: "[replicates]",
+    help: "stationary bootstrap (Politis-Romano 1994) of every headline number, with this many replicates (2000 when no number is given; 0 = off)",
+    group: "bootstrap",
+    commands: ["solve"],
+    default: 0,
+    preset: 2000,
+  }),
+  blockLength: option(autoOrNumberKind(parameters.blockLength), {
+    name: "blockLength",
+    argument: "<b|auto>",
+    help: "mean block length of the bootstrap; auto: Politis-White (2004) with the Patton-Politis-White (2009) correction",
+    group: "bootstrap",
+    commands: ["solve"],
+    default: "auto",
+  }),
+  seed: option(numberKind(parameters.seed), {
+    name: "seed",
+    argument: "<n>",
+    help: "seed of the random streams: the same seed gives the same result, whatever --threads",
+    group: "bootstrap",
+    commands: ["solve", "simulate"],
+    default: 1,
+  }),
+  threads: option(numberKind(integerRule(1, 256)), {
+    name: "threads",
+    argument: "<n>",
+    help: "worker threads for the bootstrap (results do not depend on it)",
+    group: "bootstrap",
+    commands: ["solve"],
+    otherwise: "the cores, at most 4",
+  }),
+} as const;
