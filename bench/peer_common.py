@@ -1,5 +1,5 @@
 """Shared pieces of the numpy peers: reading the CSV and the closed forms of the identified set
-(methods note sections 1.2-1.6, the same formulas as src/core/identify.ts), vectorised over arrays."""
+(docs/methods.md §1.2-1.6, the same formulas as src/core/identify.ts), vectorised over arrays."""
 
 import numpy as np
 

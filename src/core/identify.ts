@@ -3,7 +3,7 @@
  *
  * Model: R_i = a_i + b_i F + e_i (i = low, high), Var F = phi, Var e_i = s_i, F, e_low, e_high mutually
  * uncorrelated; market proxy M = w R_low + (1 - w) R_high with w b_low + (1 - w) b_high = 1.
- * Back-solution at a given b_low (methods note section 1.1):
+ * Back-solution at a given b_low (docs/methods.md §1.1):
  *   b_high = (1 - w b_low) / (1 - w), phi = C / (b_low b_high),
  *   s_low = V_low - b_low C / b_high,  s_high = V_high - b_high C / b_low.
  * Non-negative noise gives the identified set (section 1.2):

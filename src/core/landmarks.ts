@@ -1,5 +1,5 @@
 /**
- * Named points of the identified set (methods note sections 1.2, 1.4, 1.5, 1.6):
+ * Named points of the identified set (docs/methods.md §1.2, §1.4, §1.5, §1.6):
  * - lowNoiseFree: s_low = 0, the upper bound of b_low;
  * - highNoiseFree: s_high = 0, the lower bound of b_low;
  * - equalNoise: s_low = s_high (Deming slope with error-variance ratio 1);

@@ -8,7 +8,7 @@
  * se(alpha) = s sqrt(1/n + xbar^2 / Sxx); t = estimate / se; p two-sided from Student's t with
  * n - 2 degrees of freedom; R^2 = 1 - SSR / Syy (centred). `residualVariance` is SSR / (n - 1), the
  * sample variance of the residuals with the same divisor as the moments, so that it equals the
- * residual variance a structure implies (methods note section 1.5).
+ * residual variance a structure implies (docs/methods.md §1.5).
  *
  * ## References
  * Greene, W. H., Econometric Analysis, ch. 3-4 (standard results); NIST StRD "Norris" for the check.

@@ -1,6 +1,6 @@
 /**
  * The SampleMoments block (as `solve` reports it) from the sufficient statistics alone: the market
- * proxy's moments follow from those of the two books (methods note section 1.5). Used where no series
+ * proxy's moments follow from those of the two books (docs/methods.md §1.5). Used where no series
  * pass is made: population moments (`implied`) and rolling windows.
  */
 

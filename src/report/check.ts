@@ -1,6 +1,6 @@
 /**
  * The consistency check the text report prints: every candidate of the identified set implies the
- * same CAPM betas and residual variances as the regressions on the sample (methods note section 1.5).
+ * same CAPM betas and residual variances as the regressions on the sample (docs/methods.md §1.5).
  */
 
 import type { Candidate, Solution } from "../core/types.js";

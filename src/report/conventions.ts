@@ -5,7 +5,7 @@
 
 import type { RiskFreeSource, SolveReport } from "./types.js";
 
-/** The model's maintained assumptions, as short sentences (methods note section 1). */
+/** The model's maintained assumptions, as short sentences (docs/methods.md §1). */
 export const modelAssumptions = [
   "one common latent factor F drives both books: R = a + b F + e",
   "each book's noise e is uncorrelated with the factor and with the other book's noise",

@@ -2,7 +2,7 @@
  * One test per diagnostic rule of solve, titled as the rule.
  *
  * Most samples are the 7-point integer series of solve.examples.test.ts, whose sample moments are
- * exactly methods.md §1.7 Example A (V_low = 4, V_high = 9, C = 5: set [5/7, 8/9]) or Example B
+ * exactly docs/methods.md §1.7 Example A (V_low = 4, V_high = 9, C = 5: set [5/7, 8/9]) or Example B
  * (C = 3: set [1/2, 8/7]); only their means are varied. Integer data keep every sum exact.
  */
 

@@ -4,7 +4,7 @@
  * Accuracy is the log relative error (LRE, agreeing significant digits, capped at 15). The digits each
  * set must reach are the larger of
  *   - what numpy 2.4.6 achieves (np.mean, np.std(ddof=1)), from the table "Verification of the certified
- *     values / Univariate" in the NIST fixtures' reference README (/work/shared/reference/nist-strd), and
+ *     values / Univariate" in the NIST fixtures' reference README (its nist-strd/ folder), and
  *   - 13 digits on the lower-difficulty sets (difficulty from each file's `Model:` line; Michelso's file
  *     states none and is treated as lower, as NIST's web listing is remembered to place it).
  * The README prints numpy's digits to one decimal, so numpy's own figure can sit up to 0.05 below the

@@ -49,25 +49,25 @@ describe("fitLine on NIST StRD Norris (certified values from the file header)", 
 
   // The t-statistics are estimate / SE, each factor checked to 12 digits above, so their ratio is good to
   // about 1e-11 relative.
-  test("betaTStat is the GAMS LS01 value 2331.60578589043 (methods.md §10)", () => {
-    expectClose(fit.betaTStat, 2331.60578589043 /* GAMS LS01, methods.md §10 */, { rel: 1e-11 });
+  test("betaTStat is the GAMS LS01 value 2331.60578589043 (docs/methods.md §10)", () => {
+    expectClose(fit.betaTStat, 2331.60578589043 /* GAMS LS01, docs/methods.md §10 */, { rel: 1e-11 });
   });
 
-  test("alphaTStat is the GAMS LS01 value -1.12672907498579 (methods.md §10)", () => {
-    expectClose(fit.alphaTStat, -1.12672907498579 /* GAMS LS01, methods.md §10 */, { rel: 1e-11 });
+  test("alphaTStat is the GAMS LS01 value -1.12672907498579 (docs/methods.md §10)", () => {
+    expectClose(fit.alphaTStat, -1.12672907498579 /* GAMS LS01, docs/methods.md §10 */, { rel: 1e-11 });
   });
 
-  // NIST certifies no p-values. scipy's t_34 two-sided p for B0 is printed to 12 digits in methods.md §10;
+  // NIST certifies no p-values. scipy's t_34 two-sided p for B0 is printed to 12 digits in docs/methods.md §10;
   // 1e-9 leaves room for that rounding and for the t-distribution routine. (The GAMS file's
   // 0.267746835947037 differs from scipy at 1e-7 and is not used.)
-  test("alphaPValue is scipy's two-sided t_34 p-value 0.267746742333 (methods.md §10)", () => {
-    expectClose(fit.alphaPValue, 0.267746742333 /* scipy t_34, methods.md §10 */, { rel: 1e-9 });
+  test("alphaPValue is scipy's two-sided t_34 p-value 0.267746742333 (docs/methods.md §10)", () => {
+    expectClose(fit.alphaPValue, 0.267746742333 /* scipy t_34, docs/methods.md §10 */, { rel: 1e-9 });
   });
 
   // Deep tail: scipy 1.17.1 gives 2 * stats.t.sf(2331.60578589043, 34) = 4.654040852474098e-90 (computed
-  // when this test was written, from the GAMS t-statistic of methods.md §10). A tail this far out is only
+  // when this test was written, from the GAMS t-statistic of docs/methods.md §10). A tail this far out is only
   // asked to carry 6 digits: it tests that the p-value is computed in the tail, not as 1 - CDF (which is 0).
   test("betaPValue is scipy's two-sided t_34 tail probability 4.654040852474098e-90 to 6 digits", () => {
-    expectClose(fit.betaPValue, 4.654040852474098e-90 /* scipy 1.17.1 t_34, at the methods.md §10 t */, { rel: 1e-6 });
+    expectClose(fit.betaPValue, 4.654040852474098e-90 /* scipy 1.17.1 t_34, at the docs/methods.md §10 t */, { rel: 1e-6 });
   });
 });

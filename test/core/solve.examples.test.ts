@@ -1,5 +1,5 @@
 /**
- * solve on the exact worked examples of methods.md §1.7 (w = 1/2, exact rationals):
+ * solve on the exact worked examples of docs/methods.md §1.7 (w = 1/2, exact rationals):
  *   Example A: V_low = 4, V_high = 9, C = 5;   Example B (ordering flip): V_low = 4, V_high = 9, C = 3.
  *
  * solve takes series, so each example is realised by 7 integer observations whose sample moments
@@ -55,7 +55,7 @@ function expectStructure(
   expectClose(c.highNoiseVariance, expected.sHigh, { rel, abs: expected.sHigh === 0 ? 1e-12 * scale.vHigh : 0 });
 }
 
-describe("methods.md §1.7 Example A (V_low = 4, V_high = 9, C = 5, w = 1/2)", () => {
+describe("docs/methods.md §1.7 Example A (V_low = 4, V_high = 9, C = 5, w = 1/2)", () => {
   const scale = { vLow: 4, vHigh: 9 };
 
   test("the constructed series have exactly the example's sample moments (exact integer arithmetic)", () => {
@@ -195,7 +195,7 @@ describe("methods.md §1.7 Example A (V_low = 4, V_high = 9, C = 5, w = 1/2)", (
   });
 });
 
-describe("methods.md §1.7 Example B, the ordering flip (V_low = 4, V_high = 9, C = 3, w = 1/2)", () => {
+describe("docs/methods.md §1.7 Example B, the ordering flip (V_low = 4, V_high = 9, C = 3, w = 1/2)", () => {
   const scale = { vLow: 4, vHigh: 9 };
 
   test("the constructed series have exactly the example's sample moments (exact integer arithmetic)", () => {

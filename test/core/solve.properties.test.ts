@@ -4,7 +4,7 @@
  * Each sample: n in [30, 250] periods of R_i = a_i + b_i F + e_i with b_low in (0.3, 1.2), w in
  * [0.2, 0.8], b_high = (1 - w b_low)/(1 - w), phi and s_i on daily-return scales, drawn with a small
  * seeded normal generator; samples whose covariance is not positive are discarded (no set then).
- * The algebra behind every property is in methods.md §1.1-§1.5 (back-solution, identified set, CAPM
+ * The algebra behind every property is in docs/methods.md §1.1-§1.5 (back-solution, identified set, CAPM
  * constant over the set, beta inside the set) and §1.2's invariance note.
  *
  * Tolerance 1e-9 relative: each property is an algebraic identity, so only float64 rounding separates

@@ -22,7 +22,7 @@ export interface Structure {
   readonly highNoiseVol: number;
 }
 
-/** Population moments of the excess returns under `structure` (methods note section 1). */
+/** Population moments of the excess returns under `structure` (docs/methods.md §1). */
 export function populationMoments(structure: Structure): MomentSummary {
   const { lowBeta, weight } = structure;
   const highBeta = highBetaFromLow(lowBeta, weight);

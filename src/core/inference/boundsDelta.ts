@@ -1,5 +1,5 @@
 /**
- * Delta-method standard errors of the bounds of the identified set (methods.md section 4).
+ * Delta-method standard errors of the bounds of the identified set (docs/methods.md §4).
  *
  * Bounds of the low structural beta, from V_l = Var(low), V_h = Var(high), C = Cov(low, high) and the
  * market weight w:  Lb = C / D_l, U = V_l / D_u, D_l = (1-w) V_h + w C, D_u = w V_l + (1-w) C, with

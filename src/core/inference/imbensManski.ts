@@ -2,7 +2,7 @@
  * Imbens & Manski (2004) confidence interval for a partially identified parameter.
  *
  * Imbens, G. W. & Manski, C. F. (2004), "Confidence Intervals for Partially Identified Parameters",
- * Econometrica 72(6), 1845-1857 (methods.md section 5.1). For estimated bounds theta_l <= theta_u with
+ * Econometrica 72(6), 1845-1857 (docs/methods.md §5.1). For estimated bounds theta_l <= theta_u with
  * standard errors se_l, se_u, the interval covers the true parameter (a point of the set, not the whole
  * set) with probability 1 - alpha:
  *   [theta_l - C se_l, theta_u + C se_u],   Phi(C + Delta / max(se_l, se_u)) - Phi(-C) = 1 - alpha,

@@ -1,5 +1,5 @@
 /**
- * Standard errors of the Sharpe ratio SR = mu / sigma of an excess-return series (methods.md section 12).
+ * Standard errors of the Sharpe ratio SR = mu / sigma of an excess-return series (docs/methods.md §12).
  *
  * - iid normal (Lo 2002, "The Statistics of Sharpe Ratios", Financial Analysts Journal 58(4), 36-52):
  *   SE = sqrt((1 + SR^2 / 2) / T).

@@ -2,7 +2,7 @@
  * Stoye (2009) confidence interval for a partially identified parameter.
  *
  * Stoye, J. (2009), "More on Confidence Intervals for Partially Identified Parameters", Econometrica
- * 77(4), 1299-1315, Appendix B (methods.md section 5.2): with se_l, se_u the standard errors of the
+ * 77(4), 1299-1315, Appendix B (docs/methods.md §5.2): with se_l, se_u the standard errors of the
  * bound estimates, rho their correlation and Delta = theta_u - theta_l,
  *   minimise se_l c_l + se_u c_u  subject to  P(c_l, c_u + Delta/se_u) >= 1 - alpha  and
  *                                             P(c_u, c_l + Delta/se_l) >= 1 - alpha,

@@ -5,7 +5,7 @@
  * The design is given as k columns (the intercept, if any, is a column of ones). Coefficients solve
  * the normal equations X'X b = X'y by Gaussian elimination with partial pivoting (linearAlgebra.ts),
  * adequate for the small, well-conditioned designs of this project (a CAPM regression, the R sandwich
- * and statsmodels reference regressions of methods.md section 8). Residuals are formed in a second
+ * and statsmodels reference regressions of docs/methods.md §8). Residuals are formed in a second
  * pass. Classical covariance s^2 (X'X)^{-1} with s^2 = e'e / (n - k), as R's vcov(lm) (Greene,
  * Econometric Analysis, ch. 4).
  */

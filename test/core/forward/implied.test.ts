@@ -5,7 +5,7 @@ import { solve } from "../../../src/core/solve.js";
 import { simulateSample } from "../../../src/core/forward/simulate.js";
 import { expectClose } from "../../support/close.js";
 
-// methods.md section 1.7 Example A as a structure: b_low = 3/4, phi = 16/3, s = (1, 2/3), w = 1/2.
+// docs/methods.md §1.7 Example A as a structure: b_low = 3/4, phi = 16/3, s = (1, 2/3), w = 1/2.
 const exampleA: Structure = {
   lowBeta: 0.75,
   weight: 0.5,
@@ -16,7 +16,7 @@ const exampleA: Structure = {
 };
 
 describe("implied", () => {
-  it("reports the identified set of methods.md section 1.7 Example A, with the truth inside it", () => {
+  it("reports the identified set of docs/methods.md §1.7 Example A, with the truth inside it", () => {
     const result = implied(exampleA, 11);
     expectClose(result.bounds!.lowBeta.min, 5 / 7);
     expectClose(result.bounds!.lowBeta.max, 8 / 9);
@@ -41,7 +41,7 @@ describe("implied", () => {
     expect(solved.ok).toBe(true);
     if (!solved.ok) return;
     const s = solved.value;
-    // Bound standard errors here are about 6e-4: methods.md section 4 measures 0.017 at T = 500 for a
+    // Bound standard errors here are about 6e-4: docs/methods.md §4 measures 0.017 at T = 500 for a
     // similar structure, times sqrt(500 / 400,000). 5e-3 is about eight standard errors.
     expect(Math.abs(s.bounds!.lowBeta.min - population.bounds!.lowBeta.min)).toBeLessThan(5e-3);
     expect(Math.abs(s.bounds!.lowBeta.max - population.bounds!.lowBeta.max)).toBeLessThan(5e-3);

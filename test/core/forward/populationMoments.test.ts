@@ -4,7 +4,7 @@ import { populationMoments, type Structure } from "../../../src/core/forward/pop
 import { identifiedBounds, marketMoments, structureAt } from "../../../src/core/identify.js";
 import { expectClose } from "../../support/close.js";
 
-// Example A of methods.md section 1.7 (exact rationals): b_low = 3/4, phi = 16/3, s_low = 1, s_high = 2/3
+// Example A of docs/methods.md §1.7 (exact rationals): b_low = 3/4, phi = 16/3, s_low = 1, s_high = 2/3
 // gives V_low = 4, V_high = 9, C = 5 with w = 1/2.
 const exampleA: Structure = {
   lowBeta: 3 / 4,
@@ -16,7 +16,7 @@ const exampleA: Structure = {
 };
 
 describe("populationMoments", () => {
-  it("reproduces the moments of methods.md section 1.7 Example A from its structure", () => {
+  it("reproduces the moments of docs/methods.md §1.7 Example A from its structure", () => {
     const m = populationMoments(exampleA);
     expectClose(m.lowVariance, 4);
     expectClose(m.highVariance, 9);
@@ -50,7 +50,7 @@ describe("populationMoments", () => {
     );
   });
 
-  it("implies CAPM betas and residual variances equal to the closed forms of methods.md section 1.5", () => {
+  it("implies CAPM betas and residual variances equal to the closed forms of docs/methods.md §1.5", () => {
     const m = populationMoments(exampleA);
     const market = marketMoments(m);
     const point = structureAt(exampleA.lowBeta, m, market);
@@ -67,7 +67,7 @@ describe("populationMoments", () => {
     expectClose(0.5 * point.expectedLowAlpha + 0.5 * point.expectedHighAlpha, 0, { abs: 1e-18 });
   });
 
-  it("gives the two-indicator set [15/26, 17/16] of methods.md section 3's exact example", () => {
+  it("gives the two-indicator set [15/26, 17/16] of docs/methods.md §3's exact example", () => {
     // Section 3: truth b_low = 3/4, b_high = 5/4, phi = 4, s = (2, 3) -> V_low = 17/4, V_high = 37/4,
     // C = 15/4; "the two-indicator set from the same (V_L, V_H, C_LH) is [15/26, 17/16]".
     const m = populationMoments({

@@ -34,7 +34,7 @@ describe("solve recovers the structure that generated the data", () => {
       const { min, max } = result.value.bounds.lowBeta;
       if (structure.lowBeta >= min && structure.lowBeta <= max) inside += 1;
       // The population set (implied) is what the sample set estimates: bound standard errors at
-      // n = 20,000 are about 0.003 (methods.md section 4: 0.017 at T = 500, times sqrt(500 / n)).
+      // n = 20,000 are about 0.003 (docs/methods.md §4: 0.017 at T = 500, times sqrt(500 / n)).
       const population = implied(structure, 2).bounds!.lowBeta;
       if (Math.abs(min - population.min) < 0.02 && Math.abs(max - population.max) < 0.02) close += 1;
     }

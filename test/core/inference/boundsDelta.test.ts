@@ -1,5 +1,5 @@
 /**
- * Delta-method standard errors of the bounds (methods.md §4) on the exact examples of §1.7, where
+ * Delta-method standard errors of the bounds (docs/methods.md §4) on the exact examples of §1.7, where
  * Omega is the Gaussian-iid (Isserlis) covariance of the second moments:
  *   Var: V_l -> 2 V_l^2, V_h -> 2 V_h^2, C -> V_l V_h + C^2;
  *   Cov: (V_l, V_h) -> 2 C^2, (V_l, C) -> 2 V_l C, (V_h, C) -> 2 V_h C.
@@ -23,7 +23,7 @@ const rel = 1e-13;
 const exampleA = { weight: 0.5, lowVariance: 4, highVariance: 9, covariance: 5 };
 const exampleB = { weight: 0.5, lowVariance: 4, highVariance: 9, covariance: 3 };
 
-describe("methods.md §1.7 Example A (V_l = 4, V_h = 9, C = 5, w = 1/2)", () => {
+describe("docs/methods.md §1.7 Example A (V_l = 4, V_h = 9, C = 5, w = 1/2)", () => {
   test("gradients: Lb (0, -5/98, 9/98), U (10/81, 0, -8/81)", () => {
     const g = boundGradients(exampleA);
     [0, -5 / 98, 9 / 98].forEach((v, i) => expectClose(g.lower[i], v, { rel }));
@@ -47,7 +47,7 @@ describe("methods.md §1.7 Example A (V_l = 4, V_h = 9, C = 5, w = 1/2)", () => 
   });
 });
 
-describe("methods.md §1.7 Example B (ordering flip, C = 3)", () => {
+describe("docs/methods.md §1.7 Example B (ordering flip, C = 3)", () => {
   test("gradients Lb (0, -1/24, 1/8), U (6/49, 0, -8/49); Gaussian T Var 27/64 and 1728/2401, corr -1/2", () => {
     const g = boundGradients(exampleB);
     [0, -1 / 24, 1 / 8].forEach((v, i) => expectClose(g.lower[i], v, { rel }));
@@ -59,7 +59,7 @@ describe("methods.md §1.7 Example B (ordering flip, C = 3)", () => {
   });
 });
 
-describe("methods.md §4 Monte Carlo design (b_l = 0.7, b_h = 1.3, phi = 2e-4, s = (5e-5, 8e-5), T = 500)", () => {
+describe("docs/methods.md §4 Monte Carlo design (b_l = 0.7, b_h = 1.3, phi = 2e-4, s = (5e-5, 8e-5), T = 500)", () => {
   test("the delta-method standard errors are (0.01761, 0.02061)", () => {
     const phi = 2e-4;
     const vl = 0.49 * phi + 5e-5;
@@ -73,7 +73,7 @@ describe("methods.md §4 Monte Carlo design (b_l = 0.7, b_h = 1.3, phi = 2e-4, s
   });
 });
 
-describe("the high beta's bounds (b_high = (1 - w b_low)/(1 - w), methods.md §1)", () => {
+describe("the high beta's bounds (b_high = (1 - w b_low)/(1 - w), docs/methods.md §1)", () => {
   test("with w = 0.3 the minimum comes from U and the maximum from Lb, standard errors times w/(1 - w)", () => {
     const m = { weight: 0.3, lowVariance: 4, highVariance: 9, covariance: 5 };
     const d = boundsDelta(m, isserlis(4, 9, 5), 120);
@@ -86,7 +86,7 @@ describe("the high beta's bounds (b_high = (1 - w b_low)/(1 - w), methods.md §1
 });
 
 describe("the moment series z_t", () => {
-  test("averages of z_t are the second moments with divisor T (methods.md §4 definition)", () => {
+  test("averages of z_t are the second moments with divisor T (docs/methods.md §4 definition)", () => {
     const x = [1, 4, 2, 7];
     const y = [2, 3, 9, 6];
     const z = momentSeries(x, y);

@@ -30,7 +30,7 @@ describe("coverage of the Imbens-Manski interval at the end of the set (Gaussian
     stdErrors.push(u.bounds!.lowBeta.min.stdError);
   }
 
-  test("the truth is the population lower bound (s_high = 0 makes b_low = Lb, methods.md §1.2)", () => {
+  test("the truth is the population lower bound (s_high = 0 makes b_low = Lb, docs/methods.md §1.2)", () => {
     expect(identifiedBounds(populationMoments(structure)).lowBeta.min).toBeCloseTo(0.7, 12);
   });
 

@@ -1,7 +1,7 @@
 /**
- * Sharpe-ratio standard errors (methods.md §12).
+ * Sharpe-ratio standard errors (docs/methods.md §12).
  * - Lo (2002) Table 1, iid SE sqrt((1 + SR^2/2)/T), printed to 3 decimals (secondhand transcription,
- *   every entry reproduced by the formula in methods.md).
+ *   every entry reproduced by the formula in docs/methods.md).
  * - Mertens (2002) example: SR = 0.2, skewness -0.5, kurtosis 5, T = 120 -> 0.0974679 (iid-normal 0.0921954).
  * - The HAC delta method with lag 0 is Mertens' formula with moment estimates (algebra in sharpe.ts).
  */
@@ -24,7 +24,7 @@ describe("Lo (2002) Table 1: iid standard errors", () => {
   });
 });
 
-describe("Mertens (2002) non-normal iid standard error (methods.md §12 example)", () => {
+describe("Mertens (2002) non-normal iid standard error (docs/methods.md §12 example)", () => {
   test("SR 0.2, skewness -0.5, kurtosis 5, T = 120: 0.0974679; normal case 0.0921954", () => {
     expectClose(sharpeMertensStdErr(0.2, -0.5, 5, 120), 0.0974679, { abs: 5e-8 });
     expectClose(sharpeMertensStdErr(0.2, 0, 3, 120), 0.0921954, { abs: 5e-8 });

@@ -1,6 +1,6 @@
 /**
  * Stoye (2009) intervals and the bivariate-normal integral behind them.
- * Expected values: methods.md section 5.2 (scipy SLSQP), printed to 5-6 decimals (tolerance half a
+ * Expected values: docs/methods.md §5.2 (scipy SLSQP), printed to 5-6 decimals (tolerance half a
  * unit of the last printed decimal), and test/fixtures/inference/bivariate.json (scipy quad and
  * Genz's multivariate_normal.cdf, which agree to 4.4e-16; generate_bivariate.py).
  */
@@ -27,7 +27,7 @@ describe("the integral P(a, b, rho) = P(Z1 <= a, Z2 >= -b)", () => {
   });
 });
 
-describe("Stoye interval (methods.md §5.2)", () => {
+describe("Stoye interval (docs/methods.md §5.2)", () => {
   test("(0.6, 0.61, se 0.02, 0.08, rho 0.3): c = (2.17978, 1.68153), CI [0.556404, 0.744523]", () => {
     const interval = stoyeInterval({ lower: 0.6, upper: 0.61, lowerStdError: 0.02, upperStdError: 0.08, correlation: 0.3 }, 0.95);
     expectClose(interval.criticalValue.lower, 2.17978, { abs: 5e-6 });
@@ -50,7 +50,7 @@ describe("Stoye interval (methods.md §5.2)", () => {
     expectClose(interval.criticalValue.upper, 1.644854, { abs: 5e-7 });
   });
 
-  test("Example A, T = 120, rho = 7/18: Stoye's interval equals Imbens-Manski's [0.6685506, 0.9380745] to 7 d.p. (methods.md §1.7)", () => {
+  test("Example A, T = 120, rho = 7/18: Stoye's interval equals Imbens-Manski's [0.6685506, 0.9380745] to 7 d.p. (docs/methods.md §1.7)", () => {
     const interval = stoyeInterval(
       { lower: 5 / 7, upper: 8 / 9, lowerStdError: 0.027805, upperStdError: 0.0299027, correlation: 7 / 18 },
       0.95,

@@ -2,7 +2,7 @@
  * assessUncertainty: how its parts fit together, its defaults and its output contract.
  * Expected values come from independent code (solve's identified set), from published formulas
  * (White's 1980 HC0 covariance, to which HAC reduces at lag 0; the affine map b_high = (1 - w b)/(1 - w)
- * of methods.md §1) or from scipy (z_0.975 = 1.959963984540054). The statistical methods themselves
+ * of docs/methods.md §1) or from scipy (z_0.975 = 1.959963984540054). The statistical methods themselves
  * are checked against their references in the other files of this folder.
  */
 
@@ -69,7 +69,7 @@ describe("the intervals for the structural betas", () => {
     expectClose(result.highBeta?.interval.upper, h(result.lowBeta!.interval.lower), { rel: 1e-14 });
   });
 
-  test("Stoye's interval is never longer than Imbens-Manski's (it minimises the length; methods.md §5.2)", () => {
+  test("Stoye's interval is never longer than Imbens-Manski's (it minimises the length; docs/methods.md §5.2)", () => {
     const stoye = assessUncertainty(input, { weight: w, interval: "stoye" }).lowBeta!.interval;
     const im = result.lowBeta!.interval;
     expect(stoye.method).toBe("stoye");

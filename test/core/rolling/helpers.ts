@@ -1,4 +1,4 @@
-/** Data sets and from-scratch references shared by the test/rolling suites (not a test file itself). */
+/** Data sets and from-scratch references shared by the test/core/rolling suites (not a test file itself). */
 
 import { crossProducts } from "../../../src/core/moments.js";
 import { simulateSample } from "../../../src/core/forward/simulate.js";

@@ -4,7 +4,7 @@
  * for that window.
  *
  * Tolerance: 1e-10 relative (the brief's requirement). The two differ only in how the 2x2 moments
- * are accumulated (agreeing to a few ulps, test/rolling/moments.test.ts) and in the CAPM arithmetic:
+ * are accumulated (agreeing to a few ulps, test/core/rolling/moments.test.ts) and in the CAPM arithmetic:
  * solve fits by a second pass over the residuals, rollSolve uses the closed forms of rolling.ts, whose
  * residual sum D = S_ll S_hh - S_lh^2 carries a relative error of eps / (1 - rho^2) (below 1e-12 for
  * every window here). Absolute floors, each for a field whose rounding scales with something larger

@@ -5,7 +5,7 @@
  * Econometric Reviews 23(1), 53-70, with the correction of Patton, A., Politis, D. N. & White, H.
  * (2009), Econometric Reviews 28(4), 372-375 (D_SB = 2 g^2). Conventions are those of the arch
  * package (bashtage/arch, arch/bootstrap/base.py `_single_optimal_block`), exactly as listed in
- * methods.md section 7.2, so that its published test value is reproduced:
+ * docs/methods.md §7.2, so that its published test value is reproduced:
  *   eps = x - mean; kn = max(5, floor(log10 n)); m_max = ceil(sqrt n) + kn; cv = 2 sqrt(log10(n)/n);
  *   acv[i] = sum_t eps_t eps_{t-i} / n (full length);
  *   |rho|[i] = |sum_t eps_t eps_{t-i}| / sqrt(v1 v2), v1, v2 the sums of squares of eps[i+1:] and

@@ -2,7 +2,7 @@
  * Resampling plan of the stationary bootstrap.
  *
  * Politis, D. N. & Romano, J. P. (1994), "The stationary bootstrap", JASA 89(428), 1303-1313
- * (methods.md section 7.1): I_1 ~ U{1..n}; for t >= 2, with probability p = 1/b a fresh uniform
+ * (docs/methods.md §7.1): I_1 ~ U{1..n}; for t >= 2, with probability p = 1/b a fresh uniform
  * start, otherwise I_t = I_{t-1} + 1, wrapping from n to 1. Equivalently, and as done here, blocks
  * with uniform starts and Geometric(p) lengths, L = 1 + floor(ln U / ln(1 - p)), laid end to end and
  * the last one cut at n rows. One uniform u per block gives both: start = floor(u n) and

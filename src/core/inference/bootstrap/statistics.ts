@@ -2,7 +2,7 @@
  * The statistics recomputed on every bootstrap replicate, from the five sums of one resample.
  *
  * From the excess returns x (low) and y (high), resampled means and second moments (divisor n - 1)
- * give, exactly as `solve` does from a sample (methods.md sections 1.2-1.6, 10, 12):
+ * give, exactly as `solve` does from a sample (docs/methods.md sections 1.2-1.6, 10, 12):
  * the bounds of both structural betas; both CAPM betas and alphas on M = w x + (1 - w) y; the
  * landmark low betas capmConsistent (the CAPM beta, kept inside the set), equalNoise (the Deming
  * slope with ratio 1) and returnImplied (mean x / mean M, only when |mean M| >= sd(M)/sqrt(n) and

@@ -1,5 +1,5 @@
 /**
- * Automatic HAC bandwidths, following R sandwich's bwNeweyWest and bwAndrews exactly (methods.md
+ * Automatic HAC bandwidths, following R sandwich's bwNeweyWest and bwAndrews exactly (docs/methods.md
  * section 8; reproduced there to the printed digits of sandwich-Ex.Rout.save).
  *
  * Both take the estimating functions h_t (columns) after any prewhitening, `columnWeights` w_a

@@ -1,7 +1,7 @@
 /**
  * HAC (heteroskedasticity- and autocorrelation-consistent) covariance of OLS coefficients.
  *
- * ## Convention (R sandwich NeweyWest / kernHAC / vcovHAC; methods.md section 8)
+ * ## Convention (R sandwich NeweyWest / kernHAC / vcovHAC; docs/methods.md §8)
  *   Cov(b_hat) = (X'X)^{-1} S (X'X)^{-1},   S = kernel sum of h_t = x_t e_t (kernelSum.ts),
  * times T/(T - k) when `adjust` is set. Kernels: Bartlett (Newey & West 1987, Econometrica 55(3),
  * 703-708) or quadratic spectral (Andrews 1991); bandwidth fixed (`lags` L <=> Bartlett bandwidth

@@ -2,7 +2,7 @@
  * The kernel-weighted sum of autocovariances of a vector series: the "meat" shared by the HAC
  * regression covariance (hac.ts) and the long-run covariance (longRun.ts).
  *
- * ## Conventions (R sandwich meatHAC; methods.md section 8)
+ * ## Conventions (R sandwich meatHAC; docs/methods.md §8)
  * With rows u_1..u_n and lag weights w_0, w_1, ...:
  *   M = 0.5 w_0 sum_t u_t u_t' + sum_{j>=1} w_j sum_{t=1}^{n-j} u_t u_{t+j}',   S = M + M'
  * which is the Newey-West sum Gamma_0 + sum_j w_j (Gamma_j + Gamma_j'). Nothing is divided by n here.

@@ -1,7 +1,7 @@
 /**
  * HAC kernels and the lag weights they give.
  *
- * ## Conventions (Andrews 1991, Econometrica 59(3); methods.md section 8)
+ * ## Conventions (Andrews 1991, Econometrica 59(3); docs/methods.md §8)
  * - Bartlett: k(x) = 1 - |x| for |x| <= 1, else 0. Newey-West lag L is bandwidth S = L + 1, weights
  *   1 - j/(L + 1), j = 0..L (R sandwich NeweyWest: seq(1, 0, by = -1/(lag + 1))).
  * - Quadratic spectral: k(x) = 25/(12 pi^2 x^2) [sin(6 pi x/5)/(6 pi x/5) - cos(6 pi x/5)], k(0) = 1

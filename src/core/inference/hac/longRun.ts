@@ -1,7 +1,7 @@
 /**
  * Long-run covariance of a vector series z_t (the spectral density at frequency 0 times 2 pi).
  *
- * ## Convention (Newey & West 1987; Andrews 1991; methods.md sections 4 and 8)
+ * ## Convention (Newey & West 1987; Andrews 1991; docs/methods.md sections 4 and 8)
  *   Omega_hat = S / T,  S = kernel sum (kernelSum.ts) of h_t = z_t - zbar,
  * so that Var(zbar) is approximately Omega_hat / T. Kernels, bandwidths and prewhitening as for the
  * HAC regression covariance; every component gets weight 1 in the automatic bandwidths (there is no

@@ -1,7 +1,7 @@
 /**
  * VAR(1) prewhitening of a vector series and the matrix that recolours a long-run covariance.
  *
- * ## Method (Andrews & Monahan 1992, Econometrica 60(4), 953-966; methods.md section 8)
+ * ## Method (Andrews & Monahan 1992, Econometrica 60(4), 953-966; docs/methods.md §8)
  * Fit h_t = A h_{t-1} + e_t by least squares without an intercept (R: ar(umat, order.max = 1,
  * demean = FALSE, aic = FALSE, method = "ols")), equation by equation over t = 2..n. The kernel
  * estimator then runs on the n - 1 residuals e_t, and its sum S* is recoloured as S = D S* D' with

@@ -1,9 +1,9 @@
 /**
  * Politis-White (2004) / Patton-Politis-White (2009) block length with arch's conventions, against
- * the arch test suite (bashtage/arch arch/tests/bootstrap/test_block_length.py, methods.md §7.2):
+ * the arch test suite (bashtage/arch arch/tests/bootstrap/test_block_length.py, docs/methods.md §7.2):
  * AR(1) with coefficient 0.3 from numpy RandomState(0), n = 10,000
  * (test/fixtures/inference/ar1_phi0.3_n10000.csv): stationary 13.635665, circular 15.60894, rtol 1e-4
- * as in that test (methods.md's own port gives 13.63566513031823 / 15.608940081363112).
+ * as in that test (docs/methods.md's own port gives 13.63566513031823 / 15.608940081363112).
  */
 
 import { describe, expect, test } from "vitest";
@@ -14,7 +14,7 @@ import { ar1Series } from "../fixtures.js";
 const series = ar1Series();
 
 describe("optimal block length (arch conventions)", () => {
-  test("the fixture is the arch series: n = 10,000, first value 2.06570021 (methods.md §7.2)", () => {
+  test("the fixture is the arch series: n = 10,000, first value 2.06570021 (docs/methods.md §7.2)", () => {
     expect(series.length).toBe(10000);
     expectClose(series[0], 2.06570021, { abs: 5e-9 });
   });
@@ -25,7 +25,7 @@ describe("optimal block length (arch conventions)", () => {
     expectClose(b.circular, 15.60894, { rel: 1e-4 });
   });
 
-  test("the independent numpy port of methods.md §7.2 agrees to 1e-12: 13.63566513031823 / 15.608940081363112", () => {
+  test("the independent numpy port of docs/methods.md §7.2 agrees to 1e-12: 13.63566513031823 / 15.608940081363112", () => {
     const b = optimalBlockLength(series);
     expectClose(b.stationary, 13.63566513031823, { rel: 1e-12 });
     expectClose(b.circular, 15.608940081363112, { rel: 1e-12 });

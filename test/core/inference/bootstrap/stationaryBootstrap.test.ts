@@ -1,11 +1,11 @@
 /**
  * The stationary bootstrap's resampling plan (Politis & Romano 1994) against the exact conditional
- * moments of the resampled mean (methods.md §7.1, derived there and checked by simulation):
+ * moments of the resampled mean (docs/methods.md §7.1, derived there and checked by simulation):
  *   E*(mean*) = Xbar,
  *   Var*(mean*) = (1/n) [c(0) + sum_{i=1}^{n-1} b(i) c(i)],  b(i) = (1 - i/n)(1-p)^i + (i/n)(1-p)^{n-i},
  *   c(k) = (1/n) sum_j (X_j - Xbar)(X_{(j+k) mod n} - Xbar).
  * The simulated moments must lie within 4 Monte Carlo standard errors (estimated from the replicates
- * themselves); the "doubled" form c(0) + 2 sum b(i) c(i), which methods.md shows to be wrong, must not.
+ * themselves); the "doubled" form c(0) + 2 sum b(i) c(i), which docs/methods.md shows to be wrong, must not.
  */
 
 import { describe, expect, test } from "vitest";

@@ -1,9 +1,9 @@
 /**
- * HAC covariances and automatic bandwidths against R sandwich's own examples (methods.md §8(b)):
+ * HAC covariances and automatic bandwidths against R sandwich's own examples (docs/methods.md §8(b)):
  * cran/sandwich tests/Examples/sandwich-Ex.Rout.save (R 4.0.4). Data: Greene's Investment
  * (test/fixtures/inference/Investment.csv), fm = lm(RealInv ~ RealGNP + RealInt), first row dropped
  * (RealInt NA), T = 19. R prints 7-10 significant digits; each entry is checked to 1e-9 relative or
- * half a unit of its last printed digit, whichever is larger (test/inference/matrices.ts).
+ * half a unit of its last printed digit, whichever is larger (test/core/inference/matrices.ts).
  */
 
 import { describe, expect, test } from "vitest";
@@ -17,7 +17,7 @@ const { design, y } = investmentRegression();
 const fit = leastSquares(design, y);
 const rel = 1e-9;
 
-describe("R sandwich Investment examples (methods.md §8(b))", () => {
+describe("R sandwich Investment examples (docs/methods.md §8(b))", () => {
   test("OLS b = (-12.53360, 0.16914, -1.00144) on T = 19 rows; vcov(fm) is the classical covariance", () => {
     expect(y.length).toBe(19);
     [-12.5336, 0.16914, -1.00144].forEach((b, i) => expectClose(fit.coefficients[i], b, { abs: 5e-6 }));
@@ -60,7 +60,7 @@ describe("R sandwich Investment examples (methods.md §8(b))", () => {
     );
   });
 
-  test("the Newey-West 1994 bandwidth without prewhitening is 1.42031 (methods.md §8(b), for reference)", () => {
+  test("the Newey-West 1994 bandwidth without prewhitening is 1.42031 (docs/methods.md §8(b), for reference)", () => {
     expectClose(hacCovariance(design, fit.residuals, { bandwidth: "newey-west-1994" }).bandwidth, 1.42031, { abs: 5e-6 });
   });
 

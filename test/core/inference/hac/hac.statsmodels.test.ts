@@ -1,10 +1,10 @@
 /**
- * Newey-West covariance with a fixed lag against statsmodels' test_hac_simple (methods.md §8(a)):
+ * Newey-West covariance with a fixed lag against statsmodels' test_hac_simple (docs/methods.md §8(a)):
  * statsmodels/statsmodels statsmodels/stats/tests/test_sandwich.py, numbers copied there from R
  * sandwich NeweyWest(fm, lag = 4, prewhite = FALSE, sandwich = TRUE), adjust FALSE and TRUE.
  * Data: statsmodels macrodata (test/fixtures/inference/macrodata.csv); y = 400 dlog(realinv),
  * X = [1, 400 dlog(realgdp), realint(-1)], T = 202. Printed to 16-18 digits: tolerance 1e-10 relative
- * (the brief asks for 1e-9; methods.md reports a 6e-13 reproduction).
+ * (the brief asks for 1e-9; docs/methods.md reports a 6e-13 reproduction).
  */
 
 import { describe, expect, test } from "vitest";
@@ -17,7 +17,7 @@ import { expectMatrixClose } from "../matrices.js";
 const { design, y } = macrodataRegression();
 const fit = leastSquares(design, y);
 
-describe("statsmodels macrodata regression (methods.md §8(a))", () => {
+describe("statsmodels macrodata regression (docs/methods.md §8(a))", () => {
   test("OLS coefficients are (-9.48167277, 4.37422166, -0.61399697) and classical se (1.06849581, 0.21469411, 0.28466805)", () => {
     expect(y.length).toBe(202);
     [-9.48167277, 4.37422166, -0.61399697].forEach((b, i) => expectClose(fit.coefficients[i], b, { abs: 5e-9 }));

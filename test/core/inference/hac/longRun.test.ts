@@ -2,8 +2,8 @@
  * Long-run covariance of a vector series. For OLS scores h_t = x_t e_t (mean exactly zero, so the
  * demeaning is immaterial) the HAC covariance is (X'X)^{-1} [T Omega_hat(h)] (X'X)^{-1}, so sandwiching
  * T Omega_hat must reproduce the published matrices:
- * - statsmodels test_hac_simple / R NeweyWest(fm, lag = 4, prewhite = FALSE) on macrodata (methods.md §8(a)),
- * - R sandwich NeweyWest(fm) on Investment, which after prewhitening uses lag 0 (methods.md §8(b)).
+ * - statsmodels test_hac_simple / R NeweyWest(fm, lag = 4, prewhite = FALSE) on macrodata (docs/methods.md §8(a)),
+ * - R sandwich NeweyWest(fm) on Investment, which after prewhitening uses lag 0 (docs/methods.md §8(b)).
  * Tolerances as in the HAC tests: 1e-10 relative (statsmodels, full digits), 1e-9 relative or half a
  * printed digit (R).
  */
