@@ -20,6 +20,14 @@ export function wantsColour(io: CliIo, output: string | undefined, format: strin
   return output === undefined && io.stdoutIsTerminal && format === "text" && (noColour === undefined || noColour === "");
 }
 
+/**
+ * True when a run would read standard input and standard input is the terminal: nobody is piping
+ * data in, so the run would wait for typing. (`files` empty means standard input.)
+ */
+export function waitsOnTerminal(io: CliIo, files: readonly string[], shape: { readonly joined: boolean }): boolean {
+  return !shape.joined && files.length === 0 && io.stdinIsTerminal;
+}
+
 /** Reports a command-line problem on stderr and gives the usage exit code. */
 export function usage(io: CliIo, message: string): ExitCode {
   io.writeErr(`error: ${message}\n`);

@@ -15,7 +15,7 @@ import {
 } from "../input/index.js";
 import type { CommandOptions } from "../options/index.js";
 import type { InputDescription, JoinDescription, RiskFreeSource } from "../report/types.js";
-import type { Pair } from "./pairs.js";
+import { type Pair, pairsFrom } from "./pairs.js";
 import { type ReadSource, sourceName } from "./sources.js";
 
 /** The options that say which files, which columns and how to read them (solve's and roll's are the same). */
@@ -81,6 +81,18 @@ export function joinedSides(files: readonly string[], options: ReadingOptions): 
   const low = side(options.low);
   const high = side(options.high);
   return low === null || high === null ? null : { low, high };
+}
+
+/**
+ * How a run reads: `joined` when the two books come from their own files, and `several` when more than
+ * one (file, pair) is asked for (outputs are then lists of records).
+ */
+export function runShape(files: readonly string[], options: ReadingOptions & Parameters<typeof pairsFrom>[0]) {
+  const joined = joinedSides(files, options) !== null;
+  return {
+    joined,
+    several: !joined && Math.max(files.length, 1) * pairsFrom(options).length > 1,
+  };
 }
 
 /** Every (file, pair) of a run, read in order; `files` empty means standard input. */

@@ -21,7 +21,7 @@ import { type RollMeta, rollRecord } from "../report/rollReport.js";
 import type { RollOutputJson } from "../schema/rollOutput.js";
 import type { SolveFailureJson } from "../schema/solveOutput.js";
 import type { JobContext } from "./context.js";
-import { describeInput, joinedSides, loadPairs, type PairTable, sampleOf } from "./pairTables.js";
+import { describeInput, loadPairs, type PairTable, runShape, sampleOf } from "./pairTables.js";
 import { pairsFrom } from "./pairs.js";
 import type { JobMessage } from "./solveJob.js";
 import { tool } from "./tool.js";
@@ -61,9 +61,7 @@ export function rollJob(files: readonly string[], input: CommandOptionsInput<"ro
   const parsed = optionsSchema("roll").safeParse(input);
   if (!parsed.success) return failure(optionIssueOf(parsed.error));
   const options = parsed.data;
-  const pairs = pairsFrom(options);
-  const joined = joinedSides(files, options) !== null;
-  const several = !joined && Math.max(files.length, 1) * pairs.length > 1;
+  const { several } = runShape(files, options);
   if (several && options.chart !== undefined) {
     return failure({ option: "chart", value: options.chart, message: "draws one file and one pair; run it per pair" });
   }

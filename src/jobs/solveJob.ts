@@ -5,6 +5,7 @@
  * with `low` and `high` written PATH:COLUMN and no files, the two books come from their own files
  * joined on date. A pair that fails does not stop the others.
  */
+import { failure, type Result, success } from "../core/result.js";
 import { solve } from "../core/solve.js";
 import { describeInputWarning } from "../input/index.js";
 import { type CommandOptions, type CommandOptionsInput, type OptionIssue, optionIssueOf, optionsSchema } from "../options/index.js";
@@ -13,11 +14,10 @@ import { failureOutput, type SolveRecord } from "../report/records.js";
 import type { SolveReport } from "../report/types.js";
 import type { SolveFailureJson, SolveOutputJson } from "../schema/solveOutput.js";
 import type { JobContext } from "./context.js";
-import { describeInput, joinedSides, loadPairs, type PairLoad, sampleOf } from "./pairTables.js";
+import { describeInput, loadPairs, type PairLoad, runShape, sampleOf } from "./pairTables.js";
 import { pairsFrom } from "./pairs.js";
 import { tool } from "./tool.js";
 import { uncertaintyFor } from "./uncertaintyStep.js";
-import { failure, type Result, success } from "../core/result.js";
 
 /** A message for a person: what a report also carries as a diagnostic, or why a pair failed. */
 export interface JobMessage {
@@ -49,9 +49,7 @@ export function solveOptions(files: readonly string[], input: CommandOptionsInpu
   const parsed = optionsSchema("solve").safeParse(input);
   if (!parsed.success) return failure(optionIssueOf(parsed.error));
   const options = parsed.data;
-  const pairs = pairsFrom(options);
-  const joined = joinedSides(files, options) !== null;
-  const several = !joined && Math.max(files.length, 1) * pairs.length > 1;
+  const { several } = runShape(files, options);
   if (several && (options.chart !== undefined || options.report !== undefined)) {
     const option = options.chart === undefined ? "report" : "chart";
     const value = options.chart ?? options.report ?? "";

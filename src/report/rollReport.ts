@@ -7,6 +7,7 @@
 import type { WindowUncertainty } from "../core/inference/windowUncertainty.js";
 import { windowColumnNames, type WindowColumns, type WindowSolution, type WindowSpec } from "../core/rolling/index.js";
 import { momentsFromSummary } from "../core/summaryMoments.js";
+import { defaultConfidence } from "../core/parameters.js";
 import type { RollOutputJson } from "../schema/rollOutput.js";
 import type { RollWindowPoint } from "./charts/rollChart.js";
 import { csvField } from "./csv.js";
@@ -155,7 +156,7 @@ export function rollTextLines(
     meta.spec.kind === "window"
       ? `${meta.spec.size} periods, every ${meta.spec.step}`
       : `expanding from ${meta.spec.minPeriods} periods, every ${meta.spec.step}`;
-  const confidence = uncertainty?.find((u) => u !== null)?.confidence ?? 0.95;
+  const confidence = uncertainty?.find((u) => u !== null)?.confidence ?? defaultConfidence;
   const level = `${Number((confidence * 100).toPrecision(4))}%`;
   const header = [
     "window end",

@@ -12,10 +12,10 @@ import { styleFor } from "../../report/layout.js";
 import { rollChartPoints, rollCsvHeader, rollTextLines, windowWords, writeRollCsv } from "../../report/rollReport.js";
 import { addTableOptions } from "../commandOptions.js";
 import { withConfig } from "../config.js";
-import { usage, wantsColour } from "../emit.js";
+import { usage, waitsOnTerminal, wantsColour } from "../emit.js";
 import { jobContext } from "../jobContext.js";
 import { describeCliIssue, describeOptionIssue } from "../messages.js";
-import { joinedSides } from "../../jobs/pairTables.js";
+import { runShape } from "../../jobs/pairTables.js";
 import { type ExitCode, exitCodes } from "../runtime/exitCodes.js";
 import type { CliIo, OutputSink } from "../runtime/io.js";
 
@@ -23,8 +23,7 @@ export async function runRoll(files: readonly string[], flags: Readonly<Record<s
   const job = rollJob(files, flags as CommandOptionsInput<"roll">, jobContext(io));
   if (!job.ok) return usage(io, describeOptionIssue(job.issues));
   const { options, several } = job.value;
-  if (joinedSides(files, options) === null && files.length === 0 && io.stdinIsTerminal)
-    return usage(io, describeCliIssue({ code: "no-input" }));
+  if (waitsOnTerminal(io, files, runShape(files, options))) return usage(io, describeCliIssue({ code: "no-input" }));
   const sink = io.openSink(options.output);
   if (!sink.ok) {
     io.writeErr(`error: ${describeCliIssue(sink.issues)}\n`);

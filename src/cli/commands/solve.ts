@@ -6,14 +6,14 @@
 import { availableParallelism } from "node:os";
 import { Command } from "commander";
 import { defaultThreads, type PairStatus } from "../../jobs/index.js";
-import { joinedSides } from "../../jobs/pairTables.js";
+import { runShape } from "../../jobs/pairTables.js";
 import { solveOptions, solvePlanned } from "../../jobs/solveJob.js";
 import type { CommandOptionsInput } from "../../options/index.js";
 import { renderJsonLines, renderRecordsCsv, renderRecordsText } from "../../report/records.js";
 import { renderReport } from "../../report/render.js";
 import { addTableOptions } from "../commandOptions.js";
 import { withConfig } from "../config.js";
-import { emit, usage, wantsColour } from "../emit.js";
+import { emit, usage, waitsOnTerminal, wantsColour } from "../emit.js";
 import { jobContext } from "../jobContext.js";
 import { describeCliIssue, describeOptionIssue } from "../messages.js";
 import { type ExitCode, exitCodes } from "../runtime/exitCodes.js";
@@ -33,8 +33,7 @@ export async function runSolve(files: readonly string[], flags: Readonly<Record<
   const plan = solveOptions(files, input);
   if (!plan.ok) return usage(io, describeOptionIssue(plan.issues));
   const options = plan.value.options;
-  if (joinedSides(files, options) === null && files.length === 0 && io.stdinIsTerminal)
-    return usage(io, describeCliIssue({ code: "no-input" }));
+  if (waitsOnTerminal(io, files, runShape(files, options))) return usage(io, describeCliIssue({ code: "no-input" }));
   const { pairs, several } = await solvePlanned(files, plan.value, jobContext(io));
 
   const records = pairs.map((p) => p.record);
