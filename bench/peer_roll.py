@@ -2,7 +2,7 @@
 window, from cumulative sums. Reads the CSV with numpy.loadtxt (dates as text, numbers converted in
 one vectorised step), forms window sums as differences of cumulative sums of x, y, x^2, y^2, xy
 (after centring at the full-sample means, which keeps the differences from cancelling), evaluates
-every column with array expressions and writes the same CSV as bench/roll-case.ts (full precision,
+every column with array expressions and writes the same numbers as `roll --format csv` (full precision,
 %.17g; undefined values as nan where ours leaves the field empty).
 
 Usage: python3 bench/peer_roll.py FILE LOW HIGH WINDOW

@@ -5,7 +5,7 @@
  * library do.
  */
 import { type Command, InvalidArgumentError, Option } from "commander";
-import { type CommandName, entriesFor, flagOf, mustBe, type OptionSpec, optionGroups } from "../options/index.js";
+import { type CommandName, entriesFor, flagOf, type OptionSpec, optionGroups, refusalOf } from "../options/index.js";
 
 function commanderOption(entry: OptionSpec<unknown>): Option {
   return flagOption(entry).helpGroup(`${optionGroups[entry.group]}:`);
@@ -16,7 +16,7 @@ function flagOption(entry: OptionSpec<unknown>): Option {
   if (entry.argument === undefined) {
     // A switch: `--x` (off unless given), or `--no-x` for one that is on unless turned off.
     const option = new Option(entry.negated === true ? `--no-${flag.slice(2)}` : flag, entry.help);
-    return entry.negated === true ? option : option.default(entry.default ?? false);
+    return entry.negated === true ? option : option.default(entry.default ?? false, entry.kind.show(entry.default ?? false));
   }
   // Commander shows a default only when there is a value: what happens otherwise goes in the help.
   const help = entry.default === undefined && entry.otherwise !== undefined ? `${entry.help} (default: ${entry.otherwise})` : entry.help;
@@ -26,7 +26,7 @@ function flagOption(entry: OptionSpec<unknown>): Option {
   if (choices !== undefined) option.choices(choices);
   option.argParser((text: string, previous: unknown) => {
     const value = entry.kind.parse(text, previous);
-    if (value === undefined) throw new InvalidArgumentError(mustBe(entry.kind));
+    if (value === undefined) throw new InvalidArgumentError(refusalOf(entry.kind, text));
     return value;
   });
   if (entry.default !== undefined) option.default(entry.default, entry.kind.show(entry.default));

@@ -8,8 +8,6 @@ export type CliIssue =
   | { readonly code: "no-input" }
   | { readonly code: "read-failed"; readonly path: string; readonly reason: string }
   | { readonly code: "write-failed"; readonly path: string; readonly reason: string }
-  | { readonly code: "invalid-option"; readonly option: string; readonly value: string; readonly expected: string }
-  | { readonly code: "missing-option"; readonly option: string; readonly hint: string }
   | { readonly code: "invalid-config"; readonly path: string; readonly at: string; readonly reason: string };
 
 export function describeCliIssue(issue: CliIssue): string {
@@ -20,10 +18,6 @@ export function describeCliIssue(issue: CliIssue): string {
       return `cannot read '${issue.path}': ${issue.reason}; check the path and its permissions`;
     case "write-failed":
       return `cannot write '${issue.path}': ${issue.reason}; nothing was written and any existing file is unchanged`;
-    case "invalid-option":
-      return `option '${issue.option}' argument '${issue.value}' is invalid: ${issue.expected}`;
-    case "missing-option":
-      return `option '${issue.option}' is required: ${issue.hint}`;
     case "invalid-config":
       return `config file '${issue.path}'${issue.at === "" ? "" : `, at '${issue.at}'`}: ${issue.reason}; fix the file (keys are the long option names in camelCase, plus "files")`;
   }

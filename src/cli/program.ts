@@ -3,6 +3,8 @@
  * code; it never calls process.exit, so tests drive it in process.
  */
 import { Command, CommanderError } from "commander";
+import en from "zod/v4/locales/en.js";
+import * as z from "zod/mini";
 import { exitCodes, type ExitCode } from "./runtime/exitCodes.js";
 import { impliedCommand } from "./commands/implied.js";
 import type { CliIo } from "./runtime/io.js";
@@ -10,7 +12,12 @@ import { rollCommand } from "./commands/roll.js";
 import { schemaCommand } from "./commands/schema.js";
 import { simulateCommand } from "./commands/simulate.js";
 import { solveCommand } from "./commands/solve.js";
-import { version } from "../jobs/tool.js";
+import { version } from "../jobs/index.js";
+
+// The CLI's own zod settings (the library never changes its caller's): English messages for the few
+// structural issues that have no message of their own (every option value's comes from its kind),
+// and no compiled fast path, which costs more to build than it saves when a run parses its options once.
+z.config({ ...en(), jitless: true });
 
 type CommandBuilder = (io: CliIo, setExit: (code: ExitCode) => void) => Command;
 

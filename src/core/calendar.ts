@@ -32,7 +32,8 @@ export const periodsPerYear: Readonly<Record<FrequencyName, number>> = {
   annual: frequencyTable.annual.periodsPerYear,
 };
 
-const dayMs = 86_400_000;
+/** Milliseconds in a day: date keys are UTC milliseconds. */
+export const DAY_MS = 86_400_000;
 
 const iso = (time: number): string => new Date(time).toISOString().slice(0, 10);
 
@@ -46,11 +47,11 @@ export function periodDates(frequency: FrequencyName, start: string, count: numb
   const dates: string[] = [];
   if (frequency === "daily" || frequency === "weekly") {
     let time = startTime;
-    while (frequency === "daily" && isWeekend(time)) time += dayMs;
+    while (frequency === "daily" && isWeekend(time)) time += DAY_MS;
     while (dates.length < count) {
       dates.push(iso(time));
-      time += frequency === "weekly" ? 7 * dayMs : dayMs;
-      while (frequency === "daily" && isWeekend(time)) time += dayMs;
+      time += frequency === "weekly" ? 7 * DAY_MS : DAY_MS;
+      while (frequency === "daily" && isWeekend(time)) time += DAY_MS;
     }
     return dates;
   }

@@ -9,6 +9,14 @@
 export interface Rule<T> {
   readonly accept: (value: T) => boolean;
   readonly expected: string;
+  /** Why this value in particular is refused, when the rule can say more than `expected`. */
+  readonly reason?: (value: T) => string | undefined;
+}
+
+/** The one sentence of a refusal: "must be <expected>", and the particular reason when there is one. */
+export function refusal<T>(rule: Rule<T>, value: T): string {
+  const reason = rule.reason?.(value);
+  return `must be ${rule.expected}${reason === undefined ? "" : ` (${reason})`}`;
 }
 
 /** Bounds of a number: each end open (gt, lt) or closed (gte, lte), or absent. */
@@ -58,6 +66,15 @@ export function integerRule(minimum: number, maximum: number): Rule<number> {
 export const defaultWeight = 0.5;
 export const defaultSteps = 11;
 export const defaultConfidence = 0.95;
+/** Seed of the random streams. */
+export const defaultSeed = 1;
+/** Mean block length of the bootstrap: chosen from the data (Politis-White). */
+export const defaultBlockLength = "auto";
+/** Bootstrap replicates when a bootstrap is asked for without a number. */
+export const defaultReplicates = 2000;
+
+/** The fewest aligned observations the moments and the CAPM fits need. */
+export const minimumObservations = 3;
 
 /** The largest candidate grid: a limit on output size (each candidate is a row), not a numerical one. */
 export const maximumSteps = 100_000;
@@ -95,6 +112,10 @@ export const parameters = {
   tails: numberRule({ gt: 2 }),
   /** AR(1) coefficient of the noises (stationary). */
   noiseAr: numberRule({ gt: -1, lt: 1 }),
+  /** Rows of a rolling window, or of the first expanding one (the moments need at least three). */
+  windowLength: integerRule(minimumObservations, 100_000_000),
+  /** Rows between consecutive windows. */
+  windowStep: integerRule(1, 100_000_000),
 } as const satisfies Record<string, Rule<number>>;
 
 export type ParameterName = keyof typeof parameters;

@@ -15,10 +15,9 @@ import { excessCrossProducts } from "./moments.js";
 import { excessResidualSums, lineFitFromSums, type LineSums } from "./regression.js";
 import { failure, success, type Result } from "./result.js";
 import type { ReturnSample, SampleMoments, SeriesMoments, Solution, SolveOptions } from "./types.js";
-import { assertParameter, defaultSteps, defaultWeight } from "./parameters.js";
+import { assertParameter, defaultSteps, defaultWeight, minimumObservations } from "./parameters.js";
 
-export { defaultSteps, defaultWeight };
-export const minimumObservations = 3;
+export { defaultSteps, defaultWeight, minimumObservations };
 
 /** Solves the identified set for one sample. Fails (with diagnostics) only when nothing can be computed. */
 export function solve(sample: ReturnSample, options: SolveOptions = {}): Result<Solution, Diagnostic[]> {

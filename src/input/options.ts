@@ -1,5 +1,5 @@
 /** Options of `readReturns`, their vocabularies and rules, and their validation. */
-import { integerRule, numberRule, type Rule } from "../core/parameters.js";
+import { integerRule, numberRule, type Rule, refusal } from "../core/parameters.js";
 import type { InputIssue } from "./issues.js";
 import { compileDateFormat } from "./values/dateFormat.js";
 
@@ -26,7 +26,16 @@ export const inputRules = {
   dateFormat: {
     accept: (layout: string) => typeof compileDateFormat(layout) !== "string",
     expected: "a date layout of the tokens YYYY, MM, M, DD, D and MMM with separators, e.g. DD/MM/YYYY",
+    reason: (layout: string) => {
+      const compiled = compileDateFormat(layout);
+      return typeof compiled === "string" ? compiled : undefined;
+    },
   } satisfies Rule<string>,
+  longLayout: {
+    accept: (o: { readonly idColumn?: string | undefined; readonly valueColumn?: string | undefined }) =>
+      (o.idColumn === undefined) === (o.valueColumn === undefined),
+    expected: "given together with the other: the long layout needs both the id column and the value column",
+  } satisfies Rule<{ readonly idColumn?: string | undefined; readonly valueColumn?: string | undefined }>,
 } as const;
 
 /** How to read a file; only `source` and `columns` are required. */
@@ -86,19 +95,18 @@ export function validateOptions(options: ReadOptions): InputIssue[] {
     issues.push(invalid(source, "columns", `${JSON.stringify(options.dateColumn)} is the date column`));
   }
   const { delimiter, block, periodsPerYear } = options;
-  const broken = <T>(value: T | undefined, rule: Rule<T>): boolean => value !== undefined && !rule.accept(value);
-  if (broken(delimiter, inputRules.delimiter)) issues.push(invalid(source, "delimiter", `must be ${inputRules.delimiter.expected}`));
-  if (broken(block, inputRules.block)) issues.push(invalid(source, "block", `must be ${inputRules.block.expected}`));
-  if (broken(periodsPerYear, inputRules.periodsPerYear)) {
-    issues.push(invalid(source, "periodsPerYear", `must be ${inputRules.periodsPerYear.expected}`));
-  }
+  const check = <T>(option: string, value: T | undefined, rule: Rule<T>): void => {
+    if (value !== undefined && !rule.accept(value)) issues.push(invalid(source, option, refusal(rule, value)));
+  };
+  check("delimiter", delimiter, inputRules.delimiter);
+  check("block", block, inputRules.block);
+  check("periodsPerYear", periodsPerYear, inputRules.periodsPerYear);
+  check("dateFormat", options.dateFormat, inputRules.dateFormat);
   if (options.decimalComma === true && delimiter === ",")
     issues.push(invalid(source, "decimalComma", "the delimiter is a comma, so it cannot also be the decimal separator"));
   if (options.input === "prices" && options.units === "percent") issues.push(invalid(source, "units", "percent does not apply to prices"));
-  if ((options.idColumn === undefined) !== (options.valueColumn === undefined)) {
-    issues.push(
-      invalid(source, options.idColumn === undefined ? "idColumn" : "valueColumn", "the long layout needs both idColumn and valueColumn"),
-    );
+  if (!inputRules.longLayout.accept(options)) {
+    issues.push(invalid(source, options.idColumn === undefined ? "idColumn" : "valueColumn", refusal(inputRules.longLayout, options)));
   }
   return issues;
 }

@@ -24,13 +24,12 @@ export interface BootstrapSettings {
   readonly threads: number;
 }
 
-/** Every chunk in this thread, yielding to the event loop between chunks so progress can be drawn. */
+/** Every chunk in this thread, waiting for the progress display between chunks. */
 export const inThisThread: BootstrapExecutor = async (task, _threads, progress) => {
   const ranges: BootstrapRange[] = [];
   for (const [from, to] of task.chunks) {
     ranges.push(bootstrapRange(task.data, { blockLength: task.blockLength, seed: task.seed }, from, to));
-    progress(to);
-    await new Promise((resolve) => setImmediate(resolve));
+    await progress(to);
   }
   return ranges;
 };

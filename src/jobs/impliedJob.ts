@@ -4,9 +4,10 @@
  * JSON document is what `implied --format json` prints.
  */
 import { implied } from "../core/forward/implied.js";
-import { failure, type Result, success } from "../core/result.js";
-import { type CommandOptions, type CommandOptionsInput, type OptionIssue, optionIssueOf, optionsSchema } from "../options/index.js";
+import { type Result, success } from "../core/result.js";
+import { type CommandOptions, type CommandOptionsInput, type OptionIssue, parseOptions } from "../options/index.js";
 import { type ImpliedReport, impliedOutput } from "../report/impliedReport.js";
+import { assertJsonSafe } from "../report/json.js";
 import type { ImpliedOutputJson } from "../schema/impliedOutput.js";
 import { tool } from "./tool.js";
 
@@ -19,11 +20,13 @@ export interface ImpliedJobResult {
 }
 
 export function impliedJob(input: CommandOptionsInput<"implied">): Result<ImpliedJobResult, OptionIssue> {
-  const parsed = optionsSchema("implied").safeParse(input);
-  if (!parsed.success) return failure(optionIssueOf(parsed.error));
-  const options = parsed.data;
+  const parsed = parseOptions("implied", input);
+  if (!parsed.ok) return parsed;
+  const options = parsed.value;
   const { lowBeta, factorVol, factorMean, lowNoiseVol, highNoiseVol, weight } = options;
   const solution = implied({ lowBeta, factorVol, factorMean, lowNoiseVol, highNoiseVol, weight }, options.steps);
   const report: ImpliedReport = { tool, solution, riskFree: options.rf };
-  return success({ options, report, document: impliedOutput(report), status: solution.bounds === null ? "rejected" : "ok" });
+  const document = impliedOutput(report);
+  assertJsonSafe(document); // as the CLI's renderer checks: a NaN here is a bug, never a quiet null
+  return success({ options, report, document, status: solution.bounds === null ? "rejected" : "ok" });
 }

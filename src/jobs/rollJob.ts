@@ -15,7 +15,7 @@ import {
   windowCount,
 } from "../core/rolling/index.js";
 import { describeInputWarning } from "../input/index.js";
-import { type CommandOptions, type CommandOptionsInput, type OptionIssue, optionIssueOf, optionsSchema } from "../options/index.js";
+import { type CommandOptions, type CommandOptionsInput, type OptionIssue, parseOptions } from "../options/index.js";
 import { failureOutput } from "../report/records.js";
 import { type RollMeta, rollRecord } from "../report/rollReport.js";
 import type { RollOutputJson } from "../schema/rollOutput.js";
@@ -37,13 +37,19 @@ export interface RolledPair {
   columns(): WindowColumns;
   /** A window's standard errors and interval (null without `uncertainty`, or when the window has no set). */
   uncertaintyAt(window: WindowSolution): WindowUncertainty | null;
-  /** The JSON record of every window, in order: one `roll --format jsonl` line each. */
+  /** The JSON record of a window: one `roll --format jsonl` line. */
+  record(window: WindowSolution): RollOutputJson;
+  /** The JSON record of every window, in order. */
   records(): Iterable<RollOutputJson>;
 }
 
-/** A (file, pair) that was not rolled; `document` is its failure record (null when none is written). */
+/**
+ * A (file, pair) that was not rolled: its errors (stable codes), and its failure record (null for a
+ * pair too short for one window, which writes none).
+ */
 export interface RollFailure {
   readonly kind: "failure";
+  readonly errors: readonly { readonly code: string; readonly message: string }[];
   readonly document: SolveFailureJson | null;
   readonly messages: readonly JobMessage[];
 }
@@ -58,17 +64,29 @@ export interface RollJob {
 
 /** Validates `input` (filling in defaults) and plans the windows; the pairs are read as they are iterated. */
 export function rollJob(files: readonly string[], input: CommandOptionsInput<"roll">, context: JobContext): Result<RollJob, OptionIssue> {
-  const parsed = optionsSchema("roll").safeParse(input);
-  if (!parsed.success) return failure(optionIssueOf(parsed.error));
-  const options = parsed.data;
+  const parsed = parseOptions("roll", input);
+  if (!parsed.ok) return parsed;
+  const options = parsed.value;
   const { several } = runShape(files, options);
   if (several && options.chart !== undefined) {
-    return failure({ option: "chart", value: options.chart, message: "draws one file and one pair; run it per pair" });
+    return failure({
+      code: "options-conflict",
+      option: "chart",
+      value: options.chart,
+      message: "draws one file and one pair; run it per pair",
+    });
   }
-  const spec: WindowSpec = options.expanding
-    ? { kind: "expanding", minPeriods: options.minPeriods ?? 3, step: options.step }
-    : { kind: "window", size: options.window ?? 3, step: options.step };
+  const spec = windowSpecOf(options);
   return success({ options, spec, several, pairs: rollPairs(files, options, spec, context) });
+}
+
+/** The windows the options ask for (the rules across options have made sure the sizes are there). */
+function windowSpecOf(options: CommandOptions<"roll">): WindowSpec {
+  const first = options.expanding ? options.minPeriods : options.window;
+  if (first === undefined) throw new Error("rollJob: the window size passed validation without a value");
+  return options.expanding
+    ? { kind: "expanding", minPeriods: first, step: options.step }
+    : { kind: "window", size: first, step: options.step };
 }
 
 async function* rollPairs(
@@ -86,7 +104,7 @@ async function* rollPairs(
         highColumn: load.pair.high,
         errors: load.errors,
       });
-      yield { kind: "failure", document, messages: load.errors.map((e) => ({ severity: "error", text: e.message })) };
+      yield { kind: "failure", errors: load.errors, document, messages: load.errors.map((e) => ({ severity: "error", text: e.message })) };
     } else yield rollPair(load.value, options, spec);
   }
 }
@@ -97,8 +115,13 @@ function rollPair(loaded: PairTable, options: CommandOptions<"roll">, spec: Wind
   const n = sample.low.length;
   if (windowCount(n, spec) === 0) {
     const needed = spec.kind === "window" ? spec.size : spec.minPeriods;
-    const text = `${loaded.source}: ${n} aligned rows are fewer than the ${needed} the first window needs; use a shorter --window or --min-periods`;
-    return { kind: "failure", document: null, messages: [...warnings, { severity: "error", text }] };
+    const text = `${loaded.source}: ${n} aligned rows are fewer than the ${needed} the first window needs; use a shorter window (--window, --min-periods)`;
+    return {
+      kind: "failure",
+      errors: [{ code: "too-few-rows", message: text }],
+      document: null,
+      messages: [...warnings, { severity: "error", text }],
+    };
   }
   const meta: RollMeta = { tool, input: describeInput(loaded, options), spec, weight: options.weight, dates: loaded.table.dates };
   const { low, high, riskFree } = sample;
@@ -115,6 +138,7 @@ function rollPair(loaded: PairTable, options: CommandOptions<"roll">, spec: Wind
     windows,
     columns: () => rollSolveColumns(low, high, riskFree, options.weight, spec),
     uncertaintyAt,
+    record: (window) => rollRecord(meta, window, uncertaintyAt(window)),
     *records() {
       for (const window of windows()) yield rollRecord(meta, window, uncertaintyAt(window));
     },

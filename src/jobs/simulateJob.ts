@@ -4,8 +4,8 @@
  */
 import { periodDates } from "../core/calendar.js";
 import { simulateSample } from "../core/forward/simulate.js";
-import { failure, type Result, success } from "../core/result.js";
-import { type CommandOptions, type CommandOptionsInput, type OptionIssue, optionIssueOf, optionsSchema } from "../options/index.js";
+import { type Result, success } from "../core/result.js";
+import { type CommandOptions, type CommandOptionsInput, type OptionIssue, parseOptions } from "../options/index.js";
 import type { SampleColumns } from "../report/simulatedSample.js";
 
 export interface SimulateJobResult {
@@ -14,9 +14,9 @@ export interface SimulateJobResult {
 }
 
 export function simulateJob(input: CommandOptionsInput<"simulate">): Result<SimulateJobResult, OptionIssue> {
-  const parsed = optionsSchema("simulate").safeParse(input);
-  if (!parsed.success) return failure(optionIssueOf(parsed.error));
-  const options = parsed.data;
+  const parsed = parseOptions("simulate", input);
+  if (!parsed.ok) return parsed;
+  const options = parsed.value;
   const { lowBeta, weight, factorVol, factorMean, lowNoiseVol, highNoiseVol } = options;
   const drawn = simulateSample(
     { lowBeta, weight, factorVol, factorMean, lowNoiseVol, highNoiseVol },

@@ -8,8 +8,8 @@
 import { failure, type Result, success } from "../core/result.js";
 import { solve } from "../core/solve.js";
 import { describeInputWarning } from "../input/index.js";
-import { type CommandOptions, type CommandOptionsInput, type OptionIssue, optionIssueOf, optionsSchema } from "../options/index.js";
-import { toSolveOutput } from "../report/json.js";
+import { type CommandOptions, type CommandOptionsInput, type OptionIssue, parseOptions } from "../options/index.js";
+import { assertJsonSafe, toSolveOutput } from "../report/json.js";
 import { failureOutput, type SolveRecord } from "../report/records.js";
 import type { SolveReport } from "../report/types.js";
 import type { SolveFailureJson, SolveOutputJson } from "../schema/solveOutput.js";
@@ -46,17 +46,18 @@ export interface SolveJobResult {
 
 /** Validates `input` (filling in defaults) and the rules that depend on how many files and pairs there are. */
 export function solveOptions(files: readonly string[], input: CommandOptionsInput<"solve">): Result<SolveJobPlan, OptionIssue> {
-  const parsed = optionsSchema("solve").safeParse(input);
-  if (!parsed.success) return failure(optionIssueOf(parsed.error));
-  const options = parsed.data;
+  const parsed = parseOptions("solve", input);
+  if (!parsed.ok) return parsed;
+  const options = parsed.value;
   const { several } = runShape(files, options);
   if (several && (options.chart !== undefined || options.report !== undefined)) {
     const option = options.chart === undefined ? "report" : "chart";
     const value = options.chart ?? options.report ?? "";
-    return failure({ option, value, message: "draws one file and one pair; run it per pair" });
+    return failure({ code: "options-conflict", option, value, message: "draws one file and one pair; run it per pair" });
   }
   if (several && options.format === "json") {
     return failure({
+      code: "options-conflict",
       option: "format",
       value: "json",
       message: "several files or pairs need --format jsonl (one record per line), csv or text",
@@ -115,7 +116,9 @@ async function solveLoaded(load: PairLoad, options: CommandOptions<"solve">, con
       .map((d) => ({ severity: d.severity === "error" ? ("error" as const) : ("warning" as const), text: `${source}: ${d.message}` })),
   ];
   const record: SolveRecord = { kind: "report", report };
-  return { record, document: toSolveOutput(report), status: solved.value.bounds === null ? "rejected" : "ok", messages };
+  const document = toSolveOutput(report);
+  assertJsonSafe(document); // as the CLI's renderers check: a NaN here is a bug, never a quiet null
+  return { record, document, status: solved.value.bounds === null ? "rejected" : "ok", messages };
 }
 
 function failed(source: string, pair: { low: string; high: string }, errors: readonly { code: string; message: string }[]): SolvedPair {

@@ -6,7 +6,7 @@
  */
 import * as z from "zod/mini";
 import { failure, type Result, success } from "../core/result.js";
-import { closestName } from "../input/suggest.js";
+import { closestName } from "../input/index.js";
 import { textKind } from "./kinds.js";
 import { entriesFor } from "./schemas.js";
 import { type CommandName, type OptionSpec, optionTable } from "./table.js";

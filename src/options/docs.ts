@@ -18,7 +18,8 @@ function flagCell(entry: OptionSpec<unknown>): string {
 function defaultCell(entry: OptionSpec<unknown>): string {
   if (entry.required === true) return "required";
   if (entry.negated === true) return "on";
-  if (entry.default !== undefined) return entry.kind.show(entry.default);
+  const preset = entry.preset === undefined ? "" : ` (${entry.kind.show(entry.preset)} when given without a value)`;
+  if (entry.default !== undefined) return entry.kind.show(entry.default) + preset;
   return entry.otherwise ?? "";
 }
 
@@ -29,23 +30,34 @@ function choicesOf(entry: OptionSpec<unknown>): string {
 
 /** The Markdown table of `command`'s options in `groups` (all groups when none are named). */
 export function optionTableMarkdown(command: CommandName, groups: readonly OptionGroup[] = []): string {
-  const rows = entriesFor(command, { withFlagOnly: true })
+  const entries = entriesFor(command, { withFlagOnly: true });
+  // A config key column only for the commands that read a config file.
+  const configurable = entries.some((entry) => entry.name === "config");
+  const rows = entries
     .filter((entry) => groups.length === 0 || groups.includes(entry.group))
     .map((entry) => {
       const key = entry.flagOnly === true ? "" : `\`${entry.name}\``;
-      return `| \`${cell(flagCell(entry))}\` | ${key} | ${cell(entry.help + choicesOf(entry))} | ${cell(defaultCell(entry))} |`;
+      const cells = [
+        `\`${cell(flagCell(entry))}\``,
+        ...(configurable ? [key] : []),
+        cell(entry.help + choicesOf(entry)),
+        cell(defaultCell(entry)),
+      ];
+      return `| ${cells.join(" | ")} |`;
     });
-  return ["| option | config key | meaning | default |", "| --- | --- | --- | --- |", ...rows].join("\n");
+  const head = configurable ? ["option", "config key", "meaning", "default"] : ["option", "meaning", "default"];
+  return [`| ${head.join(" | ")} |`, `|${" --- |".repeat(head.length)}`, ...rows].join("\n");
 }
 
 const block = /<!-- options: ([a-z]+)(?: ([a-z,]+))? -->\n[\s\S]*?<!-- end options -->/g;
 
-/** `readme` with every options block regenerated. Unknown commands or groups are left as they are. */
+/** `readme` with every options block regenerated; a block naming an unknown command or group is an error. */
 export function updateOptionDocs(readme: string): string {
   return readme.replace(block, (whole, command: string, groupList: string | undefined) => {
-    if (!(commandNames as readonly string[]).includes(command)) return whole;
     const groups = (groupList ?? "").split(",").filter((g) => g !== "");
-    if (!groups.every((g) => g in optionGroups)) return whole;
+    if (!(commandNames as readonly string[]).includes(command) || !groups.every((g) => g in optionGroups)) {
+      throw new Error(`README options block names an unknown command or group: ${whole.split("\n")[0]}`);
+    }
     const head = `<!-- options: ${command}${groupList === undefined ? "" : ` ${groupList}`} -->`;
     return `${head}\n${optionTableMarkdown(command as CommandName, groups as OptionGroup[])}\n<!-- end options -->`;
   });

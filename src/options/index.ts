@@ -1,7 +1,7 @@
 /** The options of every command, defined once (table.ts), and what is generated from them. */
 export { type ConfigContents, type ConfigProblem, parseConfig, pathOptions } from "./config.js";
 export { optionTableMarkdown, updateOptionDocs } from "./docs.js";
-export { type ColumnPair, type GarchCoefficients, type Kind, mustBe } from "./kinds.js";
+export { type ColumnPair, type GarchCoefficients, type Kind, mustBe, refusalOf } from "./kinds.js";
 export {
   type CommandOptions,
   type CommandOptionsInput,
@@ -11,5 +11,6 @@ export {
   type OptionIssue,
   optionIssueOf,
   optionsSchema,
+  parseOptions,
 } from "./schemas.js";
 export { type CommandName, commandNames, type OptionGroup, type OptionSpec, optionGroups, optionTable } from "./table.js";

@@ -5,8 +5,8 @@
  * in a config file and `{ weight: 1.3 }` in a library call are refused in the same words.
  */
 import * as z from "zod/mini";
-import { type NumberRange, numberRule, type Rule } from "../core/parameters.js";
-import { parseDecimal } from "../input/values/numbers.js";
+import { type NumberRange, numberRule, type Rule, refusal } from "../core/parameters.js";
+import { parseDecimal } from "../input/index.js";
 
 /** A kind of value: `parse` reads a flag's text (undefined: not valid); `schema` checks a JSON value. */
 export interface Kind<T> {
@@ -16,12 +16,18 @@ export interface Kind<T> {
   schema(): z.ZodMiniType<T>;
   /** How the value is shown as a default in help and in the README. */
   show(value: T): string;
+  /** The refusal of a flag's text, when the kind can say why this value in particular is refused. */
+  refuse?(text: string): string;
 }
 
 /** The sentence of a refusal: "must be <expected>". */
 export const mustBe = (kind: { readonly expected: string }): string => `must be ${kind.expected}`;
 
-const refine = <T>(rule: Rule<T>) => z.refine<T>(rule.accept, { error: `must be ${rule.expected}` });
+/** The refusal of a flag's text by `kind`: its particular reason when it has one. */
+export const refusalOf = <T>(kind: Kind<T>, text: string): string => kind.refuse?.(text) ?? mustBe(kind);
+
+/** A zod check of `rule`, refusing in the rule's words (with the value's particular reason, if any). */
+const refine = <T>(rule: Rule<T>) => z.refine<T>(rule.accept, { error: (issue) => refusal(rule, issue.input as T) });
 
 /** A finite number following `rule` (from src/core/parameters.ts), or within `range`. */
 export function numberKind(rule: Rule<number> | NumberRange = {}): Kind<number> {
@@ -57,6 +63,7 @@ export function ruledTextKind(rule: Rule<string>): Kind<string> {
     parse: (text) => (rule.accept(text) ? text : undefined),
     schema: () => z.string({ error }).check(refine(rule)),
     show: (value) => value,
+    refuse: (text) => refusal(rule, text),
   };
 }
 

@@ -4,15 +4,12 @@
  * --expanding, ...) are here too, each with its message. Schemas are built on first use, for the
  * command that runs: building every command's up front costs start-up time on every run.
  */
-import en from "zod/v4/locales/en.js";
 import * as z from "zod/mini";
+import { minimumObservations, refusal } from "../core/parameters.js";
+import { failure, type Result, success } from "../core/result.js";
+import { inputRules } from "../input/index.js";
 import type { Kind } from "./kinds.js";
 import { type CommandName, commandNames, type OptionKey, type OptionSpec, type OptionTable, optionTable } from "./table.js";
-
-// zod/mini loads no messages of its own: English ones (only the structural issues use them, such
-// as an unknown key; every value's message comes from its kind); and no compiled fast path, which
-// costs more to build than it saves when each run parses its options once.
-z.config({ ...en(), jitless: true });
 
 type EntriesOf<C extends CommandName> = { [K in OptionKey]: C extends OptionTable[K]["commands"][number] ? K : never }[OptionKey];
 type ValueOf<K extends OptionKey> = OptionTable[K]["kind"] extends Kind<infer T> ? T : never;
@@ -59,6 +56,11 @@ function fieldSchema(entry: OptionSpec<unknown>): z.ZodMiniType {
 /** A rule across options: a zod check on the options object (checked after every value's own rule). */
 type Rule = z.core.$ZodCheck<never>;
 
+/** A rule across options, marked so that its refusal is told apart from a value's. */
+function across<T>(accept: (options: T) => boolean, params: { readonly path: readonly string[]; readonly message: string }): Rule {
+  return z.refine<T>(accept, { path: [...params.path], message: params.message, params: { across: true } }) as Rule;
+}
+
 interface ReaderOptions {
   readonly low?: string | undefined;
   readonly high?: string | undefined;
@@ -72,28 +74,28 @@ interface ReaderOptions {
 /** Rules across options of the commands that read files. */
 function readerRules(): Rule[] {
   return [
-    z.refine<ReaderOptions>((o) => (o.low === undefined) === (o.high === undefined), {
+    across<ReaderOptions>((o) => (o.low === undefined) === (o.high === undefined), {
       path: ["high"],
       message: "--low and --high go together (or use --pair LOW:HIGH)",
     }),
-    z.refine<ReaderOptions>((o) => (o.lows === undefined) === (o.highs === undefined), {
+    across<ReaderOptions>((o) => (o.lows === undefined) === (o.highs === undefined), {
       path: ["highs"],
       message: "--lows and --highs go together",
     }),
-    z.refine<ReaderOptions>((o) => o.low !== undefined || (o.pair?.length ?? 0) > 0 || o.lows !== undefined, {
+    across<ReaderOptions>((o) => o.low !== undefined || (o.pair?.length ?? 0) > 0 || o.lows !== undefined, {
       path: ["low"],
       message: "name the books: --low COLUMN --high COLUMN, or --pair LOW:HIGH, or --lows A,B --highs X,Y",
     }),
-    z.refine<ReaderOptions>((o) => (o.idColumn === undefined) === (o.valueColumn === undefined), {
+    across<ReaderOptions>(inputRules.longLayout.accept, {
       path: ["valueColumn"],
-      message: "the long layout needs both --id-column and --value-column",
+      message: refusal(inputRules.longLayout, {}),
     }),
   ];
 }
 
 /** b_low < 1/w, so that the high book's structural beta is positive. */
 const positiveHighBeta = (): Rule =>
-  z.refine<{ lowBeta: number; weight: number }>((o) => o.lowBeta < 1 / o.weight, {
+  across<{ lowBeta: number; weight: number }>((o) => o.lowBeta < 1 / o.weight, {
     path: ["lowBeta"],
     message: "must be below 1/w so that the high book's beta is positive",
   });
@@ -101,20 +103,20 @@ const positiveHighBeta = (): Rule =>
 const rulesAcross: { readonly [C in CommandName]: () => Rule[] } = {
   solve: () => [
     ...readerRules(),
-    z.refine<CommandOptions<"solve">>((o) => o.intervalSource !== "bootstrap" || o.bootstrap >= 2, {
+    across<CommandOptions<"solve">>((o) => o.intervalSource !== "bootstrap" || o.bootstrap >= 2, {
       path: ["intervalSource"],
       message: "bootstrap standard errors need --bootstrap with at least 2 replicates",
     }),
   ],
   roll: () => [
     ...readerRules(),
-    z.refine<CommandOptions<"roll">>((o) => (o.window === undefined) !== !o.expanding, {
+    across<CommandOptions<"roll">>((o) => (o.window === undefined) !== !o.expanding, {
       path: ["window"],
       message: "give either --window N (a rolling window) or --expanding (with --min-periods N)",
     }),
-    z.refine<CommandOptions<"roll">>((o) => !o.expanding || o.minPeriods !== undefined, {
+    across<CommandOptions<"roll">>((o) => !o.expanding || o.minPeriods !== undefined, {
       path: ["minPeriods"],
-      message: "--expanding needs --min-periods N (at least 3)",
+      message: `--expanding needs --min-periods N (at least ${minimumObservations})`,
     }),
   ],
   implied: () => [positiveHighBeta()],
@@ -135,8 +137,12 @@ export function optionsSchema<C extends CommandName>(command: C): z.ZodMiniType<
   return schema as z.ZodMiniType<CommandOptions<C>, CommandOptionsInput<C>>;
 }
 
-/** A refused option value: the option and why. */
+/**
+ * Refused options: a value its rule refuses (`invalid-value`), a name no option has (`unknown-option`),
+ * or options that do not go together (`options-conflict`).
+ */
 export interface OptionIssue {
+  readonly code: "invalid-value" | "unknown-option" | "options-conflict";
   /** The option's name (camelCase), or "" for the options object as a whole. */
   readonly option: string;
   /** The value refused, when one value is the problem. */
@@ -147,10 +153,21 @@ export interface OptionIssue {
 /** The first problem zod found, as the option it concerns and the message. */
 export function optionIssueOf(error: z.core.$ZodError): OptionIssue {
   const issue = error.issues[0];
-  const option = String(issue?.path[0] ?? "");
-  const message =
-    issue?.code === "unrecognized_keys" ? `unknown option ${issue.keys.map((k) => `"${k}"`).join(", ")}` : (issue?.message ?? "invalid");
-  return { option: issue?.code === "unrecognized_keys" ? "" : option, message };
+  if (issue?.code === "unrecognized_keys") {
+    return { code: "unknown-option", option: "", message: `unknown option ${issue.keys.map((k) => `"${k}"`).join(", ")}` };
+  }
+  const conflict = issue?.code === "custom" && (issue.params as { across?: boolean } | undefined)?.across === true;
+  return {
+    code: conflict ? "options-conflict" : "invalid-value",
+    option: String(issue?.path[0] ?? ""),
+    message: issue?.message ?? "invalid",
+  };
+}
+
+/** `input` checked against `command`'s options, with every default filled in, or the first problem. */
+export function parseOptions<C extends CommandName>(command: C, input: unknown): Result<CommandOptions<C>, OptionIssue> {
+  const parsed = optionsSchema(command).safeParse(input);
+  return parsed.success ? success(parsed.data) : failure(optionIssueOf(parsed.error));
 }
 
 /** The kebab-case flag of an option name: "hacLags" -> "--hac-lags". */

@@ -3,6 +3,7 @@
  * report and their tests use the same words.
  */
 
+import type { SolveOutputJson } from "../schema/solveOutput.js";
 import type { RiskFreeSource, SolveReport } from "./types.js";
 
 /** The model's maintained assumptions, as short sentences (docs/methods.md §1). */
@@ -14,18 +15,8 @@ export const modelAssumptions = [
   "for the expected alphas and the return-implied point only: the factor is the only priced risk, " + "so E[R - rf] = b E[M - rf]",
 ] as const;
 
-/** The `conventions` block of the JSON output. */
-export interface Conventions {
-  readonly units: "decimal, per period";
-  readonly divisor: "n - 1";
-  /** What the returns are in excess of (or that they are raw). */
-  readonly excessReturns: string;
-  readonly marketProxy: "M = w low + (1 - w) high";
-  /** w, the weight of the low book in the market proxy. */
-  readonly marketProxyWeight: number;
-  readonly normalisation: "w b_low + (1 - w) b_high = 1";
-  readonly assumptions: readonly string[];
-}
+/** The `conventions` block of the JSON output (its type is the schema's). */
+export type Conventions = SolveOutputJson["conventions"];
 
 /** Plain words for what the returns were measured in excess of. */
 export function excessReturnBasis(riskFree: RiskFreeSource): string {

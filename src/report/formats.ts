@@ -6,15 +6,12 @@ export type ReportFormat = (typeof reportFormats)[number];
 
 /** solve: a report, or one record per line for several files and pairs (jsonl). */
 export const solveFormats = [...reportFormats, "jsonl"] as const;
-export type SolveFormat = (typeof solveFormats)[number];
 
 /** roll: a table, one CSV row per window, or one JSON record per window. */
 export const rollFormats = ["text", "csv", "jsonl"] as const;
-export type RollFormat = (typeof rollFormats)[number];
 
 /** implied: the report formats of solve. */
 export const impliedFormats = reportFormats;
 
 /** simulate: a CSV that solve reads as it is, or JSON Lines. */
 export const simulateFormats = ["csv", "jsonl"] as const;
-export type SimulateFormat = (typeof simulateFormats)[number];

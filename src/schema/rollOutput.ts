@@ -1,7 +1,7 @@
 /** Zod schema of one `roll --format jsonl` record: solve's field names per window, plus the window. */
 
 import * as z from "zod";
-import { unitChoices } from "../input/options.js";
+import { unitChoices } from "../input/index.js";
 import { boundsSchema, diagnosticSchema, landmarksSchema, momentsSchema } from "./parts.js";
 import type { Document } from "./document.js";
 import { doc } from "./registry.js";

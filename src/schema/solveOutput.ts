@@ -4,7 +4,7 @@
  */
 
 import * as z from "zod";
-import { unitChoices } from "../input/options.js";
+import { unitChoices } from "../input/index.js";
 import { boundsSchema, candidateSchema, diagnosticSchema, landmarksSchema, lineFitSchema, momentsSchema } from "./parts.js";
 import type { Document } from "./document.js";
 import { doc } from "./registry.js";

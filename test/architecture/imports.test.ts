@@ -25,7 +25,11 @@ function specifiers(text: string): string[] {
   return [...new Set(found)];
 }
 
+/** The code of a file without its comments. */
+const codeOf = (text: string): string => text.replace(/\/\*[\s\S]*?\*\//g, "").replace(/^\s*\/\/.*$/gm, "");
+
 const files = sourceFiles(src);
+const code = new Map(files.map((file) => [relative(src, file), codeOf(readFileSync(file, "utf8"))]));
 const graph = new Map<string, { local: string[]; external: string[] }>();
 for (const file of files) {
   const all = specifiers(readFileSync(file, "utf8"));
@@ -79,6 +83,31 @@ describe("the import graph of src/", () => {
         .map((s) => `${file} -> ${s}`),
     );
     expect(misplaced).toEqual([]);
+  });
+
+  it("reaches the input layer and the jobs only through their index.ts from outside", () => {
+    const throughSide = [...graph].flatMap(([file, { local }]) =>
+      local
+        .filter(
+          (p) =>
+            (p.startsWith("input/") && !file.startsWith("input/") && p !== "input/index.ts") ||
+            (p.startsWith("jobs/") && file.startsWith("cli/") && p !== "jobs/index.ts"),
+        )
+        .map((p) => `${file} -> ${p}`),
+    );
+    expect(throughSide).toEqual([]);
+  });
+
+  it("uses no process globals outside cli (the input engines may use Buffer as a data type, for its native search)", () => {
+    const globals = /\b(process\.|setImmediate|setTimeout|setInterval|__dirname|__filename|require\(|Buffer\b|console\.)/;
+    const found = [...code]
+      .filter(([file]) => !file.startsWith("cli/"))
+      .flatMap(([file, text]) => {
+        const hits = [...text.matchAll(new RegExp(globals, "g"))].map((m) => m[1]!);
+        const allowed = file.startsWith("input/engines/") ? hits.filter((h) => h !== "Buffer") : hits;
+        return allowed.map((h) => `${file}: ${h}`);
+      });
+    expect(found).toEqual([]);
   });
 
   it("has no cycles", () => {

@@ -12,12 +12,13 @@ import {
   defaultsFor,
   entriesFor,
   flagOf,
-  mustBe,
   type OptionSpec,
   optionsSchema,
   optionTable,
   parseConfig,
+  refusalOf,
 } from "../../src/options/index.js";
+import { readReturns } from "../../src/input/index.js";
 import { optionTableParts } from "../../src/options/table.js";
 import { fakeIo } from "../cli/fakeIo.js";
 
@@ -133,7 +134,7 @@ describe("one rule, one message", () => {
 
   it.each(cases)("%s: the flag, the config file and the library refuse it in the same words", async (_, key, command, refused) => {
     const entry = optionTable[key as keyof typeof optionTable] as OptionSpec<unknown>;
-    const expected = mustBe(entry.kind);
+    const expected = refusalOf(entry.kind, refused.text);
     // The flag.
     const { io, stderr } = fakeIo({ "m.csv": "date,a,b\n" });
     expect(await run([...baseline[command], `${flagOf(entry.name)}=${refused.text}`], io)).toBe(exitCodes.usage);
@@ -149,5 +150,26 @@ describe("one rule, one message", () => {
       expect(config.ok).toBe(false);
       if (!config.ok) expect(config.issues).toEqual({ at: entry.name, reason: expected });
     }
+  });
+
+  it.each([
+    ["delimiter", '"'],
+    ["dateFormat", "XYZ"],
+    ["block", 0],
+    ["periodsPerYear", -12],
+  ] as const)("the input layer (readReturns) refuses %s = %j in the option table's words", (name, value) => {
+    const entry = entries.find(([, e]) => e.name === name && e.commands.includes("solve"))![1];
+    const read = readReturns("date,a,b\n2024-01-31,0.01,0.02\n", { source: "f.csv", columns: ["a", "b"], [name]: value });
+    expect(read.ok).toBe(false);
+    if (!read.ok)
+      expect(read.issues[0]).toMatchObject({ code: "invalid-option", option: name, reason: refusalOf(entry.kind, String(value)) });
+  });
+
+  it("the long layout's rule is the input layer's, in its words", async () => {
+    const { io, stderr } = fakeIo({ "m.csv": "date,a,b\n" });
+    expect(await run([...baseline.solve, "--id-column", "series"], io)).toBe(exitCodes.usage);
+    const read = readReturns("d,s,v\n", { source: "f.csv", columns: ["a"], idColumn: "s" });
+    expect(read.ok).toBe(false);
+    if (!read.ok) expect(stderr()).toContain((read.issues[0] as { reason: string }).reason);
   });
 });

@@ -2,20 +2,14 @@
  * `--chart` and `--report` for one solved record. The chart modules (and vega behind them) are
  * imported only here, when a chart is asked for, so plain runs never load them.
  */
+import type { CommandOptions } from "../../options/index.js";
 import type { SolveReport } from "../../report/types.js";
-import { exitCodes, type ExitCode } from "../runtime/exitCodes.js";
-import type { CliIo } from "../runtime/io.js";
 import { describeCliIssue } from "../messages.js";
+import { type ExitCode, exitCodes } from "../runtime/exitCodes.js";
+import type { CliIo } from "../runtime/io.js";
 
-import type { ChartY } from "../../report/charts/chartOptions.js";
-
-export { chartYChoices } from "../../report/charts/chartOptions.js";
-
-export interface ChartRequest {
-  readonly chart?: string | undefined;
-  readonly chartY: ChartY;
-  readonly report?: string | undefined;
-}
+/** What solve's options ask to draw. */
+export type ChartRequest = Pick<CommandOptions<"solve">, "chart" | "chartY" | "report">;
 
 /** Renders and writes the requested chart and HTML report; returns the exit code of the writing. */
 export async function writeCharts(report: SolveReport, request: ChartRequest, io: CliIo): Promise<ExitCode> {

@@ -3,7 +3,7 @@
  * `solve` estimates (population values), with the same report formats and JSON field names.
  */
 import { Command } from "commander";
-import { impliedJob } from "../../jobs/impliedJob.js";
+import { impliedJob } from "../../jobs/index.js";
 import type { CommandOptionsInput } from "../../options/index.js";
 import { renderImplied } from "../../report/impliedReport.js";
 import { addTableOptions } from "../commandOptions.js";

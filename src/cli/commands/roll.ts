@@ -5,8 +5,7 @@
  */
 import { Command } from "commander";
 import type { WindowSolution } from "../../core/rolling/index.js";
-import type { RolledPair, RollJob } from "../../jobs/index.js";
-import { rollJob } from "../../jobs/rollJob.js";
+import { type RolledPair, type RollJob, rollJob, runShape } from "../../jobs/index.js";
 import type { CommandOptionsInput } from "../../options/index.js";
 import { styleFor } from "../../report/layout.js";
 import { rollChartPoints, rollCsvHeader, rollTextLines, windowWords, writeRollCsv } from "../../report/rollReport.js";
@@ -15,7 +14,6 @@ import { withConfig } from "../config.js";
 import { usage, waitsOnTerminal, wantsColour } from "../emit.js";
 import { jobContext } from "../jobContext.js";
 import { describeCliIssue, describeOptionIssue } from "../messages.js";
-import { runShape } from "../../jobs/pairTables.js";
 import { type ExitCode, exitCodes } from "../runtime/exitCodes.js";
 import type { CliIo, OutputSink } from "../runtime/io.js";
 
@@ -59,15 +57,15 @@ async function writePair(pair: RolledPair, job: RollJob, sink: OutputSink, io: C
     kept = listed;
   } else if (options.format === "jsonl") {
     let chunk = "";
-    for (const record of pair.records()) {
-      chunk += `${JSON.stringify(record)}\n`;
+    for (const window of pair.windows()) {
+      chunk += `${JSON.stringify(pair.record(window))}\n`;
       if (chunk.length > 1 << 20) {
         sink.write(chunk);
         chunk = "";
       }
+      if (chart) kept.push(window);
     }
     sink.write(chunk);
-    if (chart) kept = [...pair.windows()];
   } else {
     kept = [...pair.windows()];
     const intervals = options.uncertainty ? kept.map((w) => pair.uncertaintyAt(w)) : null;

@@ -4,7 +4,7 @@
  * same bytes.
  */
 import { Command } from "commander";
-import { simulateJob } from "../../jobs/simulateJob.js";
+import { simulateJob } from "../../jobs/index.js";
 import type { CommandOptionsInput } from "../../options/index.js";
 import { sampleCsv, sampleJsonLines } from "../../report/simulatedSample.js";
 import { addTableOptions } from "../commandOptions.js";

@@ -5,9 +5,7 @@
  */
 import { availableParallelism } from "node:os";
 import { Command } from "commander";
-import { defaultThreads, type PairStatus } from "../../jobs/index.js";
-import { runShape } from "../../jobs/pairTables.js";
-import { solveOptions, solvePlanned } from "../../jobs/solveJob.js";
+import { defaultThreads, type PairStatus, runShape, solveOptions, solvePlanned } from "../../jobs/index.js";
 import type { CommandOptionsInput } from "../../options/index.js";
 import { renderJsonLines, renderRecordsCsv, renderRecordsText } from "../../report/records.js";
 import { renderReport } from "../../report/render.js";

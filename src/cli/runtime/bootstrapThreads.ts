@@ -8,9 +8,7 @@ import { createRequire } from "node:module";
 import { fileURLToPath } from "node:url";
 import type { Worker } from "node:worker_threads";
 import type { BootstrapData, BootstrapRange } from "../../core/inference/bootstrap/replicates.js";
-import { inThisThread } from "../../jobs/bootstrapStep.js";
-import type { BootstrapExecutor } from "../../jobs/context.js";
-import type { BootstrapChunk } from "./bootstrapWorker.js";
+import { type BootstrapChunk, type BootstrapExecutor, inThisThread } from "../../jobs/index.js";
 
 /** The worker script next to the bundled CLI; absent when running from source (tests), then 1 thread. */
 const workerUrl = new URL("./bootstrapWorker.js", import.meta.url);

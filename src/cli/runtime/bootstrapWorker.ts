@@ -3,15 +3,8 @@
  * Each replicate has its own random stream (seed, r + 1), so the split never changes the result.
  */
 import { parentPort } from "node:worker_threads";
-import { bootstrapRange, type BootstrapData } from "../../core/inference/bootstrap/replicates.js";
-
-export interface BootstrapChunk {
-  readonly data: BootstrapData;
-  readonly blockLength: number;
-  readonly seed: number;
-  readonly from: number;
-  readonly to: number;
-}
+import { bootstrapRange } from "../../core/inference/bootstrap/replicates.js";
+import type { BootstrapChunk } from "../../jobs/index.js";
 
 parentPort?.on("message", (task: BootstrapChunk) => {
   const range = bootstrapRange(task.data, { blockLength: task.blockLength, seed: task.seed }, task.from, task.to);

@@ -38,7 +38,7 @@ import { excessReturns } from "./bootstrap/replicates.js";
 import { crossProducts } from "../moments.js";
 import type { ReturnSample } from "../types.js";
 import type { Uncertainty, PointwiseBound, BetaInterval, CapmHac } from "./uncertaintyTypes.js";
-import { assertParameter, defaultWeight } from "../parameters.js";
+import { assertParameter, defaultBlockLength, defaultSeed, defaultWeight } from "../parameters.js";
 
 /** Standard errors need this many observations; with fewer, none are reported. */
 export const minimumForUncertainty = 10;
@@ -87,8 +87,8 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
       : replicates > 0
         ? bootstrapSolve(sample.low, sample.high, sample.riskFree, weight, {
             replicates,
-            blockLength: options.bootstrap?.blockLength ?? "auto",
-            seed: options.bootstrap?.seed ?? 1,
+            blockLength: options.bootstrap?.blockLength ?? defaultBlockLength,
+            seed: options.bootstrap?.seed ?? defaultSeed,
             confidence,
           })
         : null;

@@ -11,7 +11,7 @@
  * - `{ kind: "expanding", minPeriods, step }`: rows [0, e] for e = minPeriods - 1, minPeriods - 1 + step, ...
  */
 
-import { minimumObservations } from "../solve.js";
+import { assertParameter } from "../parameters.js";
 
 /** Which windows to compute. `step` is the distance between consecutive windows' ends (and starts). */
 export type WindowSpec =
@@ -27,10 +27,6 @@ export function windowCount(length: number, spec: WindowSpec): number {
 
 /** Throws a RangeError (a programming error) for a window smaller than the minimum or a step below 1. */
 export function checkSpec(spec: WindowSpec): void {
-  const first = spec.kind === "window" ? spec.size : spec.minPeriods;
-  const name = spec.kind === "window" ? "size" : "minPeriods";
-  if (!(Number.isInteger(first) && first >= minimumObservations)) {
-    throw new RangeError(`rolling: ${name} must be an integer >= ${minimumObservations}, got ${first}`);
-  }
-  if (!(Number.isInteger(spec.step) && spec.step >= 1)) throw new RangeError(`rolling: step must be an integer >= 1, got ${spec.step}`);
+  assertParameter("rolling", "windowLength", spec.kind === "window" ? spec.size : spec.minPeriods);
+  assertParameter("rolling", "windowStep", spec.step);
 }

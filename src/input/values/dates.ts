@@ -3,6 +3,7 @@
  * ("2020-03-31", "2020-03", "2020", "2020-03-31T09:30:00Z") and a sort key: milliseconds since
  * 1970-01-01 UTC at the start of the period (date-times with an offset are converted to UTC).
  */
+import { DAY_MS } from "../../core/calendar.js";
 
 /** One parsed date: normalised ISO text and its sort key. */
 export interface ParsedDate {
@@ -34,7 +35,7 @@ const pad = (n: number, width = 2): string => String(n).padStart(width, "0");
 const isLeap = (year: number): boolean => year % 4 === 0 && (year % 100 !== 0 || year % 400 === 0);
 export const daysInMonth = (year: number, month: number): number =>
   (MONTH_DAYS[month - 1] as number) + (month === 2 && isLeap(year) ? 1 : 0);
-export const DAY_MS = 86_400_000;
+export { DAY_MS };
 
 /** A calendar date from numeric parts, or null when it does not exist (e.g. 2021-02-29). */
 export function calendarDate(year: number, month: number, day?: number): ParsedDate | null {

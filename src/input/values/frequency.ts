@@ -1,5 +1,5 @@
 /** Sampling frequency from the spacing of dates (the one table: src/core/calendar.ts), and a linear-time median. */
-import { type FrequencyName, frequencies, frequencyTable } from "../../core/calendar.js";
+import { DAY_MS, type FrequencyName, frequencies, frequencyTable } from "../../core/calendar.js";
 
 export type { FrequencyName };
 
@@ -10,8 +10,6 @@ export interface DetectedFrequency {
   /** "detected" from the median gap between dates, or "option" when the caller set periodsPerYear. */
   readonly from: "detected" | "option";
 }
-
-const DAY_MS = 86_400_000;
 
 /** Median gap (days) ranges per frequency, with its periods per year. */
 const BANDS: readonly (readonly [FrequencyName, number, number, number])[] = frequencies.map((name) => {

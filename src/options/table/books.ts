@@ -1,7 +1,7 @@
 /** Which books, and how to read the files (entries of the option table, table.ts). */
 import { choiceKind, columnOrNumberKind, nameListKind, numberKind, pairListKind, ruledTextKind, switchKind, textKind } from "../kinds.js";
 import { option, readers } from "../spec.js";
-import { inputKinds, inputRules, missingPolicies, unitChoices } from "../../input/options.js";
+import { inputKinds, inputRules, missingPolicies, unitChoices } from "../../input/index.js";
 
 export const inputOptions = {
   // ---- the books ----------------------------------------------------------------------------

@@ -2,18 +2,18 @@
 import { choiceKind, garchKind, isoDateKind, nameListKind, numberKind, switchKind } from "../kinds.js";
 import { option, structureCommands } from "../spec.js";
 import { frequencies } from "../../core/calendar.js";
-import { integerRule, parameters } from "../../core/parameters.js";
+import { defaultSeed, integerRule, parameters } from "../../core/parameters.js";
 
 export const generatorOptions = {
   // ---- windows -----------------------------------------------------------------------------
-  window: option(numberKind(integerRule(3, 100_000_000)), {
+  window: option(numberKind(parameters.windowLength), {
     name: "window",
     argument: "<n>",
     help: "rolling window length in periods",
     group: "windows",
     commands: ["roll"],
   }),
-  step: option(numberKind(integerRule(1, 100_000_000)), {
+  step: option(numberKind(parameters.windowStep), {
     name: "step",
     argument: "<k>",
     help: "periods between consecutive windows",
@@ -28,7 +28,7 @@ export const generatorOptions = {
     commands: ["roll"],
     default: false,
   }),
-  minPeriods: option(numberKind(integerRule(3, 100_000_000)), {
+  minPeriods: option(numberKind(parameters.windowLength), {
     name: "minPeriods",
     argument: "<n>",
     help: "with --expanding: the first window's length",
@@ -108,6 +108,14 @@ export const generatorOptions = {
     group: "simulation",
     commands: ["simulate"],
     default: "2000-01-01",
+  }),
+  simulationSeed: option(numberKind(parameters.seed), {
+    name: "seed",
+    argument: "<n>",
+    help: "seed of the random streams: the same seed gives the same sample",
+    group: "simulation",
+    commands: ["simulate"],
+    default: defaultSeed,
   }),
   tails: option(numberKind(parameters.tails), {
     name: "tails",

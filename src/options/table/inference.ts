@@ -12,7 +12,7 @@ import {
   intervalSources,
   longRunMethods,
 } from "../../core/inference/options.js";
-import { defaultConfidence, integerRule, parameters } from "../../core/parameters.js";
+import { defaultBlockLength, defaultConfidence, defaultReplicates, defaultSeed, integerRule, parameters } from "../../core/parameters.js";
 
 export const inferenceOptions = {
   // ---- uncertainty -------------------------------------------------------------------------
@@ -105,11 +105,11 @@ export const inferenceOptions = {
   bootstrap: option(numberKind(parameters.replicates), {
     name: "bootstrap",
     argument: "[replicates]",
-    help: "stationary bootstrap (Politis-Romano 1994) of every headline number, with this many replicates (2000 when no number is given; 0 = off)",
+    help: "stationary bootstrap (Politis-Romano 1994) of every headline number, with this many replicates (0: none)",
     group: "bootstrap",
     commands: ["solve"],
     default: 0,
-    preset: 2000,
+    preset: defaultReplicates,
   }),
   blockLength: option(autoOrNumberKind(parameters.blockLength), {
     name: "blockLength",
@@ -117,15 +117,15 @@ export const inferenceOptions = {
     help: "mean block length of the bootstrap; auto: Politis-White (2004) with the Patton-Politis-White (2009) correction",
     group: "bootstrap",
     commands: ["solve"],
-    default: "auto",
+    default: defaultBlockLength,
   }),
   seed: option(numberKind(parameters.seed), {
     name: "seed",
     argument: "<n>",
-    help: "seed of the random streams: the same seed gives the same result, whatever --threads",
+    help: "seed of the bootstrap's random streams: the same seed gives the same intervals, whatever --threads",
     group: "bootstrap",
-    commands: ["solve", "simulate"],
-    default: 1,
+    commands: ["solve"],
+    default: defaultSeed,
   }),
   threads: option(numberKind(integerRule(1, 256)), {
     name: "threads",

@@ -9,6 +9,7 @@
  */
 
 import type { Mark, Spec } from "vega";
+import { DAY_MS } from "../../core/calendar.js";
 import {
   assumptionsLine,
   cautionCaption,
@@ -119,7 +120,7 @@ export function rollChartSpec(windows: readonly RollWindowPoint[], meta: RollCha
   const pad = hi > lo ? 0.08 * (hi - lo) : Math.max(0.05 * Math.abs(lo), 0.01);
   const first = rows[0]!;
   const last = rows[rows.length - 1]!;
-  const xDomain = first.t === last.t ? [first.t - 86_400_000 * 15, last.t + 86_400_000 * 15] : [first.t, last.t];
+  const xDomain = first.t === last.t ? [first.t - DAY_MS * 15, last.t + DAY_MS * 15] : [first.t, last.t];
 
   const hasInterval = intervalBand.length > 0;
   const legend: LegendEntry[] = [
