@@ -16,7 +16,7 @@ export async function withConfig(
   name: CommandName,
   files: readonly string[],
   io: CliIo,
-): Promise<Result<{ files: string[]; options: Record<string, unknown> }, CliIssue>> {
+): Promise<Result<{ files: string[]; options: Record<string, unknown>; configFile?: string }, CliIssue>> {
   const options: Record<string, unknown> = { ...command.opts() };
   const path = options.config;
   delete options.config;
@@ -32,5 +32,5 @@ export async function withConfig(
     if (command.getOptionValueSource(key) === "cli") continue;
     options[key] = paths.has(key) && typeof value === "string" ? relative(value) : value;
   }
-  return success({ files: files.length > 0 ? [...files] : (contents.value.files ?? []).map(relative), options });
+  return success({ files: files.length > 0 ? [...files] : (contents.value.files ?? []).map(relative), options, configFile: path });
 }

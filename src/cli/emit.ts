@@ -1,16 +1,16 @@
 /** Writes a command's output to standard output, or atomically to `--output`, and says how it went. */
+import { type CliIssue, describeCliIssue } from "./messages.js";
 import { exitCodes, type ExitCode } from "./runtime/exitCodes.js";
-import type { CliIo } from "./runtime/io.js";
-import { describeCliIssue } from "./messages.js";
+import { type CliIo, writeOutput } from "./runtime/io.js";
 
 export async function emit(io: CliIo, output: string | undefined, text: string): Promise<ExitCode> {
-  if (output === undefined) {
-    io.writeOut(text);
-    return exitCodes.ok;
-  }
-  const written = await io.writeOutput(output, text);
-  if (written.ok) return exitCodes.ok;
-  io.writeErr(`error: ${describeCliIssue(written.issues)}\n`);
+  const written = await writeOutput(io, output, text);
+  return written.ok ? exitCodes.ok : outputFailed(io, written.issues);
+}
+
+/** Reports an output that could not be written and gives its exit code. */
+export function outputFailed(io: CliIo, issue: CliIssue): ExitCode {
+  io.writeErr(`error: ${describeCliIssue(issue)}\n`);
   return exitCodes.output;
 }
 

@@ -32,3 +32,9 @@ export {
   type InputWarning,
   type ColumnRole,
 } from "./issues.js";
+
+/**
+ * The largest input, file or standard input, in bytes: 2 GiB - 1, the most a single buffer here may
+ * hold whole (the reader works on the whole input at once). Larger inputs are refused up front.
+ */
+export const maximumInputBytes = 2 ** 31 - 1;

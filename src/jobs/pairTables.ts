@@ -85,13 +85,16 @@ export function joinedSides(files: readonly string[], options: ReadingOptions): 
 
 /**
  * How a run reads: `joined` when the two books come from their own files, and `several` when more than
- * one (file, pair) is asked for (outputs are then lists of records).
+ * one (file, pair) is asked for (outputs are then lists of records); `reads`, every file it reads
+ * ("-": standard input).
  */
 export function runShape(files: readonly string[], options: ReadingOptions & Parameters<typeof pairsFrom>[0]) {
-  const joined = joinedSides(files, options) !== null;
+  const sides = joinedSides(files, options);
+  const joined = sides !== null;
   return {
     joined,
     several: !joined && Math.max(files.length, 1) * pairsFrom(options).length > 1,
+    reads: sides !== null ? [sides.low.file, sides.high.file] : files.length === 0 ? ["-"] : [...files],
   };
 }
 

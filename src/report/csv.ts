@@ -45,6 +45,16 @@ export function csvField(text: string): string {
   return /[",\r\n]/.test(text) ? `"${text.replaceAll('"', '""')}"` : text;
 }
 
+/**
+ * A text cell that came from outside (a file, column or series name): one that a spreadsheet would
+ * run as a formula (it begins with =, +, -, @, a tab or a carriage return) gets a leading apostrophe
+ * and quotes, as the OWASP guidance on CSV injection advises; then RFC 4180 quoting. Numbers are never
+ * passed here: they are written as they are.
+ */
+export function csvText(text: string): string {
+  return /^[=+\-@\t\r]/.test(text) ? `"'${text.replaceAll('"', '""')}"` : csvField(text);
+}
+
 function cellText(value: Cell): string {
   if (value === null) return "";
   return typeof value === "boolean" ? String(value) : exactNumber(value);
@@ -52,7 +62,7 @@ function cellText(value: Cell): string {
 
 /** One CSV line (without the line end) for a named candidate, in the order of `csvHeader`. */
 export function candidateRow(point: string, candidate: Candidate): string {
-  return [point, ...candidateColumns.map(([, value]) => cellText(value(candidate)))].map(csvField).join(",");
+  return [csvText(point), ...candidateColumns.map(([, value]) => csvField(cellText(value(candidate))))].join(",");
 }
 
 /** A CSV table of named candidates: the header, then one row per (point, candidate). */

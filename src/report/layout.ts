@@ -49,9 +49,12 @@ export function table(spec: TableSpec): string[] {
   const headerLines = spec.header.map((h) => h.split("\n"));
   const height = Math.max(...headerLines.map((lines) => lines.length));
   const cell = (row: readonly string[], i: number): string => row[i] ?? "";
-  const widths = spec.header.map((_, i) =>
-    Math.max(...headerLines[i]!.map((line) => line.length), ...spec.rows.map((row) => cell(row, i).length)),
-  );
+  // A loop, not Math.max(...rows): a table of a million rows would overflow the call stack.
+  const widths = spec.header.map((_, i) => {
+    let width = Math.max(...headerLines[i]!.map((line) => line.length));
+    for (const row of spec.rows) width = Math.max(width, cell(row, i).length);
+    return width;
+  });
   const line = (row: readonly string[]): string =>
     (indent + row.map((text, i) => (i === 0 ? text.padEnd(widths[i]!) : text.padStart(widths[i]!))).join("  ")).trimEnd();
   const out: string[] = [];

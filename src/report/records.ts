@@ -4,7 +4,7 @@
  * landmark rows of every record, prefixed by its file and pair) and text (the reports in order).
  */
 
-import { candidateRow, csvField, csvHeader, namedCandidates } from "./csv.js";
+import { candidateRow, csvField, csvHeader, csvText, namedCandidates } from "./csv.js";
 import { assertJsonSafe, schemaVersion, toSolveOutput } from "./json.js";
 import type { SolveFailureJson } from "../schema/solveOutput.js";
 import { renderText } from "./text/text.js";
@@ -50,7 +50,7 @@ export function renderRecordsCsv(records: readonly SolveRecord[]): string {
   for (const record of records) {
     if (record.kind !== "report" || record.report.solution.bounds === null) continue;
     const { input, solution } = record.report;
-    const prefix = [input.source, input.lowColumn, input.highColumn].map(csvField).join(",");
+    const prefix = [input.source, input.lowColumn, input.highColumn].map(csvText).join(",");
     for (const [point, candidate] of namedCandidates(solution.grid, solution.landmarks))
       lines.push(`${prefix},${candidateRow(point, candidate)}`);
   }

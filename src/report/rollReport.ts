@@ -10,7 +10,7 @@ import { momentsFromSummary } from "../core/summaryMoments.js";
 import { defaultConfidence } from "../core/parameters.js";
 import type { RollOutputJson } from "../schema/rollOutput.js";
 import type { RollWindowPoint } from "./charts/rollChart.js";
-import { csvField } from "./csv.js";
+import { csvText } from "./csv.js";
 import { formatNumber } from "./format.js";
 import { assertJsonSafe, schemaVersion } from "./json.js";
 import { fields, indent, table, type Style } from "./layout.js";
@@ -49,14 +49,17 @@ export function rollCsvHeader(withUncertainty: boolean): string {
 
 const cell = (x: number): string => (Number.isNaN(x) ? "" : String(x));
 
-/** CSV rows of every window; an empty field where a quantity is undefined (no set, no CAPM fit). */
-export function writeRollCsv(
+/**
+ * CSV rows of every window, handed to `write` about a megabyte at a time (awaited: the writer may hold
+ * back a fast producer); an empty field where a quantity is undefined (no set, no CAPM fit).
+ */
+export async function writeRollCsv(
   meta: RollMeta,
   columns: WindowColumns,
   uncertainty: ((k: number) => WindowUncertainty | null) | null,
-  write: (text: string) => void,
-): void {
-  const prefix = [meta.input.source, meta.input.lowColumn, meta.input.highColumn].map(csvField).join(",");
+  write: (text: string) => Promise<void>,
+): Promise<void> {
+  const prefix = [meta.input.source, meta.input.lowColumn, meta.input.highColumn].map(csvText).join(",");
   const series = windowColumnNames.map((name) => columns.columns[name]);
   let chunk = "";
   for (let k = 0; k < columns.count; k++) {
@@ -79,11 +82,11 @@ export function writeRollCsv(
     }
     chunk += `${line}\n`;
     if (chunk.length > 1 << 20) {
-      write(chunk);
+      await write(chunk);
       chunk = "";
     }
   }
-  if (chunk !== "") write(chunk);
+  if (chunk !== "") await write(chunk);
 }
 
 /** The points of the roll chart: each window's end date, bounds, CAPM beta and interval. */

@@ -3,7 +3,7 @@
  * object a date). Numbers are written at full precision (the shortest text that reads back to the
  * same double) unless a number of decimals is asked for (a realistic export).
  */
-import { csvField } from "./csv.js";
+import { csvText } from "./csv.js";
 
 export interface SampleColumns {
   readonly dates: readonly string[];
@@ -24,7 +24,7 @@ function formatter(digits: number | undefined): (x: number) => string {
 
 export function sampleCsv(sample: SampleColumns, digits?: number): string {
   const format = formatter(digits);
-  const lines = [sample.names.map(csvField).join(",")];
+  const lines = [sample.names.map(csvText).join(",")];
   for (let t = 0; t < sample.dates.length; t++) lines.push(`${sample.dates[t]},${format(sample.low[t]!)},${format(sample.high[t]!)}`);
   return `${lines.join("\n")}\n`;
 }

@@ -19,28 +19,25 @@ export function fakeIo(
         ? failure({ code: "read-failed", path, reason: "no such file or directory" })
         : success(new TextEncoder().encode(text));
     },
-    writeOutput: async (path, text) => {
-      if (path.startsWith("/unwritable/")) return failure({ code: "write-failed", path, reason: "permission denied" });
-      written.set(path, text);
-      return success(undefined);
-    },
     stdoutIsTerminal: settings.stdoutIsTerminal ?? false,
     stdinIsTerminal: settings.stdinIsTerminal ?? false,
     stderrIsTerminal: settings.stderrIsTerminal ?? false,
     now: settings.now ?? (() => 0),
-    openSink: (path) => {
+    openOutput: (path) => {
       if (path?.startsWith("/unwritable/")) return failure({ code: "write-failed", path, reason: "permission denied" });
       const chunks: string[] = [];
       return success({
-        write: (text) => void chunks.push(text),
-        close: () => {
+        write: async (text) => void chunks.push(text),
+        commit: async () => {
           if (path === undefined) out.push(chunks.join(""));
           else written.set(path, chunks.join(""));
           return success(undefined);
         },
-        discard: () => undefined,
+        abort: () => undefined,
       });
     },
+    // Files are named by their path here: two paths name one file only when they are equal.
+    identify: (path) => ({ key: path, device: path.startsWith("/dev/") }),
     env: settings.env ?? {},
     loadVega: importVega,
   };

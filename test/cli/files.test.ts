@@ -1,9 +1,9 @@
-/** The CLI's file access (src/cli/runtime/files.ts): reads, large reads into the row kernel's memory, atomic writes. */
-import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from "node:fs";
+/** The CLI's file access (src/cli/runtime/files.ts): reads, large reads into the row kernel's memory, the size limit. */
+import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
-import { readInputBytes, writeFileAtomic } from "../../src/cli/runtime/files.js";
+import { readInputBytes } from "../../src/cli/runtime/files.js";
 import { rowKernelFor } from "../../src/input/engines/rowKernel.js";
 
 const scratch = mkdtempSync(join(tmpdir(), "betabound-files-"));
@@ -37,20 +37,19 @@ describe("readInputBytes", () => {
   });
 });
 
-describe("writeFileAtomic", () => {
-  it("writes the text, and leaves no temporary file behind", async () => {
-    const dir = mkdtempSync(join(scratch, "out-"));
-    const path = join(dir, "report.json");
-    expect((await writeFileAtomic(path, "{}\n")).ok).toBe(true);
-    expect(readFileSync(path, "utf8")).toBe("{}\n");
-    expect(readdirSync(dir)).toEqual(["report.json"]);
+describe("the input size limit", () => {
+  it("refuses a file over the limit before reading it, naming its size and the limit", async () => {
+    const path = join(scratch, "over.csv");
+    const text = "Date,A\n2020-01-31,1\n";
+    writeFileSync(path, text);
+    const read = await readInputBytes(path, 10);
+    expect(read.ok).toBe(false);
+    if (!read.ok) expect(read.issues).toEqual({ code: "input-too-large", path, size: text.length, limit: 10 });
   });
 
-  it("fails on a path that cannot be written, leaving nothing behind", async () => {
-    const dir = mkdtempSync(join(scratch, "bad-"));
-    const written = await writeFileAtomic(join(dir, "no-such-folder", "report.json"), "{}\n");
-    expect(written.ok).toBe(false);
-    if (!written.ok) expect(written.issues).toMatchObject({ code: "write-failed" });
-    expect(readdirSync(dir)).toEqual([]);
+  it("reads a file exactly at the limit", async () => {
+    const path = join(scratch, "at.csv");
+    writeFileSync(path, "Date,A\n");
+    expect((await readInputBytes(path, 7)).ok).toBe(true);
   });
 });

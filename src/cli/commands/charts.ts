@@ -6,7 +6,7 @@ import type { CommandOptions } from "../../options/index.js";
 import type { SolveReport } from "../../report/types.js";
 import { describeCliIssue } from "../messages.js";
 import { type ExitCode, exitCodes } from "../runtime/exitCodes.js";
-import type { CliIo } from "../runtime/io.js";
+import { type CliIo, writeOutput } from "../runtime/io.js";
 
 /** What solve's options ask to draw. */
 export type ChartRequest = Pick<CommandOptions<"solve">, "chart" | "chartY" | "report">;
@@ -33,12 +33,12 @@ export async function writeCharts(report: SolveReport, request: ChartRequest, io
     io.loadVega,
   );
   if (request.chart !== undefined) {
-    const written = await io.writeOutput(request.chart, svg);
+    const written = await writeOutput(io, request.chart, svg);
     if (!written.ok) return fail(io, written.issues);
   }
   if (request.report !== undefined) {
     const { renderHtmlReport } = await import("../../report/charts/htmlReport.js");
-    const written = await io.writeOutput(request.report, renderHtmlReport(report, { identifiedSet: svg }));
+    const written = await writeOutput(io, request.report, renderHtmlReport(report, { identifiedSet: svg }));
     if (!written.ok) return fail(io, written.issues);
   }
   return exitCodes.ok;

@@ -11,41 +11,80 @@ import { styleFor } from "../../report/layout.js";
 import { rollChartPoints, rollCsvHeader, rollTextLines, windowWords, writeRollCsv } from "../../report/rollReport.js";
 import { addTableOptions } from "../commandOptions.js";
 import { withConfig } from "../config.js";
-import { usage, waitsOnTerminal, wantsColour } from "../emit.js";
+import { outputFailed, usage, waitsOnTerminal, wantsColour } from "../emit.js";
 import { jobContext } from "../jobContext.js";
 import { describeCliIssue, describeOptionIssue } from "../messages.js";
 import { type ExitCode, exitCodes } from "../runtime/exitCodes.js";
-import type { CliIo, OutputSink } from "../runtime/io.js";
+import { type CliIo, type OutputTarget, writeOutput } from "../runtime/io.js";
+import { outputClash } from "../outputPaths.js";
 
-export async function runRoll(files: readonly string[], flags: Readonly<Record<string, unknown>>, io: CliIo): Promise<ExitCode> {
+export async function runRoll(
+  files: readonly string[],
+  flags: Readonly<Record<string, unknown>>,
+  io: CliIo,
+  configFile?: string,
+): Promise<ExitCode> {
   const job = rollJob(files, flags as CommandOptionsInput<"roll">, jobContext(io));
   if (!job.ok) return usage(io, describeOptionIssue(job.issues));
   const { options, several } = job.value;
-  if (waitsOnTerminal(io, files, runShape(files, options))) return usage(io, describeCliIssue({ code: "no-input" }));
-  const sink = io.openSink(options.output);
-  if (!sink.ok) {
-    io.writeErr(`error: ${describeCliIssue(sink.issues)}\n`);
-    return exitCodes.output;
-  }
+  const shape = runShape(files, options);
+  if (waitsOnTerminal(io, files, shape)) return usage(io, describeCliIssue({ code: "no-input" }));
+  const clash = outputClash(io, configFile === undefined ? shape.reads : [...shape.reads, configFile], options);
+  if (clash !== null) return usage(io, describeCliIssue(clash));
+  // Nothing is written, to a file or to standard output, before a pair has been read and solved:
+  // failure records wait for the first success (a run where every pair fails writes nothing).
+  let target: OutputTarget | null = null;
+  const waiting: string[] = [];
   const codes: ExitCode[] = [];
-  if (options.format === "csv") sink.value.write(rollCsvHeader(options.uncertainty));
-  for await (const pair of job.value.pairs) {
-    for (const message of pair.messages) io.writeErr(`${message.severity}: ${message.text}\n`);
-    if (pair.kind === "failure") {
-      if (options.format === "jsonl" && pair.document !== null) sink.value.write(`${JSON.stringify(pair.document)}\n`);
-      codes.push(exitCodes.input);
-    } else codes.push(await writePair(pair, job.value, sink.value, io));
-  }
-  const closed = sink.value.close();
-  if (!closed.ok) {
-    io.writeErr(`error: ${describeCliIssue(closed.issues)}\n`);
-    return exitCodes.output;
+  try {
+    for await (const pair of job.value.pairs) {
+      for (const message of pair.messages) io.writeErr(`${message.severity}: ${message.text}\n`);
+      if (pair.kind === "failure") {
+        const record = options.format === "jsonl" && pair.document !== null ? `${JSON.stringify(pair.document)}\n` : "";
+        if (target === null) waiting.push(record);
+        else await target.write(record);
+        codes.push(exitCodes.input);
+        continue;
+      }
+      if (target === null) {
+        const opened = io.openOutput(options.output);
+        if (!opened.ok) return outputFailed(io, opened.issues);
+        // The header and waiting records go out with the first windows (a reader sees a whole row).
+        const lead = (options.format === "csv" ? rollCsvHeader(options.uncertainty) : "") + waiting.join("");
+        target = leading(opened.value, lead);
+      }
+      codes.push(await writePair(pair, job.value, target, io));
+    }
+    if (target !== null) {
+      const committed = await target.commit();
+      if (!committed.ok) return outputFailed(io, committed.issues);
+    }
+  } finally {
+    target?.abort();
   }
   if (!several) return codes[0] ?? exitCodes.input;
+  if (codes.every((c) => c === exitCodes.input)) return exitCodes.input;
   return codes.every((c) => c === exitCodes.ok) ? exitCodes.ok : exitCodes.partial;
 }
 
-async function writePair(pair: RolledPair, job: RollJob, sink: OutputSink, io: CliIo): Promise<ExitCode> {
+/** `target` with `lead` written before the first text written to it. */
+function leading(target: OutputTarget, lead: string): OutputTarget {
+  let first = lead;
+  return {
+    ...target,
+    write(text) {
+      const whole = first + text;
+      first = "";
+      return target.write(whole);
+    },
+    async commit() {
+      if (first !== "") await target.write(first);
+      return target.commit();
+    },
+  };
+}
+
+async function writePair(pair: RolledPair, job: RollJob, target: OutputTarget, io: CliIo): Promise<ExitCode> {
   const { options } = job;
   const { meta } = pair;
   const chart = options.chart !== undefined;
@@ -53,33 +92,31 @@ async function writePair(pair: RolledPair, job: RollJob, sink: OutputSink, io: C
   if (options.format === "csv") {
     const listed = options.uncertainty || chart ? [...pair.windows()] : [];
     const uncertainty = options.uncertainty ? (k: number) => pair.uncertaintyAt(listed[k]!) : null;
-    writeRollCsv(meta, pair.columns(), uncertainty, (text) => sink.write(text));
+    await writeRollCsv(meta, pair.columns(), uncertainty, (text) => target.write(text));
     kept = listed;
   } else if (options.format === "jsonl") {
     let chunk = "";
     for (const window of pair.windows()) {
       chunk += `${JSON.stringify(pair.record(window))}\n`;
       if (chunk.length > 1 << 20) {
-        sink.write(chunk);
+        await target.write(chunk);
         chunk = "";
       }
       if (chart) kept.push(window);
     }
-    sink.write(chunk);
+    await target.write(chunk);
   } else {
     kept = [...pair.windows()];
     const intervals = options.uncertainty ? kept.map((w) => pair.uncertaintyAt(w)) : null;
     const style = styleFor({ colour: wantsColour(io, options.output, options.format) });
-    sink.write(`${rollTextLines(meta, kept, intervals, style).join("\n")}\n`);
+    await target.write(`${rollTextLines(meta, kept, intervals, style).join("\n")}\n`);
   }
   if (!chart) return exitCodes.ok;
   const { renderRollChart } = await import("../../report/charts/rollChart.js");
   const points = rollChartPoints(meta, kept, (w) => pair.uncertaintyAt(w));
   const svg = await renderRollChart(points, { source: meta.input.source, window: windowWords(job.spec) }, io.loadVega);
-  const written = await io.writeOutput(options.chart ?? "", svg);
-  if (written.ok) return exitCodes.ok;
-  io.writeErr(`error: ${describeCliIssue(written.issues)}\n`);
-  return exitCodes.output;
+  const written = await writeOutput(io, options.chart ?? "", svg);
+  return written.ok ? exitCodes.ok : outputFailed(io, written.issues);
 }
 
 const rollExamples = `
@@ -99,6 +136,6 @@ export function rollCommand(io: CliIo, setExit: (code: ExitCode) => void): Comma
     .action(async (given: string[], _raw: Record<string, unknown>, self: Command) => {
       const job = await withConfig(self, "roll", given, io);
       if (!job.ok) return setExit(usage(io, describeCliIssue(job.issues)));
-      setExit(await runRoll(job.value.files, job.value.options, io));
+      setExit(await runRoll(job.value.files, job.value.options, io, job.value.configFile));
     });
 }

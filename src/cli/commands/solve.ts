@@ -16,6 +16,7 @@ import { jobContext } from "../jobContext.js";
 import { describeCliIssue, describeOptionIssue } from "../messages.js";
 import { type ExitCode, exitCodes } from "../runtime/exitCodes.js";
 import type { CliIo } from "../runtime/io.js";
+import { outputClash } from "../outputPaths.js";
 import { writeCharts } from "./charts.js";
 
 /** The exit code of one (file, pair). */
@@ -26,33 +27,42 @@ export const pairExitCode: Readonly<Record<PairStatus, ExitCode>> = {
 };
 
 /** Runs solve on `files` (none or "-": standard input) with the parsed flags and returns the exit code. */
-export async function runSolve(files: readonly string[], flags: Readonly<Record<string, unknown>>, io: CliIo): Promise<ExitCode> {
+export async function runSolve(
+  files: readonly string[],
+  flags: Readonly<Record<string, unknown>>,
+  io: CliIo,
+  configFile?: string,
+): Promise<ExitCode> {
   const input = { threads: defaultThreads(availableParallelism()), ...flags } as CommandOptionsInput<"solve">;
   const plan = solveOptions(files, input);
   if (!plan.ok) return usage(io, describeOptionIssue(plan.issues));
   const options = plan.value.options;
-  if (waitsOnTerminal(io, files, runShape(files, options))) return usage(io, describeCliIssue({ code: "no-input" }));
+  const shape = runShape(files, options);
+  if (waitsOnTerminal(io, files, shape)) return usage(io, describeCliIssue({ code: "no-input" }));
+  const clash = outputClash(io, configFile === undefined ? shape.reads : [...shape.reads, configFile], options);
+  if (clash !== null) return usage(io, describeCliIssue(clash));
   const { pairs, several } = await solvePlanned(files, plan.value, jobContext(io));
+  // Nothing is written when no pair could be read: the messages say why, and outputs stay as they were.
+  if (pairs.every((p) => p.status === "failed")) {
+    for (const pair of pairs) for (const message of pair.messages) io.writeErr(`${message.severity}: ${message.text}\n`);
+    return exitCodes.input;
+  }
 
   const records = pairs.map((p) => p.record);
   const first = records[0];
   const single = !several && first?.kind === "report" ? first.report : null;
   const colour = wantsColour(io, options.output, options.format);
-  let text: string | null;
+  let text: string;
   if (single !== null && options.format !== "jsonl") text = renderReport(single, options.format, { colour });
   else if (options.format === "jsonl") text = renderJsonLines(records);
-  else if (!several)
-    text = null; // one pair that failed: its messages go to stderr, nothing to stdout
   else text = options.format === "csv" ? renderRecordsCsv(records) : renderRecordsText(records, { colour });
 
   if (single !== null) {
     const drawn = await writeCharts(single, options, io);
     if (drawn !== exitCodes.ok) return drawn;
   }
-  if (text !== null) {
-    const written = await emit(io, options.output, text);
-    if (written !== exitCodes.ok) return written;
-  }
+  const written = await emit(io, options.output, text);
+  if (written !== exitCodes.ok) return written;
   // Reports carry their diagnostics; repeat them on stderr unless a text report is on the terminal.
   const reportOnTerminal = options.output === undefined && io.stdoutIsTerminal && options.format === "text";
   for (const pair of pairs) {
@@ -83,6 +93,6 @@ export function solveCommand(io: CliIo, setExit: (code: ExitCode) => void): Comm
     .action(async (given: string[], _raw: Record<string, unknown>, self: Command) => {
       const job = await withConfig(self, "solve", given, io);
       if (!job.ok) return setExit(usage(io, describeCliIssue(job.issues)));
-      setExit(await runSolve(job.value.files, job.value.options, io));
+      setExit(await runSolve(job.value.files, job.value.options, io, job.value.configFile));
     });
 }

@@ -1,6 +1,7 @@
 /**
  * The exit codes of every command: one table, documented in the README. 0 only when the job fully
- * succeeded; warnings do not change the code.
+ * succeeded; warnings do not change the code. A run ended by SIGINT, SIGTERM or SIGHUP exits with
+ * 128 + the signal's number (main.ts).
  */
 export const exitCodes = {
   /** The job succeeded (diagnostics of severity warning or info may have been reported). */
@@ -17,6 +18,8 @@ export const exitCodes = {
   partial: 5,
   /** An internal error: a bug in betabound. Please report it with the command line. */
   internal: 70,
+  /** The reader of standard output closed the pipe: 128 + SIGPIPE (13), as a shell reports it; quiet. */
+  pipeClosed: 141,
 } as const;
 
 export type ExitCode = (typeof exitCodes)[keyof typeof exitCodes];

@@ -1,27 +1,28 @@
 /**
- * The CLI's file access. Output is always written to a temporary file in the target's folder and
- * renamed over the target, so a failed or interrupted run never leaves a partial file and never
- * damages the previous one.
+ * The CLI's reading of files and standard input, and what a path names (for refusing an output that
+ * would land on an input). Writing is output.ts.
  */
-import { closeSync, openSync, readFileSync, readSync, renameSync, statSync, unlinkSync, writeFileSync, writeSync } from "node:fs";
-import { basename, dirname, join } from "node:path";
+import { closeSync, fstatSync, openSync, readFileSync, readSync, statSync } from "node:fs";
 import { failure, success, type Result } from "../../core/result.js";
-import { largeInputBuffer } from "../../input/index.js";
-import type { OutputSink } from "./io.js";
+import { largeInputBuffer, maximumInputBytes } from "../../input/index.js";
 import { fileErrorReason, type CliIssue } from "../messages.js";
+import { resolveTarget } from "./output.js";
 
-/** Reads a whole file, or standard input for "-". */
-export async function readInputBytes(path: string): Promise<Result<Uint8Array, CliIssue>> {
+/** Reads a whole file, or standard input for "-"; refuses either beyond `maximumInputBytes`. */
+export async function readInputBytes(path: string, limit = maximumInputBytes): Promise<Result<Uint8Array, CliIssue>> {
+  const name = path === "-" ? "<stdin>" : path;
   try {
-    if (path === "-") return success(await readStream(process.stdin));
+    if (path === "-") return await readStream(process.stdin, limit, name);
     // One synchronous read: for a large file this is much faster than the chunked asynchronous read,
     // and the CLI has nothing else to do meanwhile.
     const size = statSync(path).size;
+    if (size > limit) return failure({ code: "input-too-large", path: name, size, limit });
     // A large file is read straight into the memory the reader works in (src/input/engines/rowKernel.ts).
     const target = largeInputBuffer(size);
-    return success(target === null ? readFileSync(path) : readInto(path, target));
+    const bytes = target === null ? readFileSync(path) : readInto(path, target);
+    return bytes.length > limit ? failure({ code: "input-too-large", path: name, size: bytes.length, limit }) : success(bytes);
   } catch (error) {
-    return failure({ code: "read-failed", path: path === "-" ? "<stdin>" : path, reason: fileErrorReason(error) });
+    return failure({ code: "read-failed", path: name, reason: fileErrorReason(error) });
   }
 }
 
@@ -43,95 +44,25 @@ function readInto(path: string, bytes: Uint8Array): Uint8Array {
   }
 }
 
-async function readStream(stream: NodeJS.ReadableStream): Promise<Uint8Array> {
+/** Standard input whole, stopping (and refusing) as soon as it passes `limit` bytes. */
+async function readStream(stream: NodeJS.ReadableStream, limit: number, name: string): Promise<Result<Uint8Array, CliIssue>> {
   const chunks: Buffer[] = [];
-  for await (const chunk of stream) chunks.push(typeof chunk === "string" ? Buffer.from(chunk) : chunk);
-  return Buffer.concat(chunks);
-}
-
-let temporaries = 0;
-
-/**
- * A name no other writer uses: the process id and a counter make it unique on this host, the random
- * part across hosts sharing a folder; files are created exclusively ("wx"), so a clash fails rather
- * than overwrites.
- */
-function temporaryName(path: string): string {
-  temporaries += 1;
-  const random = Math.floor(Math.random() * 0x1_0000_0000)
-    .toString(16)
-    .padStart(8, "0");
-  return join(dirname(path), `.${basename(path)}.betabound-${process.pid}-${temporaries}-${random}.tmp`);
-}
-
-/** A sink for long outputs: chunks go to stdout, or to a temporary file renamed over `path` on close. */
-export function openSink(path: string | undefined): Result<OutputSink, CliIssue> {
-  if (path === undefined) {
-    return success({ write: (text) => void process.stdout.write(text), close: () => success(undefined), discard: () => undefined });
+  let size = 0;
+  for await (const chunk of stream) {
+    const bytes = typeof chunk === "string" ? Buffer.from(chunk) : chunk;
+    size += bytes.length;
+    if (size > limit) return failure({ code: "input-too-large", path: name, size: null, limit });
+    chunks.push(bytes);
   }
-  const temporary = temporaryName(path);
-  let fd: number;
-  try {
-    fd = openSync(temporary, "wx");
-  } catch (error) {
-    return failure({ code: "write-failed", path, reason: fileErrorReason(error) });
-  }
-  let failed: unknown = null;
-  const remove = (): void => {
-    try {
-      closeSync(fd);
-    } catch {
-      // already closed
-    }
-    try {
-      unlinkSync(temporary);
-    } catch {
-      // already gone
-    }
-  };
-  return success({
-    write(text) {
-      if (failed !== null) return;
-      try {
-        writeSync(fd, text);
-      } catch (error) {
-        failed = error;
-      }
-    },
-    close() {
-      if (failed !== null) {
-        remove();
-        return failure({ code: "write-failed", path, reason: fileErrorReason(failed) });
-      }
-      try {
-        closeSync(fd);
-        renameSync(temporary, path);
-        return success(undefined);
-      } catch (error) {
-        remove();
-        return failure({ code: "write-failed", path, reason: fileErrorReason(error) });
-      }
-    },
-    discard: remove,
-  });
+  return success(Buffer.concat(chunks, size));
 }
 
-/**
- * Writes `text` to `path` atomically (temporary file + rename). Synchronous inside, like the reads:
- * the CLI has nothing else to do meanwhile (and node:fs/promises costs start-up time to load).
- */
-export async function writeFileAtomic(path: string, text: string): Promise<Result<void, CliIssue>> {
-  const temporary = temporaryName(path);
+/** What `path` names: see CliIo.identify. */
+export function identify(path: string): { key: string; device: boolean } {
   try {
-    writeFileSync(temporary, text, { flag: "wx" });
-    renameSync(temporary, path);
-    return success(undefined);
-  } catch (error) {
-    try {
-      unlinkSync(temporary);
-    } catch {
-      // never created, or already gone
-    }
-    return failure({ code: "write-failed", path, reason: fileErrorReason(error) });
+    const stats = path === "-" ? fstatSync(0) : statSync(path);
+    return { key: `inode ${stats.dev}:${stats.ino}`, device: stats.isCharacterDevice() };
+  } catch {
+    return { key: `path ${resolveTarget(path).path}`, device: false };
   }
 }

@@ -2,12 +2,27 @@
 import type { Result } from "../../core/result.js";
 import type { VegaLoader } from "../../report/charts/loadVega.js";
 import type { CliIssue } from "../messages.js";
+import type { OutputTarget } from "./output.js";
+
+export type { OutputTarget };
 
 export interface CliIo {
+  /** Standard output, for help and schema texts (command outputs go through `openOutput`). */
   writeOut(text: string): void;
   writeErr(text: string): void;
+  /** A whole input file, or standard input for "-"; refused beyond the input size limit. */
   readInput(path: string): Promise<Result<Uint8Array, CliIssue>>;
-  writeOutput(path: string, text: string): Promise<Result<void, CliIssue>>;
+  /**
+   * Standard output (path undefined) or the file at `path`, written as output.ts promises (a
+   * temporary file renamed on commit; special files in place). Nothing is created before this call.
+   */
+  openOutput(path: string | undefined): Result<OutputTarget, CliIssue>;
+  /**
+   * What a path names, to tell whether an output would land on an input or on another output: the
+   * device and inode of an existing file ("-": standard input; links followed), else the absolute
+   * path a write would create; and whether it is a character device (which several outputs may share).
+   */
+  identify(path: string): { readonly key: string; readonly device: boolean };
   readonly stdoutIsTerminal: boolean;
   readonly stdinIsTerminal: boolean;
   readonly stderrIsTerminal: boolean;
@@ -16,15 +31,12 @@ export interface CliIo {
   readonly env: Readonly<Record<string, string | undefined>>;
   /** Imports vega for a chart (the launcher's own import: the bundle cannot use `import()`). */
   readonly loadVega: VegaLoader;
-  /**
-   * A place to write a long output piece by piece: standard output (path undefined) or a temporary
-   * file in the target's folder that `close` renames over the target (`discard` removes it).
-   */
-  openSink(path: string | undefined): Result<OutputSink, CliIssue>;
 }
 
-export interface OutputSink {
-  write(text: string): void;
-  close(): Result<void, CliIssue>;
-  discard(): void;
+/** Writes `text` as the whole output at `path` (undefined: standard output). */
+export async function writeOutput(io: CliIo, path: string | undefined, text: string): Promise<Result<void, CliIssue>> {
+  const opened = io.openOutput(path);
+  if (!opened.ok) return opened;
+  await opened.value.write(text);
+  return opened.value.commit();
 }

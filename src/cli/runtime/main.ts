@@ -1,13 +1,17 @@
 /**
  * The bundled CLI's entry (dist/cli-bundle.cjs, loaded by the `betabound` launcher, launcher.ts):
  * binds the program to the process. An unexpected exception is a bug: it is reported in one line
- * with exit code 70 (set BETABOUND_DEBUG=1 for the stack).
+ * with exit code 70 (set BETABOUND_DEBUG=1 for the stack). Signals and standard output's failures
+ * end the run here, after removing every temporary file (output.ts).
  */
-import { exitCodes, type ExitCode } from "./exitCodes.js";
-import { openSink, readInputBytes, writeFileAtomic } from "./files.js";
+import { constants } from "node:os";
 import type { VegaLoader } from "../../report/charts/loadVega.js";
-import type { CliIo } from "./io.js";
 import { run } from "../program.js";
+import { describeCliIssue, fileErrorReason } from "../messages.js";
+import { exitCodes, type ExitCode } from "./exitCodes.js";
+import { identify, readInputBytes } from "./files.js";
+import type { CliIo } from "./io.js";
+import { openOutput, removeTemporaries } from "./output.js";
 
 export { run };
 
@@ -22,9 +26,9 @@ export function processIo(launch: Launch): CliIo {
     loadVega: launch.loadVega,
     writeOut: (text: string) => void process.stdout.write(text),
     writeErr: (text: string) => void process.stderr.write(text),
-    readInput: readInputBytes,
-    writeOutput: writeFileAtomic,
-    openSink,
+    readInput: (path) => readInputBytes(path),
+    openOutput: (path) => openOutput(path, process.stdout),
+    identify,
     // Getters: each stream is set up only when a run asks (stdin's, for instance, loads the network
     // modules when it is a pipe, a few milliseconds that most runs, given files, never need).
     get stdoutIsTerminal() {
@@ -41,11 +45,24 @@ export function processIo(launch: Launch): CliIo {
   };
 }
 
+/** Ends the process at once with `code`, temporary files removed (nothing else is left to clean). */
+function stop(code: number): never {
+  removeTemporaries();
+  process.exit(code);
+}
+
+/** The signals that end a run: temporary files are removed and the status is 128 + the signal's number. */
+const endingSignals = ["SIGINT", "SIGTERM", "SIGHUP"] as const;
+
 /** Runs the command line `argv` (without node and the script) and ends the process with its exit code. */
 export async function main(argv: readonly string[], launch: Launch): Promise<void> {
-  // A closed pipe (e.g. `betabound solve ... | head`) is not an error of ours.
+  for (const signal of endingSignals) process.once(signal, () => stop(128 + constants.signals[signal]));
   process.stdout.on("error", (error: NodeJS.ErrnoException) => {
-    if (error.code === "EPIPE") process.exit(exitCodes.ok);
+    // A reader that closed the pipe (`betabound roll ... | head`) wants no more: stop the work at once,
+    // quietly, with the status a shell gives a process ended by SIGPIPE (exitCodes.pipeClosed).
+    if (error.code === "EPIPE") stop(exitCodes.pipeClosed);
+    process.stderr.write(`error: ${describeCliIssue({ code: "stdout-failed", reason: fileErrorReason(error) })}\n`);
+    stop(exitCodes.output);
   });
   let code: ExitCode;
   try {
@@ -63,12 +80,14 @@ export async function main(argv: readonly string[], launch: Launch): Promise<voi
  * Ends the process as soon as everything written to stdout and stderr has been handed to the system.
  * Waiting for the event loop to drain instead would also wait for V8's background compilations of
  * hot functions, which the finished run no longer needs (about 10 ms of every short run). Every file
- * the command writes has been closed and renamed by now; worker threads have been terminated.
+ * the command writes has been closed and renamed by now; worker threads have been terminated. A
+ * failure to write standard output is reported by its error handler above, which ends the process.
  */
 function exitOnceFlushed(code: ExitCode): void {
   process.exitCode = code;
   let pending = 2;
-  const flushed = (): void => {
+  const flushed = (error?: Error | null): void => {
+    if (error) return; // the stream's error handler reports it and ends the process
     pending -= 1;
     if (pending === 0) process.exit(code);
   };

@@ -1,0 +1,259 @@
+/**
+ * The one way every command writes its outputs (reports, records, windows, samples, charts, the HTML
+ * report), to a file or to standard output. What it promises (README, "Outputs"):
+ * - a regular file (or a name not yet taken) is written to a temporary file in the target's folder,
+ *   every write checked (short writes, ENOSPC, EIO), then flushed to the disk (fsync) and renamed over
+ *   the target only when the whole output is written; on any failure, a signal or `abort`, the
+ *   temporary file is removed and the previous file is left as it was. A replaced file keeps its mode
+ *   (and, where the process may set it, its owner). A symbolic link is followed: its target is
+ *   replaced and the link kept.
+ * - a special file (character device, FIFO, socket, or a path under /dev or /proc such as
+ *   /dev/stdout) cannot be replaced: it is opened and written directly, every write checked.
+ * - standard output is written with back-pressure (a slow reader never makes memory grow); its
+ *   errors are handled once, in main.ts (a closed pipe ends the run quietly, a full disk is exit 4).
+ * File operations come through `FileOps` so tests can inject a failing disk.
+ */
+import * as fs from "node:fs";
+import { basename, dirname, join, resolve } from "node:path";
+import { failure, type Result, success } from "../../core/result.js";
+import { type CliIssue, fileErrorReason } from "../messages.js";
+
+/** Where a command's output goes, piece by piece. */
+export interface OutputTarget {
+  /** Appends `text`. Resolves when the target can take more; a failure is kept for `commit`. */
+  write(text: string): Promise<void>;
+  /** Makes the output final (flush, fsync, rename): ok, or why not (the previous file is then intact). */
+  commit(): Promise<Result<void, CliIssue>>;
+  /** Drops what was written: the temporary file is removed, the target left as it was. */
+  abort(): void;
+}
+
+/** The file system calls the output path makes (node:fs by default; tests inject failures). */
+export type FileOps = Pick<
+  typeof fs,
+  | "openSync"
+  | "writeSync"
+  | "fsyncSync"
+  | "closeSync"
+  | "renameSync"
+  | "unlinkSync"
+  | "statSync"
+  | "lstatSync"
+  | "readlinkSync"
+  | "realpathSync"
+  | "fchmodSync"
+  | "fchownSync"
+>;
+
+/** The stream standard output is written to (process.stdout in the CLI). */
+export interface OutputStream {
+  write(chunk: string): boolean;
+  once(event: "drain", listener: () => void): unknown;
+}
+
+/** Temporary files in the making: removed on a signal (main.ts) whatever the run was doing. */
+const temporaries = new Set<string>();
+let created = 0;
+
+/** Removes every temporary file still in the making (for signal handlers: synchronous, never throws). */
+export function removeTemporaries(ops: FileOps = fs): void {
+  for (const path of temporaries) {
+    try {
+      ops.unlinkSync(path);
+    } catch {
+      // already gone
+    }
+  }
+  temporaries.clear();
+}
+
+/** Written to a file this many bytes at a time between yields, so a signal is handled promptly. */
+const yieldEvery = 8 << 20;
+
+/** Standard output (path undefined) or the file at `path`. Nothing is created until this is called. */
+export function openOutput(path: string | undefined, stdout: OutputStream, ops: FileOps = fs): Result<OutputTarget, CliIssue> {
+  if (path === undefined) return success(streamTarget(stdout));
+  const target = resolveTarget(path, ops);
+  if (target.special) return directTarget(path, ops);
+  return replacingTarget(path, target.path, ops);
+}
+
+function streamTarget(stdout: OutputStream): OutputTarget {
+  return {
+    write: (text) => (stdout.write(text) ? Promise.resolve() : new Promise<void>((done) => void stdout.once("drain", () => done()))),
+    commit: async () => success(undefined),
+    abort: () => undefined,
+  };
+}
+
+/** A path under these folders names a device or a process's stream: never replaced by a rename. */
+const specialFolders = ["/dev/", "/proc/"];
+
+/** The file a write to `path` lands in (links followed), and whether it must be written in place. */
+export function resolveTarget(path: string, ops: FileOps = fs): { path: string; special: boolean } {
+  const absolute = resolve(path);
+  if (specialFolders.some((folder) => absolute.startsWith(folder))) return { path: absolute, special: true };
+  let real: string;
+  try {
+    real = ops.realpathSync(absolute);
+  } catch {
+    real = danglingLinkTarget(absolute, ops);
+  }
+  try {
+    const stats = ops.statSync(real);
+    return { path: real, special: !stats.isFile() && !stats.isDirectory() };
+  } catch {
+    return { path: real, special: false };
+  }
+}
+
+/** A path that does not exist yet: itself, or where its (chain of) dangling symbolic links point. */
+function danglingLinkTarget(path: string, ops: FileOps): string {
+  let current = path;
+  for (let hops = 0; hops < 40; hops++) {
+    try {
+      if (!ops.lstatSync(current).isSymbolicLink()) return current;
+      current = resolve(dirname(current), String(ops.readlinkSync(current)));
+    } catch {
+      return current;
+    }
+  }
+  return current;
+}
+
+/** Writes all of `bytes` at the descriptor, however many calls it takes (a short write is not an error). */
+function writeAll(ops: FileOps, fd: number, bytes: Uint8Array): void {
+  let offset = 0;
+  while (offset < bytes.length) offset += ops.writeSync(fd, bytes, offset, bytes.length - offset);
+}
+
+/** Writes that yield to the event loop now and then (signals), and remember the first failure. */
+function checkedWriter(ops: FileOps, fd: number) {
+  let failed: unknown = null;
+  let sinceYield = 0;
+  return {
+    get failed() {
+      return failed;
+    },
+    async write(text: string): Promise<void> {
+      if (failed !== null) return;
+      const bytes = Buffer.from(text);
+      try {
+        writeAll(ops, fd, bytes);
+      } catch (error) {
+        failed = error;
+        return;
+      }
+      sinceYield += bytes.length;
+      if (sinceYield >= yieldEvery) {
+        sinceYield = 0;
+        await new Promise<void>((done) => setImmediate(done));
+      }
+    },
+  };
+}
+
+function closeQuietly(ops: FileOps, fd: number): void {
+  try {
+    ops.closeSync(fd);
+  } catch {
+    // already closed
+  }
+}
+
+/** A device, FIFO or /proc link: opened for appending and written in place. */
+function directTarget(path: string, ops: FileOps): Result<OutputTarget, CliIssue> {
+  let fd: number;
+  try {
+    fd = ops.openSync(path, "a");
+  } catch (error) {
+    return failure({ code: "write-failed", path, reason: fileErrorReason(error) });
+  }
+  const writer = checkedWriter(ops, fd);
+  let open = true;
+  return success({
+    write: (text) => writer.write(text),
+    async commit() {
+      open = false;
+      try {
+        if (writer.failed !== null) throw writer.failed;
+        ops.closeSync(fd);
+        return success(undefined);
+      } catch (error) {
+        closeQuietly(ops, fd);
+        return failure({ code: "write-failed", path, reason: fileErrorReason(error) });
+      }
+    },
+    abort() {
+      if (open) closeQuietly(ops, fd);
+      open = false;
+    },
+  });
+}
+
+/** A regular file (or a new one): a temporary file beside it, renamed over it on commit. */
+function replacingTarget(path: string, target: string, ops: FileOps): Result<OutputTarget, CliIssue> {
+  created += 1;
+  const random = Math.floor(Math.random() * 0x1_0000_0000)
+    .toString(16)
+    .padStart(8, "0");
+  // The process id and a counter make the name unique on this host, the random part across hosts
+  // sharing a folder; "wx" creates it exclusively, so a clash fails rather than overwrites.
+  const temporary = join(dirname(target), `.${basename(target)}.betabound-${process.pid}-${created}-${random}.tmp`);
+  let fd: number;
+  try {
+    fd = ops.openSync(temporary, "wx", 0o666);
+    temporaries.add(temporary);
+  } catch (error) {
+    return failure({ code: "write-failed", path, reason: fileErrorReason(error) });
+  }
+  const remove = (): void => {
+    closeQuietly(ops, fd);
+    try {
+      ops.unlinkSync(temporary);
+    } catch {
+      // already gone
+    }
+    temporaries.delete(temporary);
+  };
+  const writer = checkedWriter(ops, fd);
+  let done = false;
+  return success({
+    write: (text) => writer.write(text),
+    async commit() {
+      done = true;
+      try {
+        if (writer.failed !== null) throw writer.failed;
+        keepModeAndOwner(ops, fd, target);
+        ops.fsyncSync(fd);
+        ops.closeSync(fd);
+        ops.renameSync(temporary, target);
+        temporaries.delete(temporary);
+        return success(undefined);
+      } catch (error) {
+        remove();
+        return failure({ code: "write-failed", path, reason: fileErrorReason(error) });
+      }
+    },
+    abort() {
+      if (!done) remove();
+      done = true;
+    },
+  });
+}
+
+/** Gives the new file the mode (and owner, where allowed) of the file it replaces, if any. */
+function keepModeAndOwner(ops: FileOps, fd: number, target: string): void {
+  let stats: fs.Stats;
+  try {
+    stats = ops.statSync(target);
+  } catch {
+    return; // nothing replaced: the new file has the default mode (umask applied)
+  }
+  ops.fchmodSync(fd, stats.mode & 0o7777);
+  try {
+    ops.fchownSync(fd, stats.uid, stats.gid);
+  } catch {
+    // only the owner's own files, unless privileged: the owner becomes this user's
+  }
+}

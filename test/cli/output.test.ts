@@ -1,0 +1,196 @@
+/**
+ * The output path (src/cli/runtime/output.ts) on a real temporary folder, with failures injected
+ * through its file operations: every write checked, the previous file intact and no temporary file
+ * left whatever fails, modes kept, links followed, special files written in place, back-pressure.
+ */
+import { execFileSync } from "node:child_process";
+import * as fs from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { describe, expect, it } from "vitest";
+import { type FileOps, type OutputStream, openOutput, removeTemporaries, resolveTarget } from "../../src/cli/runtime/output.js";
+
+const scratch = fs.mkdtempSync(join(tmpdir(), "betabound-output-"));
+const noStdout: OutputStream = { write: () => true, once: () => undefined };
+
+function folderWith(previous: string | null): { dir: string; path: string } {
+  const dir = fs.mkdtempSync(join(scratch, "case-"));
+  const path = join(dir, "out.csv");
+  if (previous !== null) fs.writeFileSync(path, previous);
+  return { dir, path };
+}
+
+/** node:fs whose writes fail with `code` once `budget` bytes have been written (a full disk, EIO). */
+function failingDisk(budget: number, code: string): FileOps {
+  let left = budget;
+  return {
+    ...fs,
+    writeSync: ((fd: number, bytes: Uint8Array, offset: number, length: number) => {
+      if (left <= 0) throw Object.assign(new Error(`${code}: injected`), { code });
+      const n = Math.min(length, left);
+      left -= n;
+      return fs.writeSync(fd, bytes, offset, n);
+    }) as FileOps["writeSync"],
+  };
+}
+
+async function writeAll(path: string, pieces: readonly string[], ops: FileOps = fs) {
+  const opened = openOutput(path, noStdout, ops);
+  if (!opened.ok) throw new Error("open failed");
+  for (const piece of pieces) await opened.value.write(piece);
+  return opened.value.commit();
+}
+
+describe("a regular file", () => {
+  it("is replaced whole on commit, with no temporary file left", async () => {
+    const { dir, path } = folderWith("previous\n");
+    const committed = await writeAll(path, ["a,b\n", "1,2\n"]);
+    expect(committed.ok).toBe(true);
+    expect(fs.readFileSync(path, "utf8")).toBe("a,b\n1,2\n");
+    expect(fs.readdirSync(dir)).toEqual(["out.csv"]);
+  });
+
+  it("is untouched until commit: the output goes to a temporary file beside it", async () => {
+    const { dir, path } = folderWith("previous\n");
+    const opened = openOutput(path, noStdout);
+    if (!opened.ok) throw new Error("open failed");
+    await opened.value.write("new\n");
+    expect(fs.readFileSync(path, "utf8")).toBe("previous\n");
+    expect(fs.readdirSync(dir)).toHaveLength(2);
+    opened.value.abort();
+    expect(fs.readdirSync(dir)).toEqual(["out.csv"]);
+    expect(fs.readFileSync(path, "utf8")).toBe("previous\n");
+  });
+
+  for (const code of ["ENOSPC", "EIO", "EDQUOT"]) {
+    it(`fails on ${code} mid-way with the previous file intact and no temporary file`, async () => {
+      const { dir, path } = folderWith("previous\n");
+      const committed = await writeAll(path, ["x".repeat(1000), "y".repeat(1000)], failingDisk(1500, code));
+      expect(committed.ok).toBe(false);
+      if (!committed.ok) expect(committed.issues).toMatchObject({ code: "write-failed", path });
+      expect(fs.readFileSync(path, "utf8")).toBe("previous\n");
+      expect(fs.readdirSync(dir)).toEqual(["out.csv"]);
+    });
+  }
+
+  it("completes short writes (a write that takes fewer bytes than given is not an error)", async () => {
+    const { path } = folderWith(null);
+    const trickle: FileOps = {
+      ...fs,
+      writeSync: ((fd: number, bytes: Uint8Array, offset: number, length: number) =>
+        fs.writeSync(fd, bytes, offset, Math.min(length, 7))) as FileOps["writeSync"],
+    };
+    const text = "date,low,high\n2020-01-31,0.01,0.02\n".repeat(20);
+    expect((await writeAll(path, [text], trickle)).ok).toBe(true);
+    expect(fs.readFileSync(path, "utf8")).toBe(text);
+  });
+
+  it("fails when the flush to the disk fails, leaving the previous file", async () => {
+    const { dir, path } = folderWith("previous\n");
+    const noSync: FileOps = {
+      ...fs,
+      fsyncSync: () => {
+        throw Object.assign(new Error("EIO: injected"), { code: "EIO" });
+      },
+    };
+    expect((await writeAll(path, ["new\n"], noSync)).ok).toBe(false);
+    expect(fs.readFileSync(path, "utf8")).toBe("previous\n");
+    expect(fs.readdirSync(dir)).toEqual(["out.csv"]);
+  });
+
+  it("keeps the mode of the file it replaces", async () => {
+    const { path } = folderWith("previous\n");
+    fs.chmodSync(path, 0o640);
+    expect((await writeAll(path, ["new\n"])).ok).toBe(true);
+    expect(fs.statSync(path).mode & 0o7777).toBe(0o640);
+  });
+
+  it("follows a symbolic link: the link's target is replaced and the link kept", async () => {
+    const { dir, path } = folderWith("previous\n");
+    const link = join(dir, "latest.csv");
+    fs.symlinkSync("out.csv", link);
+    expect((await writeAll(link, ["new\n"])).ok).toBe(true);
+    expect(fs.lstatSync(link).isSymbolicLink()).toBe(true);
+    expect(fs.readFileSync(path, "utf8")).toBe("new\n");
+  });
+
+  it("creates the target of a dangling link, keeping the link", async () => {
+    const { dir } = folderWith(null);
+    const link = join(dir, "latest.csv");
+    fs.symlinkSync("made.csv", link);
+    expect((await writeAll(link, ["new\n"])).ok).toBe(true);
+    expect(fs.lstatSync(link).isSymbolicLink()).toBe(true);
+    expect(fs.readFileSync(join(dir, "made.csv"), "utf8")).toBe("new\n");
+  });
+
+  it("says why a folder that does not exist cannot be written, creating nothing", async () => {
+    const { dir } = folderWith(null);
+    const opened = openOutput(join(dir, "missing", "out.csv"), noStdout);
+    expect(opened.ok).toBe(false);
+    if (!opened.ok) expect(opened.issues).toMatchObject({ code: "write-failed", reason: "no such file or directory" });
+    expect(fs.readdirSync(dir)).toEqual([]);
+  });
+
+  it("removes the temporary files in the making when told to (as on a signal)", async () => {
+    const { dir, path } = folderWith("previous\n");
+    const opened = openOutput(path, noStdout);
+    if (!opened.ok) throw new Error("open failed");
+    await opened.value.write("partial");
+    removeTemporaries();
+    expect(fs.readdirSync(dir)).toEqual(["out.csv"]);
+    expect(fs.readFileSync(path, "utf8")).toBe("previous\n");
+  });
+});
+
+describe("special files", () => {
+  it("are written in place: devices, /dev and /proc paths, FIFOs", () => {
+    expect(resolveTarget("/dev/null").special).toBe(true);
+    expect(resolveTarget("/dev/stdout").special).toBe(true);
+    expect(resolveTarget("/proc/self/fd/1").special).toBe(true);
+    const { dir } = folderWith(null);
+    const fifo = join(dir, "pipe");
+    execFileSync("mkfifo", [fifo]);
+    expect(resolveTarget(fifo).special).toBe(true);
+    expect(resolveTarget(join(dir, "plain.csv")).special).toBe(false);
+  });
+
+  it("/dev/null takes the output and stays a device (no file replaces it)", async () => {
+    expect((await writeAll("/dev/null", ["anything\n"])).ok).toBe(true);
+    expect(fs.statSync("/dev/null").isCharacterDevice()).toBe(true);
+  });
+
+  it("/dev/full is a full disk: the write fails with its reason", async () => {
+    const committed = await writeAll("/dev/full", ["anything\n"]);
+    expect(committed.ok).toBe(false);
+    if (!committed.ok) expect(committed.issues).toMatchObject({ code: "write-failed", reason: "no space left on the device" });
+    expect(fs.statSync("/dev/full").isCharacterDevice()).toBe(true);
+  });
+});
+
+describe("standard output", () => {
+  it("waits for the reader when the stream asks (back-pressure), then goes on", async () => {
+    const drains: (() => void)[] = [];
+    const written: string[] = [];
+    const stream: OutputStream = {
+      write: (chunk) => {
+        written.push(chunk);
+        return written.length > 1 ? false : true;
+      },
+      once: (_event, listener) => drains.push(listener),
+    };
+    const opened = openOutput(undefined, stream);
+    if (!opened.ok) throw new Error("open failed");
+    await opened.value.write("first");
+    let second = false;
+    const pending = opened.value.write("second").then(() => {
+      second = true;
+    });
+    await new Promise((done) => setImmediate(done));
+    expect(second).toBe(false);
+    expect(drains).toHaveLength(1);
+    drains[0]!();
+    await pending;
+    expect(second).toBe(true);
+    expect(written).toEqual(["first", "second"]);
+  });
+});
