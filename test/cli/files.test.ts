@@ -2,8 +2,9 @@
 import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
+import { Readable } from "node:stream";
 import { describe, expect, it } from "vitest";
-import { readInputBytes } from "../../src/cli/runtime/files.js";
+import { readInputBytes, readStream } from "../../src/cli/runtime/files.js";
 import { rowKernelFor } from "../../src/input/engines/rowKernel.js";
 
 const scratch = mkdtempSync(join(tmpdir(), "betabound-files-"));
@@ -45,6 +46,24 @@ describe("the input size limit", () => {
     const read = await readInputBytes(path, 10);
     expect(read.ok).toBe(false);
     if (!read.ok) expect(read.issues).toEqual({ code: "input-too-large", path, size: text.length, limit: 10 });
+  });
+
+  it("stops reading standard input as soon as it passes the limit, and refuses it", async () => {
+    let pulled = 0;
+    const endless = Readable.from(
+      (function* () {
+        for (;;) {
+          pulled += 1;
+          yield Buffer.alloc(1000, 48);
+        }
+      })(),
+    );
+    const read = await readStream(endless, 4500, "<stdin>");
+    expect(read.ok).toBe(false);
+    if (!read.ok) expect(read.issues).toEqual({ code: "input-too-large", path: "<stdin>", size: null, limit: 4500 });
+    expect(pulled).toBeLessThan(10);
+    const small = await readStream(Readable.from([Buffer.from("Date,A\n")]), 7, "<stdin>");
+    expect(small.ok && Buffer.from(small.value).toString()).toBe("Date,A\n");
   });
 
   it("reads a file exactly at the limit", async () => {

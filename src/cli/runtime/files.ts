@@ -45,7 +45,7 @@ function readInto(path: string, bytes: Uint8Array): Uint8Array {
 }
 
 /** Standard input whole, stopping (and refusing) as soon as it passes `limit` bytes. */
-async function readStream(stream: NodeJS.ReadableStream, limit: number, name: string): Promise<Result<Uint8Array, CliIssue>> {
+export async function readStream(stream: NodeJS.ReadableStream, limit: number, name: string): Promise<Result<Uint8Array, CliIssue>> {
   const chunks: Buffer[] = [];
   let size = 0;
   for await (const chunk of stream) {
