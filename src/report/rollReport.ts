@@ -89,22 +89,15 @@ export async function writeRollCsv(
   if (chunk !== "") await write(chunk);
 }
 
-/** The points of the roll chart: each window's end date, bounds, CAPM beta and interval. */
-export function rollChartPoints(
-  meta: RollMeta,
-  windows: readonly WindowSolution[],
-  uncertaintyAt: (window: WindowSolution) => WindowUncertainty | null,
-): RollWindowPoint[] {
-  return windows.map((w) => {
-    const u = uncertaintyAt(w);
-    return {
-      end: meta.dates[w.end] ?? "",
-      lowBetaMin: w.bounds?.lowBeta.min ?? null,
-      lowBetaMax: w.bounds?.lowBeta.max ?? null,
-      capmLowBeta: w.capm?.low.beta ?? Number.NaN,
-      ...(u === null ? {} : { interval: { lower: u.lowBeta.interval.lower, upper: u.lowBeta.interval.upper } }),
-    };
-  });
+/** A window's point on the roll chart: its end date, bounds, CAPM beta and interval. */
+export function rollChartPoint(meta: RollMeta, w: WindowSolution, u: WindowUncertainty | null): RollWindowPoint {
+  return {
+    end: meta.dates[w.end] ?? "",
+    lowBetaMin: w.bounds?.lowBeta.min ?? null,
+    lowBetaMax: w.bounds?.lowBeta.max ?? null,
+    capmLowBeta: w.capm?.low.beta ?? Number.NaN,
+    ...(u === null ? {} : { interval: { lower: u.lowBeta.interval.lower, upper: u.lowBeta.interval.upper } }),
+  };
 }
 
 /** The window in words, for the chart: "rolling windows of 36 periods". */
@@ -151,29 +144,23 @@ export function rollRecord(meta: RollMeta, window: WindowSolution, uncertainty: 
 /** The text table: one line per window with the CAPM beta and the set of the low structural beta. */
 export function rollTextLines(
   meta: RollMeta,
-  windows: readonly WindowSolution[],
-  uncertainty: readonly (WindowUncertainty | null)[] | null,
+  windows: Iterable<WindowSolution>,
+  uncertaintyAt: (window: WindowSolution) => WindowUncertainty | null,
   style: Style,
+  intervals: boolean,
 ): string[] {
   const spec =
     meta.spec.kind === "window"
       ? `${meta.spec.size} periods, every ${meta.spec.step}`
       : `expanding from ${meta.spec.minPeriods} periods, every ${meta.spec.step}`;
-  const confidence = uncertainty?.find((u) => u !== null)?.confidence ?? defaultConfidence;
-  const level = `${Number((confidence * 100).toPrecision(4))}%`;
-  const header = [
-    "window end",
-    "n",
-    "CAPM\nlow beta",
-    "low beta\nmin",
-    "low beta\nmax",
-    "width",
-    "return-\nimplied",
-    ...(uncertainty === null ? [] : [`${level} interval\nfor low beta`]),
-  ];
-  const rows = windows.map((w, k) => {
-    const u = uncertainty?.[k] ?? null;
-    return [
+  // Rows are made as the windows come (the windows themselves are not kept: a million of them would
+  // hold gigabytes).
+  let confidence = defaultConfidence;
+  const rows: string[][] = [];
+  for (const w of windows) {
+    const u = uncertaintyAt(w);
+    if (u !== null) confidence = u.confidence;
+    rows.push([
       meta.dates[w.end] ?? "",
       String(w.observations),
       formatNumber(w.capm?.low.beta ?? null, 4),
@@ -183,18 +170,29 @@ export function rollTextLines(
       w.landmarks?.returnImplied === null || w.landmarks === null
         ? "n/a"
         : `${formatNumber(w.landmarks.returnImplied.lowBeta, 4)}${w.landmarks.returnImplied.insideSet ? "" : " (out)"}`,
-      ...(uncertainty === null
+      ...(!intervals
         ? []
         : [u === null ? "n/a" : `${formatNumber(u.lowBeta.interval.lower, 4)} to ${formatNumber(u.lowBeta.interval.upper, 4)}`]),
-    ];
-  });
+    ]);
+  }
+  const level = `${Number((confidence * 100).toPrecision(4))}%`;
+  const header = [
+    "window end",
+    "n",
+    "CAPM\nlow beta",
+    "low beta\nmin",
+    "low beta\nmax",
+    "width",
+    "return-\nimplied",
+    ...(intervals ? [`${level} interval\nfor low beta`] : []),
+  ];
   return [
     style.heading(`${meta.tool.name} ${meta.tool.version}: the identified set through time`),
     "",
     ...fields([
       ["File", meta.input.source],
       ["Books", `low "${meta.input.lowColumn}", high "${meta.input.highColumn}" (w = ${meta.weight})`],
-      ["Windows", `${windows.length}: ${spec}`],
+      ["Windows", `${rows.length}: ${spec}`],
     ]),
     "",
     ...table({ header, rows }),

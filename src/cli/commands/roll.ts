@@ -8,7 +8,9 @@ import type { WindowSolution } from "../../core/rolling/index.js";
 import { type RolledPair, type RollJob, rollJob, runShape } from "../../jobs/index.js";
 import type { CommandOptionsInput } from "../../options/index.js";
 import { styleFor } from "../../report/layout.js";
-import { rollChartPoints, rollCsvHeader, rollTextLines, windowWords, writeRollCsv } from "../../report/rollReport.js";
+import type { WindowUncertainty } from "../../core/inference/windowUncertainty.js";
+import type { RollWindowPoint } from "../../report/charts/rollChart.js";
+import { rollChartPoint, rollCsvHeader, rollRecord, rollTextLines, windowWords, writeRollCsv } from "../../report/rollReport.js";
 import { addTableOptions } from "../commandOptions.js";
 import { withConfig } from "../config.js";
 import { outputFailed, usage, waitsOnTerminal, wantsColour } from "../emit.js";
@@ -84,36 +86,44 @@ function leading(target: OutputTarget, lead: string): OutputTarget {
   };
 }
 
+/**
+ * Writes one pair's windows in the asked format; with --chart, also its chart. The windows are
+ * computed as they are written and never kept (a million of them would hold gigabytes); the chart
+ * keeps one small point per window.
+ */
 async function writePair(pair: RolledPair, job: RollJob, target: OutputTarget, io: CliIo): Promise<ExitCode> {
   const { options } = job;
   const { meta } = pair;
-  const chart = options.chart !== undefined;
-  let kept: WindowSolution[] = [];
+  const points: RollWindowPoint[] | null = options.chart === undefined ? null : [];
+  // Each window's uncertainty (null without --uncertainty), noting its chart point on the way.
+  const seen = (window: WindowSolution): WindowUncertainty | null => {
+    const u = pair.uncertaintyAt(window);
+    points?.push(rollChartPoint(meta, window, u));
+    return u;
+  };
   if (options.format === "csv") {
-    const listed = options.uncertainty || chart ? [...pair.windows()] : [];
-    const uncertainty = options.uncertainty ? (k: number) => pair.uncertaintyAt(listed[k]!) : null;
-    await writeRollCsv(meta, pair.columns(), uncertainty, (text) => target.write(text));
-    kept = listed;
+    // The columns come from the scan's typed arrays; the window objects only when needed, in step.
+    const walk = options.uncertainty || points !== null ? pair.windows()[Symbol.iterator]() : null;
+    const next = (): WindowUncertainty | null => (walk === null ? null : seen(walk.next().value as WindowSolution));
+    await writeRollCsv(meta, pair.columns(), options.uncertainty ? next : null, (text) => target.write(text));
+    if (!options.uncertainty && walk !== null) for (let w = walk.next(); !w.done; w = walk.next()) seen(w.value);
   } else if (options.format === "jsonl") {
     let chunk = "";
     for (const window of pair.windows()) {
-      chunk += `${JSON.stringify(pair.record(window))}\n`;
+      chunk += `${JSON.stringify(rollRecord(meta, window, seen(window)))}\n`;
       if (chunk.length > 1 << 20) {
         await target.write(chunk);
         chunk = "";
       }
-      if (chart) kept.push(window);
     }
     await target.write(chunk);
   } else {
-    kept = [...pair.windows()];
-    const intervals = options.uncertainty ? kept.map((w) => pair.uncertaintyAt(w)) : null;
     const style = styleFor({ colour: wantsColour(io, options.output, options.format) });
-    await target.write(`${rollTextLines(meta, kept, intervals, style).join("\n")}\n`);
+    const lines = rollTextLines(meta, pair.windows(), seen, style, options.uncertainty);
+    for (let k = 0; k < lines.length; k += 10_000) await target.write(`${lines.slice(k, k + 10_000).join("\n")}\n`);
   }
-  if (!chart) return exitCodes.ok;
+  if (points === null) return exitCodes.ok;
   const { renderRollChart } = await import("../../report/charts/rollChart.js");
-  const points = rollChartPoints(meta, kept, (w) => pair.uncertaintyAt(w));
   const svg = await renderRollChart(points, { source: meta.input.source, window: windowWords(job.spec) }, io.loadVega);
   const written = await writeOutput(io, options.chart ?? "", svg);
   return written.ok ? exitCodes.ok : outputFailed(io, written.issues);
