@@ -38,19 +38,63 @@ export function neweyWest1994Bandwidth(
     const w = columnWeights[a]!;
     if (w !== 0) for (let t = 0; t < n; t++) f[t] = f[t]! + w * column[t]!;
   });
+  const sums = autocovarianceSums(f, preLag);
   let s0 = 0;
   let s1 = 0;
   let s2 = 0;
   for (let j = 0; j <= preLag; j++) {
-    let sum = 0;
-    for (let t = 0; t + j < n; t++) sum += f[t]! * f[t + j]!;
-    const sigma = sum / n;
+    const sigma = sums[j]! / n;
     s0 += j === 0 ? sigma : 2 * sigma;
     s1 += 2 * j * sigma;
     s2 += 2 * j * j * sigma;
   }
   if (kernel === "bartlett") return 1.1447 * ((s1 / s0) ** 2) ** (1 / 3) * originalRows ** (1 / 3);
   return 1.3221 * ((s2 / s0) ** 2) ** (1 / 5) * originalRows ** (1 / 5);
+}
+
+/**
+ * sum_{t} f_t f_{t+j} for j = 0..lags in one pass over f in blocks that stay in the cache (each sum
+ * adds its products in the order of t, as a pass per lag would, block by block).
+ */
+export function autocovarianceSums(f: Float64Array, lags: number): Float64Array {
+  const n = f.length;
+  const sums = new Float64Array(lags + 1);
+  const blockRows = 2048;
+  for (let start = 0; start < n; start += blockRows) {
+    const end = Math.min(n, start + blockRows);
+    let j = 0;
+    // Four lags at a time over the rows all four reach (each f_t read once for them), then the rest.
+    for (; j + 3 <= lags; j += 4) {
+      const last = Math.min(end, n - j - 3);
+      let s0 = 0;
+      let s1 = 0;
+      let s2 = 0;
+      let s3 = 0;
+      let t = start;
+      for (; t < last; t++) {
+        const x = f[t]!;
+        s0 += x * f[t + j]!;
+        s1 += x * f[t + j + 1]!;
+        s2 += x * f[t + j + 2]!;
+        s3 += x * f[t + j + 3]!;
+      }
+      // Rows near the end that only the shorter lags reach.
+      for (let r = t; r < Math.min(end, n - j); r++) s0 += f[r]! * f[r + j]!;
+      for (let r = t; r < Math.min(end, n - j - 1); r++) s1 += f[r]! * f[r + j + 1]!;
+      for (let r = t; r < Math.min(end, n - j - 2); r++) s2 += f[r]! * f[r + j + 2]!;
+      sums[j] = sums[j]! + s0;
+      sums[j + 1] = sums[j + 1]! + s1;
+      sums[j + 2] = sums[j + 2]! + s2;
+      sums[j + 3] = sums[j + 3]! + s3;
+    }
+    for (; j <= lags; j++) {
+      const last = Math.min(end, n - j);
+      let sum = 0;
+      for (let t = start; t < last; t++) sum += f[t]! * f[t + j]!;
+      sums[j] = sums[j]! + sum;
+    }
+  }
+  return sums;
 }
 
 export function andrews1991Bandwidth(columns: readonly Float64Array[], kernel: HacKernel, columnWeights: readonly number[]): number {

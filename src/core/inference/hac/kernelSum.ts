@@ -10,9 +10,12 @@
  * and the Bartlett kernel the bandwidth S becomes the lag floor(S) (R's NeweyWest), so the weights are
  * 1 - j/(floor(S) + 1); every other case uses k(j/S) directly (R's kernHAC / weightsAndrews).
  * With prewhitening the sum runs over the VAR(1) residuals and is recoloured D S D' (prewhiten.ts).
+ * The Bartlett sum is computed in linear time from window sums (bartlettWindows.ts), the others lag
+ * by lag (weightedAutocovarianceSum, which stays the reference the window form is tested against).
  */
 
 import { andrews1991Bandwidth, neweyWest1994Bandwidth } from "./bandwidth.js";
+import { bartlettKernelSum } from "./bartlettWindows.js";
 import { lagWeights } from "./kernels.js";
 import { sandwich, type Matrix } from "../../numerics/linearAlgebra.js";
 import { defaultHac, type BandwidthChoice, type HacKernel, type HacOptions } from "../options.js";
@@ -148,16 +151,15 @@ export function kernelSum(columns: readonly Float64Array[], options: HacOptions,
         ? andrews1991Bandwidth(series, kernel, columnWeights)
         : choice;
   if (!(bandwidth > 0 && Number.isFinite(bandwidth))) throw new RangeError(`HAC bandwidth must be positive, got ${bandwidth}`);
-  const weights =
-    kernel === "bartlett" && choice === "newey-west-1994"
-      ? lagWeights(kernel, Math.floor(bandwidth) + 1, n)
-      : lagWeights(kernel, bandwidth, n);
+  const effective = kernel === "bartlett" && choice === "newey-west-1994" ? Math.floor(bandwidth) + 1 : bandwidth;
+  const weights = lagWeights(kernel, effective, n);
   let lags: number | null = null;
   if (kernel === "bartlett") {
     lags = 0;
     for (let j = 0; j < weights.length; j++) if (weights[j]! > 0) lags = j;
   }
-  const raw = weightedAutocovarianceSum(series, weights);
+  // Bartlett in linear time from window sums (bartlettWindows.ts); other kernels lag by lag.
+  const raw = kernel === "bartlett" ? bartlettKernelSum(series, effective) : weightedAutocovarianceSum(series, weights);
   const sum = whitened === null ? raw : sandwich(whitened.recolour, raw);
   return { sum, kernel, bandwidth, lags, prewhite };
 }

@@ -1,0 +1,91 @@
+/**
+ * The Bartlett kernel sum in linear time, from sums over windows of consecutive rows.
+ *
+ * ## Method (docs/methods.md §8, "the Bartlett sum from window sums")
+ * Let W_t = sum of u_s over the window s = t .. t + B - 1, cut to the rows 1..n, for every window
+ * start t = 2 - B .. n (n + B - 1 windows), and Q(B) = sum_t W_t W_t'. A pair of rows (s, r) lies
+ * together in exactly max(B - |s - r|, 0) windows, so
+ *   Q(B) = sum_{s,r} max(B - |s - r|, 0) u_s u_r',
+ * which is B times the Bartlett sum with bandwidth B (weights 1 - j/B). For a real bandwidth S with
+ * B = ceil(S), the weights 1 - j/S (j < S) give
+ *   S_sum = ((S - B + 1) Q(B) + (B - S) Q(B - 1)) / S,    Q(0) = 0,
+ * since S - j = (B - j) - (B - S) and Q(B) - Q(B - 1) counts every pair with |s - r| < B once.
+ * The cost is O((n + B) k^2) instead of O(n B k^2) for the lag-by-lag sum (kernelSum.ts); the two
+ * agree to rounding (test/core/inference/hac/bartlettWindows.test.ts).
+ *
+ * Accuracy: each window sum is a running sum held as an unevaluated pair hi + lo (Knuth's TwoSum), so
+ * W_t stays correct to about one rounding of its own size whatever n, in O(k) memory; the squares are
+ * summed in blocks of 1,024 windows (pairwise at one level) to keep the total's rounding small.
+ */
+import type { Matrix } from "../../numerics/linearAlgebra.js";
+
+/** The Bartlett sum S_sum (Gamma_0 + sum_j (1 - j/S)(Gamma_j + Gamma_j')) of `columns` at bandwidth S. */
+export function bartlettKernelSum(columns: readonly Float64Array[], bandwidth: number): Matrix {
+  if (!(bandwidth > 0 && Number.isFinite(bandwidth)))
+    throw new RangeError(`bartlettKernelSum: bandwidth must be positive, got ${bandwidth}`);
+  const k = columns.length;
+  const whole = Math.ceil(bandwidth);
+  const a = (bandwidth - whole + 1) / bandwidth;
+  const b = (whole - bandwidth) / bandwidth;
+  const upper = windowSquares(columns, whole);
+  const lower = b > 0 && whole > 1 ? windowSquares(columns, whole - 1) : null;
+  return Array.from({ length: k }, (_, i) =>
+    Array.from({ length: k }, (_, j) => {
+      const at = i <= j ? i * k + j : j * k + i;
+      return a * upper[at]! + (lower === null ? 0 : b * lower[at]!);
+    }),
+  );
+}
+
+/**
+ * Q(B) = sum over the n + B - 1 windows of W W' (upper triangle, row-major k x k). Each window sum
+ * is kept as a running pair hi + lo: a row entering is added and a row leaving subtracted with
+ * TwoSum, the rounding error of each step going to lo, so the sums do not drift over n steps.
+ */
+function windowSquares(columns: readonly Float64Array[], width: number): Float64Array {
+  const k = columns.length;
+  const n = columns[0]!.length;
+  const total = new Float64Array(k * k);
+  const block = new Float64Array(k * k);
+  const hi = new Float64Array(k);
+  const lo = new Float64Array(k);
+  const w = new Float64Array(k);
+  let inBlock = 0;
+  // Window t covers rows max(0, t) .. min(n, t + width) - 1; t = 1 - width is the row 0 alone.
+  for (let t = 1 - width; t < n; t++) {
+    const entering = t + width - 1;
+    for (let a = 0; a < k; a++) {
+      const column = columns[a]!;
+      let s = hi[a]!;
+      let c = lo[a]!;
+      if (entering < n) {
+        const x = column[entering]!;
+        const sum = s + x;
+        const virtual = sum - s;
+        c += s - (sum - virtual) + (x - virtual);
+        s = sum;
+      }
+      if (t > 0) {
+        const x = -column[t - 1]!;
+        const sum = s + x;
+        const virtual = sum - s;
+        c += s - (sum - virtual) + (x - virtual);
+        s = sum;
+      }
+      hi[a] = s;
+      lo[a] = c;
+      w[a] = s + c;
+    }
+    for (let a = 0; a < k; a++) {
+      const wa = w[a]!;
+      for (let b = a; b < k; b++) block[a * k + b] = block[a * k + b]! + wa * w[b]!;
+    }
+    if (++inBlock === 1024) {
+      for (let i = 0; i < total.length; i++) total[i] = total[i]! + block[i]!;
+      block.fill(0);
+      inBlock = 0;
+    }
+  }
+  for (let i = 0; i < total.length; i++) total[i] = total[i]! + block[i]!;
+  return total;
+}
