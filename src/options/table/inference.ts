@@ -130,7 +130,7 @@ export const inferenceOptions = {
   threads: option(numberKind(integerRule(1, 256)), {
     name: "threads",
     argument: "<n>",
-    help: "worker threads for the bootstrap, at most one per core (results do not depend on it)",
+    help: "worker threads for the bootstrap, at most one per core, and one for a bootstrap too small for more to pay (rows x replicates under 40 million); results do not depend on it",
     group: "bootstrap",
     commands: ["solve"],
     otherwise: "the cores, at most 4",
