@@ -57,6 +57,11 @@ export async function run(argv: readonly string[], io: CliIo): Promise<ExitCode>
     argv[0],
   );
   for (const command of program.commands) command.exitOverride().configureOutput({ writeOut: io.writeOut, writeErr: io.writeErr });
+  // No command at all: the help, on stderr (nothing was asked for stdout), and a usage exit code.
+  if (argv.length === 0) {
+    io.writeErr(program.helpInformation());
+    return exitCodes.usage;
+  }
   try {
     await program.parseAsync([...argv], { from: "user" });
   } catch (error) {
@@ -65,10 +70,6 @@ export async function run(argv: readonly string[], io: CliIo): Promise<ExitCode>
       return helpOrVersion ? exitCodes.ok : exitCodes.usage;
     }
     throw error;
-  }
-  if (argv.length === 0) {
-    io.writeErr(program.helpInformation());
-    return exitCodes.usage;
   }
   return exitCode;
 }
