@@ -85,8 +85,8 @@ function windowSpecOf(options: CommandOptions<"roll">): WindowSpec {
   const first = options.expanding ? options.minPeriods : options.window;
   if (first === undefined) throw new Error("rollJob: the window size passed validation without a value");
   return options.expanding
-    ? { kind: "expanding", minPeriods: first, step: options.step }
-    : { kind: "window", size: first, step: options.step };
+    ? { kind: "expanding", minPeriods: first, step: options.step, align: options.align }
+    : { kind: "window", size: first, step: options.step, align: options.align };
 }
 
 async function* rollPairs(

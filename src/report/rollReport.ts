@@ -124,8 +124,8 @@ export function rollRecord(meta: RollMeta, window: WindowSolution, uncertainty: 
     },
     window:
       meta.spec.kind === "window"
-        ? { kind: "window" as const, size: meta.spec.size, step: meta.spec.step }
-        : { kind: "expanding" as const, minPeriods: meta.spec.minPeriods, step: meta.spec.step },
+        ? { kind: "window" as const, size: meta.spec.size, step: meta.spec.step, align: meta.spec.align ?? "end" }
+        : { kind: "expanding" as const, minPeriods: meta.spec.minPeriods, step: meta.spec.step, align: meta.spec.align ?? "end" },
     start: meta.dates[window.start] ?? "",
     end: meta.dates[window.end] ?? "",
     observations: window.observations,

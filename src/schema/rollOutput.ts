@@ -1,6 +1,7 @@
 /** Zod schema of one `roll --format jsonl` record: solve's field names per window, plus the window. */
 
 import * as z from "zod";
+import { windowAlignments } from "../core/rolling/index.js";
 import { unitChoices } from "../input/index.js";
 import { boundsSchema, diagnosticSchema, landmarksSchema, momentsSchema } from "./parts.js";
 import type { Document } from "./document.js";
@@ -33,8 +34,18 @@ export const rollOutputSchema = doc(
       frequency: z.strictObject({ name: z.string(), periodsPerYear: z.number().positive() }).nullable(),
     }),
     window: z.discriminatedUnion("kind", [
-      z.strictObject({ kind: z.literal("window"), size: z.int().min(3), step: z.int().positive() }),
-      z.strictObject({ kind: z.literal("expanding"), minPeriods: z.int().min(3), step: z.int().positive() }),
+      z.strictObject({
+        kind: z.literal("window"),
+        size: z.int().min(3),
+        step: z.int().positive(),
+        align: doc(z.enum(windowAlignments), "end: the newest window ends on the last row; start: the first starts on row 0"),
+      }),
+      z.strictObject({
+        kind: z.literal("expanding"),
+        minPeriods: z.int().min(3),
+        step: z.int().positive(),
+        align: z.enum(windowAlignments),
+      }),
     ]),
     start: doc(z.string(), "first date of the window"),
     end: doc(z.string(), "last date of the window"),

@@ -174,7 +174,7 @@ describe("standard output", () => {
     const stream: OutputStream = {
       write: (chunk) => {
         written.push(chunk);
-        return written.length > 1 ? false : true;
+        return written.length <= 1;
       },
       once: (_event, listener) => drains.push(listener),
     };

@@ -1,7 +1,7 @@
 /** The bootstrap step's choice of threads (src/jobs/bootstrapStep.ts): one where a second does not pay. */
 import { describe, expect, it } from "vitest";
 import { bootstrapThreads, inThisThread, runBootstrap, threadsPayFrom } from "../../src/jobs/bootstrapStep.js";
-import type { BootstrapExecutor } from "../../src/jobs/context.js";
+import type { BootstrapExecutor, JobContext } from "../../src/jobs/context.js";
 
 function sample(n: number) {
   const low = Float64Array.from({ length: n }, (_, t) => Math.sin(t) * 0.01);
@@ -24,8 +24,11 @@ describe("bootstrap threads", () => {
       return inThisThread(task, threads, progress);
     };
     const settings = { replicates: 600, blockLength: 5, seed: 3, confidence: 0.95, threads: 2 } as const;
-    const small = await runBootstrap(sample(300), settings, { bootstrap: recording });
-    const plain = await runBootstrap(sample(300), { ...settings, threads: 1 }, {});
+    const read: JobContext["read"] = async () => {
+      throw new Error("no files here");
+    };
+    const small = await runBootstrap(sample(300), settings, { read, bootstrap: recording });
+    const plain = await runBootstrap(sample(300), { ...settings, threads: 1 }, { read });
     expect(asked).toEqual([1]);
     expect(small).toEqual(plain);
   });

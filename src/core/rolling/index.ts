@@ -1,7 +1,7 @@
 /** Rolling and expanding windows: the plan, the scan of their sums, each window's set, and the CSV columns. */
 export { type WindowColumnName, type WindowColumns, rollSolveColumns, windowColumnNames } from "./columns.js";
 export { scanWindows, type WindowSums } from "./scan.js";
-export { type WindowSpec, windowCount } from "./windowPlan.js";
+export { type WindowAlignment, type WindowSpec, windowAlignments, windowCount, windowOffset } from "./windowPlan.js";
 export {
   type CapmLine,
   type CapmPair,

@@ -32,7 +32,7 @@
 
 import { assertParameter } from "../parameters.js";
 import { PairAccumulator } from "./pairAccumulator.js";
-import { checkSpec, type WindowSpec, windowCount } from "./windowPlan.js";
+import { checkSpec, type WindowSpec, windowCount, windowOffset } from "./windowPlan.js";
 
 /** The raw sums of one window: means (full, unshifted) and centred sums of squares and products. */
 export interface WindowSums {
@@ -61,12 +61,13 @@ export function* scanWindows(
   if (typeof riskFree !== "number" && riskFree.length !== length) throw new RangeError("rolling: riskFree differs in length");
   const rf = (t: number): number => (typeof riskFree === "number" ? riskFree : riskFree[t]!);
   const count = windowCount(length, spec);
+  const offset = windowOffset(length, spec);
   const newer = new PairAccumulator();
 
   if (spec.kind === "expanding") {
     let next = 0;
     for (let k = 0; k < count; k++) {
-      const end = spec.minPeriods - 1 + k * spec.step;
+      const end = offset + spec.minPeriods - 1 + k * spec.step;
       for (; next <= end; next++) {
         const r = rf(next);
         newer.add(low[next]! - r, high[next]! - r);
@@ -99,7 +100,7 @@ export function* scanWindows(
   let boundary = 0; // rows >= boundary are in the newer part
   let lastEnd = -1;
   for (let k = 0; k < count; k++) {
-    const start = k * spec.step;
+    const start = offset + k * spec.step;
     const end = start + size - 1;
     if (start >= boundary) {
       // Rebuild the suffix table over [start, end]; the newer part starts empty at end + 1.

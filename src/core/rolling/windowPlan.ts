@@ -5,18 +5,31 @@
  *
  * Conventions are solve's (solve.ts): excess returns r - rf formed row by row exactly as solve forms
  * them, market proxy M = w low + (1 - w) high, divisor n - 1. A window spec is either
- * - `{ kind: "window", size, step }`: rows [s, s + size - 1] for s = 0, step, 2 step, ... while the
- *   window fits in the sample (the first window starts at row 0; trailing rows that do not complete a
- *   window are not reported), or
- * - `{ kind: "expanding", minPeriods, step }`: rows [0, e] for e = minPeriods - 1, minPeriods - 1 + step, ...
+ * - `{ kind: "window", size, step }`: rows [s, s + size - 1] for s = o, o + step, o + 2 step, ...
+ *   while the window fits in the sample, or
+ * - `{ kind: "expanding", minPeriods, step }`: rows [0, e] for e = o + minPeriods - 1, then every step.
+ * The offset o aligns the windows (`align`, default "end"): with "end", o = (n - first) mod step, so the
+ * newest window ends on the last row and the rows that do not fill a whole step are the oldest ones;
+ * with "start", o = 0 (the first window starts at row 0 and trailing rows may go unreported).
  */
 
 import { assertParameter } from "../parameters.js";
 
 /** Which windows to compute. `step` is the distance between consecutive windows' ends (and starts). */
 export type WindowSpec =
-  | { readonly kind: "window"; readonly size: number; readonly step: number }
-  | { readonly kind: "expanding"; readonly minPeriods: number; readonly step: number };
+  | { readonly kind: "window"; readonly size: number; readonly step: number; readonly align?: WindowAlignment }
+  | { readonly kind: "expanding"; readonly minPeriods: number; readonly step: number; readonly align?: WindowAlignment };
+
+/** Where the windows are anchored: the newest ends on the last row ("end"), or the first starts on row 0. */
+export type WindowAlignment = "end" | "start";
+export const windowAlignments = ["end", "start"] as const satisfies readonly WindowAlignment[];
+
+/** The rows skipped before the first window's start (rolling) or added to its end (expanding). */
+export function windowOffset(length: number, spec: WindowSpec): number {
+  const first = spec.kind === "window" ? spec.size : spec.minPeriods;
+  if ((spec.align ?? "end") === "start" || length < first) return 0;
+  return (length - first) % spec.step;
+}
 
 /** The number of windows `spec` gives on `length` rows (0 when the first window does not fit). */
 export function windowCount(length: number, spec: WindowSpec): number {

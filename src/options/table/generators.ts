@@ -2,6 +2,7 @@
 import { choiceKind, garchKind, isoDateKind, nameListKind, numberKind, switchKind } from "../kinds.js";
 import { option, structureCommands } from "../spec.js";
 import { frequencies } from "../../core/calendar.js";
+import { windowAlignments } from "../../core/rolling/index.js";
 import { defaultSeed, integerRule, parameters } from "../../core/parameters.js";
 
 export const generatorOptions = {
@@ -20,6 +21,14 @@ export const generatorOptions = {
     group: "windows",
     commands: ["roll"],
     default: 1,
+  }),
+  align: option(choiceKind(windowAlignments), {
+    name: "align",
+    argument: "<end|start>",
+    help: "end: the newest window ends on the last row (the oldest rows that do not fill a step are left out); start: the first window starts on the first row",
+    group: "windows",
+    commands: ["roll"],
+    default: "end",
   }),
   expanding: option(switchKind(), {
     name: "expanding",

@@ -8,6 +8,7 @@
  * rounding error scales with the data's spread, not with their own size: a mean, 1e-12 standard
  * deviations (a window's mean can be arbitrarily close to 0), and the covariance, 1e-12 sqrt(V_l V_h).
  */
+import fc from "fast-check";
 
 import { describe, expect, test } from "vitest";
 import { iterateRollingMoments, rollingMoments, windowCount, type WindowSpec } from "../../../src/core/rolling/index.js";
@@ -43,20 +44,57 @@ describe("window placement", () => {
   const spans = (spec: WindowSpec) =>
     rollingMoments(data.low, data.high, data.riskFree, 0.5, spec).map((w) => [w.start, w.end, w.observations]);
 
-  test("sliding windows start at row 0 and advance by step; a trailing partial window is not reported", () => {
-    expect(spans({ kind: "window", size: 30, step: 25 })).toEqual([
+  test("aligned at the start: sliding windows start at row 0 and advance by step; trailing rows may go unreported", () => {
+    expect(spans({ kind: "window", size: 30, step: 25, align: "start" })).toEqual([
       [0, 29, 30],
       [25, 54, 30],
       [50, 79, 30],
     ]);
   });
 
-  test("expanding windows start at row 0 and end at minPeriods - 1, then every step rows", () => {
-    expect(spans({ kind: "expanding", minPeriods: 40, step: 30 })).toEqual([
+  test("aligned at the end (the default): the newest window ends on the last row; the oldest rows are left out", () => {
+    expect(spans({ kind: "window", size: 30, step: 25 })).toEqual([
+      [20, 49, 30],
+      [45, 74, 30],
+      [70, 99, 30],
+    ]);
+    expect(spans({ kind: "expanding", minPeriods: 40, step: 25 })).toEqual([
+      [0, 49, 50],
+      [0, 74, 75],
+      [0, 99, 100],
+    ]);
+  });
+
+  test("expanding windows aligned at the start end at minPeriods - 1, then every step rows", () => {
+    expect(spans({ kind: "expanding", minPeriods: 40, step: 30, align: "start" })).toEqual([
       [0, 39, 40],
       [0, 69, 70],
       [0, 99, 100],
     ]);
+  });
+
+  test("end-aligned windows are the start-aligned windows of the sample without its oldest offset rows", () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 3, max: 40 }), fc.integer({ min: 1, max: 30 }), (size, step) => {
+        const offset = (n - size) % step;
+        const end = spans({ kind: "window", size, step });
+        const cut = rollingMoments(
+          data.low.slice(offset),
+          data.high.slice(offset),
+          typeof data.riskFree === "number" ? data.riskFree : data.riskFree.slice(offset),
+          0.5,
+          {
+            kind: "window",
+            size,
+            step,
+            align: "start",
+          },
+        ).map((w) => [w.start + offset, w.end + offset, w.observations]);
+        expect(end).toEqual(cut);
+        expect(end.at(-1)?.[1]).toBe(n - 1);
+      }),
+      { numRuns: 100, seed: 7 },
+    );
   });
 
   test("a window longer than the sample gives no windows", () => {
