@@ -65,4 +65,25 @@ describe("charts from the command line", () => {
     expect(XMLValidator.validate(chart)).toBe(true);
     expect(chart).toContain("rolling windows of 60 periods");
   });
+
+  for (const [file, window, first] of [
+    ["monthly-yyyymm.csv", "12", /1990|1991/],
+    ["annual-yyyy.csv", "10", /1989|1990/],
+  ] as const) {
+    it(`draws the roll chart for dates written like ${file.split("-").slice(1).join("-")} (every form the reader accepts)`, () => {
+      const svg = join(scratch, `${file}.svg`);
+      const input = join(root, "test/fixtures/shapes", file);
+      const result = spawnSync(
+        process.execPath,
+        [cli, "roll", input, "--low", "low", "--high", "high", "--window", window, "--chart", svg],
+        {
+          encoding: "utf8",
+        },
+      );
+      expect(result.status, result.stderr).toBe(0);
+      const chart = readFileSync(svg, "utf8");
+      expect(XMLValidator.validate(chart)).toBe(true);
+      expect(chart).toMatch(first);
+    });
+  }
 });

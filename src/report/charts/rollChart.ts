@@ -68,10 +68,24 @@ interface Row {
   readonly upper: number | null;
 }
 
-/** Parses a window end date to a UTC timestamp; throws a RangeError for anything that is not ISO. */
-function timestamp(end: string): number {
-  const m = /^(\d{4})-(\d{2})-(\d{2})(?:[T ](\d{2}):(\d{2})(?::(\d{2}))?)?/.exec(end);
-  const t = m === null ? NaN : Date.UTC(+m[1]!, +m[2]! - 1, +m[3]!, +(m[4] ?? 0), +(m[5] ?? 0), +(m[6] ?? 0));
+/**
+ * A window end date as a UTC timestamp at the start of its period, for every form the reader writes
+ * (src/input/values/dates.ts): "2020", "2020-03", "2020-03-31", "2020-03-31T09:30", with seconds,
+ * a fraction and "Z" or an offset. Anything else is a bug upstream: a RangeError.
+ */
+export function timestamp(end: string): number {
+  const m = /^(\d{4})(?:-(\d{2})(?:-(\d{2})(?:[T ](\d{2}):(\d{2})(?::(\d{2})(\.\d+)?)?(Z|[+-]\d{2}:?\d{2})?)?)?)?$/.exec(end);
+  let t = Number.NaN;
+  if (m !== null) {
+    const seconds = +(m[6] ?? 0) + +(m[7] ?? 0);
+    t = Date.UTC(+m[1]!, +(m[2] ?? 1) - 1, +(m[3] ?? 1), +(m[4] ?? 0), +(m[5] ?? 0)) + seconds * 1000;
+    const zone = m[8];
+    if (zone !== undefined && zone !== "Z") {
+      const sign = zone.startsWith("-") ? -1 : 1;
+      const digits = zone.slice(1).replace(":", "");
+      t -= sign * (+digits.slice(0, 2) * 60 + +digits.slice(2)) * 60_000;
+    }
+  }
   if (!Number.isFinite(t)) throw new RangeError(`renderRollChart: window end ${JSON.stringify(end)} is not an ISO date`);
   return t;
 }

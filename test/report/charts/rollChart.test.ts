@@ -2,7 +2,7 @@ import { afterEach, describe, expect, test } from "vitest";
 import { solve } from "../../../src/core/solve.js";
 import { simulateSample } from "../../../src/core/forward/simulate.js";
 import { cautionCaption } from "../../../src/report/charts/common.js";
-import { renderRollChart, type RollWindowPoint } from "../../../src/report/charts/rollChart.js";
+import { renderRollChart, type RollWindowPoint, timestamp } from "../../../src/report/charts/rollChart.js";
 import { facetItems, groupWithClass, hasMark, markItems, parseSvg, texts } from "./svg.js";
 
 const meta = { source: "examples/books.csv", window: "24 months" };
@@ -113,5 +113,25 @@ describe("renderRollChart", () => {
   test("says there is nothing to draw when there are no windows", async () => {
     const root = parseSvg(await renderRollChart([], meta));
     expect(texts(root)).toContain("No rolling windows to draw");
+  });
+});
+
+describe("window end dates on the time axis", () => {
+  // Expected values from the platform's own ISO 8601 parser (Date.parse), with the zone written out.
+  test.each([
+    ["2020", "2020-01-01T00:00:00Z"],
+    ["2020-03", "2020-03-01T00:00:00Z"],
+    ["2020-03-31", "2020-03-31T00:00:00Z"],
+    ["2020-03-31T09:30", "2020-03-31T09:30:00Z"],
+    ["2020-03-31T09:30:15.25Z", "2020-03-31T09:30:15.250Z"],
+    ["2020-03-31T09:30:00+02:00", "2020-03-31T09:30:00+02:00"],
+    ["2020-03-31 09:30:00-0530", "2020-03-31T09:30:00-05:30"],
+  ])("%s", (end, iso) => {
+    expect(timestamp(end)).toBe(Date.parse(iso));
+  });
+
+  test("anything else is a bug upstream, refused", () => {
+    expect(() => timestamp("03/31/2020")).toThrow(RangeError);
+    expect(() => timestamp("")).toThrow(RangeError);
   });
 });
