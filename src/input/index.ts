@@ -23,6 +23,7 @@ export { compileDateFormat } from "./values/dateFormat.js";
 export { detectDelimiter } from "./dialect.js";
 export { closestName } from "./suggest.js";
 export { largeInputBuffer } from "./engines/rowKernel.js";
+export { maximumInputBytes, maximumTextLength } from "./limits.js";
 export {
   describeInputIssue,
   describeInputWarning,

@@ -2,12 +2,16 @@
  * Every expected problem with an input file, as a typed value with a stable kebab-case `code`.
  * Lines are 1-based lines of the source text; columns are header names. Their wording is in issues.ts.
  */
+import type { QuoteProblem } from "./engines/grid.js";
+import type { BinaryKind, UnicodeEncoding } from "./fileKind.js";
+import type { DateProblem } from "./values/dates.js";
 
 /** Stable issue codes, in a fixed order, so callers can map them to exit codes. */
 export const inputIssueCodes = [
   "empty-file",
   "header-only",
   "no-table",
+  "not-a-return-table",
   "no-such-block",
   "unknown-column",
   "duplicate-column",
@@ -27,8 +31,12 @@ export const inputIssueCodes = [
   "non-positive-price",
   "invalid-encoding",
   "binary-content",
+  "not-a-text-file",
   "unsupported-encoding",
+  "text-too-large",
+  "input-too-large",
   "invalid-option",
+  "similar-issues",
   "too-many-issues",
   "internal-error",
 ] as const;
@@ -50,6 +58,7 @@ export type InputIssue =
   | Issue<"empty-file">
   | Issue<"header-only", { readonly line: number }>
   | Issue<"no-table">
+  | Issue<"not-a-return-table", { readonly size: number; readonly wanted: readonly string[] }>
   | Issue<"no-such-block", { readonly block: number; readonly available: number }>
   | Issue<
       "unknown-column",
@@ -70,8 +79,20 @@ export type InputIssue =
   | Issue<"missing-value", { readonly line: number; readonly column: string; readonly value: string }>
   | Issue<"wrong-field-count", { readonly line: number; readonly expected: number; readonly actual: number }>
   | Issue<"unquoted-delimiter", { readonly line: number; readonly column: string; readonly value: string; readonly delimiter: string }>
-  | Issue<"malformed-quotes", { readonly detail: string }>
-  | Issue<"bad-date", { readonly line: number; readonly column: string; readonly value: string; readonly dateFormat?: string }>
+  | Issue<"malformed-quotes", { readonly problem: QuoteProblem /** 1-based. */; readonly field?: number }>
+  | Issue<
+      "bad-date",
+      {
+        readonly line: number;
+        readonly column: string;
+        readonly value: string;
+        readonly dateFormat?: string;
+        /** Why a text that fits a layout is no date. */
+        readonly problem?: DateProblem;
+        /** How the column's slash dates are read, when the problem is with one. */
+        readonly reading?: "day first" | "month first";
+      }
+    >
   | Issue<
       "ambiguous-dates",
       { readonly line: number; readonly column: string; readonly value: string; readonly dayFirst: string; readonly monthFirst: string }
@@ -104,10 +125,27 @@ export type InputIssue =
       { readonly line: number; readonly column: string; readonly value: string; readonly decimalValue: number; readonly limit: number }
     >
   | Issue<"non-positive-price", { readonly line: number; readonly column: string; readonly value: string }>
-  | Issue<"invalid-encoding", { readonly line: number; readonly offset: number }>
+  | Issue<"invalid-encoding", { readonly line: number; readonly offset: number; readonly byte: number }>
   | Issue<"binary-content", { readonly line: number; readonly offset: number }>
-  | Issue<"unsupported-encoding", { readonly encoding: string }>
+  | Issue<"not-a-text-file", { readonly kind: BinaryKind; readonly size: number }>
+  | Issue<"unsupported-encoding", { readonly encoding: UnicodeEncoding; readonly bom: boolean }>
+  | Issue<
+      "text-too-large",
+      {
+        readonly size: number;
+        /** The text's length in UTF-16 code units, and the most a string holds. */
+        readonly length: number;
+        readonly limit: number;
+        /** What sent the file to the text path, and on which line. */
+        readonly cause: "non-ascii" | "quote" | "carriage-return" | "size";
+      }
+    >
+  | Issue<"input-too-large", { readonly size: number; readonly limit: number }>
   | Issue<"invalid-option", { readonly option: string; readonly reason: string }>
+  | Issue<
+      "similar-issues",
+      { readonly like: InputIssueCode; readonly omitted: number; readonly firstLine?: number; readonly lastLine?: number }
+    >
   | Issue<"too-many-issues", { readonly omitted: number }>
   | Issue<"internal-error", { readonly detail: string }>;
 
