@@ -91,10 +91,10 @@ const BINARY: Record<BinaryKind, readonly [string, string]> = {
 
 /** What is wrong with the quoting, for "malformed-quotes". */
 const QUOTING: Record<QuoteProblem, string> = {
-  "quote-inside": "a double quote inside a field that does not start with one",
-  "after-closing": "text after the closing quote of a field",
-  "not-closed": "a quoted field that is never closed",
-  other: "quotes that cannot be read",
+  "quote-inside": "has a double quote inside but does not start with one",
+  "after-closing": "a field has text after its closing quote",
+  "not-closed": "a quoted field is never closed",
+  other: "the quotes cannot be read",
 };
 
 /** What sent a file to the text path, for "text-too-large". */
@@ -155,7 +155,7 @@ export function describeInputIssue(issue: InputIssue): string {
     case "unquoted-delimiter":
       return `${at}: ${quote(issue.value)} looks like a number split by the ${delimiterName(issue.delimiter)} delimiter; quote the value, use "." as the decimal separator, or choose another delimiter (--delimiter)`;
     case "malformed-quotes":
-      return `${at}: broken quoting (${QUOTING[issue.problem]}${issue.field === undefined ? "" : ` in field ${issue.field}`}); every quoted field must start and end with a double quote, and a quote inside one is written twice`;
+      return `${at}: broken quoting (${issue.problem === "quote-inside" ? `${issue.field === undefined ? "a field" : `field ${issue.field}`} ` : ""}${QUOTING[issue.problem]}); every quoted field must start and end with a double quote, and a quote inside one is written twice`;
     case "bad-date": {
       if (issue.value.trim() === "") return `${at}: the date is empty; every data row needs a date`;
       if (issue.problem !== undefined) {

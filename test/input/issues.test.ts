@@ -197,3 +197,16 @@ describe("why a date is not a date", () => {
     );
   });
 });
+
+describe("broken quoting", () => {
+  it("is worded by what is wrong and, for a quote inside a field, which field", () => {
+    const at = { code: "malformed-quotes", source: "f.csv", line: 2 } as const;
+    const rule = "every quoted field must start and end with a double quote, and a quote inside one is written twice";
+    expect(describeInputIssue({ ...at, problem: "quote-inside", field: 2 })).toBe(
+      `f.csv line 2: broken quoting (field 2 has a double quote inside but does not start with one); ${rule}`,
+    );
+    expect(describeInputIssue({ ...at, problem: "not-closed" })).toBe(
+      `f.csv line 2: broken quoting (a quoted field is never closed); ${rule}`,
+    );
+  });
+});
