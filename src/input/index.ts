@@ -23,6 +23,7 @@ export { compileDateFormat } from "./values/dateFormat.js";
 export { detectDelimiter } from "./dialect.js";
 export { closestName } from "./suggest.js";
 export { largeInputBuffer } from "./engines/rowKernel.js";
+export { maximumInputBytes, maximumTextLength } from "./limits.js";
 export {
   describeInputIssue,
   describeInputWarning,
@@ -32,9 +33,3 @@ export {
   type InputWarning,
   type ColumnRole,
 } from "./issues.js";
-
-/**
- * The largest input, file or standard input, in bytes: 2 GiB - 1, the most a single buffer here may
- * hold whole (the reader works on the whole input at once). Larger inputs are refused up front.
- */
-export const maximumInputBytes = 2 ** 31 - 1;

@@ -1,127 +1,32 @@
 /**
- * Every expected problem with an input file, as a typed value with a stable kebab-case `code`,
- * and the one place where they are worded (`describeInputIssue`, `describeInputWarning`).
- * Lines are 1-based lines of the source text; columns are header names.
+ * The one place where input issues and warnings (issueTypes.ts) are worded: `describeInputIssue`,
+ * `describeInputWarning`.
  */
+import type { QuoteProblem } from "./engines/grid.js";
+import type { BinaryKind } from "./fileKind.js";
+import type { At, InputIssue, InputIssueCode, InputWarning } from "./issueTypes.js";
+import { maximumInputBytes } from "./limits.js";
+import type { DateProblem } from "./values/dates.js";
+import { MONTH_NAMES } from "./values/dateFormat.js";
 
-/** Stable issue codes, in a fixed order, so callers can map them to exit codes. */
-export const inputIssueCodes = [
-  "empty-file",
-  "header-only",
-  "no-table",
-  "no-such-block",
-  "unknown-column",
-  "duplicate-column",
-  "unknown-series",
-  "not-a-number",
-  "missing-value",
-  "wrong-field-count",
-  "unquoted-delimiter",
-  "malformed-quotes",
-  "bad-date",
-  "ambiguous-dates",
-  "duplicate-date",
-  "unsorted-dates",
-  "too-few-rows",
-  "too-few-common-dates",
-  "extreme-value",
-  "non-positive-price",
-  "invalid-encoding",
-  "binary-content",
-  "unsupported-encoding",
-  "invalid-option",
-  "too-many-issues",
-  "internal-error",
-] as const;
+export { inputIssueCodes, type ColumnRole, type InputIssue, type InputIssueCode, type InputWarning } from "./issueTypes.js";
 
-/** One of `inputIssueCodes`. */
-export type InputIssueCode = (typeof inputIssueCodes)[number];
+/** Quoted file content is cut to this many characters. */
+const QUOTED_LENGTH = 40;
+/** Control, format and bidirectional characters, which could garble or disguise a terminal line. */
+const UNSAFE = /[\u007f-\u009f\u00ad\u061c\u200b-\u200f\u2028-\u202e\u2060-\u206f\ufeff\ufff9-\ufffb]/g;
 
-interface At {
-  readonly source: string;
-  readonly line?: number;
-  readonly column?: string;
-  readonly value?: string;
+/**
+ * Text quoted in a message: in double quotes, with control, format and bidirectional characters
+ * escaped (\u001b, \u202e, ...), and cut to 40 characters (with the full length) when longer.
+ */
+export function quote(text: string): string {
+  const long = text.length > QUOTED_LENGTH;
+  let shown = long ? text.slice(0, QUOTED_LENGTH) : text;
+  if (long && /[\ud800-\udbff]$/.test(shown)) shown = shown.slice(0, -1);
+  const escaped = JSON.stringify(shown).replace(UNSAFE, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, "0")}`);
+  return long ? `${escaped.slice(0, -1)}…" (${grouped(text.length)} characters)` : escaped;
 }
-type Issue<C extends InputIssueCode, Extra = object> = At & { readonly code: C } & Extra;
-
-/** One problem that stops the file from being read. */
-export type InputIssue =
-  | Issue<"empty-file">
-  | Issue<"header-only", { readonly line: number }>
-  | Issue<"no-table">
-  | Issue<"no-such-block", { readonly block: number; readonly available: number }>
-  | Issue<
-      "unknown-column",
-      {
-        readonly column: string;
-        readonly role: ColumnRole;
-        readonly available: readonly string[];
-        readonly suggestion?: string;
-        readonly foundInBlock?: number;
-      }
-    >
-  | Issue<"duplicate-column", { readonly column: string }>
-  | Issue<
-      "unknown-series",
-      { readonly column: string; readonly idColumn: string; readonly available: readonly string[]; readonly suggestion?: string }
-    >
-  | Issue<"not-a-number", { readonly line: number; readonly column: string; readonly value: string }>
-  | Issue<"missing-value", { readonly line: number; readonly column: string; readonly value: string }>
-  | Issue<"wrong-field-count", { readonly line: number; readonly expected: number; readonly actual: number }>
-  | Issue<"unquoted-delimiter", { readonly line: number; readonly column: string; readonly value: string; readonly delimiter: string }>
-  | Issue<"malformed-quotes", { readonly detail: string }>
-  | Issue<"bad-date", { readonly line: number; readonly column: string; readonly value: string; readonly dateFormat?: string }>
-  | Issue<
-      "ambiguous-dates",
-      { readonly line: number; readonly column: string; readonly value: string; readonly dayFirst: string; readonly monthFirst: string }
-    >
-  | Issue<
-      "duplicate-date",
-      { readonly line: number; readonly column: string; readonly value: string; readonly firstLine: number; readonly series?: string }
-    >
-  | Issue<
-      "unsorted-dates",
-      {
-        readonly line: number;
-        readonly column: string;
-        readonly value: string;
-        readonly previousValue: string;
-        readonly previousLine: number;
-      }
-    >
-  | Issue<"too-few-rows", { readonly kept: number; readonly required: number; readonly rowsRead: number; readonly dropped: number }>
-  | Issue<
-      "too-few-common-dates",
-      {
-        readonly matched: number;
-        readonly required: number;
-        readonly counts: readonly { readonly source: string; readonly dates: number }[];
-      }
-    >
-  | Issue<
-      "extreme-value",
-      { readonly line: number; readonly column: string; readonly value: string; readonly decimalValue: number; readonly limit: number }
-    >
-  | Issue<"non-positive-price", { readonly line: number; readonly column: string; readonly value: string }>
-  | Issue<"invalid-encoding", { readonly line: number; readonly offset: number }>
-  | Issue<"binary-content", { readonly line: number; readonly offset: number }>
-  | Issue<"unsupported-encoding", { readonly encoding: string }>
-  | Issue<"invalid-option", { readonly option: string; readonly reason: string }>
-  | Issue<"too-many-issues", { readonly omitted: number }>
-  | Issue<"internal-error", { readonly detail: string }>;
-
-/** What a requested column was wanted for (used in wording). */
-export type ColumnRole = "date" | "value" | "series id" | "series value";
-
-/** Something suspicious that does not stop the file from being read. */
-export type InputWarning =
-  | { readonly code: "looks-like-percent"; readonly source: string; readonly column: string; readonly medianAbs: number }
-  | { readonly code: "looks-like-decimal"; readonly source: string; readonly column: string; readonly medianAbs: number }
-  | { readonly code: "other-blocks"; readonly source: string; readonly used: number; readonly blocks: number }
-  | { readonly code: "skipped-lines"; readonly source: string; readonly line: number; readonly count: number };
-
-const quote = (text: string): string => JSON.stringify(text);
 
 function where(issue: At): string {
   let text = issue.source;
@@ -130,10 +35,88 @@ function where(issue: At): string {
   return text;
 }
 
+/** Lists of names from a file stop after this many. */
+const LISTED = 20;
 const whereLine = (issue: At): string => `${issue.source}${issue.line === undefined ? "" : ` line ${issue.line}`}`;
-const listOf = (names: readonly string[]): string => names.map(quote).join(", ");
+const listOf = (names: readonly string[]): string =>
+  names.length <= LISTED
+    ? names.map(quote).join(", ")
+    : `${names.slice(0, LISTED).map(quote).join(", ")} and ${names.length - LISTED} more`;
 const percent = (x: number): string => `${Number((x * 100).toPrecision(6))}%`;
 const delimiterName = (d: string): string => (d === "\t" ? "tab" : quote(d));
+const grouped = (n: number): string => String(n).replace(/\B(?=(\d{3})+(?!\d))/g, ",");
+const bytesOf = (n: number): string => `${grouped(n)} bytes`;
+const gib = (n: number): string => `${Number((n / 2 ** 30).toFixed(2))} GiB`;
+const capitalised = (name: string): string => `${name.charAt(0).toUpperCase()}${name.slice(1)}`;
+const splitHint =
+  "split it by date (a file per period) or by columns (each book in its own file, joined on dates with --low FILE:COLUMN --high FILE:COLUMN)";
+
+/** Why a text is no date, in words (e.g. "February 2021 has 28 days"). */
+export function describeDateProblem(problem: DateProblem): string {
+  switch (problem.kind) {
+    case "no-year":
+      return "there is no year 0";
+    case "no-month":
+      return `there is no month ${problem.month}`;
+    case "no-day":
+      return `there is no day ${problem.day}`;
+    case "short-month":
+      return `${capitalised(MONTH_NAMES[problem.month - 1] ?? "")} ${problem.year} has ${problem.days} days`;
+    case "no-time":
+      return `there is no ${problem.part} ${problem.value}`;
+    case "no-offset":
+      return `${quote(problem.offset)} is not a UTC offset`;
+    case "no-month-name":
+      return `${quote(problem.name)} is not a month name`;
+  }
+}
+
+/** What each binary format is, and what to do with it. */
+const BINARY: Record<BinaryKind, readonly [string, string]> = {
+  gzip: ["gzip-compressed data", "decompress it (gunzip) and read the CSV file inside"],
+  zip: ["a zip archive (an .xlsx or .ods workbook is one)", "export the sheet as CSV (UTF-8), or extract the CSV file from the archive"],
+  xls: ["an Office document (.xls)", "export the sheet as CSV (UTF-8)"],
+  pdf: ["a PDF document", "export the table as CSV (UTF-8) from where it came from"],
+  png: ["a PNG image", "check the file name"],
+  jpeg: ["a JPEG image", "check the file name"],
+  gif: ["a GIF image", "check the file name"],
+  bzip2: ["bzip2-compressed data", "decompress it (bunzip2) and read the CSV file inside"],
+  xz: ["xz-compressed data", "decompress it (unxz) and read the CSV file inside"],
+  zstd: ["zstd-compressed data", "decompress it (unzstd) and read the CSV file inside"],
+  "7z": ["a 7z archive", "extract the CSV file from the archive"],
+  sqlite: ["an SQLite database", "export the table as CSV (UTF-8)"],
+  parquet: ["a Parquet file", "export the table as CSV (UTF-8)"],
+  elf: ["an executable program", "check the file name"],
+};
+
+/** What is wrong with the quoting, for "malformed-quotes". */
+const QUOTING: Record<QuoteProblem, string> = {
+  "quote-inside": "has a double quote inside but does not start with one",
+  "after-closing": "a field has text after its closing quote",
+  "not-closed": "a quoted field is never closed",
+  other: "the quotes cannot be read",
+};
+
+/** What sent a file to the text path, for "text-too-large". */
+const TEXT_CAUSE = {
+  "non-ascii": ["has a character that is not ASCII", "save it as plain ASCII (no accents or symbols in names)"],
+  quote: ["has a double quote", "export it without quotes"],
+  "carriage-return": ["has a carriage return that does not end a line", "save it with LF or CRLF line ends"],
+  size: ["is too large for the byte reader", "make it smaller"],
+} as const;
+
+/** The issues that repeat, as a plural noun for "… and N more". */
+const REPEATED: Partial<Record<InputIssueCode, string>> = {
+  "not-a-number": "values that are not numbers",
+  "missing-value": "missing values",
+  "wrong-field-count": "rows with the wrong number of fields",
+  "unquoted-delimiter": "numbers split by the delimiter",
+  "bad-date": "dates that cannot be read",
+  "duplicate-date": "repeated dates",
+  "unsorted-dates": "dates out of order",
+  "extreme-value": "extreme returns",
+  "non-positive-price": "prices that are not positive",
+};
 
 /** The message for one issue: where (file, line, column), what (the offending text) and what to do. */
 export function describeInputIssue(issue: InputIssue): string {
@@ -145,6 +128,8 @@ export function describeInputIssue(issue: InputIssue): string {
       return `${at}: there is a header but no data rows below it; check the export range`;
     case "no-table":
       return `${at}: no table found (a header followed by rows with the same number of fields); check the delimiter (--delimiter)`;
+    case "not-a-return-table":
+      return `${at}: not a return table (${bytesOf(issue.size)}): no header row names ${listOf(issue.wanted)}, and the first column holds no dates; a header row naming the date and return columns is expected, then one row per date; check the file name and the column names`;
     case "no-such-block":
       return `${at}: table ${issue.block} was asked for but the file has ${issue.available}; use --block 1 to ${issue.available}`;
     case "unknown-column": {
@@ -170,11 +155,22 @@ export function describeInputIssue(issue: InputIssue): string {
     case "unquoted-delimiter":
       return `${at}: ${quote(issue.value)} looks like a number split by the ${delimiterName(issue.delimiter)} delimiter; quote the value, use "." as the decimal separator, or choose another delimiter (--delimiter)`;
     case "malformed-quotes":
-      return `${at}: broken quoting (${issue.detail}); every quoted field must start and end with a double quote, and a quote inside one is written twice`;
-    case "bad-date":
-      return issue.value.trim() === ""
-        ? `${at}: the date is empty; every data row needs a date`
-        : `${at}: ${quote(issue.value)} is not a date ${issue.dateFormat === undefined ? "in a recognised layout (YYYY-MM-DD, YYYYMMDD, YYYY-MM, YYYYMM, YYYY, or D/M/YYYY); pass --date-format, e.g. DD.MM.YYYY" : `in the layout ${issue.dateFormat}; check --date-format`}`;
+      return `${at}: broken quoting (${issue.problem === "quote-inside" ? `${issue.field === undefined ? "a field" : `field ${issue.field}`} ` : ""}${QUOTING[issue.problem]}); every quoted field must start and end with a double quote, and a quote inside one is written twice`;
+    case "bad-date": {
+      if (issue.value.trim() === "") return `${at}: the date is empty; every data row needs a date`;
+      if (issue.problem !== undefined) {
+        const how =
+          issue.dateFormat !== undefined
+            ? ` (layout ${issue.dateFormat})`
+            : issue.reading === undefined
+              ? ""
+              : ` read ${issue.reading} (as the column's other dates are)`;
+        return `${at}: ${quote(issue.value)} is not a real date${how}: ${describeDateProblem(issue.problem)}; correct it in the file`;
+      }
+      return issue.dateFormat === undefined
+        ? `${at}: ${quote(issue.value)} is not a date in a recognised layout (YYYY-MM-DD, YYYYMMDD, YYYY-MM, YYYYMM, YYYY, or D/M/YYYY); pass --date-format, e.g. DD.MM.YYYY`
+        : `${at}: ${quote(issue.value)} is not a date in the layout ${issue.dateFormat}; check --date-format`;
+    }
     case "ambiguous-dates":
       return `${at}: ${quote(issue.value)} reads as ${issue.dayFirst} (day first) or ${issue.monthFirst} (month first), and no date in the column settles it; pass --date-format DD/MM/YYYY or MM/DD/YYYY`;
     case "duplicate-date":
@@ -190,13 +186,34 @@ export function describeInputIssue(issue: InputIssue): string {
     case "non-positive-price":
       return `${at}: the price ${quote(issue.value)} is not positive, so no return can be computed from it; check the column or the --input setting`;
     case "invalid-encoding":
-      return `${at}: the bytes at offset ${issue.offset} are not valid UTF-8; save the file as UTF-8 (CSV UTF-8)`;
+      return `${at}: byte 0x${issue.byte.toString(16).toUpperCase().padStart(2, "0")} at offset ${issue.offset} is not valid UTF-8, so the file is probably in a single-byte encoding such as Latin-1 or Windows-1252; save it as UTF-8 (CSV UTF-8)`;
     case "binary-content":
-      return `${at}: a NUL byte at offset ${issue.offset}: this is not a text file (a spreadsheet or UTF-16 file?); export it as CSV in UTF-8`;
+      return `${at}: a NUL byte at offset ${issue.offset}, which no text table has: this is binary data, not a CSV file; export the returns as CSV (UTF-8)`;
+    case "not-a-text-file": {
+      const [what, todo] = BINARY[issue.kind];
+      return `${at}: this is not a text table (${bytesOf(issue.size)}): it looks like ${what}; ${todo}`;
+    }
     case "unsupported-encoding":
-      return `${at}: the file is ${issue.encoding}; save it as UTF-8 (CSV UTF-8)`;
+      return `${at}: the file is ${issue.encoding} text (${issue.bom ? "with" : "without"} a byte-order mark); save it as UTF-8 (CSV UTF-8)`;
+    case "text-too-large": {
+      const [cause, todo] = TEXT_CAUSE[issue.cause];
+      const line = issue.line === undefined ? "it" : `line ${issue.line}`;
+      return `${issue.source}: ${bytesOf(issue.size)} (${gib(issue.size)}) of text, read as one string because ${line} ${cause}, and a string holds at most ${grouped(issue.limit)} characters (this one would have ${grouped(issue.length)}); ${todo}, so that it is read from its bytes (up to ${gib(maximumInputBytes + 1)} - 1 byte), or ${splitHint}`;
+    }
+    case "input-too-large":
+      return `${at}: the input is ${bytesOf(issue.size)} (${gib(issue.size)}), more than the ${bytesOf(issue.limit)} (2 GiB - 1 byte) that can be read; ${splitHint}`;
     case "invalid-option":
       return `${at}: option ${issue.option}: ${issue.reason}`;
+    case "similar-issues": {
+      const { firstLine, lastLine } = issue;
+      const lines =
+        firstLine === undefined || lastLine === undefined
+          ? ""
+          : firstLine === lastLine
+            ? `, on line ${firstLine}`
+            : `, on lines ${firstLine} to ${lastLine}`;
+      return `${issue.source}${issue.column === undefined ? "" : ` column ${quote(issue.column)}`}: … and ${issue.omitted} more ${REPEATED[issue.like] ?? "like the ones above"}${lines}`;
+    }
     case "too-many-issues":
       return `${at}: ${issue.omitted} more problems not shown; fix the ones above first`;
     case "internal-error":

@@ -4,17 +4,19 @@
  */
 import { failure, type Result } from "../core/result.js";
 import { byteGrid } from "./engines/byteGrid.js";
+import { maximumInputBytes } from "./limits.js";
 import { asciiText, isAsciiWhiteSpace, isPlain, plainLines, type PlainLines } from "./engines/plainLines.js";
-import { decodeText } from "./decodeText.js";
+import { decodeText, notTextIssue } from "./decodeText.js";
 import { detectDelimiter } from "./dialect.js";
 import { extractLong } from "./table/extractLong.js";
 import { extractWide } from "./table/extractWide.js";
 import { finishTable } from "./table/finish.js";
 import { fastGrid } from "./engines/fastGrid.js";
-import { csvGrid, type Grid } from "./engines/grid.js";
+import { csvGrid, type Grid, type QuoteError } from "./engines/grid.js";
 import { IssueList } from "./issueList.js";
 import type { InputIssue } from "./issues.js";
 import { listTables, locateTable } from "./table/layout.js";
+import { isReturnTable } from "./table/recognise.js";
 import { compileSentinels } from "./values/numbers.js";
 import { validateOptions, type ReadOptions } from "./options.js";
 import type { ReturnTable } from "./table/returnTable.js";
@@ -67,6 +69,11 @@ export function readBytesWith(
 ): Result<ReturnTable, InputIssue[]> {
   const source = typeof options?.source === "string" ? options.source : "<input>";
   try {
+    if (bytes.length > maximumInputBytes) {
+      return failure([{ code: "input-too-large", source, size: bytes.length, limit: maximumInputBytes }]);
+    }
+    const notText = notTextIssue(bytes, source);
+    if (notText !== null) return failure([notText]);
     const lines = engine === "text" ? null : plainLines(bytes, engine === "auto" ? undefined : 0);
     let read: Result<ReturnTable, InputIssue[]> | null = null;
     try {
@@ -98,7 +105,7 @@ function readPlainBytes(bytes: Uint8Array, lines: PlainLines, options: ReadOptio
   const head = (): string => asciiText(bytes, start, Math.min(bytes.length, start + 65537));
   const delimiter = options.delimiter ?? detectDelimiter(head(), options.decimalComma === true ? [";", "\t"] : undefined);
   const grid = byteGrid(bytes, lines, delimiter);
-  const result = readGrid(grid, options);
+  const result = readGrid(grid, options, () => bytes.length - start);
   return grid.clean() ? result : null;
 }
 
@@ -110,13 +117,16 @@ function readText(input: string, options: ReadOptions, engine: Engine): Result<R
   if (text.trim() === "") return failure([{ code: "empty-file", source }]);
   const delimiter = options.delimiter ?? detectDelimiter(text, options.decimalComma === true ? [";", "\t"] : undefined);
   const fast = engine === "auto" ? fastGrid(text, delimiter) : null;
-  const grid: Grid | { line: number; detail: string } = fast ?? csvGrid(text, delimiter);
-  if (!("rowCount" in grid)) return failure([{ code: "malformed-quotes", source, line: grid.line, detail: grid.detail }]);
-  return readGrid(grid, options);
+  const grid: Grid | QuoteError = fast ?? csvGrid(text, delimiter);
+  if (!("rowCount" in grid)) {
+    const { line, problem, field } = grid;
+    return failure([{ code: "malformed-quotes", source, line, problem, ...(field === undefined ? {} : { field: field + 1 }) }]);
+  }
+  return readGrid(grid, options, () => utf8Length(text));
 }
 
-/** Locate, extract and finish the table of a tokenised file. */
-function readGrid(grid: Grid, options: ReadOptions): Result<ReturnTable, InputIssue[]> {
+/** Locate, extract and finish the table of a tokenised file; `size()`: its text's length in UTF-8 bytes (after any byte-order mark). */
+function readGrid(grid: Grid, options: ReadOptions, size: () => number): Result<ReturnTable, InputIssue[]> {
   const { source } = options;
   const long = options.idColumn !== undefined && options.valueColumn !== undefined;
   const wanted = long
@@ -130,6 +140,9 @@ function readGrid(grid: Grid, options: ReadOptions): Result<ReturnTable, InputIs
     const index = tables.findIndex((t) => grid.fields(t.headerRow).some((field) => field.trim() === name));
     return index < 0 || index + 1 === located.value.block ? undefined : index + 1;
   };
+  // Nothing of a file that holds no return table is quoted, not even its header's names.
+  if (!isReturnTable(grid, located.value, names, options.dateFormat) && names.every((name) => findInOtherTable(name) === undefined))
+    return failure([{ code: "not-a-return-table", source, size: size(), wanted: names }]);
   const issues = new IssueList(source);
   const sentinels = compileSentinels(options.missing ?? []);
   const extracted = long
@@ -137,4 +150,15 @@ function readGrid(grid: Grid, options: ReadOptions): Result<ReturnTable, InputIs
     : extractWide(grid, located.value, options, sentinels, issues, findInOtherTable);
   if (extracted === null) return failure(issues.list());
   return finishTable(extracted, options, issues);
+}
+
+/** The length of a text in UTF-8 bytes. */
+function utf8Length(text: string): number {
+  let bytes = 0;
+  for (let i = 0; i < text.length; i++) {
+    const unit = text.charCodeAt(i);
+    // A surrogate pair (4 bytes) counts 2 + 2.
+    bytes += unit < 0x80 ? 1 : unit < 0x800 || (unit >= 0xd800 && unit < 0xe000) ? 2 : 3;
+  }
+  return bytes;
 }

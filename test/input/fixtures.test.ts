@@ -73,7 +73,8 @@ describe("fixture files", () => {
     });
     expect(read("latin1.csv", { columns: ["Low"] })).toEqual({
       ok: false,
-      issues: [{ code: "invalid-encoding", source: "latin1.csv", line: 1, offset: 12 }],
+      // 0xFC is "ü" in Latin-1, a lone byte that starts no UTF-8 sequence.
+      issues: [{ code: "invalid-encoding", source: "latin1.csv", line: 1, offset: 12, byte: 0xfc }],
     });
   });
 });

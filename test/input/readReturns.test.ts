@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { describeInputIssue, type InputIssue } from "../../src/input/issues.js";
 import { column, HIGH, LOW, MONTHLY, readIssues, readOk } from "./helpers.js";
 
 describe("readReturns: the basic layout", () => {
@@ -161,7 +162,15 @@ describe("readReturns: errors", () => {
   it("reports a date that is not a date, or not a real calendar day", () => {
     const text = "Date,Low Fund,High Fund\n2020-01-31,0.01,0.02\n2021-02-29,0.01,0.02\nlast month,0.01,0.02\n2020-04-30,0.01,0.02\n";
     expect(readIssues(text)).toEqual([
-      { code: "bad-date", source: "returns.csv", line: 3, column: "Date", value: "2021-02-29" },
+      {
+        code: "bad-date",
+        source: "returns.csv",
+        line: 3,
+        column: "Date",
+        value: "2021-02-29",
+        // 2021 is not a leap year (not divisible by 4).
+        problem: { kind: "short-month", year: 2021, month: 2, days: 28 },
+      },
       { code: "bad-date", source: "returns.csv", line: 4, column: "Date", value: "last month" },
     ]);
   });
@@ -200,15 +209,52 @@ describe("readReturns: errors", () => {
 
   it("reports broken quoting with its line", () => {
     const issues = readIssues('Date,Low Fund,High Fund\n2020-01-31,0.01,0.02\n2020-02-29,"0.01,0.02\n');
-    expect(issues).toHaveLength(1);
-    expect(issues[0]).toMatchObject({ code: "malformed-quotes", source: "returns.csv" });
+    expect(issues).toEqual([{ code: "malformed-quotes", source: "returns.csv", line: 3, problem: "not-closed" }]);
   });
 
-  it("caps the number of issues and says how many were left out", () => {
+  it.each([
+    ['Date,Low Fund,High Fund\n2020-01-31,ab"secret",0.02\n', { line: 2, problem: "quote-inside", field: 2 }],
+    ['Date,Low Fund,High Fund\n2020-01-31,"0.01"secret,0.02\n', { line: 2, problem: "after-closing" }],
+  ])("reports broken quoting in its own words, without the field's text: %j", (text, expected) => {
+    const issues = readIssues(text);
+    expect(issues).toEqual([{ code: "malformed-quotes", source: "returns.csv", ...expected }]);
+    expect(describeInputIssue(issues[0] as InputIssue)).not.toContain("secret");
+  });
+
+  it("shows the first three issues of a kind in a column, then counts the rest with their lines", () => {
     const rows = Array.from({ length: 80 }, (_, i) => `2020-01-${String((i % 28) + 1).padStart(2, "0")}-x,a,b`);
     const issues = readIssues(["Date,Low Fund,High Fund", ...rows].join("\n"));
+    // Per column (Low Fund, High Fund, Date): three in full, then one line for the other 77, on lines 5 to 81.
+    const kind = (code: string, column: string): unknown[] => [
+      [code, column, 2],
+      [code, column, 3],
+      [code, column, 4],
+      ["similar-issues", column, undefined],
+    ];
+    expect(issues.map((issue) => [issue.code, issue.column, issue.line])).toEqual([
+      ...kind("not-a-number", LOW),
+      ...kind("not-a-number", HIGH),
+      ...kind("bad-date", "Date"),
+    ]);
+    expect(issues[3]).toEqual({
+      code: "similar-issues",
+      source: "returns.csv",
+      column: LOW,
+      like: "not-a-number",
+      omitted: 77,
+      firstLine: 5,
+      lastLine: 81,
+    });
+  });
+
+  it("caps the number of issues of different kinds and says how many were left out", () => {
+    // 30 value columns with two bad values each: 60 issues of 30 kinds, of which 50 are shown.
+    const names = Array.from({ length: 30 }, (_, i) => `S${i}`);
+    const rows = ["2020-01-31", "2020-02-29", "2020-03-31"].map((date, r) => [date, ...names.map(() => (r < 2 ? "x" : "0.01"))].join(","));
+    const issues = readIssues(`${["Date", ...names].join(",")}\n${rows.join("\n")}`, { columns: names });
     expect(issues).toHaveLength(51);
-    expect(issues[50]).toEqual({ code: "too-many-issues", source: "returns.csv", omitted: 80 * 3 - 50 });
+    expect(issues.slice(0, 50).every((issue) => issue.code === "not-a-number")).toBe(true);
+    expect(issues[50]).toEqual({ code: "too-many-issues", source: "returns.csv", omitted: 60 - 50 });
   });
 });
 

@@ -29,9 +29,10 @@ describe("missing-value sentinels", () => {
     expect(
       readIssues(withValues(["0.01", "", "0.02", "NA"], ["0.1", "0.2", "-99", "0.4"]), { onMissing: "error", missing: ["-99"] }),
     ).toEqual([
+      // Grouped by column, the columns in the order of their first issue.
       { code: "missing-value", source: "returns.csv", line: 3, column: LOW, value: "" },
-      { code: "missing-value", source: "returns.csv", line: 4, column: HIGH, value: "-99" },
       { code: "missing-value", source: "returns.csv", line: 5, column: LOW, value: "NA" },
+      { code: "missing-value", source: "returns.csv", line: 4, column: HIGH, value: "-99" },
     ]);
   });
 });

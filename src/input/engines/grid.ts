@@ -48,11 +48,25 @@ export interface Grid {
   ): { readonly plainDates: boolean; readonly withNaN: readonly boolean[] };
 }
 
-/** Why csv-parse could not tokenise the text. */
+/**
+ * Why csv-parse could not tokenise the text, in the reader's own terms (its messages quote the
+ * field's text, which must not be printed before the file is known to be a table): a quote inside a
+ * field that does not start with one, text after a closing quote, or a quoted field never closed.
+ */
 export interface QuoteError {
   readonly line: number;
-  readonly detail: string;
+  readonly problem: QuoteProblem;
+  /** The 0-based field where a quote was found inside a field, when csv-parse names it. */
+  readonly field?: number;
 }
+export type QuoteProblem = "quote-inside" | "after-closing" | "not-closed" | "other";
+
+const QUOTE_PROBLEMS: Readonly<Record<string, QuoteProblem>> = {
+  INVALID_OPENING_QUOTE: "quote-inside",
+  CSV_INVALID_CLOSING_QUOTE: "after-closing",
+  CSV_NON_TRIMABLE_CHAR_AFTER_CLOSING_QUOTE: "after-closing",
+  CSV_QUOTE_NOT_CLOSED: "not-closed",
+};
 
 /** Build the general grid with csv-parse, or a QuoteError when the quoting is broken. */
 export function csvGrid(text: string, delimiter: string): Grid | QuoteError {
@@ -66,10 +80,10 @@ export function csvGrid(text: string, delimiter: string): Grid | QuoteError {
       info: true,
     }) as unknown as { record: string[]; info: { lines: number } }[];
   } catch (error) {
-    const e = error as { lines?: unknown; message?: unknown };
+    const e = error as { lines?: unknown; code?: unknown; column?: unknown };
     const line = typeof e.lines === "number" ? e.lines : 1;
-    const detail = typeof e.message === "string" ? e.message.replace(/^[^:]*:\s*/, "") : String(error);
-    return { line, detail };
+    const problem = (typeof e.code === "string" ? QUOTE_PROBLEMS[e.code] : undefined) ?? "other";
+    return { line, problem, ...(problem === "quote-inside" && typeof e.column === "number" ? { field: e.column } : {}) };
   }
   const rows = records.map((r) => r.record);
   const lines: number[] = [];

@@ -4,6 +4,7 @@
  * bytes are plain ASCII without NUL, quote characters or lone CR, so that each byte is one character
  * of the text `decodeText` would give.
  */
+import { maximumInputBytes } from "../limits.js";
 import { lineEnds } from "./rowKernel.js";
 
 /** 1 for the bytes that send a file to the text path: NUL, CR (unless it ends a row), the double quote, and every non-ASCII byte. */
@@ -32,7 +33,7 @@ export interface PlainLines {
 export function plainLines(bytes: Uint8Array, headCheck = HEAD_CHECK): PlainLines | null {
   const start = bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf ? 3 : 0;
   // Offsets are kept in Int32Array.
-  if (bytes.length >= 0x7fffffff || !isPlain(bytes, start, Math.min(bytes.length, start + headCheck))) return null;
+  if (bytes.length > maximumInputBytes || !isPlain(bytes, start, Math.min(bytes.length, start + headCheck))) return null;
   const length = bytes.length;
   const ends = lineEnds(bytes, start);
   if (ends !== null) return linesFromEnds(bytes, start, ends);

@@ -58,13 +58,15 @@ export function readDates(
   for (let i = 0; i < keys.length; i++) {
     if (!Number.isNaN(keys[i] as number)) continue;
     fine = false;
+    const value = texts[i] as string;
     issues.add({
       code: "bad-date",
       source,
       line: grid.line(rows[i] as number),
       column: dateColumn,
-      value: texts[i] as string,
+      value,
       ...(dateFormat === undefined ? {} : { dateFormat }),
+      ...column.explain(value),
     });
   }
   return fine ? { keys, isos, texts } : null;

@@ -4,24 +4,49 @@
  * for the whole column: the reading under which every slash date is a real calendar date wins;
  * when both readings work and they differ for some date, the column is ambiguous.
  */
-import { compileDateFormat } from "./dateFormat.js";
-import { parseUnambiguousDate, plainIsoDateKey, slashReadings, type ParsedDate, type SlashReadings } from "./dates.js";
+import { compileDateReader } from "./dateFormat.js";
+import {
+  dateOnly,
+  parseUnambiguousDate,
+  plainIsoDateKey,
+  readUnambiguousDate,
+  slashProblem,
+  slashReadings,
+  type DateProblem,
+  type ParsedDate,
+  type SlashReadings,
+} from "./dates.js";
 
-/** Outcome for a column: sort keys and ISO texts (key NaN where a date could not be read), or the first ambiguous date. */
+/** Why a text of the column that could not be read is no date, when it fits a layout (see `DateProblem`). */
+export interface DateExplanation {
+  readonly problem: DateProblem;
+  /** How the column's slash dates were read, when this is one. */
+  readonly reading?: "day first" | "month first";
+}
+
+/**
+ * Outcome for a column: sort keys and ISO texts (key NaN where a date could not be read) and how to
+ * explain a text that could not be read; or the first ambiguous date.
+ */
 export type DateColumn =
-  | { readonly kind: "dates"; readonly keys: Float64Array; readonly isos: readonly string[] }
+  | {
+      readonly kind: "dates";
+      readonly keys: Float64Array;
+      readonly isos: readonly string[];
+      readonly explain: (text: string) => DateExplanation | null;
+    }
   | { readonly kind: "ambiguous"; readonly index: number; readonly dayFirst: string; readonly monthFirst: string }
   | { readonly kind: "bad-format"; readonly reason: string };
 
 /** Parse every text of a date column, with an optional explicit layout (see `compileDateFormat`). */
 export function readDateColumn(texts: readonly string[], dateFormat?: string): DateColumn {
   if (dateFormat !== undefined) {
-    const parser = compileDateFormat(dateFormat);
-    if (typeof parser === "string") return { kind: "bad-format", reason: parser };
+    const reader = compileDateReader(dateFormat);
+    if (typeof reader === "string") return { kind: "bad-format", reason: reader };
     const keys = new Float64Array(texts.length);
     const isos = new Array<string>(texts.length);
-    texts.forEach((text, i) => set(keys, isos, i, parser(text)));
-    return { kind: "dates", keys, isos };
+    texts.forEach((text, i) => set(keys, isos, i, dateOnly(reader(text))));
+    return { kind: "dates", keys, isos, explain: (text) => problemOf(reader(text)) };
   }
   const keys = new Float64Array(texts.length);
   let isos = texts as string[];
@@ -46,7 +71,7 @@ export function readDateColumn(texts: readonly string[], dateFormat?: string): D
       if (readings) slashes.push({ index, readings });
     }
   }
-  if (slashes.length === 0) return { kind: "dates", keys, isos };
+  if (slashes.length === 0) return { kind: "dates", keys, isos, explain: (text) => problemOf(readUnambiguousDate(text)) };
   const dayFirstFails = slashes.filter((s) => s.readings.dayFirst === null).length;
   const monthFirstFails = slashes.filter((s) => s.readings.monthFirst === null).length;
   if (dayFirstFails === 0 && monthFirstFails === 0) {
@@ -58,8 +83,19 @@ export function readDateColumn(texts: readonly string[], dateFormat?: string): D
   }
   const useDayFirst = dayFirstFails <= monthFirstFails;
   for (const { index, readings } of slashes) put(index, useDayFirst ? readings.dayFirst : readings.monthFirst);
-  return { kind: "dates", keys, isos };
+  // The reading is named when some slash date of the column was read that way.
+  const settled = (useDayFirst ? dayFirstFails : monthFirstFails) < slashes.length;
+  const reading = settled ? { reading: useDayFirst ? ("day first" as const) : ("month first" as const) } : {};
+  const explain = (text: string): DateExplanation | null => {
+    const problem = slashProblem(text, useDayFirst);
+    return problem === null ? problemOf(readUnambiguousDate(text)) : { problem, ...reading };
+  };
+  return { kind: "dates", keys, isos, explain };
 }
+
+/** The explanation of a read that fitted a layout but gave no date. */
+const problemOf = (read: ReturnType<typeof readUnambiguousDate>): DateExplanation | null =>
+  read !== null && "kind" in read ? { problem: read } : null;
 
 function set(keys: Float64Array, isos: string[], index: number, date: ParsedDate | null): void {
   keys[index] = date === null ? Number.NaN : date.key;

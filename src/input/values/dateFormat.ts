@@ -4,9 +4,10 @@
  * month name or 3-letter abbreviation, any case), MMMM (same). Everything else is literal text;
  * a space in the layout matches one or more spaces. A layout without a day gives monthly dates "YYYY-MM".
  */
-import { calendarDate, type ParsedDate } from "./dates.js";
+import { calendarDateOrProblem, dateOnly, type DateOrProblem, type ParsedDate } from "./dates.js";
 
-const MONTH_NAMES = [
+/** The English month names, January first (lower case). */
+export const MONTH_NAMES = [
   "january",
   "february",
   "march",
@@ -36,6 +37,9 @@ const TOKENS: readonly (readonly [string, Part, string])[] = [
 /** A compiled layout: returns the parsed date, or null when the text does not fit it. */
 export type DateParser = (text: string) => ParsedDate | null;
 
+/** A compiled layout that tells why a text that fits it is no date: null when the text does not fit it. */
+export type DateReader = (text: string) => DateOrProblem | null;
+
 function monthFromName(name: string): number | null {
   const n = name.toLowerCase().replace(/\.$/, "");
   if (n.length < 3) return null;
@@ -48,6 +52,12 @@ function monthFromName(name: string): number | null {
  * month or repeats a token.
  */
 export function compileDateFormat(format: string): DateParser | string {
+  const reader = compileDateReader(format);
+  return typeof reader === "string" ? reader : (text) => dateOnly(reader(text));
+}
+
+/** `compileDateFormat`, whose parser tells why a text that fits the layout is no date. */
+export function compileDateReader(format: string): DateReader | string {
   const parts: Part[] = [];
   let pattern = "";
   let i = 0;
@@ -74,14 +84,17 @@ export function compileDateFormat(format: string): DateParser | string {
     if (!m) return null;
     let year = 0;
     let month: number | null = 0;
+    let name = "";
     let day: number | undefined;
     parts.forEach((part, k) => {
       const value = m[k + 1] as string;
       if (part === "year") year = Number(value);
       else if (part === "month") month = Number(value);
-      else if (part === "monthName") month = monthFromName(value);
-      else day = Number(value);
+      else if (part === "monthName") {
+        month = monthFromName(value);
+        name = value;
+      } else day = Number(value);
     });
-    return month === null ? null : calendarDate(year, month, day);
+    return month === null ? { kind: "no-month-name", name } : calendarDateOrProblem(year, month, day);
   };
 }

@@ -37,23 +37,57 @@ export const daysInMonth = (year: number, month: number): number =>
   (MONTH_DAYS[month - 1] as number) + (month === 2 && isLeap(year) ? 1 : 0);
 export { DAY_MS };
 
-/** A calendar date from numeric parts, or null when it does not exist (e.g. 2021-02-29). */
-export function calendarDate(year: number, month: number, day?: number): ParsedDate | null {
-  if (year < 1 || month < 1 || month > 12) return null;
-  if (day === undefined) {
-    return { iso: `${pad(year, 4)}-${pad(month)}`, key: daysFromCivil(year, month, 1) * DAY_MS };
-  }
-  if (day < 1 || day > daysInMonth(year, month)) return null;
+/**
+ * Why numeric date parts are not a calendar date (worded in issues.ts): no year 0, no month outside
+ * 1 to 12, no day outside 1 to 31, a day past the month's end, an hour, minute or second out of range,
+ * a UTC offset out of range, or a word that names no month.
+ */
+export type DateProblem =
+  | { readonly kind: "no-year" }
+  | { readonly kind: "no-month"; readonly month: number }
+  | { readonly kind: "no-day"; readonly day: number }
+  | { readonly kind: "short-month"; readonly year: number; readonly month: number; readonly days: number }
+  | { readonly kind: "no-time"; readonly part: "hour" | "minute" | "second"; readonly value: number }
+  | { readonly kind: "no-offset"; readonly offset: string }
+  | { readonly kind: "no-month-name"; readonly name: string };
+
+/** A date, or why the text that fitted a layout is not one. */
+export type DateOrProblem = ParsedDate | DateProblem;
+
+/** The date when `read` is one, else null. */
+export const dateOnly = (read: DateOrProblem | null): ParsedDate | null => (read === null || "kind" in read ? null : read);
+
+/** Why year, month and (optional) day are not a calendar date, or null when they are one. */
+export function calendarProblem(year: number, month: number, day?: number): DateProblem | null {
+  if (year < 1) return { kind: "no-year" };
+  if (month < 1 || month > 12) return { kind: "no-month", month };
+  if (day === undefined) return null;
+  if (day < 1 || day > 31) return { kind: "no-day", day };
+  const days = daysInMonth(year, month);
+  return day > days ? { kind: "short-month", year, month, days } : null;
+}
+
+/** A calendar date from numeric parts, or why it does not exist (e.g. 2021-02-29). */
+export function calendarDateOrProblem(year: number, month: number, day?: number): DateOrProblem {
+  const problem = calendarProblem(year, month, day);
+  if (problem !== null) return problem;
+  if (day === undefined) return { iso: `${pad(year, 4)}-${pad(month)}`, key: daysFromCivil(year, month, 1) * DAY_MS };
   return { iso: `${pad(year, 4)}-${pad(month)}-${pad(day)}`, key: daysFromCivil(year, month, day) * DAY_MS };
 }
 
-function isoDateTime(m: RegExpExecArray): ParsedDate | null {
-  const date = calendarDate(Number(m[1]), Number(m[2]), Number(m[3]));
-  if (date === null || m[4] === undefined) return date;
+/** A calendar date from numeric parts, or null when it does not exist (e.g. 2021-02-29). */
+export const calendarDate = (year: number, month: number, day?: number): ParsedDate | null =>
+  dateOnly(calendarDateOrProblem(year, month, day));
+
+function isoDateTime(m: RegExpExecArray): DateOrProblem {
+  const date = calendarDateOrProblem(Number(m[1]), Number(m[2]), Number(m[3]));
+  if ("kind" in date || m[4] === undefined) return date;
   const hour = Number(m[4]);
   const minute = Number(m[5]);
   const second = m[6] === undefined ? 0 : Number(m[6]);
-  if (hour > 23 || minute > 59 || second > 59) return null;
+  if (hour > 23) return { kind: "no-time", part: "hour", value: hour };
+  if (minute > 59) return { kind: "no-time", part: "minute", value: minute };
+  if (second > 59) return { kind: "no-time", part: "second", value: second };
   const fraction = m[7] ?? "";
   const zone = m[8] ?? "";
   let offsetMinutes = 0;
@@ -62,7 +96,7 @@ function isoDateTime(m: RegExpExecArray): ParsedDate | null {
     const sign = digits.startsWith("-") ? -1 : 1;
     const hours = Number(digits.slice(1, 3));
     const minutes = Number(digits.slice(3, 5));
-    if (hours > 23 || minutes > 59) return null;
+    if (hours > 23 || minutes > 59) return { kind: "no-offset", offset: zone };
     offsetMinutes = sign * (hours * 60 + minutes);
   }
   const normalisedZone = zone === "" || zone === "Z" ? zone : `${zone.slice(0, 3)}:${zone.replace(":", "").slice(3, 5)}`;
@@ -120,17 +154,25 @@ export function plainIsoDateOfKey(key: number): string {
 export function parseUnambiguousDate(text: string): ParsedDate | null {
   const quick = plainIsoDateKey(text);
   if (!Number.isNaN(quick)) return { iso: text, key: quick };
+  return dateOnly(readUnambiguousDate(text));
+}
+
+/**
+ * `parseUnambiguousDate`, telling why when the text fits one of its layouts but is no date (e.g.
+ * "2021-02-30", "20211301"); null when it fits none.
+ */
+export function readUnambiguousDate(text: string): DateOrProblem | null {
   const t = text.trim();
   let m = ISO.exec(t);
   if (m) return isoDateTime(m);
   m = COMPACT.exec(t);
-  if (m) return calendarDate(Number(m[1]), Number(m[2]), m[3] === undefined ? undefined : Number(m[3]));
+  if (m) return calendarDateOrProblem(Number(m[1]), Number(m[2]), m[3] === undefined ? undefined : Number(m[3]));
   m = YEAR_MONTH.exec(t);
-  if (m) return calendarDate(Number(m[1]), Number(m[2]));
+  if (m) return calendarDateOrProblem(Number(m[1]), Number(m[2]));
   m = YEAR_FIRST_SLASH.exec(t);
-  if (m) return calendarDate(Number(m[1]), Number(m[2]), Number(m[3]));
+  if (m) return calendarDateOrProblem(Number(m[1]), Number(m[2]), Number(m[3]));
   m = YEAR.exec(t);
-  if (m) return Number(m[1]) < 1 ? null : { iso: t, key: daysFromCivil(Number(m[1]), 1, 1) * DAY_MS };
+  if (m) return Number(m[1]) < 1 ? { kind: "no-year" } : { iso: t, key: daysFromCivil(Number(m[1]), 1, 1) * DAY_MS };
   return null;
 }
 
@@ -148,4 +190,12 @@ export function slashReadings(text: string): SlashReadings | undefined {
   const b = Number(m[2]);
   const year = Number(m[3]);
   return { dayFirst: calendarDate(year, b, a), monthFirst: calendarDate(year, a, b) };
+}
+
+/** Why the slash date "A/B/YYYY" read day first (or month first) is no date; null when it is one or not of that shape. */
+export function slashProblem(text: string, dayFirst: boolean): DateProblem | null {
+  const m = SLASH.exec(text.trim());
+  if (!m) return null;
+  const [a, b] = [Number(m[1]), Number(m[2])];
+  return dayFirst ? calendarProblem(Number(m[3]), b, a) : calendarProblem(Number(m[3]), a, b);
 }

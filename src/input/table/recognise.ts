@@ -1,0 +1,31 @@
+/**
+ * Whether a located table is a return table, before any of its content is quoted in a message.
+ * Pointed at some other file (a key, a password file, a document), the reader must not print its
+ * lines: names from its header or values from its cells are quoted only once the table is recognised,
+ * by its header naming a requested column, or by its first column holding a date near the top.
+ */
+import type { Grid } from "../engines/grid.js";
+import { compileDateFormat } from "../values/dateFormat.js";
+import { parseUnambiguousDate, slashReadings } from "../values/dates.js";
+import type { TableLocation } from "./layout.js";
+
+/** The first data rows looked at for a date. */
+const DATE_ROWS = 5;
+
+/**
+ * True when the header row names one of `wanted` (the requested column names, trimmed), or a field
+ * of the first column reads as a date (in `dateFormat` when given) in one of the first data rows.
+ */
+export function isReturnTable(grid: Grid, location: TableLocation, wanted: readonly string[], dateFormat?: string): boolean {
+  const header = new Set(grid.fields(location.headerRow).map((name) => name.trim()));
+  if (wanted.some((name) => header.has(name))) return true;
+  const parse = dateFormat === undefined ? undefined : compileDateFormat(dateFormat);
+  const isDate = (text: string): boolean => {
+    if (typeof parse === "function") return parse(text) !== null;
+    const slash = slashReadings(text);
+    return parseUnambiguousDate(text) !== null || (slash !== undefined && (slash.dayFirst !== null || slash.monthFirst !== null));
+  };
+  const end = Math.min(location.endRow, location.firstDataRow + DATE_ROWS);
+  for (let row = location.firstDataRow; row < end; row++) if (isDate(grid.field(row, 0).trim())) return true;
+  return false;
+}
