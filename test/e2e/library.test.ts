@@ -110,7 +110,7 @@ describe('import { solveJob, rollJob, impliedJob } from "betabound"', () => {
     const result = await solveJob([exampleName], { ...books, weight: 1.3 }, { read: sourcesFrom({}) });
     expect(result.ok).toBe(false);
     if (!result.ok)
-      expect(result.issues).toEqual({ code: "invalid-value", option: "weight", message: "must be a number strictly between 0 and 1" });
+      expect(result.issues).toEqual({ code: "invalid-value", option: "weight", message: "must be a number >= 0.0001 and <= 0.9999" });
   });
 });
 
