@@ -135,29 +135,31 @@ export function compensatedSum(values: Iterable<number>): number {
  */
 function crossProducts3(x: Float64Array, y: Float64Array, z: Float64Array): CrossProducts {
   if (y.length !== x.length || z.length !== x.length) throw new RangeError(`crossProducts: series lengths differ`);
-  return welford3(x, y, z, 0, 0);
+  return welford3(x, y, z, 0, 0, 1);
 }
 
 /**
  * The moments of solve's three excess series, without building them: low - r, high - r and the
  * market w (low - r) + (1 - w)(high - r), where r is the risk-free return (one number, or one per
- * period). Equal bit for bit to `crossProducts` of the three series computed first.
+ * period). Equal bit for bit to `crossProducts` of the three series computed first. With `scale` (a
+ * power of two, scaling.ts) the excess returns are multiplied by it as they are formed.
  */
 export function excessCrossProducts(
   low: ArrayLike<number>,
   high: ArrayLike<number>,
   riskFree: number | ArrayLike<number>,
   weight: number,
+  scale = 1,
 ): CrossProducts {
   const n = low.length;
   if (high.length !== n || (typeof riskFree !== "number" && riskFree.length !== n))
     throw new RangeError(`excessCrossProducts: series lengths differ`);
-  return welford3(low, high, null, riskFree, weight);
+  return welford3(low, high, null, riskFree, weight, scale);
 }
 
 /**
- * The unrolled three-series Welford pass on (x - r, y - r, z), with z = w (x - r) + (1 - w)(y - r)
- * when null; r = 0 gives crossProducts3 exactly (x - 0 is x). The rows are taken in chunks by a
+ * The unrolled three-series Welford pass on s (x - r), s (y - r) and z, with z = w s (x - r) +
+ * (1 - w) s (y - r) when null; r = 0 and s = 1 give crossProducts3 exactly (x - 0 is x, 1 x is x). The rows are taken in chunks by a
  * small function (`welfordChunk`) that V8 optimises as a whole after a few calls: one long loop would
  * run in on-stack-replaced code, which boxes its doubles and is several times slower.
  */
@@ -167,16 +169,17 @@ function welford3(
   z: Float64Array | null,
   riskFree: number | ArrayLike<number>,
   weight: number,
+  scale: number,
 ): CrossProducts {
   const n = x.length;
   const rate = typeof riskFree === "number" ? riskFree : 0;
   const rates = typeof riskFree === "number" ? null : riskFree;
   const r0 = rates === null ? rate : n > 0 ? rates[0]! : 0;
-  const kx = n > 0 ? x[0]! - r0 : 0;
-  const ky = n > 0 ? y[0]! - r0 : 0;
+  const kx = n > 0 ? (x[0]! - r0) * scale : 0;
+  const ky = n > 0 ? (y[0]! - r0) * scale : 0;
   const kz = n > 0 ? (z === null ? weight * kx + (1 - weight) * ky : z[0]!) : 0;
   const state = new Float64Array(STATE_SIZE);
-  const shift = Float64Array.of(kx, ky, kz);
+  const shift = Float64Array.of(kx, ky, kz, scale);
   for (let from = 0; from < n; from += CHUNK) welfordChunk(x, y, z, rates, rate, weight, shift, from, Math.min(n, from + CHUNK), state);
   // A running value plus its carried error: state[value] + state[error].
   const total = (value: number, error: number): number => state[value]! + state[error]!;
@@ -215,7 +218,8 @@ function welfordChunk(
   const other = 1 - weight;
   const kx = shift[0]!,
     ky = shift[1]!,
-    kz = shift[2]!;
+    kz = shift[2]!,
+    scale = shift[3]!;
   let mx = state[0]!,
     my = state[1]!,
     mz = state[2]!,
@@ -239,8 +243,8 @@ function welfordChunk(
   for (let t = from; t < to; t++) {
     const inverseCount = 1 / (t + 1);
     const r = rates === null ? rate : rates[t]!;
-    const lt = x[t]! - r;
-    const ht = y[t]! - r;
+    const lt = (x[t]! - r) * scale;
+    const ht = (y[t]! - r) * scale;
     const vx = lt - kx;
     const vy = ht - ky;
     const vz = (z === null ? weight * lt + other * ht : z[t]!) - kz;

@@ -92,6 +92,13 @@ export const maximumReplicates = 10_000_000;
 export const magnitudeRange = { min: 1e-100, max: 1e100 } as const;
 
 /**
+ * The largest ratio of the two books' magnitudes: the core scales both by one factor (the market
+ * proxy mixes them), so a book 1e-20 the size of the other keeps its squares and fourth powers (the
+ * HAC sums) well inside double precision.
+ */
+export const magnitudeRatio = 1e20;
+
+/**
  * Why the ranges of the weight and the confidence level are what they are:
  * - weight within [0.0001, 0.9999]: nearer 0 or 1 the proxy is one book to within rounding, and the
  *   other book's CAPM residuals (w or 1 - w times its noise) keep too few digits for the standard

@@ -46,6 +46,8 @@ export async function uncertaintyFor(
     intervalSource: options.intervalSource,
     ...(bootstrapSummary === undefined ? {} : { bootstrapSummary }),
   });
+  // No set (the covariance not positive, or not determined by the data): no interval for a point of it.
+  if (solution.bounds === null) return { uncertainty: { ...uncertainty, bounds: null, lowBeta: null, highBeta: null }, note: null };
   return { uncertainty, note: null };
 }
 

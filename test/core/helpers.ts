@@ -2,8 +2,17 @@
 
 import { expect } from "vitest";
 import type { Diagnostic } from "../../src/core/diagnostics.js";
+import { implied, type ImpliedSolution } from "../../src/core/forward/implied.js";
+import type { Structure } from "../../src/core/forward/populationMoments.js";
 import { solve } from "../../src/core/solve.js";
 import type { Candidate, IdentifiedBounds, Landmarks, ReturnSample, Solution, SolveOptions } from "../../src/core/types.js";
+
+/** Runs implied and fails the test, listing the diagnostics, unless it succeeded. */
+export function impliedOk(structure: Structure, steps: number): ImpliedSolution {
+  const result = implied(structure, steps);
+  if (!result.ok) expect.fail(`implied failed: ${result.issues.map((d) => d.message).join("; ")}`);
+  return result.value;
+}
 
 /** Runs solve and fails the test, listing the diagnostics, unless it succeeded. */
 export function solveOk(sample: ReturnSample, options?: SolveOptions): Solution {

@@ -55,6 +55,7 @@ export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {})
   return {
     estimate,
     iidStdErr: sharpeIidStdErr(estimate, n),
-    hacStdErr: Math.sqrt(bilinear(gradient, sigmaHat, gradient) / n),
+    // A quadratic form of a positive semi-definite matrix: negative only by rounding.
+    hacStdErr: Math.sqrt(Math.max(0, bilinear(gradient, sigmaHat, gradient)) / n),
   };
 }

@@ -34,7 +34,7 @@ import {
 } from "./options.js";
 import { sharpeStdErrors } from "./sharpe.js";
 import { stoyeInterval } from "./stoye.js";
-import { excessReturns } from "./bootstrap/replicates.js";
+import { scaledExcessReturns } from "./bootstrap/replicates.js";
 import { crossProducts } from "../moments.js";
 import type { ReturnSample } from "../types.js";
 import type { Uncertainty, PointwiseBound, BetaInterval, CapmHac } from "./uncertaintyTypes.js";
@@ -73,7 +73,9 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
   assertParameter("assessUncertainty", "weight", weight);
   assertParameter("assessUncertainty", "confidence", confidence);
   const data = sample.riskFree === undefined ? { low: sample.low, high: sample.high, weight } : { ...sample, weight };
-  const { low, high } = excessReturns(data);
+  // Computed on the excess returns times a power of two (scaling.ts): the HAC sums hold fourth
+  // powers of returns. Every result is unit-free except the CAPM alphas' standard errors.
+  const { low, high, scale } = scaledExcessReturns(data);
   const n = low.length;
   if (n < minimumForUncertainty) throw new RangeError(`assessUncertainty: needs at least ${minimumForUncertainty} observations, got ${n}`);
   const market = Float64Array.from(low, (l, t) => weight * l + (1 - weight) * high[t]!);
@@ -93,6 +95,13 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
           })
         : null;
   if (source === "bootstrap" && bootstrap === null) throw new RangeError('intervalSource "bootstrap" needs bootstrap replicates > 0');
+  // Bootstrap standard errors of both ends, when every replicate but one left them undefined (no
+  // set), do not exist: the delta method's are used, and `intervalSource` says so.
+  const bootstrapErrors =
+    bootstrap === null || bootstrap.stdErrors.lowBetaMin === null || bootstrap.stdErrors.lowBetaMax === null
+      ? null
+      : { lowBetaMin: bootstrap.stdErrors.lowBetaMin, lowBetaMax: bootstrap.stdErrors.lowBetaMax };
+  const usedSource: IntervalSource = source === "bootstrap" && bootstrapErrors !== null ? "bootstrap" : "delta";
 
   const delta = boundsDeltaFromData(low, high, moments, longRun, hac);
   const z = normalQuantile(1 - (1 - confidence) / 2);
@@ -106,12 +115,9 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
   let lowBeta: Uncertainty["lowBeta"] = null;
   let highBeta: Uncertainty["highBeta"] = null;
   if (moments.covariance > 0) {
-    const useBootstrap = source === "bootstrap" && bootstrap !== null;
-    const se = (name: "lowBetaMin" | "lowBetaMax", fallback: number) =>
-      useBootstrap ? (bootstrap.stdErrors[name] ?? Number.NaN) : fallback;
-    const seLower = se("lowBetaMin", delta.lowBeta.min.stdError);
-    const seUpper = se("lowBetaMax", delta.lowBeta.max.stdError);
-    const correlation = useBootstrap ? (bootstrap.boundsCorrelation ?? 0) : delta.correlation;
+    const seLower = usedSource === "bootstrap" && bootstrapErrors !== null ? bootstrapErrors.lowBetaMin : delta.lowBeta.min.stdError;
+    const seUpper = usedSource === "bootstrap" && bootstrapErrors !== null ? bootstrapErrors.lowBetaMax : delta.lowBeta.max.stdError;
+    const correlation = usedSource === "bootstrap" ? (bootstrap?.boundsCorrelation ?? 0) : delta.correlation;
     const ratio = weight / (1 - weight);
     const lb = delta.lowBeta.min.estimate;
     const ub = delta.lowBeta.max.estimate;
@@ -124,17 +130,25 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
       correlation,
     };
     const estimate = { lower: lb, upper: ub, lowerStdError: seLower, upperStdError: seUpper };
+    // Stoye's programme needs both standard errors positive; with a zero one (an end known exactly,
+    // as for perfectly correlated books) the Imbens-Manski interval is reported, and named.
+    const usedMethod: IntervalMethod = method === "stoye" && seLower > 0 && seUpper > 0 ? "stoye" : "imbens-manski";
     const interval: ParameterInterval =
-      method === "stoye" ? stoyeInterval({ ...estimate, correlation }, confidence) : imbensManskiInterval(estimate, confidence);
+      usedMethod === "stoye" ? stoyeInterval({ ...estimate, correlation }, confidence) : imbensManskiInterval(estimate, confidence);
     const toHigh = (b: number) => (1 - weight * b) / (1 - weight);
     lowBeta = {
-      interval: { lower: interval.lower, upper: interval.upper, method, criticalValue: interval.criticalValue } satisfies BetaInterval,
+      interval: {
+        lower: interval.lower,
+        upper: interval.upper,
+        method: usedMethod,
+        criticalValue: interval.criticalValue,
+      } satisfies BetaInterval,
     };
     highBeta = {
       interval: {
         lower: toHigh(interval.upper),
         upper: toHigh(interval.lower),
-        method,
+        method: usedMethod,
         criticalValue: { lower: interval.criticalValue.upper, upper: interval.criticalValue.lower },
       },
     };
@@ -147,9 +161,10 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
   };
   const capmLow = capmFit(low);
   const capmHigh = capmFit(high);
+  // Diagonals of a positive semi-definite matrix, negative only by rounding; the alpha's back in the data's units.
   const capmHac = (c: ReturnType<typeof capmFit>): CapmHac => ({
-    alphaStdErr: Math.sqrt(c.hac.covariance[0]![0]!),
-    betaStdErr: Math.sqrt(c.hac.covariance[1]![1]!),
+    alphaStdErr: Math.sqrt(Math.max(0, c.hac.covariance[0]![0]!)) / scale,
+    betaStdErr: Math.sqrt(Math.max(0, c.hac.covariance[1]![1]!)),
   });
 
   return {
@@ -159,7 +174,7 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
       kernel: delta.longRun.kernel,
       bandwidth: delta.longRun.bandwidth,
       lags: delta.longRun.lags,
-      intervalSource: source,
+      intervalSource: usedSource,
     },
     capm: {
       low: { hac: capmHac(capmLow) },

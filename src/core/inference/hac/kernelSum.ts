@@ -9,7 +9,9 @@
  * Bandwidth resolution: a fixed `lags` L is Bartlett bandwidth L + 1; with the Newey-West (1994) rule
  * and the Bartlett kernel the bandwidth S becomes the lag floor(S) (R's NeweyWest), so the weights are
  * 1 - j/(floor(S) + 1); every other case uses k(j/S) directly (R's kernHAC / weightsAndrews).
- * With prewhitening the sum runs over the VAR(1) residuals and is recoloured D S D' (prewhiten.ts).
+ * With prewhitening the sum runs over the VAR(1) residuals and is recoloured D S D' (prewhiten.ts);
+ * when the VAR(1) fit is singular (a constant column, or one that is a combination of the others) or
+ * the recoloured sum is not finite, the series is not prewhitened and `prewhite` says so (false).
  */
 
 import { andrews1991Bandwidth, neweyWest1994Bandwidth } from "./bandwidth.js";
@@ -137,19 +139,45 @@ export function kernelSum(columns: readonly Float64Array[], options: HacOptions,
     throw new RangeError(`HAC lags must be a non-negative integer, got ${options.lags}`);
   }
   if (options.lags !== undefined && kernel !== "bartlett") throw new RangeError("HAC lags apply to the Bartlett kernel only");
-  const whitened = prewhite ? prewhitenVar1(columns) : null;
-  const series = whitened?.residuals ?? columns;
+  if (prewhite) {
+    const whitened = prewhitenVar1(columns);
+    if (whitened !== null) {
+      const estimate = weightedSum(whitened.residuals, kernel, options, columnWeights, rows, true);
+      const sum = sandwich(whitened.recolour, estimate.sum);
+      if (sum.every((row) => row.every(Number.isFinite))) return { ...estimate, sum };
+    }
+  }
+  return weightedSum(columns, kernel, options, columnWeights, rows, false);
+}
+
+/**
+ * The kernel sum of `series` (prewhitened or not) at the bandwidth the options ask for. When an
+ * automatic rule is undefined (its estimate of the long-run variance of the weighted estimating
+ * functions is 0, as when they are identically 0, or the estimate is not finite) every bandwidth
+ * gives the same sum or none is defined: the sum keeps lag 0 only, and the bandwidth is reported as 0.
+ */
+function weightedSum(
+  series: readonly Float64Array[],
+  kernel: HacKernel,
+  options: HacOptions,
+  columnWeights: readonly number[],
+  rows: number,
+  prewhite: boolean,
+): KernelSum {
   const n = series[0]?.length ?? 0;
   const choice: BandwidthChoice = options.lags !== undefined ? options.lags + 1 : (options.bandwidth ?? defaultHac.bandwidth);
-  const bandwidth =
+  const rule =
     choice === "newey-west-1994"
       ? neweyWest1994Bandwidth(series, kernel, columnWeights, rows, prewhite)
       : choice === "andrews-1991"
         ? andrews1991Bandwidth(series, kernel, columnWeights)
         : choice;
-  if (!(bandwidth > 0 && Number.isFinite(bandwidth))) throw new RangeError(`HAC bandwidth must be positive, got ${bandwidth}`);
-  const weights =
-    kernel === "bartlett" && choice === "newey-west-1994"
+  const defined = rule > 0 && Number.isFinite(rule);
+  if (!defined && typeof choice === "number") throw new RangeError(`HAC bandwidth must be positive, got ${choice}`);
+  const bandwidth = defined ? rule : 0;
+  const weights = !defined
+    ? Float64Array.of(1)
+    : kernel === "bartlett" && choice === "newey-west-1994"
       ? lagWeights(kernel, Math.floor(bandwidth) + 1, n)
       : lagWeights(kernel, bandwidth, n);
   let lags: number | null = null;
@@ -157,7 +185,5 @@ export function kernelSum(columns: readonly Float64Array[], options: HacOptions,
     lags = 0;
     for (let j = 0; j < weights.length; j++) if (weights[j]! > 0) lags = j;
   }
-  const raw = weightedAutocovarianceSum(series, weights);
-  const sum = whitened === null ? raw : sandwich(whitened.recolour, raw);
-  return { sum, kernel, bandwidth, lags, prewhite };
+  return { sum: weightedAutocovarianceSum(series, weights), kernel, bandwidth, lags, prewhite };
 }
