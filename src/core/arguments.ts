@@ -6,6 +6,7 @@
 
 import { diagnose, type Diagnostic } from "./diagnostics.js";
 import { type ParameterName, parameters } from "./parameters.js";
+import type { ReturnSample } from "./types.js";
 
 /** How a value that is not a finite number is named in a message: NaN, Infinity, a hole, undefined, a string "x". */
 export function describeValue(values: ArrayLike<unknown>, index: number): string {
@@ -47,6 +48,27 @@ export function describeScalar(value: unknown): string {
   if (typeof value === "number") return String(value);
   if (typeof value === "string") return JSON.stringify(value);
   return value === null ? "null" : value === undefined ? "undefined" : `a ${typeof value}`;
+}
+
+/** Arguments that are not finite numbers, holes, or series of different lengths. */
+export function sampleIssues(sample: ReturnSample): Diagnostic[] {
+  if (sample === null || typeof sample !== "object") {
+    return [
+      diagnose({ code: "invalid-argument", argument: "sample", value: String(sample), expected: "an object { low, high, riskFree? }" }),
+    ];
+  }
+  const found = issues(firstInvalidNumber("low", sample.low), firstInvalidNumber("high", sample.high));
+  if (found.length > 0) return found;
+  found.push(...issues(lengthMismatch("high", sample.high, sample.low.length)));
+  const rf = sample.riskFree;
+  if (typeof rf === "number") {
+    if (!Number.isFinite(rf))
+      found.push(diagnose({ code: "invalid-argument", argument: "riskFree", value: String(rf), expected: "a finite number" }));
+  } else if (rf !== undefined) {
+    found.push(...issues(firstInvalidNumber("riskFree", rf)));
+    if (found.length === 0) found.push(...issues(lengthMismatch("riskFree", rf, sample.low.length)));
+  }
+  return found;
 }
 
 /** The diagnostics that are not null, in order. */

@@ -29,18 +29,19 @@ export interface CrossProducts {
 }
 
 /**
- * Means and centred cross-products of `series` (all the same length) in one pass.
+ * Means and centred cross-products of `series` (all the same length) in one pass: the core's own
+ * pass, on arguments it has checked (the library's `crossProducts`, statistics.ts, checks them).
  * @throws RangeError if the series differ in length (a programming error, not a data condition).
- * @example crossProducts([[1, 2, 3], [2, 4, 7]]).sums[0][1] // => 5
+ * @example welfordCrossProducts([[1, 2, 3], [2, 4, 7]]).sums[0][1] // => 5
  */
-export function crossProducts(series: readonly ArrayLike<number>[]): CrossProducts {
+export function welfordCrossProducts(series: readonly ArrayLike<number>[]): CrossProducts {
   if (series.length === 3 && series.every((s) => s instanceof Float64Array)) {
     return crossProducts3(series[0] as Float64Array, series[1] as Float64Array, series[2] as Float64Array);
   }
   const k = series.length;
   const n = k === 0 ? 0 : series[0]!.length;
   for (const s of series) {
-    if (s.length !== n) throw new RangeError(`crossProducts: series lengths differ (${s.length} vs ${n})`);
+    if (s.length !== n) throw new RangeError(`welfordCrossProducts: series lengths differ (${s.length} vs ${n})`);
   }
   const shift = new Float64Array(k);
   for (let i = 0; i < k; i++) shift[i] = n > 0 ? series[i]![0]! : 0;
@@ -91,46 +92,8 @@ export function crossProducts(series: readonly ArrayLike<number>[]): CrossProduc
   return { n, means, sums: matrix };
 }
 
-/** Arithmetic mean. Returns NaN for an empty series (callers check the length first). */
-export function mean(x: ArrayLike<number>): number {
-  return crossProducts([x]).means[0] ?? Number.NaN;
-}
-
-/** Sample variance with divisor n - 1 (Bessel's correction). NaN when n < 2. */
-export function sampleVariance(x: ArrayLike<number>): number {
-  const cp = crossProducts([x]);
-  return cp.n < 2 ? Number.NaN : cp.sums[0]![0]! / (cp.n - 1);
-}
-
-/** Sample standard deviation: the square root of `sampleVariance` (divisor n - 1). */
-export function sampleStdev(x: ArrayLike<number>): number {
-  return Math.sqrt(sampleVariance(x));
-}
-
-/** Sample covariance with divisor n - 1. NaN when n < 2. */
-export function sampleCovariance(x: ArrayLike<number>, y: ArrayLike<number>): number {
-  const cp = crossProducts([x, y]);
-  return cp.n < 2 ? Number.NaN : cp.sums[0]![1]! / (cp.n - 1);
-}
-
 /**
- * Neumaier's compensated sum (an improved Kahan-Babuska summation): the rounding error of each
- * addition is carried separately and added back at the end.
- * Neumaier, A. (1974), ZAMM 54(1), 39-51.
- */
-export function compensatedSum(values: Iterable<number>): number {
-  let sum = 0;
-  let compensation = 0;
-  for (const v of values) {
-    const t = sum + v;
-    compensation += Math.abs(sum) >= Math.abs(v) ? sum - t + v : v - t + sum;
-    sum = t;
-  }
-  return sum + compensation;
-}
-
-/**
- * crossProducts for exactly three Float64Array series (what solve uses), with the loops unrolled:
+ * welfordCrossProducts for exactly three Float64Array series (what solve uses), with the loops unrolled:
  * the same operations in the same order as the general code, so the same results bit for bit.
  */
 function crossProducts3(x: Float64Array, y: Float64Array, z: Float64Array): CrossProducts {

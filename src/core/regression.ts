@@ -14,18 +14,9 @@
  * Greene, W. H., Econometric Analysis, ch. 3-4 (standard results); NIST StRD "Norris" for the check.
  */
 
-import { CHUNK, crossProducts } from "./moments.js";
+import { CHUNK } from "./moments.js";
 import { studentTTwoSidedP } from "./numerics/studentT.js";
 import type { LineFit } from "./types.js";
-
-/** Fits y = alpha + beta x + e. Needs n >= 3 and a non-constant x (callers check; see solve.ts). */
-export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>): LineFit {
-  const cp = crossProducts([x, y]);
-  const [xbar, ybar] = cp.means as [number, number];
-  const sums = { n: cp.n, xbar, ybar, sxx: cp.sums[0]![0]!, sxy: cp.sums[0]![1]!, syy: cp.sums[1]![1]! };
-  const beta = sums.sxy / sums.sxx;
-  return lineFitFromSums(sums, residualSumOfSquares(x, y, xbar, ybar, beta));
-}
 
 /** Means and centred sums of squares and cross-products of (x, y). */
 export interface LineSums {

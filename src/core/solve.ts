@@ -8,7 +8,7 @@
  * Divisor n - 1 throughout.
  */
 
-import { firstInvalidNumber, issues, lengthMismatch, parameterIssue } from "./arguments.js";
+import { issues, parameterIssue, sampleIssues } from "./arguments.js";
 import { covarianceCancellation, largestValues, magnitudeIssue, type RoundingScales, varianceCancellation } from "./cancellation.js";
 import { diagnose, type Diagnostic } from "./diagnostics.js";
 import { candidateGrid, identifiedBounds, isPerfectCorrelation, marketMoments, noiseFreePoint, type MomentSummary } from "./identify.js";
@@ -101,27 +101,6 @@ export function solve(sample: ReturnSample, options: SolveOptions = {}): Result<
   const capm = { low: lineFitFromSums(lowSums, lowSsr), high: lineFitFromSums(highSums, highSsr) };
   const identified = identifySet(summary, steps, moments.market.stdev / Math.sqrt(n), { n, ...scales });
   return success(unscaleSolution({ observations: n, weight, moments, capm, ...identified }, unitsOf(scale)));
-}
-
-/** Arguments that are not finite numbers, holes, or series of different lengths. */
-function sampleIssues(sample: ReturnSample): Diagnostic[] {
-  if (sample === null || typeof sample !== "object") {
-    return [
-      diagnose({ code: "invalid-argument", argument: "sample", value: String(sample), expected: "an object { low, high, riskFree? }" }),
-    ];
-  }
-  const found = issues(firstInvalidNumber("low", sample.low), firstInvalidNumber("high", sample.high));
-  if (found.length > 0) return found;
-  found.push(...issues(lengthMismatch("high", sample.high, sample.low.length)));
-  const rf = sample.riskFree;
-  if (typeof rf === "number") {
-    if (!Number.isFinite(rf))
-      found.push(diagnose({ code: "invalid-argument", argument: "riskFree", value: String(rf), expected: "a finite number" }));
-  } else if (rf !== undefined) {
-    found.push(...issues(firstInvalidNumber("riskFree", rf)));
-    if (found.length === 0) found.push(...issues(lengthMismatch("riskFree", rf, sample.low.length)));
-  }
-  return found;
 }
 
 /** A cancellation found on scaled data, with its numbers in the data's units. */

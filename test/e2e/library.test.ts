@@ -121,7 +121,7 @@ describe('import { ... } from "betabound/core"', () => {
       const low = [0.01, -0.02, 0.015, 0.004, -0.006, 0.012, 0.003, -0.011, 0.02, 0.001, -0.004, 0.007];
       const high = [0.02, -0.035, 0.03, 0.001, -0.012, 0.02, 0.004, -0.02, 0.033, 0.005, -0.01, 0.011];
       const result = solve({ low, high });
-      const u = assessUncertainty({ low, high });
+      const u = assessUncertainty({ low, high }).value;
       console.log(JSON.stringify({ ok: result.ok, bounds: result.ok ? result.value.bounds.lowBeta : null, se: u.bounds.lowBeta.min.stdError > 0, implied: implied({ lowBeta: 0.7, weight: 0.5, factorVol: 0.04, factorMean: 0.005, lowNoiseVol: 0.01, highNoiseVol: 0.02 }, 3).value.truth.insideSet }));
     `;
     const result = spawnSync(process.execPath, ["--input-type=module", "-e", script], { cwd: root, encoding: "utf8" });

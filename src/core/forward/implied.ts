@@ -7,7 +7,7 @@
 
 import { issues, parameterIssue } from "../arguments.js";
 import { diagnose, type Diagnostic } from "../diagnostics.js";
-import { populationMoments, type Structure } from "./populationMoments.js";
+import { populationMoments, type Structure, structureIssues } from "./populationMoments.js";
 import { marketMoments, structureAt } from "../identify.js";
 import { failure, type Result, success } from "../result.js";
 import { scaleFor, unitsOf, unscaleCandidate, unscaleIdentified, unscaleMoments } from "../scaling.js";
@@ -84,30 +84,4 @@ export function implied(structure: Structure, steps: number): Result<ImpliedSolu
     capm,
     ...unscaleIdentified(identified, units),
   });
-}
-
-/** The structure's parameters that break their rules (core/parameters.ts), as "invalid-argument" diagnostics. */
-export function structureIssues(structure: Structure): Diagnostic[] {
-  if (structure === null || typeof structure !== "object") {
-    return [diagnose({ code: "invalid-argument", argument: "structure", value: String(structure), expected: "an object" })];
-  }
-  const found = issues(
-    parameterIssue("weight", "weight", structure.weight),
-    parameterIssue("lowBeta", "lowBeta", structure.lowBeta),
-    parameterIssue("factorVol", "factorVol", structure.factorVol),
-    parameterIssue("factorMean", "mean", structure.factorMean),
-    parameterIssue("lowNoiseVol", "noiseVol", structure.lowNoiseVol),
-    parameterIssue("highNoiseVol", "noiseVol", structure.highNoiseVol),
-  );
-  if (found.length === 0 && !(structure.lowBeta < 1 / structure.weight)) {
-    found.push(
-      diagnose({
-        code: "invalid-argument",
-        argument: "lowBeta",
-        value: String(structure.lowBeta),
-        expected: "below 1/w, so that the high book's beta is positive",
-      }),
-    );
-  }
-  return found;
 }

@@ -35,13 +35,15 @@ import {
 import { sharpeStdErrors } from "./sharpe.js";
 import { stoyeInterval } from "./stoye.js";
 import { scaledExcessReturns } from "./bootstrap/replicates.js";
-import { crossProducts } from "../moments.js";
+import { welfordCrossProducts } from "../moments.js";
 import type { ReturnSample } from "../types.js";
 import type { Uncertainty, PointwiseBound, BetaInterval, CapmHac } from "./uncertaintyTypes.js";
-import { assertParameter, defaultBlockLength, defaultSeed, defaultWeight } from "../parameters.js";
+import { defaultBlockLength, defaultSeed, defaultWeight } from "../parameters.js";
+import { diagnose, type Diagnostic } from "../diagnostics.js";
+import { failure, type Result, success } from "../result.js";
+import { minimumForUncertainty, uncertaintyArgumentIssues } from "./uncertaintyArguments.js";
 
-/** Standard errors need this many observations; with fewer, none are reported. */
-export const minimumForUncertainty = 10;
+export { minimumForUncertainty };
 
 /** The aligned per-period returns (decimal) that `solve` takes. */
 export type UncertaintySample = ReturnSample;
@@ -63,25 +65,42 @@ export interface UncertaintyOptions {
   readonly bootstrapSummary?: BootstrapSummary;
 }
 
-export function assessUncertainty(sample: UncertaintySample, options: UncertaintyOptions = {}): Uncertainty {
+/**
+ * Standard errors and intervals for what `solve` reports on `sample`. Fails with diagnostics, as
+ * solve does, on arguments that are not finite numbers or break their rules (uncertaintyArguments.ts),
+ * fewer than 10 observations, returns out of double precision's reach, or a constant series.
+ */
+export function assessUncertainty(sample: UncertaintySample, options: UncertaintyOptions = {}): Result<Uncertainty, Diagnostic[]> {
+  const invalid = uncertaintyArgumentIssues(sample, options);
+  if (invalid.length > 0) return failure(invalid);
+  const weight = options.weight ?? defaultWeight;
+  const data = sample.riskFree === undefined ? { low: sample.low, high: sample.high, weight } : { ...sample, weight };
+  // Computed on the excess returns times a power of two (scaling.ts): the HAC sums hold fourth
+  // powers of returns. Every result is unit-free except the CAPM alphas' standard errors.
+  const scaled = scaledExcessReturns(data);
+  const moments = secondMoments(scaled.low, scaled.high, weight);
+  const w = weight;
+  const marketVariance = w * w * moments.lowVariance + 2 * w * (1 - w) * moments.covariance + (1 - w) * (1 - w) * moments.highVariance;
+  const constant = !(moments.lowVariance > 0) ? "low" : !(moments.highVariance > 0) ? "high" : !(marketVariance > 0) ? "market" : null;
+  if (constant !== null) return failure([diagnose({ code: "zero-variance", series: constant })]);
+  return success(uncertaintyOf(sample, scaled, moments, options));
+}
+
+/** assessUncertainty on checked arguments. */
+function uncertaintyOf(
+  sample: UncertaintySample,
+  { low, high, scale }: { low: Float64Array; high: Float64Array; scale: number },
+  moments: ReturnType<typeof secondMoments>,
+  options: UncertaintyOptions,
+): Uncertainty {
   const weight = options.weight ?? defaultWeight;
   const confidence = options.confidence ?? defaultConfidence;
   const longRun = options.longRun ?? defaultLongRun;
   const hac = options.hac ?? {};
   const method = options.interval ?? defaultIntervalMethod;
   const source = options.intervalSource ?? defaultIntervalSource;
-  assertParameter("assessUncertainty", "weight", weight);
-  assertParameter("assessUncertainty", "confidence", confidence);
-  const data = sample.riskFree === undefined ? { low: sample.low, high: sample.high, weight } : { ...sample, weight };
-  // Computed on the excess returns times a power of two (scaling.ts): the HAC sums hold fourth
-  // powers of returns. Every result is unit-free except the CAPM alphas' standard errors.
-  const { low, high, scale } = scaledExcessReturns(data);
   const n = low.length;
-  if (n < minimumForUncertainty) throw new RangeError(`assessUncertainty: needs at least ${minimumForUncertainty} observations, got ${n}`);
   const market = Float64Array.from(low, (l, t) => weight * l + (1 - weight) * high[t]!);
-
-  const moments = secondMoments(low, high, weight);
-  if (!(moments.lowVariance > 0 && moments.highVariance > 0)) throw new RangeError("assessUncertainty: a series is constant");
   const replicates = options.bootstrap?.replicates ?? 0;
   const bootstrap: BootstrapSummary | null =
     options.bootstrapSummary !== undefined
@@ -197,7 +216,7 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
 
 /** Sample variances and covariance (divisor n - 1) from compensated one-pass sums (moments.ts). */
 function secondMoments(low: Float64Array, high: Float64Array, weight: number) {
-  const cp = crossProducts([low, high]);
+  const cp = welfordCrossProducts([low, high]);
   const d = cp.n - 1;
   return { weight, lowVariance: cp.sums[0]![0]! / d, highVariance: cp.sums[1]![1]! / d, covariance: cp.sums[0]![1]! / d };
 }

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { impliedOk } from "../helpers.js";
 import type { Structure } from "../../../src/core/forward/populationMoments.js";
 import { solve } from "../../../src/core/solve.js";
-import { simulateSample } from "../../../src/core/forward/simulate.js";
+import { drawSample } from "../../../src/core/forward/simulate.js";
 import { expectClose } from "../../support/close.js";
 
 // docs/methods.md §1.7 Example A as a structure: b_low = 3/4, phi = 16/3, s = (1, 2/3), w = 1/2.
@@ -36,7 +36,7 @@ describe("implied", () => {
   it("agrees with solve on a long simulated sample within sampling error", () => {
     const structure: Structure = { lowBeta: 0.7, weight: 0.5, factorVol: 0.04, factorMean: 0.006, lowNoiseVol: 0.01, highNoiseVol: 0.02 };
     const population = impliedOk(structure, 11);
-    const sample = simulateSample(structure, { periods: 400_000, seed: 21 });
+    const sample = drawSample(structure, { periods: 400_000, seed: 21 });
     const solved = solve(sample);
     expect(solved.ok).toBe(true);
     if (!solved.ok) return;

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import type { Structure } from "../../../src/core/forward/populationMoments.js";
 import { createRandom } from "../../../src/core/numerics/rng.js";
-import { simulateSample } from "../../../src/core/forward/simulate.js";
+import { drawSample } from "../../../src/core/forward/simulate.js";
 import { solve } from "../../../src/core/solve.js";
 import { impliedOk } from "../helpers.js";
 
@@ -28,7 +28,7 @@ describe("solve recovers the structure that generated the data", () => {
     const draws = 200;
     for (let k = 0; k < draws; k++) {
       const structure = randomStructure(() => random.uniform());
-      const result = solve(simulateSample(structure, { periods: 20_000, seed: 1000 + k }), { weight: structure.weight });
+      const result = solve(drawSample(structure, { periods: 20_000, seed: 1000 + k }), { weight: structure.weight });
       expect(result.ok).toBe(true);
       if (!result.ok || result.value.bounds === null) continue;
       const { min, max } = result.value.bounds.lowBeta;
