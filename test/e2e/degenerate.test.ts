@@ -10,6 +10,7 @@ import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
+import { scaledDifference } from "../support/units.js";
 import { books, type CliRun, contractBreaches, describeRun, monthly, runAll } from "./support/cliRuns.js";
 
 const scratch = mkdtempSync(join(tmpdir(), "betabound-degenerate-"));
@@ -275,78 +276,6 @@ describe("degenerate data and options at the ends of their ranges", () => {
   });
 });
 
-/** Fields in the returns' units (times s) and in their squares' (times s^2); every other number is unit-free. */
-const firstOrder = new Set([
-  "mean",
-  "stdev",
-  "alpha",
-  "alphaStdErr",
-  "residualStdError",
-  "expectedLowAlpha",
-  "expectedHighAlpha",
-  "marketMean",
-  "lowCapmAlpha",
-  "highCapmAlpha",
-  "factorMean",
-  "factorVol",
-  "lowNoiseVol",
-  "highNoiseVol",
-  "rf",
-  "rate",
-  "expectedReturns",
-]);
-const secondOrder = new Set([
-  "variance",
-  "covariance",
-  "factorVariance",
-  "lowNoiseVariance",
-  "highNoiseVariance",
-  "residualVariance",
-  "lowResidualVariance",
-  "highResidualVariance",
-  "residualSumOfSquares",
-]);
-
-/** The power of the scale a number at `path` carries: 2 if any key is a second-order field, else 1 if any is first-order, else 0. */
-function unitPower(path: readonly string[]): number {
-  if (path.includes("validReplicates")) return 0; // counts of replicates, per quantity
-  if (path.some((key) => secondOrder.has(key))) return 2;
-  return path.some((key) => firstOrder.has(key)) ? 1 : 0;
-}
-
-/**
- * The largest relative difference between every number of `scaled` and the one of `plain` times
- * s^power (an absolute floor of 1e-13 of the plain document's largest unit-free number guards values
- * that are 0 in exact arithmetic), and the paths compared.
- */
-function scaledDifference(plain: unknown, scaled: unknown, s: number): { largest: number; at: string; compared: number } {
-  let largest = 0;
-  let at = "";
-  let compared = 0;
-  const walk = (a: unknown, b: unknown, path: string[]): void => {
-    if (typeof a === "number") {
-      expect(typeof b, path.join(".")).toBe("number");
-      const expected = a * s ** unitPower(path);
-      const difference = Math.abs((b as number) - expected) / Math.max(Math.abs(expected), Math.abs(b as number), Number.MIN_VALUE);
-      const tiny = Math.abs(a) < 1e-13;
-      compared++;
-      if (!tiny && difference > largest) {
-        largest = difference;
-        at = path.join(".");
-      }
-      return;
-    }
-    if (a === null || typeof a !== "object") {
-      if (!path.includes("message") && !path.includes("source")) expect(b, path.join(".")).toEqual(a);
-      return;
-    }
-    expect(b !== null && typeof b === "object", path.join(".")).toBe(true);
-    for (const key of Object.keys(a)) walk((a as Record<string, unknown>)[key], (b as Record<string, unknown>)[key], [...path, key]);
-  };
-  walk(plain, scaled, []);
-  return { largest, at, compared };
-}
-
 describe("returns scaled by a power of ten give the unscaled results in their units (to 1e-12)", () => {
   const scales = [1e-80, 1e-40, 1e40, 1e80];
   const solveArgs = (file: string) => [
@@ -420,5 +349,42 @@ describe("returns scaled by a power of ten give the unscaled results in their un
     expect(solveDifference.largest, `solve: at ${solveDifference.at}`).toBeLessThan(1e-12);
     expect(rollDifference.largest, `roll: at ${rollDifference.at}`).toBeLessThan(1e-12);
     expect(impliedDifference.largest, `implied: at ${impliedDifference.at}`).toBeLessThan(1e-12);
+  });
+});
+
+describe("a --config file value beyond its range is refused like the flag: exit 1, the same words", () => {
+  const values: readonly [string, string, unknown][] = [
+    ["bootstrap", "--bootstrap", 1e9],
+    ["steps", "--steps", 1e9],
+    ["confidence", "--confidence", 1e-300],
+    ["confidence", "--confidence", 0.9999999999999999],
+    ["weight", "--weight", 1e-17],
+    ["hacLags", "--hac-lags", 1e9],
+    ["blockLength", "--block-length", 1e300],
+    ["seed", "--seed", 1.5],
+  ];
+  let pairs: CliRun[][] = [];
+  beforeAll(async () => {
+    const argsList = values.flatMap(([key, flag, value], k) => {
+      const config = join(scratch, `config-${k}.json`);
+      writeFileSync(config, JSON.stringify({ [key]: value }));
+      return [
+        ["solve", monthly, ...books, "--config", config],
+        ["solve", monthly, ...books, flag, String(value)],
+      ];
+    });
+    const all = await runAll(argsList);
+    pairs = values.map((_, k) => [all[2 * k]!, all[2 * k + 1]!]);
+  }, 60_000);
+
+  it.each(values.map(([key, , value], k) => [key, value, k] as const))("%s = %s", (_key, _value, k) => {
+    const [fromFile, fromFlag] = pairs[k]!;
+    for (const run of [fromFile!, fromFlag!]) {
+      expect(contractBreaches(run), describeRun(run)).toEqual([]);
+      expect(run.code, describeRun(run)).toBe(1);
+    }
+    const rule = (stderr: string) => /must be [^;(\n]+/.exec(stderr)?.[0]?.trim();
+    expect(rule(fromFile!.stderr)).toBeDefined();
+    expect(rule(fromFile!.stderr)).toBe(rule(fromFlag!.stderr));
   });
 });
