@@ -69,7 +69,7 @@ const fmt = (x: number): string => (Number.isFinite(x) ? Number(x.toPrecision(6)
 export function describeDiagnostic(detail: DiagnosticDetail): string {
   switch (detail.code) {
     case "too-few-observations":
-      return `only ${detail.observations} aligned observation(s); at least ${detail.minimum} are needed for the moments and the CAPM fits`;
+      return `only ${detail.observations} observation(s); at least ${detail.minimum} are needed`;
     case "zero-variance":
       if (detail.series === "x") return "x is constant, so the slope of a line through the points is undefined";
       return `the ${detail.series} series has zero variance (it is constant), so betas and correlations are undefined; check that the right column was chosen`;
