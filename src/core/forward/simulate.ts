@@ -42,7 +42,7 @@ export interface SimulatedSample {
 /**
  * A sample drawn from `structure` (the library's entry point): fails with "invalid-argument"
  * diagnostics when a parameter breaks its rule (core/parameters.ts): the structure's as for
- * `implied`, periods a whole number from 1 to 10,000,000, the seed a whole number from 0 to 2^53 - 1,
+ * `implied`, periods a whole number from 1 to 1,000,000, the seed a whole number from 0 to 2^53 - 1,
  * the risk-free return a mean, tails above 2, the AR(1) coefficient within (-1, 1), GARCH
  * coefficients non-negative with a sum below 1.
  */
