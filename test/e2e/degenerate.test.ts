@@ -107,9 +107,10 @@ interface Case {
   readonly never?: string;
 }
 
-const solveFormats = ["text", "json", "csv", "jsonl"];
+/** Every format for data that are solved or rejected; a refused input writes no report, so json and jsonl (its failure record) cover it. */
+const solveFormats = (code: number) => (code === 2 ? ["json", "jsonl"] : ["text", "json", "csv", "jsonl"]);
 const solveOn = (name: string, file: string, code: number, extra: readonly string[] = [], says?: string, never?: string): Case[] =>
-  solveFormats.map((format) => ({
+  solveFormats(code).map((format) => ({
     name: `solve ${name} (${format})`,
     args: ["solve", file, ...ab, "--allow-extreme", "--format", format, ...extra],
     code,
@@ -277,7 +278,8 @@ describe("degenerate data and options at the ends of their ranges", () => {
 });
 
 describe("returns scaled by a power of ten give the unscaled results in their units (to 1e-12)", () => {
-  const scales = [1e-80, 1e-40, 1e40, 1e80];
+  // The core's tests cover more scales in process (test/core/degenerate.test.ts); here the executable's.
+  const scales = [1e-80, 1e80];
   const solveArgs = (file: string) => [
     "solve",
     file,
@@ -386,5 +388,40 @@ describe("a --config file value beyond its range is refused like the flag: exit 
     const rule = (stderr: string) => /must be [^;(\n]+/.exec(stderr)?.[0]?.trim();
     expect(rule(fromFile!.stderr)).toBeDefined();
     expect(rule(fromFile!.stderr)).toBe(rule(fromFlag!.stderr));
+  });
+});
+
+describe("charts and HTML reports of degenerate data hold no NaN or Infinity either", () => {
+  const drawn: readonly [string, readonly string[]][] = [
+    [
+      "solve, identical books",
+      ["solve", files.identical, ...ab, "--report", join(scratch, "identical.html"), "--chart", join(scratch, "identical.svg")],
+    ],
+    [
+      "solve, high = 2 low",
+      ["solve", files.perfect, ...ab, "--report", join(scratch, "perfect.html"), "--chart", join(scratch, "perfect.svg")],
+    ],
+    ["solve, covariance at rounding", ["solve", files.covarianceRounding, ...ab, "--report", join(scratch, "rounding.html")]],
+    [
+      "roll, every window constant up to rounding",
+      ["roll", files.cancellation, ...ab, "--window", "12", "--chart", join(scratch, "cancel-roll.svg")],
+    ],
+    [
+      "roll, windows with a negative covariance",
+      ["roll", files.negativeWindow, ...ab, "--window", "12", "--uncertainty", "--chart", join(scratch, "negative-roll.svg")],
+    ],
+  ];
+  let drawnRuns: CliRun[] = [];
+  beforeAll(async () => {
+    drawnRuns = await runAll(drawn.map(([, args]) => args));
+  }, 60_000);
+
+  it.each(drawn.map(([name], k) => [name, k] as const))("%s", (_name, k) => {
+    const run = drawnRuns[k]!;
+    expect(contractBreaches(run), describeRun(run)).toEqual([]);
+    expect([0, 3], describeRun(run)).toContain(run.code);
+    const outputs = run.args.filter((a) => a.endsWith(".svg") || a.endsWith(".html"));
+    expect(outputs.length).toBeGreaterThan(0);
+    for (const output of outputs) expect(readFileSync(output, "utf8")).not.toMatch(/\bNaN\b|Infinity/);
   });
 });
