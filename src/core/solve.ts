@@ -16,7 +16,7 @@ import { findLandmarks } from "./landmarks.js";
 import { excessCrossProducts } from "./moments.js";
 import { excessResidualSums, lineFitFromSums, type LineSums } from "./regression.js";
 import { failure, success, type Result } from "./result.js";
-import { scaleFor, unitsOf, unscaleSolution } from "./scaling.js";
+import { scaleFor, unitsOf, unscaleDiagnostic, unscaleSolution } from "./scaling.js";
 import type { ReturnSample, SampleMoments, SeriesMoments, Solution, SolveOptions } from "./types.js";
 import { defaultSteps, defaultWeight, minimumObservations } from "./parameters.js";
 
@@ -62,7 +62,7 @@ export function solve(sample: ReturnSample, options: SolveOptions = {}): Result<
     covariance: covariance(0, 1),
   };
   const cancelled = varianceCancellation(n, summary, variance(2), scales);
-  if (cancelled !== null) return failure([diagnose(unscaledDetail(cancelled, scale))]);
+  if (cancelled !== null) return failure([unscaleDiagnostic(diagnose(cancelled), unitsOf(scale))]);
 
   const seriesMoments = (i: number): SeriesMoments => {
     const v = variance(i);
@@ -101,13 +101,6 @@ export function solve(sample: ReturnSample, options: SolveOptions = {}): Result<
   const capm = { low: lineFitFromSums(lowSums, lowSsr), high: lineFitFromSums(highSums, highSsr) };
   const identified = identifySet(summary, steps, moments.market.stdev / Math.sqrt(n), { n, ...scales });
   return success(unscaleSolution({ observations: n, weight, moments, capm, ...identified }, unitsOf(scale)));
-}
-
-/** A cancellation found on scaled data, with its numbers in the data's units. */
-function unscaledDetail(detail: Diagnostic["detail"], scale: number): Diagnostic["detail"] {
-  if (detail.code !== "cancellation") return detail;
-  const unit = 1 / (scale * scale);
-  return { ...detail, value: detail.value * unit, roundingError: detail.roundingError * unit };
 }
 
 /**
