@@ -21,7 +21,7 @@ import type { HacOptions } from "../src/core/inference/options.js";
 import { assessUncertainty } from "../src/core/inference/uncertainty.js";
 import { populationMoments, type Structure } from "../src/core/forward/populationMoments.js";
 import { identifiedBounds } from "../src/core/identify.js";
-import { simulateSample, type SimulationOptions } from "../src/core/forward/simulate.js";
+import { drawSample, type SimulationOptions } from "../src/core/forward/simulate.js";
 
 interface Scenario {
   readonly name: string;
@@ -93,11 +93,13 @@ for (const scenario of scenarios) {
   const lowerBootstrapSe: number[] = [];
   const upperBootstrapSe: number[] = [];
   for (let rep = 0; rep < reps; rep++) {
-    const sample = simulateSample(scenario.structure, { periods: n, seed: 100_000 + rep, ...scenario.simulation });
+    const sample = drawSample(scenario.structure, { periods: n, seed: 100_000 + rep, ...scenario.simulation });
     const bootstrap =
       bootstrapReplicates > 0 ? { replicates: bootstrapReplicates, blockLength: "auto" as const, seed: rep + 1 } : undefined;
     const hac = scenario.hac ?? {};
-    const u = assessUncertainty(sample, bootstrap === undefined ? { hac } : { hac, bootstrap });
+    const assessed = assessUncertainty(sample, bootstrap === undefined ? { hac } : { hac, bootstrap });
+    if (!assessed.ok) continue;
+    const u = assessed.value;
     if (u.bounds === null || u.lowBeta === null) continue;
     const { min, max } = u.bounds.lowBeta;
     if (u.lowBeta.interval.lower <= truth && truth <= u.lowBeta.interval.upper) covered++;

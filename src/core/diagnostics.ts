@@ -6,18 +6,36 @@
  * "warning" means the result stands but needs the analyst's attention; "info" is a fact worth knowing.
  */
 
+import { magnitudeRange, magnitudeRatio } from "./parameters.js";
+
 export type Severity = "error" | "warning" | "info";
 
 export type DiagnosticDetail =
   | { readonly code: "too-few-observations"; readonly observations: number; readonly minimum: number }
-  | { readonly code: "zero-variance"; readonly series: "low" | "high" | "market" }
+  | { readonly code: "zero-variance"; readonly series: "low" | "high" | "market" | "x" }
   | { readonly code: "nonpositive-covariance"; readonly covariance: number; readonly correlation: number }
   | { readonly code: "perfect-correlation"; readonly correlation: number }
   | { readonly code: "low-beta-above-one"; readonly upperBound: number }
   | { readonly code: "market-mean-near-zero"; readonly marketMean: number; readonly tStat: number }
   | { readonly code: "return-implied-outside-set"; readonly lowBeta: number; readonly min: number; readonly max: number }
   | { readonly code: "degenerate-moments"; readonly quantity: string }
-  | { readonly code: "uncertainty-unavailable"; readonly observations: number; readonly minimum: number };
+  | { readonly code: "uncertainty-unavailable"; readonly observations: number; readonly minimum: number }
+  | {
+      readonly code: "cancellation";
+      readonly quantity: "low" | "high" | "market" | "covariance";
+      readonly value: number;
+      readonly roundingError: number;
+    }
+  | {
+      readonly code: "magnitude-out-of-range";
+      readonly series: "low" | "high";
+      readonly largest: number;
+      /** The other book's largest absolute value when the two are too far apart; null when this one is out of range. */
+      readonly other: number | null;
+    }
+  | { readonly code: "invalid-number"; readonly argument: string; readonly index: number; readonly value: string }
+  | { readonly code: "length-mismatch"; readonly argument: string; readonly length: number; readonly expected: number }
+  | { readonly code: "invalid-argument"; readonly argument: string; readonly value: string; readonly expected: string };
 
 export type DiagnosticCode = DiagnosticDetail["code"];
 
@@ -38,6 +56,11 @@ const severityOf: Record<DiagnosticCode, Severity> = {
   "return-implied-outside-set": "warning",
   "degenerate-moments": "error",
   "uncertainty-unavailable": "info",
+  cancellation: "error",
+  "magnitude-out-of-range": "error",
+  "invalid-number": "error",
+  "length-mismatch": "error",
+  "invalid-argument": "error",
 };
 
 const fmt = (x: number): string => (Number.isFinite(x) ? Number(x.toPrecision(6)).toString() : String(x));
@@ -46,8 +69,9 @@ const fmt = (x: number): string => (Number.isFinite(x) ? Number(x.toPrecision(6)
 export function describeDiagnostic(detail: DiagnosticDetail): string {
   switch (detail.code) {
     case "too-few-observations":
-      return `only ${detail.observations} aligned observation(s); at least ${detail.minimum} are needed for the moments and the CAPM fits`;
+      return `only ${detail.observations} observation(s); at least ${detail.minimum} are needed`;
     case "zero-variance":
+      if (detail.series === "x") return "x is constant, so the slope of a line through the points is undefined";
       return `the ${detail.series} series has zero variance (it is constant), so betas and correlations are undefined; check that the right column was chosen`;
     case "nonpositive-covariance":
       return (
@@ -78,6 +102,25 @@ export function describeDiagnostic(detail: DiagnosticDetail): string {
         `the ${detail.quantity} cannot be represented in double precision (the variances and the covariance differ by ` +
         "hundreds of orders of magnitude), so no identified set is reported; check the units and the columns"
       );
+    case "cancellation":
+      return detail.quantity === "covariance"
+        ? `the covariance of low and high, ${fmt(detail.value)}, is at the level of the rounding of the numbers themselves, ` +
+            `which could change it by ${fmt(detail.roundingError)}: the data do not determine it, so no identified set is reported`
+        : `the ${detail.quantity} series varies only in the last digits of its numbers: their rounding could change its variance ` +
+            `${fmt(detail.value)} by ${fmt(detail.roundingError)}, so it is treated as constant; check that the right column was chosen`;
+    case "magnitude-out-of-range":
+      return detail.other === null
+        ? `the ${detail.series} series' values reach ${fmt(detail.largest)} in absolute value, outside ${magnitudeRange.min} to ` +
+            `${magnitudeRange.max}, where their squares (the variances) leave double precision; rescale the data (for example to decimal returns)`
+        : `the ${detail.series} series' values (up to ${fmt(detail.largest)} in absolute value) and the other book's (up to ` +
+            `${fmt(detail.other)}) are more than ${fmt(magnitudeRatio)} apart, so one book's variance is lost in the other's rounding; ` +
+            "check the units of both columns";
+    case "invalid-number":
+      return `${detail.argument}[${detail.index}] is ${detail.value}: every value must be a finite number`;
+    case "length-mismatch":
+      return `${detail.argument} has ${detail.length} values where ${detail.expected} are expected: the series must be aligned`;
+    case "invalid-argument":
+      return `${detail.argument} is ${detail.value}: it must be ${detail.expected}`;
   }
 }
 

@@ -164,6 +164,38 @@ export function candidateGrid(m: MomentSummary, bounds: IdentifiedBounds, steps:
   return grid;
 }
 
+/** Books correlated this closely (|correlation| >= 1 - 1e-12) are perfectly correlated: their set is one point. */
+export const isPerfectCorrelation = (correlation: number): boolean => Math.abs(correlation) >= 1 - 1e-12;
+
+/**
+ * The identified set of perfectly correlated books: one point, the structure with no noise. With
+ * V_low = b_low^2 phi and V_high = b_high^2 phi, the loading ratio is t = sqrt(V_high / V_low) and
+ * b_low = 1 / (w + (1 - w) t) (section 1.3); phi = C / (b_low b_high). Both noise variances are 0 by
+ * definition here (what the formulas of `structureAt` give in exact arithmetic), so rounding cannot
+ * put the point a hair outside its own set.
+ */
+export function noiseFreePoint(m: MomentSummary): { bounds: IdentifiedBounds; structure: Candidate } {
+  const ratio = Math.sqrt(m.highVariance) / Math.sqrt(m.lowVariance);
+  const lowBeta = lowBetaFromRatio(ratio, m.weight);
+  const highBeta = ratio * lowBeta;
+  const at = structureAt(lowBeta, m, marketMoments(m), highBeta);
+  const structure: Candidate = {
+    ...at,
+    lowNoiseVariance: 0,
+    highNoiseVariance: 0,
+    noiseShare: null,
+    lowFactorRSquared: 1,
+    highFactorRSquared: 1,
+    impliedCapm: { lowBeta, highBeta, lowResidualVariance: 0, highResidualVariance: 0 },
+    insideSet: true,
+  };
+  const phi = structure.factorVariance;
+  return {
+    bounds: { lowBeta: { min: lowBeta, max: lowBeta }, highBeta: { min: highBeta, max: highBeta }, factorVariance: { min: phi, max: phi } },
+    structure,
+  };
+}
+
 /**
  * b_low at which both noise variances are equal: the Deming (1943) orthogonal-regression slope with
  * error-variance ratio 1 (section 1.4), t = [V_h - V_l + sqrt((V_h - V_l)^2 + 4 C^2)] / (2 C).

@@ -21,8 +21,16 @@ export {
   type MomentSummary,
 } from "./identify.js";
 export { findLandmarks, type LandmarkResult } from "./landmarks.js";
-export { compensatedSum, crossProducts, mean, sampleCovariance, sampleStdev, sampleVariance, type CrossProducts } from "./moments.js";
-export { fitLine } from "./regression.js";
+export {
+  compensatedSum,
+  crossProducts,
+  fitLine,
+  mean,
+  sampleCovariance,
+  sampleStdev,
+  sampleVariance,
+  type CrossProducts,
+} from "./statistics.js";
 export { studentTTwoSidedP } from "./numerics/studentT.js";
 export { populationMoments, type Structure } from "./forward/populationMoments.js";
 export { simulateSample, type SimulatedSample, type SimulationOptions } from "./forward/simulate.js";

@@ -29,18 +29,19 @@ export interface CrossProducts {
 }
 
 /**
- * Means and centred cross-products of `series` (all the same length) in one pass.
+ * Means and centred cross-products of `series` (all the same length) in one pass: the core's own
+ * pass, on arguments it has checked (the library's `crossProducts`, statistics.ts, checks them).
  * @throws RangeError if the series differ in length (a programming error, not a data condition).
- * @example crossProducts([[1, 2, 3], [2, 4, 7]]).sums[0][1] // => 5
+ * @example welfordCrossProducts([[1, 2, 3], [2, 4, 7]]).sums[0][1] // => 5
  */
-export function crossProducts(series: readonly ArrayLike<number>[]): CrossProducts {
+export function welfordCrossProducts(series: readonly ArrayLike<number>[]): CrossProducts {
   if (series.length === 3 && series.every((s) => s instanceof Float64Array)) {
     return crossProducts3(series[0] as Float64Array, series[1] as Float64Array, series[2] as Float64Array);
   }
   const k = series.length;
   const n = k === 0 ? 0 : series[0]!.length;
   for (const s of series) {
-    if (s.length !== n) throw new RangeError(`crossProducts: series lengths differ (${s.length} vs ${n})`);
+    if (s.length !== n) throw new RangeError(`welfordCrossProducts: series lengths differ (${s.length} vs ${n})`);
   }
   const shift = new Float64Array(k);
   for (let i = 0; i < k; i++) shift[i] = n > 0 ? series[i]![0]! : 0;
@@ -91,73 +92,37 @@ export function crossProducts(series: readonly ArrayLike<number>[]): CrossProduc
   return { n, means, sums: matrix };
 }
 
-/** Arithmetic mean. Returns NaN for an empty series (callers check the length first). */
-export function mean(x: ArrayLike<number>): number {
-  return crossProducts([x]).means[0] ?? Number.NaN;
-}
-
-/** Sample variance with divisor n - 1 (Bessel's correction). NaN when n < 2. */
-export function sampleVariance(x: ArrayLike<number>): number {
-  const cp = crossProducts([x]);
-  return cp.n < 2 ? Number.NaN : cp.sums[0]![0]! / (cp.n - 1);
-}
-
-/** Sample standard deviation: the square root of `sampleVariance` (divisor n - 1). */
-export function sampleStdev(x: ArrayLike<number>): number {
-  return Math.sqrt(sampleVariance(x));
-}
-
-/** Sample covariance with divisor n - 1. NaN when n < 2. */
-export function sampleCovariance(x: ArrayLike<number>, y: ArrayLike<number>): number {
-  const cp = crossProducts([x, y]);
-  return cp.n < 2 ? Number.NaN : cp.sums[0]![1]! / (cp.n - 1);
-}
-
 /**
- * Neumaier's compensated sum (an improved Kahan-Babuska summation): the rounding error of each
- * addition is carried separately and added back at the end.
- * Neumaier, A. (1974), ZAMM 54(1), 39-51.
- */
-export function compensatedSum(values: Iterable<number>): number {
-  let sum = 0;
-  let compensation = 0;
-  for (const v of values) {
-    const t = sum + v;
-    compensation += Math.abs(sum) >= Math.abs(v) ? sum - t + v : v - t + sum;
-    sum = t;
-  }
-  return sum + compensation;
-}
-
-/**
- * crossProducts for exactly three Float64Array series (what solve uses), with the loops unrolled:
+ * welfordCrossProducts for exactly three Float64Array series (what solve uses), with the loops unrolled:
  * the same operations in the same order as the general code, so the same results bit for bit.
  */
 function crossProducts3(x: Float64Array, y: Float64Array, z: Float64Array): CrossProducts {
   if (y.length !== x.length || z.length !== x.length) throw new RangeError(`crossProducts: series lengths differ`);
-  return welford3(x, y, z, 0, 0);
+  return welford3(x, y, z, 0, 0, 1);
 }
 
 /**
  * The moments of solve's three excess series, without building them: low - r, high - r and the
  * market w (low - r) + (1 - w)(high - r), where r is the risk-free return (one number, or one per
- * period). Equal bit for bit to `crossProducts` of the three series computed first.
+ * period). Equal bit for bit to `crossProducts` of the three series computed first. With `scale` (a
+ * power of two, scaling.ts) the excess returns are multiplied by it as they are formed.
  */
 export function excessCrossProducts(
   low: ArrayLike<number>,
   high: ArrayLike<number>,
   riskFree: number | ArrayLike<number>,
   weight: number,
+  scale = 1,
 ): CrossProducts {
   const n = low.length;
   if (high.length !== n || (typeof riskFree !== "number" && riskFree.length !== n))
     throw new RangeError(`excessCrossProducts: series lengths differ`);
-  return welford3(low, high, null, riskFree, weight);
+  return welford3(low, high, null, riskFree, weight, scale);
 }
 
 /**
- * The unrolled three-series Welford pass on (x - r, y - r, z), with z = w (x - r) + (1 - w)(y - r)
- * when null; r = 0 gives crossProducts3 exactly (x - 0 is x). The rows are taken in chunks by a
+ * The unrolled three-series Welford pass on s (x - r), s (y - r) and z, with z = w s (x - r) +
+ * (1 - w) s (y - r) when null; r = 0 and s = 1 give crossProducts3 exactly (x - 0 is x, 1 x is x). The rows are taken in chunks by a
  * small function (`welfordChunk`) that V8 optimises as a whole after a few calls: one long loop would
  * run in on-stack-replaced code, which boxes its doubles and is several times slower.
  */
@@ -167,16 +132,17 @@ function welford3(
   z: Float64Array | null,
   riskFree: number | ArrayLike<number>,
   weight: number,
+  scale: number,
 ): CrossProducts {
   const n = x.length;
   const rate = typeof riskFree === "number" ? riskFree : 0;
   const rates = typeof riskFree === "number" ? null : riskFree;
   const r0 = rates === null ? rate : n > 0 ? rates[0]! : 0;
-  const kx = n > 0 ? x[0]! - r0 : 0;
-  const ky = n > 0 ? y[0]! - r0 : 0;
+  const kx = n > 0 ? (x[0]! - r0) * scale : 0;
+  const ky = n > 0 ? (y[0]! - r0) * scale : 0;
   const kz = n > 0 ? (z === null ? weight * kx + (1 - weight) * ky : z[0]!) : 0;
   const state = new Float64Array(STATE_SIZE);
-  const shift = Float64Array.of(kx, ky, kz);
+  const shift = Float64Array.of(kx, ky, kz, scale);
   for (let from = 0; from < n; from += CHUNK) welfordChunk(x, y, z, rates, rate, weight, shift, from, Math.min(n, from + CHUNK), state);
   // A running value plus its carried error: state[value] + state[error].
   const total = (value: number, error: number): number => state[value]! + state[error]!;
@@ -215,7 +181,8 @@ function welfordChunk(
   const other = 1 - weight;
   const kx = shift[0]!,
     ky = shift[1]!,
-    kz = shift[2]!;
+    kz = shift[2]!,
+    scale = shift[3]!;
   let mx = state[0]!,
     my = state[1]!,
     mz = state[2]!,
@@ -239,8 +206,8 @@ function welfordChunk(
   for (let t = from; t < to; t++) {
     const inverseCount = 1 / (t + 1);
     const r = rates === null ? rate : rates[t]!;
-    const lt = x[t]! - r;
-    const ht = y[t]! - r;
+    const lt = (x[t]! - r) * scale;
+    const ht = (y[t]! - r) * scale;
     const vx = lt - kx;
     const vy = ht - ky;
     const vz = (z === null ? weight * lt + other * ht : z[t]!) - kz;

@@ -79,21 +79,73 @@ export const minimumObservations = 3;
 /** The largest candidate grid: a limit on output size (each candidate is a row), not a numerical one. */
 export const maximumSteps = 100_000;
 
-/** The largest number of bootstrap replicates (each keeps its draws in memory). */
-export const maximumReplicates = 10_000_000;
+/**
+ * The largest number of bootstrap replicates: each keeps its draws in memory (1,000,000 replicates of
+ * the bundled example take 8 s and 0.44 GB; ten times as many would take gigabytes).
+ */
+export const maximumReplicates = 1_000_000;
+
+/**
+ * The magnitudes the core computes with: a series' largest absolute value, and a structure's
+ * standard deviations and means, lie within [1e-100, 1e+100]. The core computes on data scaled by a
+ * power of two to about 1 and scales its results back, so within this range every reported variance
+ * (the square of a magnitude, down to 1e-32 of it for a noise variance) is a normal double; beyond it
+ * the squares leave double precision (1e-300 squared is 0, 1e+300 squared is infinite).
+ */
+export const magnitudeRange = { min: 1e-100, max: 1e100 } as const;
+
+/**
+ * The largest ratio of the two books' magnitudes: the core scales both by one factor (the market
+ * proxy mixes them), so a book 1e-20 the size of the other keeps its squares and fourth powers (the
+ * HAC sums) well inside double precision.
+ */
+export const magnitudeRatio = 1e20;
+
+/**
+ * Why the ranges of the weight and the confidence level are what they are:
+ * - weight within [0.0001, 0.9999]: nearer 0 or 1 the proxy is one book to within rounding, and the
+ *   other book's CAPM residuals (w or 1 - w times its noise) keep too few digits for the standard
+ *   errors; below 2^-53 they are exactly zero.
+ * - confidence within [0.5, 0.9999]: below 0.5 the one-sided normal quantile that bounds the
+ *   Imbens-Manski critical value is negative (an interval narrower than the set); above 0.9999 the
+ *   tail probability is below what a sample of returns informs, and near 1 it rounds away
+ *   (0.9999999999999999 gives an infinite normal quantile).
+ * Steps, replicates, periods and window sizes have limits on memory (each candidate, replicate or
+ * period is kept), not numerical ones.
+ */
+export const weightRange = { gte: 0.0001, lte: 0.9999 } as const;
+export const confidenceRange = { gte: 0.5, lte: 0.9999 } as const;
+
+/**
+ * The largest number of periods of a simulated sample: the sample and its dates are held in memory
+ * and written at once (1,000,000 daily periods take about 0.5 GB; 10,000,000 took 4.7 GB).
+ */
+export const maximumPeriods = 1_000_000;
+
+/** The largest mean block length of the bootstrap (any length beyond the sample's is one block). */
+export const maximumBlockLength = 100_000_000;
+
+/** A standard deviation: 0, or a magnitude within `magnitudeRange`. */
+function deviationRule(): Rule<number> {
+  const { min, max } = magnitudeRange;
+  return {
+    accept: (x) => x === 0 || (Number.isFinite(x) && x >= min && x <= max),
+    expected: `0 or a number from ${min} to ${max}`,
+  };
+}
 
 /** The core's parameters and their rules. */
 export const parameters = {
   /** w, the weight of the low book in the market proxy M = w low + (1 - w) high. */
-  weight: numberRule({ gt: 0, lt: 1 }),
+  weight: numberRule(weightRange),
   /** Confidence level of an interval. */
-  confidence: numberRule({ gt: 0, lt: 1 }),
+  confidence: numberRule(confidenceRange),
   /** Candidates in the grid, end points included. */
   steps: integerRule(2, maximumSteps),
   /** Bootstrap replicates (0: no bootstrap). */
   replicates: integerRule(0, maximumReplicates),
   /** Mean block length of the stationary bootstrap. */
-  blockLength: numberRule({ gte: 1 }),
+  blockLength: numberRule({ gte: 1, lte: maximumBlockLength }),
   /** A seed of the random streams. */
   seed: integerRule(0, Number.MAX_SAFE_INTEGER),
   /** A fixed Bartlett lag truncation. */
@@ -101,13 +153,13 @@ export const parameters = {
   /** A structural beta of the low book (the high one is positive when it is below 1/w). */
   lowBeta: numberRule({ gt: 0 }),
   /** The latent factor's standard deviation per period. */
-  factorVol: numberRule({ gt: 0 }),
+  factorVol: numberRule({ gte: magnitudeRange.min, lte: magnitudeRange.max }),
   /** A mean per period. */
-  mean: numberRule(),
+  mean: numberRule({ gte: -magnitudeRange.max, lte: magnitudeRange.max }),
   /** A noise standard deviation per period. */
-  noiseVol: numberRule({ gte: 0 }),
+  noiseVol: deviationRule(),
   /** Periods of a simulated sample. */
-  periods: integerRule(1, 100_000_000),
+  periods: integerRule(1, maximumPeriods),
   /** Degrees of freedom of Student t innovations (finite variance needs more than 2). */
   tails: numberRule({ gt: 2 }),
   /** AR(1) coefficient of the noises (stationary). */

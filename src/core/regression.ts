@@ -14,18 +14,9 @@
  * Greene, W. H., Econometric Analysis, ch. 3-4 (standard results); NIST StRD "Norris" for the check.
  */
 
-import { CHUNK, crossProducts } from "./moments.js";
+import { CHUNK } from "./moments.js";
 import { studentTTwoSidedP } from "./numerics/studentT.js";
 import type { LineFit } from "./types.js";
-
-/** Fits y = alpha + beta x + e. Needs n >= 3 and a non-constant x (callers check; see solve.ts). */
-export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>): LineFit {
-  const cp = crossProducts([x, y]);
-  const [xbar, ybar] = cp.means as [number, number];
-  const sums = { n: cp.n, xbar, ybar, sxx: cp.sums[0]![0]!, sxy: cp.sums[0]![1]!, syy: cp.sums[1]![1]! };
-  const beta = sums.sxy / sums.sxx;
-  return lineFitFromSums(sums, residualSumOfSquares(x, y, xbar, ybar, beta));
-}
 
 /** Means and centred sums of squares and cross-products of (x, y). */
 export interface LineSums {
@@ -88,7 +79,7 @@ export function residualSumOfSquares(x: ArrayLike<number>, y: ArrayLike<number>,
  * The residual sums of squares of solve's two CAPM fits in one pass, from the raw series: y = low - r
  * (then high - r) on x = w (low - r) + (1 - w)(high - r), formed on the fly exactly as
  * `excessCrossProducts` forms them, so each equals `residualSumOfSquares` on the built series bit for
- * bit. In chunks of rows, for the reason given in moments.ts (`CHUNK`).
+ * bit (with the same `scale`). In chunks of rows, for the reason given in moments.ts (`CHUNK`).
  */
 export function excessResidualSums(
   low: ArrayLike<number>,
@@ -98,12 +89,13 @@ export function excessResidualSums(
   xbar: number,
   lowLine: { readonly ybar: number; readonly beta: number },
   highLine: { readonly ybar: number; readonly beta: number },
+  scale = 1,
 ): [number, number] {
   const rates = typeof riskFree === "number" ? null : riskFree;
   const rate = typeof riskFree === "number" ? riskFree : 0;
   // Sums and compensations of the low and the high residuals.
   const state = new Float64Array(4);
-  const fit = Float64Array.of(weight, xbar, lowLine.ybar, lowLine.beta, highLine.ybar, highLine.beta);
+  const fit = Float64Array.of(weight, xbar, lowLine.ybar, lowLine.beta, highLine.ybar, highLine.beta, scale);
   for (let from = 0; from < low.length; from += CHUNK)
     residualChunk(low, high, rates, rate, fit, from, Math.min(low.length, from + CHUNK), state);
   return [state[0]! + state[1]!, state[2]! + state[3]!];
@@ -125,7 +117,8 @@ function residualChunk(
     lowBar = fit[2]!,
     lowBeta = fit[3]!,
     highBar = fit[4]!,
-    highBeta = fit[5]!;
+    highBeta = fit[5]!,
+    scale = fit[6]!;
   const other = 1 - weight;
   let lowSum = state[0]!,
     lowCompensation = state[1]!,
@@ -133,8 +126,8 @@ function residualChunk(
     highCompensation = state[3]!;
   for (let t = from; t < to; t++) {
     const r = rates === null ? rate : rates[t]!;
-    const l = low[t]! - r;
-    const h = high[t]! - r;
+    const l = (low[t]! - r) * scale;
+    const h = (high[t]! - r) * scale;
     const m = weight * l + other * h;
     const el = l - lowBar - lowBeta * (m - xbar);
     let term = el * el;

@@ -8,45 +8,68 @@
  * Divisor n - 1 throughout.
  */
 
+import { issues, parameterIssue, sampleIssues } from "./arguments.js";
+import { covarianceCancellation, largestValues, magnitudeIssue, type RoundingScales, varianceCancellation } from "./cancellation.js";
 import { diagnose, type Diagnostic } from "./diagnostics.js";
-import { candidateGrid, identifiedBounds, marketMoments, type MomentSummary } from "./identify.js";
+import { candidateGrid, identifiedBounds, isPerfectCorrelation, marketMoments, noiseFreePoint, type MomentSummary } from "./identify.js";
 import { findLandmarks } from "./landmarks.js";
 import { excessCrossProducts } from "./moments.js";
 import { excessResidualSums, lineFitFromSums, type LineSums } from "./regression.js";
 import { failure, success, type Result } from "./result.js";
+import { scaleFor, unitsOf, unscaleDiagnostic, unscaleSolution } from "./scaling.js";
 import type { ReturnSample, SampleMoments, SeriesMoments, Solution, SolveOptions } from "./types.js";
-import { assertParameter, defaultSteps, defaultWeight, minimumObservations } from "./parameters.js";
+import { defaultSteps, defaultWeight, minimumObservations } from "./parameters.js";
 
 export { defaultSteps, defaultWeight, minimumObservations };
 
-/** Solves the identified set for one sample. Fails (with diagnostics) only when nothing can be computed. */
+/**
+ * Solves the identified set for one sample. Fails (with diagnostics) when nothing can be computed: an
+ * argument that is not a finite number or breaks its rule (core/parameters.ts), too few observations,
+ * returns out of double precision's reach, or a series constant (or constant up to rounding).
+ */
 export function solve(sample: ReturnSample, options: SolveOptions = {}): Result<Solution, Diagnostic[]> {
   const weight = options.weight ?? defaultWeight;
   const steps = options.steps ?? defaultSteps;
-  assertParameter("solve", "weight", weight);
-  assertParameter("solve", "steps", steps);
-  if (sample.low.length !== sample.high.length) throw new RangeError("solve: low and high differ in length");
+  const invalid = sampleIssues(sample);
+  invalid.push(...issues(parameterIssue("weight", "weight", weight), parameterIssue("steps", "steps", steps)));
+  if (invalid.length > 0) return failure(invalid);
 
   const n = sample.low.length;
   if (n < minimumObservations) {
     return failure([diagnose({ code: "too-few-observations", observations: n, minimum: minimumObservations })]);
   }
   const riskFree = sample.riskFree ?? 0;
-  if (typeof riskFree !== "number" && riskFree.length !== n) throw new RangeError("solve: riskFree differs in length");
+  const extent = largestValues(sample.low, sample.high, riskFree);
+  const outOfRange = magnitudeIssue(extent.low, extent.high);
+  if (outOfRange !== null) return failure([diagnose(outOfRange)]);
+  // Computed on the data times a power of two (exact), reported in the data's units (scaling.ts).
+  const scale = scaleFor(Math.max(extent.low, extent.high));
+  const scales: RoundingScales = { low: (extent.low + extent.riskFree) * scale, high: (extent.high + extent.riskFree) * scale };
   // The excess series low - rf, high - rf and the market are formed on the fly, never stored.
-  const cp = excessCrossProducts(sample.low, sample.high, riskFree, weight);
+  const cp = excessCrossProducts(sample.low, sample.high, riskFree, weight, scale);
   const variance = (i: number): number => cp.sums[i]![i]! / (n - 1);
   const covariance = (i: number, j: number): number => cp.sums[i]![j]! / (n - 1);
   const names = ["low", "high", "market"] as const;
   const constant = names.findIndex((_, i) => variance(i) === 0);
   if (constant >= 0) return failure([diagnose({ code: "zero-variance", series: names[constant]! })]);
 
+  const summary: MomentSummary = {
+    weight,
+    lowMean: cp.means[0]!,
+    highMean: cp.means[1]!,
+    lowVariance: variance(0),
+    highVariance: variance(1),
+    covariance: covariance(0, 1),
+  };
+  const cancelled = varianceCancellation(n, summary, variance(2), scales);
+  if (cancelled !== null) return failure([unscaleDiagnostic(diagnose(cancelled), unitsOf(scale))]);
+
   const seriesMoments = (i: number): SeriesMoments => {
     const v = variance(i);
     const stdev = Math.sqrt(v);
     return { mean: cp.means[i]!, variance: v, stdev, sharpeRatio: stdev > 0 ? cp.means[i]! / stdev : null };
   };
-  const correlation = (i: number, j: number): number => cp.sums[i]![j]! / Math.sqrt(cp.sums[i]![i]! * cp.sums[j]![j]!);
+  const correlation = (i: number, j: number): number => cp.sums[i]![j]! / (Math.sqrt(cp.sums[i]![i]!) * Math.sqrt(cp.sums[j]![j]!));
   const moments: SampleMoments = {
     low: seriesMoments(0),
     high: seriesMoments(1),
@@ -65,44 +88,61 @@ export function solve(sample: ReturnSample, options: SolveOptions = {}): Result<
   });
   const [lowSums, highSums] = [lineSums(0), lineSums(1)];
   const line = (sums: LineSums) => ({ ybar: sums.ybar, beta: sums.sxy / sums.sxx });
-  const [lowSsr, highSsr] = excessResidualSums(sample.low, sample.high, riskFree, weight, cp.means[2]!, line(lowSums), line(highSums));
-  const capm = { low: lineFitFromSums(lowSums, lowSsr), high: lineFitFromSums(highSums, highSsr) };
-  const summary: MomentSummary = {
+  const [lowSsr, highSsr] = excessResidualSums(
+    sample.low,
+    sample.high,
+    riskFree,
     weight,
-    lowMean: moments.low.mean,
-    highMean: moments.high.mean,
-    lowVariance: moments.low.variance,
-    highVariance: moments.high.variance,
-    covariance: moments.covariance.lowHigh,
-  };
-  const identified = identifySet(summary, steps, moments.market.stdev / Math.sqrt(n));
-  return success({ observations: n, weight, moments, capm, ...identified });
+    cp.means[2]!,
+    line(lowSums),
+    line(highSums),
+    scale,
+  );
+  const capm = { low: lineFitFromSums(lowSums, lowSsr), high: lineFitFromSums(highSums, highSsr) };
+  const identified = identifySet(summary, steps, moments.market.stdev / Math.sqrt(n), { n, ...scales });
+  return success(unscaleSolution({ observations: n, weight, moments, capm, ...identified }, unitsOf(scale)));
 }
 
-/** The identified set, grid and landmarks from moments alone (shared with the forward model). */
+/**
+ * The identified set, grid and landmarks from moments alone (shared with the forward model and the
+ * rolling windows). `rounding`: the sample size and the books' rounding scales, when the moments come
+ * from data (cancellation.ts); a covariance that is rounding is then refused like a non-positive one.
+ */
 export function identifySet(
   summary: MomentSummary,
   steps: number,
   marketMeanStdErr: number,
+  rounding?: RoundingScales & { readonly n: number },
 ): Pick<Solution, "bounds" | "grid" | "landmarks" | "diagnostics"> {
   const diagnostics: Diagnostic[] = [];
+  const rejected = (d: Diagnostic) => ({ bounds: null, grid: [], landmarks: null, diagnostics: [...diagnostics, d] });
   const c = summary.covariance;
-  const correlation = c / Math.sqrt(summary.lowVariance * summary.highVariance);
-  if (!(c > 0)) {
-    diagnostics.push(diagnose({ code: "nonpositive-covariance", covariance: c, correlation }));
-    return { bounds: null, grid: [], landmarks: null, diagnostics };
-  }
-  if (Math.abs(correlation) >= 1 - 1e-12) diagnostics.push(diagnose({ code: "perfect-correlation", correlation }));
-  const bounds = identifiedBounds(summary);
+  const correlation = c / (Math.sqrt(summary.lowVariance) * Math.sqrt(summary.highVariance));
+  // A covariance at the level of rounding has no sign (an exact 0 is reported as not positive).
+  const cancelled = rounding === undefined || c === 0 ? null : covarianceCancellation(rounding.n, summary, rounding);
+  if (cancelled !== null) return rejected(diagnose(cancelled));
+  if (!(c > 0)) return rejected(diagnose({ code: "nonpositive-covariance", covariance: c, correlation }));
+  const perfect = isPerfectCorrelation(correlation);
+  if (perfect) diagnostics.push(diagnose({ code: "perfect-correlation", correlation }));
+  // Perfectly correlated books: the set is one point, the structure with no noise (identify.ts).
+  const point = perfect ? noiseFreePoint(summary) : null;
+  const bounds = point?.bounds ?? identifiedBounds(summary);
   if (bounds.lowBeta.max > 1) diagnostics.push(diagnose({ code: "low-beta-above-one", upperBound: bounds.lowBeta.max }));
-  const { landmarks, diagnostics: landmarkDiagnostics } = findLandmarks(summary, bounds, marketMeanStdErr);
-  diagnostics.push(...landmarkDiagnostics);
-  const grid = candidateGrid(summary, bounds, steps);
+  const found = findLandmarks(summary, bounds, marketMeanStdErr);
+  diagnostics.push(...found.diagnostics);
+  const landmarks =
+    point === null
+      ? found.landmarks
+      : {
+          lowNoiseFree: point.structure,
+          highNoiseFree: point.structure,
+          equalNoise: point.structure,
+          capmConsistent: point.structure,
+          returnImplied: found.landmarks.returnImplied,
+        };
+  const grid = point === null ? candidateGrid(summary, bounds, steps) : Array.from({ length: steps }, () => point.structure);
   const nonFinite = firstNonFinite({ bounds, grid, landmarks });
-  if (nonFinite !== null) {
-    diagnostics.push(diagnose({ code: "degenerate-moments", quantity: nonFinite }));
-    return { bounds: null, grid: [], landmarks: null, diagnostics };
-  }
+  if (nonFinite !== null) return rejected(diagnose({ code: "degenerate-moments", quantity: nonFinite }));
   return { bounds, grid, landmarks, diagnostics };
 }
 

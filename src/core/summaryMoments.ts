@@ -12,7 +12,9 @@ function series(mean: number, variance: number): SeriesMoments {
   return { mean, variance, stdev, sharpeRatio: stdev > 0 ? mean / stdev : null };
 }
 
-const correlation = (covariance: number, a: number, b: number): number => covariance / Math.sqrt(a * b);
+/** Null when either variance is 0 (a constant series), where the correlation is undefined. */
+const correlation = (covariance: number, a: number, b: number): number | null =>
+  a > 0 && b > 0 ? covariance / (Math.sqrt(a) * Math.sqrt(b)) : null;
 
 export function momentsFromSummary(summary: MomentSummary): SampleMoments {
   const market = marketMoments(summary);

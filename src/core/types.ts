@@ -34,10 +34,11 @@ export interface SampleMoments {
     readonly lowMarket: number;
     readonly highMarket: number;
   };
+  /** Null where a series is constant (a rolling window can be; solve fails instead). */
   readonly correlation: {
-    readonly lowHigh: number;
-    readonly lowMarket: number;
-    readonly highMarket: number;
+    readonly lowHigh: Maybe<number>;
+    readonly lowMarket: Maybe<number>;
+    readonly highMarket: Maybe<number>;
   };
 }
 

@@ -24,7 +24,10 @@ export function impliedJob(input: CommandOptionsInput<"implied">): Result<Implie
   if (!parsed.ok) return parsed;
   const options = parsed.value;
   const { lowBeta, factorVol, factorMean, lowNoiseVol, highNoiseVol, weight } = options;
-  const solution = implied({ lowBeta, factorVol, factorMean, lowNoiseVol, highNoiseVol, weight }, options.steps);
+  const computed = implied({ lowBeta, factorVol, factorMean, lowNoiseVol, highNoiseVol, weight }, options.steps);
+  // The option table checks every rule implied checks: a refusal here is a bug, never a user's error.
+  if (!computed.ok) throw new Error(`impliedJob: options passed validation but implied refused them: ${computed.issues[0]?.message}`);
+  const solution = computed.value;
   const report: ImpliedReport = { tool, solution, riskFree: options.rf };
   const document = impliedOutput(report);
   assertJsonSafe(document); // as the CLI's renderer checks: a NaN here is a bug, never a quiet null

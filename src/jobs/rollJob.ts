@@ -3,6 +3,8 @@
  * is held whole: each pair offers its windows as an iterator (computed in amortised O(1) each), as
  * typed-array columns (for CSV), and as the JSON records `roll --format jsonl` writes, one at a time.
  */
+import { largestValues, magnitudeIssue } from "../core/cancellation.js";
+import { describeDiagnostic } from "../core/diagnostics.js";
 import { excessReturns } from "../core/inference/bootstrap/replicates.js";
 import { type WindowUncertainty, windowUncertainty } from "../core/inference/windowUncertainty.js";
 import { failure, type Result, success } from "../core/result.js";
@@ -123,12 +125,25 @@ function rollPair(loaded: PairTable, options: CommandOptions<"roll">, spec: Wind
       messages: [...warnings, { severity: "error", text }],
     };
   }
-  const meta: RollMeta = { tool, input: describeInput(loaded, options), spec, weight: options.weight, dates: loaded.table.dates };
   const { low, high, riskFree } = sample;
+  const extent = largestValues(low, high, riskFree);
+  const outOfRange = magnitudeIssue(extent.low, extent.high);
+  if (outOfRange !== null) {
+    const errors = [{ code: outOfRange.code, message: `${loaded.source}: ${describeDiagnostic(outOfRange)}` }];
+    const document = failureOutput({ tool, source: loaded.source, lowColumn: loaded.pair.low, highColumn: loaded.pair.high, errors });
+    return {
+      kind: "failure",
+      errors,
+      document,
+      messages: [...warnings, ...errors.map((e) => ({ severity: "error" as const, text: e.message }))],
+    };
+  }
+  const meta: RollMeta = { tool, input: describeInput(loaded, options), spec, weight: options.weight, dates: loaded.table.dates };
   const excess = options.uncertainty ? excessReturns({ ...sample, weight: options.weight }) : null;
   const windows = () => iterateRollSolve(low, high, riskFree, options.weight, spec);
+  // Only a window with a set has an interval for a point of it.
   const uncertaintyAt = (w: WindowSolution): WindowUncertainty | null =>
-    excess === null
+    excess === null || w.bounds === null
       ? null
       : windowUncertainty(excess.low, excess.high, w.start, w.end, w.summary, { confidence: options.confidence, longRun: options.longRun });
   return {

@@ -3,7 +3,7 @@
  * books' returns). The same options give the same numbers, bit for bit.
  */
 import { periodDates } from "../core/calendar.js";
-import { simulateSample } from "../core/forward/simulate.js";
+import { drawSample } from "../core/forward/simulate.js";
 import { type Result, success } from "../core/result.js";
 import { type CommandOptions, type CommandOptionsInput, type OptionIssue, parseOptions } from "../options/index.js";
 import type { SampleColumns } from "../report/simulatedSample.js";
@@ -18,7 +18,8 @@ export function simulateJob(input: CommandOptionsInput<"simulate">): Result<Simu
   if (!parsed.ok) return parsed;
   const options = parsed.value;
   const { lowBeta, weight, factorVol, factorMean, lowNoiseVol, highNoiseVol } = options;
-  const drawn = simulateSample(
+  // The option table checks every rule simulateSample checks: the options here are valid.
+  const drawn = drawSample(
     { lowBeta, weight, factorVol, factorMean, lowNoiseVol, highNoiseVol },
     {
       periods: options.periods,

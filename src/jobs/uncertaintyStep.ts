@@ -37,7 +37,7 @@ export async function uncertaintyFor(
     };
     bootstrapSummary = await runBootstrap({ ...sample, weight: options.weight }, settings, context);
   }
-  const uncertainty = assessUncertainty(sample, {
+  const assessed = assessUncertainty(sample, {
     weight: options.weight,
     confidence: options.confidence,
     longRun: options.longRun,
@@ -46,6 +46,11 @@ export async function uncertaintyFor(
     intervalSource: options.intervalSource,
     ...(bootstrapSummary === undefined ? {} : { bootstrapSummary }),
   });
+  // The options passed the option table's rules and solve accepted the sample: a refusal is a bug.
+  if (!assessed.ok) throw new Error(`uncertaintyFor: assessUncertainty refused a solved sample: ${assessed.issues[0]?.message}`);
+  const uncertainty = assessed.value;
+  // No set (the covariance not positive, or not determined by the data): no interval for a point of it.
+  if (solution.bounds === null) return { uncertainty: { ...uncertainty, bounds: null, lowBeta: null, highBeta: null }, note: null };
   return { uncertainty, note: null };
 }
 

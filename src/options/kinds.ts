@@ -177,7 +177,11 @@ export function autoOrNumberKind(rule: Rule<number>): Kind<number | "auto"> {
       const x = parseDecimal(text);
       return x !== null && rule.accept(x) ? x : undefined;
     },
-    schema: () => z.union([z.literal("auto"), z.number({ error }).check(refine(rule))], { error }) as z.ZodMiniType<number | "auto">,
+    // A number outside the rule is refused in the kind's words (with "auto"), as the flag is.
+    schema: () =>
+      z.union([z.literal("auto"), z.number({ error }).check(z.refine(rule.accept, { error }))], { error }) as z.ZodMiniType<
+        number | "auto"
+      >,
     show: String,
   };
 }

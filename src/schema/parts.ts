@@ -33,7 +33,11 @@ export const momentsSchema = z.strictObject({
   high: seriesMomentsSchema,
   market: seriesMomentsSchema,
   covariance: pairSchema("covariance (divisor n - 1)"),
-  correlation: pairSchema("correlation"),
+  correlation: z.strictObject({
+    lowHigh: maybeNum("correlation of low and high; null when either is constant (a rolling window)"),
+    lowMarket: maybeNum("correlation of low and the market proxy; null when either is constant"),
+    highMarket: maybeNum("correlation of high and the market proxy; null when either is constant"),
+  }),
 });
 
 export const lineFitSchema = doc(
@@ -104,7 +108,7 @@ export const landmarksSchema = doc(
 
 export const diagnosticDetailSchema = z.discriminatedUnion("code", [
   z.strictObject({ code: z.literal("too-few-observations"), observations: z.int(), minimum: z.int() }),
-  z.strictObject({ code: z.literal("zero-variance"), series: z.enum(["low", "high", "market"]) }),
+  z.strictObject({ code: z.literal("zero-variance"), series: z.enum(["low", "high", "market", "x"]) }),
   z.strictObject({ code: z.literal("nonpositive-covariance"), covariance: z.number(), correlation: z.number() }),
   z.strictObject({ code: z.literal("perfect-correlation"), correlation: z.number() }),
   z.strictObject({ code: z.literal("low-beta-above-one"), upperBound: z.number() }),
@@ -117,6 +121,22 @@ export const diagnosticDetailSchema = z.discriminatedUnion("code", [
   }),
   z.strictObject({ code: z.literal("degenerate-moments"), quantity: z.string() }),
   z.strictObject({ code: z.literal("uncertainty-unavailable"), observations: z.int(), minimum: z.int() }),
+  z.strictObject({
+    code: z.literal("cancellation"),
+    quantity: z.enum(["low", "high", "market", "covariance"]),
+    value: z.number(),
+    roundingError: z.number(),
+  }),
+  z.strictObject({
+    code: z.literal("magnitude-out-of-range"),
+    series: z.enum(["low", "high"]),
+    largest: z.number(),
+    other: z.number().nullable(),
+  }),
+  // The library's checks of its arguments (never in an output of the command line, whose inputs are checked before).
+  z.strictObject({ code: z.literal("invalid-number"), argument: z.string(), index: z.int(), value: z.string() }),
+  z.strictObject({ code: z.literal("length-mismatch"), argument: z.string(), length: z.int(), expected: z.int() }),
+  z.strictObject({ code: z.literal("invalid-argument"), argument: z.string(), value: z.string(), expected: z.string() }),
 ]);
 
 export const diagnosticCodes = diagnosticDetailSchema.options.map((option) => option.shape.code.value);

@@ -95,8 +95,8 @@ describe("betabound solve (in process)", () => {
   });
 
   it.each([
-    [["--weight", "1.5"], "--weight", "strictly between 0 and 1"],
-    [["--weight", "0.5x"], "--weight", "strictly between 0 and 1"],
+    [["--weight", "1.5"], "--weight", ">= 0.0001 and <= 0.9999"],
+    [["--weight", "0.5x"], "--weight", ">= 0.0001 and <= 0.9999"],
     [["--steps", "1"], "--steps", "whole number from 2"],
     [["--steps", "2.5"], "--steps", "whole number from 2"],
     [["--format", "xml"], "--format", "must be one of text, json, csv"],

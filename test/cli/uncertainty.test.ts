@@ -2,7 +2,13 @@ import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { exitCodes } from "../../src/cli/runtime/exitCodes.js";
 import { run } from "../../src/cli/program.js";
-import { assessUncertainty } from "../../src/core/inference/uncertainty.js";
+import { assessUncertainty as assessChecked } from "../../src/core/inference/uncertainty.js";
+
+const assessUncertainty = (...args: Parameters<typeof assessChecked>) => {
+  const result = assessChecked(...args);
+  if (!result.ok) throw new Error(result.issues.map((d) => d.message).join("; "));
+  return result.value;
+};
 import { solveOutputSchema } from "../../src/schema/solveOutput.js";
 import { fakeIo } from "./fakeIo.js";
 

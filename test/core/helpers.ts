@@ -2,8 +2,24 @@
 
 import { expect } from "vitest";
 import type { Diagnostic } from "../../src/core/diagnostics.js";
+import { implied, type ImpliedSolution } from "../../src/core/forward/implied.js";
+import type { Structure } from "../../src/core/forward/populationMoments.js";
+import type { Result } from "../../src/core/result.js";
 import { solve } from "../../src/core/solve.js";
 import type { Candidate, IdentifiedBounds, Landmarks, ReturnSample, Solution, SolveOptions } from "../../src/core/types.js";
+
+/** The value of a library call that must succeed; fails the test with its diagnostics otherwise. */
+export function ok<T>(result: Result<T, readonly Diagnostic[]>): T {
+  if (!result.ok) expect.fail(`failed: ${result.issues.map((d) => d.message).join("; ")}`);
+  return result.value;
+}
+
+/** Runs implied and fails the test, listing the diagnostics, unless it succeeded. */
+export function impliedOk(structure: Structure, steps: number): ImpliedSolution {
+  const result = implied(structure, steps);
+  if (!result.ok) expect.fail(`implied failed: ${result.issues.map((d) => d.message).join("; ")}`);
+  return result.value;
+}
 
 /** Runs solve and fails the test, listing the diagnostics, unless it succeeded. */
 export function solveOk(sample: ReturnSample, options?: SolveOptions): Solution {

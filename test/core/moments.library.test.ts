@@ -17,8 +17,13 @@
 import fc from "fast-check";
 import * as ss from "simple-statistics";
 import { describe, expect, test } from "vitest";
-import { sampleCovariance, sampleStdev, sampleVariance } from "../../src/core/moments.js";
-import { fitLine } from "../../src/core/regression.js";
+import * as library from "../../src/core/statistics.js";
+import { ok } from "./helpers.js";
+
+const sampleVariance = (x: readonly number[]) => ok(library.sampleVariance(x));
+const sampleStdev = (x: readonly number[]) => ok(library.sampleStdev(x));
+const sampleCovariance = (x: readonly number[], y: readonly number[]) => ok(library.sampleCovariance(x, y));
+const fitLine = (x: readonly number[], y: readonly number[]) => ok(library.fitLine(x, y));
 import { expectClose } from "../support/close.js";
 
 const seed = 20261201;

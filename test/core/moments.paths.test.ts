@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { crossProducts, excessCrossProducts } from "../../src/core/moments.js";
+import { welfordCrossProducts, excessCrossProducts } from "../../src/core/moments.js";
 import { CHUNK } from "../../src/core/moments.js";
 import { excessResidualSums, residualSumOfSquares } from "../../src/core/regression.js";
 import { normals } from "../support/random.js";
@@ -9,13 +9,13 @@ const finite = fc.double({ min: -1e3, max: 1e3, noNaN: true, noDefaultInfinity: 
 const rowsOf = (width: number) => fc.array(fc.array(finite, { minLength: width, maxLength: width }), { minLength: 1, maxLength: 60 });
 const columnOf = (rows: number[][], i: number): number[] => rows.map((r) => r[i]!);
 
-describe("crossProducts", () => {
+describe("welfordCrossProducts", () => {
   it("gives the same bits from the unrolled three-series path (Float64Array) and the general path", () => {
     fc.assert(
       fc.property(rowsOf(3), (rows) => {
         const columns = [0, 1, 2].map((i) => columnOf(rows, i));
-        const unrolled = crossProducts(columns.map((c) => Float64Array.from(c)));
-        const general = crossProducts(columns); // plain arrays take the general loop
+        const unrolled = welfordCrossProducts(columns.map((c) => Float64Array.from(c)));
+        const general = welfordCrossProducts(columns); // plain arrays take the general loop
         expect(unrolled).toEqual(general); // toEqual compares numbers with Object.is: bit for bit
       }),
       { seed: 20261202, numRuns: 300 },
@@ -38,11 +38,11 @@ describe("the excess passes of solve (series formed on the fly)", () => {
     return { rf, low, high, market, raw: { low: Float64Array.from(columnOf(rows, 0)), high: Float64Array.from(columnOf(rows, 1)) } };
   }
 
-  it("excessCrossProducts equals crossProducts of the built series bit for bit", () => {
+  it("excessCrossProducts equals welfordCrossProducts of the built series bit for bit", () => {
     fc.assert(
       fc.property(cases, ([rows, w, constantRate]) => {
         const { rf, low, high, market, raw } = built(rows, w, constantRate);
-        expect(excessCrossProducts(raw.low, raw.high, rf, w)).toEqual(crossProducts([low, high, market]));
+        expect(excessCrossProducts(raw.low, raw.high, rf, w)).toEqual(welfordCrossProducts([low, high, market]));
       }),
       { seed: 20261203, numRuns: 300 },
     );
@@ -56,7 +56,7 @@ describe("the excess passes of solve (series formed on the fly)", () => {
         fc.double({ min: -3, max: 3, noNaN: true }),
         ([rows, w, constantRate], lowBeta, highBeta) => {
           const { rf, low, high, market, raw } = built(rows, w, constantRate);
-          const cp = crossProducts([low, high, market]);
+          const cp = welfordCrossProducts([low, high, market]);
           const [xbar, lowBar, highBar] = [cp.means[2]!, cp.means[0]!, cp.means[1]!];
           const sums = excessResidualSums(
             raw.low,
@@ -115,7 +115,7 @@ describe("the chunked passes across chunk boundaries", () => {
     constantRate: fc.boolean(),
   });
 
-  it("excessCrossProducts equals crossProducts of the built series bit for bit", () => {
+  it("excessCrossProducts equals welfordCrossProducts of the built series bit for bit", () => {
     fc.assert(
       fc.property(cases, ({ n, seed, scale, level, weight, constantRate }) => {
         const { low, high, rf } = sample(n, seed, scale, level);
@@ -124,8 +124,8 @@ describe("the chunked passes across chunk boundaries", () => {
         const highX = Float64Array.from(high, (x, t) => x - rate(t));
         const market = Float64Array.from(lowX, (l, t) => weight * l + (1 - weight) * highX[t]!);
         const chunked = excessCrossProducts(low, high, constantRate ? rf[0]! : rf, weight);
-        expect(chunked).toEqual(crossProducts([lowX, highX, market])); // unrolled path, chunked
-        expect(chunked).toEqual(crossProducts([Array.from(lowX), Array.from(highX), Array.from(market)])); // general loop, one pass
+        expect(chunked).toEqual(welfordCrossProducts([lowX, highX, market])); // unrolled path, chunked
+        expect(chunked).toEqual(welfordCrossProducts([Array.from(lowX), Array.from(highX), Array.from(market)])); // general loop, one pass
       }),
       { seed: 20261205, numRuns: 40 },
     );
@@ -139,7 +139,7 @@ describe("the chunked passes across chunk boundaries", () => {
         const lowX = Float64Array.from(low, (x, t) => x - rate(t));
         const highX = Float64Array.from(high, (x, t) => x - rate(t));
         const market = Float64Array.from(lowX, (l, t) => weight * l + (1 - weight) * highX[t]!);
-        const cp = crossProducts([lowX, highX, market]);
+        const cp = welfordCrossProducts([lowX, highX, market]);
         const [xbar, lowBar, highBar] = [cp.means[2]!, cp.means[0]!, cp.means[1]!];
         const sums = excessResidualSums(
           low,

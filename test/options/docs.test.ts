@@ -38,7 +38,7 @@ describe("the README's option tables", () => {
 
   it("show each option's flag, config key, meaning with its choices, and default", () => {
     const table = optionTableMarkdown("solve", ["model", "uncertainty"]);
-    expect(table).toContain("| `--weight <w>` | `weight` | weight of the low book in the market proxy, 0 < w < 1 | 0.5 |");
+    expect(table).toContain("| `--weight <w>` | `weight` | weight of the low book in the market proxy, 0.0001 <= w <= 0.9999 | 0.5 |");
     expect(table).toContain("| `--no-uncertainty` | `uncertainty` |");
     expect(table).toContain("(hac, iid) | hac |");
     expect(table).not.toContain("--window");

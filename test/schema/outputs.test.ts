@@ -15,9 +15,9 @@ describe("output schemas", () => {
   });
 
   test("implied JSON validates against its zod schema and its generated JSON Schema", () => {
-    const output = JSON.parse(
-      JSON.stringify(impliedOutput({ tool: { name: "betabound", version: "test" }, solution: implied(structure, 5) })),
-    );
+    const computed = implied(structure, 5);
+    if (!computed.ok) throw new Error(computed.issues[0]?.message);
+    const output = JSON.parse(JSON.stringify(impliedOutput({ tool: { name: "betabound", version: "test" }, solution: computed.value })));
     expect(impliedOutputSchema.safeParse(output).success).toBe(true);
     expect(validate(outputJsonSchema("implied"), output)).toEqual([]);
     const broken = { ...output, truth: { ...output.truth, lowBeta: "0.72" } };

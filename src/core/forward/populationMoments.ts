@@ -6,6 +6,8 @@
  * of factor risk lambda when only the factor is priced), so E[R_i - rf] = b_i * factorMean.
  */
 
+import { issues, parameterIssue } from "../arguments.js";
+import { diagnose, type Diagnostic } from "../diagnostics.js";
 import { highBetaFromLow, type MomentSummary } from "../identify.js";
 
 export interface Structure {
@@ -35,4 +37,30 @@ export function populationMoments(structure: Structure): MomentSummary {
     highVariance: highBeta * highBeta * phi + structure.highNoiseVol ** 2,
     covariance: lowBeta * highBeta * phi,
   };
+}
+
+/** The structure's parameters that break their rules (core/parameters.ts), as "invalid-argument" diagnostics. */
+export function structureIssues(structure: Structure): Diagnostic[] {
+  if (structure === null || typeof structure !== "object") {
+    return [diagnose({ code: "invalid-argument", argument: "structure", value: String(structure), expected: "an object" })];
+  }
+  const found = issues(
+    parameterIssue("weight", "weight", structure.weight),
+    parameterIssue("lowBeta", "lowBeta", structure.lowBeta),
+    parameterIssue("factorVol", "factorVol", structure.factorVol),
+    parameterIssue("factorMean", "mean", structure.factorMean),
+    parameterIssue("lowNoiseVol", "noiseVol", structure.lowNoiseVol),
+    parameterIssue("highNoiseVol", "noiseVol", structure.highNoiseVol),
+  );
+  if (found.length === 0 && !(structure.lowBeta < 1 / structure.weight)) {
+    found.push(
+      diagnose({
+        code: "invalid-argument",
+        argument: "lowBeta",
+        value: String(structure.lowBeta),
+        expected: "below 1/w, so that the high book's beta is positive",
+      }),
+    );
+  }
+  return found;
 }

@@ -13,8 +13,12 @@
  * Returns are R_i,t = rf + b_i F_t + e_i,t.
  */
 
+import { issues, parameterIssue } from "../arguments.js";
+import { diagnose, type Diagnostic } from "../diagnostics.js";
 import { highBetaFromLow } from "../identify.js";
-import type { Structure } from "./populationMoments.js";
+import { failure, type Result, success } from "../result.js";
+
+import { type Structure, structureIssues } from "./populationMoments.js";
 import { createRandom, type RandomSource } from "../numerics/rng.js";
 
 export interface SimulationOptions {
@@ -35,7 +39,48 @@ export interface SimulatedSample {
   readonly high: Float64Array;
 }
 
-export function simulateSample(structure: Structure, options: SimulationOptions): SimulatedSample {
+/**
+ * A sample drawn from `structure` (the library's entry point): fails with "invalid-argument"
+ * diagnostics when a parameter breaks its rule (core/parameters.ts): the structure's as for
+ * `implied`, periods a whole number from 1 to 1,000,000, the seed a whole number from 0 to 2^53 - 1,
+ * the risk-free return a mean, tails above 2, the AR(1) coefficient within (-1, 1), GARCH
+ * coefficients non-negative with a sum below 1.
+ */
+export function simulateSample(structure: Structure, options: SimulationOptions): Result<SimulatedSample, Diagnostic[]> {
+  const found = structureIssues(structure);
+  if (options === null || typeof options !== "object") {
+    found.push(
+      diagnose({ code: "invalid-argument", argument: "options", value: String(options), expected: "an object { periods, seed, ... }" }),
+    );
+    return failure(found);
+  }
+  found.push(
+    ...issues(
+      parameterIssue("periods", "periods", options.periods),
+      parameterIssue("seed", "seed", options.seed),
+      options.riskFree === undefined ? null : parameterIssue("riskFree", "mean", options.riskFree),
+      options.tails === undefined ? null : parameterIssue("tails", "tails", options.tails),
+      options.noiseAr === undefined ? null : parameterIssue("noiseAr", "noiseAr", options.noiseAr),
+      options.garch === undefined ? null : garchIssue(options.garch),
+    ),
+  );
+  return found.length > 0 ? failure(found) : success(drawSample(structure, options));
+}
+
+function garchIssue(garch: { readonly alpha: number; readonly beta: number }): Diagnostic | null {
+  const { alpha, beta } = garch ?? {};
+  const valid = Number.isFinite(alpha) && Number.isFinite(beta) && alpha >= 0 && beta >= 0 && alpha + beta < 1;
+  if (valid) return null;
+  return diagnose({
+    code: "invalid-argument",
+    argument: "garch",
+    value: `{ alpha: ${String(alpha)}, beta: ${String(beta)} }`,
+    expected: "two numbers alpha, beta >= 0 with alpha + beta < 1",
+  });
+}
+
+/** The draw itself, for options already checked (by `simulateSample`, or by the option table in the simulate job). */
+export function drawSample(structure: Structure, options: SimulationOptions): SimulatedSample {
   const n = options.periods;
   const rf = options.riskFree ?? 0;
   const lowBeta = structure.lowBeta;

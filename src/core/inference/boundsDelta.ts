@@ -62,8 +62,10 @@ export function boundGradients(m: SecondMoments): { lower: number[]; upper: numb
 export function boundsDelta(m: SecondMoments, omega: Matrix, observations: number): BoundsDelta {
   const w = m.weight;
   const { lower: gl, upper: gu } = boundGradients(m);
-  const lowerSe = Math.sqrt(bilinear(gl, omega, gl) / observations);
-  const upperSe = Math.sqrt(bilinear(gu, omega, gu) / observations);
+  // A quadratic form of a positive semi-definite Omega: negative only by rounding (a singular Omega,
+  // as with perfectly correlated books), where the standard error is 0.
+  const lowerSe = Math.sqrt(Math.max(0, bilinear(gl, omega, gl)) / observations);
+  const upperSe = Math.sqrt(Math.max(0, bilinear(gu, omega, gu)) / observations);
   const covariance = bilinear(gl, omega, gu) / observations;
   const lb = m.covariance / ((1 - w) * m.highVariance + w * m.covariance);
   const ub = m.lowVariance / (w * m.lowVariance + (1 - w) * m.covariance);

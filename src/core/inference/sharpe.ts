@@ -8,7 +8,9 @@
  * - HAC delta method (Lo 2002's GMM form): theta = (mu, sigma^2), dSR/dtheta = (1/sigma,
  *   -mu / (2 sigma^3)), Var = g' Sigma g / T with Sigma the HAC long-run covariance (longRun.ts) of
  *   (r_t - mu, (r_t - mu)^2 - sigma^2). With a zero lag and Sigma's divisor T this is Mertens' form
- *   with moment estimates of divisor T.
+ *   with moment estimates of divisor T. Computed on the standardised functions (d / sigma,
+ *   (d / sigma)^2 - 1) with g = (1, -SR / 2), which gives the same Var for a given bandwidth and an
+ *   automatic bandwidth that does not depend on the returns' units (the raw pair mixes two units).
  * The estimate uses the sample standard deviation (divisor T - 1), as the rest of the project.
  */
 
@@ -45,16 +47,19 @@ export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {})
   const estimate = mu / sigma;
   const first = new Float64Array(n);
   const second = new Float64Array(n);
+  // The moment functions standardised, (d / sigma, (d / sigma)^2 - 1), with the gradient (1, -SR / 2):
+  // the same quadratic form for a given bandwidth, and an automatic bandwidth free of the returns' units.
   for (let t = 0; t < n; t++) {
-    const d = excess[t]! - mu;
-    first[t] = d;
-    second[t] = d * d - variance;
+    const z = (excess[t]! - mu) / sigma;
+    first[t] = z;
+    second[t] = z * z - 1;
   }
   const sigmaHat = longRunCovariance([first, second], hac).covariance;
-  const gradient = [1 / sigma, -mu / (2 * sigma * variance)];
+  const gradient = [1, -estimate / 2];
   return {
     estimate,
     iidStdErr: sharpeIidStdErr(estimate, n),
-    hacStdErr: Math.sqrt(bilinear(gradient, sigmaHat, gradient) / n),
+    // A quadratic form of a positive semi-definite matrix: negative only by rounding.
+    hacStdErr: Math.sqrt(Math.max(0, bilinear(gradient, sigmaHat, gradient)) / n),
   };
 }

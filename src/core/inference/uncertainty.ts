@@ -34,14 +34,16 @@ import {
 } from "./options.js";
 import { sharpeStdErrors } from "./sharpe.js";
 import { stoyeInterval } from "./stoye.js";
-import { excessReturns } from "./bootstrap/replicates.js";
-import { crossProducts } from "../moments.js";
+import { scaledExcessReturns } from "./bootstrap/replicates.js";
+import { welfordCrossProducts } from "../moments.js";
 import type { ReturnSample } from "../types.js";
 import type { Uncertainty, PointwiseBound, BetaInterval, CapmHac } from "./uncertaintyTypes.js";
-import { assertParameter, defaultBlockLength, defaultSeed, defaultWeight } from "../parameters.js";
+import { defaultBlockLength, defaultSeed, defaultWeight } from "../parameters.js";
+import { diagnose, type Diagnostic } from "../diagnostics.js";
+import { failure, type Result, success } from "../result.js";
+import { minimumForUncertainty, uncertaintyArgumentIssues } from "./uncertaintyArguments.js";
 
-/** Standard errors need this many observations; with fewer, none are reported. */
-export const minimumForUncertainty = 10;
+export { minimumForUncertainty };
 
 /** The aligned per-period returns (decimal) that `solve` takes. */
 export type UncertaintySample = ReturnSample;
@@ -63,23 +65,42 @@ export interface UncertaintyOptions {
   readonly bootstrapSummary?: BootstrapSummary;
 }
 
-export function assessUncertainty(sample: UncertaintySample, options: UncertaintyOptions = {}): Uncertainty {
+/**
+ * Standard errors and intervals for what `solve` reports on `sample`. Fails with diagnostics, as
+ * solve does, on arguments that are not finite numbers or break their rules (uncertaintyArguments.ts),
+ * fewer than 10 observations, returns out of double precision's reach, or a constant series.
+ */
+export function assessUncertainty(sample: UncertaintySample, options: UncertaintyOptions = {}): Result<Uncertainty, Diagnostic[]> {
+  const invalid = uncertaintyArgumentIssues(sample, options);
+  if (invalid.length > 0) return failure(invalid);
+  const weight = options.weight ?? defaultWeight;
+  const data = sample.riskFree === undefined ? { low: sample.low, high: sample.high, weight } : { ...sample, weight };
+  // Computed on the excess returns times a power of two (scaling.ts): the HAC sums hold fourth
+  // powers of returns. Every result is unit-free except the CAPM alphas' standard errors.
+  const scaled = scaledExcessReturns(data);
+  const moments = secondMoments(scaled.low, scaled.high, weight);
+  const w = weight;
+  const marketVariance = w * w * moments.lowVariance + 2 * w * (1 - w) * moments.covariance + (1 - w) * (1 - w) * moments.highVariance;
+  const constant = !(moments.lowVariance > 0) ? "low" : !(moments.highVariance > 0) ? "high" : !(marketVariance > 0) ? "market" : null;
+  if (constant !== null) return failure([diagnose({ code: "zero-variance", series: constant })]);
+  return success(uncertaintyOf(sample, scaled, moments, options));
+}
+
+/** assessUncertainty on checked arguments. */
+function uncertaintyOf(
+  sample: UncertaintySample,
+  { low, high, scale }: { low: Float64Array; high: Float64Array; scale: number },
+  moments: ReturnType<typeof secondMoments>,
+  options: UncertaintyOptions,
+): Uncertainty {
   const weight = options.weight ?? defaultWeight;
   const confidence = options.confidence ?? defaultConfidence;
   const longRun = options.longRun ?? defaultLongRun;
   const hac = options.hac ?? {};
   const method = options.interval ?? defaultIntervalMethod;
   const source = options.intervalSource ?? defaultIntervalSource;
-  assertParameter("assessUncertainty", "weight", weight);
-  assertParameter("assessUncertainty", "confidence", confidence);
-  const data = sample.riskFree === undefined ? { low: sample.low, high: sample.high, weight } : { ...sample, weight };
-  const { low, high } = excessReturns(data);
   const n = low.length;
-  if (n < minimumForUncertainty) throw new RangeError(`assessUncertainty: needs at least ${minimumForUncertainty} observations, got ${n}`);
   const market = Float64Array.from(low, (l, t) => weight * l + (1 - weight) * high[t]!);
-
-  const moments = secondMoments(low, high, weight);
-  if (!(moments.lowVariance > 0 && moments.highVariance > 0)) throw new RangeError("assessUncertainty: a series is constant");
   const replicates = options.bootstrap?.replicates ?? 0;
   const bootstrap: BootstrapSummary | null =
     options.bootstrapSummary !== undefined
@@ -93,6 +114,13 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
           })
         : null;
   if (source === "bootstrap" && bootstrap === null) throw new RangeError('intervalSource "bootstrap" needs bootstrap replicates > 0');
+  // Bootstrap standard errors of both ends, when every replicate but one left them undefined (no
+  // set), do not exist: the delta method's are used, and `intervalSource` says so.
+  const bootstrapErrors =
+    bootstrap === null || bootstrap.stdErrors.lowBetaMin === null || bootstrap.stdErrors.lowBetaMax === null
+      ? null
+      : { lowBetaMin: bootstrap.stdErrors.lowBetaMin, lowBetaMax: bootstrap.stdErrors.lowBetaMax };
+  const usedSource: IntervalSource = source === "bootstrap" && bootstrapErrors !== null ? "bootstrap" : "delta";
 
   const delta = boundsDeltaFromData(low, high, moments, longRun, hac);
   const z = normalQuantile(1 - (1 - confidence) / 2);
@@ -106,12 +134,9 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
   let lowBeta: Uncertainty["lowBeta"] = null;
   let highBeta: Uncertainty["highBeta"] = null;
   if (moments.covariance > 0) {
-    const useBootstrap = source === "bootstrap" && bootstrap !== null;
-    const se = (name: "lowBetaMin" | "lowBetaMax", fallback: number) =>
-      useBootstrap ? (bootstrap.stdErrors[name] ?? Number.NaN) : fallback;
-    const seLower = se("lowBetaMin", delta.lowBeta.min.stdError);
-    const seUpper = se("lowBetaMax", delta.lowBeta.max.stdError);
-    const correlation = useBootstrap ? (bootstrap.boundsCorrelation ?? 0) : delta.correlation;
+    const seLower = usedSource === "bootstrap" && bootstrapErrors !== null ? bootstrapErrors.lowBetaMin : delta.lowBeta.min.stdError;
+    const seUpper = usedSource === "bootstrap" && bootstrapErrors !== null ? bootstrapErrors.lowBetaMax : delta.lowBeta.max.stdError;
+    const correlation = usedSource === "bootstrap" ? (bootstrap?.boundsCorrelation ?? 0) : delta.correlation;
     const ratio = weight / (1 - weight);
     const lb = delta.lowBeta.min.estimate;
     const ub = delta.lowBeta.max.estimate;
@@ -124,17 +149,25 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
       correlation,
     };
     const estimate = { lower: lb, upper: ub, lowerStdError: seLower, upperStdError: seUpper };
+    // Stoye's programme needs both standard errors positive; with a zero one (an end known exactly,
+    // as for perfectly correlated books) the Imbens-Manski interval is reported, and named.
+    const usedMethod: IntervalMethod = method === "stoye" && seLower > 0 && seUpper > 0 ? "stoye" : "imbens-manski";
     const interval: ParameterInterval =
-      method === "stoye" ? stoyeInterval({ ...estimate, correlation }, confidence) : imbensManskiInterval(estimate, confidence);
+      usedMethod === "stoye" ? stoyeInterval({ ...estimate, correlation }, confidence) : imbensManskiInterval(estimate, confidence);
     const toHigh = (b: number) => (1 - weight * b) / (1 - weight);
     lowBeta = {
-      interval: { lower: interval.lower, upper: interval.upper, method, criticalValue: interval.criticalValue } satisfies BetaInterval,
+      interval: {
+        lower: interval.lower,
+        upper: interval.upper,
+        method: usedMethod,
+        criticalValue: interval.criticalValue,
+      } satisfies BetaInterval,
     };
     highBeta = {
       interval: {
         lower: toHigh(interval.upper),
         upper: toHigh(interval.lower),
-        method,
+        method: usedMethod,
         criticalValue: { lower: interval.criticalValue.upper, upper: interval.criticalValue.lower },
       },
     };
@@ -147,9 +180,10 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
   };
   const capmLow = capmFit(low);
   const capmHigh = capmFit(high);
+  // Diagonals of a positive semi-definite matrix, negative only by rounding; the alpha's back in the data's units.
   const capmHac = (c: ReturnType<typeof capmFit>): CapmHac => ({
-    alphaStdErr: Math.sqrt(c.hac.covariance[0]![0]!),
-    betaStdErr: Math.sqrt(c.hac.covariance[1]![1]!),
+    alphaStdErr: Math.sqrt(Math.max(0, c.hac.covariance[0]![0]!)) / scale,
+    betaStdErr: Math.sqrt(Math.max(0, c.hac.covariance[1]![1]!)),
   });
 
   return {
@@ -159,7 +193,7 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
       kernel: delta.longRun.kernel,
       bandwidth: delta.longRun.bandwidth,
       lags: delta.longRun.lags,
-      intervalSource: source,
+      intervalSource: usedSource,
     },
     capm: {
       low: { hac: capmHac(capmLow) },
@@ -182,7 +216,7 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
 
 /** Sample variances and covariance (divisor n - 1) from compensated one-pass sums (moments.ts). */
 function secondMoments(low: Float64Array, high: Float64Array, weight: number) {
-  const cp = crossProducts([low, high]);
+  const cp = welfordCrossProducts([low, high]);
   const d = cp.n - 1;
   return { weight, lowVariance: cp.sums[0]![0]! / d, highVariance: cp.sums[1]![1]! / d, covariance: cp.sums[0]![1]! / d };
 }

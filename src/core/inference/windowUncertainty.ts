@@ -8,6 +8,7 @@ import type { MomentSummary } from "../identify.js";
 import { boundsDeltaFromData } from "./boundsDelta.js";
 import { imbensManskiInterval } from "./imbensManski.js";
 import { normalQuantile } from "../numerics/normal.js";
+import { scaleFor } from "../scaling.js";
 import type { HacOptions, LongRunMethod } from "./options.js";
 import type { BetaInterval, PointwiseBound } from "./uncertaintyTypes.js";
 
@@ -34,9 +35,21 @@ export function windowUncertainty(
   options: { readonly confidence: number; readonly longRun: LongRunMethod; readonly hac?: HacOptions },
 ): WindowUncertainty | null {
   if (!(summary.covariance > 0) || end - start + 1 < 10) return null;
-  const x = lowExcess.subarray(start, end + 1);
-  const y = highExcess.subarray(start, end + 1);
-  const delta = boundsDeltaFromData(x, y, summary, options.longRun, options.hac ?? {});
+  // On the window's returns times a power of two (scaling.ts; the HAC sums hold fourth powers), with
+  // the moments scaled to match: every result is unit-free.
+  let largest = 0;
+  for (let t = start; t <= end; t++) largest = Math.max(largest, Math.abs(lowExcess[t]!), Math.abs(highExcess[t]!));
+  const scale = scaleFor(largest);
+  const x = lowExcess.slice(start, end + 1).map((v) => v * scale);
+  const y = highExcess.slice(start, end + 1).map((v) => v * scale);
+  const square = scale * scale;
+  const moments = {
+    ...summary,
+    lowVariance: summary.lowVariance * square,
+    highVariance: summary.highVariance * square,
+    covariance: summary.covariance * square,
+  };
+  const delta = boundsDeltaFromData(x, y, moments, options.longRun, options.hac ?? {});
   const z = normalQuantile(1 - (1 - options.confidence) / 2);
   const pointwise = (b: { estimate: number; stdError: number }): PointwiseBound => ({
     estimate: b.estimate,

@@ -70,14 +70,27 @@ export function scale(a: readonly (readonly number[])[], factor: number): Matrix
  * @throws RangeError if a is singular (an exactly zero pivot after pivoting).
  */
 export function solve(a: readonly (readonly number[])[], b: readonly (readonly number[])[]): Matrix {
+  const x = solveOrNull(a, b, 0);
+  if (x === null) throw new RangeError("solve: matrix is singular");
+  return x;
+}
+
+/**
+ * `solve`, or null when a pivot (after partial pivoting) is at most `tolerance` times the largest
+ * absolute entry of a: a singular, or with a positive tolerance a numerically singular, system.
+ */
+export function solveOrNull(a: readonly (readonly number[])[], b: readonly (readonly number[])[], tolerance: number): Matrix | null {
   const n = a.length;
   const m = n === 0 ? 0 : b[0]!.length;
   const lu = a.map((row) => [...row]);
   const rhs = b.map((row) => [...row]);
+  let largest = 0;
+  for (const row of a) for (const value of row) largest = Math.max(largest, Math.abs(value));
+  const smallest = tolerance * largest;
   for (let col = 0; col < n; col++) {
     let pivot = col;
     for (let r = col + 1; r < n; r++) if (Math.abs(lu[r]![col]!) > Math.abs(lu[pivot]![col]!)) pivot = r;
-    if (lu[pivot]![col] === 0) throw new RangeError("solve: matrix is singular");
+    if (!(Math.abs(lu[pivot]![col]!) > smallest)) return null;
     if (pivot !== col) {
       [lu[pivot], lu[col]] = [lu[col]!, lu[pivot]!];
       [rhs[pivot], rhs[col]] = [rhs[col]!, rhs[pivot]!];

@@ -25,8 +25,15 @@ function mix32(x: number): number {
   return (z ^ (z >>> 16)) >>> 0;
 }
 
-/** A generator for `seed` (any integer up to 2^53) and `stream` (0, 1, 2, ... for independent uses). */
+/**
+ * A generator for `seed` (any integer up to 2^53) and `stream` (0, 1, 2, ... for independent uses).
+ * @throws RangeError for a seed or stream that is not a non-negative safe integer (a programming
+ *   error: 1.5 would otherwise be read silently as 1).
+ */
 export function createRandom(seed: number, stream = 0): RandomSource {
+  if (!(Number.isSafeInteger(seed) && seed >= 0 && Number.isSafeInteger(stream) && stream >= 0)) {
+    throw new RangeError(`createRandom: the seed and the stream must be whole numbers from 0 to 2^53 - 1, got ${seed} and ${stream}`);
+  }
   const low = seed >>> 0;
   const high = Math.floor(seed / 2 ** 32) >>> 0;
   let s0 = mix32(low ^ mix32(stream));

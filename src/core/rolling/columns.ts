@@ -3,11 +3,20 @@
  * window, so a million windows cost memory for the columns only.
  */
 
-import { equalNoiseLowBeta, identifiedBounds, marketMoments, type MomentSummary } from "../identify.js";
+import { covarianceCancellation } from "../cancellation.js";
+import {
+  equalNoiseLowBeta,
+  identifiedBounds,
+  isPerfectCorrelation,
+  marketMoments,
+  type MomentSummary,
+  noiseFreePoint,
+} from "../identify.js";
+import { isIdentity, type Units, unitsOf } from "../scaling.js";
 import { returnImpliedLowBeta } from "../landmarks.js";
 import { scanWindows } from "./scan.js";
 import { type WindowSpec, windowCount } from "./windowPlan.js";
-import { describeWindow, type WindowMoments } from "./windows.js";
+import { describeWindow, rollingScale, type WindowMoments, windowRejection, windowScales } from "./windows.js";
 
 /** Names of the per-window columns of `rollSolveColumns`, in order. */
 export const windowColumnNames = [
@@ -78,7 +87,9 @@ export function rollSolveColumns(
   >;
   const c = columns;
   let k = 0;
-  for (const raw of scanWindows(low, high, riskFree, weight, spec)) {
+  // Computed on scaled data as rollSolve computes them, then every column back in the data's units.
+  const { scale, largestRiskFree } = rollingScale(low, high, riskFree);
+  for (const raw of scanWindows(low, high, riskFree, weight, spec, scale)) {
     const window = describeWindow(raw, weight);
     const { summary: m, market, capm } = window;
     start[k] = window.start;
@@ -105,11 +116,40 @@ export function rollSolveColumns(
       c.highRSquared[k] = capm.high.rSquared;
       c.highResidualVariance[k] = capm.high.residualVariance;
     }
-    const solvable = m.lowVariance !== 0 && m.highVariance !== 0 && market.variance !== 0 && capm !== null && m.covariance > 0;
-    if (solvable) writeSetColumns(c, k, m, market, window.observations);
+    const solvable = windowRejection(window, largestRiskFree) === null && m.covariance > 0;
+    const rounding = { n: window.observations, ...windowScales(window, largestRiskFree) };
+    if (solvable && covarianceCancellation(rounding.n, m, rounding) === null) writeSetColumns(c, k, m, market, window.observations);
     k++;
   }
+  unscaleColumns(c, unitsOf(scale));
   return { count, start, end, observations, columns };
+}
+
+/** The columns in the returns' units (first) and in their squares' (second); the rest are unit-free. */
+const firstUnitColumns: readonly WindowColumnName[] = [
+  "lowMean",
+  "highMean",
+  "marketMean",
+  "lowAlpha",
+  "lowAlphaStdErr",
+  "highAlpha",
+  "highAlphaStdErr",
+];
+const secondUnitColumns: readonly WindowColumnName[] = [
+  "lowVariance",
+  "highVariance",
+  "covariance",
+  "marketVariance",
+  "lowResidualVariance",
+  "highResidualVariance",
+  "factorVarianceMin",
+  "factorVarianceMax",
+];
+
+function unscaleColumns(c: Record<WindowColumnName, Float64Array>, u: Units): void {
+  if (isIdentity(u)) return;
+  for (const name of firstUnitColumns) for (let k = 0; k < c[name].length; k++) c[name][k] = c[name][k]! * u.first;
+  for (const name of secondUnitColumns) for (let k = 0; k < c[name].length; k++) c[name][k] = c[name][k]! * u.second;
 }
 
 /** Bounds and landmark low betas as identifySet and findLandmarks compute them (identify.ts, landmarks.ts). */
@@ -120,7 +160,9 @@ function writeSetColumns(
   market: WindowMoments["market"],
   n: number,
 ): void {
-  const bounds = identifiedBounds(m);
+  // Perfectly correlated books: one point, as identifySet reports it.
+  const correlation = m.covariance / (Math.sqrt(m.lowVariance) * Math.sqrt(m.highVariance));
+  const bounds = isPerfectCorrelation(correlation) ? noiseFreePoint(m).bounds : identifiedBounds(m);
   const { min, max } = bounds.lowBeta;
   const w = m.weight;
   const v = 1 - w;

@@ -53,6 +53,7 @@ export function* scanWindows(
   riskFree: number | ArrayLike<number>,
   weight: number,
   spec: WindowSpec,
+  scale = 1,
 ): Generator<WindowSums, void, undefined> {
   checkSpec(spec);
   assertParameter("rolling", "weight", weight);
@@ -60,6 +61,9 @@ export function* scanWindows(
   if (high.length !== length) throw new RangeError("rolling: low and high differ in length");
   if (typeof riskFree !== "number" && riskFree.length !== length) throw new RangeError("rolling: riskFree differs in length");
   const rf = (t: number): number => (typeof riskFree === "number" ? riskFree : riskFree[t]!);
+  // The excess returns, times `scale` (a power of two: exact) when the caller computes on scaled data.
+  const lowAt = (t: number): number => (low[t]! - rf(t)) * scale;
+  const highAt = (t: number): number => (high[t]! - rf(t)) * scale;
   const count = windowCount(length, spec);
   const offset = windowOffset(length, spec);
   const newer = new PairAccumulator();
@@ -68,10 +72,7 @@ export function* scanWindows(
     let next = 0;
     for (let k = 0; k < count; k++) {
       const end = offset + spec.minPeriods - 1 + k * spec.step;
-      for (; next <= end; next++) {
-        const r = rf(next);
-        newer.add(low[next]! - r, high[next]! - r);
-      }
+      for (; next <= end; next++) newer.add(lowAt(next), highAt(next));
       yield {
         start: 0,
         end,
@@ -106,8 +107,7 @@ export function* scanWindows(
       // Rebuild the suffix table over [start, end]; the newer part starts empty at end + 1.
       builder.reset();
       for (let t = end; t >= start; t--) {
-        const r = rf(t);
-        builder.add(low[t]! - r, high[t]! - r);
+        builder.add(lowAt(t), highAt(t));
         const j = t - start;
         olderLow[j] = builder.lowOffset();
         olderHigh[j] = builder.highOffset();
@@ -121,10 +121,7 @@ export function* scanWindows(
       boundary = end + 1;
       newer.reset();
     } else {
-      for (let t = lastEnd + 1; t <= end; t++) {
-        const r = rf(t);
-        newer.add(low[t]! - r, high[t]! - r);
-      }
+      for (let t = lastEnd + 1; t <= end; t++) newer.add(lowAt(t), highAt(t));
     }
     lastEnd = end;
     const j = start - base;

@@ -20,8 +20,19 @@
  *   Numerische Mathematik 18, 224-242 (TwoProduct via Veltkamp splitting).
  */
 
-import { diagnose, type Diagnostic } from "../diagnostics.js";
+import { boundedScale, largestValues, type RoundingScales, varianceCancellation } from "../cancellation.js";
+import { diagnose, type Diagnostic, type DiagnosticDetail } from "../diagnostics.js";
 import type { MomentSummary } from "../identify.js";
+import {
+  isIdentity,
+  scaleFor,
+  type Units,
+  unitsOf,
+  unscaleBounds,
+  unscaleDiagnostic,
+  unscaleLandmarks,
+  unscaleSummary,
+} from "../scaling.js";
 import { identifySet } from "../solve.js";
 import type { IdentifiedBounds, Landmarks, LineFit, Maybe } from "../types.js";
 import { scanWindows, type WindowSums } from "./scan.js";
@@ -82,7 +93,24 @@ export function* iterateRollingMoments(
   weight: number,
   spec: WindowSpec,
 ): Generator<WindowMoments, void, undefined> {
-  for (const raw of scanWindows(low, high, riskFree, weight, spec)) yield describeWindow(raw, weight);
+  const { scale } = rollingScale(low, high, riskFree);
+  const units = unitsOf(scale);
+  for (const raw of scanWindows(low, high, riskFree, weight, spec, scale)) yield unscaleWindowMoments(describeWindow(raw, weight), units);
+}
+
+/**
+ * The scale the windows are computed at (scaling.ts: the power of two that brings the largest excess
+ * return into [1, 2)) and the largest risk-free return at that scale (for the rounding scales of
+ * cancellation.ts). The magnitudes are the caller's to check first (`magnitudeIssue`).
+ */
+export function rollingScale(
+  low: ArrayLike<number>,
+  high: ArrayLike<number>,
+  riskFree: number | ArrayLike<number>,
+): { scale: number; largestRiskFree: number } {
+  const extent = largestValues(low, high, riskFree);
+  const scale = scaleFor(Math.max(extent.low, extent.high));
+  return { scale, largestRiskFree: extent.riskFree * scale };
 }
 
 /**
@@ -110,20 +138,78 @@ export function* iterateRollSolve(
   weight: number,
   spec: WindowSpec,
 ): Generator<WindowSolution, void, undefined> {
-  for (const raw of scanWindows(low, high, riskFree, weight, spec)) yield solveWindow(describeWindow(raw, weight));
+  const { scale, largestRiskFree } = rollingScale(low, high, riskFree);
+  const units = unitsOf(scale);
+  for (const raw of scanWindows(low, high, riskFree, weight, spec, scale)) {
+    yield unscaleWindow(solveWindow(describeWindow(raw, weight), largestRiskFree), units);
+  }
 }
 
-/** The identified set of one window from its moments (solve's checks, in solve's order). */
-export function solveWindow(window: WindowMoments): WindowSolution {
-  const { start, end, observations, summary, market, capm } = window;
+/**
+ * Why a window has no CAPM fits and no set, as solve would fail on its rows: a series constant, or
+ * constant up to rounding (cancellation.ts, with the window's rounding scales bounded from its own
+ * moments); null when it has both.
+ */
+export function windowRejection(window: WindowMoments, largestRiskFree: number): DiagnosticDetail | null {
+  const { summary, market, capm, observations: n } = window;
   const constant =
     summary.lowVariance === 0 ? "low" : summary.highVariance === 0 ? "high" : market.variance === 0 || capm === null ? "market" : null;
-  if (constant !== null) {
-    const diagnostics = [diagnose({ code: "zero-variance", series: constant })];
+  if (constant !== null) return { code: "zero-variance", series: constant };
+  return varianceCancellation(n, summary, market.variance, windowScales(window, largestRiskFree));
+}
+
+/** Bounds on each book's |excess return| + |risk-free return| over the window's rows (cancellation.ts). */
+export function windowScales(window: WindowMoments, largestRiskFree: number): RoundingScales {
+  const { summary: m, observations: n } = window;
+  return {
+    low: boundedScale(m.lowMean, m.lowVariance * (n - 1), largestRiskFree),
+    high: boundedScale(m.highMean, m.highVariance * (n - 1), largestRiskFree),
+  };
+}
+
+/**
+ * The identified set of one window from its moments (solve's checks, in solve's order).
+ * `largestRiskFree`: the largest |risk-free return| at the windows' scale (rollingScale).
+ */
+export function solveWindow(window: WindowMoments, largestRiskFree = 0): WindowSolution {
+  const { start, end, observations, summary, market, capm } = window;
+  const rejection = windowRejection(window, largestRiskFree);
+  if (rejection !== null) {
+    const diagnostics = [diagnose(rejection)];
     return { start, end, observations, summary, market, capm: null, bounds: null, landmarks: null, diagnostics };
   }
-  const { bounds, landmarks, diagnostics } = identifySet(summary, 2, Math.sqrt(market.variance) / Math.sqrt(observations));
+  const rounding = { n: observations, ...windowScales(window, largestRiskFree) };
+  const { bounds, landmarks, diagnostics } = identifySet(summary, 2, Math.sqrt(market.variance) / Math.sqrt(observations), rounding);
   return { start, end, observations, summary, market, capm, bounds, landmarks, diagnostics };
+}
+
+/** A window's moments computed on scaled data, in the data's units (scaling.ts). */
+export function unscaleWindowMoments(w: WindowMoments, u: Units): WindowMoments {
+  if (isIdentity(u)) return w;
+  const line = (c: CapmLine): CapmLine => ({
+    ...c,
+    alpha: c.alpha * u.first,
+    alphaStdErr: c.alphaStdErr * u.first,
+    residualVariance: c.residualVariance * u.second,
+  });
+  return {
+    start: w.start,
+    end: w.end,
+    observations: w.observations,
+    summary: unscaleSummary(w.summary, u),
+    market: { mean: w.market.mean * u.first, variance: w.market.variance * u.second },
+    capm: w.capm === null ? null : { low: line(w.capm.low), high: line(w.capm.high) },
+  };
+}
+
+function unscaleWindow(w: WindowSolution, u: Units): WindowSolution {
+  if (isIdentity(u)) return w;
+  return {
+    ...unscaleWindowMoments(w, u),
+    bounds: unscaleBounds(w.bounds, u),
+    landmarks: unscaleLandmarks(w.landmarks, u),
+    diagnostics: w.diagnostics.map((d) => unscaleDiagnostic(d, u)),
+  };
 }
 
 /** The CAPM fits and summary of one window from its sums (the formulas above). */

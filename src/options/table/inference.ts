@@ -12,7 +12,15 @@ import {
   intervalSources,
   longRunMethods,
 } from "../../core/inference/options.js";
-import { defaultBlockLength, defaultConfidence, defaultReplicates, defaultSeed, integerRule, parameters } from "../../core/parameters.js";
+import {
+  confidenceRange,
+  defaultBlockLength,
+  defaultConfidence,
+  defaultReplicates,
+  defaultSeed,
+  integerRule,
+  parameters,
+} from "../../core/parameters.js";
 
 export const inferenceOptions = {
   // ---- uncertainty -------------------------------------------------------------------------
@@ -34,7 +42,7 @@ export const inferenceOptions = {
   confidence: option(numberKind(parameters.confidence), {
     name: "confidence",
     argument: "<level>",
-    help: "confidence level of every interval",
+    help: `confidence level of every interval, from ${confidenceRange.gte} to ${confidenceRange.lte}`,
     group: "uncertainty",
     commands: readers,
     default: defaultConfidence,

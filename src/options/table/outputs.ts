@@ -1,7 +1,7 @@
 /** The model's settings and the outputs (entries of the option table, table.ts). */
 import { choiceKind, numberKind, textKind } from "../kinds.js";
 import { option, everyCommand, readers } from "../spec.js";
-import { defaultSteps, defaultWeight, parameters } from "../../core/parameters.js";
+import { defaultSteps, defaultWeight, parameters, weightRange } from "../../core/parameters.js";
 import { chartYChoices } from "../../report/charts/chartOptions.js";
 import { impliedFormats, rollFormats, simulateFormats, solveFormats } from "../../report/formats.js";
 
@@ -10,7 +10,7 @@ export const reportOptions = {
   weight: option(numberKind(parameters.weight), {
     name: "weight",
     argument: "<w>",
-    help: "weight of the low book in the market proxy, 0 < w < 1",
+    help: `weight of the low book in the market proxy, ${weightRange.gte} <= w <= ${weightRange.lte}`,
     group: "model",
     commands: everyCommand,
     default: defaultWeight,

@@ -129,8 +129,9 @@ export function rollChartSpec(windows: readonly RollWindowPoint[], meta: RollCha
   }));
   const noSet = rows.filter((r) => r.min === null).map((r) => ({ t: r.t, description: `Window ending ${r.end}: no identified set.` }));
   const values = rows.flatMap((r) => [r.min, r.max, r.capm, r.lower, r.upper]).filter((v): v is number => v !== null && Number.isFinite(v));
-  const lo = Math.min(...values);
-  const hi = Math.max(...values);
+  // No window with a number to draw (every one rejected): the axis spans the betas 0 to 1 around the gaps.
+  const lo = values.length > 0 ? Math.min(...values) : 0;
+  const hi = values.length > 0 ? Math.max(...values) : 1;
   const pad = hi > lo ? 0.08 * (hi - lo) : Math.max(0.05 * Math.abs(lo), 0.01);
   const first = rows[0]!;
   const last = rows[rows.length - 1]!;

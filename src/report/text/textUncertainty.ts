@@ -144,15 +144,19 @@ export function precisionSection(solution: Solution, u: Uncertainty, style: Styl
   if (u.bounds !== null && solution.bounds !== null) {
     const width = solution.bounds.lowBeta.max - solution.bounds.lowBeta.min;
     const error = z * Math.max(u.bounds.lowBeta.min.stdError, u.bounds.lowBeta.max.stdError);
-    const ratio = width / error;
-    const verdict =
-      ratio >= 2
-        ? "so the range itself is well determined"
-        : "so sampling error is as large as the set itself: rely on the interval below, not on the set";
-    lines.push(
-      `Ends of the set of the low structural beta: each known to about +/- ${formatNumber(error, 2)} (${c}); ` +
-        `the set is ${formatNumber(width, 3)} wide, ${formatNumber(ratio, 2)} times that, ${verdict}.`,
-    );
+    if (error > 0) {
+      const ratio = width / error;
+      const verdict =
+        ratio >= 2
+          ? "so the range itself is well determined"
+          : "so sampling error is as large as the set itself: rely on the interval below, not on the set";
+      lines.push(
+        `Ends of the set of the low structural beta: each known to about +/- ${formatNumber(error, 2)} (${c}); ` +
+          `the set is ${formatNumber(width, 3)} wide, ${formatNumber(ratio, 2)} times that, ${verdict}.`,
+      );
+    } else {
+      lines.push(`Ends of the set of the low structural beta: their standard errors are 0; the set is ${formatNumber(width, 3)} wide.`);
+    }
   }
   if (u.lowBeta !== null) {
     lines.push(`Low structural beta itself: from ${limits(u.lowBeta.interval.lower, u.lowBeta.interval.upper)} with ${c} confidence.`);

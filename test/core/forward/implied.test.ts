@@ -1,8 +1,8 @@
 import { describe, expect, it } from "vitest";
-import { implied } from "../../../src/core/forward/implied.js";
+import { impliedOk } from "../helpers.js";
 import type { Structure } from "../../../src/core/forward/populationMoments.js";
 import { solve } from "../../../src/core/solve.js";
-import { simulateSample } from "../../../src/core/forward/simulate.js";
+import { drawSample } from "../../../src/core/forward/simulate.js";
 import { expectClose } from "../../support/close.js";
 
 // docs/methods.md §1.7 Example A as a structure: b_low = 3/4, phi = 16/3, s = (1, 2/3), w = 1/2.
@@ -17,7 +17,7 @@ const exampleA: Structure = {
 
 describe("implied", () => {
   it("reports the identified set of docs/methods.md §1.7 Example A, with the truth inside it", () => {
-    const result = implied(exampleA, 11);
+    const result = impliedOk(exampleA, 11);
     expectClose(result.bounds!.lowBeta.min, 5 / 7);
     expectClose(result.bounds!.lowBeta.max, 8 / 9);
     expectClose(result.capm.low.beta, 18 / 23);
@@ -28,15 +28,15 @@ describe("implied", () => {
   });
 
   it("puts the return-implied point at the true low beta, because only the factor is priced", () => {
-    const result = implied(exampleA, 5);
+    const result = impliedOk(exampleA, 5);
     expectClose(result.landmarks!.returnImplied!.lowBeta, exampleA.lowBeta);
     expectClose(result.capm.low.alpha, (0.75 - 18 / 23) * 0.02);
   });
 
   it("agrees with solve on a long simulated sample within sampling error", () => {
     const structure: Structure = { lowBeta: 0.7, weight: 0.5, factorVol: 0.04, factorMean: 0.006, lowNoiseVol: 0.01, highNoiseVol: 0.02 };
-    const population = implied(structure, 11);
-    const sample = simulateSample(structure, { periods: 400_000, seed: 21 });
+    const population = impliedOk(structure, 11);
+    const sample = drawSample(structure, { periods: 400_000, seed: 21 });
     const solved = solve(sample);
     expect(solved.ok).toBe(true);
     if (!solved.ok) return;

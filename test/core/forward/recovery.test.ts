@@ -1,9 +1,9 @@
 import { describe, expect, it } from "vitest";
 import type { Structure } from "../../../src/core/forward/populationMoments.js";
 import { createRandom } from "../../../src/core/numerics/rng.js";
-import { simulateSample } from "../../../src/core/forward/simulate.js";
+import { drawSample } from "../../../src/core/forward/simulate.js";
 import { solve } from "../../../src/core/solve.js";
-import { implied } from "../../../src/core/forward/implied.js";
+import { impliedOk } from "../helpers.js";
 
 /**
  * Random admissible structures: b_low in (0.4, 1.1) (times 1/(2w) so b_high stays positive), factor sd
@@ -28,14 +28,14 @@ describe("solve recovers the structure that generated the data", () => {
     const draws = 200;
     for (let k = 0; k < draws; k++) {
       const structure = randomStructure(() => random.uniform());
-      const result = solve(simulateSample(structure, { periods: 20_000, seed: 1000 + k }), { weight: structure.weight });
+      const result = solve(drawSample(structure, { periods: 20_000, seed: 1000 + k }), { weight: structure.weight });
       expect(result.ok).toBe(true);
       if (!result.ok || result.value.bounds === null) continue;
       const { min, max } = result.value.bounds.lowBeta;
       if (structure.lowBeta >= min && structure.lowBeta <= max) inside += 1;
       // The population set (implied) is what the sample set estimates: bound standard errors at
       // n = 20,000 are about 0.003 (docs/methods.md §4: 0.017 at T = 500, times sqrt(500 / n)).
-      const population = implied(structure, 2).bounds!.lowBeta;
+      const population = impliedOk(structure, 2).bounds!.lowBeta;
       if (Math.abs(min - population.min) < 0.02 && Math.abs(max - population.max) < 0.02) close += 1;
     }
     expect(close / draws).toBeGreaterThanOrEqual(0.97);

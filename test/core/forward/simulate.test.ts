@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { populationMoments, type Structure } from "../../../src/core/forward/populationMoments.js";
-import { crossProducts } from "../../../src/core/moments.js";
-import { simulateSample } from "../../../src/core/forward/simulate.js";
+import { welfordCrossProducts } from "../../../src/core/moments.js";
+import { drawSample } from "../../../src/core/forward/simulate.js";
 
 const structure: Structure = {
   lowBeta: 0.7,
@@ -42,20 +42,20 @@ function expectWithinStdErrs(estimate: number, truth: number, stdErr: number, z 
   expect(Math.abs(estimate - truth), `estimate ${estimate}, truth ${truth}, se ${stdErr}`).toBeLessThanOrEqual(z * stdErr);
 }
 
-describe("simulateSample", () => {
+describe("drawSample", () => {
   it("gives the same sample for the same seed and a different one for another seed", () => {
-    const a = simulateSample(structure, { periods: 500, seed: 11 });
-    const b = simulateSample(structure, { periods: 500, seed: 11 });
-    const c = simulateSample(structure, { periods: 500, seed: 12 });
+    const a = drawSample(structure, { periods: 500, seed: 11 });
+    const b = drawSample(structure, { periods: 500, seed: 11 });
+    const c = drawSample(structure, { periods: 500, seed: 12 });
     expect(Array.from(a.low)).toEqual(Array.from(b.low));
     expect(Array.from(a.high)).toEqual(Array.from(b.high));
     expect(Array.from(a.low)).not.toEqual(Array.from(c.low));
   });
 
   it("converges to the population moments for a long normal sample (within 4.5 standard errors)", () => {
-    const sample = simulateSample(structure, { periods: n, seed: 3, riskFree: 0.001 });
+    const sample = drawSample(structure, { periods: n, seed: 3, riskFree: 0.001 });
     const truth = populationMoments(structure);
-    const cp = crossProducts([sample.low, sample.high]);
+    const cp = welfordCrossProducts([sample.low, sample.high]);
     const vLow = cp.sums[0]![0]! / (n - 1);
     const vHigh = cp.sums[1]![1]! / (n - 1);
     const cov = cp.sums[0]![1]! / (n - 1);
@@ -70,8 +70,8 @@ describe("simulateSample", () => {
   it("scales Student t innovations to the requested variance with kurtosis 3 + 6/(df - 4)", () => {
     const df = 10;
     const factorOnly: Structure = { ...structure, lowBeta: 1, factorMean: 0, lowNoiseVol: 0, highNoiseVol: 0 };
-    const sample = simulateSample(factorOnly, { periods: n, seed: 5, tails: df });
-    const cp = crossProducts([sample.low]);
+    const sample = drawSample(factorOnly, { periods: n, seed: 5, tails: df });
+    const cp = welfordCrossProducts([sample.low]);
     const variance = cp.sums[0]![0]! / (n - 1);
     const { kurtosis, stdErr } = kurtosisWithStdErr(sample.low);
     // se(variance) = V sqrt((kurtosis - 1)/n) for any distribution with a finite fourth moment.
@@ -83,7 +83,7 @@ describe("simulateSample", () => {
     const alpha = 0.05;
     const beta = 0.9;
     const factorOnly: Structure = { ...structure, lowBeta: 1, factorMean: 0, lowNoiseVol: 0, highNoiseVol: 0 };
-    const sample = simulateSample(factorOnly, { periods: n, seed: 9, garch: { alpha, beta } });
+    const sample = drawSample(factorOnly, { periods: n, seed: 9, garch: { alpha, beta } });
     const { kurtosis, stdErr } = kurtosisWithStdErr(sample.low);
     // Normal GARCH(1,1) kurtosis (Bollerslev 1986): 3 (1 - (a + b)^2) / (1 - (a + b)^2 - 2 a^2).
     const persistence = (alpha + beta) ** 2;
@@ -94,7 +94,7 @@ describe("simulateSample", () => {
     const size = n / batches;
     const batchVariances: number[] = [];
     for (let k = 0; k < batches; k++) {
-      const cp = crossProducts([sample.low.subarray(k * size, (k + 1) * size)]);
+      const cp = welfordCrossProducts([sample.low.subarray(k * size, (k + 1) * size)]);
       batchVariances.push(cp.sums[0]![0]! / (size - 1));
     }
     const meanVariance = batchVariances.reduce((a, b) => a + b, 0) / batches;
@@ -105,9 +105,9 @@ describe("simulateSample", () => {
   it("gives the noise the requested lag-1 autocorrelation and keeps its variance", () => {
     const rho = 0.4;
     const noiseOnly: Structure = { ...structure, lowBeta: 1, factorVol: 1e-12, factorMean: 0, lowNoiseVol: 0.01, highNoiseVol: 0.01 };
-    const sample = simulateSample(noiseOnly, { periods: n, seed: 13, noiseAr: rho });
+    const sample = drawSample(noiseOnly, { periods: n, seed: 13, noiseAr: rho });
     const x = sample.low;
-    const lagged = crossProducts([x.subarray(1), x.subarray(0, n - 1)]);
+    const lagged = welfordCrossProducts([x.subarray(1), x.subarray(0, n - 1)]);
     const r1 = lagged.sums[0]![1]! / Math.sqrt(lagged.sums[0]![0]! * lagged.sums[1]![1]!);
     // se(r1) for an AR(1) is sqrt((1 - rho^2)/n) (Bartlett's formula).
     expectWithinStdErrs(r1, rho, Math.sqrt((1 - rho * rho) / n));

@@ -13,7 +13,8 @@ import { describe, expect, test } from "vitest";
 import { populationMoments } from "../../../src/core/forward/populationMoments.js";
 import { identifiedBounds } from "../../../src/core/identify.js";
 import { assessUncertainty } from "../../../src/core/inference/uncertainty.js";
-import { simulateSample } from "../../../src/core/forward/simulate.js";
+import { ok } from "../helpers.js";
+import { drawSample } from "../../../src/core/forward/simulate.js";
 
 const structure = { lowBeta: 0.7, weight: 0.5, factorVol: 0.01, factorMean: 0.0003, lowNoiseVol: 0.006, highNoiseVol: 0 };
 const reps = 200;
@@ -23,7 +24,7 @@ describe("coverage of the Imbens-Manski interval at the end of the set (Gaussian
   const stdErrors: number[] = [];
   let covered = 0;
   for (let rep = 0; rep < reps; rep++) {
-    const u = assessUncertainty(simulateSample(structure, { periods: 500, seed: 500 + rep }));
+    const u = ok(assessUncertainty(drawSample(structure, { periods: 500, seed: 500 + rep })));
     const interval = u.lowBeta!.interval;
     if (interval.lower <= structure.lowBeta && structure.lowBeta <= interval.upper) covered++;
     estimates.push(u.bounds!.lowBeta.min.estimate);

@@ -8,7 +8,7 @@
 
 import { describe, expect, test } from "vitest";
 import {
-  assessUncertainty,
+  assessUncertainty as assessChecked,
   automaticBandwidths,
   hacKernels,
   imbensManskiCriticalValue,
@@ -17,12 +17,15 @@ import {
   longRunMethods,
 } from "../../../src/core/inference/index.js";
 import { inverse } from "../../../src/core/numerics/linearAlgebra.js";
-import { simulateSample } from "../../../src/core/forward/simulate.js";
+import { drawSample } from "../../../src/core/forward/simulate.js";
 import { solve } from "../../../src/core/solve.js";
 import { expectClose } from "../../support/close.js";
+import { codes, ok } from "../helpers.js";
+
+const assessUncertainty = (...args: Parameters<typeof assessChecked>) => ok(assessChecked(...args));
 
 const w = 0.4;
-const sample = simulateSample(
+const sample = drawSample(
   { lowBeta: 0.8, weight: w, factorVol: 0.012, factorMean: 0.0005, lowNoiseVol: 0.005, highNoiseVol: 0.006 },
   { periods: 600, seed: 17, noiseAr: 0.2 },
 );
@@ -156,8 +159,13 @@ describe("contract", () => {
     expect(r.sharpe.low.estimate).toBeTypeOf("number");
   });
 
-  test("invalid requests are refused: confidence outside (0, 1); bootstrap standard errors without a bootstrap", () => {
-    expect(() => assessUncertainty(input, { confidence: 1 })).toThrow(RangeError);
-    expect(() => assessUncertainty(input, { intervalSource: "bootstrap" })).toThrow(RangeError);
+  test("invalid requests are refused with diagnostics: a confidence outside its range; bootstrap standard errors without a bootstrap", () => {
+    const refused = (options: Parameters<typeof assessChecked>[1]) => {
+      const r = assessChecked(input, options);
+      return r.ok ? [] : codes(r.issues);
+    };
+    expect(refused({ confidence: 1 })).toEqual(["invalid-argument"]);
+    expect(refused({ confidence: 0.4 })).toEqual(["invalid-argument"]);
+    expect(refused({ intervalSource: "bootstrap" })).toEqual(["invalid-argument"]);
   });
 });

@@ -1,7 +1,7 @@
 /** Data sets and from-scratch references shared by the test/core/rolling suites (not a test file itself). */
 
-import { crossProducts } from "../../../src/core/moments.js";
-import { simulateSample } from "../../../src/core/forward/simulate.js";
+import { welfordCrossProducts } from "../../../src/core/moments.js";
+import { drawSample } from "../../../src/core/forward/simulate.js";
 import type { Structure } from "../../../src/core/forward/populationMoments.js";
 import type { WindowSpec } from "../../../src/core/rolling/index.js";
 
@@ -30,26 +30,26 @@ export function riskFreeSeries(n: number): Float64Array {
 
 /**
  * The data sets every window of which is checked:
- * - daily returns of the one-factor model (simulateSample) with a time-varying risk-free rate;
+ * - daily returns of the one-factor model (drawSample) with a time-varying risk-free rate;
  * - a near-constant pair: 0.01 + noise of order 1e-9 (the spread is 1e-7 of the level);
  * - price levels: 1e4 plus a random walk of the simulated returns (moves of order 0.01 on 1e4);
  * - a volatile stretch (returns `burstScale` times larger on rows 300-399) followed by calm rows, which a
  *   running add/remove (downdating) scheme would leave with the volatile stretch's absolute error.
  */
 export function dataSets(n = 1200, burstScale = 1e4): DataSet[] {
-  const daily = simulateSample(dailyStructure, { periods: n, seed: 11 });
-  const tiny = simulateSample(
+  const daily = drawSample(dailyStructure, { periods: n, seed: 11 });
+  const tiny = drawSample(
     { ...dailyStructure, factorVol: 1e-9, lowNoiseVol: 4e-10, highNoiseVol: 6e-10 },
     { periods: n, seed: 12, riskFree: 0.01 },
   );
-  const walk = simulateSample(dailyStructure, { periods: n, seed: 13 });
+  const walk = drawSample(dailyStructure, { periods: n, seed: 13 });
   const level = (x: Float64Array): Float64Array => {
     const out = new Float64Array(x.length);
     let price = 1e4;
     for (let t = 0; t < x.length; t++) out[t] = price += x[t]!;
     return out;
   };
-  const calm = simulateSample(dailyStructure, { periods: n, seed: 14 });
+  const calm = drawSample(dailyStructure, { periods: n, seed: 14 });
   const burst = (x: Float64Array): Float64Array => x.map((value, t) => (t >= 300 && t < 400 ? value * burstScale : value));
   return [
     { name: "daily returns", low: daily.low, high: daily.high, riskFree: riskFreeSeries(n), level: 0 },
@@ -92,10 +92,10 @@ export function windowSample(data: DataSet, start: number, end: number) {
   };
 }
 
-/** Moments of the window recomputed from scratch with crossProducts (the reference of the rolling code). */
+/** Moments of the window recomputed from scratch with welfordCrossProducts (the reference of the rolling code). */
 export function fromScratch(data: DataSet, start: number, end: number) {
   const { low, high } = excessRows(data, start, end);
-  const cp = crossProducts([low, high]);
+  const cp = welfordCrossProducts([low, high]);
   const dof = cp.n - 1;
   return {
     lowMean: cp.means[0]!,

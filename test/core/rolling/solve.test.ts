@@ -225,7 +225,7 @@ describe("conditioning of the residual variance", () => {
       }
       if ((w.bounds === null) !== (solved.value.bounds === null)) bad.list.push(`[${w.start}, ${w.end}]: bounds differ in presence`);
       const e = solved.value;
-      const rho = e.moments.correlation.lowHigh;
+      const rho = e.moments.correlation.lowHigh ?? 0;
       const conditioned = Math.max(rel, (64 * Number.EPSILON) / (1 - rho * rho));
       if (conditioned > rel) illConditioned++;
       const at = `[${w.start}, ${w.end}]`;

@@ -1,6 +1,6 @@
 import { afterEach, describe, expect, test } from "vitest";
 import { solve } from "../../../src/core/solve.js";
-import { simulateSample } from "../../../src/core/forward/simulate.js";
+import { drawSample } from "../../../src/core/forward/simulate.js";
 import { cautionCaption } from "../../../src/report/charts/common.js";
 import { renderRollChart, type RollWindowPoint, timestamp } from "../../../src/report/charts/rollChart.js";
 import { facetItems, groupWithClass, hasMark, markItems, parseSvg, texts } from "./svg.js";
@@ -10,7 +10,7 @@ const meta = { source: "examples/books.csv", window: "24 months" };
 /** Rolling 24-period windows over a simulated monthly sample, month-end dates from 2015-01-31. */
 function windows(count = 30): RollWindowPoint[] {
   const n = count + 23;
-  const sample = simulateSample(
+  const sample = drawSample(
     { lowBeta: 0.7, weight: 0.5, factorVol: 0.04, factorMean: 0.006, lowNoiseVol: 0.012, highNoiseVol: 0.02 },
     { periods: n, seed: 42 },
   );

@@ -13,7 +13,8 @@
  */
 
 import { commonBlockLength } from "./blockLength.js";
-import { quantityCount, writeStatistics } from "./statistics.js";
+import { scaleFor } from "../../scaling.js";
+import { bootstrapQuantities, quantityCount, writeStatistics } from "./statistics.js";
 import { drawBlocks, replicateRandom, validateBlockLength } from "./stationaryBootstrap.js";
 
 export interface BootstrapData {
@@ -56,13 +57,31 @@ export function excessReturns(data: BootstrapData): { low: Float64Array; high: F
   return { low, high };
 }
 
+/**
+ * Excess returns of both books times the power of two that brings their largest absolute value into
+ * [1, 2) (scaling.ts), and that `scale`: products of four returns stay inside double precision.
+ */
+export function scaledExcessReturns(data: BootstrapData): { low: Float64Array; high: Float64Array; scale: number } {
+  const { low, high } = excessReturns(data);
+  let largest = 0;
+  for (let t = 0; t < low.length; t++) largest = Math.max(largest, Math.abs(low[t]!), Math.abs(high[t]!));
+  const scale = scaleFor(largest);
+  if (scale !== 1) {
+    for (let t = 0; t < low.length; t++) {
+      low[t] = low[t]! * scale;
+      high[t] = high[t]! * scale;
+    }
+  }
+  return { low, high, scale };
+}
+
 /** The numeric mean block length: as given, or the Politis-White value of the excess series. */
 export function resolveBlockLength(data: BootstrapData, blockLength: number | "auto"): number {
   if (blockLength !== "auto") {
     validateBlockLength(blockLength);
     return blockLength;
   }
-  const { low, high } = excessReturns(data);
+  const { low, high } = scaledExcessReturns(data);
   return Math.max(1, commonBlockLength([low, high]));
 }
 
@@ -72,7 +91,8 @@ export function bootstrapRange(data: BootstrapData, plan: Omit<BootstrapPlan, "r
     throw new RangeError(`bootstrapRange: invalid replicate range [${from}, ${to})`);
   }
   const blockLength = resolveBlockLength(data, plan.blockLength);
-  const { low, high } = excessReturns(data);
+  // On scaled returns (scaledExcessReturns); the alphas, the only statistics with units, are scaled back.
+  const { low, high, scale } = scaledExcessReturns(data);
   const n = low.length;
   if (n < 3) throw new RangeError("bootstrap: needs at least 3 observations");
   let lowMean = 0;
@@ -115,8 +135,14 @@ export function bootstrapRange(data: BootstrapData, plan: Omit<BootstrapPlan, "r
       count,
     );
   }
+  if (scale !== 1) {
+    for (const q of alphaQuantities) for (let i = q * count; i < (q + 1) * count; i++) draws[i] = draws[i]! / scale;
+  }
   return { from, to, blockLength, draws };
 }
+
+/** The positions of the CAPM alphas in `bootstrapQuantities` (the statistics in the returns' units). */
+const alphaQuantities = [bootstrapQuantities.indexOf("lowCapmAlpha"), bootstrapQuantities.indexOf("highCapmAlpha")];
 
 /** Running sums (length 2n + 1) of x, y, x^2, y^2 and xy over the centred series taken twice. */
 interface PrefixSums {

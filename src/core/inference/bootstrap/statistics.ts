@@ -47,14 +47,17 @@ export function writeStatistics(m: ResampleMoments, out: Float64Array, offset: n
   const { lowVariance: vl, highVariance: vh, covariance: c } = m;
   const marketVariance = w * w * vl + 2 * w * v * c + v * v * vh;
   const marketMean = w * m.lowMean + v * m.highMean;
-  const lowBeta = (w * vl + v * c) / marketVariance;
-  const highBeta = (w * c + v * vh) / marketVariance;
+  // A resample can repeat one row (or rows with one value) throughout: a variance that is 0 (or,
+  // by rounding, negative) leaves what divides by it undefined (NaN), never infinite.
+  const marketVaries = marketVariance > 0;
+  const lowBeta = marketVaries ? (w * vl + v * c) / marketVariance : Number.NaN;
+  const highBeta = marketVaries ? (w * c + v * vh) / marketVariance : Number.NaN;
   let lower = Number.NaN;
   let upper = Number.NaN;
   let capmConsistent = Number.NaN;
   let equalNoise = Number.NaN;
   let returnImplied = Number.NaN;
-  if (c > 0) {
+  if (c > 0 && vl > 0 && vh > 0 && marketVaries) {
     lower = c / (v * vh + w * c);
     upper = Math.max(lower, vl / (w * vl + v * c));
     capmConsistent = Math.min(Math.max(lowBeta, lower), upper);
@@ -73,7 +76,7 @@ export function writeStatistics(m: ResampleMoments, out: Float64Array, offset: n
   out[(q += stride)] = capmConsistent;
   out[(q += stride)] = equalNoise;
   out[(q += stride)] = returnImplied;
-  out[(q += stride)] = m.lowMean / Math.sqrt(vl);
-  out[(q += stride)] = m.highMean / Math.sqrt(vh);
-  out[(q += stride)] = marketMean / Math.sqrt(marketVariance);
+  out[(q += stride)] = vl > 0 ? m.lowMean / Math.sqrt(vl) : Number.NaN;
+  out[(q += stride)] = vh > 0 ? m.highMean / Math.sqrt(vh) : Number.NaN;
+  out[(q += stride)] = marketVaries ? marketMean / Math.sqrt(marketVariance) : Number.NaN;
 }

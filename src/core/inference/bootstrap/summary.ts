@@ -5,7 +5,7 @@
  *   alpha/2 and 1 - alpha/2 quantiles of the replicates, with linear interpolation between order
  *   statistics (Hyndman & Fan 1996 type 7, numpy's and R's default).
  * - Bootstrap standard error: the standard deviation of the replicates, divisor B - 1.
- * Replicates on which a quantity is undefined (NaN) are left out of its summary; `validReplicates`
+ * Replicates on which a quantity is undefined (NaN, or not finite) are left out of its summary; `validReplicates`
  * says how many remained. With fewer than 2 the interval and standard error are null.
  */
 
@@ -57,7 +57,7 @@ export function summariseBootstrap(range: BootstrapRange, seed: number, confiden
   const stdErrors = {} as Record<BootstrapQuantity, number | null>;
   const validReplicates = {} as Record<BootstrapQuantity, number>;
   bootstrapQuantities.forEach((name, q) => {
-    const valid = column(range, q).filter((value) => !Number.isNaN(value));
+    const valid = column(range, q).filter(Number.isFinite);
     validReplicates[name] = valid.length;
     if (valid.length < 2) {
       intervals[name] = null;
@@ -95,7 +95,7 @@ function correlation(a: Float64Array, b: Float64Array): number | null {
   let ma = 0;
   let mb = 0;
   for (let i = 0; i < a.length; i++) {
-    if (Number.isNaN(a[i]!) || Number.isNaN(b[i]!)) continue;
+    if (!(Number.isFinite(a[i]!) && Number.isFinite(b[i]!))) continue;
     n++;
     ma += a[i]!;
     mb += b[i]!;
@@ -107,7 +107,7 @@ function correlation(a: Float64Array, b: Float64Array): number | null {
   let sbb = 0;
   let sab = 0;
   for (let i = 0; i < a.length; i++) {
-    if (Number.isNaN(a[i]!) || Number.isNaN(b[i]!)) continue;
+    if (!(Number.isFinite(a[i]!) && Number.isFinite(b[i]!))) continue;
     saa += (a[i]! - ma) ** 2;
     sbb += (b[i]! - mb) ** 2;
     sab += (a[i]! - ma) * (b[i]! - mb);

@@ -9,7 +9,9 @@
  * Bandwidth resolution: a fixed `lags` L is Bartlett bandwidth L + 1; with the Newey-West (1994) rule
  * and the Bartlett kernel the bandwidth S becomes the lag floor(S) (R's NeweyWest), so the weights are
  * 1 - j/(floor(S) + 1); every other case uses k(j/S) directly (R's kernHAC / weightsAndrews).
- * With prewhitening the sum runs over the VAR(1) residuals and is recoloured D S D' (prewhiten.ts).
+ * With prewhitening the sum runs over the VAR(1) residuals and is recoloured D S D' (prewhiten.ts);
+ * when the VAR(1) fit is singular (a constant column, or one that is a combination of the others) or
+ * the recoloured sum is not finite, the series is not prewhitened and `prewhite` says so (false).
  * The Bartlett sum is computed in linear time from window sums (bartlettWindows.ts), the others lag
  * by lag (weightedAutocovarianceSum, which stays the reference the window form is tested against).
  */
@@ -140,26 +142,50 @@ export function kernelSum(columns: readonly Float64Array[], options: HacOptions,
     throw new RangeError(`HAC lags must be a non-negative integer, got ${options.lags}`);
   }
   if (options.lags !== undefined && kernel !== "bartlett") throw new RangeError("HAC lags apply to the Bartlett kernel only");
-  const whitened = prewhite ? prewhitenVar1(columns) : null;
-  const series = whitened?.residuals ?? columns;
+  if (prewhite) {
+    const whitened = prewhitenVar1(columns);
+    if (whitened !== null) {
+      const estimate = weightedSum(whitened.residuals, kernel, options, columnWeights, rows, true);
+      const sum = sandwich(whitened.recolour, estimate.sum);
+      if (sum.every((row) => row.every(Number.isFinite))) return { ...estimate, sum };
+    }
+  }
+  return weightedSum(columns, kernel, options, columnWeights, rows, false);
+}
+
+/**
+ * The kernel sum of `series` (prewhitened or not) at the bandwidth the options ask for. When an
+ * automatic rule is undefined (its estimate of the long-run variance of the weighted estimating
+ * functions is 0, as when they are identically 0, or the estimate is not finite) every bandwidth
+ * gives the same sum or none is defined: the sum keeps lag 0 only, and the bandwidth is reported as 0.
+ */
+function weightedSum(
+  series: readonly Float64Array[],
+  kernel: HacKernel,
+  options: HacOptions,
+  columnWeights: readonly number[],
+  rows: number,
+  prewhite: boolean,
+): KernelSum {
   const n = series[0]?.length ?? 0;
   const choice: BandwidthChoice = options.lags !== undefined ? options.lags + 1 : (options.bandwidth ?? defaultHac.bandwidth);
-  const bandwidth =
+  const rule =
     choice === "newey-west-1994"
       ? neweyWest1994Bandwidth(series, kernel, columnWeights, rows, prewhite)
       : choice === "andrews-1991"
         ? andrews1991Bandwidth(series, kernel, columnWeights)
         : choice;
-  if (!(bandwidth > 0 && Number.isFinite(bandwidth))) throw new RangeError(`HAC bandwidth must be positive, got ${bandwidth}`);
-  const effective = kernel === "bartlett" && choice === "newey-west-1994" ? Math.floor(bandwidth) + 1 : bandwidth;
-  const weights = lagWeights(kernel, effective, n);
+  const defined = rule > 0 && Number.isFinite(rule);
+  if (!defined && typeof choice === "number") throw new RangeError(`HAC bandwidth must be positive, got ${choice}`);
+  const bandwidth = defined ? rule : 0;
+  const effective = !defined ? 0 : kernel === "bartlett" && choice === "newey-west-1994" ? Math.floor(bandwidth) + 1 : bandwidth;
+  const weights = !defined ? Float64Array.of(1) : lagWeights(kernel, effective, n);
   let lags: number | null = null;
   if (kernel === "bartlett") {
     lags = 0;
     for (let j = 0; j < weights.length; j++) if (weights[j]! > 0) lags = j;
   }
-  // Bartlett in linear time from window sums (bartlettWindows.ts); other kernels lag by lag.
-  const raw = kernel === "bartlett" ? bartlettKernelSum(series, effective) : weightedAutocovarianceSum(series, weights);
-  const sum = whitened === null ? raw : sandwich(whitened.recolour, raw);
+  // Bartlett in linear time from window sums (bartlettWindows.ts); other kernels, and lag 0 alone, lag by lag.
+  const sum = defined && kernel === "bartlett" ? bartlettKernelSum(series, effective) : weightedAutocovarianceSum(series, weights);
   return { sum, kernel, bandwidth, lags, prewhite };
 }

@@ -12,7 +12,7 @@
 import { kernelSum } from "./kernelSum.js";
 import { scale, symmetrise, type Matrix } from "../../numerics/linearAlgebra.js";
 import type { HacKernel, HacOptions } from "../options.js";
-import { crossProducts } from "../../moments.js";
+import { welfordCrossProducts } from "../../moments.js";
 
 export interface LongRunCovariance {
   readonly covariance: Matrix;
@@ -50,6 +50,6 @@ export function longRunCovariance(columns: readonly Float64Array[], options: Hac
 
 /** The sample covariance matrix of the columns, divisor T - 1 (compensated one-pass sums). */
 export function sampleCovarianceOf(columns: readonly Float64Array[]): Matrix {
-  const cp = crossProducts(columns);
+  const cp = welfordCrossProducts(columns);
   return cp.sums.map((row) => row.map((value) => value / (cp.n - 1)));
 }

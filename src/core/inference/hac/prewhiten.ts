@@ -8,7 +8,7 @@
  * D = (I - A)^{-1}.
  */
 
-import { crossColumns, identity, inverse, solve, type Matrix } from "../../numerics/linearAlgebra.js";
+import { crossColumns, identity, solveOrNull, type Matrix } from "../../numerics/linearAlgebra.js";
 
 export interface Prewhitened {
   /** The VAR(1) residuals, one column per series, n - 1 rows. */
@@ -19,14 +19,25 @@ export interface Prewhitened {
   readonly recolour: Matrix;
 }
 
-export function prewhitenVar1(columns: readonly Float64Array[]): Prewhitened {
+/**
+ * Pivots below this share of the largest entry make a system numerically singular here: a series
+ * that is a combination of the others (perfectly correlated books) or constant has no VAR(1) fit.
+ */
+const singularTolerance = 1e-12;
+
+/**
+ * The VAR(1) fit and its residuals, or null when the fit or the recolouring is singular (a column is
+ * constant or a combination of the others, or I - A is singular): the caller then does not prewhiten.
+ */
+export function prewhitenVar1(columns: readonly Float64Array[]): Prewhitened | null {
   const k = columns.length;
   const n = k === 0 ? 0 : columns[0]!.length;
   if (n < k + 2) throw new RangeError(`prewhitenVar1: ${n} rows are too few for a VAR(1) in ${k} series`);
   const lagged = columns.map((c) => c.subarray(0, n - 1));
   const current = columns.map((c) => c.subarray(1, n));
   // B = (X'X)^{-1} X'Y with X the lagged and Y the current values; A = B'.
-  const b = solve(crossColumns(lagged, lagged), crossColumns(lagged, current));
+  const b = solveOrNull(crossColumns(lagged, lagged), crossColumns(lagged, current), singularTolerance);
+  if (b === null) return null;
   const coefficients: Matrix = Array.from({ length: k }, (_, i) => Array.from({ length: k }, (_, j) => b[j]![i]!));
   const residuals = current.map((y, i) => {
     const row = coefficients[i]!;
@@ -39,5 +50,6 @@ export function prewhitenVar1(columns: readonly Float64Array[]): Prewhitened {
     return e;
   });
   const iMinusA = identity(k).map((row, i) => row.map((value, j) => value - coefficients[i]![j]!));
-  return { residuals, coefficients, recolour: inverse(iMinusA) };
+  const recolour = solveOrNull(iMinusA, identity(k), singularTolerance);
+  return recolour === null ? null : { residuals, coefficients, recolour };
 }

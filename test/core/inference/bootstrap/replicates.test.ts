@@ -13,12 +13,12 @@ import { bootstrapRange, mergeBootstrapRanges, type BootstrapRange } from "../..
 import { bootstrapQuantities, type BootstrapQuantity } from "../../../../src/core/inference/bootstrap/statistics.js";
 import { bootstrapSolve, quantileSorted } from "../../../../src/core/inference/bootstrap/summary.js";
 import { resampleIndices } from "../../../../src/core/inference/bootstrap/stationaryBootstrap.js";
-import { simulateSample } from "../../../../src/core/forward/simulate.js";
+import { drawSample } from "../../../../src/core/forward/simulate.js";
 import { solve } from "../../../../src/core/solve.js";
 import { expectClose } from "../../../support/close.js";
 
 const structure = { lowBeta: 0.75, weight: 0.4, factorVol: 0.01, factorMean: 0.0006, lowNoiseVol: 0.004, highNoiseVol: 0.006 };
-const sample = simulateSample(structure, { periods: 300, seed: 5, noiseAr: 0.3 });
+const sample = drawSample(structure, { periods: 300, seed: 5, noiseAr: 0.3 });
 const riskFree = Float64Array.from({ length: 300 }, (_, t) => 0.0001 + 0.00001 * Math.sin(t / 20));
 const data = { low: sample.low, high: sample.high, riskFree, weight: 0.4 };
 const plan = { blockLength: 6, seed: 99 };

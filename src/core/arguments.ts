@@ -1,0 +1,75 @@
+/**
+ * The library's checks of its arguments: the core's entry points (solve, implied, fitLine, the
+ * moments functions, simulateSample) return these as diagnostics rather than computing with a NaN,
+ * an infinity, a hole in an array or a parameter outside its rule (core/parameters.ts).
+ */
+
+import { diagnose, type Diagnostic } from "./diagnostics.js";
+import { type ParameterName, parameters } from "./parameters.js";
+import type { ReturnSample } from "./types.js";
+
+/** How a value that is not a finite number is named in a message: NaN, Infinity, a hole, undefined, a string "x". */
+export function describeValue(values: ArrayLike<unknown>, index: number): string {
+  const value = values[index];
+  if (typeof value === "number") return String(value);
+  if (value === undefined) return Array.isArray(values) && !(index in values) ? "a hole (no value)" : "undefined";
+  if (value === null) return "null";
+  if (typeof value === "string") return `the string ${JSON.stringify(value.length > 40 ? `${value.slice(0, 40)}...` : value)}`;
+  return `a ${typeof value}`;
+}
+
+/** The first entry of `values` that is not a finite number, as an "invalid-number" diagnostic; null if all are. */
+export function firstInvalidNumber(argument: string, values: ArrayLike<number>): Diagnostic | null {
+  if (values === null || typeof values !== "object" || typeof values.length !== "number") {
+    return diagnose({ code: "invalid-argument", argument, value: String(values), expected: "an array of numbers" });
+  }
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    if (typeof v !== "number" || !Number.isFinite(v))
+      return diagnose({ code: "invalid-number", argument, index: i, value: describeValue(values, i) });
+  }
+  return null;
+}
+
+/** A "length-mismatch" diagnostic when `values` does not have `expected` entries. */
+export function lengthMismatch(argument: string, values: ArrayLike<number>, expected: number): Diagnostic | null {
+  return values.length === expected ? null : diagnose({ code: "length-mismatch", argument, length: values.length, expected });
+}
+
+/** An "invalid-argument" diagnostic when `value` breaks the rule of parameter `name`; null when it follows it. */
+export function parameterIssue(argument: string, name: ParameterName, value: unknown): Diagnostic | null {
+  const rule = parameters[name];
+  if (typeof value === "number" && rule.accept(value)) return null;
+  return diagnose({ code: "invalid-argument", argument, value: describeScalar(value), expected: rule.expected });
+}
+
+/** A scalar as a message shows it. */
+export function describeScalar(value: unknown): string {
+  if (typeof value === "number") return String(value);
+  if (typeof value === "string") return JSON.stringify(value);
+  return value === null ? "null" : value === undefined ? "undefined" : `a ${typeof value}`;
+}
+
+/** Arguments that are not finite numbers, holes, or series of different lengths. */
+export function sampleIssues(sample: ReturnSample): Diagnostic[] {
+  if (sample === null || typeof sample !== "object") {
+    return [
+      diagnose({ code: "invalid-argument", argument: "sample", value: String(sample), expected: "an object { low, high, riskFree? }" }),
+    ];
+  }
+  const found = issues(firstInvalidNumber("low", sample.low), firstInvalidNumber("high", sample.high));
+  if (found.length > 0) return found;
+  found.push(...issues(lengthMismatch("high", sample.high, sample.low.length)));
+  const rf = sample.riskFree;
+  if (typeof rf === "number") {
+    if (!Number.isFinite(rf))
+      found.push(diagnose({ code: "invalid-argument", argument: "riskFree", value: String(rf), expected: "a finite number" }));
+  } else if (rf !== undefined) {
+    found.push(...issues(firstInvalidNumber("riskFree", rf)));
+    if (found.length === 0) found.push(...issues(lengthMismatch("riskFree", rf, sample.low.length)));
+  }
+  return found;
+}
+
+/** The diagnostics that are not null, in order. */
+export const issues = (...found: (Diagnostic | null)[]): Diagnostic[] => found.filter((d): d is Diagnostic => d !== null);
