@@ -2,7 +2,6 @@
 // the library as an ES module with its dependencies left external, and the type declarations.
 import { build } from "esbuild";
 import { execFileSync } from "node:child_process";
-import { createHash } from "node:crypto";
 import { chmodSync, readFileSync, rmSync } from "node:fs";
 import { createRequire } from "node:module";
 
@@ -47,9 +46,6 @@ await build({
   minify: process.env.BETABOUND_NO_MINIFY !== "1",
   logLevel: "warning",
 });
-const bundleText = readFileSync("dist/cli-bundle.cjs", "utf8");
-const bundleId = createHash("sha256").update(bundleText).digest("hex").slice(0, 32);
-const loaderDefine = { __BETABOUND_BUNDLE_ID__: JSON.stringify(bundleId) };
 
 // The executable, and the loader on its own for writing the cache below.
 await build({
@@ -59,7 +55,6 @@ await build({
   platform: "node",
   format: "cjs",
   target: "node20",
-  define: loaderDefine,
   packages: "external",
   banner: { js: "#!/usr/bin/env node" },
   logLevel: "warning",
@@ -72,7 +67,6 @@ await build({
   platform: "node",
   format: "esm",
   target: "node20",
-  define: loaderDefine,
   packages: "external",
   logLevel: "warning",
 });

@@ -3,9 +3,9 @@
 // of the bundle, which now holds the bytecode of every function those runs executed (the rest is
 // compiled on first use). Run by scripts/build.mjs in a process of its own with node's default flags
 // (V8 rejects a cache made under other flags).
-import { writeFileSync } from "node:fs";
+import { readFileSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
-import { cacheContents, cacheFile, loadCliBundle } from "../dist/bundleLoader.js";
+import { bundleFile, cacheContents, cacheFile, loadCliBundle } from "../dist/bundleLoader.js";
 
 const dist = new URL("../dist/", import.meta.url).pathname;
 process.chdir(new URL("..", import.meta.url).pathname);
@@ -32,7 +32,6 @@ const fullPrecisionText = [
 
 const { bundle, script } = loadCliBundle(dist, false);
 const discard = () => undefined;
-const quietSink = { write: discard, close: () => ({ ok: true, value: undefined }), discard };
 const processIo = bundle.processIo({ loadVega: () => import("vega") });
 const io = {
   ...processIo,
@@ -40,7 +39,8 @@ const io = {
     path === fullPrecision ? Promise.resolve({ ok: true, value: Buffer.from(fullPrecisionText) }) : processIo.readInput(path),
   writeOut: discard,
   writeErr: discard,
-  openSink: () => ({ ok: true, value: quietSink }),
+  // Reports go nowhere: an output target that takes everything and commits nothing.
+  openOutput: () => ({ ok: true, value: { write: () => Promise.resolve(), commit: () => Promise.resolve({ ok: true, value: undefined }), abort: discard } }),
   stdoutIsTerminal: false,
   stderrIsTerminal: false,
 };
@@ -48,4 +48,4 @@ for (const argv of runs) {
   const code = await bundle.run(argv, io);
   if (code !== 0) throw new Error(`code cache warm-up: betabound ${argv.join(" ")} exited with ${code}`);
 }
-writeFileSync(join(dist, cacheFile), cacheContents(script.createCachedData()));
+writeFileSync(join(dist, cacheFile), cacheContents(readFileSync(join(dist, bundleFile)), script.createCachedData()));

@@ -3,6 +3,7 @@
  * runs the same without it: with the cache missing, made from another bundle, or unusable.
  */
 import { execFileSync, spawnSync } from "node:child_process";
+import { createHash } from "node:crypto";
 import { copyFileSync, mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
@@ -24,9 +25,10 @@ function run(dir: string) {
 }
 
 /** A copy of the executable in a scratch folder, with `cache` as its code cache (none when null). */
-function copyWith(cache: Buffer | null): string {
+function copyWith(cache: Buffer | null, bundle?: Buffer): string {
   const dir = mkdtempSync(join(tmpdir(), "betabound-cache-"));
   for (const file of ["cli.cjs", "cli-bundle.cjs"]) copyFileSync(join(dist, file), join(dir, file));
+  if (bundle !== undefined) writeFileSync(join(dir, "cli-bundle.cjs"), bundle);
   if (cache !== null) writeFileSync(join(dir, "cli-bundle.cache"), cache);
   return dir;
 }
@@ -52,6 +54,22 @@ describe("the code cache", () => {
     expect(result.code).toBe(0);
     expect(result.stderr).toBe(expected.stderr);
     expect(result.stdout).toBe(expected.stdout);
+  });
+
+  it("is stale for a bundle whose text changed with its length kept: the changed text is what runs", () => {
+    // The cache header is the SHA-256 of the bundle's bytes (computed independently here with node:crypto).
+    expect(header.toString().trim()).toBe(createHash("sha256").update(readFileSync(join(dist, "cli-bundle.cjs"))).digest("hex"));
+    const original = readFileSync(join(dist, "cli-bundle.cjs"), "latin1");
+    const marker = "structural betas of a low-beta and a high-beta book";
+    expect(original).toContain(marker);
+    const tampered = Buffer.from(original.replace(marker, marker.toUpperCase()), "latin1");
+    expect(tampered.length).toBe(Buffer.byteLength(original, "latin1"));
+    const dir = copyWith(built, tampered);
+    expect(loader.loadCliBundle(dir).cache).toBe("stale");
+    const result = spawnSync(process.execPath, [join(dir, "cli.cjs"), ...args.slice(0, -2)], { encoding: "utf8" });
+    expect(result.status).toBe(0);
+    expect(result.stdout).toContain(marker.toUpperCase());
+    expect(result.stdout).not.toContain(marker);
   });
 });
 
