@@ -40,7 +40,10 @@ const io = {
   writeOut: discard,
   writeErr: discard,
   // Reports go nowhere: an output target that takes everything and commits nothing.
-  openOutput: () => ({ ok: true, value: { write: () => Promise.resolve(), commit: () => Promise.resolve({ ok: true, value: undefined }), abort: discard } }),
+  openOutput: () => ({
+    ok: true,
+    value: { write: () => Promise.resolve(), commit: () => Promise.resolve({ ok: true, value: undefined }), abort: discard },
+  }),
   stdoutIsTerminal: false,
   stderrIsTerminal: false,
 };

@@ -58,7 +58,11 @@ describe("the code cache", () => {
 
   it("is stale for a bundle whose text changed with its length kept: the changed text is what runs", () => {
     // The cache header is the SHA-256 of the bundle's bytes (computed independently here with node:crypto).
-    expect(header.toString().trim()).toBe(createHash("sha256").update(readFileSync(join(dist, "cli-bundle.cjs"))).digest("hex"));
+    expect(header.toString().trim()).toBe(
+      createHash("sha256")
+        .update(readFileSync(join(dist, "cli-bundle.cjs")))
+        .digest("hex"),
+    );
     const original = readFileSync(join(dist, "cli-bundle.cjs"), "latin1");
     const marker = "structural betas of a low-beta and a high-beta book";
     expect(original).toContain(marker);
