@@ -1,0 +1,169 @@
+/**
+ * assessPricing: can noise in the measured betas explain the low book's CAPM alpha? (docs/methods.md §30)
+ *
+ * In the model the expected CAPM alpha of the structure at b is (b - beta) lambda (beta the CAPM beta,
+ * lambda the mean excess market return), so the alphas noise can explain form the interval between
+ * (Lb - beta) lambda and (U - beta) lambda over the identified set [Lb, U]; the observed alpha
+ * x_bar - beta lambda lies in it exactly when the return-implied beta x_bar / lambda lies in [Lb, U].
+ * This module reports, from one joint delta-method (HAC or iid) covariance of the influence series:
+ * - the return-implied low beta with its delta-method standard error and Fieller's set (fieller.ts);
+ * - the alpha decomposition: observed, explainable range with the standard errors of its ends, and
+ *   the unexplained part (zero inside), for both books (the high book's is -w/(1-w) times the low's);
+ * - the moment-inequality test of "noise explains the alpha" and its verdict (momentInequalities.ts).
+ * Numbers are per period in the data's units; computed on the data scaled by a power of two.
+ */
+
+import { scaledExcessReturns } from "../inference/bootstrap/replicates.js";
+import { boundGradients } from "../inference/boundsDelta.js";
+import { longRunCovariance, sampleCovarianceOf } from "../inference/hac/longRun.js";
+import type { HacOptions, LongRunMethod } from "../inference/options.js";
+import { normalQuantile } from "../numerics/normal.js";
+import type { ReturnSample } from "../types.js";
+import { type FiellerSet, fiellerSet, ratioStdError } from "./fieller.js";
+import { type MomentInequalityTest, momentInequalityTest } from "./momentInequalities.js";
+
+export interface AlphaDecomposition {
+  readonly observed: number;
+  /** The observed alpha's interval: estimate -/+ z times its HAC standard error (null without one). */
+  readonly observedLower: number | null;
+  readonly observedUpper: number | null;
+  readonly explainableMin: number;
+  readonly explainableMax: number;
+  readonly explainableMinStdError: number;
+  readonly explainableMaxStdError: number;
+  /** The observed alpha less the nearest explainable one: 0 inside the range. */
+  readonly unexplained: number;
+}
+
+export interface ReturnImpliedInference {
+  /** mean x / lambda; null when lambda is exactly 0. */
+  readonly estimate: number | null;
+  readonly stdError: number | null;
+  readonly fieller: FiellerSet;
+}
+
+export interface Pricing {
+  readonly confidence: number;
+  readonly returnImplied: ReturnImpliedInference;
+  /** Null when the statistics have no sampling variance (an exact fit): nothing to test. */
+  readonly test: MomentInequalityTest | null;
+  readonly alpha: { readonly low: AlphaDecomposition; readonly high: AlphaDecomposition };
+}
+
+export interface PricingOptions {
+  readonly weight: number;
+  readonly confidence: number;
+  readonly longRun: LongRunMethod;
+  readonly hac: HacOptions;
+  /** HAC standard errors of the two CAPM alphas (per period, the data's units), for their intervals. */
+  readonly alphaStdErrors?: { readonly low: number; readonly high: number };
+}
+
+/** The pricing assessment of a solved sample whose books have a positive covariance; null otherwise. */
+export function assessPricing(sample: ReturnSample, options: PricingOptions): Pricing | null {
+  const { weight: w, confidence } = options;
+  const v = 1 - w;
+  const { low: x, high: y, scale } = scaledExcessReturns({ ...sample, weight: w });
+  const n = x.length;
+  let mx = 0;
+  let my = 0;
+  for (let t = 0; t < n; t++) {
+    mx += x[t]!;
+    my += y[t]!;
+  }
+  mx /= n;
+  my /= n;
+  const lambda = w * mx + v * my;
+  let sxx = 0;
+  let syy = 0;
+  let sxy = 0;
+  for (let t = 0; t < n; t++) {
+    const dx = x[t]! - mx;
+    const dy = y[t]! - my;
+    sxx += dx * dx;
+    syy += dy * dy;
+    sxy += dx * dy;
+  }
+  const moments = { weight: w, lowVariance: sxx / (n - 1), highVariance: syy / (n - 1), covariance: sxy / (n - 1) };
+  if (!(moments.covariance > 0)) return null;
+  const { lowVariance: vx, highVariance: vy, covariance: c } = moments;
+  const lower = c / (v * vy + w * c);
+  const upper = vx / (w * vx + v * c);
+  const covXM = w * vx + v * c;
+  const varM = w * w * vx + 2 * w * v * c + v * v * vy;
+  const beta = covXM / varM;
+  const { lower: gl, upper: gu } = boundGradients(moments);
+  const eLow = (lower - beta) * lambda;
+  const eHigh = (upper - beta) * lambda;
+
+  // Influence series of mu_x, lambda, d1 = mu_x - Lb lambda, d2 = U lambda - mu_x and the two ends.
+  const series = Array.from({ length: 6 }, () => new Float64Array(n));
+  const [fa, fb, fd1, fd2, fe1, fe2] = series as [Float64Array, Float64Array, Float64Array, Float64Array, Float64Array, Float64Array];
+  for (let t = 0; t < n; t++) {
+    const dx = x[t]! - mx;
+    const dy = y[t]! - my;
+    const zx = dx * dx - vx;
+    const zy = dy * dy - vy;
+    const zc = dx * dy - c;
+    const ia = dx;
+    const ib = w * dx + v * dy;
+    const iL = gl[1]! * zy + gl[2]! * zc;
+    const iU = gu[0]! * zx + gu[2]! * zc;
+    const iBeta = (w * zx + v * zc - beta * (w * w * zx + 2 * w * v * zc + v * v * zy)) / varM;
+    fa[t] = ia;
+    fb[t] = ib;
+    fd1[t] = ia - lower * ib - lambda * iL;
+    fd2[t] = upper * ib + lambda * iU - ia;
+    fe1[t] = lambda * (iL - iBeta) + (lower - beta) * ib;
+    fe2[t] = lambda * (iU - iBeta) + (upper - beta) * ib;
+  }
+  const omega = options.longRun === "iid" ? sampleCovarianceOf(series) : longRunCovariance(series, options.hac).covariance;
+  const variance = (i: number, j: number): number => omega[i]![j]! / n;
+  const se = (i: number): number => Math.sqrt(Math.max(0, variance(i, i)));
+  const z = normalQuantile(1 - (1 - confidence) / 2);
+
+  const ratio = {
+    numerator: mx,
+    denominator: lambda,
+    numeratorVariance: variance(0, 0),
+    denominatorVariance: variance(1, 1),
+    covariance: variance(0, 1),
+  };
+  const returnImplied: ReturnImpliedInference = {
+    estimate: lambda === 0 ? null : mx / lambda,
+    stdError: ratioStdError(ratio),
+    fieller: fiellerSet(ratio, z),
+  };
+
+  const d: [number, number] = [mx - lower * lambda, upper * lambda - mx];
+  const seD: [number, number] = [se(2), se(3)];
+  const test = seD[0] > 0 && seD[1] > 0 ? momentInequalityTest(d, seD, variance(2, 3) / (seD[0] * seD[1]), n, confidence) : null;
+
+  const observed = mx - beta * lambda;
+  const decomposition = (factor: number, alphaSe: number | undefined): AlphaDecomposition => {
+    // factor 1 for the low book; -w/(1-w) for the high book (its alphas are that multiple of the low's).
+    const ends = [factor * eLow, factor * eHigh];
+    const ses = [Math.abs(factor) * se(4), Math.abs(factor) * se(5)];
+    const minAt = ends[0]! <= ends[1]! ? 0 : 1;
+    const a = factor * observed;
+    const min = ends[minAt]!;
+    const max = ends[1 - minAt]!;
+    const unexplained = a < min ? a - min : a > max ? a - max : 0;
+    return {
+      observed: a / scale,
+      observedLower: alphaSe === undefined ? null : a / scale - z * alphaSe,
+      observedUpper: alphaSe === undefined ? null : a / scale + z * alphaSe,
+      explainableMin: min / scale,
+      explainableMax: max / scale,
+      explainableMinStdError: ses[minAt]! / scale,
+      explainableMaxStdError: ses[1 - minAt]! / scale,
+      unexplained: unexplained / scale,
+    };
+  };
+  return {
+    confidence,
+    returnImplied,
+    test,
+    alpha: { low: decomposition(1, options.alphaStdErrors?.low), high: decomposition(-w / v, options.alphaStdErrors?.high) },
+  };
+}

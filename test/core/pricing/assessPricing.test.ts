@@ -1,0 +1,61 @@
+/**
+ * The pricing assessment against an independent computation (test/fixtures/pricing/pricing_reference.py:
+ * numpy numerical gradients of each statistic in the five moments times the Bartlett long-run
+ * covariance of the moment contributions at lag 8; scipy's normal and bivariate normal for p-values).
+ */
+import { readFileSync } from "node:fs";
+import { describe, expect, it } from "vitest";
+import { assessPricing } from "../../../src/core/pricing/assessPricing.js";
+
+const ref = JSON.parse(readFileSync(new URL("../../fixtures/pricing/pricing-reference.json", import.meta.url), "utf8")) as Record<
+  string,
+  number
+> & { low: number[]; high: number[] };
+
+const relative = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
+
+describe("assessPricing against numpy/scipy (pricing_reference.py)", () => {
+  const pricing = assessPricing(
+    { low: ref.low, high: ref.high },
+    { weight: ref.weight, confidence: ref.confidence, longRun: "hac", hac: { kernel: "bartlett", lags: ref.lags } },
+  );
+  if (pricing === null) throw new Error("no pricing");
+  const tolerance = 1e-7; // the reference's gradients are central differences
+
+  it("the return-implied beta, its delta-method standard error and Fieller's interval", () => {
+    expect(relative(pricing.returnImplied.estimate ?? Number.NaN, ref.returnImplied)).toBeLessThan(1e-12);
+    expect(relative(pricing.returnImplied.stdError ?? Number.NaN, ref.returnImpliedStdError)).toBeLessThan(tolerance);
+    const fieller = pricing.returnImplied.fieller;
+    expect(fieller.shape).toBe("bounded");
+    if (fieller.shape !== "bounded") return;
+    expect(relative(fieller.lower, ref.fiellerLower)).toBeLessThan(tolerance);
+    expect(relative(fieller.upper, ref.fiellerUpper)).toBeLessThan(tolerance);
+  });
+
+  it("the test's t statistics, correlation, statistic and p-values", () => {
+    const test = pricing.test;
+    if (test === null) throw new Error("no test");
+    expect(relative(test.tStats[0], ref.d1 / ref.d1StdError)).toBeLessThan(tolerance);
+    expect(relative(test.tStats[1], ref.d2 / ref.d2StdError)).toBeLessThan(tolerance);
+    expect(relative(test.correlation, ref.correlation)).toBeLessThan(tolerance);
+    expect(relative(test.statistic, ref.statistic)).toBeLessThan(tolerance);
+    expect(relative(test.pValue, ref.pValue)).toBeLessThan(1e-6);
+    expect(relative(test.explainedPValue, ref.explainedPValue)).toBeLessThan(1e-6);
+    expect(test.verdict).toBe("not explained");
+  });
+
+  it("the alpha decomposition of the low book, and the high book's as -w/(1-w) times it", () => {
+    const { low, high } = pricing.alpha;
+    expect(relative(low.observed, ref.observedAlpha)).toBeLessThan(1e-12);
+    expect(relative(low.explainableMin, ref.explainableLow)).toBeLessThan(1e-12);
+    expect(relative(low.explainableMax, ref.explainableHigh)).toBeLessThan(1e-12);
+    expect(relative(low.explainableMinStdError, ref.explainableLowStdError)).toBeLessThan(tolerance);
+    expect(relative(low.explainableMaxStdError, ref.explainableHighStdError)).toBeLessThan(tolerance);
+    expect(relative(low.unexplained, ref.observedAlpha - ref.explainableHigh)).toBeLessThan(1e-12);
+    const k = ref.weight / (1 - ref.weight);
+    expect(high.observed).toBeCloseTo(-k * low.observed, 15);
+    expect(high.explainableMin).toBeCloseTo(-k * low.explainableMax, 15);
+    expect(high.unexplained).toBeCloseTo(-k * low.unexplained, 15);
+    expect(low.observedLower).toBeNull();
+  });
+});
