@@ -7,10 +7,30 @@ import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { assessPricing } from "../../../src/core/pricing/assessPricing.js";
 
-const ref = JSON.parse(readFileSync(new URL("../../fixtures/pricing/pricing-reference.json", import.meta.url), "utf8")) as Record<
-  string,
-  number
-> & { low: number[]; high: number[] };
+type Reference = { low: number[]; high: number[] } & {
+  [key in
+    | "weight"
+    | "lags"
+    | "confidence"
+    | "returnImplied"
+    | "returnImpliedStdError"
+    | "fiellerLower"
+    | "fiellerUpper"
+    | "d1"
+    | "d2"
+    | "d1StdError"
+    | "d2StdError"
+    | "correlation"
+    | "statistic"
+    | "pValue"
+    | "explainedPValue"
+    | "observedAlpha"
+    | "explainableLow"
+    | "explainableHigh"
+    | "explainableLowStdError"
+    | "explainableHighStdError"]: number;
+};
+const ref = JSON.parse(readFileSync(new URL("../../fixtures/pricing/pricing-reference.json", import.meta.url), "utf8")) as Reference;
 
 const relative = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 
