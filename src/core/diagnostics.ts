@@ -16,8 +16,24 @@ export type DiagnosticDetail =
   | { readonly code: "nonpositive-covariance"; readonly covariance: number; readonly correlation: number }
   | { readonly code: "perfect-correlation"; readonly correlation: number }
   | { readonly code: "low-beta-above-one"; readonly upperBound: number }
-  | { readonly code: "market-mean-near-zero"; readonly marketMean: number; readonly tStat: number }
-  | { readonly code: "return-implied-outside-set"; readonly lowBeta: number; readonly min: number; readonly max: number }
+  | { readonly code: "market-mean-near-zero"; readonly marketMean: number; readonly tStat: number; readonly criticalValue: number }
+  | {
+      readonly code: "return-implied-outside-set";
+      readonly lowBeta: number;
+      readonly min: number;
+      readonly max: number;
+      readonly pValue: number;
+      readonly confidence: number;
+    }
+  | {
+      readonly code: "return-implied-outside-not-significant";
+      readonly lowBeta: number;
+      readonly min: number;
+      readonly max: number;
+      /** Null when no test was run (standard errors off). */
+      readonly pValue: number | null;
+      readonly confidence: number | null;
+    }
   | { readonly code: "degenerate-moments"; readonly quantity: string }
   | { readonly code: "uncertainty-unavailable"; readonly observations: number; readonly minimum: number }
   | {
@@ -54,6 +70,7 @@ const severityOf: Record<DiagnosticCode, Severity> = {
   "low-beta-above-one": "warning",
   "market-mean-near-zero": "info",
   "return-implied-outside-set": "warning",
+  "return-implied-outside-not-significant": "info",
   "degenerate-moments": "error",
   "uncertainty-unavailable": "info",
   cancellation: "error",
@@ -64,6 +81,7 @@ const severityOf: Record<DiagnosticCode, Severity> = {
 };
 
 const fmt = (x: number): string => (Number.isFinite(x) ? Number(x.toPrecision(6)).toString() : String(x));
+const fmtP = (p: number): string => (p < 0.0001 ? "< 0.0001" : p.toFixed(4));
 
 /** The one place where diagnostic wording lives. */
 export function describeDiagnostic(detail: DiagnosticDetail): string {
@@ -87,13 +105,23 @@ export function describeDiagnostic(detail: DiagnosticDetail): string {
       );
     case "market-mean-near-zero":
       return (
-        `the mean excess market return ${fmt(detail.marketMean)} is within one standard error of zero (t = ${fmt(detail.tStat)}); ` +
-        "the return-implied structural beta (a ratio of means) is not reported"
+        `the mean excess market return ${fmt(detail.marketMean)} is not distinguishable from zero (t = ${fmt(detail.tStat)}, ` +
+        `within ${fmt(detail.criticalValue)} standard errors): the return-implied structural beta, a ratio of means, has no ` +
+        "bounded confidence interval (Fieller) and is not reported"
       );
     case "return-implied-outside-set":
       return (
         `the return-implied low structural beta ${fmt(detail.lowBeta)} lies outside the identified set ` +
-        `[${fmt(detail.min)}, ${fmt(detail.max)}]: mean returns are not consistent with one priced factor and uncorrelated noise`
+        `[${fmt(detail.min)}, ${fmt(detail.max)}], significantly (p = ${fmtP(detail.pValue)} < ${fmt(1 - detail.confidence)}): ` +
+        "noise in the betas does not explain the mean returns under one priced factor and uncorrelated noise"
+      );
+    case "return-implied-outside-not-significant":
+      return (
+        `the return-implied low structural beta ${fmt(detail.lowBeta)} lies outside the identified set ` +
+        `[${fmt(detail.min)}, ${fmt(detail.max)}] by the point estimates, ` +
+        (detail.pValue === null || detail.confidence === null
+          ? "untested (standard errors are off): no conclusion is drawn"
+          : `but not significantly (p = ${fmtP(detail.pValue)} >= ${fmt(1 - detail.confidence)}): noise can still explain the alpha`)
       );
     case "uncertainty-unavailable":
       return `standard errors and intervals need at least ${detail.minimum} observations (there are ${detail.observations}); none are reported`;

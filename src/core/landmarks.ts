@@ -9,6 +9,8 @@
  */
 
 import { diagnose, type Diagnostic } from "./diagnostics.js";
+import { normalQuantile } from "./numerics/normal.js";
+import { defaultConfidence } from "./parameters.js";
 import { equalNoiseLowBeta, marketMoments, structureAt, type MomentSummary } from "./identify.js";
 import type { Candidate, IdentifiedBounds, Landmarks } from "./types.js";
 
@@ -17,15 +19,24 @@ export interface LandmarkResult {
   readonly diagnostics: readonly Diagnostic[];
 }
 
+/** The two-sided normal critical value of Fieller's condition at `confidence` (1.96 at 0.95). */
+export const fiellerCriticalValue = (confidence: number = defaultConfidence): number => normalQuantile(1 - (1 - confidence) / 2);
+
 /**
  * @param marketMeanStdErr standard error of the mean excess market return (sd / sqrt(n) for a sample,
- *   0 for population moments); the return-implied point is not reported when |mean| is below it.
+ *   0 for population moments); the return-implied point is not reported unless |mean| exceeds
+ *   `criticalValue` times it (Fieller's condition: its confidence set is then bounded, §26, §30).
  */
-export function findLandmarks(m: MomentSummary, bounds: IdentifiedBounds, marketMeanStdErr: number): LandmarkResult {
+export function findLandmarks(
+  m: MomentSummary,
+  bounds: IdentifiedBounds,
+  marketMeanStdErr: number,
+  criticalValue: number = fiellerCriticalValue(),
+): LandmarkResult {
   const market = marketMoments(m);
   const at = (b: number): Candidate => structureAt(b, m, market);
   const diagnostics: Diagnostic[] = [];
-  const returnImplied = returnImpliedCandidate(m, bounds, market.mean, marketMeanStdErr, diagnostics);
+  const returnImplied = returnImpliedCandidate(m, bounds, market.mean, marketMeanStdErr, criticalValue, diagnostics);
   return {
     landmarks: {
       lowNoiseFree: structureAt(bounds.lowBeta.max, m, market, bounds.highBeta.min),
@@ -43,25 +54,30 @@ function returnImpliedCandidate(
   bounds: IdentifiedBounds,
   lambda: number,
   lambdaStdErr: number,
+  criticalValue: number,
   diagnostics: Diagnostic[],
 ): Candidate | null {
-  if (marketMeanNearZero(lambda, lambdaStdErr)) {
+  if (marketMeanNearZero(lambda, lambdaStdErr, criticalValue)) {
     const tStat = lambdaStdErr > 0 ? lambda / lambdaStdErr : 0;
-    diagnostics.push(diagnose({ code: "market-mean-near-zero", marketMean: lambda, tStat }));
+    diagnostics.push(diagnose({ code: "market-mean-near-zero", marketMean: lambda, tStat, criticalValue }));
     return null;
   }
   const lowBeta = m.lowMean / lambda;
   const { min, max } = bounds.lowBeta;
+  // A point estimate outside the set is no evidence by itself: the pricing test (src/core/pricing) decides.
   if (lowBeta < min || lowBeta > max) {
-    diagnostics.push(diagnose({ code: "return-implied-outside-set", lowBeta, min, max }));
+    diagnostics.push(diagnose({ code: "return-implied-outside-not-significant", lowBeta, min, max, pValue: null, confidence: null }));
   }
   if (!structureExists(lowBeta, m.weight)) return null;
   return structureAt(lowBeta, m);
 }
 
-/** The mean excess market return lambda is 0 or within one standard error of 0: no ratio of means is reported. */
-export function marketMeanNearZero(lambda: number, lambdaStdErr: number): boolean {
-  return lambda === 0 || Math.abs(lambda) < lambdaStdErr;
+/**
+ * The mean excess market return lambda is 0 or within `criticalValue` standard errors of 0, so that
+ * Fieller's set for the ratio of means is unbounded: no ratio is reported.
+ */
+export function marketMeanNearZero(lambda: number, lambdaStdErr: number, criticalValue: number = fiellerCriticalValue()): boolean {
+  return lambda === 0 || Math.abs(lambda) <= criticalValue * lambdaStdErr;
 }
 
 /** Both structural betas are positive (0 < b_low < 1/w), so a structure exists at b_low. */
@@ -74,8 +90,14 @@ export function structureExists(lowBeta: number, weight: number): boolean {
  * null when lambda is near zero or no structure exists there (for rolling windows and bootstrap
  * replicates, which keep numbers rather than candidates and diagnostics).
  */
-export function returnImpliedLowBeta(lowMean: number, lambda: number, lambdaStdErr: number, weight: number): number | null {
-  if (marketMeanNearZero(lambda, lambdaStdErr)) return null;
+export function returnImpliedLowBeta(
+  lowMean: number,
+  lambda: number,
+  lambdaStdErr: number,
+  weight: number,
+  criticalValue: number = fiellerCriticalValue(),
+): number | null {
+  if (marketMeanNearZero(lambda, lambdaStdErr, criticalValue)) return null;
   const lowBeta = lowMean / lambda;
   return structureExists(lowBeta, weight) ? lowBeta : null;
 }

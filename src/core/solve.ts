@@ -12,13 +12,13 @@ import { issues, parameterIssue, sampleIssues } from "./arguments.js";
 import { covarianceCancellation, largestValues, magnitudeIssue, type RoundingScales, varianceCancellation } from "./cancellation.js";
 import { diagnose, type Diagnostic } from "./diagnostics.js";
 import { candidateGrid, identifiedBounds, isPerfectCorrelation, marketMoments, noiseFreePoint, type MomentSummary } from "./identify.js";
-import { findLandmarks } from "./landmarks.js";
+import { fiellerCriticalValue, findLandmarks } from "./landmarks.js";
 import { excessCrossProducts } from "./moments.js";
 import { excessResidualSums, lineFitFromSums, type LineSums } from "./regression.js";
 import { failure, success, type Result } from "./result.js";
 import { scaleFor, unitsOf, unscaleDiagnostic, unscaleSolution } from "./scaling.js";
 import type { ReturnSample, SampleMoments, SeriesMoments, Solution, SolveOptions } from "./types.js";
-import { defaultSteps, defaultWeight, minimumObservations } from "./parameters.js";
+import { defaultConfidence, defaultSteps, defaultWeight, minimumObservations } from "./parameters.js";
 
 export { defaultSteps, defaultWeight, minimumObservations };
 
@@ -30,8 +30,15 @@ export { defaultSteps, defaultWeight, minimumObservations };
 export function solve(sample: ReturnSample, options: SolveOptions = {}): Result<Solution, Diagnostic[]> {
   const weight = options.weight ?? defaultWeight;
   const steps = options.steps ?? defaultSteps;
+  const confidence = options.confidence ?? defaultConfidence;
   const invalid = sampleIssues(sample);
-  invalid.push(...issues(parameterIssue("weight", "weight", weight), parameterIssue("steps", "steps", steps)));
+  invalid.push(
+    ...issues(
+      parameterIssue("weight", "weight", weight),
+      parameterIssue("steps", "steps", steps),
+      parameterIssue("confidence", "confidence", confidence),
+    ),
+  );
   if (invalid.length > 0) return failure(invalid);
 
   const n = sample.low.length;
@@ -99,7 +106,7 @@ export function solve(sample: ReturnSample, options: SolveOptions = {}): Result<
     scale,
   );
   const capm = { low: lineFitFromSums(lowSums, lowSsr), high: lineFitFromSums(highSums, highSsr) };
-  const identified = identifySet(summary, steps, moments.market.stdev / Math.sqrt(n), { n, ...scales });
+  const identified = identifySet(summary, steps, moments.market.stdev / Math.sqrt(n), { n, ...scales }, fiellerCriticalValue(confidence));
   return success(unscaleSolution({ observations: n, weight, moments, capm, ...identified }, unitsOf(scale)));
 }
 
@@ -113,6 +120,7 @@ export function identifySet(
   steps: number,
   marketMeanStdErr: number,
   rounding?: RoundingScales & { readonly n: number },
+  criticalValue: number = fiellerCriticalValue(),
 ): Pick<Solution, "bounds" | "grid" | "landmarks" | "diagnostics"> {
   const diagnostics: Diagnostic[] = [];
   const rejected = (d: Diagnostic) => ({ bounds: null, grid: [], landmarks: null, diagnostics: [...diagnostics, d] });
@@ -128,7 +136,7 @@ export function identifySet(
   const point = perfect ? noiseFreePoint(summary) : null;
   const bounds = point?.bounds ?? identifiedBounds(summary);
   if (bounds.lowBeta.max > 1) diagnostics.push(diagnose({ code: "low-beta-above-one", upperBound: bounds.lowBeta.max }));
-  const found = findLandmarks(summary, bounds, marketMeanStdErr);
+  const found = findLandmarks(summary, bounds, marketMeanStdErr, criticalValue);
   diagnostics.push(...found.diagnostics);
   const landmarks =
     point === null

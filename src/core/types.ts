@@ -142,6 +142,11 @@ export interface SolveOptions {
   readonly weight?: number;
   /** Number of grid candidates, endpoints included, at least 2. Default 11. */
   readonly steps?: number;
+  /**
+   * Confidence level of Fieller's condition for reporting the return-implied beta (its set must be
+   * bounded: |mean market| above the normal critical value times its iid standard error). Default 0.95.
+   */
+  readonly confidence?: number;
 }
 
 /** Everything `solve` computes from one sample. */

@@ -17,6 +17,7 @@ import type { JobContext } from "./context.js";
 import { describeInput, loadPairs, type PairLoad, runShape, sampleOf } from "./pairTables.js";
 import { pairsFrom } from "./pairs.js";
 import { tool } from "./tool.js";
+import { pricingFor } from "./pricingStep.js";
 import { uncertaintyFor } from "./uncertaintyStep.js";
 
 /** A message for a person: what a report also carries as a diagnostic, or why a pair failed. */
@@ -98,7 +99,7 @@ async function solveLoaded(load: PairLoad, options: CommandOptions<"solve">, con
   const loaded = load.value;
   const { source, pair } = loaded;
   const sample = sampleOf(loaded);
-  const solved = solve(sample, { weight: options.weight, steps: options.steps });
+  const solved = solve(sample, { weight: options.weight, steps: options.steps, confidence: options.confidence });
   if (!solved.ok) {
     return failed(
       source,
@@ -107,11 +108,15 @@ async function solveLoaded(load: PairLoad, options: CommandOptions<"solve">, con
     );
   }
   const assessed = await uncertaintyFor(sample, solved.value, options, context);
-  const solution = assessed.note === null ? solved.value : { ...solved.value, diagnostics: [...solved.value.diagnostics, assessed.note] };
-  const report: SolveReport = { tool, input: describeInput(loaded, options), solution, uncertainty: assessed.uncertainty };
+  const input = describeInput(loaded, options);
+  // The pricing section, and the return-implied landmark and its diagnostics as the test decides them.
+  const priced = pricingFor(sample, solved.value, assessed.uncertainty, options, input.frequency?.periodsPerYear ?? null);
+  const solution =
+    assessed.note === null ? priced.solution : { ...priced.solution, diagnostics: [...priced.solution.diagnostics, assessed.note] };
+  const report: SolveReport = { tool, input, solution, uncertainty: assessed.uncertainty, pricing: priced.pricing };
   const messages: JobMessage[] = [
     ...loaded.table.warnings.map((w) => ({ severity: "warning" as const, text: describeInputWarning(w) })),
-    ...solved.value.diagnostics
+    ...solution.diagnostics
       .filter((d) => d.severity !== "info")
       .map((d) => ({ severity: d.severity === "error" ? ("error" as const) : ("warning" as const), text: `${source}: ${d.message}` })),
   ];

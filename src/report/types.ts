@@ -5,6 +5,7 @@
 
 import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
 import type { Solution } from "../core/types.js";
+import type { PricingJson } from "../schema/pricing.js";
 import type { SolveOutputJson } from "../schema/solveOutput.js";
 
 export { type ReportFormat, reportFormats } from "./formats.js";
@@ -24,6 +25,8 @@ export interface SolveReport {
   readonly solution: Solution;
   /** Standard errors and intervals; null when not computed (--no-uncertainty, or too few observations). */
   readonly uncertainty: Uncertainty | null;
+  /** Can noise explain the alpha? (methods §30); null when there is no set. */
+  readonly pricing: PricingJson | null;
 }
 
 /** Rendering switches that depend on where the output goes (decided by the CLI). */

@@ -1,5 +1,5 @@
 /**
- * Zod 4 schema of the JSON document `renderJson` writes (schemaVersion 1). This is the contract for
+ * Zod 4 schema of the JSON document `renderJson` writes (schemaVersion 2). This is the contract for
  * anyone reading the output: every object is strict, numbers are finite, absent values are null.
  */
 
@@ -8,6 +8,7 @@ import { unitChoices } from "../input/index.js";
 import { boundsSchema, candidateSchema, diagnosticSchema, landmarksSchema, lineFitSchema, momentsSchema } from "./parts.js";
 import type { Document } from "./document.js";
 import { doc } from "./registry.js";
+import { pricingSchema } from "./pricing.js";
 import { capmHacSchema, hacSettingsSchema, uncertaintySchema } from "./uncertainty.js";
 
 const capmFitSchema = doc(
@@ -68,7 +69,7 @@ export const toolSchema = z.strictObject({ name: z.literal("betabound"), version
 
 export const solveOutputSchema = doc(
   z.strictObject({
-    schemaVersion: z.literal(1),
+    schemaVersion: z.literal(2),
     tool: toolSchema,
     status: doc(z.enum(["ok", "rejected"]), "rejected: the data were read but no identified set can be reported"),
     input: inputSchema,
@@ -81,6 +82,7 @@ export const solveOutputSchema = doc(
     landmarks: landmarksSchema.nullable(),
     diagnostics: z.array(diagnosticSchema),
     uncertainty: uncertaintySchema.nullable(),
+    pricing: pricingSchema.nullable(),
     conventions: conventionsSchema,
   }),
   "betabound solve output",
@@ -92,7 +94,7 @@ export type SolveOutputJson = Document<z.output<typeof solveOutputSchema>>;
 /** A JSON Lines record for a (file, pair) that could not be solved: what was asked and why it failed. */
 export const solveFailureSchema = doc(
   z.strictObject({
-    schemaVersion: z.literal(1),
+    schemaVersion: z.literal(2),
     tool: toolSchema,
     status: z.literal("failed"),
     input: z.strictObject({ source: z.string(), lowColumn: z.string(), highColumn: z.string() }),

@@ -34,7 +34,7 @@ describe("betabound implied", () => {
     const population = await runJson(["implied", ...structure, "--format", "json"]);
     expect(population.code).toBe(exitCodes.ok);
     const { io, stdout } = fakeIo();
-    await run(["simulate", ...structure, "--periods", "240", "--seed", "4"], io);
+    await run(["simulate", ...structure, "--periods", "600", "--seed", "4"], io);
     const solved = await runJson(["solve", "s.csv", "--low", "low", "--high", "high", "--format", "json"], { "s.csv": stdout() });
     for (const key of ["moments", "bounds", "grid", "landmarks"] as const) {
       expect(keyPaths(population.json[key]), key).toEqual(keyPaths(solved.json[key]));

@@ -113,34 +113,42 @@ describe("solve diagnostics, one rule each", () => {
     expect(codes(solveOk(exampleA(5, 7)).diagnostics)).not.toContain("low-beta-above-one");
   });
 
-  test('a mean excess market return within one standard error of 0 (|lambda| < sd_M / sqrt(n)): the info "market-mean-near-zero" and returnImplied null', () => {
-    // Means (0.4, 0.4): lambda = 0.4 < sqrt(23/28) = 0.906.
-    const near = solveWithSet(exampleA(0.4, 0.4));
+  test('a mean excess market return within z = 1.96 standard errors of 0 (Fieller\'s condition at 95%): the info "market-mean-near-zero" and returnImplied null', () => {
+    // Means (1, 1): lambda = 1 <= 1.96 sqrt(23/28) = 1.776 (it passed the old one-standard-error rule).
+    const near = solveWithSet(exampleA(1, 1));
     expect(near.landmarks.returnImplied).toBeNull();
     const d = find(near.diagnostics, "market-mean-near-zero");
     expect(d.severity).toBe("info");
-    expectClose(d.detail.marketMean, 0.4, { rel: 1e-12 });
-    expectClose(d.detail.tStat, 0.4 / marketMeanStdErrA, { rel: 1e-12 });
-    // Means (1, 1): lambda = 1 > 0.906, so the return-implied point is reported.
-    const far = solveWithSet(exampleA(1, 1));
+    expectClose(d.detail.marketMean, 1, { rel: 1e-12 });
+    expectClose(d.detail.tStat, 1 / marketMeanStdErrA, { rel: 1e-12 });
+    expectClose(d.detail.criticalValue, 1.959963984540054, { rel: 1e-12 }); // scipy.stats.norm.ppf(0.975)
+    // At 60% the critical value is 0.8416 (scipy.stats.norm.ppf(0.8)): lambda = 1 > 0.763 passes.
+    expect(nonNull(solveOk(exampleA(1, 1), { confidence: 0.6 }).landmarks?.returnImplied ?? null, "returnImplied").lowBeta).toBeCloseTo(
+      1,
+      12,
+    );
+    // Means (2, 2): lambda = 2 > 1.776, so the return-implied point is reported.
+    const far = solveWithSet(exampleA(2, 2));
     expect(codes(far.diagnostics)).not.toContain("market-mean-near-zero");
     expectClose(nonNull(far.landmarks.returnImplied, "returnImplied").lowBeta, 1, { rel: 1e-12 }); // mean low / lambda
   });
 
-  test('a return-implied low beta outside the set: the warning "return-implied-outside-set", and that landmark has insideSet false', () => {
-    // Means (1, 2): lambda = 3/2, b_mu = 1 / (3/2) = 2/3 < Lb = 5/7 (§1.6 over-identifying check).
-    const s = solveWithSet(exampleA(1, 2));
+  test('a return-implied low beta outside the set by the point estimates: the info "return-implied-outside-not-significant" (untested: solve runs no test), and that landmark has insideSet false', () => {
+    // Means (2, 4): lambda = 3, b_mu = 2 / 3 < Lb = 5/7 (§1.6 over-identifying check).
+    const s = solveWithSet(exampleA(2, 4));
     const landmark = nonNull(s.landmarks.returnImplied, "returnImplied");
     expectClose(landmark.lowBeta, 2 / 3, { rel: 1e-12 });
     expect(landmark.insideSet).toBe(false);
     expect(landmark.highNoiseVariance).toBeLessThan(0); // below Lb the high book's noise variance is negative (§1.2)
-    const d = find(s.diagnostics, "return-implied-outside-set");
-    expect(d.severity).toBe("warning");
+    expect(codes(s.diagnostics)).not.toContain("return-implied-outside-set"); // a warning needs the pricing test
+    const d = find(s.diagnostics, "return-implied-outside-not-significant");
+    expect(d.severity).toBe("info");
+    expect(d.detail.pValue).toBeNull();
     expectClose(d.detail.lowBeta, 2 / 3, { rel: 1e-12 });
     expectClose(d.detail.min, 5 / 7, { rel: 1e-12 });
     expectClose(d.detail.max, 8 / 9, { rel: 1e-12 });
     // Means (5, 7): b_mu = 5/6, inside [5/7, 8/9]: no warning.
-    expect(codes(solveOk(exampleA(5, 7)).diagnostics)).not.toContain("return-implied-outside-set");
+    expect(codes(solveOk(exampleA(5, 7)).diagnostics)).not.toContain("return-implied-outside-not-significant");
   });
 
   test('books more than 1e20 apart in magnitude: solve fails with the error "magnitude-out-of-range", naming the smaller', () => {

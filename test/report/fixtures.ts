@@ -3,6 +3,7 @@
  * drawn from a one-factor model (seeded generator, so every run sees the same numbers).
  */
 
+import type { PricingJson } from "../../src/schema/pricing.js";
 import { solve } from "../../src/core/solve.js";
 import type { Uncertainty } from "../../src/core/inference/uncertaintyTypes.js";
 import type { ReturnSample, Solution, SolveOptions } from "../../src/core/types.js";
@@ -71,9 +72,16 @@ export function reportOf(
   solution: Solution,
   overrides: Partial<InputDescription> = {},
   uncertainty: Uncertainty | null = null,
+  pricing: PricingJson | null = null,
 ): SolveReport {
   const rowsRead = solution.observations + input.rowsDropped;
-  return { tool: { name: "betabound", version: "0.1.0-test" }, input: { ...input, rowsRead, ...overrides }, solution, uncertainty };
+  return {
+    tool: { name: "betabound", version: "0.1.0-test" },
+    input: { ...input, rowsRead, ...overrides },
+    solution,
+    uncertainty,
+    pricing,
+  };
 }
 
 /** A typical sample: identified set, all five landmarks, 11 grid candidates. */

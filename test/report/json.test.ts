@@ -65,7 +65,9 @@ describe("renderJson", () => {
     const json = parse(solution);
     const { observations, weight, moments, capm, bounds, grid, landmarks, diagnostics } = solution;
     const solutionPart = Object.fromEntries(
-      Object.entries(json).filter(([key]) => !["schemaVersion", "tool", "status", "input", "uncertainty", "conventions"].includes(key)),
+      Object.entries(json).filter(
+        ([key]) => !["schemaVersion", "tool", "status", "input", "uncertainty", "pricing", "conventions"].includes(key),
+      ),
     );
     // Without uncertainty the CAPM fits carry hac: null (the HAC part is tested with uncertainty below).
     const capmWithoutHac = { low: { ...capm.low, hac: null }, high: { ...capm.high, hac: null }, hac: null };
@@ -87,13 +89,14 @@ describe("renderJson", () => {
       "landmarks",
       "diagnostics",
       "uncertainty",
+      "pricing",
       "conventions",
     ]);
   });
 
   test("schemaVersion, tool and input are written as given", () => {
     const json = parse(typicalSolution());
-    expect(json.schemaVersion).toBe(1);
+    expect(json.schemaVersion).toBe(2);
     expect(json.tool).toEqual({ name: "betabound", version: "0.1.0-test" });
     expect(json.input).toEqual({ ...input, rowsRead: typicalSolution().observations + input.rowsDropped });
   });
@@ -123,7 +126,7 @@ describe("renderJson", () => {
 
   test("output is pretty-printed with 2 spaces and ends with one newline", () => {
     const text = renderJson(reportOf(typicalSolution()), plain);
-    expect(text.startsWith('{\n  "schemaVersion": 1,\n')).toBe(true);
+    expect(text.startsWith('{\n  "schemaVersion": 2,\n')).toBe(true);
     expect(text.endsWith("}\n")).toBe(true);
     expect(text.endsWith("\n\n")).toBe(false);
   });

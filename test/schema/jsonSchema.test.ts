@@ -25,6 +25,7 @@ describe("solveOutputJsonSchema", () => {
     expect(schema.$schema).toBe("https://json-schema.org/draft/2020-12/schema");
     expect(Object.keys(schema.$defs as object).sort()).toEqual(
       [
+        "AlphaDecomposition",
         "BetaInterval",
         "Bootstrap",
         "Candidate",
@@ -37,6 +38,7 @@ describe("solveOutputJsonSchema", () => {
         "Interval",
         "Landmarks",
         "PointwiseBound",
+        "Pricing",
         "SeriesMoments",
         "SharpeRatio",
         "Uncertainty",

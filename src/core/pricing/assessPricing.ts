@@ -40,6 +40,8 @@ export interface ReturnImpliedInference {
   readonly estimate: number | null;
   readonly stdError: number | null;
   readonly fieller: FiellerSet;
+  /** lambda over its (HAC or iid) standard error. */
+  readonly marketMeanTStat: number;
 }
 
 export interface Pricing {
@@ -133,6 +135,7 @@ export function assessPricing(sample: ReturnSample, options: PricingOptions): Pr
     estimate: lambda === 0 ? null : mx / lambda,
     stdError: ratioStdError(ratio),
     fieller: fiellerSet(ratio, z),
+    marketMeanTStat: se(1) > 0 ? lambda / se(1) : 0,
   };
 
   const d: [number, number] = [mx - lower * lambda, upper * lambda - mx];

@@ -1,11 +1,12 @@
 /**
  * The report for a person at a terminal: what was read, the sample moments, the CAPM regressions,
- * the identified set with its landmarks and candidate grid, the diagnostics and the assumptions, in
- * that order. Pure: colour only when asked, no clock, no terminal queries.
+ * the identified set with its landmarks, the pricing question and the candidate grid, the diagnostics
+ * and the assumptions, in that order. Pure: colour only when asked, no clock, no terminal queries.
  */
 
 import { capmSection, inputSection, momentsSection } from "./textData.js";
 import { assumptionsSection, closingLines, diagnosticsSection } from "./textNotes.js";
+import { pricingSection } from "./textPricing.js";
 import { boundsSection, gridSection, landmarksSection, rejectedSection } from "./textSet.js";
 import { styleFor } from "../layout.js";
 import { bootstrapSection, boundsWithUncertaintySection, precisionSection, sharpeSection } from "./textUncertainty.js";
@@ -38,7 +39,7 @@ export function renderText(report: SolveReport, options: RenderOptions): string 
     sections.push(boundsSection(s.bounds, style));
     if (u !== null) sections.push(boundsWithUncertaintySection(s.bounds, u, style), precisionSection(s, u, style));
     if (s.landmarks !== null) sections.push(landmarksSection(s.landmarks, style));
-    sections.push(gridSection(s, style));
+    sections.push(pricingSection(report.pricing, style), gridSection(s, style));
   }
   if (u !== null) sections.push(sharpeSection(u, report.input.frequency?.periodsPerYear ?? null, style), bootstrapSection(u, style));
   sections.push(diagnosticsSection(s.diagnostics, style), assumptionsSection(s.weight, style), closingLines(report.input.riskFree));

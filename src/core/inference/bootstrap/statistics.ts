@@ -5,13 +5,13 @@
  * give, exactly as `solve` does from a sample (docs/methods.md sections 1.2-1.6, 10, 12):
  * the bounds of both structural betas; both CAPM betas and alphas on M = w x + (1 - w) y; the
  * landmark low betas capmConsistent (the CAPM beta, kept inside the set), equalNoise (the Deming
- * slope with ratio 1) and returnImplied (mean x / mean M, only when |mean M| >= sd(M)/sqrt(n) and
- * 0 < b < 1/w, as in landmarks.ts); and the three Sharpe ratios. Quantities that are undefined on a
- * replicate (no set when C <= 0, no return-implied point) are NaN there.
+ * slope with ratio 1) and returnImplied (the ratio mean x / mean M whenever mean M is not 0: the
+ * percentile interval of the ratio, docs/methods.md §30, must not drop the replicates where the ratio
+ * is poorly determined, which would narrow it); and the three Sharpe ratios. Quantities that are
+ * undefined on a replicate (no set when C <= 0, a zero mean market return) are NaN there.
  */
 
 import { equalNoiseLowBeta, type MomentSummary } from "../../identify.js";
-import { returnImpliedLowBeta } from "../../landmarks.js";
 
 export const bootstrapQuantities = [
   "lowBetaMin",
@@ -62,7 +62,7 @@ export function writeStatistics(m: ResampleMoments, out: Float64Array, offset: n
     upper = Math.max(lower, vl / (w * vl + v * c));
     capmConsistent = Math.min(Math.max(lowBeta, lower), upper);
     equalNoise = Math.min(Math.max(equalNoiseLowBeta(m), lower), upper);
-    returnImplied = returnImpliedLowBeta(m.lowMean, marketMean, Math.sqrt(marketVariance / m.n), w) ?? Number.NaN;
+    returnImplied = marketMean === 0 ? Number.NaN : m.lowMean / marketMean;
   }
   let q = offset;
   out[q] = lower;
