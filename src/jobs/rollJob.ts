@@ -3,6 +3,7 @@
  * is held whole: each pair offers its windows as an iterator (computed in amortised O(1) each), as
  * typed-array columns (for CSV), and as the JSON records `roll --format jsonl` writes, one at a time.
  */
+import { fiellerCriticalValue } from "../core/landmarks.js";
 import { largestValues, magnitudeIssue } from "../core/cancellation.js";
 import { describeDiagnostic } from "../core/diagnostics.js";
 import { excessReturns } from "../core/inference/bootstrap/replicates.js";
@@ -140,7 +141,9 @@ function rollPair(loaded: PairTable, options: CommandOptions<"roll">, spec: Wind
   }
   const meta: RollMeta = { tool, input: describeInput(loaded, options), spec, weight: options.weight, dates: loaded.table.dates };
   const excess = options.uncertainty ? excessReturns({ ...sample, weight: options.weight }) : null;
-  const windows = () => iterateRollSolve(low, high, riskFree, options.weight, spec);
+  // The return-implied point of a window follows Fieller's condition at the report's confidence.
+  const criticalValue = fiellerCriticalValue(options.confidence);
+  const windows = () => iterateRollSolve(low, high, riskFree, options.weight, spec, criticalValue);
   // Only a window with a set has an interval for a point of it.
   const uncertaintyAt = (w: WindowSolution): WindowUncertainty | null =>
     excess === null || w.bounds === null
@@ -151,7 +154,7 @@ function rollPair(loaded: PairTable, options: CommandOptions<"roll">, spec: Wind
     meta,
     messages: warnings,
     windows,
-    columns: () => rollSolveColumns(low, high, riskFree, options.weight, spec),
+    columns: () => rollSolveColumns(low, high, riskFree, options.weight, spec, criticalValue),
     uncertaintyAt,
     record: (window) => rollRecord(meta, window, uncertaintyAt(window)),
     *records() {

@@ -31,6 +31,11 @@ export const uncertaintyColumnNames = [
   "highBetaMaxStdError",
   "lowBetaIntervalLower",
   "lowBetaIntervalUpper",
+  "returnImpliedStdError",
+  "returnImpliedLower",
+  "returnImpliedUpper",
+  "pricingPValue",
+  "pricingVerdict",
 ] as const;
 
 export function rollCsvHeader(withUncertainty: boolean): string {
@@ -67,6 +72,7 @@ export async function writeRollCsv(
     for (const values of series) line += `,${cell(values[k]!)}`;
     if (uncertainty !== null) {
       const u = uncertainty(k);
+      const p = u?.pricing?.returnImpliedLowBeta;
       const values =
         u === null
           ? [Number.NaN, Number.NaN, Number.NaN, Number.NaN, Number.NaN, Number.NaN]
@@ -78,7 +84,9 @@ export async function writeRollCsv(
               u.lowBeta.interval.lower,
               u.lowBeta.interval.upper,
             ];
+      values.push(p?.stdError ?? Number.NaN, p?.lower ?? Number.NaN, p?.upper ?? Number.NaN, u?.pricing?.pValue ?? Number.NaN);
       for (const x of values) line += `,${cell(x)}`;
+      line += `,${u?.pricing?.verdict ?? ""}`;
     }
     chunk += `${line}\n`;
     if (chunk.length > 1 << 20) {
@@ -172,7 +180,11 @@ export function rollTextLines(
         : `${formatNumber(w.landmarks.returnImplied.lowBeta, 4)}${w.landmarks.returnImplied.insideSet ? "" : " (out)"}`,
       ...(!intervals
         ? []
-        : [u === null ? "n/a" : `${formatNumber(u.lowBeta.interval.lower, 4)} to ${formatNumber(u.lowBeta.interval.upper, 4)}`]),
+        : [
+            u === null ? "n/a" : `${formatNumber(u.lowBeta.interval.lower, 4)} to ${formatNumber(u.lowBeta.interval.upper, 4)}`,
+            u?.pricing?.pValue == null ? "n/a" : formatNumber(u.pricing.pValue, 3),
+            u?.pricing?.verdict ?? "n/a",
+          ]),
     ]);
   }
   const level = `${Number((confidence * 100).toPrecision(4))}%`;
@@ -184,7 +196,7 @@ export function rollTextLines(
     "low beta\nmax",
     "width",
     "return-\nimplied",
-    ...(intervals ? [`${level} interval\nfor low beta`] : []),
+    ...(intervals ? [`${level} interval\nfor low beta`, "noise explains\nalpha: p", "verdict"] : []),
   ];
   return [
     style.heading(`${meta.tool.name} ${meta.tool.version}: the identified set through time`),

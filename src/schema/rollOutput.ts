@@ -65,6 +65,23 @@ export const rollOutputSchema = doc(
           correlation: z.number(),
         }),
         lowBeta: betaIntervalSchema,
+        pricing: doc(
+          z
+            .strictObject({
+              returnImpliedLowBeta: z.strictObject({
+                estimate: z.number().nullable(),
+                stdError: z.number().nonnegative().nullable(),
+                lower: doc(z.number().nullable(), "Fieller's lower limit; null when the set is unbounded"),
+                upper: z.number().nullable(),
+                bounded: doc(z.boolean(), "false: the market mean is not distinguishable from 0 in this window"),
+              }),
+              pValue: doc(z.number().min(0).max(1).nullable(), "p-value of 'noise explains the alpha' (methods §30)"),
+              explainedPValue: z.number().min(0).max(1).nullable(),
+              verdict: z.enum(["explained", "not explained", "undetermined"]).nullable(),
+            })
+            .nullable(),
+          "the window's pricing test, as solve's pricing section",
+        ),
       })
       .nullable(),
   }),

@@ -141,3 +141,35 @@ describe("betabound roll", () => {
     expect(stdout).toContain("not investment advice");
   });
 });
+
+describe("roll --uncertainty carries the pricing test per window", () => {
+  it("a window over every row has solve's return-implied interval, p-values and verdict", async () => {
+    const rolled = await roll(["m.csv", ...books, "--rf", "0.002", "--window", "180", "--uncertainty", "--format", "jsonl"]);
+    expect(rolled.code).toBe(exitCodes.ok);
+    const record = JSON.parse(rolled.stdout.trim());
+    const { io, stdout } = fakeIo({ "m.csv": monthly });
+    expect(await run(["solve", "m.csv", ...books, "--rf", "0.002", "--format", "json"], io)).toBe(exitCodes.ok);
+    const solved = JSON.parse(stdout());
+    const window = record.uncertainty.pricing;
+    expect(window.pValue).toBeCloseTo(solved.pricing.test.pValue, 12);
+    expect(window.explainedPValue).toBeCloseTo(solved.pricing.test.explainedPValue, 12);
+    expect(window.verdict).toBe(solved.pricing.test.verdict);
+    expect(window.returnImpliedLowBeta.lower).toBeCloseTo(solved.pricing.returnImpliedLowBeta.lower, 12);
+    expect(window.returnImpliedLowBeta.upper).toBeCloseTo(solved.pricing.returnImpliedLowBeta.upper, 12);
+    expect(window.returnImpliedLowBeta.stdError).toBeCloseTo(solved.pricing.returnImpliedLowBeta.stdError, 12);
+    expect(rollRecordSchema.safeParse(record).success).toBe(true);
+  });
+
+  it("puts the p-value and verdict in the CSV columns and the text table", async () => {
+    const csv = await roll(["m.csv", ...books, "--window", "60", "--step", "30", "--uncertainty", "--format", "csv"]);
+    const windows = parseCsv(csv.stdout);
+    for (const w of windows) {
+      expect(Number(w.pricingPValue)).toBeGreaterThanOrEqual(0);
+      expect(Number(w.pricingPValue)).toBeLessThanOrEqual(1);
+      expect(["explained", "not explained", "undetermined"]).toContain(w.pricingVerdict);
+    }
+    const text = await roll(["m.csv", ...books, "--window", "60", "--step", "30", "--uncertainty"]);
+    expect(text.stdout).toContain("verdict");
+    expect(text.stdout).toMatch(/undetermined|explained/);
+  });
+});

@@ -1,7 +1,8 @@
 /**
- * Delta-method standard errors of the bounds and the Imbens-Manski interval for one window of rows
- * (used by `roll --uncertainty`). The same computation as assessUncertainty's bounds part
- * (boundsDelta.ts, imbensManski.ts), on the window's excess returns only; O(window x lags) per window.
+ * Delta-method standard errors of the bounds, the Imbens-Manski interval and the pricing test for one
+ * window of rows (used by `roll --uncertainty`). The same computation as assessUncertainty's bounds
+ * part (boundsDelta.ts, imbensManski.ts) and solve's pricing step (src/core/pricing), on the window's
+ * excess returns only; O(window x lags) per window.
  */
 
 import type { MomentSummary } from "../identify.js";
@@ -11,6 +12,8 @@ import { normalQuantile } from "../numerics/normal.js";
 import { scaleFor } from "../scaling.js";
 import type { HacOptions, LongRunMethod } from "./options.js";
 import type { BetaInterval, PointwiseBound } from "./uncertaintyTypes.js";
+import { assessPricing } from "../pricing/assessPricing.js";
+import type { PricingVerdict } from "../pricing/momentInequalities.js";
 
 export interface WindowUncertainty {
   readonly confidence: number;
@@ -20,6 +23,22 @@ export interface WindowUncertainty {
     readonly correlation: number;
   };
   readonly lowBeta: { readonly interval: BetaInterval };
+  /** The window's return-implied beta (Fieller) and the test of "noise explains the alpha" (methods §30). */
+  readonly pricing: WindowPricing | null;
+}
+
+export interface WindowPricing {
+  readonly returnImpliedLowBeta: {
+    readonly estimate: number | null;
+    readonly stdError: number | null;
+    /** Fieller's interval; null when unbounded (`bounded` false). */
+    readonly lower: number | null;
+    readonly upper: number | null;
+    readonly bounded: boolean;
+  };
+  readonly pValue: number | null;
+  readonly explainedPValue: number | null;
+  readonly verdict: PricingVerdict | null;
 }
 
 /**
@@ -74,5 +93,32 @@ export function windowUncertainty(
       correlation: delta.correlation,
     },
     lowBeta: { interval: { lower: interval.lower, upper: interval.upper, method: "imbens-manski", criticalValue: interval.criticalValue } },
+    pricing: windowPricing(x, y, summary.weight, options),
+  };
+}
+
+function windowPricing(
+  x: Float64Array,
+  y: Float64Array,
+  weight: number,
+  options: { readonly confidence: number; readonly longRun: LongRunMethod; readonly hac?: HacOptions },
+): WindowPricing | null {
+  const p = assessPricing(
+    { low: x, high: y },
+    { weight, confidence: options.confidence, longRun: options.longRun, hac: options.hac ?? {} },
+  );
+  if (p === null) return null;
+  const { fieller } = p.returnImplied;
+  return {
+    returnImpliedLowBeta: {
+      estimate: p.returnImplied.estimate,
+      stdError: p.returnImplied.stdError,
+      lower: fieller.shape === "bounded" ? fieller.lower : null,
+      upper: fieller.shape === "bounded" ? fieller.upper : null,
+      bounded: fieller.shape === "bounded",
+    },
+    pValue: p.test?.pValue ?? null,
+    explainedPValue: p.test?.explainedPValue ?? null,
+    verdict: p.test?.verdict ?? null,
   };
 }

@@ -13,7 +13,7 @@ import {
   noiseFreePoint,
 } from "../identify.js";
 import { isIdentity, type Units, unitsOf } from "../scaling.js";
-import { returnImpliedLowBeta } from "../landmarks.js";
+import { fiellerCriticalValue, returnImpliedLowBeta } from "../landmarks.js";
 import { scanWindows } from "./scan.js";
 import { type WindowSpec, windowCount } from "./windowPlan.js";
 import { describeWindow, rollingScale, type WindowMoments, windowRejection, windowScales } from "./windows.js";
@@ -76,6 +76,7 @@ export function rollSolveColumns(
   riskFree: number | ArrayLike<number>,
   weight: number,
   spec: WindowSpec,
+  criticalValue: number = fiellerCriticalValue(),
 ): WindowColumns {
   const count = windowCount(low.length, spec);
   const start = new Int32Array(count);
@@ -118,7 +119,8 @@ export function rollSolveColumns(
     }
     const solvable = windowRejection(window, largestRiskFree) === null && m.covariance > 0;
     const rounding = { n: window.observations, ...windowScales(window, largestRiskFree) };
-    if (solvable && covarianceCancellation(rounding.n, m, rounding) === null) writeSetColumns(c, k, m, market, window.observations);
+    if (solvable && covarianceCancellation(rounding.n, m, rounding) === null)
+      writeSetColumns(c, k, m, market, window.observations, criticalValue);
     k++;
   }
   unscaleColumns(c, unitsOf(scale));
@@ -159,6 +161,7 @@ function writeSetColumns(
   m: MomentSummary,
   market: WindowMoments["market"],
   n: number,
+  criticalValue: number,
 ): void {
   // Perfectly correlated books: one point, as identifySet reports it.
   const correlation = m.covariance / (Math.sqrt(m.lowVariance) * Math.sqrt(m.highVariance));
@@ -169,7 +172,7 @@ function writeSetColumns(
   const clamp = (x: number): number => Math.min(Math.max(x, min), max);
   const capmBeta = marketMoments(m).lowCapmBeta; // as findLandmarks takes it
   const lambda = w * m.lowMean + v * m.highMean;
-  const implied = returnImpliedLowBeta(m.lowMean, lambda, Math.sqrt(market.variance) / Math.sqrt(n), w) ?? Number.NaN;
+  const implied = returnImpliedLowBeta(m.lowMean, lambda, Math.sqrt(market.variance) / Math.sqrt(n), w, criticalValue) ?? Number.NaN;
   const values = [
     min,
     max,

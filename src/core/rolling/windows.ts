@@ -34,6 +34,7 @@ import {
   unscaleSummary,
 } from "../scaling.js";
 import { identifySet } from "../solve.js";
+import { fiellerCriticalValue } from "../landmarks.js";
 import type { IdentifiedBounds, Landmarks, LineFit, Maybe } from "../types.js";
 import { scanWindows, type WindowSums } from "./scan.js";
 import type { WindowSpec } from "./windowPlan.js";
@@ -126,8 +127,9 @@ export function rollSolve(
   riskFree: number | ArrayLike<number>,
   weight: number,
   spec: WindowSpec,
+  criticalValue: number = fiellerCriticalValue(),
 ): WindowSolution[] {
-  return Array.from(iterateRollSolve(low, high, riskFree, weight, spec));
+  return Array.from(iterateRollSolve(low, high, riskFree, weight, spec, criticalValue));
 }
 
 /** `rollSolve` one window at a time (memory independent of the number of windows). */
@@ -137,11 +139,12 @@ export function* iterateRollSolve(
   riskFree: number | ArrayLike<number>,
   weight: number,
   spec: WindowSpec,
+  criticalValue: number = fiellerCriticalValue(),
 ): Generator<WindowSolution, void, undefined> {
   const { scale, largestRiskFree } = rollingScale(low, high, riskFree);
   const units = unitsOf(scale);
   for (const raw of scanWindows(low, high, riskFree, weight, spec, scale)) {
-    yield unscaleWindow(solveWindow(describeWindow(raw, weight), largestRiskFree), units);
+    yield unscaleWindow(solveWindow(describeWindow(raw, weight), largestRiskFree, criticalValue), units);
   }
 }
 
@@ -171,7 +174,7 @@ export function windowScales(window: WindowMoments, largestRiskFree: number): Ro
  * The identified set of one window from its moments (solve's checks, in solve's order).
  * `largestRiskFree`: the largest |risk-free return| at the windows' scale (rollingScale).
  */
-export function solveWindow(window: WindowMoments, largestRiskFree = 0): WindowSolution {
+export function solveWindow(window: WindowMoments, largestRiskFree = 0, criticalValue: number = fiellerCriticalValue()): WindowSolution {
   const { start, end, observations, summary, market, capm } = window;
   const rejection = windowRejection(window, largestRiskFree);
   if (rejection !== null) {
@@ -179,7 +182,8 @@ export function solveWindow(window: WindowMoments, largestRiskFree = 0): WindowS
     return { start, end, observations, summary, market, capm: null, bounds: null, landmarks: null, diagnostics };
   }
   const rounding = { n: observations, ...windowScales(window, largestRiskFree) };
-  const { bounds, landmarks, diagnostics } = identifySet(summary, 2, Math.sqrt(market.variance) / Math.sqrt(observations), rounding);
+  const marketMeanStdErr = Math.sqrt(market.variance) / Math.sqrt(observations);
+  const { bounds, landmarks, diagnostics } = identifySet(summary, 2, marketMeanStdErr, rounding, criticalValue);
   return { start, end, observations, summary, market, capm, bounds, landmarks, diagnostics };
 }
 
