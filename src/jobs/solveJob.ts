@@ -18,6 +18,7 @@ import { describeInput, loadPairs, type PairLoad, runShape, sampleOf } from "./p
 import { pairsFrom } from "./pairs.js";
 import { tool } from "./tool.js";
 import { uncertaintyFor } from "./uncertaintyStep.js";
+import { modelColumns, modelsFor, modelWarnings } from "./modelsStep.js";
 
 /** A message for a person: what a report also carries as a diagnostic, or why a pair failed. */
 export interface JobMessage {
@@ -88,7 +89,7 @@ export async function solveJob(
 export async function solvePlanned(files: readonly string[], plan: SolveJobPlan, context: JobContext): Promise<SolveJobResult> {
   const { options, several } = plan;
   const pairs: SolvedPair[] = [];
-  for await (const load of loadPairs(files, pairsFrom(options), options, context.read))
+  for await (const load of loadPairs(files, pairsFrom(options), options, context.read, modelColumns(options)))
     pairs.push(await solveLoaded(load, options, context));
   return { options, pairs, several };
 }
@@ -108,10 +109,11 @@ async function solveLoaded(load: PairLoad, options: CommandOptions<"solve">, con
   }
   const assessed = await uncertaintyFor(sample, solved.value, options, context);
   const solution = assessed.note === null ? solved.value : { ...solved.value, diagnostics: [...solved.value.diagnostics, assessed.note] };
-  const report: SolveReport = { tool, input: describeInput(loaded, options), solution, uncertainty: assessed.uncertainty };
+  const models = modelsFor(loaded, sample, solution, assessed.uncertainty, options);
+  const report: SolveReport = { tool, input: describeInput(loaded, options), solution, uncertainty: assessed.uncertainty, ...models };
   const messages: JobMessage[] = [
     ...loaded.table.warnings.map((w) => ({ severity: "warning" as const, text: describeInputWarning(w) })),
-    ...solved.value.diagnostics
+    ...[...solved.value.diagnostics, ...modelWarnings(models)]
       .filter((d) => d.severity !== "info")
       .map((d) => ({ severity: d.severity === "error" ? ("error" as const) : ("warning" as const), text: `${source}: ${d.message}` })),
   ];

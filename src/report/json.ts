@@ -9,6 +9,7 @@ import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
 import type { Solution } from "../core/types.js";
 import type { SolveOutputJson } from "../schema/solveOutput.js";
 import { conventionsFor } from "./conventions.js";
+import { indexOutput, sensitivityOutput } from "./modelsJson.js";
 import type { InputDescription, RenderOptions, SolveReport } from "./types.js";
 
 export const schemaVersion = 1 as const;
@@ -65,6 +66,8 @@ export function toSolveOutput(report: SolveReport): SolveOutput {
     landmarks: s.landmarks,
     diagnostics: s.diagnostics,
     uncertainty: uncertaintyOutput(report.uncertainty),
+    index: indexOutput(report.index),
+    sensitivity: sensitivityOutput(report.sensitivity),
     conventions: conventionsFor(report),
   };
 }

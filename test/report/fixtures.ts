@@ -73,7 +73,14 @@ export function reportOf(
   uncertainty: Uncertainty | null = null,
 ): SolveReport {
   const rowsRead = solution.observations + input.rowsDropped;
-  return { tool: { name: "betabound", version: "0.1.0-test" }, input: { ...input, rowsRead, ...overrides }, solution, uncertainty };
+  return {
+    tool: { name: "betabound", version: "0.1.0-test" },
+    input: { ...input, rowsRead, ...overrides },
+    solution,
+    uncertainty,
+    index: null,
+    sensitivity: null,
+  };
 }
 
 /** A typical sample: identified set, all five landmarks, 11 grid candidates. */

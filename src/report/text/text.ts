@@ -8,6 +8,7 @@ import { capmSection, inputSection, momentsSection } from "./textData.js";
 import { assumptionsSection, closingLines, diagnosticsSection } from "./textNotes.js";
 import { boundsSection, gridSection, landmarksSection, rejectedSection } from "./textSet.js";
 import { styleFor } from "../layout.js";
+import { modelSections } from "./textModels.js";
 import { bootstrapSection, boundsWithUncertaintySection, precisionSection, sharpeSection } from "./textUncertainty.js";
 import type { RenderOptions, SolveReport } from "../types.js";
 
@@ -40,6 +41,7 @@ export function renderText(report: SolveReport, options: RenderOptions): string 
     if (s.landmarks !== null) sections.push(landmarksSection(s.landmarks, style));
     sections.push(gridSection(s, style));
   }
+  sections.push(...modelSections(report, style));
   if (u !== null) sections.push(sharpeSection(u, report.input.frequency?.periodsPerYear ?? null, style), bootstrapSection(u, style));
   sections.push(diagnosticsSection(s.diagnostics, style), assumptionsSection(s.weight, style), closingLines(report.input.riskFree));
   return `${sections
