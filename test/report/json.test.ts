@@ -65,7 +65,9 @@ describe("renderJson", () => {
     const json = parse(solution);
     const { observations, weight, moments, capm, bounds, grid, landmarks, diagnostics } = solution;
     const solutionPart = Object.fromEntries(
-      Object.entries(json).filter(([key]) => !["schemaVersion", "tool", "status", "input", "uncertainty", "conventions"].includes(key)),
+      Object.entries(json).filter(
+        ([key]) => !["schemaVersion", "tool", "status", "input", "uncertainty", "index", "sensitivity", "conventions"].includes(key),
+      ),
     );
     // Without uncertainty the CAPM fits carry hac: null (the HAC part is tested with uncertainty below).
     const capmWithoutHac = { low: { ...capm.low, hac: null }, high: { ...capm.high, hac: null }, hac: null };
@@ -87,8 +89,12 @@ describe("renderJson", () => {
       "landmarks",
       "diagnostics",
       "uncertainty",
+      "index",
+      "sensitivity",
       "conventions",
     ]);
+    // The extensions are null unless asked for (--index, --noise-correlation).
+    expect(parse(typicalSolution())).toMatchObject({ index: null, sensitivity: null });
   });
 
   test("schemaVersion, tool and input are written as given", () => {
