@@ -33,7 +33,7 @@ export function modelSections(report: Pick<SolveReport, "index" | "sensitivity">
 export function indexSection(index: IndexReport, style: Style): string[] {
   const heading = style.heading(`Model with an independent index (column "${printable(index.column)}")`);
   const intro =
-    "With a third indicator of the factor the structural betas are point identified (docs: methods §3). " +
+    "With a third indicator of the factor the structural betas are point identified. " +
     "It assumes the index's noise is uncorrelated with both books' noises.";
   const withBootstrap = index.bootstrapStdErrors !== null;
   const header = ["", "estimate", "std. error", ...(withBootstrap ? ["bootstrap\nstd. error"] : [])];
@@ -81,7 +81,7 @@ export function sensitivitySection(entries: SensitivityReport, style: Style): st
   const note =
     "The identified set when the books' noises are correlated (rho): negative rho leaves the bounds as they are, " +
     "positive rho below the books' observed correlation widens them, and from that correlation on the structures " +
-    "that fit no longer form an interval (docs: methods §2).";
+    "that fit no longer form an interval.";
   return [
     style.heading("Sensitivity to correlated noise"),
     ...table({
