@@ -7,7 +7,19 @@ import { indexParameterNames, type IndexParameter } from "../../core/models/inde
 import type { SensitivityKind } from "../../core/models/correlatedNoise.js";
 import { formatNumber, notAvailable } from "../format.js";
 import { fields, indent, printable, table, wrap, type Style } from "../layout.js";
+import type { Diagnostic } from "../../core/diagnostics.js";
 import type { IndexReport, SensitivityReport, SolveReport } from "../types.js";
+
+/** A section's own diagnostics, each with its severity, under it (the report's Diagnostics are the two-book model's). */
+function diagnosticLines(diagnostics: readonly Diagnostic[], style: Style): string[] {
+  const seen = new Set<string>();
+  return diagnostics
+    .filter((d) => !seen.has(d.message) && seen.add(d.message))
+    .flatMap((d) => {
+      const label = d.severity === "error" ? style.error(d.severity) : d.severity === "warning" ? style.warning(d.severity) : d.severity;
+      return wrap(printable(d.message), `${indent}${label}: `, `${indent}  `);
+    });
+}
 
 const parameterLabels: Record<IndexParameter, string> = {
   lowBeta: "low structural beta",
@@ -47,17 +59,18 @@ export function indexSection(index: IndexReport, style: Style): string[] {
   return [
     heading,
     ...wrap(intro, indent, indent),
-    ...(identified ? table({ header, rows }) : [`${indent}Not estimated: see Diagnostics.`]),
+    ...(identified ? table({ header, rows }) : [`${indent}Not estimated:`]),
     ...(identified
       ? fields([
           [
             "sign condition",
             yesNo(index.signCondition, "holds (the three covariances' product is positive)", "fails: no one-factor structure fits"),
           ],
-          ["admissible", yesNo(index.admissible, "yes", "no (see Diagnostics; negative noise variances are shown as computed)")],
+          ["admissible", yesNo(index.admissible, "yes", "no (negative noise variances are shown as computed)")],
           ["in the two-book set", yesNo(index.insideSet, "yes", "no: the index and the books disagree on the structure")],
         ])
       : []),
+    ...diagnosticLines(index.diagnostics, style),
   ];
 }
 
@@ -90,5 +103,9 @@ export function sensitivitySection(entries: SensitivityReport, style: Style): st
     }),
     "",
     ...wrap(note, indent, indent),
+    ...diagnosticLines(
+      entries.flatMap((e) => e.diagnostics),
+      style,
+    ),
   ];
 }
