@@ -100,6 +100,14 @@ describe("a simulated sample (numpy, T = 2,000, seed 20261215: test/fixtures/mod
     for (const name of indexParameterNames) expectClose(solved.stdErrors![name], fixture.iidStdErrors[name]!, { rel: 1e-6 });
   });
 
+  it("with a HAC lag of 0 gives the iid standard errors times sqrt((n - 1) / n) (divisor n against n - 1)", () => {
+    const iid = solveIndex(sample, { ...plain, uncertainty: { longRun: "iid", hac: {} } });
+    const lagZero = solveIndex(sample, { ...plain, uncertainty: { longRun: "hac", hac: { lags: 0 } } });
+    const n = fixture.observations;
+    for (const name of indexParameterNames)
+      expectClose(lagZero.stdErrors![name], iid.stdErrors![name]! * Math.sqrt((n - 1) / n), { rel: 1e-9 });
+  });
+
   it("covers the truth within 3.5 HAC standard errors for every parameter", () => {
     const solved = solveIndex(sample, plain);
     for (const name of indexParameterNames) {
