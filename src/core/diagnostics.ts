@@ -51,7 +51,18 @@ export type DiagnosticDetail =
     }
   | { readonly code: "invalid-number"; readonly argument: string; readonly index: number; readonly value: string }
   | { readonly code: "length-mismatch"; readonly argument: string; readonly length: number; readonly expected: number }
-  | { readonly code: "invalid-argument"; readonly argument: string; readonly value: string; readonly expected: string };
+  | { readonly code: "invalid-argument"; readonly argument: string; readonly value: string; readonly expected: string }
+  // The independent index (docs/methods.md §3) and the correlated-noise sensitivity (§2).
+  | { readonly code: "index-constant"; readonly variance: number }
+  | { readonly code: "index-out-of-range"; readonly largest: number }
+  | { readonly code: "index-not-identified"; readonly quantity: IndexCovariance; readonly value: number }
+  | { readonly code: "index-sign-condition"; readonly lowHigh: number; readonly lowIndex: number; readonly highIndex: number }
+  | { readonly code: "index-heywood"; readonly series: "low" | "high" | "index"; readonly noiseVariance: number }
+  | { readonly code: "noise-correlation-not-an-interval"; readonly noiseCorrelation: number; readonly correlation: number }
+  | { readonly code: "noise-correlation-no-set"; readonly noiseCorrelation: number };
+
+/** The covariances the index model divides by: of the books, of each book with the index, of the market proxy with it. */
+export type IndexCovariance = "lowHigh" | "lowIndex" | "highIndex" | "marketIndex";
 
 export type DiagnosticCode = DiagnosticDetail["code"];
 
@@ -78,6 +89,20 @@ const severityOf: Record<DiagnosticCode, Severity> = {
   "invalid-number": "error",
   "length-mismatch": "error",
   "invalid-argument": "error",
+  "index-constant": "warning",
+  "index-out-of-range": "warning",
+  "index-not-identified": "warning",
+  "index-sign-condition": "warning",
+  "index-heywood": "warning",
+  "noise-correlation-not-an-interval": "warning",
+  "noise-correlation-no-set": "warning",
+};
+
+const covarianceNames: Record<IndexCovariance, string> = {
+  lowHigh: "low and high",
+  lowIndex: "low and the index",
+  highIndex: "high and the index",
+  marketIndex: "the market proxy and the index",
 };
 
 const fmt = (x: number): string => (Number.isFinite(x) ? Number(x.toPrecision(6)).toString() : String(x));
@@ -149,6 +174,42 @@ export function describeDiagnostic(detail: DiagnosticDetail): string {
       return `${detail.argument} has ${detail.length} values where ${detail.expected} are expected: the series must be aligned`;
     case "invalid-argument":
       return `${detail.argument} is ${detail.value}: it must be ${detail.expected}`;
+    case "index-constant":
+      return (
+        `the index series is constant (or varies only in the last digits of its numbers; variance ${fmt(detail.variance)}), ` +
+        "so it carries no information on the factor and the model with an index is not estimated; check that the right column was chosen"
+      );
+    case "index-out-of-range":
+      return (
+        `the index series' values reach ${fmt(detail.largest)} in absolute value, outside ${magnitudeRange.min} to ${magnitudeRange.max}, ` +
+        "where its variance leaves double precision; the model with an index is not estimated (rescale the column)"
+      );
+    case "index-not-identified":
+      return (
+        `the covariance of ${covarianceNames[detail.quantity]} is ${fmt(detail.value)}, zero or at the level of the numbers' rounding: ` +
+        "the model with an index divides by it, so its betas are not identified and none are reported"
+      );
+    case "index-sign-condition":
+      return (
+        `the covariances of the books and the index (low-high ${fmt(detail.lowHigh)}, low-index ${fmt(detail.lowIndex)}, ` +
+        `high-index ${fmt(detail.highIndex)}) have a negative product: no one-factor structure fits them (the implied factor ` +
+        "variance is negative); the estimates are shown but are not admissible"
+      );
+    case "index-heywood":
+      return (
+        `the model with an index implies a negative ${detail.series} noise variance (${fmt(detail.noiseVariance)}), a Heywood case: ` +
+        "no admissible structure reproduces the three series' moments; the value is reported as computed, not set to zero"
+      );
+    case "noise-correlation-not-an-interval":
+      return (
+        `an assumed noise correlation of ${fmt(detail.noiseCorrelation)} is at or above the books' observed correlation ` +
+        `${fmt(detail.correlation)}: the structures that fit no longer form an interval of betas, so no bounds are reported for it`
+      );
+    case "noise-correlation-no-set":
+      return (
+        `no bounds for a noise correlation of ${fmt(detail.noiseCorrelation)}: the books' covariance is not positive ` +
+        "(or not determined by the data), and the sensitivity analysis starts from the identified set, which does not exist here"
+      );
   }
 }
 

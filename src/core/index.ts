@@ -51,3 +51,20 @@ export { landmarkNames } from "./types.js";
 export { implied, type ImpliedSolution, type PopulationFit } from "./forward/implied.js";
 export * from "./inference/index.js";
 export { defaultConfidence, maximumReplicates, maximumSteps, parameters, type Rule } from "./parameters.js";
+export {
+  correlatedNoiseSet,
+  noiseStructuresAt,
+  type NoiseMoments,
+  type NoiseSensitivity,
+  type NoiseStructure,
+  type SensitivityKind,
+} from "./models/correlatedNoise.js";
+export {
+  indexJacobian,
+  indexParameterNames,
+  indexPoint,
+  type IndexEstimates,
+  type IndexMoments,
+  type IndexParameter,
+} from "./models/indexModel.js";
+export { solveIndex, type IndexOptions, type IndexSample, type IndexSolution, type IndexValues } from "./models/indexSolve.js";

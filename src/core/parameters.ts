@@ -168,6 +168,8 @@ export const parameters = {
   windowLength: integerRule(minimumObservations, 100_000_000),
   /** Rows between consecutive windows. */
   windowStep: integerRule(1, 100_000_000),
+  /** An assumed correlation of the books' noises (docs/methods.md §2). */
+  noiseCorrelation: numberRule({ gte: -1, lte: 1 }),
 } as const satisfies Record<string, Rule<number>>;
 
 export type ParameterName = keyof typeof parameters;

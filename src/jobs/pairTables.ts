@@ -55,6 +55,8 @@ export interface PairTable {
   readonly keys: TableKeys;
   readonly riskFree: RiskFreeSource;
   readonly join: JoinDescription | null;
+  /** Further columns asked for (an index), aligned with the books, by their names. */
+  readonly extras: ReadonlyMap<string, Float64Array>;
 }
 
 export interface PairError {
@@ -98,16 +100,21 @@ export function runShape(files: readonly string[], options: ReadingOptions & Par
   };
 }
 
-/** Every (file, pair) of a run, read in order; `files` empty means standard input. */
+/**
+ * Every (file, pair) of a run, read in order; `files` empty means standard input. `extras`: further
+ * columns read with each pair (rows missing one are dropped as for the books; when joining, from the
+ * low book's file).
+ */
 export async function* loadPairs(
   files: readonly string[],
   pairs: readonly Pair[],
   options: ReadingOptions,
   read: ReadSource,
+  extras: readonly string[] = [],
 ): AsyncGenerator<PairLoad> {
   const joined = joinedSides(files, options);
   if (joined !== null) {
-    yield await loadJoined(joined, options, read);
+    yield await loadJoined(joined, options, read, extras);
     return;
   }
   for (const file of files.length === 0 ? ["-"] : files) {
@@ -121,11 +128,14 @@ export async function* loadPairs(
     const riskFree = riskFreeSource(options);
     for (const pair of pairs) {
       // Validates the encoding and parses straight from the bytes (decodeText + readReturns semantics).
-      const table = readReturnsFromBytes(bytes.value, readOptions(source, [pair.low, pair.high, ...riskFreeColumn(riskFree)], options));
+      const columns = [pair.low, pair.high, ...riskFreeColumn(riskFree)];
+      const more = extras.filter((name) => !columns.includes(name));
+      const table = readReturnsFromBytes(bytes.value, readOptions(source, [...columns, ...more], options));
       if (!table.ok) yield { ok: false, source, pair, errors: inputErrors(table.issues) };
       else {
         const keys = { low: pair.low, high: pair.high, riskFree: riskFree.kind === "column" ? riskFree.column : null };
-        yield { ok: true, value: { source, pair, table: table.value, keys, riskFree, join: null } };
+        const found = new Map(extras.map((name) => [name, table.value.columns.get(name)!]));
+        yield { ok: true, value: { source, pair, table: table.value, keys, riskFree, join: null, extras: found } };
       }
     }
   }
@@ -162,14 +172,23 @@ export function describeInput(loaded: PairTable, options: ReadingOptions): Input
   };
 }
 
-async function loadJoined(sides: { low: Side; high: Side }, options: ReadingOptions, read: ReadSource): Promise<PairLoad> {
+async function loadJoined(
+  sides: { low: Side; high: Side },
+  options: ReadingOptions,
+  read: ReadSource,
+  extras: readonly string[],
+): Promise<PairLoad> {
   const source = `${sourceName(sides.low.file)} + ${sourceName(sides.high.file)}`;
   const pair = { low: sides.low.column, high: sides.high.column };
   const fail = (errors: PairError[]): PairLoad => ({ ok: false, source, pair, errors });
   const riskFree = riskFreeSource(options);
   const tables: ReturnTable[] = [];
   for (const [key, side, extra] of [
-    ["low", sides.low, riskFreeColumn(riskFree)],
+    [
+      "low",
+      sides.low,
+      [...riskFreeColumn(riskFree), ...extras.filter((name) => name !== sides.low.column && !riskFreeColumn(riskFree).includes(name))],
+    ],
     ["high", sides.high, []],
   ] as const) {
     const bytes = await read(side.file);
@@ -194,7 +213,9 @@ async function loadJoined(sides: { low: Side; high: Side }, options: ReadingOpti
     matched,
   };
   const keys = { low: "low", high: "high", riskFree: riskFree.kind === "column" ? `rf:${riskFree.column}` : null };
-  return { ok: true, value: { source, pair, table, keys, riskFree, join } };
+  // The low file's further columns are keyed "rf:NAME" as its risk-free column is.
+  const found = new Map(extras.map((name) => [name, table.columns.get(name === sides.low.column ? "low" : `rf:${name}`)!]));
+  return { ok: true, value: { source, pair, table, keys, riskFree, join, extras: found } };
 }
 
 function riskFreeSource(options: ReadingOptions): RiskFreeSource {

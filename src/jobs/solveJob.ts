@@ -19,6 +19,7 @@ import { pairsFrom } from "./pairs.js";
 import { tool } from "./tool.js";
 import { pricingFor } from "./pricingStep.js";
 import { uncertaintyFor } from "./uncertaintyStep.js";
+import { modelColumns, modelsFor, modelWarnings } from "./modelsStep.js";
 
 /** A message for a person: what a report also carries as a diagnostic, or why a pair failed. */
 export interface JobMessage {
@@ -89,7 +90,7 @@ export async function solveJob(
 export async function solvePlanned(files: readonly string[], plan: SolveJobPlan, context: JobContext): Promise<SolveJobResult> {
   const { options, several } = plan;
   const pairs: SolvedPair[] = [];
-  for await (const load of loadPairs(files, pairsFrom(options), options, context.read))
+  for await (const load of loadPairs(files, pairsFrom(options), options, context.read, modelColumns(options)))
     pairs.push(await solveLoaded(load, options, context));
   return { options, pairs, several };
 }
@@ -113,10 +114,11 @@ async function solveLoaded(load: PairLoad, options: CommandOptions<"solve">, con
   const priced = pricingFor(sample, solved.value, assessed.uncertainty, options, input.frequency?.periodsPerYear ?? null);
   const solution =
     assessed.note === null ? priced.solution : { ...priced.solution, diagnostics: [...priced.solution.diagnostics, assessed.note] };
-  const report: SolveReport = { tool, input, solution, uncertainty: assessed.uncertainty, pricing: priced.pricing };
+  const models = modelsFor(loaded, sample, solution, assessed.uncertainty, options);
+  const report: SolveReport = { tool, input, solution, uncertainty: assessed.uncertainty, pricing: priced.pricing, ...models };
   const messages: JobMessage[] = [
     ...loaded.table.warnings.map((w) => ({ severity: "warning" as const, text: describeInputWarning(w) })),
-    ...solution.diagnostics
+    ...[...solution.diagnostics, ...modelWarnings(models)]
       .filter((d) => d.severity !== "info")
       .map((d) => ({ severity: d.severity === "error" ? ("error" as const) : ("warning" as const), text: `${source}: ${d.message}` })),
   ];

@@ -166,6 +166,26 @@ export function columnOrNumberKind(): Kind<string> {
   };
 }
 
+/** One number following `rule`, or several separated by commas; in a file a number or an array of them. */
+export function numberListKind(rule: Rule<number>): Kind<readonly number[]> {
+  const expected = `${rule.expected}, or several such numbers separated by commas`;
+  const error = `must be ${expected}`;
+  const number = () => z.number({ error }).check(z.refine(rule.accept, { error }));
+  return {
+    expected,
+    parse: (text) => {
+      const values = text.split(",").map((part) => parseDecimal(part.trim()));
+      return values.every((x): x is number => x !== null && rule.accept(x)) ? values : undefined;
+    },
+    schema: () =>
+      z.pipe(
+        z.union([number(), z.array(number(), { error }).check(z.minLength(1, { error }))], { error }),
+        z.transform((value: number | number[]) => (typeof value === "number" ? [value] : value)),
+      ) as unknown as z.ZodMiniType<readonly number[]>,
+    show: (value) => value.join(","),
+  };
+}
+
 /** "auto" or a number following `rule`. */
 export function autoOrNumberKind(rule: Rule<number>): Kind<number | "auto"> {
   const expected = `"auto" or ${rule.expected}`;

@@ -12,15 +12,16 @@
 import { generatorOptions } from "./table/generators.js";
 import { inferenceOptions } from "./table/inference.js";
 import { inputOptions } from "./table/books.js";
+import { modelOptions } from "./table/models.js";
 import { reportOptions } from "./table/outputs.js";
 
 export { type CommandName, commandNames, type OptionGroup, type OptionSpec, optionGroups } from "./spec.js";
 
 /** Every option, in the order help and the README show them. */
-export const optionTable = { ...inputOptions, ...reportOptions, ...inferenceOptions, ...generatorOptions } as const;
+export const optionTable = { ...inputOptions, ...reportOptions, ...modelOptions, ...inferenceOptions, ...generatorOptions } as const;
 
 /** The parts, for a test that no key of one hides a key of another. */
-export const optionTableParts = [inputOptions, reportOptions, inferenceOptions, generatorOptions] as const;
+export const optionTableParts = [inputOptions, reportOptions, modelOptions, inferenceOptions, generatorOptions] as const;
 
 export type OptionTable = typeof optionTable;
 export type OptionKey = keyof OptionTable;

@@ -9,6 +9,7 @@ import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
 import type { Solution } from "../core/types.js";
 import type { SolveOutputJson } from "../schema/solveOutput.js";
 import { conventionsFor } from "./conventions.js";
+import { indexOutput, sensitivityOutput } from "./modelsJson.js";
 import type { InputDescription, RenderOptions, SolveReport } from "./types.js";
 
 export const schemaVersion = 2 as const;
@@ -66,6 +67,8 @@ export function toSolveOutput(report: SolveReport): SolveOutput {
     diagnostics: s.diagnostics,
     uncertainty: uncertaintyOutput(report.uncertainty),
     pricing: report.pricing,
+    index: indexOutput(report.index),
+    sensitivity: sensitivityOutput(report.sensitivity),
     conventions: conventionsFor(report),
   };
 }

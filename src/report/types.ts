@@ -4,6 +4,8 @@
  */
 
 import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
+import type { NoiseSensitivity } from "../core/models/correlatedNoise.js";
+import type { IndexSolution } from "../core/models/indexSolve.js";
 import type { Solution } from "../core/types.js";
 import type { PricingJson } from "../schema/pricing.js";
 import type { SolveOutputJson } from "../schema/solveOutput.js";
@@ -27,7 +29,17 @@ export interface SolveReport {
   readonly uncertainty: Uncertainty | null;
   /** Can noise explain the alpha? (methods §30); null when there is no set. */
   readonly pricing: PricingJson | null;
+  /** The model with an independent index (--index); null when not asked for. */
+  readonly index: IndexReport | null;
+  /** The identified set under each assumed noise correlation (--noise-correlation); null when not asked for. */
+  readonly sensitivity: SensitivityReport | null;
 }
+
+/** The model with an independent index, and the column it was read from. */
+export type IndexReport = IndexSolution & { readonly column: string };
+
+/** One entry per assumed noise correlation, in the order asked. */
+export type SensitivityReport = readonly NoiseSensitivity[];
 
 /** Rendering switches that depend on where the output goes (decided by the CLI). */
 export interface RenderOptions {

@@ -147,6 +147,18 @@ export const diagnosticDetailSchema = z.discriminatedUnion("code", [
   z.strictObject({ code: z.literal("invalid-number"), argument: z.string(), index: z.int(), value: z.string() }),
   z.strictObject({ code: z.literal("length-mismatch"), argument: z.string(), length: z.int(), expected: z.int() }),
   z.strictObject({ code: z.literal("invalid-argument"), argument: z.string(), value: z.string(), expected: z.string() }),
+  // The model with an index and the correlated-noise sensitivity (index and sensitivity entries).
+  z.strictObject({ code: z.literal("index-constant"), variance: z.number() }),
+  z.strictObject({ code: z.literal("index-out-of-range"), largest: z.number() }),
+  z.strictObject({
+    code: z.literal("index-not-identified"),
+    quantity: z.enum(["lowHigh", "lowIndex", "highIndex", "marketIndex"]),
+    value: z.number(),
+  }),
+  z.strictObject({ code: z.literal("index-sign-condition"), lowHigh: z.number(), lowIndex: z.number(), highIndex: z.number() }),
+  z.strictObject({ code: z.literal("index-heywood"), series: z.enum(["low", "high", "index"]), noiseVariance: z.number() }),
+  z.strictObject({ code: z.literal("noise-correlation-not-an-interval"), noiseCorrelation: z.number(), correlation: z.number() }),
+  z.strictObject({ code: z.literal("noise-correlation-no-set"), noiseCorrelation: z.number() }),
 ]);
 
 export const diagnosticCodes = diagnosticDetailSchema.options.map((option) => option.shape.code.value);

@@ -7,6 +7,7 @@ import * as z from "zod";
 import { unitChoices } from "../input/index.js";
 import { boundsSchema, candidateSchema, diagnosticSchema, landmarksSchema, lineFitSchema, momentsSchema } from "./parts.js";
 import type { Document } from "./document.js";
+import { indexOutputSchema, sensitivityEntrySchema } from "./models.js";
 import { doc } from "./registry.js";
 import { pricingSchema } from "./pricing.js";
 import { capmHacSchema, hacSettingsSchema, uncertaintySchema } from "./uncertainty.js";
@@ -83,6 +84,11 @@ export const solveOutputSchema = doc(
     diagnostics: z.array(diagnosticSchema),
     uncertainty: uncertaintySchema.nullable(),
     pricing: pricingSchema.nullable(),
+    index: doc(indexOutputSchema.nullable(), "the model with an independent index (--index); null when not asked for"),
+    sensitivity: doc(
+      z.array(sensitivityEntrySchema).nullable(),
+      "the identified set under each assumed noise correlation (--noise-correlation); null when not asked for",
+    ),
     conventions: conventionsSchema,
   }),
   "betabound solve output",

@@ -33,6 +33,14 @@ function data(name: string, lows: readonly number[], highs: readonly number[]): 
   return path;
 }
 
+/** A CSV file date,low,high,index; its path. */
+function withIndex(name: string, lows: readonly number[], highs: readonly number[], index: readonly number[]): string {
+  const path = join(scratch, `${name}.csv`);
+  const lines = lows.map((l, t) => `${dates[t]},${l},${highs[t]},${index[t]}`);
+  writeFileSync(path, `date,low,high,index\n${lines.join("\n")}\n`);
+  return path;
+}
+
 const n = 60;
 const first = (x: readonly number[], count = n) => x.slice(0, count);
 const scaled = (x: readonly number[], factor: number) => first(x).map((v) => v * factor);
@@ -93,6 +101,17 @@ const files = {
     first(low),
     first(high).map((h, t) => (t < 30 ? h : -0.5 * low[t]! + 0.2 * h)),
   ),
+  // An index column beside the books (docs/methods.md §3): the market proxy itself (a Heywood case), a
+  // constant, values of 1e-300, and an index on perfectly correlated books.
+  indexIsMarket: withIndex(
+    "index-market",
+    first(low),
+    first(high),
+    first(low).map((l, t) => (l + high[t]!) / 2),
+  ),
+  indexConstant: withIndex("index-constant", first(low), first(high), first(low).fill(0.002)),
+  indexTiny: withIndex("index-tiny", first(low), first(high), scaled(high, 1e-300)),
+  indexOnPerfect: withIndex("index-perfect", first(low), scaled(low, 2), scaled(high, 0.5)),
 };
 const ab = ["--low", "low", "--high", "high"];
 
@@ -170,6 +189,13 @@ const cases: Case[] = [
   ...solveOn("on three rows (the minimum)", files.threeRows, 0),
   ...solveOn("on nine rows (no uncertainty)", files.nineRows, 0),
   ...solveOn("on ten rows (the minimum for uncertainty), with a bootstrap", files.tenRows, 0, ["--bootstrap", "50", "--hac-prewhite"]),
+  ...solveOn("with the market proxy as the index (a Heywood case)", files.indexIsMarket, 0, ["--index", "index"], "Heywood"),
+  ...solveOn("with a constant index", files.indexConstant, 0, ["--index", "index", "--bootstrap", "50"], "index series is constant"),
+  ...solveOn("with an index of 1e-300", files.indexTiny, 0, ["--index", "index"], "outside 1e-100 to 1e+100"),
+  ...solveOn("with an index on perfectly correlated books", files.indexOnPerfect, 0, ["--index", "index", "--bootstrap", "50"]),
+  ...solveOn("with an index column that is not there", files.example, 2, ["--index", "index"], '"index"'),
+  ...solveOn("with noise correlations -1, 0 and 1 on identical books", files.identical, 0, ["--noise-correlation", "-1,0,1"]),
+  ...solveOn("with noise correlations on a negative covariance", files.negative, 3, ["--noise-correlation", "-0.5,0.5"], "no bounds"),
   ...rollOn("a window with a negative covariance", files.negativeWindow, 0, ["--window", "12", "--step", "6", "--uncertainty"]),
   ...rollOn("over identical books", files.identical, 0, ["--window", "10", "--step", "7", "--uncertainty"]),
   ...rollOn("over columns that differ by 1e-17", files.cancellation, 0, ["--window", "12", "--step", "12"]),
@@ -194,6 +220,11 @@ const cases: Case[] = [
   option("solve", "--confidence", "0.99991", 1),
   option("solve", "--confidence", "1e-300", 1),
   option("solve", "--confidence", "0.9999999999999999", 1),
+  option("solve", "--noise-correlation", "-1", 0),
+  option("solve", "--noise-correlation", "1", 0, ["--format", "json"]),
+  option("solve", "--noise-correlation", "-1.0001", 1),
+  option("solve", "--noise-correlation", "0.5,1.0001", 1),
+  option("solve", "--noise-correlation", "0.3,", 1),
   option("solve", "--steps", "2", 0),
   option("solve", "--steps", "1", 1),
   option("solve", "--steps", "100000", 0, ["--format", "csv", "--no-uncertainty"]),

@@ -81,6 +81,8 @@ export function reportOf(
     solution,
     uncertainty,
     pricing,
+    index: null,
+    sensitivity: null,
   };
 }
 

@@ -66,7 +66,8 @@ describe("renderJson", () => {
     const { observations, weight, moments, capm, bounds, grid, landmarks, diagnostics } = solution;
     const solutionPart = Object.fromEntries(
       Object.entries(json).filter(
-        ([key]) => !["schemaVersion", "tool", "status", "input", "uncertainty", "pricing", "conventions"].includes(key),
+        ([key]) =>
+          !["schemaVersion", "tool", "status", "input", "uncertainty", "pricing", "index", "sensitivity", "conventions"].includes(key),
       ),
     );
     // Without uncertainty the CAPM fits carry hac: null (the HAC part is tested with uncertainty below).
@@ -90,8 +91,12 @@ describe("renderJson", () => {
       "diagnostics",
       "uncertainty",
       "pricing",
+      "index",
+      "sensitivity",
       "conventions",
     ]);
+    // The extensions are null unless asked for (--index, --noise-correlation).
+    expect(parse(typicalSolution())).toMatchObject({ index: null, sensitivity: null });
   });
 
   test("schemaVersion, tool and input are written as given", () => {

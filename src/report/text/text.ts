@@ -9,6 +9,7 @@ import { assumptionsSection, closingLines, diagnosticsSection } from "./textNote
 import { pricingSection } from "./textPricing.js";
 import { boundsSection, gridSection, landmarksSection, rejectedSection } from "./textSet.js";
 import { styleFor } from "../layout.js";
+import { modelSections } from "./textModels.js";
 import { bootstrapSection, boundsWithUncertaintySection, precisionSection, sharpeSection } from "./textUncertainty.js";
 import type { RenderOptions, SolveReport } from "../types.js";
 
@@ -41,6 +42,7 @@ export function renderText(report: SolveReport, options: RenderOptions): string 
     if (s.landmarks !== null) sections.push(landmarksSection(s.landmarks, style));
     sections.push(pricingSection(report.pricing, style), gridSection(s, style));
   }
+  sections.push(...modelSections(report, style));
   if (u !== null) sections.push(sharpeSection(u, report.input.frequency?.periodsPerYear ?? null, style), bootstrapSection(u, style));
   sections.push(diagnosticsSection(s.diagnostics, style), assumptionsSection(s.weight, style), closingLines(report.input.riskFree));
   return `${sections
