@@ -66,7 +66,7 @@ export const inferenceOptions = {
   hacBandwidth: option(choiceKind(automaticBandwidths), {
     name: "hacBandwidth",
     argument: "<rule>",
-    help: "automatic HAC bandwidth rule",
+    help: "automatic HAC bandwidth rule; auto: 6 sqrt(T) on each bound's own series with fixed-b critical values for the set's bounds, Newey-West (1994) for the CAPM and Sharpe ratios",
     group: "uncertainty",
     commands: ["solve"],
     default: defaultHac.bandwidth,
