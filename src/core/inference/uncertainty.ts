@@ -4,8 +4,8 @@
  * - CAPM alphas and betas: HAC covariance of each book's regression on the market proxy (hac.ts).
  * - Bounds of the identified set: delta method with a long-run (HAC) or iid Omega (boundsDelta.ts),
  *   or bootstrap standard errors (`intervalSource: "bootstrap"`); pointwise limits estimate -/+ z k se
- *   with z = Phi^{-1}(1 - alpha/2) and k the fixed-b factor of the bound's bandwidth (1 with bootstrap
- *   standard errors or "iid").
+ *   with z = Phi^{-1}(1 - alpha/2) and k the fixed-b factor of the bound's bandwidth (with bootstrap
+ *   standard errors, of twice the mean block length; 1 for "iid").
  * - The structural betas themselves: Imbens & Manski (2004) interval (default) or Stoye (2009),
  *   covering the true beta (a point of the set) with the stated probability, cut to the admissible
  *   range 0 <= b_low <= 1/w (0 <= b_high <= 1/(1 - w)). The high beta's interval
@@ -21,6 +21,7 @@
 import { boundsDeltaFromData } from "./boundsDelta.js";
 import { bootstrapSolve, type BootstrapSummary } from "./bootstrap/summary.js";
 import { hacCovariance } from "./hac/hac.js";
+import { stationaryBootstrapFixedBFactor } from "./hac/fixedB.js";
 import { admissibleInterval, imbensManskiInterval, type ParameterInterval } from "./imbensManski.js";
 import { leastSquares } from "../numerics/leastSquares.js";
 import { normalQuantile } from "../numerics/normal.js";
@@ -126,10 +127,11 @@ function uncertaintyOf(
 
   const delta = boundsDeltaFromData(low, high, moments, longRun, hac, confidence);
   const z = normalQuantile(1 - (1 - confidence) / 2);
-  // Delta-method limits take the fixed-b factor of each bound's bandwidth (boundsLongRun.ts); the
-  // bootstrap's standard errors the normal quantile.
-  const factorLower = usedSource === "bootstrap" ? 1 : delta.lowBeta.min.criticalFactor;
-  const factorUpper = usedSource === "bootstrap" ? 1 : delta.lowBeta.max.criticalFactor;
+  // Delta-method limits take the fixed-b factor of each bound's bandwidth (boundsLongRun.ts), the
+  // bootstrap's standard errors that of the bandwidth equivalent to its mean block length (fixedB.ts).
+  const bootstrapFactor = bootstrap === null ? 1 : stationaryBootstrapFixedBFactor(bootstrap.blockLength, n, confidence);
+  const factorLower = usedSource === "bootstrap" ? bootstrapFactor : delta.lowBeta.min.criticalFactor;
+  const factorUpper = usedSource === "bootstrap" ? bootstrapFactor : delta.lowBeta.max.criticalFactor;
   const pointwise = (estimate: number, stdError: number, factor: number): PointwiseBound => ({
     estimate,
     stdError,

@@ -64,10 +64,13 @@ describe("the bounds", () => {
     expectClose(min.upper, min.estimate + z975 * min.stdError, { rel: 1e-14 });
   });
 
-  test("with bootstrap standard errors pointwise limits are estimate -/+ z_0.975 se", () => {
+  test("with bootstrap standard errors (block length b) the critical value is the fixed-b one at bandwidth 2b", () => {
     const boot = assessUncertainty(input, { weight: w, intervalSource: "bootstrap", bootstrap: { replicates: 100, blockLength: 5 } });
     const min = boot.bounds!.lowBeta.min;
-    expectClose(min.lower, min.estimate - z975 * min.stdError, { rel: 1e-14 });
+    const b = (2 * 5) / 600;
+    const critical = 1.96 + 2.9694 * b + 0.416 * b ** 2 - 0.5324 * b ** 3;
+    expectClose(min.lower, min.estimate - critical * min.stdError, { rel: 1e-9 });
+    expectClose(min.upper, min.estimate + critical * min.stdError, { rel: 1e-9 });
   });
 
   test("the high beta's standard errors are the low beta's times w/(1 - w), ends swapped", () => {

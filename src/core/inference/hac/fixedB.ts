@@ -76,3 +76,15 @@ export function bartlettFixedBFactor(b: number, confidence: number): number {
   const p = 1 - (1 - confidence) / 2;
   return bartlettFixedBQuantile(b, p) / normalQuantile(p);
 }
+
+/**
+ * The fixed-b factor for a standard error from the stationary bootstrap with mean block length
+ * `blockLength` on n rows: the Bartlett factor at the equivalent bandwidth 2 blockLength. The
+ * bootstrap's variance of a mean is a lag-window estimate with weights about (1 - 1/b)^k ~ exp(-k/b)
+ * (docs/methods.md §7.1); under fixed-b its expected share of the long-run variance is about
+ * 1 - (b/n) Int k(x) dx, which is 1 - 2b/n for these weights and 1 - S/n for Bartlett's: the two
+ * agree at S = 2b (an approximation of this project, checked by the coverage study).
+ */
+export function stationaryBootstrapFixedBFactor(blockLength: number, n: number, confidence: number): number {
+  return bartlettFixedBFactor((2 * blockLength) / n, confidence);
+}
