@@ -10,7 +10,7 @@
  * of the bound it drives instead of being averaged with the others.
  *
  * Bandwidth rules (HacOptions): a fixed `lags` L (bandwidth L + 1) or number for both; "auto"
- * (default) with the Bartlett kernel: S = 6 sqrt(T) for both, with fixed-b critical values
+ * (default) with the Bartlett kernel: S = 6 sqrt(T) (at most T) for both, with fixed-b critical values
  * (fixedB.ts); "newey-west-1994" or "andrews-1991" (or "auto" with the quadratic-spectral kernel, which
  * is Newey-West 1994 there): the rule applied to each f_t. The correlation of the two estimates comes
  * from the 2 x 2 kernel sum of (f_low, f_up) at the larger of the two bandwidths (a positive
@@ -85,7 +85,7 @@ export function boundsLongRun(
       : typeof rule === "number"
         ? hac
         : rule === "auto" && kernel === "bartlett"
-          ? { ...hac, bandwidth: autoBandwidthPerRootT * Math.sqrt(n) }
+          ? { ...hac, bandwidth: Math.min(autoBandwidthPerRootT * Math.sqrt(n), n) }
           : null;
   const factor = (bandwidth: number) => (kernel === "bartlett" ? bartlettFixedBFactor(bandwidth / n, confidence) : 1);
   // Newey-West 1994 with the Bartlett kernel rounds S down to the lag floor(S): weights 1 - j/(floor(S) + 1).
@@ -114,7 +114,10 @@ export function boundsLongRun(
   const upperSum = kernelSum([upper], perStatistic, [1]);
   const wider = Math.max(effective(lowerSum, perStatistic), effective(upperSum, perStatistic));
   const joint =
-    wider > 0 ? kernelSum([lower, upper], { ...hac, bandwidth: wider }, [1, 1]) : kernelSum([lower, upper], { ...hac, lags: 0 }, [1, 1]);
+    // Both series identically 0 (the rules are then undefined): lag 0 alone, the same sum for every kernel.
+    wider > 0
+      ? kernelSum([lower, upper], { ...hac, bandwidth: wider }, [1, 1])
+      : kernelSum([lower, upper], { ...hac, kernel: "bartlett", lags: 0 }, [1, 1]);
   const v11 = joint.sum[0]![0]!;
   const v22 = joint.sum[1]![1]!;
   const correlation = v11 > 0 && v22 > 0 ? joint.sum[0]![1]! / Math.sqrt(v11 * v22) : 0;

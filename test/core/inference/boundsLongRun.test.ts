@@ -58,6 +58,13 @@ describe("per-bound long-run variances", () => {
     expect(lr.lower.criticalFactor).toBeGreaterThan(1);
   });
 
+  test("identically zero influence series (identical books) under an automatic rule and the quadratic-spectral kernel: zero variances", () => {
+    const zero = [new Float64Array(50), new Float64Array(50), new Float64Array(50)];
+    const lr = boundsLongRun(zero, gradients, { bandwidth: "andrews-1991", kernel: "quadratic-spectral" }, 0.95);
+    expect([lr.lower.variance, lr.upper.variance, lr.covariance]).toEqual([0, 0, 0]);
+    expect(lr.lower.bandwidth).toBe(0);
+  });
+
   test("the quadratic-spectral kernel keeps normal critical values", () => {
     const lr = boundsLongRun(z, gradients, { kernel: "quadratic-spectral" }, 0.95);
     expect(lr.lower.criticalFactor).toBe(1);
