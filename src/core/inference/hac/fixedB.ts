@@ -45,11 +45,11 @@ function matchedDegreesOfFreedom(b: number): number {
   const target = kieferVogelsang975(b) * Math.sqrt(bartlettFixedBMean(b));
   const z = normalQuantile(0.975);
   if (!(target > z * (1 + 1e-9))) return Number.POSITIVE_INFINITY;
-  // t_nu^{-1}(0.975) falls from 12.7 (nu = 1) to z; search log(nu).
-  const gap = (logNu: number) => studentTQuantile(0.975, Math.exp(logNu)) - target;
-  if (gap(0) <= 0) return 1;
-  if (gap(Math.log(1e9)) >= 0) return 1e9;
-  return Math.exp(findRoot(gap, 0, Math.log(1e9), { tolerance: 1e-10 }));
+  // nu with P(|T_nu| >= target) = 0.05: the tail probability falls as nu grows; search log(nu).
+  const excess = (logNu: number) => studentTTwoSidedP(target, Math.exp(logNu)) - 0.05;
+  if (excess(0) <= 0) return 1;
+  if (excess(Math.log(1e9)) >= 0) return 1e9;
+  return Math.exp(findRoot(excess, 0, Math.log(1e9), { tolerance: 1e-12 }));
 }
 
 let last: { b: number; p: number; value: number } | null = null;
@@ -61,8 +61,13 @@ let last: { b: number; p: number; value: number } | null = null;
 export function bartlettFixedBQuantile(b: number, p: number): number {
   const within = Math.min(1, Math.max(0, b));
   if (last !== null && last.b === within && last.p === p) return last.value;
+  // At 97.5% (the default 95% level) the matched t gives Kiefer-Vogelsang's function itself.
   const value =
-    within === 0 ? normalQuantile(p) : studentTQuantile(p, matchedDegreesOfFreedom(within)) / Math.sqrt(bartlettFixedBMean(within));
+    within === 0
+      ? normalQuantile(p)
+      : p === 0.975
+        ? kieferVogelsang975(within)
+        : studentTQuantile(p, matchedDegreesOfFreedom(within)) / Math.sqrt(bartlettFixedBMean(within));
   last = { b: within, p, value };
   return value;
 }
