@@ -107,6 +107,8 @@ for (const scenario of scenarios) {
   const blockLengths: number[] = [];
   let lowerBootstrapCovered = 0;
   let upperBootstrapCovered = 0;
+  let lowerPercentileCovered = 0;
+  let upperPercentileCovered = 0;
   for (let rep = 0; rep < reps; rep++) {
     const sample = drawSample(scenario.structure, { periods: n, seed: 100_000 + rep, ...scenario.simulation });
     const bootstrap =
@@ -139,6 +141,11 @@ for (const scenario of scenarios) {
       const bl = b.bounds!.lowBeta;
       if (bl.min.lower <= population.min && population.min <= bl.min.upper) lowerBootstrapCovered++;
       if (bl.max.lower <= population.max && population.max <= bl.max.upper) upperBootstrapCovered++;
+      // The bootstrap's own percentile intervals of the two bounds (not adjusted for the block length).
+      const pl = u.bootstrap.intervals.lowBetaMin;
+      const pu = u.bootstrap.intervals.lowBetaMax;
+      if (pl !== null && pl.lower <= population.min && population.min <= pl.upper) lowerPercentileCovered++;
+      if (pu !== null && pu.lower <= population.max && population.max <= pu.upper) upperPercentileCovered++;
     }
   }
   const seconds = ((performance.now() - started) / 1000).toFixed(1);
@@ -152,6 +159,12 @@ for (const scenario of scenarios) {
   if (bootstrapReplicates > 0) {
     console.log(`| pointwise 95% CI of the lower bound (bootstrap se) covers the population lower bound | ${pct(lowerBootstrapCovered)} |`);
     console.log(`| pointwise 95% CI of the upper bound (bootstrap se) covers the population upper bound | ${pct(upperBootstrapCovered)} |`);
+    console.log(
+      `| bootstrap 95% percentile interval of the lower bound covers the population lower bound | ${pct(lowerPercentileCovered)} |`,
+    );
+    console.log(
+      `| bootstrap 95% percentile interval of the upper bound covers the population upper bound | ${pct(upperPercentileCovered)} |`,
+    );
   }
   const ratio = (se: number[], est: number[]) =>
     `${mean(se).toExponential(4)} / ${sd(est).toExponential(4)} = ${(mean(se) / sd(est)).toFixed(3)}`;

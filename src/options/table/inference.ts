@@ -122,7 +122,7 @@ export const inferenceOptions = {
   blockLength: option(autoOrNumberKind(parameters.blockLength), {
     name: "blockLength",
     argument: "<b|auto>",
-    help: "mean block length of the bootstrap; auto: 3 sqrt(T), at most T/3 (intervals from its standard errors take fixed-b critical values)",
+    help: "mean block length of the bootstrap; auto: 3 sqrt(T), at most T/3 (its intervals are widened by the fixed-b factor of twice the block length)",
     group: "bootstrap",
     commands: ["solve"],
     default: defaultBlockLength,

@@ -37,6 +37,8 @@ export interface BootstrapRange {
   readonly from: number;
   readonly to: number;
   readonly blockLength: number;
+  /** Rows of the data resampled (the fixed-b factor of the summary's intervals depends on blockLength / rows). */
+  readonly rows: number;
   readonly draws: Float64Array;
 }
 
@@ -153,7 +155,7 @@ export function bootstrapRange(data: BootstrapData, plan: Omit<BootstrapPlan, "r
   if (scale !== 1) {
     for (const q of alphaQuantities) for (let i = q * count; i < (q + 1) * count; i++) draws[i] = draws[i]! / scale;
   }
-  return { from, to, blockLength, draws };
+  return { from, to, blockLength, rows: n, draws };
 }
 
 /** The positions of the CAPM alphas in `bootstrapQuantities` (the statistics in the returns' units). */
@@ -241,6 +243,7 @@ export function mergeBootstrapRanges(ranges: readonly BootstrapRange[], replicat
   for (const range of sorted) {
     if (range.from !== next) throw new RangeError(`mergeBootstrapRanges: replicates [${next}, ${range.from}) are missing or overlap`);
     if (range.blockLength !== sorted[0]!.blockLength) throw new RangeError("mergeBootstrapRanges: ranges used different block lengths");
+    if (range.rows !== sorted[0]!.rows) throw new RangeError("mergeBootstrapRanges: ranges resampled different data");
     next = range.to;
   }
   if (next !== replicates) throw new RangeError(`mergeBootstrapRanges: ranges end at ${next}, expected ${replicates}`);
@@ -251,5 +254,5 @@ export function mergeBootstrapRanges(ranges: readonly BootstrapRange[], replicat
       draws.set(range.draws.subarray(q * count, (q + 1) * count), q * replicates + range.from);
     }
   }
-  return { from: 0, to: replicates, blockLength: sorted[0]?.blockLength ?? 1, draws };
+  return { from: 0, to: replicates, blockLength: sorted[0]?.blockLength ?? 1, rows: sorted[0]?.rows ?? 0, draws };
 }
