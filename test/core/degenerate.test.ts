@@ -210,7 +210,7 @@ describe("degenerate estimating functions and resamples", () => {
     const draws = new Float64Array(quantityCount * 3).fill(0.5);
     draws[0] = Infinity;
     draws[1] = Number.NaN;
-    const summary = summariseBootstrap({ from: 0, to: 3, blockLength: 1, draws }, 1, 0.95);
+    const summary = summariseBootstrap({ from: 0, to: 3, blockLength: 1, rows: 10, draws }, 1, 0.95);
     expect(summary.validReplicates.lowBetaMin).toBe(1);
     expect(summary.intervals.lowBetaMin).toBeNull();
   });

@@ -6,16 +6,20 @@
  *   dLb/d(V_l, V_h, C) = (0, -(1-w) C / D_l^2, (1-w) V_h / D_l^2),
  *   dU /d(V_l, V_h, C) = ((1-w) C / D_u^2, 0, -(1-w) V_l / D_u^2).
  * Var(theta_hat) ~ g' Omega g / T and Cov(Lb_hat, U_hat) ~ g_l' Omega g_u / T, where Omega is the
- * long-run covariance of z_t = ((x_t - xbar)^2, (y_t - ybar)^2, (x_t - xbar)(y_t - ybar)) (HAC,
- * longRun.ts) or, for "iid", its sample covariance (divisor T - 1). Estimating the means inside z_t
- * has no first-order effect. The high beta's bounds follow from b_high = (1 - w b_low)/(1 - w): the
+ * long-run covariance of z_t = ((x_t - xbar)^2, (y_t - ybar)^2, (x_t - xbar)(y_t - ybar)) or, for
+ * "iid", its sample covariance (divisor T - 1). Estimating the means inside z_t has no first-order
+ * effect. With "hac", g' Omega g is the long-run variance of each bound's own influence series
+ * g'(z_t - zbar), at the bandwidth chosen on that series, with the fixed-b factor of its critical
+ * values (boundsLongRun.ts). The high beta's bounds follow from b_high = (1 - w b_low)/(1 - w): the
  * minimum of b_high comes from U and the maximum from Lb, with standard errors times w/(1 - w); the
  * correlation of the two bound estimates is unchanged.
  */
 
 import { bilinear, type Matrix } from "../numerics/linearAlgebra.js";
-import { longRunCovariance, sampleCovarianceOf } from "./hac/longRun.js";
+import { sampleCovarianceOf } from "./hac/longRun.js";
+import { boundsLongRun } from "./boundsLongRun.js";
 import type { HacKernel, HacOptions, LongRunMethod } from "./options.js";
+import { defaultConfidence } from "../parameters.js";
 
 export interface SecondMoments {
   readonly weight: number;
@@ -27,6 +31,11 @@ export interface SecondMoments {
 export interface BoundStdErrors {
   readonly estimate: number;
   readonly stdError: number;
+  /**
+   * What multiplies a normal quantile to give this bound's critical value: the fixed-b factor of its
+   * Bartlett bandwidth (hac/fixedB.ts), 1 for "iid" and the quadratic-spectral kernel.
+   */
+  readonly criticalFactor: number;
 }
 
 export interface BoundsDelta {
@@ -37,7 +46,7 @@ export interface BoundsDelta {
 }
 
 export interface BoundsDeltaFromData extends BoundsDelta {
-  readonly omega: Matrix;
+  /** Bandwidth and lags: the larger of the two bounds' (the same for both under "auto" or fixed lags). */
   readonly longRun: {
     readonly method: LongRunMethod;
     readonly kernel: HacKernel | null;
@@ -60,21 +69,45 @@ export function boundGradients(m: SecondMoments): { lower: number[]; upper: numb
 
 /** Standard errors and correlation of the bounds from Omega (3 x 3, order V_low, V_high, C) and T. */
 export function boundsDelta(m: SecondMoments, omega: Matrix, observations: number): BoundsDelta {
-  const w = m.weight;
   const { lower: gl, upper: gu } = boundGradients(m);
-  // A quadratic form of a positive semi-definite Omega: negative only by rounding (a singular Omega,
-  // as with perfectly correlated books), where the standard error is 0.
-  const lowerSe = Math.sqrt(Math.max(0, bilinear(gl, omega, gl)) / observations);
-  const upperSe = Math.sqrt(Math.max(0, bilinear(gu, omega, gu)) / observations);
-  const covariance = bilinear(gl, omega, gu) / observations;
+  return boundsFromVariances(
+    m,
+    { lower: bilinear(gl, omega, gl), upper: bilinear(gu, omega, gu), covariance: bilinear(gl, omega, gu) },
+    observations,
+    {
+      lower: 1,
+      upper: 1,
+    },
+  );
+}
+
+/** The bounds, their standard errors and correlation from the long-run variances of the two estimates. */
+function boundsFromVariances(
+  m: SecondMoments,
+  longRun: { readonly lower: number; readonly upper: number; readonly covariance: number },
+  observations: number,
+  factors: { readonly lower: number; readonly upper: number },
+): BoundsDelta {
+  const w = m.weight;
+  // Long-run variances are positive semi-definite: negative only by rounding (a singular Omega, as
+  // with perfectly correlated books), where the standard error is 0.
+  const lowerSe = Math.sqrt(Math.max(0, longRun.lower) / observations);
+  const upperSe = Math.sqrt(Math.max(0, longRun.upper) / observations);
+  const covariance = longRun.covariance / observations;
   const lb = m.covariance / ((1 - w) * m.highVariance + w * m.covariance);
   const ub = m.lowVariance / (w * m.lowVariance + (1 - w) * m.covariance);
   const high = (b: number) => (1 - w * b) / (1 - w);
   const ratio = w / (1 - w);
   return {
-    lowBeta: { min: { estimate: lb, stdError: lowerSe }, max: { estimate: ub, stdError: upperSe } },
-    highBeta: { min: { estimate: high(ub), stdError: ratio * upperSe }, max: { estimate: high(lb), stdError: ratio * lowerSe } },
-    correlation: lowerSe > 0 && upperSe > 0 ? covariance / (lowerSe * upperSe) : 0,
+    lowBeta: {
+      min: { estimate: lb, stdError: lowerSe, criticalFactor: factors.lower },
+      max: { estimate: ub, stdError: upperSe, criticalFactor: factors.upper },
+    },
+    highBeta: {
+      min: { estimate: high(ub), stdError: ratio * upperSe, criticalFactor: factors.upper },
+      max: { estimate: high(lb), stdError: ratio * lowerSe, criticalFactor: factors.lower },
+    },
+    correlation: lowerSe > 0 && upperSe > 0 ? Math.max(-1, Math.min(1, covariance / (lowerSe * upperSe))) : 0,
   };
 }
 
@@ -100,23 +133,30 @@ export function momentSeries(x: ArrayLike<number>, y: ArrayLike<number>): Float6
   return [...z];
 }
 
-/** The delta method on excess returns x (low) and y (high), with Omega estimated from the data. */
+/**
+ * The delta method on excess returns x (low) and y (high), with the long-run variances estimated from
+ * the data; `confidence` is the level of the intervals the fixed-b factors are for.
+ */
 export function boundsDeltaFromData(
   x: ArrayLike<number>,
   y: ArrayLike<number>,
   moments: SecondMoments,
   method: LongRunMethod,
   hac: HacOptions = {},
+  confidence: number = defaultConfidence,
 ): BoundsDeltaFromData {
   const z = momentSeries(x, y);
   if (method === "iid") {
     const omega = sampleCovarianceOf(z);
-    return { ...boundsDelta(moments, omega, x.length), omega, longRun: { method, kernel: null, bandwidth: null, lags: null } };
+    return { ...boundsDelta(moments, omega, x.length), longRun: { method, kernel: null, bandwidth: null, lags: null } };
   }
-  const lrv = longRunCovariance(z, hac);
+  const lr = boundsLongRun(z, boundGradients(moments), hac, confidence);
+  const wider = lr.lower.bandwidth >= lr.upper.bandwidth ? lr.lower : lr.upper;
   return {
-    ...boundsDelta(moments, lrv.covariance, x.length),
-    omega: lrv.covariance,
-    longRun: { method, kernel: lrv.kernel, bandwidth: lrv.bandwidth, lags: lrv.lags },
+    ...boundsFromVariances(moments, { lower: lr.lower.variance, upper: lr.upper.variance, covariance: lr.covariance }, x.length, {
+      lower: lr.lower.criticalFactor,
+      upper: lr.upper.criticalFactor,
+    }),
+    longRun: { method, kernel: lr.kernel, bandwidth: wider.bandwidth, lags: wider.lags },
   };
 }

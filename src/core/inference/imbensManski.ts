@@ -54,3 +54,17 @@ export function imbensManskiInterval(bounds: BoundsEstimate, confidence: number)
     criticalValue: { lower: c, upper: c },
   };
 }
+
+/**
+ * An interval for b_low cut to its admissible range [0, 1/w] (docs/methods.md §5): every structure of
+ * the model has 0 < b_low < 1/w (b_high = (1 - w b_low)/(1 - w) > 0), so limits beyond it, which an
+ * imprecise covariance can give, would cover nothing possible. The critical values stay as computed.
+ */
+export function admissibleInterval(interval: ParameterInterval, weight: number): ParameterInterval {
+  const top = 1 / weight;
+  return {
+    ...interval,
+    lower: Math.min(Math.max(interval.lower, 0), top),
+    upper: Math.max(Math.min(interval.upper, top), 0),
+  };
+}

@@ -3,10 +3,12 @@
  *
  * - CAPM alphas and betas: HAC covariance of each book's regression on the market proxy (hac.ts).
  * - Bounds of the identified set: delta method with a long-run (HAC) or iid Omega (boundsDelta.ts),
- *   or bootstrap standard errors (`intervalSource: "bootstrap"`); pointwise limits estimate -/+ z se
- *   with z = Phi^{-1}(1 - alpha/2).
+ *   or bootstrap standard errors (`intervalSource: "bootstrap"`); pointwise limits estimate -/+ z k se
+ *   with z = Phi^{-1}(1 - alpha/2) and k the fixed-b factor of the bound's bandwidth (with bootstrap
+ *   standard errors, of twice the mean block length; 1 for "iid").
  * - The structural betas themselves: Imbens & Manski (2004) interval (default) or Stoye (2009),
- *   covering the true beta (a point of the set) with the stated probability. The high beta's interval
+ *   covering the true beta (a point of the set) with the stated probability, cut to the admissible
+ *   range 0 <= b_low <= 1/w (0 <= b_high <= 1/(1 - w)). The high beta's interval
  *   is the image of the low beta's under b_high = (1 - w b_low)/(1 - w) (both methods are equivariant
  *   under this decreasing affine map: standard errors scale, roles of the ends swap).
  * - Sharpe ratios: Lo (2002) iid and HAC delta-method standard errors (sharpe.ts).
@@ -19,7 +21,8 @@
 import { boundsDeltaFromData } from "./boundsDelta.js";
 import { bootstrapSolve, type BootstrapSummary } from "./bootstrap/summary.js";
 import { hacCovariance } from "./hac/hac.js";
-import { imbensManskiInterval, type ParameterInterval } from "./imbensManski.js";
+import { stationaryBootstrapFixedBFactor } from "./hac/fixedB.js";
+import { admissibleInterval, imbensManskiInterval, type ParameterInterval } from "./imbensManski.js";
 import { leastSquares } from "../numerics/leastSquares.js";
 import { normalQuantile } from "../numerics/normal.js";
 import {
@@ -122,13 +125,18 @@ function uncertaintyOf(
       : { lowBetaMin: bootstrap.stdErrors.lowBetaMin, lowBetaMax: bootstrap.stdErrors.lowBetaMax };
   const usedSource: IntervalSource = source === "bootstrap" && bootstrapErrors !== null ? "bootstrap" : "delta";
 
-  const delta = boundsDeltaFromData(low, high, moments, longRun, hac);
+  const delta = boundsDeltaFromData(low, high, moments, longRun, hac, confidence);
   const z = normalQuantile(1 - (1 - confidence) / 2);
-  const pointwise = (estimate: number, stdError: number): PointwiseBound => ({
+  // Delta-method limits take the fixed-b factor of each bound's bandwidth (boundsLongRun.ts), the
+  // bootstrap's standard errors that of the bandwidth equivalent to its mean block length (fixedB.ts).
+  const bootstrapFactor = bootstrap === null ? 1 : stationaryBootstrapFixedBFactor(bootstrap.blockLength, n, confidence);
+  const factorLower = usedSource === "bootstrap" ? bootstrapFactor : delta.lowBeta.min.criticalFactor;
+  const factorUpper = usedSource === "bootstrap" ? bootstrapFactor : delta.lowBeta.max.criticalFactor;
+  const pointwise = (estimate: number, stdError: number, factor: number): PointwiseBound => ({
     estimate,
     stdError,
-    lower: estimate - z * stdError,
-    upper: estimate + z * stdError,
+    lower: estimate - z * factor * stdError,
+    upper: estimate + z * factor * stdError,
   });
   let bounds: Uncertainty["bounds"] = null;
   let lowBeta: Uncertainty["lowBeta"] = null;
@@ -141,19 +149,27 @@ function uncertaintyOf(
     const lb = delta.lowBeta.min.estimate;
     const ub = delta.lowBeta.max.estimate;
     bounds = {
-      lowBeta: { min: pointwise(lb, seLower), max: pointwise(ub, seUpper) },
+      lowBeta: { min: pointwise(lb, seLower, factorLower), max: pointwise(ub, seUpper, factorUpper) },
       highBeta: {
-        min: pointwise(delta.highBeta.min.estimate, ratio * seUpper),
-        max: pointwise(delta.highBeta.max.estimate, ratio * seLower),
+        min: pointwise(delta.highBeta.min.estimate, ratio * seUpper, factorUpper),
+        max: pointwise(delta.highBeta.max.estimate, ratio * seLower, factorLower),
       },
       correlation,
     };
-    const estimate = { lower: lb, upper: ub, lowerStdError: seLower, upperStdError: seUpper };
+    // The beta intervals run on the standard errors times their fixed-b factors; the critical values
+    // reported are the multipliers of the standard errors themselves.
+    const estimate = { lower: lb, upper: ub, lowerStdError: factorLower * seLower, upperStdError: factorUpper * seUpper };
     // Stoye's programme needs both standard errors positive; with a zero one (an end known exactly,
     // as for perfectly correlated books) the Imbens-Manski interval is reported, and named.
     const usedMethod: IntervalMethod = method === "stoye" && seLower > 0 && seUpper > 0 ? "stoye" : "imbens-manski";
-    const interval: ParameterInterval =
-      usedMethod === "stoye" ? stoyeInterval({ ...estimate, correlation }, confidence) : imbensManskiInterval(estimate, confidence);
+    const scaled: ParameterInterval = admissibleInterval(
+      usedMethod === "stoye" ? stoyeInterval({ ...estimate, correlation }, confidence) : imbensManskiInterval(estimate, confidence),
+      weight,
+    );
+    const interval: ParameterInterval = {
+      ...scaled,
+      criticalValue: { lower: scaled.criticalValue.lower * factorLower, upper: scaled.criticalValue.upper * factorUpper },
+    };
     const toHigh = (b: number) => (1 - weight * b) / (1 - weight);
     lowBeta = {
       interval: {

@@ -7,7 +7,7 @@
 
 import type { MomentSummary } from "../identify.js";
 import { boundsDeltaFromData } from "./boundsDelta.js";
-import { imbensManskiInterval } from "./imbensManski.js";
+import { admissibleInterval, imbensManskiInterval } from "./imbensManski.js";
 import { normalQuantile } from "../numerics/normal.js";
 import { scaleFor } from "../scaling.js";
 import type { HacOptions, LongRunMethod } from "./options.js";
@@ -68,23 +68,31 @@ export function windowUncertainty(
     highVariance: summary.highVariance * square,
     covariance: summary.covariance * square,
   };
-  const delta = boundsDeltaFromData(x, y, moments, options.longRun, options.hac ?? {});
+  const delta = boundsDeltaFromData(x, y, moments, options.longRun, options.hac ?? {}, options.confidence);
   const z = normalQuantile(1 - (1 - options.confidence) / 2);
-  const pointwise = (b: { estimate: number; stdError: number }): PointwiseBound => ({
+  const pointwise = (b: { estimate: number; stdError: number; criticalFactor: number }): PointwiseBound => ({
     estimate: b.estimate,
     stdError: b.stdError,
-    lower: b.estimate - z * b.stdError,
-    upper: b.estimate + z * b.stdError,
+    lower: b.estimate - z * b.criticalFactor * b.stdError,
+    upper: b.estimate + z * b.criticalFactor * b.stdError,
   });
-  const interval = imbensManskiInterval(
-    {
-      lower: delta.lowBeta.min.estimate,
-      upper: delta.lowBeta.max.estimate,
-      lowerStdError: delta.lowBeta.min.stdError,
-      upperStdError: delta.lowBeta.max.stdError,
-    },
-    options.confidence,
+  const { min, max } = delta.lowBeta;
+  const scaled = admissibleInterval(
+    imbensManskiInterval(
+      {
+        lower: min.estimate,
+        upper: max.estimate,
+        lowerStdError: min.criticalFactor * min.stdError,
+        upperStdError: max.criticalFactor * max.stdError,
+      },
+      options.confidence,
+    ),
+    summary.weight,
   );
+  const interval = {
+    ...scaled,
+    criticalValue: { lower: scaled.criticalValue.lower * min.criticalFactor, upper: scaled.criticalValue.upper * max.criticalFactor },
+  };
   return {
     confidence: options.confidence,
     bounds: {

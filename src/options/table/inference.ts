@@ -66,7 +66,7 @@ export const inferenceOptions = {
   hacBandwidth: option(choiceKind(automaticBandwidths), {
     name: "hacBandwidth",
     argument: "<rule>",
-    help: "automatic HAC bandwidth rule",
+    help: "automatic HAC bandwidth rule; auto: 6 sqrt(T) on each bound's own series with fixed-b critical values for the set's bounds, Newey-West (1994) for the CAPM and Sharpe ratios",
     group: "uncertainty",
     commands: ["solve"],
     default: defaultHac.bandwidth,
@@ -122,7 +122,7 @@ export const inferenceOptions = {
   blockLength: option(autoOrNumberKind(parameters.blockLength), {
     name: "blockLength",
     argument: "<b|auto>",
-    help: "mean block length of the bootstrap; auto: Politis-White (2004) with the Patton-Politis-White (2009) correction",
+    help: "mean block length of the bootstrap; auto: 3 sqrt(T), at most T/3 (its intervals are widened by the fixed-b factor of twice the block length)",
     group: "bootstrap",
     commands: ["solve"],
     default: defaultBlockLength,

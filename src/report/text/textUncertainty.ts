@@ -33,6 +33,8 @@ export function boundsWithUncertaintySection(bounds: IdentifiedBounds, u: Uncert
       ? "bootstrap"
       : `delta method, ${u.method.longRun === "hac" ? "HAC" : "iid"} long-run covariance`;
   const method = intervalNames[u.lowBeta.interval.method];
+  // Bartlett long-run variances and bootstrap standard errors take fixed-b critical values (docs/methods.md §4, §7.2).
+  const fixedB = u.method.intervalSource === "bootstrap" || (u.method.longRun === "hac" && u.method.kernel === "bartlett");
   return [
     style.heading(`How precisely the set is known (${c} confidence)`),
     ...table({
@@ -44,7 +46,12 @@ export function boundsWithUncertaintySection(bounds: IdentifiedBounds, u: Uncert
         row("", "upper end", b.highBeta.max),
       ],
     }),
-    ...wrap(`Standard errors: ${source}; correlation of the two ends ${formatNumber(b.correlation, 3)}.`, indent, indent),
+    ...wrap(
+      `Standard errors: ${source}; correlation of the two ends ${formatNumber(b.correlation, 3)}.` +
+        `${fixedB ? " Limits use fixed-b critical values (Kiefer-Vogelsang 2005)." : ""}`,
+      indent,
+      indent,
+    ),
     "",
     ...fields([
       [`low structural beta (${method}, ${c})`, limits(u.lowBeta.interval.lower, u.lowBeta.interval.upper)],
@@ -52,7 +59,8 @@ export function boundsWithUncertaintySection(bounds: IdentifiedBounds, u: Uncert
     ]),
     ...wrap(
       `These intervals cover the true structural beta, wherever it lies in the set, with ${c} probability: ` +
-        `wider than the set [${formatNumber(bounds.lowBeta.min)}, ${formatNumber(bounds.lowBeta.max)}] by the sampling error of its ends.`,
+        `wider than the set [${formatNumber(bounds.lowBeta.min)}, ${formatNumber(bounds.lowBeta.max)}] by the sampling error of its ends, ` +
+        "and cut to the betas' admissible range (above 0, with b_low below 1/w).",
       indent,
       indent,
     ),

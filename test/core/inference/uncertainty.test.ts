@@ -2,8 +2,10 @@
  * assessUncertainty: how its parts fit together, its defaults and its output contract.
  * Expected values come from independent code (solve's identified set), from published formulas
  * (White's 1980 HC0 covariance, to which HAC reduces at lag 0; the affine map b_high = (1 - w b)/(1 - w)
- * of docs/methods.md §1) or from scipy (z_0.975 = 1.959963984540054). The statistical methods themselves
- * are checked against their references in the other files of this folder.
+ * of docs/methods.md §1), from scipy (z_0.975 = 1.959963984540054) or from Kiefer & Vogelsang (2005),
+ * whose fixed-b critical value for the Bartlett kernel at b = S/T and the two-sided 5% level is
+ * 1.9600 + 2.9694 b + 0.4160 b^2 - 0.5324 b^3. The statistical methods themselves are checked against
+ * their references in the other files of this folder.
  */
 
 import { describe, expect, test } from "vitest";
@@ -32,6 +34,9 @@ const sample = drawSample(
 const input = { low: sample.low, high: sample.high, riskFree: 0.0001 };
 const result = assessUncertainty(input, { weight: w });
 const z975 = 1.959963984540054;
+/** The default bandwidth of the bounds, 6 sqrt(T) (docs/methods.md §4), as a share of T = 600. */
+const bDefault = (6 * Math.sqrt(600)) / 600;
+const kieferVogelsang975 = 1.96 + 2.9694 * bDefault + 0.416 * bDefault ** 2 - 0.5324 * bDefault ** 3;
 
 describe("the bounds", () => {
   test("their estimates are solve()'s identified set", () => {
@@ -43,10 +48,29 @@ describe("the bounds", () => {
     expectClose(result.bounds?.highBeta.max.estimate, solved.value.bounds.highBeta.max, { rel: 1e-12 });
   });
 
-  test("pointwise limits are estimate -/+ z_0.975 se, z = 1.959963984540054 (scipy norm.ppf)", () => {
-    const min = result.bounds!.lowBeta.min;
+  test("by default pointwise limits are estimate -/+ the fixed-b critical value (Kiefer-Vogelsang 2005) times se", () => {
+    expect(result.method.bandwidth).toBeCloseTo(6 * Math.sqrt(600), 12);
+    expect(result.method.lags).toBe(Math.ceil(6 * Math.sqrt(600)) - 1);
+    for (const end of [result.bounds!.lowBeta.min, result.bounds!.lowBeta.max]) {
+      // The code's quantile matches the published polynomial by construction, to the root finder's tolerance.
+      expectClose(end.lower, end.estimate - kieferVogelsang975 * end.stdError, { rel: 1e-9 });
+      expectClose(end.upper, end.estimate + kieferVogelsang975 * end.stdError, { rel: 1e-9 });
+    }
+  });
+
+  test("with the iid long-run covariance pointwise limits are estimate -/+ z_0.975 se, z = 1.959963984540054 (scipy norm.ppf)", () => {
+    const min = assessUncertainty(input, { weight: w, longRun: "iid" }).bounds!.lowBeta.min;
     expectClose(min.lower, min.estimate - z975 * min.stdError, { rel: 1e-14 });
     expectClose(min.upper, min.estimate + z975 * min.stdError, { rel: 1e-14 });
+  });
+
+  test("with bootstrap standard errors (block length b) the critical value is the fixed-b one at bandwidth 2b", () => {
+    const boot = assessUncertainty(input, { weight: w, intervalSource: "bootstrap", bootstrap: { replicates: 100, blockLength: 5 } });
+    const min = boot.bounds!.lowBeta.min;
+    const b = (2 * 5) / 600;
+    const critical = 1.96 + 2.9694 * b + 0.416 * b ** 2 - 0.5324 * b ** 3;
+    expectClose(min.lower, min.estimate - critical * min.stdError, { rel: 1e-9 });
+    expectClose(min.upper, min.estimate + critical * min.stdError, { rel: 1e-9 });
   });
 
   test("the high beta's standard errors are the low beta's times w/(1 - w), ends swapped", () => {
@@ -57,13 +81,17 @@ describe("the bounds", () => {
 });
 
 describe("the intervals for the structural betas", () => {
-  test("the default is Imbens-Manski on the delta-method bounds", () => {
+  test("the default is Imbens-Manski on the delta-method bounds, their standard errors times the fixed-b factor", () => {
     const b = result.bounds!;
-    const ratio = (b.lowBeta.max.estimate - b.lowBeta.min.estimate) / Math.max(b.lowBeta.min.stdError, b.lowBeta.max.stdError);
+    const factor = kieferVogelsang975 / z975;
+    const se = { lower: factor * b.lowBeta.min.stdError, upper: factor * b.lowBeta.max.stdError };
+    const ratio = (b.lowBeta.max.estimate - b.lowBeta.min.estimate) / Math.max(se.lower, se.upper);
     const c = imbensManskiCriticalValue(ratio, 0.95);
     expect(result.lowBeta?.interval.method).toBe("imbens-manski");
-    expectClose(result.lowBeta?.interval.lower, b.lowBeta.min.estimate - c * b.lowBeta.min.stdError, { rel: 1e-14 });
-    expectClose(result.lowBeta?.interval.upper, b.lowBeta.max.estimate + c * b.lowBeta.max.stdError, { rel: 1e-14 });
+    expectClose(result.lowBeta?.interval.lower, b.lowBeta.min.estimate - c * se.lower, { rel: 1e-9 });
+    expectClose(result.lowBeta?.interval.upper, b.lowBeta.max.estimate + c * se.upper, { rel: 1e-9 });
+    // The reported critical values multiply the reported standard errors.
+    expectClose(result.lowBeta?.interval.criticalValue.lower, c * factor, { rel: 1e-9 });
   });
 
   test("the high beta's interval is the image of the low beta's under b_high = (1 - w b)/(1 - w)", () => {
@@ -134,7 +162,7 @@ describe("CAPM HAC standard errors", () => {
 describe("contract", () => {
   test("option tuples list the accepted values (the CLI builds its choices from them)", () => {
     expect(hacKernels).toEqual(["bartlett", "quadratic-spectral"]);
-    expect(automaticBandwidths).toEqual(["newey-west-1994", "andrews-1991"]);
+    expect(automaticBandwidths).toEqual(["auto", "newey-west-1994", "andrews-1991"]);
     expect(longRunMethods).toEqual(["hac", "iid"]);
     expect(intervalMethods).toEqual(["imbens-manski", "stoye"]);
     expect(intervalSources).toEqual(["delta", "bootstrap"]);

@@ -7,7 +7,7 @@
  *   M = 0.5 w_0 sum_t u_t u_t' + sum_{j>=1} w_j sum_{t=1}^{n-j} u_t u_{t+j}',   S = M + M'
  * which is the Newey-West sum Gamma_0 + sum_j w_j (Gamma_j + Gamma_j'). Nothing is divided by n here.
  * Bandwidth resolution: a fixed `lags` L is Bartlett bandwidth L + 1; with the Newey-West (1994) rule
- * and the Bartlett kernel the bandwidth S becomes the lag floor(S) (R's NeweyWest), so the weights are
+ * ("auto" is that rule here) and the Bartlett kernel the bandwidth S becomes the lag floor(S) (R's NeweyWest), so the weights are
  * 1 - j/(floor(S) + 1); every other case uses k(j/S) directly (R's kernHAC / weightsAndrews).
  * With prewhitening the sum runs over the VAR(1) residuals and is recoloured D S D' (prewhiten.ts);
  * when the VAR(1) fit is singular (a constant column, or one that is a combination of the others) or
@@ -169,8 +169,9 @@ function weightedSum(
 ): KernelSum {
   const n = series[0]?.length ?? 0;
   const choice: BandwidthChoice = options.lags !== undefined ? options.lags + 1 : (options.bandwidth ?? defaultHac.bandwidth);
+  // "auto" is Newey-West 1994 for the sums this file serves (the bounds' own rule is boundsLongRun.ts).
   const rule =
-    choice === "newey-west-1994"
+    choice === "newey-west-1994" || choice === "auto"
       ? neweyWest1994Bandwidth(series, kernel, columnWeights, rows, prewhite)
       : choice === "andrews-1991"
         ? andrews1991Bandwidth(series, kernel, columnWeights)
@@ -178,7 +179,11 @@ function weightedSum(
   const defined = rule > 0 && Number.isFinite(rule);
   if (!defined && typeof choice === "number") throw new RangeError(`HAC bandwidth must be positive, got ${choice}`);
   const bandwidth = defined ? rule : 0;
-  const effective = !defined ? 0 : kernel === "bartlett" && choice === "newey-west-1994" ? Math.floor(bandwidth) + 1 : bandwidth;
+  const effective = !defined
+    ? 0
+    : kernel === "bartlett" && (choice === "newey-west-1994" || choice === "auto")
+      ? Math.floor(bandwidth) + 1
+      : bandwidth;
   const weights = !defined ? Float64Array.of(1) : lagWeights(kernel, effective, n);
   let lags: number | null = null;
   if (kernel === "bartlett") {

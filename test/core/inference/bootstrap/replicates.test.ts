@@ -12,6 +12,7 @@ import { describe, expect, test } from "vitest";
 import { bootstrapRange, mergeBootstrapRanges, type BootstrapRange } from "../../../../src/core/inference/bootstrap/replicates.js";
 import { bootstrapQuantities, type BootstrapQuantity } from "../../../../src/core/inference/bootstrap/statistics.js";
 import { bootstrapSolve, quantileSorted } from "../../../../src/core/inference/bootstrap/summary.js";
+import { bartlettFixedBQuantile } from "../../../../src/core/inference/hac/fixedB.js";
 import { resampleIndices } from "../../../../src/core/inference/bootstrap/stationaryBootstrap.js";
 import { drawSample } from "../../../../src/core/forward/simulate.js";
 import { solve } from "../../../../src/core/solve.js";
@@ -90,14 +91,22 @@ describe("summaries", () => {
     );
   });
 
-  test("percentile limits and standard errors are the quantiles and sd (divisor B - 1) of the replicates", () => {
+  test("percentile limits, stretched from the median by the fixed-b factor, and standard errors are the quantiles and sd (divisor B - 1) of the replicates", () => {
     const summary = bootstrapSolve(data.low, data.high, riskFree, 0.4, { replicates: 40, ...plan, confidence: 0.9 });
     const values = Float64Array.from({ length: 40 }, (_, r) => draw(whole, "lowBetaMax", r)).sort();
     const mean = values.reduce((s, v) => s + v, 0) / 40;
     const sd = Math.sqrt(values.reduce((s, v) => s + (v - mean) ** 2, 0) / 39);
-    // 40 replicates: the 5% and 95% type-7 positions are 1.95 and 37.05 (0-based).
-    expectClose(summary.intervals.lowBetaMax?.lower, values[1]! + 0.95 * (values[2]! - values[1]!), { rel: 1e-15 });
-    expectClose(summary.intervals.lowBetaMax?.upper, values[37]! + 0.05 * (values[38]! - values[37]!), { rel: 1e-15 });
+    // 40 replicates: the 5%, 50% and 95% type-7 positions are 1.95, 19.5 and 37.05 (0-based); the factor is
+    // the fixed-b 95% quantile over the normal one at b = 2 x 6 / 300 (test/core/inference/hac/fixedB.test.ts).
+    const median = values[19]! + 0.5 * (values[20]! - values[19]!);
+    const k = bartlettFixedBQuantile((2 * 6) / 300, 0.95) / 1.6448536269514722;
+    expect(k).toBeGreaterThan(1.01);
+    expectClose(summary.intervals.lowBetaMax?.lower, median - k * (median - (values[1]! + 0.95 * (values[2]! - values[1]!))), {
+      rel: 1e-13,
+    });
+    expectClose(summary.intervals.lowBetaMax?.upper, median + k * (values[37]! + 0.05 * (values[38]! - values[37]!) - median), {
+      rel: 1e-13,
+    });
     expectClose(summary.stdErrors.lowBetaMax, sd, { rel: 1e-12 });
     expect(summary.validReplicates.lowBetaMax).toBe(40);
     expect(summary.blockLength).toBe(6);
