@@ -10,7 +10,7 @@
 // sys.executable so that no version-manager shim is timed), BETABOUND_BENCH_CACHE (data folder,
 // default bench/.cache, ignored by git).
 import { execFileSync, spawnSync } from "node:child_process";
-import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { cpus, loadavg, platform, release, totalmem } from "node:os";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
@@ -169,6 +169,8 @@ const markdown = renderResults({
 const target = full ? join(root, "bench", "RESULTS.md") : join(cacheDir, "RESULTS-partial.md");
 writeFileSync(target, markdown);
 log(`wrote ${target}`);
+// Every output agreed (a disagreement exits above and keeps them for inspection): free the disk.
+rmSync(outDir, { recursive: true, force: true });
 
 // ---- agreement checks --------------------------------------------------------------------------
 function checkSolve(kind, oursPath, peerPath, expectedPairs) {
