@@ -1,333 +1,240 @@
-// Runs every benchmark (ours vs a numpy peer) and writes bench/RESULTS.md.
-// Usage: npm run bench  [-- --rounds N]   (builds dist/ first when it is missing)
-// Each case: one untimed warm-up of each side, then N paired rounds (ours and the peer interleaved,
-// the order alternating between rounds); wall time of the whole process (start-up included) and peak
-// RSS from /usr/bin/time (%M) when present, else from a wrapper reading process.resourceUsage().
-// Data files are generated into a temporary folder with `node dist/cli.cjs simulate` and removed after.
+// The benchmark: each case runs the CLI as a user does (node dist/cli.cjs ... --output FILE) beside
+// peers in Python (numpy, polars, DuckDB) doing the same job, checks that the outputs agree, and
+// times paired, interleaved rounds. Writes bench/RESULTS.md after a full run (every case, full size).
+//
+//   npm run bench                                  every case, default rounds (the 10M cases take minutes)
+//   npm run bench -- --cases a1,a2 --rounds 3      a subset, fewer rounds (results printed, RESULTS.md kept)
+//   npm run bench -- --rows-scale 0.01             smaller data, for a quick check of the machinery
+//
+// Environment: BETABOUND_BENCH_PYTHON (the interpreter, default python3; resolved once to
+// sys.executable so that no version-manager shim is timed), BETABOUND_BENCH_CACHE (data folder,
+// default bench/.cache, ignored by git).
 import { execFileSync, spawnSync } from "node:child_process";
-import {
-  existsSync,
-  mkdtempSync,
-  openSync,
-  closeSync,
-  fstatSync,
-  readFileSync,
-  readSync,
-  rmSync,
-  writeFileSync,
-  createWriteStream,
-} from "node:fs";
-import { cpus, tmpdir, totalmem, platform, release } from "node:os";
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { cpus, loadavg, platform, release, totalmem } from "node:os";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
-import { once } from "node:events";
+import { bestPeer, compareDigest, median, ratio, rollComparer } from "./lib/check.mjs";
+import { buildCases, rollTolerance, solveTolerance } from "./lib/cases.mjs";
+import { dataFile } from "./lib/data.mjs";
+import { fileLines, measure, memorySource, readJson } from "./lib/measure.mjs";
+import { renderResults } from "./lib/report.mjs";
 
 const root = fileURLToPath(new URL("..", import.meta.url));
-const benchDir = join(root, "bench");
-const roundsArg = process.argv.indexOf("--rounds");
-const rounds = roundsArg > 0 ? Number(process.argv[roundsArg + 1]) : 7;
+const log = (message) => process.stderr.write(`${message}\n`);
+const argValue = (name) => {
+  const i = process.argv.indexOf(name);
+  return i > 0 ? process.argv[i + 1] : undefined;
+};
+const selected = argValue("--cases")?.split(",");
+const roundsOverride = argValue("--rounds") === undefined ? null : Number(argValue("--rounds"));
+const rowsScale = Number(argValue("--rows-scale") ?? 1);
+const cacheDir = process.env.BETABOUND_BENCH_CACHE ?? join(root, "bench", ".cache");
+const outDir = join(cacheDir, "outputs");
+mkdirSync(outDir, { recursive: true });
+
 const cli = join(root, "dist", "cli.cjs");
 if (!existsSync(cli)) execFileSync("npm", ["run", "build"], { cwd: root, stdio: "inherit" });
-const tmp = mkdtempSync(join(tmpdir(), "betabound-bench-"));
-const log = (message) => process.stderr.write(`${message}\n`);
-const hasTime = existsSync("/usr/bin/time");
 
-// ---- data ------------------------------------------------------------------------------------
-const simulateArgs = [
-  "--low-beta",
-  "0.7",
-  "--factor-vol",
-  "0.01",
-  "--factor-mean",
-  "0.0004",
-  "--low-noise-vol",
-  "0.004",
-  "--high-noise-vol",
-  "0.006",
-  "--frequency",
-  "daily",
-];
-const dailyFile = join(tmp, "daily-2520.csv");
-execFileSync(process.execPath, [cli, "simulate", ...simulateArgs, "--periods", "2520", "--seed", "1", "--output", dailyFile]);
-const bigFile = join(tmp, "daily-1m.csv");
-{
-  const raw = join(tmp, "raw-1m.csv");
-  execFileSync(process.execPath, [
-    cli,
-    "simulate",
-    ...simulateArgs,
-    "--periods",
-    "1000000",
-    "--seed",
-    "2",
-    "--digits",
-    "9",
-    "--output",
-    raw,
-  ]);
-  // Add a risk-free column and a fourth numeric column (a third return series), streamed.
-  const lines = readFileSync(raw, "utf8").split("\n");
-  const out = createWriteStream(bigFile);
-  let chunk = "date,low,high,rf,other\n";
-  for (let t = 1; t < lines.length; t++) {
-    const line = lines[t];
-    if (line === "") continue;
-    const i = t - 1;
-    const rf = (0.00008 + 0.00004 * Math.sin(i / 500)).toFixed(9);
-    const other = (0.0003 + 0.012 * Math.sin(i * 12.9898) * Math.cos(i * 78.233)).toFixed(9);
-    chunk += `${line},${rf},${other}\n`;
-    if (chunk.length > 1 << 20) {
-      if (!out.write(chunk)) await once(out, "drain");
-      chunk = "";
-    }
-  }
-  out.end(chunk);
-  await once(out, "finish");
-  rmSync(raw);
+// ---- the interpreter and the peers -------------------------------------------------------------
+const configuredPython = process.env.BETABOUND_BENCH_PYTHON ?? "python3";
+const probe = spawnSync(configuredPython, ["-c", "import sys; print(sys.executable); print(sys.version.split()[0])"], { encoding: "utf8" });
+if (probe.status !== 0) {
+  log(`bench: cannot run ${configuredPython} (${probe.error?.message ?? probe.stderr.trim()}); set BETABOUND_BENCH_PYTHON`);
+  process.exit(1);
 }
-const fileSize = (path) => readFileSync(path).length;
-const sizes = { daily: fileSize(dailyFile), big: fileSize(bigFile) };
+const [python, pythonVersion] = probe.stdout.trim().split("\n");
+const peerModules = { numpy: "numpy", polars: "polars", duckdb: "duckdb" };
+const peerVersions = {};
+for (const [peer, module] of Object.entries(peerModules)) {
+  const r = spawnSync(python, ["-c", `import ${module}; print(${module}.__version__)`], { encoding: "utf8" });
+  peerVersions[peer] = r.status === 0 ? { version: r.stdout.trim() } : { missing: r.stderr.trim().split("\n").at(-1) || "not importable" };
+}
+if (peerVersions.numpy.missing) log(`bench: numpy is missing under ${python}: every peer needs it (${peerVersions.numpy.missing})`);
+const available = (peer) => peerVersions.numpy.version !== undefined && peerVersions[peer].version !== undefined;
 
-// ---- entries bundled on the fly ----------------------------------------------------------------
-const { build } = await import("esbuild");
-async function bundle(entry, outName) {
-  const outfile = join(tmp, outName);
-  try {
-    await build({
-      entryPoints: [join(benchDir, entry)],
-      outfile,
-      bundle: true,
-      platform: "node",
-      format: "esm",
-      target: "node20",
-      logLevel: "silent",
-    });
-    return { ok: true, outfile };
-  } catch (error) {
-    return {
-      ok: false,
-      reason: String(error?.message ?? error)
-        .split("\n")
-        .slice(0, 3)
-        .join(" "),
-    };
-  }
+// ---- cases -------------------------------------------------------------------------------------
+const allCases = buildCases();
+const cases = selected ? allCases.filter((c) => selected.includes(c.id)) : allCases;
+if (selected && cases.length !== selected.length) {
+  log(`bench: unknown case in --cases ${selected.join(",")}; cases are ${allCases.map((c) => c.id).join(", ")}`);
+  process.exit(1);
 }
-const bootstrapEntry = await bundle("bootstrap-case.ts", "bootstrap-case.mjs");
-
-// ---- measurement ---------------------------------------------------------------------------------
-const rssWrapper = join(tmp, "rss.mjs");
-writeFileSync(
-  rssWrapper,
-  `import { spawnSync } from "node:child_process";
-const [cmd, ...args] = process.argv.slice(2);
-const r = spawnSync(cmd, args, { stdio: "inherit" });
-process.stderr.write("\\nRSS_KB " + process.resourceUsage().maxRSS + "\\n");
-process.exit(r.status ?? 1);
-`,
-);
-/** Runs argv with stdout to a file; returns wall seconds, peak RSS (MB) and the output path. */
-function measure(argv, outPath) {
-  const fd = openSync(outPath, "w");
-  const wrapped = hasTime ? ["/usr/bin/time", ["-f", "RSS_KB %M", ...argv]] : [process.execPath, [rssWrapper, ...argv]];
-  const started = process.hrtime.bigint();
-  const result = spawnSync(wrapped[0], wrapped[1], { stdio: ["ignore", fd, "pipe"], encoding: "utf8", maxBuffer: 1 << 26 });
-  const seconds = Number(process.hrtime.bigint() - started) / 1e9;
-  closeSync(fd);
-  if (result.status !== 0) throw new Error(`${argv.join(" ")} failed (${result.status}): ${result.stderr.slice(-2000)}`);
-  const rss = /RSS_KB (\d+)/.exec(result.stderr);
-  return { seconds, rssMb: rss ? Number(rss[1]) / 1024 : null };
-}
-const median = (xs) => {
-  const s = [...xs].sort((a, b) => a - b);
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
-};
-
-const python = "python3";
-const cases = [
-  {
-    id: "a",
-    title: "solve, 2,520 daily rows, JSON",
-    target: { ratio: 0.6 },
-    ours: [process.execPath, cli, "solve", dailyFile, "--low", "low", "--high", "high", "--format", "json", "--no-uncertainty"],
-    peer: [python, join(benchDir, "peer_solve.py"), dailyFile, "low", "high"],
-    check: (o, p) => compareBounds(readJson(o), readJson(p)),
-    note: "both sides do the same job: moments, CAPM fits with classical errors, bounds, grid; the peer computes no HAC or delta-method errors, so ours runs with --no-uncertainty (case a2 shows the default run)",
-  },
-  {
-    id: "a2",
-    title: "solve, 2,520 daily rows, JSON, with the default uncertainty (HAC, delta method, intervals)",
-    target: null,
-    ours: [process.execPath, cli, "solve", dailyFile, "--low", "low", "--high", "high", "--format", "json"],
-    peer: [python, join(benchDir, "peer_solve.py"), dailyFile, "low", "high"],
-    check: (o, p) => compareBounds(readJson(o), readJson(p)),
-    note: "for reference only: ours does more work than the peer here",
-  },
-  {
-    id: "b",
-    title: "solve, 1,000,000 daily rows (date + 4 numeric columns), JSON",
-    target: { ratio: 0.67, rssMb: 250 },
-    ours: [process.execPath, cli, "solve", bigFile, "--low", "low", "--high", "high", "--rf", "rf", "--format", "json", "--no-uncertainty"],
-    note: "the same job on both sides (no HAC on either); with the default uncertainty ours adds the HAC passes",
-    peer: [python, join(benchDir, "peer_solve.py"), bigFile, "low", "high", "rf"],
-    check: (o, p) => compareBounds(readJson(o), readJson(p)),
-  },
-  bootstrapEntry.ok
-    ? {
-        id: "c",
-        title: "stationary bootstrap, B = 10,000, n = 2,520, mean block length 10",
-        target: { ratio: 0.3 },
-        ours: [process.execPath, bootstrapEntry.outfile, dailyFile, "low", "high", "10000", "10", "1"],
-        peer: [python, join(benchDir, "peer_bootstrap.py"), dailyFile, "low", "high", "10000", "10", "1"],
-        check: (o, p) => {
-          const a = readJson(o).stdErrors.lowBetaMin;
-          const b = readJson(p).stdErrors.lowBetaMin;
-          return `bootstrap SE of the lower low-beta bound: ours ${a.toPrecision(4)}, numpy ${b.toPrecision(4)} (different generators: Monte Carlo agreement only)`;
-        },
-      }
-    : {
-        id: "c",
-        title: "stationary bootstrap, B = 10,000, n = 2,520",
-        skipped: `src/core/inference bootstrap did not build: ${bootstrapEntry.reason}`,
-      },
-  {
-    id: "d",
-    title: "rolling window 252 over 1,000,000 rows, CSV of every window",
-    target: { ratio: 0.7 },
-    ours: [process.execPath, cli, "roll", bigFile, "--low", "low", "--high", "high", "--window", "252", "--format", "csv"],
-    peer: [python, join(benchDir, "peer_roll.py"), bigFile, "low", "high", "252"],
-    check: (o, p) => compareRoll(o, p),
-    note: "ours: the CLI's roll command",
-  },
-];
-
-function pick(report) {
-  return report.bounds ?? report.solution?.bounds ?? report.results?.[0]?.bounds;
-}
-function compareBounds(ours, peer) {
-  const a = pick(ours);
-  const b = peer.bounds;
-  if (!a) return "ours: bounds not found in the JSON";
-  const rel = Math.max(Math.abs(a.lowBeta.min - b.lowBeta.min) / b.lowBeta.min, Math.abs(a.lowBeta.max - b.lowBeta.max) / b.lowBeta.max);
-  return `low-beta bounds [${a.lowBeta.min.toPrecision(8)}, ${a.lowBeta.max.toPrecision(8)}]; largest relative difference from numpy ${rel.toExponential(1)}`;
-}
-const readJson = (path) => JSON.parse(readFileSync(path, "utf8"));
-/** The header, first data line, a middle line and the last line of a (possibly huge) CSV output, and its line count. */
-function sampleLines(path) {
-  const fd = openSync(path, "r");
-  const size = fstatSync(fd).size;
-  const read = (position, length) => {
-    const buffer = Buffer.alloc(Math.min(length, size - position));
-    readSync(fd, buffer, 0, buffer.length, position);
-    return buffer.toString("utf8");
-  };
-  const head = read(0, 1 << 16).split("\n");
-  const middle = read(Math.floor(size / 2), 1 << 16).split("\n")[1];
-  const tail = read(Math.max(0, size - (1 << 16)), 1 << 16)
-    .trimEnd()
-    .split("\n")
-    .at(-1);
-  let lines = 0;
-  const buffer = Buffer.alloc(1 << 24);
-  for (let position = 0; position < size; position += buffer.length) {
-    const n = readSync(fd, buffer, 0, buffer.length, position);
-    for (let i = 0; i < n; i++) if (buffer[i] === 10) lines++;
-  }
-  closeSync(fd);
-  return { first: head[1], middle, last: tail, windows: lines - 1 };
-}
-function compareRoll(oPath, pPath) {
-  const a = sampleLines(oPath);
-  const b = sampleLines(pPath);
-  let worst = 0;
-  for (const key of ["first", "last"]) {
-    const x = a[key].split(",");
-    const y = b[key].split(",");
-    for (let j = 3; j < 33; j++) {
-      if (x[j] === "" && y[j] === "nan") continue;
-      const u = Number(x[j]);
-      const v = Number(y[j]);
-      worst = Math.max(worst, Math.abs(u - v) / Math.max(Math.abs(v), 1e-300));
-    }
-  }
-  return `${a.windows} windows (numpy ${b.windows}); largest relative difference over columns 4-33 of the first and last window: ${worst.toExponential(1)} (numpy's cumulative sums lose digits in the moments)`;
-}
-
+const defaultRounds = (c) => (c.data === "minutes10m" || c.kind === "roll" ? 3 : c.data === "daily1m" ? 7 : 9);
+const loadAtStart = loadavg();
 const results = [];
 for (const c of cases) {
-  if (c.skipped || c.ours === null) {
-    results.push({ ...c, skipped: c.skipped ?? "no entry for ours" });
-    log(`(${c.id}) skipped: ${c.skipped}`);
-    continue;
+  const data = dataFile(cacheDir, c.data, rowsScale, log);
+  const rounds = roundsOverride ?? defaultRounds(c);
+  log(`(${c.id}) ${c.title}: ${data.rows} rows, ${(data.bytes / 2 ** 20).toFixed(1)} MiB, ${rounds} rounds`);
+  const ext = c.kind === "roll" ? "csv" : c.kind === "batch" ? "jsonl" : "json";
+  const sides = [];
+  const oursOut = join(outDir, `${c.id}-ours.${ext}`);
+  const oursArgv = [process.execPath, cli, ...c.ours(data.path, oursOut)];
+  sides.push({ name: "ours", role: "ours", argv: oursArgv, out: oursOut });
+  for (const v of c.variants) {
+    const out = join(outDir, `${c.id}-ours-${v.args.join("")}.${ext}`);
+    sides.push({ name: `ours ${v.label}`, role: "variant", argv: [process.execPath, cli, ...c.ours(data.path, out), ...v.args], out });
   }
-  log(`(${c.id}) ${c.title}`);
-  const oursOut = join(tmp, `${c.id}-ours.out`);
-  const peerOut = join(tmp, `${c.id}-peer.out`);
-  measure(c.ours, oursOut);
-  measure(c.peer, peerOut);
-  const agreement = c.check(oursOut, peerOut);
-  const ours = [];
-  const peer = [];
-  for (let r = 0; r < rounds; r++) {
-    const order = r % 2 === 0 ? ["ours", "peer"] : ["peer", "ours"];
-    for (const side of order) {
-      const m = side === "ours" ? measure(c.ours, oursOut) : measure(c.peer, peerOut);
-      (side === "ours" ? ours : peer).push(m);
+  const missing = {};
+  for (const peer of ["numpy", "polars", "duckdb"]) {
+    if (!c.peers.includes(peer)) continue;
+    if (!available(peer)) {
+      missing[peer] = peerVersions[peer].missing ?? `numpy missing: ${peerVersions.numpy.missing}`;
+      continue;
     }
-    log(`  round ${r + 1}: ours ${ours.at(-1).seconds.toFixed(3)} s, numpy ${peer.at(-1).seconds.toFixed(3)} s`);
+    const out = join(outDir, `${c.id}-${peer}.${c.kind === "roll" ? "csv" : "json"}`);
+    const job = JSON.stringify({ ...c.job, file: data.path, out });
+    sides.push({ name: peer, role: "peer", argv: [python, join(root, "bench", "peers", `peer_${peer}.py`), job], out });
   }
-  results.push({ ...c, oursRuns: ours, peerRuns: peer, agreement });
+  const floors = [
+    { name: "node -e 0", argv: [process.execPath, "-e", "0"] },
+    { name: "python -c pass", argv: [python, "-c", "pass"] },
+    { name: "cat FILE", argv: ["cat", data.path] },
+    { name: "wc -l FILE", argv: ["wc", "-l", data.path] },
+  ];
+  for (const f of floors) sides.push({ ...f, role: "floor", out: null });
+
+  // Warm-up (untimed): each side once; its output is what the agreement check reads.
+  for (const side of sides) measure(side.argv);
+  const checks = {};
+  for (const side of sides.filter((s) => s.role === "peer" || s.role === "variant")) {
+    const check =
+      side.role === "variant"
+        ? checkIdentical(oursOut, side.out)
+        : c.kind === "roll"
+          ? checkRoll(oursOut, side.out)
+          : checkSolve(c.kind, oursOut, side.out, c.job.pairs.length);
+    checks[side.name] = check;
+    const worst = `${check.compared} compared, worst relative difference ${check.worst.toExponential(1)} (${check.worstPath})`;
+    if (!check.ok) {
+      log(`(${c.id}) OUTPUTS DISAGREE: ours and ${side.name}: ${worst}\n  ${check.failures.slice(0, 12).join("\n  ")}`);
+      log(`  ours: ${oursOut}\n  ${side.name}: ${side.out}`);
+      process.exit(1);
+    }
+    log(`  agreement with ${side.name}: ${worst}`);
+  }
+
+  const runs = Object.fromEntries(sides.map((s) => [s.name, []]));
+  for (let r = 0; r < rounds; r++) {
+    // Interleaved: every side once per round, the order rotated from round to round.
+    const order = sides.map((_, i) => sides[(i + r) % sides.length]);
+    for (const side of order) runs[side.name].push(measure(side.argv));
+    log(`  round ${r + 1}: ${sides.map((s) => `${s.name} ${runs[s.name].at(-1).seconds.toFixed(3)}`).join(", ")}`);
+  }
+  results.push({ case: c, data, rounds, sides, runs, checks, missing });
 }
-rmSync(tmp, { recursive: true, force: true });
+const loadAtEnd = loadavg();
 
 // ---- report ------------------------------------------------------------------------------------
-const pythonVersion = spawnSync(python, ["-c", "import sys, numpy; print(sys.version.split()[0], numpy.__version__)"], { encoding: "utf8" })
-  .stdout.trim()
-  .split(" ");
-const fmtS = (x) => x.toFixed(3);
-const stats = (ms) => {
-  const s = ms.map((m) => m.seconds);
-  return { median: median(s), min: Math.min(...s), max: Math.max(...s), rss: Math.max(...ms.map((m) => m.rssMb ?? 0)) };
-};
-const display = (argv) =>
-  argv
-    .map((a) =>
-      a === process.execPath ? "node" : a.startsWith(tmp) ? a.replace(tmp, "$TMP") : a.startsWith(root) ? a.slice(root.length) : a,
-    )
-    .join(" ");
-let md = `# Benchmarks\n\nWritten by \`npm run bench\` (bench/run.mjs); do not edit by hand (bench/analysis.md is appended as it is).\n\n`;
-md += `- Machine: ${cpus()[0]?.model ?? "unknown"}, ${cpus().length} cores, ${(totalmem() / 2 ** 30).toFixed(1)} GiB memory, ${platform()} ${release()}\n`;
-md += `- Node ${process.version}; Python ${pythonVersion[0]}, numpy ${pythonVersion[1]}\n`;
-md += `- Date: ${new Date().toISOString()}\n`;
-md += `- Method: one untimed warm-up per side, then ${rounds} paired rounds (ours and numpy interleaved, order alternating); wall time of the whole process including interpreter start-up, output to a file; peak RSS by ${hasTime ? "/usr/bin/time -f %M" : "process.resourceUsage().maxRSS in a wrapper"}.\n`;
-md += `- Data: generated per run with \`node dist/cli.cjs simulate ${simulateArgs.join(" ")}\` (2,520 rows, seed 1, full precision, ${(sizes.daily / 1024).toFixed(0)} KiB; 1,000,000 rows, ${(sizes.big / 2 ** 20).toFixed(1)} MiB, seed 2, --digits 9, plus rf and a fourth numeric column).\n\n`;
-md += `| case | ours median (min-max) s | numpy median (min-max) s | ratio ours/numpy | target | peak RSS ours / numpy MB | met |\n|---|---|---|---|---|---|---|\n`;
-for (const r of results) {
-  if (r.skipped) {
-    md += `| (${r.id}) ${r.title} | skipped | | | | | ${r.skipped} |\n`;
-    continue;
+const summary = results.map((r) => {
+  const stat = (name) => {
+    const s = r.runs[name].map((m) => m.seconds);
+    const rss = r.runs[name].map((m) => m.rssMb).filter((x) => x !== null);
+    return { median: median(s), min: Math.min(...s), max: Math.max(...s), rssMb: rss.length ? Math.max(...rss) : null, all: s };
+  };
+  const stats = Object.fromEntries(r.sides.map((s) => [s.name, stat(s.name)]));
+  const peerMedians = Object.fromEntries(r.sides.filter((s) => s.role === "peer").map((s) => [s.name, stats[s.name].median]));
+  const best = bestPeer(peerMedians);
+  return {
+    ...r,
+    stats,
+    best,
+    ratioBest: ratio(stats.ours.median, best?.median),
+    ratioNumpy: ratio(stats.ours.median, peerMedians.numpy),
+  };
+});
+const full = !selected && rowsScale === 1;
+const markdown = renderResults({
+  summary,
+  full,
+  machine: {
+    cpu: cpus()[0]?.model ?? "unknown",
+    cores: cpus().length,
+    memoryGiB: totalmem() / 2 ** 30,
+    os: `${platform()} ${release()}`,
+    node: process.version,
+    python: `${pythonVersion} (${python})`,
+    peers: peerVersions,
+    loadAtStart,
+    loadAtEnd,
+    memorySource,
+    date: new Date().toISOString(),
+    rowsScale,
+  },
+  root,
+  cacheDir,
+  analysis: existsSync(join(root, "bench", "analysis.md")) ? readFileSync(join(root, "bench", "analysis.md"), "utf8") : "",
+});
+const target = full ? join(root, "bench", "RESULTS.md") : join(cacheDir, "RESULTS-partial.md");
+writeFileSync(target, markdown);
+log(`wrote ${target}`);
+// Every output agreed (a disagreement exits above and keeps them for inspection): free the disk.
+rmSync(outDir, { recursive: true, force: true });
+
+// ---- agreement checks --------------------------------------------------------------------------
+function checkSolve(kind, oursPath, peerPath, expectedPairs) {
+  const peer = readJson(peerPath);
+  const ours =
+    kind === "batch"
+      ? readFileSync(oursPath, "utf8")
+          .split("\n")
+          .filter((line) => line !== "")
+          .map((line) => JSON.parse(line))
+      : [readJson(oursPath)];
+  const byPair = new Map(ours.map((doc) => [`${doc.input?.lowColumn}\t${doc.input?.highColumn}`, doc]));
+  const failures = [];
+  if (ours.length !== expectedPairs) failures.push(`${ours.length} pairs in our output, ${expectedPairs} expected`);
+  if (peer.pairs.length !== expectedPairs) failures.push(`${peer.pairs.length} pairs in the peer's output, ${expectedPairs} expected`);
+  let worst = 0;
+  let worstPath = null;
+  let compared = 0;
+  for (const p of peer.pairs) {
+    const doc = kind === "batch" ? byPair.get(`${p.low}\t${p.high}`) : ours[0];
+    if (doc === undefined) {
+      failures.push(`pair ${p.low}/${p.high}: missing from our output`);
+      continue;
+    }
+    const result = compareDigest(doc, p.values, solveTolerance);
+    compared += result.compared;
+    failures.push(...result.failures.map((f) => `${p.low}/${p.high} ${f}`));
+    if (result.worst > worst || worstPath === null) {
+      worst = result.worst;
+      worstPath = result.worstPath;
+    }
   }
-  const o = stats(r.oursRuns);
-  const p = stats(r.peerRuns);
-  const ratio = o.median / p.median;
-  const met = r.target === null ? null : ratio <= r.target.ratio && (r.target.rssMb === undefined || o.rss < r.target.rssMb);
-  const target = r.target === null ? "(reference)" : `<= ${r.target.ratio}${r.target.rssMb ? `, RSS < ${r.target.rssMb} MB` : ""}`;
-  md += `| (${r.id}) ${r.title} | ${fmtS(o.median)} (${fmtS(o.min)}-${fmtS(o.max)}) | ${fmtS(p.median)} (${fmtS(p.min)}-${fmtS(p.max)}) | ${ratio.toFixed(2)} | ${target} | ${o.rss.toFixed(0)} / ${p.rss.toFixed(0)} | ${met === null ? "-" : met ? "yes" : "**no**"} |\n`;
+  return { ok: failures.length === 0 && compared > 0, worst, worstPath, failures, compared };
 }
-md += `\n## Commands and checks\n\n`;
-for (const r of results) {
-  md += `### (${r.id}) ${r.title}\n\n`;
-  if (r.skipped) {
-    md += `Skipped: ${r.skipped}\n\n`;
-    continue;
+
+/** Our own outputs under other settings (e.g. --threads 1) must be the same bytes. */
+function checkIdentical(a, b) {
+  const same = readFileSync(a).equals(readFileSync(b));
+  return {
+    ok: same,
+    worst: same ? 0 : Number.POSITIVE_INFINITY,
+    worstPath: "the output's bytes",
+    failures: same ? [] : [`${a} and ${b} differ`],
+    compared: 1,
+  };
+}
+
+function checkRoll(oursPath, peerPath) {
+  const mine = fileLines(oursPath);
+  const theirs = fileLines(peerPath);
+  const comparer = rollComparer(mine.next().value ?? "", theirs.next().value ?? "", rollTolerance);
+  let ourRows = 0;
+  let peerRows = 0;
+  for (;;) {
+    const a = mine.next();
+    const b = theirs.next();
+    if (!a.done && a.value !== "") ourRows++;
+    if (!b.done && b.value !== "") peerRows++;
+    if (a.done || b.done || a.value === "" || b.value === "") {
+      for (let x = mine.next(); !x.done; x = mine.next()) if (x.value !== "") ourRows++;
+      for (let y = theirs.next(); !y.done; y = theirs.next()) if (y.value !== "") peerRows++;
+      break;
+    }
+    comparer.row(a.value, b.value);
   }
-  md += `- ours: \`${display(r.ours)}\`\n- numpy: \`${display(r.peer)}\`\n`;
-  if (r.note) md += `- ${r.note}\n`;
-  md += `- outputs: ${r.agreement}\n`;
-  md += `- ours, s: ${r.oursRuns.map((m) => fmtS(m.seconds)).join(", ")}; numpy, s: ${r.peerRuns.map((m) => fmtS(m.seconds)).join(", ")}\n\n`;
+  return comparer.result(ourRows, peerRows);
 }
-const analysis = join(benchDir, "analysis.md");
-if (existsSync(analysis)) md += `\n${readFileSync(analysis, "utf8")}`;
-writeFileSync(join(benchDir, "RESULTS.md"), md);
-log("wrote bench/RESULTS.md");

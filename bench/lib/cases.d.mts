@@ -1,0 +1,15 @@
+// Types of cases.mjs for the TypeScript tests (test/bench).
+import type { Tolerance } from "./check.mjs";
+export const exact: number;
+export function solveTolerance(path: string): Tolerance;
+export function rollTolerance(name: string): Tolerance;
+export function buildCases(): Array<{
+  id: string;
+  title: string;
+  data: string;
+  kind: "solve" | "roll" | "batch";
+  peers: string[];
+  variants: Array<{ label: string; args: string[] }>;
+  ours: (file: string, out: string) => string[];
+  job: { job: string; pairs: string[][]; window?: number; step: number; weight: number; uncertainty?: boolean; dateColumn: string };
+}>;
