@@ -106,7 +106,8 @@ const covarianceNames: Record<IndexCovariance, string> = {
 };
 
 const fmt = (x: number): string => (Number.isFinite(x) ? Number(x.toPrecision(6)).toString() : String(x));
-const fmtP = (p: number): string => (p < 0.0001 ? "< 0.0001" : p.toFixed(4));
+/** "p = 0.0123", or "p < 0.0001". */
+const fmtP = (p: number): string => (p < 0.0001 ? "p < 0.0001" : `p = ${p.toFixed(4)}`);
 
 /** The one place where diagnostic wording lives. */
 export function describeDiagnostic(detail: DiagnosticDetail): string {
@@ -137,7 +138,7 @@ export function describeDiagnostic(detail: DiagnosticDetail): string {
     case "return-implied-outside-set":
       return (
         `the return-implied low structural beta ${fmt(detail.lowBeta)} lies outside the identified set ` +
-        `[${fmt(detail.min)}, ${fmt(detail.max)}], significantly (p = ${fmtP(detail.pValue)} < ${fmt(1 - detail.confidence)}): ` +
+        `[${fmt(detail.min)}, ${fmt(detail.max)}], significantly (${fmtP(detail.pValue)}, below ${fmt(1 - detail.confidence)}): ` +
         "noise in the betas does not explain the mean returns under one priced factor and uncorrelated noise"
       );
     case "return-implied-outside-not-significant":
@@ -146,7 +147,7 @@ export function describeDiagnostic(detail: DiagnosticDetail): string {
         `[${fmt(detail.min)}, ${fmt(detail.max)}] by the point estimates, ` +
         (detail.pValue === null || detail.confidence === null
           ? "untested (standard errors are off): no conclusion is drawn"
-          : `but not significantly (p = ${fmtP(detail.pValue)} >= ${fmt(1 - detail.confidence)}): noise can still explain the alpha`)
+          : `but not significantly (${fmtP(detail.pValue)}, not below ${fmt(1 - detail.confidence)}): noise can still explain the alpha`)
       );
     case "uncertainty-unavailable":
       return `standard errors and intervals need at least ${detail.minimum} observations (there are ${detail.observations}); none are reported`;

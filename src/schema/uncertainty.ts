@@ -43,7 +43,12 @@ export const betaIntervalSchema = doc(
 );
 
 const sharpeSchema = doc(
-  z.strictObject({ estimate: z.number(), iidStdErr: z.number().nonnegative(), hacStdErr: z.number().nonnegative() }),
+  z.strictObject({
+    estimate: z.number(),
+    iidStdErr: doc(z.number().nonnegative(), "iid normal returns (Lo 2002)"),
+    mertensStdErr: doc(z.number().nonnegative(), "iid returns with the sample's skewness and kurtosis (Mertens 2002)"),
+    hacStdErr: z.number().nonnegative(),
+  }),
   "per-period Sharpe ratio of the excess returns with Lo (2002) iid and HAC standard errors",
   "SharpeRatio",
 );

@@ -21,6 +21,8 @@ import type { HacOptions } from "./options.js";
 export interface SharpeStdErrors {
   readonly estimate: number;
   readonly iidStdErr: number;
+  /** Mertens (2002) iid standard error with the sample's skewness and kurtosis (moment estimates, divisor T). */
+  readonly mertensStdErr: number;
   readonly hacStdErr: number;
 }
 
@@ -47,18 +49,29 @@ export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {})
   const estimate = mu / sigma;
   const first = new Float64Array(n);
   const second = new Float64Array(n);
+  let m2 = 0;
+  let m3 = 0;
+  let m4 = 0;
   // The moment functions standardised, (d / sigma, (d / sigma)^2 - 1), with the gradient (1, -SR / 2):
   // the same quadratic form for a given bandwidth, and an automatic bandwidth free of the returns' units.
   for (let t = 0; t < n; t++) {
     const z = (excess[t]! - mu) / sigma;
     first[t] = z;
     second[t] = z * z - 1;
+    m2 += z * z;
+    m3 += z * z * z;
+    m4 += z * z * z * z;
   }
+  // Skewness and kurtosis are ratios of central moments: the same from z as from the returns.
+  const skewness = m3 / n / (m2 / n) ** 1.5;
+  const kurtosis = m4 / n / (m2 / n) ** 2;
   const sigmaHat = longRunCovariance([first, second], hac).covariance;
   const gradient = [1, -estimate / 2];
   return {
     estimate,
     iidStdErr: sharpeIidStdErr(estimate, n),
+    // A quadratic in SR that is non-negative for any sample's skewness and kurtosis (g4 >= 1 + g3^2).
+    mertensStdErr: sharpeMertensStdErr(estimate, skewness, kurtosis, n),
     // A quadratic form of a positive semi-definite matrix: negative only by rounding.
     hacStdErr: Math.sqrt(Math.max(0, bilinear(gradient, sigmaHat, gradient)) / n),
   };

@@ -11,7 +11,8 @@ import { indent, table, wrap, type Style } from "../layout.js";
 
 type Alpha = PricingJson["alpha"]["low"];
 
-const pValue = (p: number): string => (p < 0.0001 ? "< 0.0001" : formatNumber(p, 3));
+/** "p = 0.692", or "p < 0.0001". */
+const pIs = (p: number): string => (p < 0.0001 ? "p < 0.0001" : `p = ${formatNumber(p, 3)}`);
 const percentLevel = (confidence: number): string => `${Number((100 * confidence).toPrecision(6))}%`;
 const percent = (x: number): string => `${formatNumber(100 * x, 3)}%`;
 
@@ -34,13 +35,13 @@ export function pricingSentence(p: PricingJson): string {
   const alphaLevel = formatNumber(1 - p.confidence, 4);
   switch (test.verdict) {
     case "not explained":
-      return `No: ${alpha} lies ${position(a)}, significantly (p = ${pValue(test.pValue)} < ${alphaLevel}); no structure in the identified set explains it.`;
+      return `No: ${alpha} lies ${position(a)}, significantly (${pIs(test.pValue)} < ${alphaLevel}); no structure in the identified set explains it.`;
     case "explained":
-      return `Yes: ${alpha} lies ${position(a)}, significantly inside (p = ${pValue(test.explainedPValue)} < ${alphaLevel}); noise in the measured betas can account for it.`;
+      return `Yes: ${alpha} lies ${position(a)}, significantly inside (${pIs(test.explainedPValue)} < ${alphaLevel}); noise in the measured betas can account for it.`;
     case "undetermined":
       return (
         `Undetermined at ${level}: ${alpha} lies ${position(a)}, but the data cannot tell whether noise explains it ` +
-        `(p = ${pValue(test.pValue)} that it does, p = ${pValue(test.explainedPValue)} that it does not).`
+        `(${pIs(test.pValue)} that it does, ${pIs(test.explainedPValue)} that it does not).`
       );
   }
 }
@@ -103,8 +104,8 @@ export function pricingSection(p: PricingJson | null, style: Style): string[] {
   if (p.test !== null) {
     lines.push(
       ...wrap(
-        `Test of "noise explains the alpha": statistic ${formatNumber(p.test.statistic, 3)}, p = ${pValue(p.test.pValue)}; ` +
-          `of "it does not": p = ${pValue(p.test.explainedPValue)}. Method: ${p.test.method}.`,
+        `Test of "noise explains the alpha": statistic ${formatNumber(p.test.statistic, 3)}, ${pIs(p.test.pValue)}; ` +
+          `of "it does not": ${pIs(p.test.explainedPValue)}. Method: ${p.test.method}.`,
         indent,
         indent,
       ),

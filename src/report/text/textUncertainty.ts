@@ -67,7 +67,7 @@ export function boundsWithUncertaintySection(bounds: IdentifiedBounds, u: Uncert
   ];
 }
 
-/** Per-period Sharpe ratios with Lo (2002) iid and HAC standard errors. */
+/** Per-period Sharpe ratios with Lo (2002) iid-normal, Mertens (2002) iid and HAC standard errors. */
 export function sharpeSection(u: Uncertainty, periodsPerYear: number | null, style: Style): string[] {
   const names = ["low", "high", "market"] as const;
   const annual = periodsPerYear === null ? null : Math.sqrt(periodsPerYear);
@@ -77,7 +77,8 @@ export function sharpeSection(u: Uncertainty, periodsPerYear: number | null, sty
       header: [
         "",
         "per period",
-        "iid\nstd. error",
+        "iid normal\nstd. error",
+        "iid (Mertens)\nstd. error",
         "HAC\nstd. error",
         ...(annual === null ? [] : [`annualised\n(x sqrt(${periodsPerYear}))`]),
       ],
@@ -87,6 +88,7 @@ export function sharpeSection(u: Uncertainty, periodsPerYear: number | null, sty
           name,
           formatNumber(s.estimate),
           formatNumber(s.iidStdErr),
+          formatNumber(s.mertensStdErr),
           formatNumber(s.hacStdErr),
           ...(annual === null ? [] : [formatNumber(s.estimate * annual)]),
         ];

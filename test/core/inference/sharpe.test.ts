@@ -6,7 +6,8 @@
  * - The HAC delta method with lag 0 is Mertens' formula with moment estimates (algebra in sharpe.ts).
  */
 
-import { describe, test } from "vitest";
+import { readFileSync } from "node:fs";
+import { describe, expect, it, test } from "vitest";
 import { sharpeIidStdErr, sharpeMertensStdErr, sharpeStdErrors } from "../../../src/core/inference/sharpe.js";
 import { createRandom } from "../../../src/core/numerics/rng.js";
 import { expectClose } from "../../support/close.js";
@@ -45,5 +46,17 @@ describe("HAC delta-method Sharpe standard error", () => {
     // sharpe.ts uses sigma with divisor T - 1 in the estimate and the gradient: an O(1/T) difference.
     expectClose(result.hacStdErr, expected, { rel: 3 / n });
     expectClose(result.iidStdErr, sharpeIidStdErr(result.estimate, n), { rel: 1e-15 });
+  });
+});
+
+describe("the Mertens (2002) iid standard error from the sample's own skewness and kurtosis", () => {
+  // scipy.stats.skew and kurtosis(fisher=False) on the bundled example (test/fixtures/inference/sharpe_mertens.py).
+  const reference = JSON.parse(readFileSync(new URL("../../fixtures/inference/sharpe-mertens.json", import.meta.url), "utf8")) as {
+    series: Record<string, { returns: number[]; sharpe: number; mertensStdErr: number }>;
+  };
+  it.each(Object.entries(reference.series))("%s", (_, s) => {
+    const result = sharpeStdErrors(s.returns);
+    expect(result.estimate).toBeCloseTo(s.sharpe, 13);
+    expect(Math.abs(result.mertensStdErr / s.mertensStdErr - 1)).toBeLessThan(1e-12);
   });
 });
