@@ -28,7 +28,7 @@ export function pricingFor(
   solution: Solution,
   uncertainty: Uncertainty | null,
   options: CommandOptions<"solve">,
-  periodsPerYear: number | null,
+  input: { readonly periodsPerYear: number | null; readonly excessReturns: boolean },
 ): { pricing: PricingJson | null; solution: Solution } {
   if (solution.bounds === null || solution.landmarks === null) return { pricing: null, solution };
   const tested = uncertainty !== null;
@@ -41,7 +41,7 @@ export function pricingFor(
     ...(tested ? { alphaStdErrors: { low: uncertainty.capm.low.hac.alphaStdErr, high: uncertainty.capm.high.hac.alphaStdErr } } : {}),
   });
   if (assessed === null) return { pricing: null, solution };
-  const pricing = pricingJson(assessed, uncertainty, sample.riskFree !== undefined, periodsPerYear);
+  const pricing = pricingJson(assessed, uncertainty, input.excessReturns, input.periodsPerYear);
   return { pricing, solution: tested ? decidedByTest(solution, assessed) : solution };
 }
 
@@ -52,6 +52,7 @@ function decidedByTest(solution: Solution, pricing: Pricing): Solution {
   const kept = solution.diagnostics.filter((d) => !pointDiagnostics.has(d.code));
   const added: Diagnostic[] = [];
   const { fieller, estimate, marketMeanTStat } = pricing.returnImplied;
+  // The landmark: only where Fieller's set is bounded (at the report's confidence) and a structure exists.
   let returnImplied = null;
   if (fieller.shape !== "bounded" || estimate === null) {
     const criticalValue = fiellerCriticalValue(pricing.confidence);
@@ -66,30 +67,25 @@ function decidedByTest(solution: Solution, pricing: Pricing): Solution {
       covariance: moments.covariance.lowHigh,
     };
     returnImplied = landmarks.returnImplied ?? structureAt(estimate, summary);
-    const { min, max } = bounds.lowBeta;
-    if (estimate < min || estimate > max) {
-      const test = pricing.test;
-      const significant = test !== null && test.verdict === "not explained";
-      added.push(
-        significant
-          ? diagnose({
-              code: "return-implied-outside-set",
-              lowBeta: estimate,
-              min,
-              max,
-              pValue: test.pValue,
-              confidence: pricing.confidence,
-            })
-          : diagnose({
-              code: "return-implied-outside-not-significant",
-              lowBeta: estimate,
-              min,
-              max,
-              pValue: test?.pValue ?? null,
-              confidence: test === null ? null : pricing.confidence,
-            }),
-      );
-    }
+  }
+  // The verdict on "outside the set" comes from the test, whether or not the point itself is reported
+  // (the test is written in the means and needs no bounded ratio).
+  const { min, max } = bounds.lowBeta;
+  const test = pricing.test;
+  if (estimate !== null && (estimate < min || estimate > max)) {
+    const significant = test !== null && test.verdict === "not explained";
+    added.push(
+      significant
+        ? diagnose({ code: "return-implied-outside-set", lowBeta: estimate, min, max, pValue: test.pValue, confidence: pricing.confidence })
+        : diagnose({
+            code: "return-implied-outside-not-significant",
+            lowBeta: estimate,
+            min,
+            max,
+            pValue: test?.pValue ?? null,
+            confidence: test === null ? null : pricing.confidence,
+          }),
+    );
   }
   return { ...solution, landmarks: { ...landmarks, returnImplied }, diagnostics: [...kept, ...added] };
 }

@@ -111,7 +111,10 @@ async function solveLoaded(load: PairLoad, options: CommandOptions<"solve">, con
   const assessed = await uncertaintyFor(sample, solved.value, options, context);
   const input = describeInput(loaded, options);
   // The pricing section, and the return-implied landmark and its diagnostics as the test decides them.
-  const priced = pricingFor(sample, solved.value, assessed.uncertainty, options, input.frequency?.periodsPerYear ?? null);
+  const priced = pricingFor(sample, solved.value, assessed.uncertainty, options, {
+    periodsPerYear: input.frequency?.periodsPerYear ?? null,
+    excessReturns: input.riskFree.kind !== "none",
+  });
   const solution =
     assessed.note === null ? priced.solution : { ...priced.solution, diagnostics: [...priced.solution.diagnostics, assessed.note] };
   const models = modelsFor(loaded, sample, solution, assessed.uncertainty, options);
