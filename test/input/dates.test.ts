@@ -191,3 +191,38 @@ describe("plainIsoDateOfKey", () => {
       expect(plainIsoDateOfKey(plainIsoDateKey(text))).toBe(text);
   });
 });
+
+describe("dates that name their month, read without --date-format", () => {
+  // Expected keys from Date.UTC (the platform's calendar, independent of this project's code).
+  const day = (y: number, m: number, d: number) => new Date(Date.UTC(y, m - 1, d)).toISOString().slice(0, 10);
+  it.each([
+    ["Jan 1 2000", day(2000, 1, 1)],
+    ["January 1, 2000", day(2000, 1, 1)],
+    ["Sep 30 2021", day(2021, 9, 30)],
+    ["Sept. 30 2021", day(2021, 9, 30)],
+    ["1 Jan 2000", day(2000, 1, 1)],
+    ["31 December 1999", day(1999, 12, 31)],
+    ["01-Feb-2000", day(2000, 2, 1)],
+    ["2000-Mar-05", day(2000, 3, 5)],
+    ["dec 7 2001", day(2001, 12, 7)],
+  ])("%s is %s", (text, iso) => {
+    expect(isos([text])).toEqual([iso]);
+  });
+
+  it("a month and year alone are a monthly date", () => {
+    expect(isos(["Jan 2000", "Feb-2000"])).toEqual(["2000-01", "2000-02"]);
+  });
+
+  it("a named date that does not exist says why, and a word that names no month says so", () => {
+    const column = readDateColumn(["Feb 30 2001"]);
+    if (column.kind !== "dates") expect.fail(JSON.stringify(column));
+    expect(column.keys[0]).toBeNaN();
+    expect(column.explain("Feb 30 2001")?.problem).toEqual({ kind: "short-month", year: 2001, month: 2, days: 28 });
+    expect(column.explain("Foo 3 2001")?.problem).toEqual({ kind: "no-month-name", name: "Foo" });
+  });
+
+  it("a file whose dates name their month is read, its first column taken as the dates", () => {
+    const table = readOk(withDates(["Jan 3 2000", "Jan 4 2000", "Jan 5 2000", "Jan 6 2000"]));
+    expect(table.dates).toEqual(["2000-01-03", "2000-01-04", "2000-01-05", "2000-01-06"]);
+  });
+});

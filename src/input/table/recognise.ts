@@ -5,7 +5,7 @@
  * by its header naming a requested column, or by its first column holding a date near the top.
  */
 import type { Grid } from "../engines/grid.js";
-import { compileDateFormat } from "../values/dateFormat.js";
+import { compileDateFormat, parseMonthNameDate } from "../values/dateFormat.js";
 import { parseUnambiguousDate, slashReadings } from "../values/dates.js";
 import type { TableLocation } from "./layout.js";
 
@@ -23,7 +23,11 @@ export function isReturnTable(grid: Grid, location: TableLocation, wanted: reado
   const isDate = (text: string): boolean => {
     if (typeof parse === "function") return parse(text) !== null;
     const slash = slashReadings(text);
-    return parseUnambiguousDate(text) !== null || (slash !== undefined && (slash.dayFirst !== null || slash.monthFirst !== null));
+    return (
+      parseUnambiguousDate(text) !== null ||
+      parseMonthNameDate(text) !== null ||
+      (slash !== undefined && (slash.dayFirst !== null || slash.monthFirst !== null))
+    );
   };
   const end = Math.min(location.endRow, location.firstDataRow + DATE_ROWS);
   for (let row = location.firstDataRow; row < end; row++) if (isDate(grid.field(row, 0).trim())) return true;

@@ -1,10 +1,11 @@
 /**
  * Reading a whole date column. Without an explicit layout each date must be unambiguous (see
- * `parseUnambiguousDate`) or a slash date A/B/YYYY. Slash dates are read day-first or month-first
+ * `parseUnambiguousDate`), name its month (`monthNameLayouts`: "Jan 1 2000", "1 Jan 2000",
+ * "2000-Jan-01", ...) or be a slash date A/B/YYYY. Slash dates are read day-first or month-first
  * for the whole column: the reading under which every slash date is a real calendar date wins;
  * when both readings work and they differ for some date, the column is ambiguous.
  */
-import { compileDateReader } from "./dateFormat.js";
+import { compileDateReader, parseMonthNameDate, readMonthNameDate } from "./dateFormat.js";
 import {
   dateOnly,
   parseUnambiguousDate,
@@ -64,14 +65,14 @@ export function readDateColumn(texts: readonly string[], dateFormat?: string): D
     const key = plainIsoDateKey(text);
     keys[index] = key;
     if (!Number.isNaN(key)) continue;
-    const date = parseUnambiguousDate(text);
+    const date = parseUnambiguousDate(text) ?? parseMonthNameDate(text);
     if (date !== null) put(index, date);
     else {
       const readings = slashReadings(text);
       if (readings) slashes.push({ index, readings });
     }
   }
-  if (slashes.length === 0) return { kind: "dates", keys, isos, explain: (text) => problemOf(readUnambiguousDate(text)) };
+  if (slashes.length === 0) return { kind: "dates", keys, isos, explain: (text) => problemOf(readUnambiguousDate(text), text) };
   const dayFirstFails = slashes.filter((s) => s.readings.dayFirst === null).length;
   const monthFirstFails = slashes.filter((s) => s.readings.monthFirst === null).length;
   if (dayFirstFails === 0 && monthFirstFails === 0) {
@@ -88,14 +89,16 @@ export function readDateColumn(texts: readonly string[], dateFormat?: string): D
   const reading = settled ? { reading: useDayFirst ? ("day first" as const) : ("month first" as const) } : {};
   const explain = (text: string): DateExplanation | null => {
     const problem = slashProblem(text, useDayFirst);
-    return problem === null ? problemOf(readUnambiguousDate(text)) : { problem, ...reading };
+    return problem === null ? problemOf(readUnambiguousDate(text), text) : { problem, ...reading };
   };
   return { kind: "dates", keys, isos, explain };
 }
 
 /** The explanation of a read that fitted a layout but gave no date. */
-const problemOf = (read: ReturnType<typeof readUnambiguousDate>): DateExplanation | null =>
-  read !== null && "kind" in read ? { problem: read } : null;
+const problemOf = (read: ReturnType<typeof readUnambiguousDate>, text?: string): DateExplanation | null => {
+  const found = read ?? (text === undefined ? null : readMonthNameDate(text));
+  return found !== null && "kind" in found ? { problem: found } : null;
+};
 
 function set(keys: Float64Array, isos: string[], index: number, date: ParsedDate | null): void {
   keys[index] = date === null ? Number.NaN : date.key;

@@ -98,3 +98,28 @@ export function compileDateReader(format: string): DateReader | string {
     return month === null ? { kind: "no-month-name", name } : calendarDateOrProblem(year, month, day);
   };
 }
+
+/**
+ * Layouts with an English month name, read without --date-format: the name makes the order of the
+ * parts plain ("Jan 1 2000", "January 1, 2000", "1 Jan 2000", "01-Jan-2000", "2000-Jan-01",
+ * "Jan 2000" and "Jan-2000" for monthly dates).
+ */
+export const monthNameLayouts = ["MMM D YYYY", "MMM D, YYYY", "D MMM YYYY", "D-MMM-YYYY", "YYYY-MMM-D", "MMM YYYY", "MMM-YYYY"] as const;
+
+const monthNameReaders = monthNameLayouts.map((layout) => compileDateReader(layout) as DateReader);
+
+/** A date in one of `monthNameLayouts`, or why a text of that shape is no date; null when it fits none. */
+export function readMonthNameDate(text: string): DateOrProblem | null {
+  // A quick refusal: every layout holds a letter.
+  if (!/[A-Za-z]/.test(text)) return null;
+  for (const read of monthNameReaders) {
+    const result = read(text);
+    if (result !== null) return result;
+  }
+  return null;
+}
+
+/** `readMonthNameDate` as a date, or null. */
+export function parseMonthNameDate(text: string): ParsedDate | null {
+  return dateOnly(readMonthNameDate(text));
+}
