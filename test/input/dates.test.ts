@@ -226,3 +226,52 @@ describe("dates that name their month, read without --date-format", () => {
     expect(table.dates).toEqual(["2000-01-03", "2000-01-04", "2000-01-05", "2000-01-06"]);
   });
 });
+
+describe("the date column, when --date is not given", () => {
+  it("in the long layout: the column named like a date, not the id column that comes first", () => {
+    const text = [
+      "symbol,date,value",
+      ...["2000-01-03", "2000-01-04", "2000-01-05"].flatMap((d, i) => [`AAA,${d},0.0${i + 1}`, `BBB,${d},0.0${3 - i}`]),
+    ].join("\n");
+    const table = readOk(text, { idColumn: "symbol", valueColumn: "value", columns: ["AAA", "BBB"] });
+    expect(table.dateColumn).toBe("date");
+    expect(table.dates).toEqual(["2000-01-03", "2000-01-04", "2000-01-05"]);
+  });
+
+  it("in the wide layout: a dated column named like a date wherever it stands, else the first dated column", () => {
+    const named = [
+      "Fund Code,As Of,Low Fund,High Fund",
+      "X1,2000-01-31,0.01,0.02",
+      "X1,2000-02-29,0.02,0.01",
+      "X1,2000-03-31,0.03,0.04",
+    ].join("\n");
+    expect(readOk(named, { columns: ["Low Fund", "High Fund"] }).dateColumn).toBe("As Of");
+    const unnamed = [
+      "Fund Code,Stamp,Low Fund,High Fund",
+      "X1,2000-01-31,0.01,0.02",
+      "X1,2000-02-29,0.02,0.01",
+      "X1,2000-03-31,0.03,0.04",
+    ].join("\n");
+    expect(readOk(unnamed, { columns: ["Low Fund", "High Fund"] }).dateColumn).toBe("Stamp");
+  });
+
+  it("keeps the first column when it holds dates, and a column named like a date but holding none is passed over", () => {
+    const text = [
+      "When,Update Date,Low Fund,High Fund",
+      "2000-01-31,n/a,0.01,0.02",
+      "2000-02-29,n/a,0.02,0.01",
+      "2000-03-31,n/a,0.03,0.04",
+    ].join("\n");
+    expect(readOk(text, { columns: ["Low Fund", "High Fund"] }).dateColumn).toBe("When");
+  });
+
+  it("--date still decides", () => {
+    const text = [
+      "A,B,Low Fund,High Fund",
+      "2000-01-31,2001-01-31,0.01,0.02",
+      "2000-02-29,2001-02-28,0.02,0.01",
+      "2000-03-31,2001-03-31,0.03,0.04",
+    ].join("\n");
+    expect(readOk(text, { columns: ["Low Fund", "High Fund"], dateColumn: "B" }).dates).toEqual(["2001-01-31", "2001-02-28", "2001-03-31"]);
+  });
+});

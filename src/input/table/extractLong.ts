@@ -15,6 +15,7 @@ import type { Sentinels } from "../values/numbers.js";
 import type { ReadOptions } from "../options.js";
 import { checkFieldCounts } from "./rowShape.js";
 import { closestName } from "../suggest.js";
+import { chooseDateColumn } from "./dateColumnChoice.js";
 
 /** Extract and pivot the requested series of the located table; null (after adding issues) on any problem. */
 export function extractLong(
@@ -28,8 +29,10 @@ export function extractLong(
   const { source } = options;
   const header = grid.fields(location.headerRow).map((name) => name.trim());
   const headerLine = grid.line(location.headerRow);
-  const dateColumn = options.dateColumn?.trim() ?? header[0] ?? "";
   const idColumn = (options.idColumn ?? "").trim();
+  const dateColumn =
+    options.dateColumn?.trim() ??
+    chooseDateColumn(grid, location, header, [idColumn, (options.valueColumn ?? "").trim()], options.dateFormat);
   const wanted = [
     { name: dateColumn, role: "date" as const },
     { name: idColumn, role: "series id" as const },

@@ -1,4 +1,5 @@
 /** The wide layout: one row per date, one column per series. */
+import { chooseDateColumn } from "./dateColumnChoice.js";
 import { readDates, settleCells } from "./cells.js";
 import { resolveColumns } from "./columns.js";
 import type { Extracted } from "./extracted.js";
@@ -21,7 +22,15 @@ export function extractWide(
   const { source } = options;
   const header = grid.fields(location.headerRow).map((name) => name.trim());
   const headerLine = grid.line(location.headerRow);
-  const dateColumn = options.dateColumn?.trim() ?? header[0] ?? "";
+  const dateColumn =
+    options.dateColumn?.trim() ??
+    chooseDateColumn(
+      grid,
+      location,
+      header,
+      options.columns.map((name) => name.trim()),
+      options.dateFormat,
+    );
   const wanted = [
     { name: dateColumn, role: "date" as const },
     ...options.columns.map((name) => ({ name: name.trim(), role: "value" as const })),

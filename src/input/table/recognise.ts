@@ -12,15 +12,10 @@ import type { TableLocation } from "./layout.js";
 /** The first data rows looked at for a date. */
 const DATE_ROWS = 5;
 
-/**
- * True when the header row names one of `wanted` (the requested column names, trimmed), or a field
- * of the first column reads as a date (in `dateFormat` when given) in one of the first data rows.
- */
-export function isReturnTable(grid: Grid, location: TableLocation, wanted: readonly string[], dateFormat?: string): boolean {
-  const header = new Set(grid.fields(location.headerRow).map((name) => name.trim()));
-  if (wanted.some((name) => header.has(name))) return true;
+/** A reader telling whether a text is a date (in `dateFormat` when given, else any layout read without one). */
+export function dateTest(dateFormat?: string): (text: string) => boolean {
   const parse = dateFormat === undefined ? undefined : compileDateFormat(dateFormat);
-  const isDate = (text: string): boolean => {
+  return (text) => {
     if (typeof parse === "function") return parse(text) !== null;
     const slash = slashReadings(text);
     return (
@@ -29,7 +24,31 @@ export function isReturnTable(grid: Grid, location: TableLocation, wanted: reado
       (slash !== undefined && (slash.dayFirst !== null || slash.monthFirst !== null))
     );
   };
+}
+
+/** True when column `index` holds a date in one of the first data rows (all of them, with `every`). */
+export function columnHasDates(
+  grid: Grid,
+  location: TableLocation,
+  index: number,
+  isDate: (text: string) => boolean,
+  every = false,
+): boolean {
   const end = Math.min(location.endRow, location.firstDataRow + DATE_ROWS);
-  for (let row = location.firstDataRow; row < end; row++) if (isDate(grid.field(row, 0).trim())) return true;
-  return false;
+  if (end <= location.firstDataRow) return false;
+  for (let row = location.firstDataRow; row < end; row++) {
+    const found = index < grid.fieldCount(row) && isDate(grid.field(row, index).trim());
+    if (found !== every) return found;
+  }
+  return every;
+}
+
+/**
+ * True when the header row names one of `wanted` (the requested column names, trimmed), or a field
+ * of the first column reads as a date (in `dateFormat` when given) in one of the first data rows.
+ */
+export function isReturnTable(grid: Grid, location: TableLocation, wanted: readonly string[], dateFormat?: string): boolean {
+  const header = new Set(grid.fields(location.headerRow).map((name) => name.trim()));
+  if (wanted.some((name) => header.has(name))) return true;
+  return columnHasDates(grid, location, 0, dateTest(dateFormat));
 }

@@ -47,7 +47,7 @@ export const inputOptions = {
     help: "the date column",
     group: "reading",
     commands: readers,
-    otherwise: "the first column",
+    otherwise: "a column named like a date (Date, Month, As Of, ...) whose values are dates, else the first column of dates",
   }),
   rfColumnOrRate: option(columnOrNumberKind(), {
     name: "rf",
