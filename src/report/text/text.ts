@@ -4,12 +4,13 @@
  * and the assumptions, in that order. Pure: colour only when asked, no clock, no terminal queries.
  */
 
+import { styleFor, wrap } from "../layout.js";
 import { capmSection, inputSection, momentsSection } from "./textData.js";
-import { assumptionsSection, closingLines, diagnosticsSection } from "./textNotes.js";
+import { assumptionsSection, cautionLine, closingLines, diagnosticsSection } from "./textNotes.js";
 import { pricingSection } from "./textPricing.js";
 import { boundsSection, gridSection, landmarksSection, rejectedSection } from "./textSet.js";
-import { styleFor } from "../layout.js";
 import { modelSections } from "./textModels.js";
+import { summarySection } from "./textSummary.js";
 import { bootstrapSection, boundsWithUncertaintySection, precisionSection, sharpeSection } from "./textUncertainty.js";
 import type { RenderOptions, SolveReport } from "../types.js";
 
@@ -21,13 +22,16 @@ export function titleLine(report: SolveReport): string {
 /**
  * Renders the text report (LF line endings, trailing newline). When the model is rejected (no
  * bounds) the set sections are replaced by a plain statement of why, taken from the error diagnostic.
+ * With `options.brief`, the title, the summary and the caution alone.
  */
 export function renderText(report: SolveReport, options: RenderOptions): string {
   const style = styleFor(options);
   const s = report.solution;
   const u = report.uncertainty;
+  const head = [[style.heading(titleLine(report))], summarySection(report, style)];
+  if (options.brief === true) return joinSections([...head, wrap(cautionLine, "", "")]);
   const sections: string[][] = [
-    [style.heading(titleLine(report))],
+    ...head,
     inputSection(report.input, s.observations, style),
     momentsSection(s, style),
     capmSection(s, style, u),
@@ -45,6 +49,10 @@ export function renderText(report: SolveReport, options: RenderOptions): string 
   sections.push(...modelSections(report, style));
   if (u !== null) sections.push(sharpeSection(u, report.input.frequency?.periodsPerYear ?? null, style), bootstrapSection(u, style));
   sections.push(diagnosticsSection(s.diagnostics, style), assumptionsSection(s.weight, style), closingLines(report.input.riskFree));
+  return joinSections(sections);
+}
+
+function joinSections(sections: readonly string[][]): string {
   return `${sections
     .filter((lines) => lines.length > 0)
     .map((lines) => lines.join("\n"))
