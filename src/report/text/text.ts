@@ -5,7 +5,7 @@
  */
 
 import { styleFor, wrap } from "../layout.js";
-import { capmSection, inputSection, momentsSection } from "./textData.js";
+import { capmSection, inputSection, momentsSection, returnsWord } from "./textData.js";
 import { assumptionsSection, cautionLine, closingLines, diagnosticsSection } from "./textNotes.js";
 import { pricingSection } from "./textPricing.js";
 import { boundsSection, gridSection, landmarksSection, rejectedSection } from "./textSet.js";
@@ -30,11 +30,13 @@ export function renderText(report: SolveReport, options: RenderOptions): string 
   const u = report.uncertainty;
   const head = [[style.heading(titleLine(report))], summarySection(report, style)];
   if (options.brief === true) return joinSections([...head, wrap(cautionLine, "", "")]);
+  const perYear = report.input.frequency?.periodsPerYear ?? null;
+  const returns = returnsWord(report.input.riskFree);
   const sections: string[][] = [
     ...head,
     inputSection(report.input, s.observations, style),
-    momentsSection(s, style),
-    capmSection(s, style, u),
+    momentsSection(s, style, `Sample moments (${returns}, per period)`, perYear),
+    capmSection(s, style, u, perYear),
   ];
   if (s.bounds === null) {
     const reason = s.diagnostics.find((d) => d.severity === "error")?.message ?? null;
@@ -47,7 +49,7 @@ export function renderText(report: SolveReport, options: RenderOptions): string 
     sections.push(pricingSection(report.pricing, style), gridSection(s, style));
   }
   sections.push(...modelSections(report, style));
-  if (u !== null) sections.push(sharpeSection(u, report.input.frequency?.periodsPerYear ?? null, style), bootstrapSection(u, style));
+  if (u !== null) sections.push(sharpeSection(u, perYear, style, report.input.riskFree.kind !== "none"), bootstrapSection(u, style));
   sections.push(diagnosticsSection(s.diagnostics, style), assumptionsSection(s.weight, style), closingLines(report.input.riskFree));
   return joinSections(sections);
 }

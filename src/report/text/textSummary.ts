@@ -9,7 +9,8 @@
 import type { Diagnostic } from "../../core/diagnostics.js";
 import { normalQuantile } from "../../core/numerics/normal.js";
 import { formatCount, formatNumber } from "../format.js";
-import { indent, printable, wrap, type Style } from "../layout.js";
+import { type Section, sectionLines } from "../blocks.js";
+import { printable, type Style } from "../layout.js";
 import type { SolveReport } from "../types.js";
 import { pricingSentence } from "./textPricing.js";
 
@@ -83,9 +84,10 @@ export function summaryFields(report: SolveReport): SummaryField[] {
 }
 
 /** The Summary section: each fact on a line of its own, long ones wrapped under their value. */
+export function summary(report: SolveReport): Section {
+  return { id: "summary", heading: "Summary", blocks: [{ kind: "fields", pairs: summaryFields(report), wrapped: true }] };
+}
+
 export function summarySection(report: SolveReport, style: Style): string[] {
-  const pairs = summaryFields(report);
-  const width = Math.max(...pairs.map(([label]) => label.length));
-  const lines = pairs.flatMap(([label, value]) => wrap(value, `${indent}${label.padEnd(width)}  `, " ".repeat(indent.length + width + 2)));
-  return [style.heading("Summary"), ...lines];
+  return sectionLines(summary(report), style);
 }
