@@ -22,7 +22,8 @@ import { modelSectionsOf } from "../text/textModels.js";
 import { summary } from "../text/textSummary.js";
 import { bootstrap, boundsWithUncertainty, precision, sharpe } from "../text/textUncertainty.js";
 import { sectionHtml } from "./htmlBlocks.js";
-import { candidateCells, candidateHeader as textCandidateHeader, landmarkDescriptions, reproductionTolerance } from "../text/textSet.js";
+import { landmarkWords } from "../conventions.js";
+import { candidateColumns, landmarkDescriptions, reproductionTolerance } from "../text/textSet.js";
 import type { InputDescription, RiskFreeSource, SolveReport } from "../types.js";
 import { escapeHtml, fields, inlineSvg, paragraph, section, table } from "./htmlElements.js";
 import { css } from "./htmlStyle.js";
@@ -72,8 +73,8 @@ export function renderHtmlReport(report: SolveReport, charts: HtmlReportCharts, 
   } else {
     sections.push(boundsSection(s));
     if (u !== null) sections.push(...shared(boundsWithUncertainty(s.bounds, u)), sectionHtml(precision(s, u)));
-    if (s.landmarks !== null) sections.push(landmarksSection(s));
-    sections.push(...shared(report.pricing === null ? null : pricing(report.pricing)), gridSection(s));
+    if (s.landmarks !== null) sections.push(landmarksSection(s, perYear));
+    sections.push(...shared(report.pricing === null ? null : pricing(report.pricing)), gridSection(s, perYear));
   }
   sections.push(...modelSectionsOf(report).map(sectionHtml));
   if (u !== null) sections.push(sectionHtml(sharpe(u, perYear, input.riskFree.kind !== "none")), ...shared(bootstrap(u)));
@@ -173,21 +174,31 @@ function boundsSection(s: Solution): string {
 }
 
 /** The text report's candidate columns, each heading on one line. */
-const candidateHeader = textCandidateHeader.map((h) => h.replace("\n", " "));
+function candidates(periodsPerYear: number | null) {
+  const columns = candidateColumns(periodsPerYear);
+  return { ...columns, header: columns.header.map((h) => h.replace(/\n/g, " ")) };
+}
 
-function landmarksSection(s: Solution): string {
+function landmarksSection(s: Solution, periodsPerYear: number | null): string {
   const landmarks = s.landmarks!;
+  const columns = candidates(periodsPerYear);
   const rows = landmarkNames.map((name) => {
     const c = landmarks[name];
     const note = c === null ? " (not reported: see Diagnostics)" : c.insideSet ? "" : " (outside the identified set: see Diagnostics)";
-    const cells = c === null ? candidateHeader.map(() => notAvailable) : candidateCells(c);
-    return [name, `${landmarkDescriptions[name]}${note}`, ...cells];
+    const cells = c === null ? columns.header.map(() => notAvailable) : columns.cells(c);
+    return [landmarkWords[name], `${landmarkDescriptions[name]}${note}`, ...cells];
   });
-  return section("landmarks", "Landmarks", table(["", "meaning", ...candidateHeader], rows, { textColumns: [1] }));
+  return section(
+    "landmarks",
+    "Landmarks",
+    table(["", "meaning", ...columns.header], rows, { textColumns: [1] }),
+    paragraph(columns.note, "note"),
+  );
 }
 
-function gridSection(s: Solution): string {
-  const rows = s.grid.map((c, i) => [String(i + 1), ...candidateCells(c)]);
+function gridSection(s: Solution, periodsPerYear: number | null): string {
+  const columns = candidates(periodsPerYear);
+  const rows = s.grid.map((c, i) => [String(i + 1), ...columns.cells(c)]);
   const discrepancy = largestCapmDiscrepancy(s);
   const check =
     discrepancy === null
@@ -205,7 +216,8 @@ function gridSection(s: Solution): string {
     "grid",
     "Candidate grid",
     paragraph(`${s.grid.length} structures with the low beta evenly spaced over the set, ends included.`, "note"),
-    table(["#", ...candidateHeader], rows),
+    table(["#", ...columns.header], rows),
+    paragraph(columns.note, "note"),
     check,
   );
 }

@@ -45,8 +45,8 @@ export function renderText(report: SolveReport, options: RenderOptions): string 
   } else {
     sections.push(boundsSection(s.bounds, style));
     if (u !== null) sections.push(boundsWithUncertaintySection(s.bounds, u, style), precisionSection(s, u, style));
-    if (s.landmarks !== null) sections.push(landmarksSection(s.landmarks, style));
-    sections.push(pricingSection(report.pricing, style), gridSection(s, style));
+    if (s.landmarks !== null) sections.push(landmarksSection(s.landmarks, style, perYear));
+    sections.push(pricingSection(report.pricing, style), gridSection(s, style, perYear));
   }
   sections.push(...modelSections(report, style));
   if (u !== null) sections.push(sharpeSection(u, perYear, style, report.input.riskFree.kind !== "none"), bootstrapSection(u, style));

@@ -10,6 +10,7 @@ import type { Uncertainty } from "../../core/inference/uncertaintyTypes.js";
 import type { IdentifiedBounds, Solution } from "../../core/types.js";
 import { formatNumber } from "../format.js";
 import { type Section, sectionLines } from "../blocks.js";
+import { landmarkWords } from "../conventions.js";
 import type { Style } from "../layout.js";
 
 const percent = (confidence: number): string => `${Number((confidence * 100).toPrecision(4))}%`;
@@ -128,9 +129,9 @@ const quantityLabels: Record<BootstrapQuantity, string> = {
   highCapmBeta: "CAPM beta, high",
   lowCapmAlpha: "CAPM alpha, low",
   highCapmAlpha: "CAPM alpha, high",
-  capmConsistentLowBeta: "capmConsistent low beta",
-  equalNoiseLowBeta: "equalNoise low beta",
-  returnImpliedLowBeta: "returnImplied low beta",
+  capmConsistentLowBeta: `${landmarkWords.capmConsistent} low beta`,
+  equalNoiseLowBeta: `${landmarkWords.equalNoise} low beta`,
+  returnImpliedLowBeta: `${landmarkWords.returnImplied} low beta`,
   lowSharpe: "Sharpe ratio, low",
   highSharpe: "Sharpe ratio, high",
   marketSharpe: "Sharpe ratio, market",

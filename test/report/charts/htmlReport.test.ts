@@ -1,7 +1,7 @@
 import { Parser } from "htmlparser2";
 import { describe, expect, test } from "vitest";
 import { landmarkNames } from "../../../src/core/types.js";
-import { modelAssumptions } from "../../../src/report/conventions.js";
+import { landmarkWords, modelAssumptions } from "../../../src/report/conventions.js";
 import { renderIdentifiedSetChart } from "../../../src/report/charts/identifiedSetChart.js";
 import { renderHtmlReport } from "../../../src/report/charts/htmlReport.js";
 import { formatNumber } from "../../../src/report/format.js";
@@ -141,9 +141,9 @@ describe("renderHtmlReport", () => {
       formatNumber(solution.bounds!.lowBeta.max),
     ]);
     const landmarks = rows(all(sectionById(root, "landmarks"), "table")[0]!);
-    expect(landmarks.slice(1).map((r) => r[0])).toEqual([...landmarkNames]);
+    expect(landmarks.slice(1).map((r) => r[0])).toEqual(landmarkNames.map((name) => landmarkWords[name]));
     for (const [i, name] of landmarkNames.entries()) expect(landmarks[i + 1]![1]).toContain(landmarkDescriptions[name]);
-    expect(landmarks.find((r) => r[0] === "returnImplied")![1]).toContain("(outside the identified set: see Diagnostics)");
+    expect(landmarks.find((r) => r[0] === landmarkWords.returnImplied)![1]).toContain("(outside the identified set: see Diagnostics)");
     const grid = rows(all(sectionById(root, "grid"), "table")[0]!);
     expect(grid).toHaveLength(solution.grid.length + 1);
     expect(textOf(sectionById(root, "grid"))).toContain("Check: every candidate reproduces the observed CAPM betas");
