@@ -16,7 +16,7 @@ import { excessReturnBasis, modelAssumptions } from "../conventions.js";
 import { formatCount, formatNumber, notAvailable } from "../format.js";
 import { titleLine } from "../text/text.js";
 import { cautionLine } from "../text/textNotes.js";
-import { capm, moments, returnsWord, riskFreeText } from "../text/textData.js";
+import { capm, moments, numbersText, returnsWord, riskFreeText, rowsText, tableText } from "../text/textData.js";
 import { pricing } from "../text/textPricing.js";
 import { modelSectionsOf } from "../text/textModels.js";
 import { summary } from "../text/textSummary.js";
@@ -144,8 +144,10 @@ function inputSection(input: InputDescription, observations: number): string {
       ["Dates", `column "${input.dateColumn}", ${input.firstDate} to ${input.lastDate}`],
       // The text report's wording; its printable() of a column name is what escapeHtml does first anyway.
       ["Risk-free", riskFreeText(input.riskFree)],
+      ["Table read", tableText(input)],
+      ["Numbers", numbersText[input.inputKind]],
       ["Units in file", units],
-      ["Observations", `${formatCount(observations)} used of ${formatCount(input.rowsRead)} rows read`],
+      ["Observations", `${formatCount(observations)} used of ${formatCount(input.rowsRead)} rows read${rowsText(input)}`],
       ["Frequency", frequency],
       ["Dropped rows", dropped],
     ]),

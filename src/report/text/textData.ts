@@ -32,6 +32,34 @@ function droppedText(input: InputDescription): string {
   return `${input.rowsDropped} with a missing value${list}`;
 }
 
+/** What the file's numbers were (--input), in words. */
+export const numbersText: Record<InputDescription["inputKind"], string> = {
+  returns: "returns (simple, per period)",
+  prices: "prices: each return is a price over the one before less 1 (the first row gives none)",
+  "log-returns": "log returns, converted to simple returns",
+};
+
+/** The layout of the table and which table of the file was read. */
+export function tableText(input: InputDescription): string {
+  const layout = input.layout === "long" ? "long layout (an id and a value column)" : "wide layout (a column per series)";
+  return `${layout}, table ${input.block} of the file`;
+}
+
+/**
+ * The rows read that were not used, by cause (": 2 dropped, 1 first price (no return)"); for one file
+ * in the wide layout, used + dropped + first prices = read. A long file has a row per series and date.
+ */
+export function rowsText(input: InputDescription): string {
+  const parts = [
+    ...(input.rowsDropped === 0 ? [] : [`${formatCount(input.rowsDropped)} dropped`]),
+    ...(input.rowsConsumed === 0
+      ? []
+      : [`${formatCount(input.rowsConsumed)} first price${input.rowsConsumed === 1 ? "" : "s"} (no return)`]),
+  ];
+  const long = input.layout === "long" ? " (a row per series and date)" : "";
+  return `${long}${parts.length === 0 ? "" : `: ${parts.join(", ")}`}`;
+}
+
 /** The Input section: where the numbers came from. */
 export function inputSection(input: InputDescription, observations: number, style: Style): string[] {
   const frequency =
@@ -47,8 +75,10 @@ export function inputSection(input: InputDescription, observations: number, styl
       ["High book", `column "${printable(input.highColumn)}"`],
       ["Dates", `column "${printable(input.dateColumn)}", ${printable(input.firstDate)} to ${printable(input.lastDate)}`],
       ["Risk-free", riskFreeText(input.riskFree)],
+      ["Table read", tableText(input)],
+      ["Numbers", numbersText[input.inputKind]],
       ["Units in file", units],
-      ["Observations", `${formatCount(observations)} used of ${formatCount(input.rowsRead)} rows read`],
+      ["Observations", `${formatCount(observations)} used of ${formatCount(input.rowsRead)} rows read${rowsText(input)}`],
       ["Frequency", frequency],
       ["Dropped rows", droppedText(input)],
       ...joinFields(input),
