@@ -79,3 +79,18 @@ describe("annualised figures and plain words in the text report", () => {
     expect(excess).toContain("\nSharpe ratios (excess returns)\n");
   });
 });
+
+describe("standard deviations in the candidate tables when the frequency is unknown", () => {
+  test("implied recovers the volatilities it was given at the return-implied landmark (the true structure)", async () => {
+    const { io, stdout } = fakeIo();
+    const args = ["implied", "--low-beta", "0.72", "--factor-vol", "0.045", "--factor-mean", "0.006"];
+    expect(await run([...args, "--low-noise-vol", "0.014", "--high-noise-vol", "0.022"], io)).toBe(0);
+    // The population's return-implied point is the structure itself: its stdevs are the vols given.
+    const row = stdout()
+      .split("\n")
+      .find((line) => line.startsWith(`  ${landmarkWords.returnImplied} `));
+    const cells = row!.trim().split(/ +/).slice(1);
+    expect(cells.slice(0, 5)).toEqual(["0.7200", "1.280", "0.04500", "0.01400", "0.02200"]);
+    expect(stdout()).toContain("stdev: standard deviation per period");
+  });
+});
