@@ -3,6 +3,7 @@
  * in one pair's columns does not drop rows for another), or, in two-file mode (--low PATH:COLUMN
  * --high PATH:COLUMN), the two books are read from their own files and joined on date.
  */
+import { provenanceOf } from "./provenance.js";
 import type { ReturnSample } from "../core/types.js";
 import {
   describeInputIssue,
@@ -169,6 +170,7 @@ export function describeInput(loaded: PairTable, options: ReadingOptions): Input
     droppedDates: table.dropped.firstDates,
     frequency: table.frequency,
     join: loaded.join,
+    ...provenanceOf(options, loaded.table.columns.get(loaded.keys.low)!.length, loaded.join === null ? 1 : 2),
   };
 }
 

@@ -107,6 +107,10 @@ const rulesAcross: { readonly [C in CommandName]: () => Rule[] } = {
       path: ["intervalSource"],
       message: "bootstrap standard errors need --bootstrap with at least 2 replicates",
     }),
+    across<CommandOptions<"solve">>((o) => !o.brief || o.format === "text", {
+      path: ["brief"],
+      message: "--brief shortens the text report: use it with --format text",
+    }),
   ],
   roll: () => [
     ...readerRules(),

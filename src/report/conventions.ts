@@ -3,6 +3,7 @@
  * report and their tests use the same words.
  */
 
+import type { LandmarkName } from "../core/types.js";
 import type { SolveOutputJson } from "../schema/solveOutput.js";
 import type { RiskFreeSource, SolveReport } from "./types.js";
 
@@ -42,3 +43,12 @@ export function conventionsFor(report: SolveReport): Conventions {
     assumptions: [...modelAssumptions],
   };
 }
+
+/** The landmarks in plain words, for the text, HTML and chart (the JSON and CSV keep the codes). */
+export const landmarkWords: Record<LandmarkName, string> = {
+  lowNoiseFree: "low book noise-free",
+  highNoiseFree: "high book noise-free",
+  equalNoise: "equal noise",
+  capmConsistent: "CAPM-consistent",
+  returnImplied: "return-implied",
+};

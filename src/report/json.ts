@@ -30,8 +30,13 @@ function inputOf(input: InputDescription): InputDescription {
     units: input.units,
     firstDate: input.firstDate,
     lastDate: input.lastDate,
+    layout: input.layout,
+    inputKind: input.inputKind,
+    block: input.block,
     rowsRead: input.rowsRead,
+    rowsUsed: input.rowsUsed,
     rowsDropped: input.rowsDropped,
+    rowsConsumed: input.rowsConsumed,
     droppedDates: [...input.droppedDates],
     frequency: input.frequency === null ? null : { name: input.frequency.name, periodsPerYear: input.frequency.periodsPerYear },
     join:

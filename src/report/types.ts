@@ -45,4 +45,6 @@ export type SensitivityReport = readonly NoiseSensitivity[];
 export interface RenderOptions {
   /** ANSI colour for headings and warnings; only when writing to a terminal without NO_COLOR. */
   readonly colour: boolean;
+  /** The text report's title, summary and caution alone (solve --brief); other formats ignore it. */
+  readonly brief?: boolean;
 }

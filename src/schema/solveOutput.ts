@@ -4,7 +4,7 @@
  */
 
 import * as z from "zod";
-import { unitChoices } from "../input/index.js";
+import { inputKinds, unitChoices } from "../input/index.js";
 import { boundsSchema, candidateSchema, diagnosticSchema, landmarksSchema, lineFitSchema, momentsSchema } from "./parts.js";
 import type { Document } from "./document.js";
 import { indexOutputSchema, sensitivityEntrySchema } from "./models.js";
@@ -36,8 +36,16 @@ export const inputSchema = doc(
     units: doc(z.enum(unitChoices), "units of the file's numbers; the output is always decimal"),
     firstDate: z.string(),
     lastDate: z.string(),
-    rowsRead: z.int().nonnegative(),
-    rowsDropped: z.int().nonnegative(),
+    layout: doc(z.enum(["wide", "long"]), "wide: a column per series; long: one id and one value column (--id-column, --value-column)"),
+    inputKind: doc(z.enum(inputKinds), "what the file's numbers were (--input): returns, prices (differenced) or log returns"),
+    block: doc(z.int().positive(), "which table of the file was read (1-based; tables separated by blank lines, --block)"),
+    rowsRead: doc(z.int().nonnegative(), "data rows read (summed over both files when joined on date)"),
+    rowsUsed: doc(z.int().nonnegative(), "rows (dates) used: the observations; a long file has a row per series and date"),
+    rowsDropped: doc(z.int().nonnegative(), "rows dropped for a missing value"),
+    rowsConsumed: doc(
+      z.int().nonnegative(),
+      "rows read that give no return: the first row of each price series (--input prices); for one file in the wide layout, rowsRead = rowsUsed + rowsDropped + rowsConsumed",
+    ),
     droppedDates: z.array(z.string()),
     frequency: z.strictObject({ name: z.string(), periodsPerYear: z.number().positive() }).nullable(),
     join: doc(

@@ -61,8 +61,13 @@ export const input: InputDescription = {
   units: "percent",
   firstDate: "2019-01-31",
   lastDate: "2023-12-31",
+  layout: "wide",
+  inputKind: "returns",
+  block: 1,
   rowsRead: 62,
+  rowsUsed: 60,
   rowsDropped: 2,
+  rowsConsumed: 0,
   join: null,
   droppedDates: ["2020-03-31", "2021-07-31"],
   frequency: { name: "monthly", periodsPerYear: 12 },
@@ -77,7 +82,7 @@ export function reportOf(
   const rowsRead = solution.observations + input.rowsDropped;
   return {
     tool: { name: "betabound", version: "0.1.0-test" },
-    input: { ...input, rowsRead, ...overrides },
+    input: { ...input, rowsRead, rowsUsed: solution.observations, ...overrides },
     solution,
     uncertainty,
     pricing,

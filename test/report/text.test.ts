@@ -1,6 +1,6 @@
 import { describe, expect, test } from "vitest";
 import { landmarkNames } from "../../src/core/types.js";
-import { modelAssumptions } from "../../src/report/conventions.js";
+import { landmarkWords, modelAssumptions } from "../../src/report/conventions.js";
 import { formatNumber, tableDigits } from "../../src/report/format.js";
 import { renderText } from "../../src/report/text/text.js";
 import { cautionLine } from "../../src/report/text/textNotes.js";
@@ -59,7 +59,8 @@ describe("renderText", () => {
   test("lists every landmark by name with its plain-language description", () => {
     const text = renderText(reportOf(typicalSolution()), plain);
     for (const name of landmarkNames) {
-      expect(text).toMatch(new RegExp(`\n  ${name} +-?\\d`));
+      expect(text).toMatch(new RegExp(`\n  ${landmarkWords[name]} +-?\\d`));
+      expect(text).not.toContain(name);
       expect(text).toContain(landmarkDescriptions[name].split(" ").slice(0, 4).join(" "));
     }
     expect(landmarkDescriptions.highNoiseFree).toMatch(/^high book has no noise/);
@@ -111,7 +112,7 @@ describe("renderText", () => {
 
   test("a landmark the core did not compute shows n/a and says why", () => {
     const text = renderText(reportOf(zeroMeanSolution()), plain);
-    expect(text).toMatch(/\n {2}returnImplied( +n\/a){8}\n/);
+    expect(text).toMatch(/\n {2}return-implied( +n\/a){8}\n/);
     expect(text.replace(/\s+/g, " ")).toContain("if only the factor is priced (not reported: see Diagnostics)");
   });
 

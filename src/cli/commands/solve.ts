@@ -52,10 +52,11 @@ export async function runSolve(
   const first = records[0];
   const single = !several && first?.kind === "report" ? first.report : null;
   const colour = wantsColour(io, options.output, options.format);
+  const brief = options.brief;
   let text: string;
-  if (single !== null && options.format !== "jsonl") text = renderReport(single, options.format, { colour });
+  if (single !== null && options.format !== "jsonl") text = renderReport(single, options.format, { colour, brief });
   else if (options.format === "jsonl") text = renderJsonLines(records);
-  else text = options.format === "csv" ? renderRecordsCsv(records) : renderRecordsText(records, { colour });
+  else text = options.format === "csv" ? renderRecordsCsv(records) : renderRecordsText(records, { colour, brief });
 
   if (single !== null) {
     const drawn = await writeCharts(single, options, io);

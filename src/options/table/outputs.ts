@@ -1,5 +1,5 @@
 /** The model's settings and the outputs (entries of the option table, table.ts). */
-import { choiceKind, numberKind, textKind } from "../kinds.js";
+import { choiceKind, numberKind, switchKind, textKind } from "../kinds.js";
 import { option, everyCommand, readers } from "../spec.js";
 import { defaultSteps, defaultWeight, parameters, weightRange } from "../../core/parameters.js";
 import { chartYChoices } from "../../report/charts/chartOptions.js";
@@ -55,6 +55,13 @@ export const reportOptions = {
     group: "output",
     commands: ["simulate"],
     default: "csv",
+  }),
+  brief: option(switchKind(), {
+    name: "brief",
+    help: "text report: the title, the summary and the caution only",
+    group: "output",
+    commands: ["solve"],
+    default: false,
   }),
   output: option(textKind("a file path"), {
     name: "output",

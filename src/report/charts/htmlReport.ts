@@ -8,15 +8,22 @@
  * their XML namespace declarations (HTML does not need them).
  */
 
-import type { LineFit, Solution } from "../../core/types.js";
+import type { Solution } from "../../core/types.js";
+import type { Section } from "../blocks.js";
 import { landmarkNames } from "../../core/types.js";
 import { largestCapmDiscrepancy } from "../check.js";
 import { excessReturnBasis, modelAssumptions } from "../conventions.js";
-import { formatCount, formatNumber, notAvailable, statisticDigits } from "../format.js";
+import { formatCount, formatNumber, notAvailable } from "../format.js";
 import { titleLine } from "../text/text.js";
 import { cautionLine } from "../text/textNotes.js";
-import { riskFreeText } from "../text/textData.js";
-import { candidateCells, candidateHeader as textCandidateHeader, landmarkDescriptions, reproductionTolerance } from "../text/textSet.js";
+import { capm, moments, numbersText, returnsWord, riskFreeText, rowsText, tableText } from "../text/textData.js";
+import { pricing } from "../text/textPricing.js";
+import { modelSectionsOf } from "../text/textModels.js";
+import { summary } from "../text/textSummary.js";
+import { bootstrap, boundsWithUncertainty, precision, sharpe } from "../text/textUncertainty.js";
+import { sectionHtml } from "./htmlBlocks.js";
+import { landmarkWords } from "../conventions.js";
+import { candidateColumns, landmarkDescriptions, reproductionTolerance } from "../text/textSet.js";
 import type { InputDescription, RiskFreeSource, SolveReport } from "../types.js";
 import { escapeHtml, fields, inlineSvg, paragraph, section, table } from "./htmlElements.js";
 import { css } from "./htmlStyle.js";
@@ -40,7 +47,16 @@ export function renderHtmlReport(report: SolveReport, charts: HtmlReportCharts, 
   const s = report.solution;
   const input = report.input;
   const title = options.title ?? `${report.tool.name}: "${input.lowColumn}" and "${input.highColumn}" (${input.source})`;
-  const sections: string[] = [chartSection(charts), inputSection(input, s.observations), momentsSection(s), capmSection(s)];
+  const u = report.uncertainty;
+  const perYear = input.frequency?.periodsPerYear ?? null;
+  const shared = (x: Section | null): string[] => (x === null ? [] : [sectionHtml(x)]);
+  const sections: string[] = [
+    sectionHtml(summary(report)),
+    chartSection(charts),
+    inputSection(input, s.observations),
+    sectionHtml(moments(s, perYear, `Sample moments (${returnsWord(input.riskFree)}, per period)`)),
+    sectionHtml(capm(s, u, perYear)),
+  ];
   if (s.bounds === null) {
     const reason = s.diagnostics.find((d) => d.severity === "error")?.message ?? null;
     sections.push(
@@ -53,11 +69,15 @@ export function renderHtmlReport(report: SolveReport, charts: HtmlReportCharts, 
         ),
       ),
     );
+    if (u !== null) sections.push(sectionHtml(precision(s, u)));
   } else {
     sections.push(boundsSection(s));
-    if (s.landmarks !== null) sections.push(landmarksSection(s));
-    sections.push(gridSection(s));
+    if (u !== null) sections.push(...shared(boundsWithUncertainty(s.bounds, u)), sectionHtml(precision(s, u)));
+    if (s.landmarks !== null) sections.push(landmarksSection(s, perYear));
+    sections.push(...shared(report.pricing === null ? null : pricing(report.pricing)), gridSection(s, perYear));
   }
+  sections.push(...modelSectionsOf(report).map(sectionHtml));
+  if (u !== null) sections.push(sectionHtml(sharpe(u, perYear, input.riskFree.kind !== "none")), ...shared(bootstrap(u)));
   sections.push(diagnosticsSection(s), assumptionsSection(s.weight), closingSection(input.riskFree));
   return [
     "<!DOCTYPE html>",
@@ -124,62 +144,13 @@ function inputSection(input: InputDescription, observations: number): string {
       ["Dates", `column "${input.dateColumn}", ${input.firstDate} to ${input.lastDate}`],
       // The text report's wording; its printable() of a column name is what escapeHtml does first anyway.
       ["Risk-free", riskFreeText(input.riskFree)],
+      ["Table read", tableText(input)],
+      ["Numbers", numbersText[input.inputKind]],
       ["Units in file", units],
-      ["Observations", `${formatCount(observations)} used of ${formatCount(input.rowsRead)} rows read`],
+      ["Observations", `${formatCount(observations)} used of ${formatCount(input.rowsRead)} rows read${rowsText(input)}`],
       ["Frequency", frequency],
       ["Dropped rows", dropped],
     ]),
-  );
-}
-
-function momentsSection(s: Solution): string {
-  const m = s.moments;
-  const series = [
-    ["low", m.low],
-    ["high", m.high],
-    ["market", m.market],
-  ] as const;
-  return section(
-    "moments",
-    "Sample moments (excess returns, per period)",
-    table(
-      ["", "mean", "stdev", "variance", "Sharpe"],
-      series.map(([name, x]) => [name, formatNumber(x.mean), formatNumber(x.stdev), formatNumber(x.variance), formatNumber(x.sharpeRatio)]),
-    ),
-    fields([
-      ["covariance of low and high", formatNumber(m.covariance.lowHigh)],
-      ["correlation of low and high", formatNumber(m.correlation.lowHigh)],
-    ]),
-  );
-}
-
-function capmSection(s: Solution): string {
-  const { low, high } = s.capm;
-  const stat = (x: number | null): string => formatNumber(x, statisticDigits);
-  const rows: [string, (f: LineFit) => string][] = [
-    ["alpha", (f) => formatNumber(f.alpha)],
-    ["alpha std. error", (f) => formatNumber(f.alphaStdErr)],
-    ["alpha t", (f) => stat(f.alphaTStat)],
-    ["alpha p-value", (f) => stat(f.alphaPValue)],
-    ["beta", (f) => formatNumber(f.beta)],
-    ["beta std. error", (f) => formatNumber(f.betaStdErr)],
-    ["beta t (beta = 0)", (f) => stat(f.betaTStat)],
-    ["beta p-value", (f) => stat(f.betaPValue)],
-    ["R-squared", (f) => formatNumber(f.rSquared)],
-    ["residual variance", (f) => formatNumber(f.residualVariance)],
-  ];
-  return section(
-    "capm",
-    "CAPM regressions on the market proxy",
-    paragraph(
-      `book = alpha + beta M + error, M = w low + (1 - w) high with w = ${s.weight}; least squares, classical standard ` +
-        `errors, two-sided p-values from Student's t with ${low.observations - 2} d.f.`,
-      "note",
-    ),
-    table(
-      ["", "low", "high"],
-      rows.map(([label, value]) => [label, value(low), value(high)]),
-    ),
   );
 }
 
@@ -205,21 +176,31 @@ function boundsSection(s: Solution): string {
 }
 
 /** The text report's candidate columns, each heading on one line. */
-const candidateHeader = textCandidateHeader.map((h) => h.replace("\n", " "));
+function candidates(periodsPerYear: number | null) {
+  const columns = candidateColumns(periodsPerYear);
+  return { ...columns, header: columns.header.map((h) => h.replace(/\n/g, " ")) };
+}
 
-function landmarksSection(s: Solution): string {
+function landmarksSection(s: Solution, periodsPerYear: number | null): string {
   const landmarks = s.landmarks!;
+  const columns = candidates(periodsPerYear);
   const rows = landmarkNames.map((name) => {
     const c = landmarks[name];
     const note = c === null ? " (not reported: see Diagnostics)" : c.insideSet ? "" : " (outside the identified set: see Diagnostics)";
-    const cells = c === null ? candidateHeader.map(() => notAvailable) : candidateCells(c);
-    return [name, `${landmarkDescriptions[name]}${note}`, ...cells];
+    const cells = c === null ? columns.header.map(() => notAvailable) : columns.cells(c);
+    return [landmarkWords[name], `${landmarkDescriptions[name]}${note}`, ...cells];
   });
-  return section("landmarks", "Landmarks", table(["", "meaning", ...candidateHeader], rows, { textColumns: [1] }));
+  return section(
+    "landmarks",
+    "Landmarks",
+    table(["", "meaning", ...columns.header], rows, { textColumns: [1] }),
+    paragraph(columns.note, "note"),
+  );
 }
 
-function gridSection(s: Solution): string {
-  const rows = s.grid.map((c, i) => [String(i + 1), ...candidateCells(c)]);
+function gridSection(s: Solution, periodsPerYear: number | null): string {
+  const columns = candidates(periodsPerYear);
+  const rows = s.grid.map((c, i) => [String(i + 1), ...columns.cells(c)]);
   const discrepancy = largestCapmDiscrepancy(s);
   const check =
     discrepancy === null
@@ -237,7 +218,8 @@ function gridSection(s: Solution): string {
     "grid",
     "Candidate grid",
     paragraph(`${s.grid.length} structures with the low beta evenly spaced over the set, ends included.`, "note"),
-    table(["#", ...candidateHeader], rows),
+    table(["#", ...columns.header], rows),
+    paragraph(columns.note, "note"),
     check,
   );
 }

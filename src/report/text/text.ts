@@ -4,12 +4,13 @@
  * and the assumptions, in that order. Pure: colour only when asked, no clock, no terminal queries.
  */
 
-import { capmSection, inputSection, momentsSection } from "./textData.js";
-import { assumptionsSection, closingLines, diagnosticsSection } from "./textNotes.js";
+import { styleFor, wrap } from "../layout.js";
+import { capmSection, inputSection, momentsSection, returnsWord } from "./textData.js";
+import { assumptionsSection, cautionLine, closingLines, diagnosticsSection } from "./textNotes.js";
 import { pricingSection } from "./textPricing.js";
 import { boundsSection, gridSection, landmarksSection, rejectedSection } from "./textSet.js";
-import { styleFor } from "../layout.js";
 import { modelSections } from "./textModels.js";
+import { summarySection } from "./textSummary.js";
 import { bootstrapSection, boundsWithUncertaintySection, precisionSection, sharpeSection } from "./textUncertainty.js";
 import type { RenderOptions, SolveReport } from "../types.js";
 
@@ -21,16 +22,21 @@ export function titleLine(report: SolveReport): string {
 /**
  * Renders the text report (LF line endings, trailing newline). When the model is rejected (no
  * bounds) the set sections are replaced by a plain statement of why, taken from the error diagnostic.
+ * With `options.brief`, the title, the summary and the caution alone.
  */
 export function renderText(report: SolveReport, options: RenderOptions): string {
   const style = styleFor(options);
   const s = report.solution;
   const u = report.uncertainty;
+  const head = [[style.heading(titleLine(report))], summarySection(report, style)];
+  if (options.brief === true) return joinSections([...head, wrap(cautionLine, "", "")]);
+  const perYear = report.input.frequency?.periodsPerYear ?? null;
+  const returns = returnsWord(report.input.riskFree);
   const sections: string[][] = [
-    [style.heading(titleLine(report))],
+    ...head,
     inputSection(report.input, s.observations, style),
-    momentsSection(s, style),
-    capmSection(s, style, u),
+    momentsSection(s, style, `Sample moments (${returns}, per period)`, perYear),
+    capmSection(s, style, u, perYear),
   ];
   if (s.bounds === null) {
     const reason = s.diagnostics.find((d) => d.severity === "error")?.message ?? null;
@@ -39,12 +45,16 @@ export function renderText(report: SolveReport, options: RenderOptions): string 
   } else {
     sections.push(boundsSection(s.bounds, style));
     if (u !== null) sections.push(boundsWithUncertaintySection(s.bounds, u, style), precisionSection(s, u, style));
-    if (s.landmarks !== null) sections.push(landmarksSection(s.landmarks, style));
-    sections.push(pricingSection(report.pricing, style), gridSection(s, style));
+    if (s.landmarks !== null) sections.push(landmarksSection(s.landmarks, style, perYear));
+    sections.push(pricingSection(report.pricing, style), gridSection(s, style, perYear));
   }
   sections.push(...modelSections(report, style));
-  if (u !== null) sections.push(sharpeSection(u, report.input.frequency?.periodsPerYear ?? null, style), bootstrapSection(u, style));
+  if (u !== null) sections.push(sharpeSection(u, perYear, style, report.input.riskFree.kind !== "none"), bootstrapSection(u, style));
   sections.push(diagnosticsSection(s.diagnostics, style), assumptionsSection(s.weight, style), closingLines(report.input.riskFree));
+  return joinSections(sections);
+}
+
+function joinSections(sections: readonly string[][]): string {
   return `${sections
     .filter((lines) => lines.length > 0)
     .map((lines) => lines.join("\n"))

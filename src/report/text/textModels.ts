@@ -6,19 +6,21 @@
 import { indexParameterNames, type IndexParameter } from "../../core/models/indexModel.js";
 import type { SensitivityKind } from "../../core/models/correlatedNoise.js";
 import { formatNumber, notAvailable } from "../format.js";
-import { fields, indent, printable, table, wrap, type Style } from "../layout.js";
+import { type Block, type Section, sectionLines } from "../blocks.js";
+import { printable, type Style } from "../layout.js";
 import type { Diagnostic } from "../../core/diagnostics.js";
 import type { IndexReport, SensitivityReport, SolveReport } from "../types.js";
 
 /** A section's own diagnostics, each with its severity, under it (the report's Diagnostics are the two-book model's). */
-function diagnosticLines(diagnostics: readonly Diagnostic[], style: Style): string[] {
+function diagnosticBlocks(diagnostics: readonly Diagnostic[]): Block[] {
   const seen = new Set<string>();
   return diagnostics
     .filter((d) => !seen.has(d.message) && seen.add(d.message))
-    .flatMap((d) => {
-      const label = d.severity === "error" ? style.error(d.severity) : d.severity === "warning" ? style.warning(d.severity) : d.severity;
-      return wrap(printable(d.message), `${indent}${label}: `, `${indent}  `);
-    });
+    .map((d) => ({
+      kind: "paragraph",
+      text: `${d.severity}: ${printable(d.message)}`,
+      ...(d.severity === "info" ? {} : { tone: "warning" as const }),
+    }));
 }
 
 const parameterLabels: Record<IndexParameter, string> = {
@@ -34,16 +36,29 @@ const parameterLabels: Record<IndexParameter, string> = {
 const yesNo = (x: boolean | null, yes: string, no: string): string => (x === null ? notAvailable : x ? yes : no);
 
 /** The sections of the extensions that the report holds. */
-export function modelSections(report: Pick<SolveReport, "index" | "sensitivity">, style: Style): string[][] {
-  const sections: string[][] = [];
-  if (report.index !== null) sections.push(indexSection(report.index, style));
-  if (report.sensitivity !== null) sections.push(sensitivitySection(report.sensitivity, style));
+export function modelSectionsOf(report: Pick<SolveReport, "index" | "sensitivity">): Section[] {
+  const sections: Section[] = [];
+  if (report.index !== null) sections.push(indexModel(report.index));
+  if (report.sensitivity !== null) sections.push(sensitivity(report.sensitivity));
   return sections;
 }
 
-/** The model with an index: estimates with their standard errors, and whether they are admissible. */
+/** Their text. */
+export function modelSections(report: Pick<SolveReport, "index" | "sensitivity">, style: Style): string[][] {
+  return modelSectionsOf(report).map((section) => sectionLines(section, style));
+}
+
 export function indexSection(index: IndexReport, style: Style): string[] {
-  const heading = style.heading(`Model with an independent index (column "${printable(index.column)}")`);
+  return sectionLines(indexModel(index), style);
+}
+
+export function sensitivitySection(entries: SensitivityReport, style: Style): string[] {
+  return sectionLines(sensitivity(entries), style);
+}
+
+/** The model with an index: estimates with their standard errors, and whether they are admissible. */
+export function indexModel(index: IndexReport): Section {
+  const heading = `Model with an independent index (column "${printable(index.column)}")`;
   const intro =
     "With a third indicator of the factor the structural betas are point identified. " +
     "It assumes the index's noise is uncorrelated with both books' noises.";
@@ -56,22 +71,27 @@ export function indexSection(index: IndexReport, style: Style): string[] {
     ...(withBootstrap ? [formatNumber(index.bootstrapStdErrors?.[name] ?? null)] : []),
   ]);
   const identified = index.lowBeta !== null;
-  return [
-    heading,
-    ...wrap(intro, indent, indent),
-    ...(identified ? table({ header, rows }) : [`${indent}Not estimated:`]),
+  const blocks: Block[] = [
+    { kind: "paragraph", text: intro },
+    identified ? { kind: "table", header, rows } : { kind: "paragraph", text: "Not estimated:" },
     ...(identified
-      ? fields([
-          [
-            "sign condition",
-            yesNo(index.signCondition, "holds (the three covariances' product is positive)", "fails: no one-factor structure fits"),
-          ],
-          ["admissible", yesNo(index.admissible, "yes", "no (negative noise variances are shown as computed)")],
-          ["in the two-book set", yesNo(index.insideSet, "yes", "no: the index and the books disagree on the structure")],
-        ])
+      ? [
+          {
+            kind: "fields",
+            pairs: [
+              [
+                "sign condition",
+                yesNo(index.signCondition, "holds (the three covariances' product is positive)", "fails: no one-factor structure fits"),
+              ],
+              ["admissible", yesNo(index.admissible, "yes", "no (negative noise variances are shown as computed)")],
+              ["in the two-book set", yesNo(index.insideSet, "yes", "no: the index and the books disagree on the structure")],
+            ],
+          } as const,
+        ]
       : []),
-    ...diagnosticLines(index.diagnostics, style),
+    ...diagnosticBlocks(index.diagnostics),
   ];
+  return { id: "index", heading, blocks };
 }
 
 const kindWords: Record<SensitivityKind, string> = {
@@ -82,7 +102,7 @@ const kindWords: Record<SensitivityKind, string> = {
 };
 
 /** The sensitivity table: the set of both betas under each assumed noise correlation. */
-export function sensitivitySection(entries: SensitivityReport, style: Style): string[] {
+export function sensitivity(entries: SensitivityReport): Section {
   const rows = entries.map((e) => [
     String(e.noiseCorrelation),
     formatNumber(e.bounds.lowBeta.min),
@@ -95,17 +115,14 @@ export function sensitivitySection(entries: SensitivityReport, style: Style): st
     "The identified set when the books' noises are correlated (rho): negative rho leaves the bounds as they are, " +
     "positive rho below the books' observed correlation widens them, and from that correlation on the structures " +
     "that fit no longer form an interval.";
-  return [
-    style.heading("Sensitivity to correlated noise"),
-    ...table({
-      header: ["noise\ncorrelation", "low beta\nfrom", "\nto", "high beta\nfrom", "\nto", "set"],
-      rows,
-    }),
-    "",
-    ...wrap(note, indent, indent),
-    ...diagnosticLines(
-      entries.flatMap((e) => e.diagnostics),
-      style,
-    ),
-  ];
+  return {
+    id: "sensitivity",
+    heading: "Sensitivity to correlated noise",
+    blocks: [
+      { kind: "table", header: ["noise\ncorrelation", "low beta\nfrom", "\nto", "high beta\nfrom", "\nto", "set"], rows },
+      { kind: "gap" },
+      { kind: "paragraph", text: note },
+      ...diagnosticBlocks(entries.flatMap((e) => e.diagnostics)),
+    ],
+  };
 }

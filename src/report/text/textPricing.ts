@@ -7,7 +7,8 @@
 
 import type { PricingJson } from "../../schema/pricing.js";
 import { formatNumber } from "../format.js";
-import { indent, table, wrap, type Style } from "../layout.js";
+import { type Block, type Section, sectionLines } from "../blocks.js";
+import type { Style } from "../layout.js";
 
 type Alpha = PricingJson["alpha"]["low"];
 
@@ -47,13 +48,9 @@ export function pricingSentence(p: PricingJson): string {
 }
 
 /** The section: heading, sentence, decomposition table, return-implied beta, test and caveats. */
-export function pricingSection(p: PricingJson | null, style: Style): string[] {
-  if (p === null) return [];
+export function pricing(p: PricingJson): Section {
   const level = percentLevel(p.confidence);
-  const lines = [
-    style.heading(`Can noise in the betas explain the alpha? (${level} confidence)`),
-    ...wrap(pricingSentence(p), indent, indent),
-  ];
+  const blocks: Block[] = [{ kind: "paragraph", text: pricingSentence(p) }];
   const annual = p.alpha.low.annualised !== null;
   const interval = (lower: number | null, upper: number | null) =>
     lower === null || upper === null ? "n/a" : `${formatNumber(lower, 3)} to ${formatNumber(upper, 3)}`;
@@ -70,12 +67,13 @@ export function pricingSection(p: PricingJson | null, style: Style): string[] {
     const labels = ["  CAPM alpha", `  ${level} interval (HAC)`, "  explainable by noise", "  unexplained"];
     return labels.map((label, i) => [label, perPeriod[i]!, ...(perYear === null ? [] : [perYear[i]!])]);
   };
-  lines.push(
-    "",
-    ...table({
+  blocks.push(
+    { kind: "gap" },
+    {
+      kind: "table",
       header: ["", "per period", ...(annual ? ["a year"] : [])],
       rows: [["low book"], ...rows(p.alpha.low), ["high book"], ...rows(p.alpha.high)],
-    }),
+    },
   );
   const r = p.returnImpliedLowBeta;
   if (r.estimate !== null) {
@@ -92,29 +90,32 @@ export function pricingSection(p: PricingJson | null, style: Style): string[] {
       r.bootstrapLower === null || r.bootstrapUpper === null
         ? ""
         : `; bootstrap ${formatNumber(r.bootstrapLower)} to ${formatNumber(r.bootstrapUpper)}`;
-    lines.push(
-      "",
-      ...wrap(
-        `Return-implied low structural beta (mean low / mean market): ${formatNumber(r.estimate)}${se}${set}${boot}.`,
-        indent,
-        indent,
-      ),
+    blocks.push(
+      { kind: "gap" },
+      {
+        kind: "paragraph",
+        text: `Return-implied low structural beta (mean low / mean market): ${formatNumber(r.estimate)}${se}${set}${boot}.`,
+      },
     );
   }
   if (p.test !== null) {
-    lines.push(
-      ...wrap(
+    blocks.push({
+      kind: "paragraph",
+      text:
         `Test of "noise explains the alpha": statistic ${formatNumber(p.test.statistic, 3)}, ${pIs(p.test.pValue)}; ` +
-          `of "it does not": ${pIs(p.test.explainedPValue)}. Method: ${p.test.method}.`,
-        indent,
-        indent,
-      ),
-    );
+        `of "it does not": ${pIs(p.test.explainedPValue)}. Method: ${p.test.method}.`,
+    });
   }
   if (!p.excessReturns) {
-    lines.push(
-      ...wrap("No risk-free rate was given: raw mean returns were used, and the verdict assumes a zero risk-free rate.", indent, indent),
-    );
+    blocks.push({
+      kind: "paragraph",
+      text: "No risk-free rate was given: raw mean returns were used, and the verdict assumes a zero risk-free rate.",
+    });
   }
-  return lines;
+  return { id: "pricing", heading: `Can noise in the betas explain the alpha? (${level} confidence)`, blocks };
+}
+
+/** The text of the pricing section; none when there is no set. */
+export function pricingSection(p: PricingJson | null, style: Style): string[] {
+  return p === null ? [] : sectionLines(pricing(p), style);
 }

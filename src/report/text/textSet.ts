@@ -5,6 +5,7 @@
 
 import { landmarkNames, type Candidate, type IdentifiedBounds, type LandmarkName, type Landmarks } from "../../core/types.js";
 import { largestCapmDiscrepancy, type CapmCheckInput } from "../check.js";
+import { landmarkWords } from "../conventions.js";
 import { formatNumber, notAvailable, tableDigits } from "../format.js";
 import { fields, indent, printable, table, wrap, type Style } from "../layout.js";
 
@@ -20,28 +21,49 @@ export const landmarkDescriptions: Record<LandmarkName, string> = {
 /** A discrepancy above this is reported as a failed check rather than as rounding. */
 export const reproductionTolerance = 1e-9;
 
-export const candidateHeader = [
-  "low\nbeta",
-  "high\nbeta",
-  "factor\nvariance",
-  "low noise\nvariance",
-  "high noise\nvariance",
-  "noise\nshare",
-  "expected\nlow alpha",
-  "expected\nhigh alpha",
-];
-
-export function candidateCells(c: Candidate): string[] {
-  return [
-    c.lowBeta,
-    c.highBeta,
-    c.factorVariance,
-    c.lowNoiseVariance,
-    c.highNoiseVariance,
-    c.noiseShare,
-    c.expectedLowAlpha,
-    c.expectedHighAlpha,
-  ].map((x) => formatNumber(x, tableDigits));
+/**
+ * The candidate tables' columns: with a known frequency the factor and noise variances as volatilities
+ * (square roots, times the square root of the periods per year) and the expected alphas per year, in
+ * %; otherwise per-period standard deviations and alphas. A negative variance (a landmark outside
+ * the set) shows as minus the root of its magnitude.
+ */
+export function candidateColumns(periodsPerYear: number | null): {
+  readonly header: readonly string[];
+  readonly cells: (c: Candidate) => string[];
+  readonly note: string;
+} {
+  const root = (v: number): number => Math.sign(v) * Math.sqrt(Math.abs(v));
+  const year = periodsPerYear;
+  const vol = (v: number): number => (year === null ? root(v) : 100 * Math.sqrt(year) * root(v));
+  const alpha = (a: number): number => (year === null ? a : 100 * year * a);
+  const unit = year === null ? "stdev" : "vol";
+  const header = [
+    "low\nbeta",
+    "high\nbeta",
+    `factor\n${unit}`,
+    `low\nnoise\n${unit}`,
+    `high\nnoise\n${unit}`,
+    "noise\nshare",
+    "exp. low\nalpha",
+    "exp. high\nalpha",
+  ];
+  const cells = (c: Candidate): string[] => [
+    formatNumber(c.lowBeta, tableDigits),
+    formatNumber(c.highBeta, tableDigits),
+    formatNumber(vol(c.factorVariance), tableDigits),
+    formatNumber(vol(c.lowNoiseVariance), tableDigits),
+    formatNumber(vol(c.highNoiseVariance), tableDigits),
+    formatNumber(c.noiseShare, tableDigits),
+    formatNumber(alpha(c.expectedLowAlpha), tableDigits),
+    formatNumber(alpha(c.expectedHighAlpha), tableDigits),
+  ];
+  const note =
+    year === null
+      ? "stdev: standard deviation per period (the square root of the variance); exp. alpha: expected alpha " +
+        "per period (the frequency is unknown)."
+      : `vol: volatility in % a year (the square root of the variance times sqrt(${year})); exp. alpha: expected ` +
+        `alpha in % a year (times ${year}); ${year} periods per year.`;
+  return { header, cells, note };
 }
 
 /** The Identified set section: the ranges and what they mean. */
@@ -70,28 +92,42 @@ export function rejectedSection(reason: string | null, style: Style): string[] {
 }
 
 /** The Landmarks section: one row per named point, then what each name means. */
-export function landmarksSection(landmarks: Landmarks, style: Style): string[] {
+export function landmarksSection(landmarks: Landmarks, style: Style, periodsPerYear: number | null = null): string[] {
+  const columns = candidateColumns(periodsPerYear);
   const rows = landmarkNames.map((name) => {
     const c = landmarks[name];
-    return c === null ? [name, ...candidateHeader.map(() => notAvailable)] : [name, ...candidateCells(c)];
+    const label = landmarkWords[name];
+    return c === null ? [label, ...columns.header.map(() => notAvailable)] : [label, ...columns.cells(c)];
   });
-  const width = Math.max(...landmarkNames.map((name) => name.length));
+  const width = Math.max(...landmarkNames.map((name) => landmarkWords[name].length));
   const legend = landmarkNames.flatMap((name) => {
     const c = landmarks[name];
     const note = c === null ? " (not reported: see Diagnostics)" : c.insideSet ? "" : " (outside the identified set: see Diagnostics)";
-    return wrap(`${landmarkDescriptions[name]}${note}`, `${indent}${name.padEnd(width)}  `, " ".repeat(indent.length + width + 2));
+    return wrap(
+      `${landmarkDescriptions[name]}${note}`,
+      `${indent}${landmarkWords[name].padEnd(width)}  `,
+      " ".repeat(indent.length + width + 2),
+    );
   });
-  return [style.heading("Landmarks"), ...table({ header: ["", ...candidateHeader], rows }), "", ...legend];
+  return [
+    style.heading("Landmarks"),
+    ...table({ header: ["", ...columns.header], rows }),
+    ...wrap(columns.note, indent, indent),
+    "",
+    ...legend,
+  ];
 }
 
 /** The Candidate grid section and the CAPM reproduction check under it. */
-export function gridSection(solution: CapmCheckInput, style: Style): string[] {
+export function gridSection(solution: CapmCheckInput, style: Style, periodsPerYear: number | null = null): string[] {
   const grid = solution.grid;
-  const rows = grid.map((c, i) => [String(i + 1), ...candidateCells(c)]);
+  const columns = candidateColumns(periodsPerYear);
+  const rows = grid.map((c, i) => [String(i + 1), ...columns.cells(c)]);
   const lines = [
     style.heading("Candidate grid"),
     `${indent}${grid.length} structures with the low beta evenly spaced over the set, ends included.`,
-    ...table({ header: ["#", ...candidateHeader], rows }),
+    ...table({ header: ["#", ...columns.header], rows }),
+    ...wrap(columns.note, indent, indent),
   ];
   const discrepancy = largestCapmDiscrepancy(solution);
   if (discrepancy !== null) {

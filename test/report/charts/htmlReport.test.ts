@@ -1,13 +1,17 @@
 import { Parser } from "htmlparser2";
 import { describe, expect, test } from "vitest";
 import { landmarkNames } from "../../../src/core/types.js";
-import { modelAssumptions } from "../../../src/report/conventions.js";
+import { landmarkWords, modelAssumptions } from "../../../src/report/conventions.js";
 import { renderIdentifiedSetChart } from "../../../src/report/charts/identifiedSetChart.js";
 import { renderHtmlReport } from "../../../src/report/charts/htmlReport.js";
 import { formatNumber } from "../../../src/report/format.js";
 import { cautionLine } from "../../../src/report/text/textNotes.js";
 import { landmarkDescriptions } from "../../../src/report/text/textSet.js";
 import type { SolveReport } from "../../../src/report/types.js";
+import { readFileSync } from "node:fs";
+import { run } from "../../../src/cli/program.js";
+import { pricingSentence } from "../../../src/report/text/textPricing.js";
+import { fakeIo } from "../../cli/fakeIo.js";
 import { rejectedSolution, reportOf, typicalSolution } from "../fixtures.js";
 
 interface Node {
@@ -117,11 +121,16 @@ describe("renderHtmlReport", () => {
     expect(input).toContainEqual(["File", report.input.source]);
     expect(input).toContainEqual(["Low book", `column "${report.input.lowColumn}"`]);
     const moments = rows(all(sectionById(root, "moments"), "table")[0]!);
-    expect(moments[1]).toEqual([
+    expect(moments[1]!.slice(0, 5)).toEqual([
       "low",
       ...[solution.moments.low.mean, solution.moments.low.stdev, solution.moments.low.variance, solution.moments.low.sharpeRatio].map((x) =>
         formatNumber(x),
       ),
+    ]);
+    // Monthly: the mean times 12 and the volatility, the stdev times sqrt(12), in % a year.
+    expect(moments[1]!.slice(5)).toEqual([
+      formatNumber(1200 * solution.moments.low.mean, 3),
+      formatNumber(100 * Math.sqrt(12) * solution.moments.low.stdev!, 3),
     ]);
     const capm = rows(all(sectionById(root, "capm"), "table")[0]!);
     expect(capm).toContainEqual(["beta", formatNumber(solution.capm.low.beta), formatNumber(solution.capm.high.beta)]);
@@ -132,9 +141,9 @@ describe("renderHtmlReport", () => {
       formatNumber(solution.bounds!.lowBeta.max),
     ]);
     const landmarks = rows(all(sectionById(root, "landmarks"), "table")[0]!);
-    expect(landmarks.slice(1).map((r) => r[0])).toEqual([...landmarkNames]);
+    expect(landmarks.slice(1).map((r) => r[0])).toEqual(landmarkNames.map((name) => landmarkWords[name]));
     for (const [i, name] of landmarkNames.entries()) expect(landmarks[i + 1]![1]).toContain(landmarkDescriptions[name]);
-    expect(landmarks.find((r) => r[0] === "returnImplied")![1]).toContain("(outside the identified set: see Diagnostics)");
+    expect(landmarks.find((r) => r[0] === landmarkWords.returnImplied)![1]).toContain("(outside the identified set: see Diagnostics)");
     const grid = rows(all(sectionById(root, "grid"), "table")[0]!);
     expect(grid).toHaveLength(solution.grid.length + 1);
     expect(textOf(sectionById(root, "grid"))).toContain("Check: every candidate reproduces the observed CAPM betas");
@@ -175,5 +184,85 @@ describe("renderHtmlReport", () => {
 
   test("refuses a chart that is not an SVG document", () => {
     expect(() => renderHtmlReport(reportOf(typicalSolution()), { identifiedSet: "<p>not a chart</p>" })).toThrow(RangeError);
+  });
+});
+
+describe("the HTML report of a full run holds what the text report holds", () => {
+  const monthly = readFileSync(new URL("../../../examples/harbourline-monthly.csv", import.meta.url), "utf8");
+  const low = '<b>Low</b> & "calm"';
+  const high = "High<script>x</script>";
+  const csv = monthly.replace(/^[^\n]*/, `Month End,"${low.replace(/"/g, '""')}",${high}`);
+
+  async function both() {
+    const args = ["solve", "m.csv", "--low", low, "--high", high, "--rf", "0.002", "--bootstrap", "40", "--threads", "1"];
+    const { io, stdout, written } = fakeIo({ "m.csv": csv });
+    expect(await run([...args, "--report", "r.html"], io)).toBe(0);
+    const json = fakeIo({ "m.csv": csv });
+    expect(await run([...args, "--format", "json"], json.io)).toBe(0);
+    return { text: stdout(), html: written.get("r.html")!, json: JSON.parse(json.stdout()) };
+  }
+
+  test("every heading of the text report is a section heading of the HTML report, and names stay text", async () => {
+    const { text, html } = await both();
+    const { root } = parseHtml(html);
+    const headings = all(root, "h2").map((h) => textOf(h));
+    const lines = text.split("\n");
+    const textHeadings = lines.filter(
+      (line, i) => i > 0 && /^[A-Z]/.test(line) && lines[i - 1] === "" && !/^(Caution|Conventions)/.test(line),
+    );
+    expect(textHeadings.length).toBeGreaterThan(10);
+    for (const heading of textHeadings) expect(headings, heading).toContain(heading);
+    expect(html).not.toContain("<script>x");
+    expect(html).not.toContain("<b>Low");
+    expect(textOf(sectionById(root, "input"))).toContain(`column "${low}"`);
+  });
+
+  test("the summary, CAPM HAC errors, beta intervals, Sharpe ratios, bootstrap and pricing carry the run's figures", async () => {
+    const { html, json } = await both();
+    const { root } = parseHtml(html);
+    const summary = rows(all(sectionById(root, "summary"), "table")[0]!);
+    expect(summary.map((r) => r[0])).toEqual([
+      "Sample",
+      "Low structural beta",
+      "Low book CAPM beta",
+      "Low book CAPM alpha",
+      "Noise explains it?",
+      "Diagnostics",
+    ]);
+    expect(summary[4]![1]).toBe(pricingSentence(json.pricing));
+    const capm = rows(all(sectionById(root, "capm"), "table")[0]!);
+    expect(capm).toContainEqual([
+      "alpha HAC std. error",
+      formatNumber(json.capm.low.hac.alphaStdErr),
+      formatNumber(json.capm.high.hac.alphaStdErr),
+    ]);
+    expect(textOf(sectionById(root, "capm"))).toContain("w alpha_low + (1 - w) alpha_high = 0");
+    const precision = rows(all(sectionById(root, "precision"), "table")[0]!);
+    const b = json.uncertainty.bounds.lowBeta.min;
+    expect(precision).toContainEqual([
+      "low structural beta",
+      "lower end",
+      formatNumber(b.estimate),
+      formatNumber(b.stdError),
+      `${formatNumber(b.lower)} to ${formatNumber(b.upper)}`,
+    ]);
+    const interval = json.uncertainty.lowBeta.interval;
+    expect(rows(all(sectionById(root, "precision"), "table")[1]!)[0]![1]).toBe(
+      `${formatNumber(interval.lower)} to ${formatNumber(interval.upper)}`,
+    );
+    const sharpe = rows(all(sectionById(root, "sharpe"), "table")[0]!);
+    expect(sharpe[1]!.slice(0, 5)).toEqual([
+      "low",
+      ...["estimate", "iidStdErr", "mertensStdErr", "hacStdErr"].map((k) => formatNumber(json.uncertainty.sharpe.low[k])),
+    ]);
+    const boot = rows(all(sectionById(root, "bootstrap"), "table")[0]!);
+    expect(boot).toHaveLength(1 + Object.keys(json.uncertainty.bootstrap.stdErrors).length);
+    const pricing = rows(all(sectionById(root, "pricing"), "table")[0]!);
+    expect(pricing).toContainEqual([
+      "CAPM alpha",
+      formatNumber(json.pricing.alpha.low.observed),
+      formatNumber(json.pricing.alpha.low.annualised.observed),
+    ]);
+    expect(all(sectionById(root, "reading"), "li").length).toBeGreaterThanOrEqual(4);
   });
 });

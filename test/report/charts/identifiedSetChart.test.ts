@@ -1,5 +1,6 @@
 import { describe, expect, test } from "vitest";
 import { landmarkNames } from "../../../src/core/types.js";
+import { landmarkWords } from "../../../src/report/conventions.js";
 import { cautionCaption } from "../../../src/report/charts/common.js";
 import {
   landmarkLabels,
@@ -66,7 +67,7 @@ describe("renderIdentifiedSetChart", () => {
     expect(capmLabel.attrs["font-weight"]).toBe("bold");
     expect(labels.filter((l) => l.attrs["font-weight"] === "bold")).toHaveLength(1);
     const symbols = markItems(root, "landmark-symbol");
-    const capm = symbols.find((s) => (s.attrs["aria-label"] ?? "").includes("capmConsistent"))!;
+    const capm = symbols.find((s) => (s.attrs["aria-label"] ?? "").includes(`Landmark ${landmarkWords.capmConsistent}:`))!;
     const others = symbols.filter((s) => s !== capm).map((s) => symbolArea(s.attrs.d ?? ""));
     expect(others).toHaveLength(4);
     expect(Math.min(...others)).toBeGreaterThan(0);
@@ -103,7 +104,9 @@ describe("renderIdentifiedSetChart", () => {
     expect(point.insideSet).toBe(false);
     for (const options of [variance, share]) {
       const root = parseSvg(await renderIdentifiedSetChart(reportOf(solution), options));
-      const symbol = markItems(root, "landmark-symbol").find((s) => (s.attrs["aria-label"] ?? "").includes("returnImplied"));
+      const symbol = markItems(root, "landmark-symbol").find((s) =>
+        (s.attrs["aria-label"] ?? "").includes(`Landmark ${landmarkWords.returnImplied}:`),
+      );
       expect(symbol?.attrs["aria-label"]).toContain("outside the identified set");
       const [px] = translation(symbol!);
       const x = xAxisScale(root);

@@ -3,6 +3,7 @@
  * then a row or more of landmarks, each with its symbol and a plain-words label.
  */
 
+import { landmarkWords } from "../../conventions.js";
 import { landmarkNames, type Candidate, type LandmarkName, type Landmarks } from "../../../core/types.js";
 import { labelNumber, palette, textWidth } from "../common.js";
 import { intervalText, levelText } from "./captions.js";
@@ -140,7 +141,7 @@ export function laneLayout(landmarks: Landmarks, uncertainty: IdentifiedSetUncer
       emphasised,
       insideSet: c.insideSet,
       description:
-        `Landmark ${name}: ${landmarkLabels[name]}, low structural beta ${labelNumber(c.lowBeta)}, ` +
+        `Landmark ${landmarkWords[name]}: ${landmarkLabels[name]}, low structural beta ${labelNumber(c.lowBeta)}, ` +
         (c.insideSet ? "inside the identified set." : "outside the identified set."),
     });
   }
