@@ -107,6 +107,10 @@ const rulesAcross: { readonly [C in CommandName]: () => Rule[] } = {
       path: ["intervalSource"],
       message: "bootstrap standard errors need --bootstrap with at least 2 replicates",
     }),
+    across<CommandOptions<"solve">>((o) => o.marketWeights === undefined || o.marketWeights.length === o.portfolios?.length, {
+      path: ["marketWeights"],
+      message: "give one market weight per --portfolios column",
+    }),
   ],
   roll: () => [
     ...readerRules(),

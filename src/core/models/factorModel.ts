@@ -51,14 +51,17 @@ export interface FactorModel {
 
 export const minimumPortfolios = 3;
 
-/** Sample covariance matrix (divisor n - 1) of equally long series, two-pass. */
+/** Sample covariance matrix (divisor n - 1) of equally long series, two-pass on data shifted by the first row. */
 export function sampleCovariance(series: readonly Float64Array[]): number[][] {
   const n = series[0]?.length ?? 0;
+  // Shifted by the first observation first (as core/moments.ts does): a constant series is exactly 0.
   const centred = series.map((x) => {
+    const first = x[0] ?? 0;
+    const shifted = Float64Array.from(x, (v) => v - first);
     let sum = 0;
-    for (const v of x) sum += v;
+    for (const v of shifted) sum += v;
     const mean = sum / n;
-    return Float64Array.from(x, (v) => v - mean);
+    return shifted.map((v) => v - mean);
   });
   return centred.map((x) =>
     centred.map((y) => {

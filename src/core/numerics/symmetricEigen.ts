@@ -56,7 +56,7 @@ export function symmetricEigen(input: readonly (readonly number[])[]): Symmetric
   return { values: order.map((i) => a[i]![i]!), vectors: order.map((i) => v.map((row) => row[i]!)) };
 }
 
-/** log det and inverse of a symmetric positive definite matrix by Cholesky; null when not positive definite. */
+/** log det and inverse of a symmetric positive definite matrix by Cholesky; null when not (numerically) positive definite. */
 export function choleskyLogDetInverse(a: readonly (readonly number[])[]): { logDet: number; inverse: Matrix } | null {
   const n = a.length;
   const l: Matrix = Array.from({ length: n }, () => new Array<number>(n).fill(0));
@@ -64,7 +64,8 @@ export function choleskyLogDetInverse(a: readonly (readonly number[])[]): { logD
   for (let j = 0; j < n; j++) {
     let d = a[j]![j]!;
     for (let k = 0; k < j; k++) d -= l[j]![k]! * l[j]![k]!;
-    if (!(d > 0)) return null;
+    // Numerically singular (a pivot lost to rounding against its diagonal entry) counts as not positive definite.
+    if (!(d > 1e-12 * a[j]![j]!)) return null;
     const root = Math.sqrt(d);
     l[j]![j] = root;
     logDet += 2 * Math.log(root);

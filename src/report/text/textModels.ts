@@ -7,19 +7,9 @@ import { indexParameterNames, type IndexParameter } from "../../core/models/inde
 import type { SensitivityKind } from "../../core/models/correlatedNoise.js";
 import { formatNumber, notAvailable } from "../format.js";
 import { fields, indent, printable, table, wrap, type Style } from "../layout.js";
-import type { Diagnostic } from "../../core/diagnostics.js";
 import type { IndexReport, SensitivityReport, SolveReport } from "../types.js";
-
-/** A section's own diagnostics, each with its severity, under it (the report's Diagnostics are the two-book model's). */
-function diagnosticLines(diagnostics: readonly Diagnostic[], style: Style): string[] {
-  const seen = new Set<string>();
-  return diagnostics
-    .filter((d) => !seen.has(d.message) && seen.add(d.message))
-    .flatMap((d) => {
-      const label = d.severity === "error" ? style.error(d.severity) : d.severity === "warning" ? style.warning(d.severity) : d.severity;
-      return wrap(printable(d.message), `${indent}${label}: `, `${indent}  `);
-    });
-}
+import { diagnosticLines } from "./textDiagnostics.js";
+import { factorModelSection } from "./textFactorModel.js";
 
 const parameterLabels: Record<IndexParameter, string> = {
   lowBeta: "low structural beta",
@@ -34,10 +24,14 @@ const parameterLabels: Record<IndexParameter, string> = {
 const yesNo = (x: boolean | null, yes: string, no: string): string => (x === null ? notAvailable : x ? yes : no);
 
 /** The sections of the extensions that the report holds. */
-export function modelSections(report: Pick<SolveReport, "index" | "sensitivity">, style: Style): string[][] {
+export function modelSections(
+  report: Pick<SolveReport, "index" | "sensitivity"> & Partial<Pick<SolveReport, "factorModel">>,
+  style: Style,
+): string[][] {
   const sections: string[][] = [];
   if (report.index !== null) sections.push(indexSection(report.index, style));
   if (report.sensitivity !== null) sections.push(sensitivitySection(report.sensitivity, style));
+  if (report.factorModel != null) sections.push(factorModelSection(report.factorModel, style));
   return sections;
 }
 

@@ -1,0 +1,57 @@
+/** The text report's section of the one-factor model on k portfolios (docs/methods.md §30). */
+import type { FactorModel } from "../../core/models/factorModel.js";
+import { formatNumber, notAvailable } from "../format.js";
+import { fields, indent, printable, type Style, table, wrap } from "../layout.js";
+import { diagnosticLines } from "./textDiagnostics.js";
+
+export function factorModelSection(model: FactorModel, style: Style): string[] {
+  const rows = model.portfolios.map((p) => [
+    printable(p.name),
+    formatNumber(p.weight),
+    formatNumber(p.loading),
+    formatNumber(p.loadingStdError),
+    formatNumber(p.capmBeta),
+    formatNumber(p.noiseVariance),
+  ]);
+  const fit = model.fit;
+  const fitText =
+    fit === null
+      ? notAvailable
+      : fit.degreesOfFreedom === 0
+        ? "exact (three portfolios: no degrees of freedom left to test one factor)"
+        : `chi-square ${formatNumber(fit.statistic)} on ${fit.degreesOfFreedom} df, p = ${formatNumber(fit.pValue)}`;
+  const pairRows = model.adjacentPairs.map((pair) => [
+    `${printable(pair.low)} / ${printable(pair.high)}`,
+    formatNumber(pair.bounds?.lowBeta.min ?? null),
+    formatNumber(pair.bounds?.lowBeta.max ?? null),
+    formatNumber(pair.factorLowBeta),
+    pair.insideSet === null ? notAvailable : pair.insideSet ? "yes" : "no",
+  ]);
+  const intro =
+    `One factor fitted by maximum likelihood to ${model.portfolios.length} portfolios (${model.observations} rows); ` +
+    "loadings scaled so that the market proxy (their weighted sum) has beta 1. A CAPM beta further from 1 than the loading " +
+    "is not expected; one pulled towards 1 is what noise in the portfolios does.";
+  return [
+    style.heading("One-factor model on the portfolios"),
+    ...wrap(intro, indent, indent),
+    ...table({ header: ["portfolio", "weight", "loading", "std. error", "CAPM beta", "noise\nvariance"], rows }),
+    "",
+    ...fields([
+      ["factor variance", formatNumber(model.factorVariance)],
+      ["fit of one factor", fitText],
+      ["Heywood cases", model.heywood.length === 0 ? "none" : model.heywood.map(printable).join(", ")],
+    ]),
+    ...(pairRows.length === 0
+      ? []
+      : [
+          "",
+          ...wrap(
+            "Each adjacent pair's two-book set with its own market proxy, beside the factor model's beta in that normalisation:",
+            indent,
+            indent,
+          ),
+          ...table({ header: ["pair", "low beta\nfrom", "\nto", "factor\nmodel", "inside"], rows: pairRows }),
+        ]),
+    ...diagnosticLines(model.diagnostics, style),
+  ];
+}
