@@ -60,7 +60,7 @@ export type DiagnosticDetail =
   | { readonly code: "index-heywood"; readonly series: "low" | "high" | "index"; readonly noiseVariance: number }
   | { readonly code: "noise-correlation-not-an-interval"; readonly noiseCorrelation: number; readonly correlation: number }
   | { readonly code: "noise-correlation-no-set"; readonly noiseCorrelation: number }
-  // The k-portfolio factor model (docs/methods.md §30).
+  // The k-portfolio factor model (docs/methods.md §31).
   | { readonly code: "factor-too-few-portfolios"; readonly count: number; readonly minimum: number }
   | { readonly code: "factor-constant"; readonly portfolio: string }
   | { readonly code: "factor-singular-covariance"; readonly observations: number; readonly portfolios: number }

@@ -1,5 +1,5 @@
 /**
- * The one-factor model on k portfolios (docs/methods.md §30) when `portfolios` names columns: their
+ * The one-factor model on k portfolios (docs/methods.md §31) when `portfolios` names columns: their
  * excess returns (the pair's risk-free return subtracted) on the pair's rows, market weights as given
  * or equal.
  */

@@ -1,4 +1,4 @@
-/** Zod schema of solve's `factorModel` (docs/methods.md §30): the one-factor model on k portfolios. */
+/** Zod schema of solve's `factorModel` (docs/methods.md §31): the one-factor model on k portfolios. */
 
 import * as z from "zod";
 import { diagnosticSchema } from "./parts.js";

@@ -19,9 +19,7 @@ const fixture = JSON.parse(readFileSync(new URL("../fixtures/factor-model/factor
   pValue: number;
 };
 const names = ["P1", "P2", "P3", "P4", "P5"];
-const month = (t: number) => `${1990 + Math.floor(t / 12)}-${String((t % 12) + 1).padStart(2, "0")}-28`;
-const rows = fixture.columns[0]!.map((_, t) => [month(t), ...fixture.columns.map((c) => String(c[t]))].join(","));
-const dataset = [`date,${names.join(",")}`, ...rows].join("\n");
+const dataset = readFileSync(new URL("../fixtures/factor-model/factor_dataset.csv", import.meta.url), "utf8").trimEnd();
 
 async function solve(files: Record<string, string>, args: string[]) {
   const { io, stdout, stderr } = fakeIo(files);

@@ -1,5 +1,5 @@
 /**
- * The one-factor model on k >= 3 portfolios whose weighted sum is the market proxy (docs/methods.md §30):
+ * The one-factor model on k >= 3 portfolios whose weighted sum is the market proxy (docs/methods.md §31):
  *   r_i = a_i + b_i F + e_i,  sum_i w_i b_i = 1,  noises independent of F and of each other.
  * Fitted by maximum likelihood on the sample covariance (divisor n - 1) of the k series
  * (factorModelFit.ts), on the correlation scale (the fit is scale free) and carried back to the data's

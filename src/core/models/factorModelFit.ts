@@ -1,5 +1,5 @@
 /**
- * Maximum-likelihood one-factor analysis of a k x k sample covariance matrix (docs/methods.md §30).
+ * Maximum-likelihood one-factor analysis of a k x k sample covariance matrix (docs/methods.md §31).
  *
  * Model: Sigma = lambda lambda' + Psi, Psi diagonal. For fixed Psi the likelihood is maximised by
  * lambda = Psi^(1/2) v sqrt(max(theta - 1, 0)), with theta, v the largest eigenvalue and its unit

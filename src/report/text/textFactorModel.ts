@@ -1,4 +1,4 @@
-/** The text report's section of the one-factor model on k portfolios (docs/methods.md §30). */
+/** The text report's section of the one-factor model on k portfolios (docs/methods.md §31). */
 import type { FactorModel } from "../../core/models/factorModel.js";
 import { formatNumber, notAvailable } from "../format.js";
 import { fields, indent, printable, type Style, table, wrap } from "../layout.js";
@@ -29,8 +29,8 @@ export function factorModelSection(model: FactorModel, style: Style): string[] {
   ]);
   const intro =
     `One factor fitted by maximum likelihood to ${model.portfolios.length} portfolios (${model.observations} rows); ` +
-    "loadings scaled so that the market proxy (their weighted sum) has beta 1. A CAPM beta further from 1 than the loading " +
-    "is not expected; one pulled towards 1 is what noise in the portfolios does.";
+    "loadings scaled so that the market proxy (their weighted sum) has beta 1. The CAPM beta on that proxy differs from " +
+    "the loading through each portfolio's own noise, which the proxy contains.";
   return [
     style.heading("One-factor model on the portfolios"),
     ...wrap(intro, indent, indent),

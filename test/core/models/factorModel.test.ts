@@ -1,5 +1,5 @@
 /**
- * The k-portfolio one-factor model (docs/methods.md §30): exact recovery of the loadings from a
+ * The k-portfolio one-factor model (docs/methods.md §31): exact recovery of the loadings from a
  * population covariance built from them, agreement with an independent scipy maximum-likelihood fit
  * (test/fixtures/factor-model), the statistic's null distribution by simulation, and typed
  * diagnostics for degenerate data.
