@@ -6,7 +6,7 @@
  * eigenvector of Psi^(-1/2) S Psi^(-1/2) (Joreskog 1967; Lawley & Maxwell 1971, ch. 4); the noise
  * variances then follow the fixed point Psi = diag(S - lambda lambda'), a noise variance that would fall
  * to or below 0 being held at a floor of 1e-10 of its series' variance (a Heywood case). Iterates until
- * no noise variance moves by more than 1e-15 of its series' variance.
+ * no noise variance moves by more than 1e-15 of its series' variance, for at most 20,000 steps.
  *
  * The discrepancy is F = log|Sigma| + tr(S Sigma^-1) - log|S| - k, the likelihood-ratio statistic
  * Bartlett's (n - 1 - (2k + 5)/6 - 2/3) F (Lawley & Maxwell 1971, section 4.6), on k(k - 3)/2 degrees
@@ -19,7 +19,7 @@ import { choleskyLogDetInverse, symmetricEigen } from "../numerics/symmetricEige
 
 export const heywoodFloor = 1e-10;
 const tolerance = 1e-15;
-const maxIterations = 100_000;
+const maxIterations = 20_000;
 const nearBoundary = 1e-3;
 
 export interface OneFactorFit {
