@@ -59,7 +59,14 @@ export type DiagnosticDetail =
   | { readonly code: "index-sign-condition"; readonly lowHigh: number; readonly lowIndex: number; readonly highIndex: number }
   | { readonly code: "index-heywood"; readonly series: "low" | "high" | "index"; readonly noiseVariance: number }
   | { readonly code: "noise-correlation-not-an-interval"; readonly noiseCorrelation: number; readonly correlation: number }
-  | { readonly code: "noise-correlation-no-set"; readonly noiseCorrelation: number };
+  | { readonly code: "noise-correlation-no-set"; readonly noiseCorrelation: number }
+  // The k-portfolio factor model (docs/methods.md §31).
+  | { readonly code: "factor-too-few-portfolios"; readonly count: number; readonly minimum: number }
+  | { readonly code: "factor-constant"; readonly portfolio: string }
+  | { readonly code: "factor-singular-covariance"; readonly observations: number; readonly portfolios: number }
+  | { readonly code: "factor-not-normalisable"; readonly marketLoading: number }
+  | { readonly code: "factor-not-converged"; readonly iterations: number }
+  | { readonly code: "factor-heywood"; readonly portfolio: string; readonly noiseVariance: number };
 
 /** The covariances the index model divides by: of the books, of each book with the index, of the market proxy with it. */
 export type IndexCovariance = "lowHigh" | "lowIndex" | "highIndex" | "marketIndex";
@@ -96,6 +103,12 @@ const severityOf: Record<DiagnosticCode, Severity> = {
   "index-heywood": "warning",
   "noise-correlation-not-an-interval": "warning",
   "noise-correlation-no-set": "warning",
+  "factor-too-few-portfolios": "warning",
+  "factor-constant": "warning",
+  "factor-singular-covariance": "warning",
+  "factor-not-normalisable": "warning",
+  "factor-not-converged": "warning",
+  "factor-heywood": "warning",
 };
 
 const covarianceNames: Record<IndexCovariance, string> = {
@@ -210,6 +223,30 @@ export function describeDiagnostic(detail: DiagnosticDetail): string {
       return (
         `no bounds for a noise correlation of ${fmt(detail.noiseCorrelation)}: the books' covariance is not positive ` +
         "(or not determined by the data), and the sensitivity analysis starts from the identified set, which does not exist here"
+      );
+    case "factor-too-few-portfolios":
+      return (
+        `the factor model needs at least ${detail.minimum} portfolios in --portfolios, got ${detail.count}: ` +
+        "with fewer the loadings are not identified (use the two-book identified set instead)"
+      );
+    case "factor-constant":
+      return `portfolio ${detail.portfolio} has zero variance: the factor model is not fitted; drop the column from --portfolios`;
+    case "factor-singular-covariance":
+      return (
+        `the ${detail.portfolios} portfolios' sample covariance matrix is singular (${detail.observations} observations; ` +
+        "perfectly correlated columns, or no more rows than portfolios): the factor model is not fitted; drop a redundant column"
+      );
+    case "factor-not-normalisable":
+      return (
+        `the fitted loadings' market-weighted sum is about zero (${fmt(detail.marketLoading)}): they cannot be scaled so that the ` +
+        "market proxy's beta is 1; check --market-weights"
+      );
+    case "factor-not-converged":
+      return `the factor model's maximum-likelihood iteration stopped after ${detail.iterations} steps without converging; its estimates are approximate`;
+    case "factor-heywood":
+      return (
+        `the factor model puts the noise variance of ${detail.portfolio} at 0 (${fmt(detail.noiseVariance)}), a Heywood case: ` +
+        "the one-factor structure fits only at the boundary; its standard errors are not reported"
       );
   }
 }

@@ -170,6 +170,8 @@ export const parameters = {
   windowStep: integerRule(1, 100_000_000),
   /** An assumed correlation of the books' noises (docs/methods.md §2). */
   noiseCorrelation: numberRule({ gte: -1, lte: 1 }),
+  /** A portfolio's weight in the market proxy of the k-portfolio factor model, scaled to sum to 1 (docs/methods.md §31). */
+  marketWeight: numberRule({ gt: 0, lte: 1e12 }),
 } as const satisfies Record<string, Rule<number>>;
 
 export type ParameterName = keyof typeof parameters;

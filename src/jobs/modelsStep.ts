@@ -10,19 +10,24 @@ import type { CommandOptions } from "../options/index.js";
 import type { IndexReport, SensitivityReport } from "../report/types.js";
 import type { PairTable } from "./pairTables.js";
 import { hacOptions } from "./uncertaintyStep.js";
+import { factorColumns, factorModelFor } from "./factorStep.js";
+import type { FactorModel } from "../core/models/factorModel.js";
 
 /** The columns the extensions read besides the books'. */
-export const modelColumns = (options: Pick<CommandOptions<"solve">, "index">): string[] =>
-  options.index === undefined ? [] : [options.index];
+export const modelColumns = (options: Pick<CommandOptions<"solve">, "index" | "portfolios" | "marketWeights">): string[] => [
+  ...(options.index === undefined ? [] : [options.index]),
+  ...factorColumns(options),
+];
 
 export interface ModelResults {
   readonly index: IndexReport | null;
   readonly sensitivity: SensitivityReport | null;
+  readonly factorModel: FactorModel | null;
 }
 
 export function modelsFor(
   loaded: PairTable,
-  sample: ReturnSample,
+  sample: ReturnSample & { riskFree: number | Float64Array },
   solution: Solution,
   uncertainty: Uncertainty | null,
   options: CommandOptions<"solve">,
@@ -50,12 +55,14 @@ export function modelsFor(
   const m = solution.moments;
   const moments = { weight: solution.weight, lowVariance: m.low.variance, highVariance: m.high.variance, covariance: m.covariance.lowHigh };
   const sensitivity = options.noiseCorrelation?.map((rho) => correlatedNoiseSet(moments, rho, solution.bounds)) ?? null;
-  return { index, sensitivity };
+  return { index, sensitivity, factorModel: factorModelFor(loaded, sample.riskFree, options) };
 }
 
 /** The warnings of the extensions, for the job's messages. */
 export function modelWarnings(results: ModelResults) {
-  return [...(results.index?.diagnostics ?? []), ...(results.sensitivity ?? []).flatMap((entry) => entry.diagnostics)].filter(
-    (d) => d.severity !== "info",
-  );
+  return [
+    ...(results.index?.diagnostics ?? []),
+    ...(results.sensitivity ?? []).flatMap((entry) => entry.diagnostics),
+    ...(results.factorModel?.diagnostics ?? []),
+  ].filter((d) => d.severity !== "info");
 }

@@ -111,6 +111,10 @@ const rulesAcross: { readonly [C in CommandName]: () => Rule[] } = {
       path: ["brief"],
       message: "--brief shortens the text report: use it with --format text",
     }),
+    across<CommandOptions<"solve">>((o) => o.marketWeights === undefined || o.marketWeights.length === o.portfolios?.length, {
+      path: ["marketWeights"],
+      message: "give one market weight per --portfolios column",
+    }),
   ],
   roll: () => [
     ...readerRules(),

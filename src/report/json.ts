@@ -74,6 +74,7 @@ export function toSolveOutput(report: SolveReport): SolveOutput {
     pricing: report.pricing,
     index: indexOutput(report.index),
     sensitivity: sensitivityOutput(report.sensitivity),
+    factorModel: report.factorModel,
     conventions: conventionsFor(report),
   };
 }

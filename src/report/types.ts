@@ -5,6 +5,7 @@
 
 import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
 import type { NoiseSensitivity } from "../core/models/correlatedNoise.js";
+import type { FactorModel } from "../core/models/factorModel.js";
 import type { IndexSolution } from "../core/models/indexSolve.js";
 import type { Solution } from "../core/types.js";
 import type { PricingJson } from "../schema/pricing.js";
@@ -33,6 +34,8 @@ export interface SolveReport {
   readonly index: IndexReport | null;
   /** The identified set under each assumed noise correlation (--noise-correlation); null when not asked for. */
   readonly sensitivity: SensitivityReport | null;
+  /** The one-factor model on k portfolios (--portfolios); null when not asked for. */
+  readonly factorModel: FactorModel | null;
 }
 
 /** The model with an independent index, and the column it was read from. */

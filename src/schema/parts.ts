@@ -159,6 +159,13 @@ export const diagnosticDetailSchema = z.discriminatedUnion("code", [
   z.strictObject({ code: z.literal("index-heywood"), series: z.enum(["low", "high", "index"]), noiseVariance: z.number() }),
   z.strictObject({ code: z.literal("noise-correlation-not-an-interval"), noiseCorrelation: z.number(), correlation: z.number() }),
   z.strictObject({ code: z.literal("noise-correlation-no-set"), noiseCorrelation: z.number() }),
+  // The k-portfolio factor model.
+  z.strictObject({ code: z.literal("factor-too-few-portfolios"), count: z.int(), minimum: z.int() }),
+  z.strictObject({ code: z.literal("factor-constant"), portfolio: z.string() }),
+  z.strictObject({ code: z.literal("factor-singular-covariance"), observations: z.int(), portfolios: z.int() }),
+  z.strictObject({ code: z.literal("factor-not-normalisable"), marketLoading: z.number() }),
+  z.strictObject({ code: z.literal("factor-not-converged"), iterations: z.int() }),
+  z.strictObject({ code: z.literal("factor-heywood"), portfolio: z.string(), noiseVariance: z.number() }),
 ]);
 
 export const diagnosticCodes = diagnosticDetailSchema.options.map((option) => option.shape.code.value);

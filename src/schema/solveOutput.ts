@@ -7,6 +7,7 @@ import * as z from "zod";
 import { inputKinds, unitChoices } from "../input/index.js";
 import { boundsSchema, candidateSchema, diagnosticSchema, landmarksSchema, lineFitSchema, momentsSchema } from "./parts.js";
 import type { Document } from "./document.js";
+import { factorModelSchema } from "./factorModel.js";
 import { indexOutputSchema, sensitivityEntrySchema } from "./models.js";
 import { doc } from "./registry.js";
 import { pricingSchema } from "./pricing.js";
@@ -97,6 +98,7 @@ export const solveOutputSchema = doc(
       z.array(sensitivityEntrySchema).nullable(),
       "the identified set under each assumed noise correlation (--noise-correlation); null when not asked for",
     ),
+    factorModel: doc(factorModelSchema.nullable(), "the one-factor model on k portfolios (--portfolios); null when not asked for"),
     conventions: conventionsSchema,
   }),
   "betabound solve output",

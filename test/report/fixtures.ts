@@ -88,6 +88,7 @@ export function reportOf(
     pricing,
     index: null,
     sensitivity: null,
+    factorModel: null,
   };
 }
 

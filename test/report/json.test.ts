@@ -67,7 +67,18 @@ describe("renderJson", () => {
     const solutionPart = Object.fromEntries(
       Object.entries(json).filter(
         ([key]) =>
-          !["schemaVersion", "tool", "status", "input", "uncertainty", "pricing", "index", "sensitivity", "conventions"].includes(key),
+          ![
+            "schemaVersion",
+            "tool",
+            "status",
+            "input",
+            "uncertainty",
+            "pricing",
+            "index",
+            "sensitivity",
+            "factorModel",
+            "conventions",
+          ].includes(key),
       ),
     );
     // Without uncertainty the CAPM fits carry hac: null (the HAC part is tested with uncertainty below).
@@ -93,10 +104,11 @@ describe("renderJson", () => {
       "pricing",
       "index",
       "sensitivity",
+      "factorModel",
       "conventions",
     ]);
     // The extensions are null unless asked for (--index, --noise-correlation).
-    expect(parse(typicalSolution())).toMatchObject({ index: null, sensitivity: null });
+    expect(parse(typicalSolution())).toMatchObject({ index: null, sensitivity: null, factorModel: null });
   });
 
   test("schemaVersion, tool and input are written as given", () => {

@@ -32,6 +32,7 @@ describe("solveOutputJsonSchema", () => {
         "CapmFit",
         "CapmHac",
         "Diagnostic",
+        "FactorModel",
         "HacSettings",
         "IdentifiedBounds",
         "IndexModel",

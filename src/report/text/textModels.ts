@@ -3,6 +3,7 @@
  * and the sensitivity of the set to correlated noise. Each returns its lines; none when not asked for.
  */
 
+import { factorModelSection } from "./textFactorModel.js";
 import { indexParameterNames, type IndexParameter } from "../../core/models/indexModel.js";
 import type { SensitivityKind } from "../../core/models/correlatedNoise.js";
 import { formatNumber, notAvailable } from "../format.js";
@@ -36,15 +37,19 @@ const parameterLabels: Record<IndexParameter, string> = {
 const yesNo = (x: boolean | null, yes: string, no: string): string => (x === null ? notAvailable : x ? yes : no);
 
 /** The sections of the extensions that the report holds. */
-export function modelSectionsOf(report: Pick<SolveReport, "index" | "sensitivity">): Section[] {
+export function modelSectionsOf(report: Pick<SolveReport, "index" | "sensitivity"> & Partial<Pick<SolveReport, "factorModel">>): Section[] {
   const sections: Section[] = [];
   if (report.index !== null) sections.push(indexModel(report.index));
   if (report.sensitivity !== null) sections.push(sensitivity(report.sensitivity));
+  if (report.factorModel != null) sections.push(factorModelSection(report.factorModel));
   return sections;
 }
 
 /** Their text. */
-export function modelSections(report: Pick<SolveReport, "index" | "sensitivity">, style: Style): string[][] {
+export function modelSections(
+  report: Pick<SolveReport, "index" | "sensitivity"> & Partial<Pick<SolveReport, "factorModel">>,
+  style: Style,
+): string[][] {
   return modelSectionsOf(report).map((section) => sectionLines(section, style));
 }
 

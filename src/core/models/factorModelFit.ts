@@ -1,0 +1,144 @@
+/**
+ * Maximum-likelihood one-factor analysis of a k x k sample covariance matrix (docs/methods.md §31).
+ *
+ * Model: Sigma = lambda lambda' + Psi, Psi diagonal. For fixed Psi the likelihood is maximised by
+ * lambda = Psi^(1/2) v sqrt(max(theta - 1, 0)), with theta, v the largest eigenvalue and its unit
+ * eigenvector of Psi^(-1/2) S Psi^(-1/2) (Joreskog 1967; Lawley & Maxwell 1971, ch. 4); the noise
+ * variances then follow the fixed point Psi = diag(S - lambda lambda'), a noise variance that would fall
+ * to or below 0 being held at a floor of 1e-10 of its series' variance (a Heywood case). Iterates until
+ * no noise variance moves by more than 1e-15 of its series' variance, for at most 20,000 steps.
+ *
+ * The discrepancy is F = log|Sigma| + tr(S Sigma^-1) - log|S| - k, the likelihood-ratio statistic
+ * Bartlett's (n - 1 - (2k + 5)/6 - 2/3) F (Lawley & Maxwell 1971, section 4.6), on k(k - 3)/2 degrees
+ * of freedom. Standard errors come from the Fisher information of (lambda, Psi) for a Wishart S with
+ * n - 1 degrees of freedom, I_ab = (n - 1)/2 tr(Sigma^-1 dSigma_a Sigma^-1 dSigma_b) (the caller
+ * carries them to the normalised loadings by the delta method).
+ */
+import { type Matrix, solveOrNull } from "../numerics/linearAlgebra.js";
+import { choleskyLogDetInverse, symmetricEigen } from "../numerics/symmetricEigen.js";
+
+export const heywoodFloor = 1e-10;
+const tolerance = 1e-15;
+const maxIterations = 20_000;
+const nearBoundary = 1e-3;
+
+export interface OneFactorFit {
+  /** Unnormalised loadings (factor variance 1), sign chosen by the caller. */
+  readonly lambda: number[];
+  readonly psi: number[];
+  /** Indices of the noise variances held at the floor. */
+  readonly heywood: number[];
+  readonly converged: boolean;
+  readonly iterations: number;
+  /** The ML discrepancy F at the estimate. */
+  readonly discrepancy: number;
+  /** Covariance of (lambda, psi) from the inverse information; null when the information is singular. */
+  readonly covariance: Matrix | null;
+}
+
+/** The ML fit of `s` (positive definite, k >= 3) from `n` observations; null when `s` is not positive definite. */
+export function fitOneFactor(s: readonly (readonly number[])[], n: number): OneFactorFit | null {
+  const k = s.length;
+  const sample = choleskyLogDetInverse(s);
+  if (sample === null) return null;
+  // Starting values of Joreskog (1967): psi_i = (1 - 1/(2k)) / (S^-1)_ii.
+  let psi = s.map((_, i) => (1 - 1 / (2 * k)) / sample.inverse[i]![i]!);
+  let lambda = new Array<number>(k).fill(0);
+  let iterations = 0;
+  let converged = false;
+  for (; iterations < maxIterations; ) {
+    iterations++;
+    lambda = loadingsGiven(s, psi);
+    const next = s.map((row, i) => Math.max(row[i]! - lambda[i]! * lambda[i]!, heywoodFloor * row[i]!));
+    const moved = Math.max(...next.map((p, i) => Math.abs(p - psi[i]!) / s[i]![i]!));
+    psi = next;
+    if (moved <= tolerance) {
+      converged = true;
+      break;
+    }
+    // Creeping towards a noise variance of 0: the boundary solutions below settle it.
+    if (iterations >= 2_000 && psi.some((p, i) => p < nearBoundary * s[i]![i]!)) break;
+  }
+  lambda = loadingsGiven(s, psi);
+  let best: Candidate | null = evaluate(s, sample.logDet, lambda, psi, converged);
+  // On the boundary psi_i = 0 the factor is portfolio i itself (Lawley & Maxwell 1971, section 5.1):
+  // lambda = S e_i / sqrt(S_ii), psi_j = S_jj - S_ji^2 / S_ii. Kept when it fits at least as well.
+  for (let i = 0; i < k; i++) {
+    const root = Math.sqrt(s[i]![i]!);
+    const edgeLambda = s.map((row) => row[i]! / root);
+    const edgePsi = s.map((row, j) => (j === i ? heywoodFloor * row[j]! : row[j]! - edgeLambda[j]! * edgeLambda[j]!));
+    if (edgePsi.some((p, j) => j !== i && !(p > heywoodFloor * s[j]![j]!))) continue;
+    const edge = evaluate(s, sample.logDet, edgeLambda, edgePsi, true);
+    if (edge !== null && (best === null || edge.discrepancy <= best.discrepancy + 1e-14)) best = edge;
+  }
+  if (best === null) return null;
+  ({ lambda, psi } = best);
+  converged = best.converged;
+  const heywood = psi.flatMap((p, i) => (p <= heywoodFloor * s[i]![i]! * (1 + 1e-9) ? [i] : []));
+  const discrepancy = best.discrepancy;
+  const covariance = inverseInformation(best.inverse, lambda, n);
+  return { lambda, psi, heywood, converged, iterations, discrepancy, covariance };
+}
+
+interface Candidate {
+  readonly lambda: number[];
+  readonly psi: number[];
+  readonly discrepancy: number;
+  readonly inverse: Matrix;
+  readonly converged: boolean;
+}
+
+function evaluate(
+  s: readonly (readonly number[])[],
+  logDetS: number,
+  lambda: number[],
+  psi: number[],
+  converged: boolean,
+): Candidate | null {
+  const k = s.length;
+  const sigma = s.map((row, i) => row.map((_, j) => lambda[i]! * lambda[j]! + (i === j ? psi[i]! : 0)));
+  const model = choleskyLogDetInverse(sigma);
+  if (model === null) return null;
+  let trace = 0;
+  for (let i = 0; i < k; i++) for (let j = 0; j < k; j++) trace += s[i]![j]! * model.inverse[j]![i]!;
+  return { lambda, psi, discrepancy: Math.max(model.logDet + trace - logDetS - k, 0), inverse: model.inverse, converged };
+}
+
+/** lambda maximising the likelihood for fixed psi. */
+function loadingsGiven(s: readonly (readonly number[])[], psi: readonly number[]): number[] {
+  const root = psi.map(Math.sqrt);
+  const scaled = s.map((row, i) => row.map((x, j) => x / (root[i]! * root[j]!)));
+  const { values, vectors } = symmetricEigen(scaled);
+  const size = Math.sqrt(Math.max(values[0]! - 1, 0));
+  return vectors[0]!.map((v, i) => root[i]! * v * size);
+}
+
+/** ((n - 1)/2 tr(P A P B))^-1 over the parameters (lambda_1..k, psi_1..k), P = Sigma^-1. */
+function inverseInformation(p: Matrix, lambda: readonly number[], n: number): Matrix | null {
+  const k = lambda.length;
+  // dSigma/dlambda_i = e_i lambda' + lambda e_i'; dSigma/dpsi_i = e_i e_i'.
+  const derivatives: Matrix[] = [];
+  for (let i = 0; i < k; i++)
+    derivatives.push(
+      Array.from({ length: k }, (_, r) => Array.from({ length: k }, (_, c) => (r === i ? lambda[c]! : 0) + (c === i ? lambda[r]! : 0))),
+    );
+  for (let i = 0; i < k; i++)
+    derivatives.push(Array.from({ length: k }, (_, r) => Array.from({ length: k }, (_, c) => (r === i && c === i ? 1 : 0))));
+  const products = derivatives.map((d) => matmul(p, d));
+  const size = 2 * k;
+  const information: Matrix = Array.from({ length: size }, () => new Array<number>(size).fill(0));
+  for (let a = 0; a < size; a++)
+    for (let b = a; b < size; b++) {
+      let trace = 0;
+      const x = products[a]!;
+      const y = products[b]!;
+      for (let i = 0; i < k; i++) for (let j = 0; j < k; j++) trace += x[i]![j]! * y[j]![i]!;
+      information[a]![b] = information[b]![a] = ((n - 1) / 2) * trace;
+    }
+  const identity = Array.from({ length: size }, (_, i) => Array.from({ length: size }, (_, j) => (i === j ? 1 : 0)));
+  return solveOrNull(information, identity, 1e-12);
+}
+
+function matmul(a: Matrix, b: Matrix): Matrix {
+  return a.map((row) => b[0]!.map((_, j) => row.reduce((sum, x, l) => sum + x * b[l]![j]!, 0)));
+}
