@@ -7,6 +7,7 @@ import type { ReturnSample } from "../core/types.js";
 import {
   describeInputIssue,
   type InputIssue,
+  type InputWarningDiagnostic,
   joinOnDates,
   parseDecimal,
   type ReadOptions,
@@ -150,6 +151,11 @@ export function sampleOf(loaded: PairTable): ReturnSample & { riskFree: number |
     riskFree:
       loaded.keys.riskFree !== null ? values.get(loaded.keys.riskFree)! : loaded.riskFree.kind === "constant" ? loaded.riskFree.rate : 0,
   };
+}
+
+/** The reading warnings of a loaded pair as messages for a person (the CLI shows each once per run). */
+export function readingMessages(warnings: readonly InputWarningDiagnostic[]): { severity: "warning"; text: string; reading: true }[] {
+  return warnings.map((w) => ({ severity: "warning", text: w.message, reading: true }));
 }
 
 /** Where the numbers of a loaded pair came from, for the reports. */

@@ -1,6 +1,6 @@
 /**
  * The machine-readable report: one JSON document whose shape is the contract described by
- * src/schema/solveOutput.ts (schemaVersion 2). Numbers are written at full double precision by
+ * src/schema/solveOutput.ts (schemaVersion 3). Numbers are written at full double precision by
  * JSON.stringify (shortest round-trip form; -0 is written as 0); there is never a NaN or an
  * infinity, because the core uses null for undefined quantities and this module refuses to write one.
  */
@@ -9,10 +9,11 @@ import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
 import type { Solution } from "../core/types.js";
 import type { SolveOutputJson } from "../schema/solveOutput.js";
 import { conventionsFor } from "./conventions.js";
+import { reportDiagnostics } from "./diagnosticList.js";
 import { indexOutput, sensitivityOutput } from "./modelsJson.js";
 import type { InputDescription, RenderOptions, SolveReport } from "./types.js";
 
-export const schemaVersion = 2 as const;
+export const schemaVersion = 3 as const;
 
 /** The JSON document renderJson writes: its type is the output schema's (src/schema/solveOutput.ts). */
 export type SolveOutput = SolveOutputJson;
@@ -64,7 +65,7 @@ export function toSolveOutput(report: SolveReport): SolveOutput {
     bounds: s.bounds,
     grid: s.grid,
     landmarks: s.landmarks,
-    diagnostics: s.diagnostics,
+    diagnostics: reportDiagnostics(report),
     uncertainty: uncertaintyOutput(report.uncertainty),
     pricing: report.pricing,
     index: indexOutput(report.index),

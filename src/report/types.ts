@@ -7,6 +7,7 @@ import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
 import type { NoiseSensitivity } from "../core/models/correlatedNoise.js";
 import type { IndexSolution } from "../core/models/indexSolve.js";
 import type { Solution } from "../core/types.js";
+import type { InputWarningDiagnostic } from "../input/index.js";
 import type { PricingJson } from "../schema/pricing.js";
 import type { SolveOutputJson } from "../schema/solveOutput.js";
 
@@ -33,6 +34,8 @@ export interface SolveReport {
   readonly index: IndexReport | null;
   /** The identified set under each assumed noise correlation (--noise-correlation); null when not asked for. */
   readonly sensitivity: SensitivityReport | null;
+  /** Warnings from reading the file(s), listed first among the report's diagnostics. */
+  readonly inputWarnings: readonly InputWarningDiagnostic[];
 }
 
 /** The model with an independent index, and the column it was read from. */

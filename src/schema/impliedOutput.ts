@@ -18,7 +18,7 @@ const populationFitSchema = z.strictObject({
 
 export const impliedOutputSchema = doc(
   z.strictObject({
-    schemaVersion: z.literal(2),
+    schemaVersion: z.literal(3),
     tool: toolSchema,
     command: z.literal("implied"),
     structure: z.strictObject({

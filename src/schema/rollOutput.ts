@@ -20,7 +20,7 @@ const capmLineSchema = z.strictObject({
 
 export const rollOutputSchema = doc(
   z.strictObject({
-    schemaVersion: z.literal(2),
+    schemaVersion: z.literal(3),
     tool: toolSchema,
     command: z.literal("roll"),
     status: z.enum(["ok", "rejected"]),

@@ -1,5 +1,5 @@
 /**
- * Zod 4 schema of the JSON document `renderJson` writes (schemaVersion 2). This is the contract for
+ * Zod 4 schema of the JSON document `renderJson` writes (schemaVersion 3). This is the contract for
  * anyone reading the output: every object is strict, numbers are finite, absent values are null.
  */
 
@@ -70,7 +70,7 @@ export const toolSchema = z.strictObject({ name: z.literal("betabound"), version
 
 export const solveOutputSchema = doc(
   z.strictObject({
-    schemaVersion: z.literal(2),
+    schemaVersion: z.literal(3),
     tool: toolSchema,
     status: doc(z.enum(["ok", "rejected"]), "rejected: the data were read but no identified set can be reported"),
     input: inputSchema,
@@ -100,7 +100,7 @@ export type SolveOutputJson = Document<z.output<typeof solveOutputSchema>>;
 /** A JSON Lines record for a (file, pair) that could not be solved: what was asked and why it failed. */
 export const solveFailureSchema = doc(
   z.strictObject({
-    schemaVersion: z.literal(2),
+    schemaVersion: z.literal(3),
     tool: toolSchema,
     status: z.literal("failed"),
     input: z.strictObject({ source: z.string(), lowColumn: z.string(), highColumn: z.string() }),

@@ -83,6 +83,7 @@ export function reportOf(
     pricing,
     index: null,
     sensitivity: null,
+    inputWarnings: [],
   };
 }
 

@@ -101,7 +101,7 @@ describe("renderJson", () => {
 
   test("schemaVersion, tool and input are written as given", () => {
     const json = parse(typicalSolution());
-    expect(json.schemaVersion).toBe(2);
+    expect(json.schemaVersion).toBe(3);
     expect(json.tool).toEqual({ name: "betabound", version: "0.1.0-test" });
     expect(json.input).toEqual({ ...input, rowsRead: typicalSolution().observations + input.rowsDropped });
   });
@@ -131,7 +131,7 @@ describe("renderJson", () => {
 
   test("output is pretty-printed with 2 spaces and ends with one newline", () => {
     const text = renderJson(reportOf(typicalSolution()), plain);
-    expect(text.startsWith('{\n  "schemaVersion": 2,\n')).toBe(true);
+    expect(text.startsWith('{\n  "schemaVersion": 3,\n')).toBe(true);
     expect(text.endsWith("}\n")).toBe(true);
     expect(text.endsWith("\n\n")).toBe(false);
   });

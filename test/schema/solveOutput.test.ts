@@ -53,7 +53,7 @@ describe("solveOutputSchema", () => {
     const json = valid();
     (json.moments as { low: { mean: unknown } }).low.mean = null;
     expect(solveOutputSchema.safeParse(json).success).toBe(false);
-    expect(solveOutputSchema.safeParse({ ...valid(), schemaVersion: 1 }).success).toBe(false);
+    expect(solveOutputSchema.safeParse({ ...valid(), schemaVersion: 2 }).success).toBe(false);
   });
 
   test("rejects a diagnostic whose detail has another code", () => {

@@ -13,6 +13,7 @@ import { addTableOptions } from "../commandOptions.js";
 import { withConfig } from "../config.js";
 import { emit, usage, waitsOnTerminal, wantsColour } from "../emit.js";
 import { jobContext } from "../jobContext.js";
+import { writeMessages } from "../jobMessages.js";
 import { describeCliIssue, describeOptionIssue } from "../messages.js";
 import { type ExitCode, exitCodes } from "../runtime/exitCodes.js";
 import type { CliIo } from "../runtime/io.js";
@@ -43,8 +44,9 @@ export async function runSolve(
   if (clash !== null) return usage(io, describeCliIssue(clash));
   const { pairs, several } = await solvePlanned(files, plan.value, jobContext(io));
   // Nothing is written when no pair could be read: the messages say why, and outputs stay as they were.
+  const seen = new Set<string>();
   if (pairs.every((p) => p.status === "failed")) {
-    for (const pair of pairs) for (const message of pair.messages) io.writeErr(`${message.severity}: ${message.text}\n`);
+    for (const pair of pairs) writeMessages(io, pair.messages, seen);
     return exitCodes.input;
   }
 
@@ -63,12 +65,10 @@ export async function runSolve(
   }
   const written = await emit(io, options.output, text);
   if (written !== exitCodes.ok) return written;
-  // Reports carry their diagnostics; repeat them on stderr unless a text report is on the terminal.
+  // Reports carry their diagnostics; repeat them on stderr unless a text report is on the terminal
+  // (reading warnings always, once per file).
   const reportOnTerminal = options.output === undefined && io.stdoutIsTerminal && options.format === "text";
-  for (const pair of pairs) {
-    if (pair.status !== "failed" && reportOnTerminal) continue;
-    for (const message of pair.messages) io.writeErr(`${message.severity}: ${message.text}\n`);
-  }
+  for (const pair of pairs) writeMessages(io, pair.messages, seen, pair.status !== "failed" && reportOnTerminal);
   if (!several) return pairExitCode[pairs[0]?.status ?? "failed"];
   return pairs.every((p) => p.status === "ok") ? exitCodes.ok : exitCodes.partial;
 }

@@ -9,6 +9,7 @@ import { assumptionsSection, closingLines, diagnosticsSection } from "./textNote
 import { pricingSection } from "./textPricing.js";
 import { boundsSection, gridSection, landmarksSection, rejectedSection } from "./textSet.js";
 import { styleFor } from "../layout.js";
+import { reportDiagnostics } from "../diagnosticList.js";
 import { modelSections } from "./textModels.js";
 import { bootstrapSection, boundsWithUncertaintySection, precisionSection, sharpeSection } from "./textUncertainty.js";
 import type { RenderOptions, SolveReport } from "../types.js";
@@ -44,7 +45,11 @@ export function renderText(report: SolveReport, options: RenderOptions): string 
   }
   sections.push(...modelSections(report, style));
   if (u !== null) sections.push(sharpeSection(u, report.input.frequency?.periodsPerYear ?? null, style), bootstrapSection(u, style));
-  sections.push(diagnosticsSection(s.diagnostics, style), assumptionsSection(s.weight, style), closingLines(report.input.riskFree));
+  sections.push(
+    diagnosticsSection(reportDiagnostics(report), style),
+    assumptionsSection(s.weight, style),
+    closingLines(report.input.riskFree),
+  );
   return `${sections
     .filter((lines) => lines.length > 0)
     .map((lines) => lines.join("\n"))
