@@ -67,6 +67,7 @@ interface ReaderOptions {
   readonly pair?: readonly unknown[] | undefined;
   readonly lows?: readonly string[] | undefined;
   readonly highs?: readonly string[] | undefined;
+  readonly allPairs?: readonly string[] | undefined;
   readonly idColumn?: string | undefined;
   readonly valueColumn?: string | undefined;
 }
@@ -82,9 +83,17 @@ function readerRules(): Rule[] {
       path: ["highs"],
       message: "--lows and --highs go together",
     }),
-    across<ReaderOptions>((o) => o.low !== undefined || (o.pair?.length ?? 0) > 0 || o.lows !== undefined, {
+    across<ReaderOptions>((o) => o.low !== undefined || (o.pair?.length ?? 0) > 0 || o.lows !== undefined || o.allPairs !== undefined, {
       path: ["low"],
-      message: "name the books: --low COLUMN --high COLUMN, or --pair LOW:HIGH, or --lows A,B --highs X,Y",
+      message: "name the books: --low COLUMN --high COLUMN, or --pair LOW:HIGH, or --lows A,B --highs X,Y, or --all-pairs A,B,C",
+    }),
+    across<ReaderOptions>((o) => o.allPairs === undefined || (o.low === undefined && (o.pair?.length ?? 0) === 0 && o.lows === undefined), {
+      path: ["allPairs"],
+      message: "--all-pairs orders each pair itself: give it without --low/--high, --pair or --lows/--highs",
+    }),
+    across<ReaderOptions>((o) => o.allPairs === undefined || new Set(o.allPairs).size >= 2, {
+      path: ["allPairs"],
+      message: "--all-pairs needs at least two different columns",
     }),
     across<ReaderOptions>(inputRules.longLayout.accept, {
       path: ["valueColumn"],

@@ -112,6 +112,7 @@ export const diagnosticDetailSchema = z.discriminatedUnion("code", [
   z.strictObject({ code: z.literal("nonpositive-covariance"), covariance: z.number(), correlation: z.number() }),
   z.strictObject({ code: z.literal("perfect-correlation"), correlation: z.number() }),
   z.strictObject({ code: z.literal("low-beta-above-one"), upperBound: z.number() }),
+  z.strictObject({ code: z.literal("books-swapped"), lowerBound: z.number(), upperBound: z.number() }),
   z.strictObject({ code: z.literal("market-mean-near-zero"), marketMean: z.number(), tStat: z.number(), criticalValue: z.number() }),
   z.strictObject({
     code: z.literal("return-implied-outside-set"),

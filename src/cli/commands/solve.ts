@@ -80,6 +80,7 @@ Examples:
   $ cat returns.csv | betabound solve - --low LOW --high HIGH --steps 21 --format csv --output grid.csv
   $ betabound solve desk-a.csv desk-b.csv --lows LV1,LV2 --highs HB1 --format jsonl > pairs.jsonl
   $ betabound solve --low calm.csv:Return --high bold.csv:Return --rf 0.0001
+  $ betabound solve funds.csv --all-pairs FUND1,FUND2,FUND3 --format jsonl > pairs.jsonl
   $ betabound solve returns.csv --low LOW --high HIGH --chart set.svg --report report.html
 `;
 
