@@ -9,6 +9,7 @@ import { defaultThreads, type PairStatus, runShape, solveOptions, solvePlanned }
 import type { CommandOptionsInput } from "../../options/index.js";
 import { renderJsonLines, renderRecordsCsv, renderRecordsText } from "../../report/records.js";
 import { renderReport } from "../../report/render.js";
+import { renderSummaryCsv } from "../../report/summaryCsv.js";
 import { addTableOptions } from "../commandOptions.js";
 import { withConfig } from "../config.js";
 import { emit, usage, waitsOnTerminal, wantsColour } from "../emit.js";
@@ -55,7 +56,8 @@ export async function runSolve(
   const single = !several && first?.kind === "report" ? first.report : null;
   const colour = wantsColour(io, options.output, options.format);
   let text: string;
-  if (single !== null && options.format !== "jsonl") text = renderReport(single, options.format, { colour });
+  if (options.format === "summary-csv") text = renderSummaryCsv(pairs.map((p) => p.document));
+  else if (single !== null && options.format !== "jsonl") text = renderReport(single, options.format, { colour });
   else if (options.format === "jsonl") text = renderJsonLines(records);
   else text = options.format === "csv" ? renderRecordsCsv(records) : renderRecordsText(records, { colour });
 
@@ -80,7 +82,7 @@ Examples:
   $ cat returns.csv | betabound solve - --low LOW --high HIGH --steps 21 --format csv --output grid.csv
   $ betabound solve desk-a.csv desk-b.csv --lows LV1,LV2 --highs HB1 --format jsonl > pairs.jsonl
   $ betabound solve --low calm.csv:Return --high bold.csv:Return --rf 0.0001
-  $ betabound solve funds.csv --all-pairs FUND1,FUND2,FUND3 --format jsonl > pairs.jsonl
+  $ betabound solve funds.csv --all-pairs FUND1,FUND2,FUND3 --format summary-csv > pairs.csv
   $ betabound solve returns.csv --low LOW --high HIGH --chart set.svg --report report.html
 `;
 

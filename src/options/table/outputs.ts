@@ -27,7 +27,7 @@ export const reportOptions = {
   solveFormat: option(choiceKind(solveFormats), {
     name: "format",
     argument: "<format>",
-    help: "report format; jsonl writes one record per file and pair",
+    help: "report format; jsonl writes one record per file and pair, summary-csv one CSV row per file and pair",
     group: "output",
     commands: ["solve"],
     default: "text",
