@@ -7,7 +7,7 @@
 import * as z from "zod/mini";
 import { minimumObservations, refusal } from "../core/parameters.js";
 import { failure, type Result, success } from "../core/result.js";
-import { inputRules } from "../input/index.js";
+import { closestName, inputRules } from "../input/index.js";
 import type { Kind } from "./kinds.js";
 import { type CommandName, commandNames, type OptionKey, type OptionSpec, type OptionTable, optionTable } from "./table.js";
 
@@ -160,10 +160,12 @@ export interface OptionIssue {
 }
 
 /** The first problem zod found, as the option it concerns and the message. */
-export function optionIssueOf(error: z.core.$ZodError): OptionIssue {
+export function optionIssueOf(error: z.core.$ZodError, names: readonly string[] = []): OptionIssue {
   const issue = error.issues[0];
   if (issue?.code === "unrecognized_keys") {
-    return { code: "unknown-option", option: "", message: `unknown option ${issue.keys.map((k) => `"${k}"`).join(", ")}` };
+    const near = issue.keys.length === 1 ? closestName(issue.keys[0] ?? "", names) : undefined;
+    const hint = near === undefined ? "" : ` (did you mean "${near}"?)`;
+    return { code: "unknown-option", option: "", message: `unknown option ${issue.keys.map((k) => `"${k}"`).join(", ")}${hint}` };
   }
   const conflict = issue?.code === "custom" && (issue.params as { across?: boolean } | undefined)?.across === true;
   return {
@@ -176,7 +178,14 @@ export function optionIssueOf(error: z.core.$ZodError): OptionIssue {
 /** `input` checked against `command`'s options, with every default filled in, or the first problem. */
 export function parseOptions<C extends CommandName>(command: C, input: unknown): Result<CommandOptions<C>, OptionIssue> {
   const parsed = optionsSchema(command).safeParse(input);
-  return parsed.success ? success(parsed.data) : failure(optionIssueOf(parsed.error));
+  return parsed.success
+    ? success(parsed.data)
+    : failure(
+        optionIssueOf(
+          parsed.error,
+          entriesFor(command).map((e) => e.name),
+        ),
+      );
 }
 
 /** The kebab-case flag of an option name: "hacLags" -> "--hac-lags". */
