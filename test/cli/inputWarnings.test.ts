@@ -102,6 +102,15 @@ describe("reading warnings as diagnostics", () => {
     ).toEqual([]);
   });
 
+  it("lists reading warnings in the HTML report's Diagnostics", async () => {
+    const { io, written } = fakeIo(files);
+    const args = ["solve", "t.csv", "--low", "Stillwater Low Vol", "--high", "Kestrel High Beta", ...percent, "--report", "r.html"];
+    expect(await run(args, io)).toBe(exitCodes.ok);
+    const html = written.get("r.html") ?? "";
+    const diagnostics = html.slice(html.indexOf('id="diagnostics"'));
+    expect(diagnostics).toContain(skipped);
+  });
+
   it("lists reading warnings first in every roll record, and once on stderr", async () => {
     const { io, stdout, stderr } = fakeIo(files);
     const args = [
