@@ -5,8 +5,8 @@
  */
 import { availableParallelism } from "node:os";
 import { Command } from "commander";
-import { defaultThreads, type PairStatus, runShape, solveOptions, solvePlanned } from "../../jobs/index.js";
-import type { CommandOptionsInput } from "../../options/index.js";
+import { defaultThreads, type PairStatus, runShape, type SolvedPair, solveOptions, solvePlanned } from "../../jobs/index.js";
+import type { CommandOptionsInput, OptionIssue } from "../../options/index.js";
 import { renderJsonLines, renderRecordsCsv, renderRecordsText } from "../../report/records.js";
 import { renderReport } from "../../report/render.js";
 import { renderSummaryCsv } from "../../report/summaryCsv.js";
@@ -20,6 +20,18 @@ import { type ExitCode, exitCodes } from "../runtime/exitCodes.js";
 import type { CliIo } from "../runtime/io.js";
 import { outputClash } from "../outputPaths.js";
 import { writeCharts } from "./charts.js";
+
+const severalJobsAsJson: OptionIssue = {
+  code: "options-conflict",
+  option: "format",
+  value: "json",
+  message: "several jobs need --format jsonl (one record per line), csv, summary-csv or text",
+};
+const severalJobsDrawn: OptionIssue = {
+  code: "options-conflict",
+  option: "report",
+  message: "draws one file and one pair; run it per pair",
+};
 
 /** The exit code of one (file, pair). */
 export const pairExitCode: Readonly<Record<PairStatus, ExitCode>> = {
@@ -35,15 +47,40 @@ export async function runSolve(
   io: CliIo,
   configFile?: string,
 ): Promise<ExitCode> {
-  const input = { threads: defaultThreads(availableParallelism()), ...flags } as CommandOptionsInput<"solve">;
-  const plan = solveOptions(files, input);
-  if (!plan.ok) return usage(io, describeOptionIssue(plan.issues));
-  const options = plan.value.options;
-  const shape = runShape(files, options);
-  if (waitsOnTerminal(io, files, shape)) return usage(io, describeCliIssue({ code: "no-input" }));
-  const clash = outputClash(io, configFile === undefined ? shape.reads : [...shape.reads, configFile], options);
+  return runSolveJobs([{ files, flags }], io, configFile);
+}
+
+/**
+ * Runs the jobs of one run (a config file's "jobs", or the one job of the command line) into one output:
+ * every job's options are checked before anything is read, each job's pairs are solved on its own files,
+ * and the records follow in job order.
+ */
+export async function runSolveJobs(
+  jobs: readonly { readonly files: readonly string[]; readonly flags: Readonly<Record<string, unknown>> }[],
+  io: CliIo,
+  configFile?: string,
+): Promise<ExitCode> {
+  const plans = [];
+  for (const { files, flags } of jobs) {
+    const input = { threads: defaultThreads(availableParallelism()), ...flags } as CommandOptionsInput<"solve">;
+    const plan = solveOptions(files, input);
+    if (!plan.ok) return usage(io, describeOptionIssue(plan.issues));
+    const shape = runShape(files, plan.value.options);
+    if (waitsOnTerminal(io, files, shape)) return usage(io, describeCliIssue({ code: "no-input" }));
+    plans.push({ files, plan: plan.value, shape });
+  }
+  const [lead] = plans;
+  if (lead === undefined) return usage(io, describeCliIssue({ code: "no-input" }));
+  const options = lead.plan.options;
+  if (plans.length > 1 && options.format === "json") return usage(io, describeOptionIssue(severalJobsAsJson));
+  if (plans.length > 1 && (options.chart !== undefined || options.report !== undefined))
+    return usage(io, describeOptionIssue(severalJobsDrawn));
+  const reads = plans.flatMap((p) => p.shape.reads);
+  const clash = outputClash(io, configFile === undefined ? reads : [...reads, configFile], options);
   if (clash !== null) return usage(io, describeCliIssue(clash));
-  const { pairs, several } = await solvePlanned(files, plan.value, jobContext(io));
+  const pairs: SolvedPair[] = [];
+  for (const { files, plan } of plans) pairs.push(...(await solvePlanned(files, plan, jobContext(io))).pairs);
+  const several = plans.length > 1 || lead.plan.several;
   // Nothing is written when no pair could be read: the messages say why, and outputs stay as they were.
   const seen = new Set<string>();
   if (pairs.every((p) => p.status === "failed")) {
@@ -96,6 +133,7 @@ export function solveCommand(io: CliIo, setExit: (code: ExitCode) => void): Comm
     .action(async (given: string[], _raw: Record<string, unknown>, self: Command) => {
       const job = await withConfig(self, "solve", given, io);
       if (!job.ok) return setExit(usage(io, describeCliIssue(job.issues)));
-      setExit(await runSolve(job.value.files, job.value.options, io, job.value.configFile));
+      const jobs = job.value.jobs.map((j) => ({ files: j.files, flags: j.options }));
+      setExit(await runSolveJobs(jobs, io, job.value.configFile));
     });
 }

@@ -68,7 +68,7 @@ export const reportOptions = {
   config: option(textKind("a file path"), {
     name: "config",
     argument: "<file>",
-    help: "a JSON file holding files, pairs and options for a job; flags override it",
+    help: 'a JSON file holding files, pairs and options for a job (or for several, under "jobs", solve only); flags override it',
     group: "output",
     commands: readers,
     flagOnly: true,
