@@ -25,6 +25,7 @@ export {
 export { renderReport } from "./report/render.js";
 export { renderImplied } from "./report/impliedReport.js";
 export { renderJsonLines, renderRecordsCsv, renderRecordsText, type SolveRecord } from "./report/records.js";
+export { renderSummaryCsv, summaryColumns } from "./report/summaryCsv.js";
 export type { InputDescription, RenderOptions, SolveReport } from "./report/types.js";
 export type { ImpliedOutputJson } from "./schema/impliedOutput.js";
 export type { RollOutputJson } from "./schema/rollOutput.js";

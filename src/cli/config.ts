@@ -6,31 +6,48 @@
 import { dirname, isAbsolute, join } from "node:path";
 import type { Command } from "commander";
 import { failure, type Result, success } from "../core/result.js";
-import { type CommandName, parseConfig, pathOptions } from "../options/index.js";
+import { type CommandName, parseConfigJobs, pathOptions } from "../options/index.js";
 import type { CliIssue } from "./messages.js";
 import type { CliIo } from "./runtime/io.js";
 
-/** The files and options of a command invocation: the flags, over the config file when one is given. */
+/** One job: its files and options. */
+export interface ConfiguredJob {
+  readonly files: string[];
+  readonly options: Record<string, unknown>;
+}
+
+/**
+ * The files and options of a command invocation: the flags, over the config file when one is given;
+ * `jobs`, one per job of the file (a file without "jobs" is one job), and `files` and `options`, the first.
+ */
 export async function withConfig(
   command: Command,
   name: CommandName,
   files: readonly string[],
   io: CliIo,
-): Promise<Result<{ files: string[]; options: Record<string, unknown>; configFile?: string }, CliIssue>> {
-  const options: Record<string, unknown> = { ...command.opts() };
-  const path = options.config;
-  delete options.config;
-  if (typeof path !== "string") return success({ files: [...files], options });
+): Promise<Result<ConfiguredJob & { jobs: ConfiguredJob[]; configFile?: string }, CliIssue>> {
+  const flags: Record<string, unknown> = { ...command.opts() };
+  const path = flags.config;
+  delete flags.config;
+  if (typeof path !== "string") {
+    const only = { files: [...files], options: flags };
+    return success({ ...only, jobs: [only] });
+  }
   const bytes = await io.readInput(path);
   if (!bytes.ok) return bytes;
-  const contents = parseConfig(new TextDecoder().decode(bytes.value), name);
+  const contents = parseConfigJobs(new TextDecoder().decode(bytes.value), name);
   if (!contents.ok) return failure({ code: "invalid-config", path, at: contents.issues.at, reason: contents.issues.reason });
   const folder = dirname(path);
   const relative = (p: string): string => (p === "-" || isAbsolute(p) ? p : join(folder, p));
   const paths = new Set(pathOptions(name));
-  for (const [key, value] of Object.entries(contents.value.values)) {
-    if (command.getOptionValueSource(key) === "cli") continue;
-    options[key] = paths.has(key) && typeof value === "string" ? relative(value) : value;
-  }
-  return success({ files: files.length > 0 ? [...files] : (contents.value.files ?? []).map(relative), options, configFile: path });
+  const jobs = contents.value.map((job) => {
+    const options: Record<string, unknown> = { ...flags };
+    for (const [key, value] of Object.entries(job.values)) {
+      if (command.getOptionValueSource(key) === "cli") continue;
+      options[key] = paths.has(key) && typeof value === "string" ? relative(value) : value;
+    }
+    return { files: files.length > 0 ? [...files] : (job.files ?? []).map(relative), options };
+  });
+  const first = jobs[0] ?? { files: [...files], options: flags };
+  return success({ ...first, jobs, configFile: path });
 }

@@ -16,6 +16,7 @@ export type DiagnosticDetail =
   | { readonly code: "nonpositive-covariance"; readonly covariance: number; readonly correlation: number }
   | { readonly code: "perfect-correlation"; readonly correlation: number }
   | { readonly code: "low-beta-above-one"; readonly upperBound: number }
+  | { readonly code: "books-swapped"; readonly lowerBound: number; readonly upperBound: number }
   | { readonly code: "market-mean-near-zero"; readonly marketMean: number; readonly tStat: number; readonly criticalValue: number }
   | {
       readonly code: "return-implied-outside-set";
@@ -86,6 +87,7 @@ const severityOf: Record<DiagnosticCode, Severity> = {
   "nonpositive-covariance": "error",
   "perfect-correlation": "info",
   "low-beta-above-one": "warning",
+  "books-swapped": "warning",
   "market-mean-near-zero": "info",
   "return-implied-outside-set": "warning",
   "return-implied-outside-not-significant": "info",
@@ -141,6 +143,11 @@ export function describeDiagnostic(detail: DiagnosticDetail): string {
       return (
         `the upper bound of the low structural beta is ${fmt(detail.upperBound)} > 1: part of the set has the "low" book ` +
         "carrying the higher structural beta, so the labels low and high are not implied by the data"
+      );
+    case "books-swapped":
+      return (
+        `the low structural beta is above 1 over the whole identified set (${fmt(detail.lowerBound)} to ${fmt(detail.upperBound)}): ` +
+        'the "low" book carries the higher beta everywhere, so the books look swapped; exchange --low and --high'
       );
     case "market-mean-near-zero":
       return (

@@ -135,7 +135,10 @@ export function identifySet(
   // Perfectly correlated books: the set is one point, the structure with no noise (identify.ts).
   const point = perfect ? noiseFreePoint(summary) : null;
   const bounds = point?.bounds ?? identifiedBounds(summary);
-  if (bounds.lowBeta.max > 1) diagnostics.push(diagnose({ code: "low-beta-above-one", upperBound: bounds.lowBeta.max }));
+  // The whole set above 1 says the books look swapped; part of it, that the labels are not implied.
+  if (bounds.lowBeta.min > 1)
+    diagnostics.push(diagnose({ code: "books-swapped", lowerBound: bounds.lowBeta.min, upperBound: bounds.lowBeta.max }));
+  else if (bounds.lowBeta.max > 1) diagnostics.push(diagnose({ code: "low-beta-above-one", upperBound: bounds.lowBeta.max }));
   const found = findLandmarks(summary, bounds, marketMeanStdErr, criticalValue);
   diagnostics.push(...found.diagnostics);
   const landmarks =

@@ -22,6 +22,7 @@ export { parseDecimal, isMissingToken } from "./values/numbers.js";
 export { compileDateFormat } from "./values/dateFormat.js";
 export { detectDelimiter } from "./dialect.js";
 export { closestName } from "./suggest.js";
+export { inputWarningCodes, inputWarningDiagnostic, type InputWarningDiagnostic } from "./warningDiagnostics.js";
 export { largeInputBuffer } from "./engines/rowKernel.js";
 export { maximumInputBytes, maximumTextLength } from "./limits.js";
 export {

@@ -227,10 +227,10 @@ export function describeInputWarning(warning: InputWarning): string {
     case "looks-like-percent":
       return `${warning.source}, column ${quote(warning.column)}: the median absolute return is ${warning.medianAbs}, which looks like percent; if so pass --units percent`;
     case "looks-like-decimal":
-      return `${warning.source}, column ${quote(warning.column)}: read as percent, the median absolute return is only ${percent(warning.medianAbs)}, which looks like decimal data; check --units`;
+      return `${warning.source}, column ${quote(warning.column)}: read as percent, the median absolute return is only ${percent(warning.medianAbs)}, which looks like decimal data; if so pass --units decimal`;
     case "other-blocks":
-      return `${warning.source}: the file holds ${warning.blocks} tables; table ${warning.used} was read (--block picks another)`;
+      return `${warning.source}: the file holds ${warning.blocks} tables; table ${warning.used} was read; pass --block N to read table N instead`;
     case "skipped-lines":
-      return `${warning.source}: ${warning.count} line(s) before the header on line ${warning.line} were skipped as titles`;
+      return `${warning.source}: ${warning.count} line(s) before the header on line ${warning.line} were skipped as titles; if line ${warning.line} is not the header row, remove the lines above the header`;
   }
 }

@@ -8,6 +8,7 @@ import type { ReturnSample } from "../core/types.js";
 import {
   describeInputIssue,
   type InputIssue,
+  type InputWarningDiagnostic,
   joinOnDates,
   parseDecimal,
   type ReadOptions,
@@ -16,6 +17,7 @@ import {
 } from "../input/index.js";
 import type { CommandOptions } from "../options/index.js";
 import type { InputDescription, JoinDescription, RiskFreeSource } from "../report/types.js";
+import { lowerBetaSecond } from "./allPairs.js";
 import { type Pair, pairsFrom } from "./pairs.js";
 import { type ReadSource, sourceName } from "./sources.js";
 
@@ -39,6 +41,8 @@ export type ReadingOptions = Pick<
   | "idColumn"
   | "valueColumn"
   | "decimalComma"
+  | "allPairs"
+  | "weight"
 >;
 
 /** Columns of a table that hold the books and the risk-free return (null: constant or none). */
@@ -136,10 +140,20 @@ export async function* loadPairs(
       else {
         const keys = { low: pair.low, high: pair.high, riskFree: riskFree.kind === "column" ? riskFree.column : null };
         const found = new Map(extras.map((name) => [name, table.value.columns.get(name)!]));
-        yield { ok: true, value: { source, pair, table: table.value, keys, riskFree, join: null, extras: found } };
+        const value: PairTable = { source, pair, table: table.value, keys, riskFree, join: null, extras: found };
+        yield {
+          ok: true,
+          value: options.allPairs !== undefined && lowerBetaSecond(sampleOf(value), options.weight) ? swapped(value) : value,
+        };
       }
     }
   }
+}
+
+/** The pair with its books the other way round (--all-pairs: the lower CAPM beta as low). */
+function swapped(loaded: PairTable): PairTable {
+  const { pair, keys } = loaded;
+  return { ...loaded, pair: { low: pair.high, high: pair.low }, keys: { ...keys, low: keys.high, high: keys.low } };
 }
 
 /** The aligned series of a loaded pair, as the core takes them. */
@@ -151,6 +165,11 @@ export function sampleOf(loaded: PairTable): ReturnSample & { riskFree: number |
     riskFree:
       loaded.keys.riskFree !== null ? values.get(loaded.keys.riskFree)! : loaded.riskFree.kind === "constant" ? loaded.riskFree.rate : 0,
   };
+}
+
+/** The reading warnings of a loaded pair as messages for a person (the CLI shows each once per run). */
+export function readingMessages(warnings: readonly InputWarningDiagnostic[]): { severity: "warning"; text: string; reading: true }[] {
+  return warnings.map((w) => ({ severity: "warning", text: w.message, reading: true }));
 }
 
 /** Where the numbers of a loaded pair came from, for the reports. */

@@ -17,14 +17,14 @@ import {
   type WindowSpec,
   windowCount,
 } from "../core/rolling/index.js";
-import { describeInputWarning } from "../input/index.js";
+import { inputWarningDiagnostic } from "../input/index.js";
 import { type CommandOptions, type CommandOptionsInput, type OptionIssue, parseOptions } from "../options/index.js";
 import { failureOutput } from "../report/records.js";
 import { type RollMeta, rollRecord } from "../report/rollReport.js";
 import type { RollOutputJson } from "../schema/rollOutput.js";
 import type { SolveFailureJson } from "../schema/solveOutput.js";
 import type { JobContext } from "./context.js";
-import { describeInput, loadPairs, type PairTable, runShape, sampleOf } from "./pairTables.js";
+import { describeInput, loadPairs, type PairTable, readingMessages, runShape, sampleOf } from "./pairTables.js";
 import { pairsFrom } from "./pairs.js";
 import type { JobMessage } from "./solveJob.js";
 import { tool } from "./tool.js";
@@ -113,7 +113,8 @@ async function* rollPairs(
 }
 
 function rollPair(loaded: PairTable, options: CommandOptions<"roll">, spec: WindowSpec): RolledPair | RollFailure {
-  const warnings: JobMessage[] = loaded.table.warnings.map((w) => ({ severity: "warning", text: describeInputWarning(w) }));
+  const inputWarnings = loaded.table.warnings.map(inputWarningDiagnostic);
+  const warnings: JobMessage[] = readingMessages(inputWarnings);
   const sample = sampleOf(loaded);
   const n = sample.low.length;
   if (windowCount(n, spec) === 0) {
@@ -139,7 +140,14 @@ function rollPair(loaded: PairTable, options: CommandOptions<"roll">, spec: Wind
       messages: [...warnings, ...errors.map((e) => ({ severity: "error" as const, text: e.message }))],
     };
   }
-  const meta: RollMeta = { tool, input: describeInput(loaded, options), spec, weight: options.weight, dates: loaded.table.dates };
+  const meta: RollMeta = {
+    tool,
+    input: describeInput(loaded, options),
+    spec,
+    weight: options.weight,
+    dates: loaded.table.dates,
+    inputWarnings,
+  };
   const excess = options.uncertainty ? excessReturns({ ...sample, weight: options.weight }) : null;
   // The return-implied point of a window follows Fieller's condition at the report's confidence.
   const criticalValue = fiellerCriticalValue(options.confidence);

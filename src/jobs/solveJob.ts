@@ -7,14 +7,14 @@
  */
 import { failure, type Result, success } from "../core/result.js";
 import { solve } from "../core/solve.js";
-import { describeInputWarning } from "../input/index.js";
+import { inputWarningDiagnostic } from "../input/index.js";
 import { type CommandOptions, type CommandOptionsInput, type OptionIssue, parseOptions } from "../options/index.js";
 import { assertJsonSafe, toSolveOutput } from "../report/json.js";
 import { failureOutput, type SolveRecord } from "../report/records.js";
 import type { SolveReport } from "../report/types.js";
 import type { SolveFailureJson, SolveOutputJson } from "../schema/solveOutput.js";
 import type { JobContext } from "./context.js";
-import { describeInput, loadPairs, type PairLoad, runShape, sampleOf } from "./pairTables.js";
+import { describeInput, loadPairs, type PairLoad, readingMessages, runShape, sampleOf } from "./pairTables.js";
 import { pairsFrom } from "./pairs.js";
 import { tool } from "./tool.js";
 import { pricingFor } from "./pricingStep.js";
@@ -25,6 +25,8 @@ import { modelColumns, modelsFor, modelWarnings } from "./modelsStep.js";
 export interface JobMessage {
   readonly severity: "warning" | "error";
   readonly text: string;
+  /** A warning from reading a file: the same for every pair read from it (the CLI shows it once). */
+  readonly reading?: true;
 }
 
 /** How one (file, pair) went: ok (a set was found), rejected (read, but no set fits), failed (not solved). */
@@ -118,9 +120,18 @@ async function solveLoaded(load: PairLoad, options: CommandOptions<"solve">, con
   const solution =
     assessed.note === null ? priced.solution : { ...priced.solution, diagnostics: [...priced.solution.diagnostics, assessed.note] };
   const models = modelsFor(loaded, sample, solution, assessed.uncertainty, options);
-  const report: SolveReport = { tool, input, solution, uncertainty: assessed.uncertainty, pricing: priced.pricing, ...models };
+  const inputWarnings = loaded.table.warnings.map(inputWarningDiagnostic);
+  const report: SolveReport = {
+    tool,
+    input,
+    solution,
+    uncertainty: assessed.uncertainty,
+    pricing: priced.pricing,
+    ...models,
+    inputWarnings,
+  };
   const messages: JobMessage[] = [
-    ...loaded.table.warnings.map((w) => ({ severity: "warning" as const, text: describeInputWarning(w) })),
+    ...readingMessages(inputWarnings),
     ...[...solution.diagnostics, ...modelWarnings(models)]
       .filter((d) => d.severity !== "info")
       .map((d) => ({ severity: d.severity === "error" ? ("error" as const) : ("warning" as const), text: `${source}: ${d.message}` })),

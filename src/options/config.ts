@@ -62,7 +62,9 @@ export function parseConfig(text: string, command: CommandName): Result<ConfigCo
     const issue = parsed.error.issues[0];
     if (issue?.code === "unrecognized_keys") {
       const key = issue.keys[0] ?? "";
-      const near = closestName(key, knownKeys());
+      // The command's own keys first: a near miss of another command's key would be ignored here.
+      const own = ["files", ...entriesFor(command).map((e) => e.name)];
+      const near = closestName(key, own) ?? closestName(key, knownKeys());
       return failure({ at: key, reason: `unknown key${near === undefined ? "" : ` (did you mean "${near}"?)`}` });
     }
     return failure({ at: (issue?.path ?? []).map(String).join("."), reason: issue?.message ?? "invalid" });

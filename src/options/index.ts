@@ -1,5 +1,6 @@
 /** The options of every command, defined once (table.ts), and what is generated from them. */
 export { type ConfigContents, type ConfigProblem, parseConfig, pathOptions } from "./config.js";
+export { parseConfigJobs } from "./configJobs.js";
 export { optionTableMarkdown, updateOptionDocs } from "./docs.js";
 export { type ColumnPair, type GarchCoefficients, type Kind, mustBe, refusalOf } from "./kinds.js";
 export {

@@ -7,7 +7,7 @@
 import * as z from "zod/mini";
 import { minimumObservations, refusal } from "../core/parameters.js";
 import { failure, type Result, success } from "../core/result.js";
-import { inputRules } from "../input/index.js";
+import { closestName, inputRules } from "../input/index.js";
 import type { Kind } from "./kinds.js";
 import { type CommandName, commandNames, type OptionKey, type OptionSpec, type OptionTable, optionTable } from "./table.js";
 
@@ -67,6 +67,7 @@ interface ReaderOptions {
   readonly pair?: readonly unknown[] | undefined;
   readonly lows?: readonly string[] | undefined;
   readonly highs?: readonly string[] | undefined;
+  readonly allPairs?: readonly string[] | undefined;
   readonly idColumn?: string | undefined;
   readonly valueColumn?: string | undefined;
 }
@@ -82,9 +83,17 @@ function readerRules(): Rule[] {
       path: ["highs"],
       message: "--lows and --highs go together",
     }),
-    across<ReaderOptions>((o) => o.low !== undefined || (o.pair?.length ?? 0) > 0 || o.lows !== undefined, {
+    across<ReaderOptions>((o) => o.low !== undefined || (o.pair?.length ?? 0) > 0 || o.lows !== undefined || o.allPairs !== undefined, {
       path: ["low"],
-      message: "name the books: --low COLUMN --high COLUMN, or --pair LOW:HIGH, or --lows A,B --highs X,Y",
+      message: "name the books: --low COLUMN --high COLUMN, or --pair LOW:HIGH, or --lows A,B --highs X,Y, or --all-pairs A,B,C",
+    }),
+    across<ReaderOptions>((o) => o.allPairs === undefined || (o.low === undefined && (o.pair?.length ?? 0) === 0 && o.lows === undefined), {
+      path: ["allPairs"],
+      message: "--all-pairs orders each pair itself: give it without --low/--high, --pair or --lows/--highs",
+    }),
+    across<ReaderOptions>((o) => o.allPairs === undefined || new Set(o.allPairs).size >= 2, {
+      path: ["allPairs"],
+      message: "--all-pairs needs at least two different columns",
     }),
     across<ReaderOptions>(inputRules.longLayout.accept, {
       path: ["valueColumn"],
@@ -159,10 +168,12 @@ export interface OptionIssue {
 }
 
 /** The first problem zod found, as the option it concerns and the message. */
-export function optionIssueOf(error: z.core.$ZodError): OptionIssue {
+export function optionIssueOf(error: z.core.$ZodError, names: readonly string[] = []): OptionIssue {
   const issue = error.issues[0];
   if (issue?.code === "unrecognized_keys") {
-    return { code: "unknown-option", option: "", message: `unknown option ${issue.keys.map((k) => `"${k}"`).join(", ")}` };
+    const near = issue.keys.length === 1 ? closestName(issue.keys[0] ?? "", names) : undefined;
+    const hint = near === undefined ? "" : ` (did you mean "${near}"?)`;
+    return { code: "unknown-option", option: "", message: `unknown option ${issue.keys.map((k) => `"${k}"`).join(", ")}${hint}` };
   }
   const conflict = issue?.code === "custom" && (issue.params as { across?: boolean } | undefined)?.across === true;
   return {
@@ -175,7 +186,14 @@ export function optionIssueOf(error: z.core.$ZodError): OptionIssue {
 /** `input` checked against `command`'s options, with every default filled in, or the first problem. */
 export function parseOptions<C extends CommandName>(command: C, input: unknown): Result<CommandOptions<C>, OptionIssue> {
   const parsed = optionsSchema(command).safeParse(input);
-  return parsed.success ? success(parsed.data) : failure(optionIssueOf(parsed.error));
+  return parsed.success
+    ? success(parsed.data)
+    : failure(
+        optionIssueOf(
+          parsed.error,
+          entriesFor(command).map((e) => e.name),
+        ),
+      );
 }
 
 /** The kebab-case flag of an option name: "hacLags" -> "--hac-lags". */

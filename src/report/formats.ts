@@ -4,8 +4,8 @@
 export const reportFormats = ["text", "json", "csv"] as const;
 export type ReportFormat = (typeof reportFormats)[number];
 
-/** solve: a report, or one record per line for several files and pairs (jsonl). */
-export const solveFormats = [...reportFormats, "jsonl"] as const;
+/** solve: a report, one record per line for several files and pairs (jsonl), or one CSV row per pair (summary-csv). */
+export const solveFormats = [...reportFormats, "jsonl", "summary-csv"] as const;
 
 /** roll: a table, one CSV row per window, or one JSON record per window. */
 export const rollFormats = ["text", "csv", "jsonl"] as const;

@@ -9,6 +9,7 @@ import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
 import type { Solution } from "../core/types.js";
 import type { SolveOutputJson } from "../schema/solveOutput.js";
 import { conventionsFor } from "./conventions.js";
+import { reportDiagnostics } from "./diagnosticList.js";
 import { indexOutput, sensitivityOutput } from "./modelsJson.js";
 import type { InputDescription, RenderOptions, SolveReport } from "./types.js";
 
@@ -69,7 +70,7 @@ export function toSolveOutput(report: SolveReport): SolveOutput {
     bounds: s.bounds,
     grid: s.grid,
     landmarks: s.landmarks,
-    diagnostics: s.diagnostics,
+    diagnostics: reportDiagnostics(report),
     uncertainty: uncertaintyOutput(report.uncertainty),
     pricing: report.pricing,
     index: indexOutput(report.index),

@@ -14,6 +14,7 @@ import { csvText } from "./csv.js";
 import { formatNumber } from "./format.js";
 import { assertJsonSafe, schemaVersion } from "./json.js";
 import { fields, indent, table, type Style } from "./layout.js";
+import type { InputWarningDiagnostic } from "../input/index.js";
 import type { InputDescription, SolveReport } from "./types.js";
 
 export interface RollMeta {
@@ -22,6 +23,8 @@ export interface RollMeta {
   readonly spec: WindowSpec;
   readonly weight: number;
   readonly dates: readonly string[];
+  /** Warnings from reading the file(s): every window's record lists them first among its diagnostics. */
+  readonly inputWarnings: readonly InputWarningDiagnostic[];
 }
 
 export const uncertaintyColumnNames = [
@@ -142,7 +145,7 @@ export function rollRecord(meta: RollMeta, window: WindowSolution, uncertainty: 
     capm: window.capm,
     bounds: window.bounds,
     landmarks: window.landmarks,
-    diagnostics: window.diagnostics,
+    diagnostics: [...meta.inputWarnings, ...window.diagnostics],
     uncertainty,
   };
   assertJsonSafe(record);

@@ -8,6 +8,7 @@ import type { NoiseSensitivity } from "../core/models/correlatedNoise.js";
 import type { FactorModel } from "../core/models/factorModel.js";
 import type { IndexSolution } from "../core/models/indexSolve.js";
 import type { Solution } from "../core/types.js";
+import type { InputWarningDiagnostic } from "../input/index.js";
 import type { PricingJson } from "../schema/pricing.js";
 import type { SolveOutputJson } from "../schema/solveOutput.js";
 
@@ -36,6 +37,8 @@ export interface SolveReport {
   readonly sensitivity: SensitivityReport | null;
   /** The one-factor model on k portfolios (--portfolios); null when not asked for. */
   readonly factorModel: FactorModel | null;
+  /** Warnings from reading the file(s), listed first among the report's diagnostics. */
+  readonly inputWarnings: readonly InputWarningDiagnostic[];
 }
 
 /** The model with an independent index, and the column it was read from. */

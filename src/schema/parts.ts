@@ -112,6 +112,7 @@ export const diagnosticDetailSchema = z.discriminatedUnion("code", [
   z.strictObject({ code: z.literal("nonpositive-covariance"), covariance: z.number(), correlation: z.number() }),
   z.strictObject({ code: z.literal("perfect-correlation"), correlation: z.number() }),
   z.strictObject({ code: z.literal("low-beta-above-one"), upperBound: z.number() }),
+  z.strictObject({ code: z.literal("books-swapped"), lowerBound: z.number(), upperBound: z.number() }),
   z.strictObject({ code: z.literal("market-mean-near-zero"), marketMean: z.number(), tStat: z.number(), criticalValue: z.number() }),
   z.strictObject({
     code: z.literal("return-implied-outside-set"),
@@ -166,6 +167,11 @@ export const diagnosticDetailSchema = z.discriminatedUnion("code", [
   z.strictObject({ code: z.literal("factor-not-normalisable"), marketLoading: z.number() }),
   z.strictObject({ code: z.literal("factor-not-converged"), iterations: z.int() }),
   z.strictObject({ code: z.literal("factor-heywood"), portfolio: z.string(), noiseVariance: z.number() }),
+  // Reading warnings (src/input/warningDiagnostics.ts): the file was read, but something in it needs a look.
+  z.strictObject({ code: z.literal("skipped-lines"), source: z.string(), line: z.int(), count: z.int() }),
+  z.strictObject({ code: z.literal("other-blocks"), source: z.string(), used: z.int(), blocks: z.int() }),
+  z.strictObject({ code: z.literal("looks-like-percent"), source: z.string(), column: z.string(), medianAbs: z.number() }),
+  z.strictObject({ code: z.literal("looks-like-decimal"), source: z.string(), column: z.string(), medianAbs: z.number() }),
 ]);
 
 export const diagnosticCodes = diagnosticDetailSchema.options.map((option) => option.shape.code.value);
@@ -179,6 +185,6 @@ export const diagnosticSchema = doc(
       detail: diagnosticDetailSchema,
     })
     .refine((d) => d.code === d.detail.code, { message: "code and detail.code differ", path: ["detail", "code"] }),
-  "something the core found about the sample; the code is stable, the message is for people",
+  "something the core found about the sample, or a warning from reading the file; the code is stable, the message is for people",
   "Diagnostic",
 );

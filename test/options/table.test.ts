@@ -81,7 +81,7 @@ describe("the option table", () => {
 
   it("types each command's options from the table", () => {
     expectTypeOf<CommandOptions<"solve">["weight"]>().toEqualTypeOf<number>();
-    expectTypeOf<CommandOptions<"solve">["format"]>().toEqualTypeOf<"text" | "json" | "csv" | "jsonl">();
+    expectTypeOf<CommandOptions<"solve">["format"]>().toEqualTypeOf<"text" | "json" | "csv" | "jsonl" | "summary-csv">();
     expectTypeOf<CommandOptions<"roll">["format"]>().toEqualTypeOf<"text" | "csv" | "jsonl">();
     expectTypeOf<CommandOptions<"solve">["hacLags"]>().toEqualTypeOf<number | undefined>();
     expectTypeOf<CommandOptions<"solve">["blockLength"]>().toEqualTypeOf<number | "auto">();

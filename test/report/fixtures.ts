@@ -89,6 +89,7 @@ export function reportOf(
     index: null,
     sensitivity: null,
     factorModel: null,
+    inputWarnings: [],
   };
 }
 

@@ -15,6 +15,7 @@ import { addTableOptions } from "../commandOptions.js";
 import { withConfig } from "../config.js";
 import { outputFailed, usage, waitsOnTerminal, wantsColour } from "../emit.js";
 import { jobContext } from "../jobContext.js";
+import { writeMessages } from "../jobMessages.js";
 import { describeCliIssue, describeOptionIssue } from "../messages.js";
 import { type ExitCode, exitCodes } from "../runtime/exitCodes.js";
 import { type CliIo, type OutputTarget, writeOutput } from "../runtime/io.js";
@@ -38,9 +39,10 @@ export async function runRoll(
   let target: OutputTarget | null = null;
   const waiting: string[] = [];
   const codes: ExitCode[] = [];
+  const seen = new Set<string>();
   try {
     for await (const pair of job.value.pairs) {
-      for (const message of pair.messages) io.writeErr(`${message.severity}: ${message.text}\n`);
+      writeMessages(io, pair.messages, seen);
       if (pair.kind === "failure") {
         const record = options.format === "jsonl" && pair.document !== null ? `${JSON.stringify(pair.document)}\n` : "";
         if (target === null) waiting.push(record);

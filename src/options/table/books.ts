@@ -40,6 +40,13 @@ export const inputOptions = {
     group: "books",
     commands: readers,
   }),
+  allPairs: option(nameListKind(), {
+    name: "allPairs",
+    argument: "<columns>",
+    help: "comma-separated columns: every unordered pair of them once, the book with the lower CAPM beta as low",
+    group: "books",
+    commands: readers,
+  }),
   // ---- reading -----------------------------------------------------------------------------
   date: option(textKind("a column name"), {
     name: "date",

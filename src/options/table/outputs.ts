@@ -27,7 +27,7 @@ export const reportOptions = {
   solveFormat: option(choiceKind(solveFormats), {
     name: "format",
     argument: "<format>",
-    help: "report format; jsonl writes one record per file and pair",
+    help: "report format; jsonl writes one record per file and pair, summary-csv one CSV row per file and pair",
     group: "output",
     commands: ["solve"],
     default: "text",
@@ -75,7 +75,7 @@ export const reportOptions = {
   config: option(textKind("a file path"), {
     name: "config",
     argument: "<file>",
-    help: "a JSON file holding files, pairs and options for a job; flags override it",
+    help: 'a JSON file holding files, pairs and options for a job (or for several, under "jobs", solve only); flags override it',
     group: "output",
     commands: readers,
     flagOnly: true,

@@ -13,6 +13,7 @@ import type { Section } from "../blocks.js";
 import { landmarkNames } from "../../core/types.js";
 import { largestCapmDiscrepancy } from "../check.js";
 import { excessReturnBasis, modelAssumptions } from "../conventions.js";
+import { type ReportDiagnostic, reportDiagnostics } from "../diagnosticList.js";
 import { formatCount, formatNumber, notAvailable } from "../format.js";
 import { titleLine } from "../text/text.js";
 import { cautionLine } from "../text/textNotes.js";
@@ -78,7 +79,7 @@ export function renderHtmlReport(report: SolveReport, charts: HtmlReportCharts, 
   }
   sections.push(...modelSectionsOf(report).map(sectionHtml));
   if (u !== null) sections.push(sectionHtml(sharpe(u, perYear, input.riskFree.kind !== "none")), ...shared(bootstrap(u)));
-  sections.push(diagnosticsSection(s), assumptionsSection(s.weight), closingSection(input.riskFree));
+  sections.push(diagnosticsSection(reportDiagnostics(report)), assumptionsSection(s.weight), closingSection(input.riskFree));
   return [
     "<!DOCTYPE html>",
     '<html lang="en">',
@@ -224,9 +225,9 @@ function gridSection(s: Solution, periodsPerYear: number | null): string {
   );
 }
 
-function diagnosticsSection(s: Solution): string {
-  if (s.diagnostics.length === 0) return section("diagnostics", "Diagnostics", paragraph("none"));
-  const rows = s.diagnostics.map(
+function diagnosticsSection(diagnostics: readonly ReportDiagnostic[]): string {
+  if (diagnostics.length === 0) return section("diagnostics", "Diagnostics", paragraph("none"));
+  const rows = diagnostics.map(
     (d) =>
       `<tr><th scope="row" class="${d.severity === "info" ? "" : d.severity}">${escapeHtml(d.severity)}</th><td class="text">${escapeHtml(d.message)}</td></tr>`,
   );

@@ -9,6 +9,7 @@ import { capmSection, inputSection, momentsSection, returnsWord } from "./textDa
 import { assumptionsSection, cautionLine, closingLines, diagnosticsSection } from "./textNotes.js";
 import { pricingSection } from "./textPricing.js";
 import { boundsSection, gridSection, landmarksSection, rejectedSection } from "./textSet.js";
+import { reportDiagnostics } from "../diagnosticList.js";
 import { modelSections } from "./textModels.js";
 import { summarySection } from "./textSummary.js";
 import { bootstrapSection, boundsWithUncertaintySection, precisionSection, sharpeSection } from "./textUncertainty.js";
@@ -50,7 +51,11 @@ export function renderText(report: SolveReport, options: RenderOptions): string 
   }
   sections.push(...modelSections(report, style));
   if (u !== null) sections.push(sharpeSection(u, perYear, style, report.input.riskFree.kind !== "none"), bootstrapSection(u, style));
-  sections.push(diagnosticsSection(s.diagnostics, style), assumptionsSection(s.weight, style), closingLines(report.input.riskFree));
+  sections.push(
+    diagnosticsSection(reportDiagnostics(report), style),
+    assumptionsSection(s.weight, style),
+    closingLines(report.input.riskFree),
+  );
   return joinSections(sections);
 }
 

@@ -3,7 +3,7 @@
  * conventions footer. Each returns its lines.
  */
 
-import type { Diagnostic } from "../../core/diagnostics.js";
+import type { ReportDiagnostic } from "../diagnosticList.js";
 import { excessReturnBasis, modelAssumptions } from "../conventions.js";
 import { indent, printable, wrap, type Style } from "../layout.js";
 import type { RiskFreeSource } from "../types.js";
@@ -12,7 +12,7 @@ import type { RiskFreeSource } from "../types.js";
 export const cautionLine = "Caution: these are statistical estimates under the assumptions above, not investment advice.";
 
 /** The Diagnostics section: each diagnostic with its severity, or "none". */
-export function diagnosticsSection(diagnostics: readonly Diagnostic[], style: Style): string[] {
+export function diagnosticsSection(diagnostics: readonly ReportDiagnostic[], style: Style): string[] {
   if (diagnostics.length === 0) return [style.heading("Diagnostics"), `${indent}none`];
   const width = Math.max(...diagnostics.map((d) => d.severity.length));
   const lines = diagnostics.flatMap((d) => {
