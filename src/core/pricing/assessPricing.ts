@@ -17,6 +17,7 @@ import { scaledExcessReturns } from "../inference/bootstrap/replicates.js";
 import { boundGradients } from "../inference/boundsDelta.js";
 import { longRunCovariance, sampleCovarianceOf } from "../inference/hac/longRun.js";
 import type { HacOptions, LongRunMethod } from "../inference/options.js";
+import { welfordCrossProducts } from "../moments.js";
 import { normalQuantile } from "../numerics/normal.js";
 import type { ReturnSample } from "../types.js";
 import { type FiellerSet, fiellerSet, ratioStdError } from "./fieller.js";
@@ -67,25 +68,14 @@ export function assessPricing(sample: ReturnSample, options: PricingOptions): Pr
   const v = 1 - w;
   const { low: x, high: y, scale } = scaledExcessReturns({ ...sample, weight: w });
   const n = x.length;
-  let mx = 0;
-  let my = 0;
-  for (let t = 0; t < n; t++) {
-    mx += x[t]!;
-    my += y[t]!;
-  }
-  mx /= n;
-  my /= n;
+  // Means and centred sums in one compensated pass (moments.ts), as everywhere in the core.
+  const cp = welfordCrossProducts([x, y]);
+  const mx = cp.means[0]!;
+  const my = cp.means[1]!;
   const lambda = w * mx + v * my;
-  let sxx = 0;
-  let syy = 0;
-  let sxy = 0;
-  for (let t = 0; t < n; t++) {
-    const dx = x[t]! - mx;
-    const dy = y[t]! - my;
-    sxx += dx * dx;
-    syy += dy * dy;
-    sxy += dx * dy;
-  }
+  const sxx = cp.sums[0]![0]!;
+  const syy = cp.sums[1]![1]!;
+  const sxy = cp.sums[0]![1]!;
   const moments = { weight: w, lowVariance: sxx / (n - 1), highVariance: syy / (n - 1), covariance: sxy / (n - 1) };
   if (!(moments.covariance > 0)) return null;
   const { lowVariance: vx, highVariance: vy, covariance: c } = moments;
