@@ -26,6 +26,25 @@ export interface MomentSummary {
   readonly covariance: number;
 }
 
+/** The summary of a solved sample's moments (what identifySet and structureAt take). */
+export function summaryOfMoments(
+  weight: number,
+  moments: {
+    readonly low: { readonly mean: number; readonly variance: number };
+    readonly high: { readonly mean: number; readonly variance: number };
+    readonly covariance: { readonly lowHigh: number };
+  },
+): MomentSummary {
+  return {
+    weight,
+    lowMean: moments.low.mean,
+    highMean: moments.high.mean,
+    lowVariance: moments.low.variance,
+    highVariance: moments.high.variance,
+    covariance: moments.covariance.lowHigh,
+  };
+}
+
 /** Second moments of the market proxy and the CAPM betas, all functions of the data only (section 1.5). */
 export interface MarketMoments {
   readonly mean: number;

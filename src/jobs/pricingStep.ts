@@ -8,7 +8,7 @@
  */
 import { type Diagnostic, diagnose } from "../core/diagnostics.js";
 import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
-import { structureAt } from "../core/identify.js";
+import { structureAt, summaryOfMoments } from "../core/identify.js";
 import { fiellerCriticalValue, structureExists } from "../core/landmarks.js";
 import { type AlphaDecomposition, assessPricing, type Pricing } from "../core/pricing/assessPricing.js";
 import type { ReturnSample, Solution } from "../core/types.js";
@@ -58,15 +58,7 @@ function decidedByTest(solution: Solution, pricing: Pricing): Solution {
     const criticalValue = fiellerCriticalValue(pricing.confidence);
     added.push(diagnose({ code: "market-mean-near-zero", marketMean: moments.market.mean, tStat: marketMeanTStat, criticalValue }));
   } else if (structureExists(estimate, weight)) {
-    const summary = {
-      weight,
-      lowMean: moments.low.mean,
-      highMean: moments.high.mean,
-      lowVariance: moments.low.variance,
-      highVariance: moments.high.variance,
-      covariance: moments.covariance.lowHigh,
-    };
-    returnImplied = landmarks.returnImplied ?? structureAt(estimate, summary);
+    returnImplied = landmarks.returnImplied ?? structureAt(estimate, summaryOfMoments(weight, moments));
   }
   // The verdict on "outside the set" comes from the test, whether or not the point itself is reported
   // (the test is written in the means and needs no bounded ratio).

@@ -178,9 +178,7 @@ export function rollTextLines(
       formatNumber(w.bounds?.lowBeta.min ?? null, 4),
       formatNumber(w.bounds?.lowBeta.max ?? null, 4),
       w.bounds === null ? "no set" : formatNumber(w.bounds.lowBeta.max - w.bounds.lowBeta.min, 3),
-      w.landmarks?.returnImplied === null || w.landmarks === null
-        ? "n/a"
-        : `${formatNumber(w.landmarks.returnImplied.lowBeta, 4)}${w.landmarks.returnImplied.insideSet ? "" : " (out)"}`,
+      w.landmarks?.returnImplied === null || w.landmarks === null ? "n/a" : formatNumber(w.landmarks.returnImplied.lowBeta, 4),
       ...(!intervals
         ? []
         : [

@@ -11,7 +11,7 @@
  */
 
 import { drawBlocks, replicateRandom, validateBlockLength } from "../inference/bootstrap/stationaryBootstrap.js";
-import { type IndexParameter, indexParameterNames, indexPoint } from "./indexModel.js";
+import { type IndexParameter, indexParameterNames, indexPoint, momentPairs } from "./indexModel.js";
 
 export interface IndexBootstrapPlan {
   readonly replicates: number;
@@ -29,14 +29,7 @@ export function indexBootstrapStdErrors(
   validateBlockLength(plan.blockLength);
   const n = series[0].length;
   const means = series.map((s) => s.reduce((a, b) => a + b, 0) / n);
-  const pairs: [number, number][] = [
-    [0, 0],
-    [1, 1],
-    [2, 2],
-    [0, 1],
-    [0, 2],
-    [1, 2],
-  ];
+  const pairs = momentPairs;
   // Prefix sums (length 2n + 1) of the three centred series and of the six products, over the rows twice.
   const prefix = Array.from({ length: 9 }, () => new Float64Array(2 * n + 1));
   for (let t = 0; t < 2 * n; t++) {

@@ -97,3 +97,13 @@ export function indexJacobian(m: IndexMoments): number[][] {
     [0, 0, 1, (cli * chi) / (clh * clh), -chi / clh, -cli / clh],
   ];
 }
+
+/** The six second moments of (low, high, index), in the order of the model's moment vector: three variances, three covariances. */
+export const momentPairs: readonly (readonly [number, number])[] = [
+  [0, 0],
+  [1, 1],
+  [2, 2],
+  [0, 1],
+  [0, 2],
+  [1, 2],
+];

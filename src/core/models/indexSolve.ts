@@ -22,7 +22,7 @@ import { magnitudeRange } from "../parameters.js";
 import { scaleFor } from "../scaling.js";
 import type { Interval } from "../types.js";
 import { indexBootstrapStdErrors, type IndexBootstrapPlan } from "./indexBootstrap.js";
-import { type IndexMoments, type IndexParameter, indexJacobian, indexParameterNames, indexPoint } from "./indexModel.js";
+import { type IndexMoments, type IndexParameter, indexJacobian, indexParameterNames, indexPoint, momentPairs } from "./indexModel.js";
 
 export interface IndexSample {
   readonly low: ArrayLike<number>;
@@ -183,15 +183,7 @@ function deltaStdErrors(
     const mean = s.reduce((a, b) => a + b, 0) / n;
     return s.map((v) => v - mean);
   });
-  const pairs = [
-    [0, 0],
-    [1, 1],
-    [2, 2],
-    [0, 1],
-    [0, 2],
-    [1, 2],
-  ] as const;
-  const z = pairs.map(([a, b]) => centred[a]!.map((v, t) => v * centred[b]![t]!));
+  const z = momentPairs.map(([a, b]) => centred[a]!.map((v, t) => v * centred[b]![t]!));
   const omega = settings.longRun === "iid" ? sampleCovarianceOf(z) : longRunCovariance(z, settings.hac).covariance;
   const jacobian = indexJacobian(m);
   // A quadratic form of a positive semi-definite Omega: negative only by rounding, a standard error of 0.

@@ -24,7 +24,7 @@ import { summary } from "../text/textSummary.js";
 import { bootstrap, boundsWithUncertainty, precision, sharpe } from "../text/textUncertainty.js";
 import { sectionHtml } from "./htmlBlocks.js";
 import { landmarkWords } from "../conventions.js";
-import { candidateColumns, landmarkDescriptions, reproductionTolerance } from "../text/textSet.js";
+import { candidateColumns, landmarkDescriptions, landmarkNote, reproductionTolerance } from "../text/textSet.js";
 import type { InputDescription, RiskFreeSource, SolveReport } from "../types.js";
 import { escapeHtml, fields, inlineSvg, paragraph, section, table } from "./htmlElements.js";
 import { css } from "./htmlStyle.js";
@@ -187,7 +187,7 @@ function landmarksSection(s: Solution, periodsPerYear: number | null): string {
   const columns = candidates(periodsPerYear);
   const rows = landmarkNames.map((name) => {
     const c = landmarks[name];
-    const note = c === null ? " (not reported: see Diagnostics)" : c.insideSet ? "" : " (outside the identified set: see Diagnostics)";
+    const note = landmarkNote(c);
     const cells = c === null ? columns.header.map(() => notAvailable) : columns.cells(c);
     return [landmarkWords[name], `${landmarkDescriptions[name]}${note}`, ...cells];
   });

@@ -102,7 +102,7 @@ export function landmarksSection(landmarks: Landmarks, style: Style, periodsPerY
   const width = Math.max(...landmarkNames.map((name) => landmarkWords[name].length));
   const legend = landmarkNames.flatMap((name) => {
     const c = landmarks[name];
-    const note = c === null ? " (not reported: see Diagnostics)" : c.insideSet ? "" : " (outside the identified set: see Diagnostics)";
+    const note = landmarkNote(c);
     return wrap(
       `${landmarkDescriptions[name]}${note}`,
       `${indent}${landmarkWords[name].padEnd(width)}  `,
@@ -139,4 +139,13 @@ export function gridSection(solution: CapmCheckInput, style: Style, periodsPerYe
     lines.push("", ...wrap(text, indent, indent).map((line) => (ok ? line : style.warning(line))));
   }
   return lines;
+}
+
+/**
+ * What the legend adds to a landmark: why it is missing, or that it lies outside the set by the point
+ * estimates (whether significantly is the pricing test's to say, never the estimates').
+ */
+export function landmarkNote(c: { readonly insideSet: boolean } | null): string {
+  if (c === null) return " (not reported: see Diagnostics)";
+  return c.insideSet ? "" : " (outside the identified set by the point estimates; the pricing section tests whether significantly)";
 }

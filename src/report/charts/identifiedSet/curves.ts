@@ -4,7 +4,7 @@
  * y domains that hold them.
  */
 
-import { marketMoments, structureAt, type MarketMoments, type MomentSummary } from "../../../core/identify.js";
+import { marketMoments, structureAt, summaryOfMoments, type MarketMoments, type MomentSummary } from "../../../core/identify.js";
 import type { Candidate, IdentifiedBounds, Landmarks, Solution } from "../../../core/types.js";
 import { dash, palette } from "../common.js";
 import type { BetaInterval, IdentifiedSetUncertainty, YQuantity } from "./options.js";
@@ -93,14 +93,7 @@ export function chartCurves(
   series: readonly Series[],
   y: YQuantity,
 ): { curves: Curve[]; yDomain: [number, number] } {
-  const summary: MomentSummary = {
-    weight: s.weight,
-    lowMean: s.moments.low.mean,
-    highMean: s.moments.high.mean,
-    lowVariance: s.moments.low.variance,
-    highVariance: s.moments.high.variance,
-    covariance: s.moments.covariance.lowHigh,
-  };
+  const summary: MomentSummary = summaryOfMoments(s.weight, s.moments);
   const market = marketMoments(summary);
   const { min, max } = bounds.lowBeta;
 
