@@ -65,7 +65,9 @@ describe("renderText", () => {
     }
     expect(landmarkDescriptions.highNoiseFree).toMatch(/^high book has no noise/);
     expect(typicalSolution().landmarks?.returnImplied?.insideSet).toBe(false);
-    expect(text.replace(/\s+/g, " ")).toContain("(outside the identified set by the point estimates; the pricing section tests whether significantly)");
+    expect(text.replace(/\s+/g, " ")).toContain(
+      "(outside the identified set by the point estimates; the pricing section tests whether significantly)",
+    );
   });
 
   test("shows the moments, the CAPM estimates and the grid with the solution's values", () => {

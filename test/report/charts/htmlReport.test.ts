@@ -143,7 +143,9 @@ describe("renderHtmlReport", () => {
     const landmarks = rows(all(sectionById(root, "landmarks"), "table")[0]!);
     expect(landmarks.slice(1).map((r) => r[0])).toEqual(landmarkNames.map((name) => landmarkWords[name]));
     for (const [i, name] of landmarkNames.entries()) expect(landmarks[i + 1]![1]).toContain(landmarkDescriptions[name]);
-    expect(landmarks.find((r) => r[0] === landmarkWords.returnImplied)![1]).toContain("(outside the identified set by the point estimates; the pricing section tests whether significantly)");
+    expect(landmarks.find((r) => r[0] === landmarkWords.returnImplied)![1]).toContain(
+      "(outside the identified set by the point estimates; the pricing section tests whether significantly)",
+    );
     const grid = rows(all(sectionById(root, "grid"), "table")[0]!);
     expect(grid).toHaveLength(solution.grid.length + 1);
     expect(textOf(sectionById(root, "grid"))).toContain("Check: every candidate reproduces the observed CAPM betas");
