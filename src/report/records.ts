@@ -7,7 +7,9 @@
 import { candidateRow, csvField, csvHeader, csvText, namedCandidates } from "./csv.js";
 import { assertJsonSafe, schemaVersion, toSolveOutput } from "./json.js";
 import type { SolveFailureJson } from "../schema/solveOutput.js";
+import { styleFor } from "./layout.js";
 import { renderText } from "./text/text.js";
+import { type ComparedPair, comparisonLines } from "./text/textComparison.js";
 import type { RenderOptions, SolveReport } from "./types.js";
 
 /** A (file, pair) that could not be solved, with the stable codes and messages of what stopped it. */
@@ -57,14 +59,27 @@ export function renderRecordsCsv(records: readonly SolveRecord[]): string {
   return `${lines.join("\n")}\n`;
 }
 
-/** The text reports one after another, with each failure stated where its report would be. */
+/**
+ * The comparison table of every pair, then the text reports one after another, with each failure
+ * stated where its report would be.
+ */
 export function renderRecordsText(records: readonly SolveRecord[], options: RenderOptions): string {
   const rule = `${"=".repeat(96)}\n`;
-  return records
-    .map((record) => {
-      if (record.kind === "report") return renderText(record.report, options);
-      const f = record.failure;
-      return `${f.source}: low "${f.lowColumn}", high "${f.highColumn}": not solved\n${f.errors.map((e) => `  ${e.message}\n`).join("")}`;
-    })
-    .join(`\n${rule}\n`);
+  const compared = records.map((record): ComparedPair => {
+    if (record.kind === "report") return record;
+    const f = record.failure;
+    return { kind: "failure", source: f.source, lowColumn: f.lowColumn, highColumn: f.highColumn, codes: f.errors.map((e) => e.code) };
+  });
+  const table = comparisonLines(compared, styleFor(options));
+  const head = table.length === 0 ? "" : `${table.join("\n")}\n\n${rule}\n`;
+  return (
+    head +
+    records
+      .map((record) => {
+        if (record.kind === "report") return renderText(record.report, options);
+        const f = record.failure;
+        return `${f.source}: low "${f.lowColumn}", high "${f.highColumn}": not solved\n${f.errors.map((e) => `  ${e.message}\n`).join("")}`;
+      })
+      .join(`\n${rule}\n`)
+  );
 }

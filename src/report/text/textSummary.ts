@@ -17,35 +17,38 @@ import { pricingSentence } from "./textPricing.js";
 /** The summary's lines as label and value, shared by the text and HTML reports. */
 export type SummaryField = readonly [label: string, value: string];
 
-const percentLevel = (confidence: number): string => `${Number((100 * confidence).toPrecision(6))}%`;
+export const percentLevel = (confidence: number): string => `${Number((100 * confidence).toPrecision(6))}%`;
 const percent = (x: number): string => `${formatNumber(100 * x, 3)}%`;
+
+/** The low book's CAPM alpha interval: the pricing section's (the same figures as its table), else from the HAC error. */
+export function lowAlphaInterval(report: SolveReport): { confidence: number; lower: number; upper: number } | null {
+  const a = report.pricing?.alpha.low;
+  if (report.pricing != null && a != null && a.observedLower !== null && a.observedUpper !== null)
+    return { confidence: report.pricing.confidence, lower: a.observedLower, upper: a.observedUpper };
+  const u = report.uncertainty;
+  if (u === null) return null;
+  const alpha = report.solution.capm.low.alpha;
+  const half = normalQuantile(1 - (1 - u.confidence) / 2) * u.capm.low.hac.alphaStdErr;
+  return { confidence: u.confidence, lower: alpha - half, upper: alpha + half };
+}
+
+/** An alpha as the report shows it: % a year when the frequency is known, else per period. */
+export function alphaShown(report: SolveReport): (x: number) => string {
+  const ppy = report.input.frequency?.periodsPerYear ?? null;
+  return ppy === null ? (x: number) => formatNumber(x) : (x: number) => percent(ppy * x);
+}
 
 /** The low book's CAPM alpha, per year when the frequency is known, with its HAC interval. */
 function alphaText(report: SolveReport): string {
   const fit = report.solution.capm.low;
   const ppy = report.input.frequency?.periodsPerYear ?? null;
-  const u = report.uncertainty;
-  const p = report.pricing;
-  // The pricing section's interval when there is one (the same figures as its table), else from the HAC error.
-  let confidence: number | null = null;
-  let lower: number | null = null;
-  let upper: number | null = null;
-  if (p !== null && p.alpha.low.observedLower !== null && p.alpha.low.observedUpper !== null) {
-    confidence = p.confidence;
-    lower = p.alpha.low.observedLower;
-    upper = p.alpha.low.observedUpper;
-  } else if (u !== null) {
-    const half = normalQuantile(1 - (1 - u.confidence) / 2) * u.capm.low.hac.alphaStdErr;
-    confidence = u.confidence;
-    lower = fit.alpha - half;
-    upper = fit.alpha + half;
-  }
-  const show = ppy === null ? (x: number) => formatNumber(x) : (x: number) => percent(ppy * x);
+  const show = alphaShown(report);
   const unit = ppy === null ? "a period" : "a year";
+  const found = lowAlphaInterval(report);
   const interval =
-    confidence === null || lower === null || upper === null
+    found === null
       ? "; no standard error computed"
-      : `; ${percentLevel(confidence)} HAC interval ${show(lower)} to ${show(upper)}`;
+      : `; ${percentLevel(found.confidence)} HAC interval ${show(found.lower)} to ${show(found.upper)}`;
   const perPeriod = ppy === null ? "" : ` (${formatNumber(fit.alpha)} a period)`;
   return `${show(fit.alpha)} ${unit}${perPeriod}${interval}`;
 }
