@@ -8,12 +8,14 @@ a CSV with start, end, observations and the 30 numbers of `roll --format csv` by
 """
 
 import json
+import math
 import sys
+from statistics import NormalDist
 
 import numpy as np
 
 from formulas import solve_digest
-from inference import optimal_block_length, uncertainty_digest
+from inference import uncertainty_digest
 
 
 def read_job():
@@ -63,12 +65,16 @@ def replicate_statistics(n, w, ml, mh, vl, vh, c):
 
 
 def bootstrap_digest(x, y, w, replicates, seed, chunk=500):
-    """Stationary bootstrap (Politis & Romano 1994) with the automatic mean block length, vectorised over
+    """Stationary bootstrap (Politis & Romano 1994) with the automatic mean block length (3 sqrt(n), at most
+    n/3, at least 1; docs/methods.md §7.2), vectorised over
     a chunk of replicates at a time (a replicate x row index matrix): a block starts at each row with
-    probability 1/b (always at row 0) at a uniform start, and runs on mod n. numpy's generator: the
-    draws differ from ours, so the summaries agree only to Monte Carlo error."""
+    probability 1/b (always at row 0) at a uniform start, and runs on mod n. Percentile limits are
+    stretched from the median by Kiefer-Vogelsang's fixed-b factor at b = 2 block / n (§7.2). numpy's
+    generator: the draws differ from ours, so the summaries agree only to Monte Carlo error."""
     n = len(x)
-    block = max(1.0, optimal_block_length(x), optimal_block_length(y))
+    block = max(1.0, min(3 * math.sqrt(n), n / 3))
+    fb = min(1.0, 2 * block / n)
+    k = (1.96 + 2.9694 * fb + 0.416 * fb * fb - 0.5324 * fb**3) / NormalDist().inv_cdf(0.975)
     cl, ch = x.mean(), y.mean()
     xc, yc = x - cl, y - ch
     rng = np.random.default_rng(seed)
@@ -94,7 +100,8 @@ def bootstrap_digest(x, y, w, replicates, seed, chunk=500):
         d = draws[q][np.isfinite(draws[q])]
         if d.size >= 2:
             out[f"uncertainty.bootstrap.stdErrors.{name}"] = float(d.std(ddof=1))
-            lo, hi = np.percentile(d, [2.5, 97.5])
+            lo, med, hi = np.percentile(d, [2.5, 50, 97.5])
+            lo, hi = med - k * (med - lo), med + k * (hi - med)
             out[f"uncertainty.bootstrap.intervals.{name}.lower"] = float(lo)
             out[f"uncertainty.bootstrap.intervals.{name}.upper"] = float(hi)
     return out

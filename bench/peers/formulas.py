@@ -6,11 +6,14 @@ divisor k - 1 (vl, vh, c): the market proxy M = w x + (1 - w) y, both CAPM fits 
 §10 and §16: the closed forms from the 2x2 centred sums), the identified set (§1.2: Lb = C / D_l,
 U = V_low / D_u, b_high(U) = C / D_u, b_high(Lb) = V_high / D_l, the factor variance's range) and the
 landmark low betas (§25: equal noise is the Deming slope with ratio 1, §1.4; CAPM-consistent is the
-CAPM beta kept inside the set; return-implied is mean x / mean M when |mean M| >= sd(M) / sqrt(k) and
-0 < b < 1/w, §26).
+CAPM beta kept inside the set; return-implied is mean x / mean M when |mean M| > z sd(M) / sqrt(k), z the
+two-sided 95% normal critical value (Fieller's condition at the report's confidence), and 0 < b < 1/w, §26).
 """
 
 import math
+
+# scipy.stats.norm.ppf(0.975): Fieller's condition at the default 95% confidence.
+FIELLER_Z = 1.959963984540054
 
 
 class NumpyOps:
@@ -81,7 +84,7 @@ def columns(ops, w, k, ml, mh, vl, vh, c):
     capm = out["lowBeta"]
     implied = ml / mm
     ok = c > 0
-    implied_ok = ops.both(ops.both(ok, ops.abs(mm) >= ops.sqrt(smm / (k - 1) / k)), ops.both(implied > 0, implied < 1 / w))
+    implied_ok = ops.both(ops.both(ok, ops.abs(mm) > FIELLER_Z * ops.sqrt(smm / (k - 1) / k)), ops.both(implied > 0, implied < 1 / w))
     set_values = {
         "lowBetaMin": lower,
         "lowBetaMax": upper,

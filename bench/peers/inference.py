@@ -6,12 +6,13 @@
   T^(1/3), lag L = floor(S), weights 1 - j/(L + 1); the sum Gamma_0 + sum_j w_j (Gamma_j + Gamma_j'),
   from running sums in linear time whatever the lag (L is 30 to 60 on a million rows of these data);
 - CAPM HAC standard errors: (X'X)^-1 S (X'X)^-1 with X = [1, M], scores X e;
-- the bounds' delta-method standard errors and correlation from the long-run covariance (S / T) of
-  z_t = ((x - xbar)^2, (y - ybar)^2, (x - xbar)(y - ybar)), demeaned;
-- the Imbens-Manski interval (bisection on Phi(C + r) - Phi(-C) = confidence);
-- the Sharpe ratios' HAC standard errors from the standardised pair (d/s, (d/s)^2 - 1), g = (1, -SR/2);
-- the stationary bootstrap's automatic block length (Politis-White 2004 with the Patton-Politis-White
-  2009 correction, in the arch package's conventions, §7.2).
+- the bounds' delta-method standard errors and correlation (§4, "one bandwidth per bound"): each bound's
+  influence series f_t = g' (z_t - zbar), z_t = ((x - xbar)^2, (y - ybar)^2, (x - xbar)(y - ybar)), and
+  the Bartlett sum of (f_low, f_up) at the real bandwidth S = min(6 sqrt(T), T) (weights 1 - j/S), with
+  Kiefer-Vogelsang's fixed-b factor k = q_0.975(S/T) / z_0.975 on the limits;
+- the Imbens-Manski interval on the standard errors times k (bisection on Phi(C + r) - Phi(-C) =
+  confidence), cut to the admissible range [0, 1/w] (§5);
+- the Sharpe ratios' HAC standard errors from the standardised pair (d/s, (d/s)^2 - 1), g = (1, -SR/2).
 """
 
 import math
@@ -33,6 +34,26 @@ def nw94_lag(u, weights):
     if not (bandwidth > 0 and math.isfinite(bandwidth)):
         return 0.0, 0
     return bandwidth, int(math.floor(bandwidth))
+
+
+def window_squares(u, b):
+    """Q(B) = sum_t W_t W_t' over every window of B consecutive rows meeting the sample (cut to it)."""
+    n, k = u.shape
+    b = min(b, n)
+    cs = np.zeros((n + 1, k))
+    np.cumsum(u, axis=0, out=cs[1:])
+    w = np.empty((n + b - 1, k))
+    w[: b - 1] = cs[1:b]  # windows starting before the first row
+    np.subtract(cs[b:], cs[: n + 1 - b], out=w[b - 1 : n])  # whole windows
+    np.subtract(cs[n], cs[n + 1 - b : n], out=w[n:])  # windows running past the last row
+    return w.T @ w
+
+
+def bartlett_sum_real(u, s):
+    """Bartlett sum at a real bandwidth S: ((S - B + 1) Q(B) + (B - S) Q(B - 1)) / S with B = ceil(S)."""
+    b = math.ceil(s)
+    lower = window_squares(u, b - 1) if b > 1 and b > s else 0.0
+    return ((s - b + 1) * window_squares(u, b) + (b - s) * lower) / s
 
 
 def kernel_sum(u, weights):
@@ -124,48 +145,24 @@ def uncertainty_digest(x, y, w, confidence=0.95):
         out[f"capm.{book}.hac.alphaStdErr"] = a_se
         out[f"capm.{book}.hac.betaStdErr"] = b_se
         out["capm.hac.lags"] = lag
-    omega, lag = long_run([dx * dx, dy * dy, dx * dy])
     dl, du = v * vh + w * c, w * vl + v * c
     gl = np.array([0.0, -v * c / dl**2, v * vh / dl**2])
     gu = np.array([v * c / du**2, 0.0, -v * vl / du**2])
-    se_l = math.sqrt(max(0.0, gl @ omega @ gl) / n)
-    se_u = math.sqrt(max(0.0, gu @ omega @ gu) / n)
+    z = np.column_stack([dx * dx, dy * dy, dx * dy])
+    z = z - z.mean(axis=0)
+    bandwidth = min(6 * math.sqrt(n), n)
+    omega = bartlett_sum_real(np.column_stack([z @ gl, z @ gu]), bandwidth) / n
+    se_l = math.sqrt(max(0.0, omega[0, 0]) / n)
+    se_u = math.sqrt(max(0.0, omega[1, 1]) / n)
+    b = min(1.0, bandwidth / n)
+    k = (1.96 + 2.9694 * b + 0.416 * b * b - 0.5324 * b**3) / NormalDist().inv_cdf(0.975)
     lower, upper = c / dl, max(c / dl, vl / du)
-    out["uncertainty.method.lags"] = lag
+    out["uncertainty.method.lags"] = math.ceil(bandwidth) - 1
     out["uncertainty.bounds.lowBeta.min.stdError"] = se_l
     out["uncertainty.bounds.lowBeta.max.stdError"] = se_u
-    out["uncertainty.bounds.correlation"] = (gl @ omega @ gu / n) / (se_l * se_u)
-    out["uncertainty.lowBeta.interval.lower"], out["uncertainty.lowBeta.interval.upper"] = imbens_manski(lower, upper, se_l, se_u, confidence)
+    out["uncertainty.bounds.correlation"] = omega[0, 1] / math.sqrt(omega[0, 0] * omega[1, 1])
+    lo, hi = imbens_manski(lower, upper, k * se_l, k * se_u, confidence)
+    out["uncertainty.lowBeta.interval.lower"], out["uncertainty.lowBeta.interval.upper"] = max(lo, 0.0), min(hi, 1 / w)
     for name, series in (("low", x), ("high", y), ("market", market)):
         out[f"uncertainty.sharpe.{name}.hacStdErr"] = sharpe_hac(series)
     return {k: float(val) for k, val in out.items()}
-
-
-def optimal_block_length(x):
-    """Stationary-bootstrap block length (Politis-White 2004, Patton-Politis-White 2009; arch's conventions)."""
-    n = len(x)
-    eps = x - x.mean()
-    b_max = math.ceil(min(3 * math.sqrt(n), n / 3))
-    kn = max(5, int(math.floor(math.log10(n))))
-    m_max = math.ceil(math.sqrt(n)) + kn
-    cv = 2 * math.sqrt(math.log10(n) / n)
-    sq = np.concatenate(([0.0], np.cumsum(eps * eps)))
-    acv = np.empty(m_max + 1)
-    absr = np.empty(m_max + 1)
-    for i in range(m_max + 1):
-        cross = eps[i:] @ eps[: n - i]
-        v1 = sq[n] - sq[i + 1]
-        v2 = sq[n - (i + 1)]
-        acv[i] = cross / n
-        absr[i] = abs(cross) / math.sqrt(v1 * v2)
-    opt = None
-    for i in range(kn, m_max + 1):
-        if np.all(absr[i - kn : i] < cv):
-            opt = i - kn
-            break
-    m = min(m_max if opt is None else 2 * max(opt, 1), m_max)
-    k = np.arange(1, m + 1)
-    lam = np.where(k / m <= 0.5, 1.0, 2 * (1 - k / m))
-    big_g = (2 * lam * k * acv[1 : m + 1]).sum()
-    g = acv[0] + (2 * lam * acv[1 : m + 1]).sum()
-    return min(((2 * big_g**2) / (2 * g**2)) ** (1 / 3) * n ** (1 / 3), b_max)
