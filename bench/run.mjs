@@ -60,7 +60,7 @@ if (selected && cases.length !== selected.length) {
   log(`bench: unknown case in --cases ${selected.join(",")}; cases are ${allCases.map((c) => c.id).join(", ")}`);
   process.exit(1);
 }
-const defaultRounds = (c) => (c.data === "minutes10m" || c.kind === "roll" ? 3 : c.data === "daily1m" ? 7 : 9);
+const defaultRounds = (c) => (c.data === "minutes10m" || c.data === "daily10m" || c.kind === "roll" ? 3 : c.data === "daily1m" ? 7 : 9);
 const loadAtStart = loadavg();
 const results = [];
 for (const c of cases) {
@@ -93,6 +93,11 @@ for (const c of cases) {
     { name: "cat FILE", argv: ["cat", data.path] },
     { name: "wc -l FILE", argv: ["wc", "-l", data.path] },
   ];
+  if (c.scaling) {
+    // The fixed cost of a run (start-up, reading, writing) at default settings: ours on 300 rows.
+    const tiny = dataFile(cacheDir, c.data, rowsScale, log, 300);
+    floors.push({ name: "ours, 300 rows", argv: [process.execPath, cli, ...c.ours(tiny.path, join(outDir, `${c.id}-tiny.json`))] });
+  }
   for (const f of floors) sides.push({ ...f, role: "floor", out: null });
 
   // Warm-up (untimed): each side once; its output is what the agreement check reads.

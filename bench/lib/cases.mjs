@@ -62,6 +62,7 @@ export function buildCases() {
       title: `solve, 1,000,000 daily rows${uncertainty ? ", default uncertainty (HAC, delta method)" : ", --no-uncertainty"}`,
       data: "daily1m",
       kind: "solve",
+      scaling: uncertainty,
       ours: (file, out) => solve(file, ["--rf", "rf", "--format", "json", ...(uncertainty ? [] : ["--no-uncertainty"]), "--output", out]),
       job: { job: "solve", pairs: [["low", "high"]], rf: "rf", uncertainty },
     });
@@ -111,6 +112,26 @@ export function buildCases() {
     ours: (file, out) => ["solve", file, "--lows", lows.join(","), "--highs", highs.join(","), "--format", "jsonl", "--output", out],
     job: { job: "solve", pairs: lows.flatMap((l) => highs.map((h) => [l, h])), rf: null, uncertainty: true },
   });
+  // Time per row at default settings from 1e4 to 1e7 rows (with b2 at 1e6): the fixed cost is ours on
+  // the first 300 rows of the same data, timed in the same rounds (scalingFloor).
+  for (const [id, data, rows] of [
+    ["g1", "daily10k", "10,000"],
+    ["g2", "daily100k", "100,000"],
+    ["g3", "daily10m", "10,000,000"],
+  ]) {
+    add({
+      id,
+      title: `solve, ${rows} daily rows, default uncertainty (time per row)`,
+      data,
+      kind: "solve",
+      scaling: true,
+      ours: (file, out) => solve(file, ["--rf", "rf", "--format", "json", "--output", out]),
+      ...(id === "g3"
+        ? { peers: ["polars"], peerNote: "at 10 million rows the peer is polars alone (the fastest on 1M rows), to keep the run's length" }
+        : {}),
+      job: { job: "solve", pairs: [["low", "high"]], rf: "rf", uncertainty: true },
+    });
+  }
   for (const uncertainty of [false, true]) {
     add({
       id: uncertainty ? "f2" : "f1",

@@ -93,21 +93,24 @@ function writeRows(path, header, rows, row) {
 export const dataSets = {
   daily2520: { rows: 2_520, description: "2,520 business days: date,low,high,rf" },
   daily1m: { rows: 1_000_000, description: "1,000,000 business days: date,low,high,rf,other" },
+  daily10k: { rows: 10_000, description: "10,000 business days: date,low,high,rf,other" },
+  daily100k: { rows: 100_000, description: "100,000 business days: date,low,high,rf,other" },
+  daily10m: { rows: 10_000_000, description: "10,000,000 business days: date,low,high,rf,other" },
   wide50: { rows: 2_520, description: "2,520 business days, 50 return columns l01..l25, h01..h25" },
   minutes10m: { rows: 10_000_000, description: "10,000,000 minute stamps (09:30-15:59 on business days): time,low,high" },
 };
 
 function generate(name, rows, path) {
   const fmt = (x) => x.toFixed(9);
-  const seed = { daily2520: 1, daily1m: 2, wide50: 3, minutes10m: 4 }[name];
+  const seed = { daily2520: 1, daily1m: 2, wide50: 3, minutes10m: 4, daily10k: 5, daily100k: 6, daily10m: 7 }[name];
   const { normal } = createStream(seed);
   const pair = () => {
     const f = 0.0004 + 0.01 * normal();
     return [0.7 * f + 0.004 * normal(), 1.3 * f + 0.006 * normal()];
   };
-  if (name === "daily2520" || name === "daily1m") {
+  if (name.startsWith("daily")) {
     const days = businessDays();
-    const other = name === "daily1m";
+    const other = name !== "daily2520";
     writeRows(path, other ? "date,low,high,rf,other" : "date,low,high,rf", rows, (i) => {
       const rf = 0.00008 + 0.00004 * Math.sin(i / 500);
       const [low, high] = pair();
@@ -141,10 +144,10 @@ function generate(name, rows, path) {
  * The path of data set `name` in `cacheDir`, generated first if it is not there. `rowsScale` (< 1
  * for quick checks) shrinks the row count; the file name says so.
  */
-export function dataFile(cacheDir, name, rowsScale = 1, log = () => {}) {
+export function dataFile(cacheDir, name, rowsScale = 1, log = () => {}, fixedRows = null) {
   const spec = dataSets[name];
   if (spec === undefined) throw new Error(`unknown data set ${name}`);
-  const rows = Math.max(300, Math.round(spec.rows * rowsScale));
+  const rows = fixedRows ?? Math.max(300, Math.round(spec.rows * rowsScale));
   mkdirSync(cacheDir, { recursive: true });
   const path = join(cacheDir, `${name}-v${generatorVersion}-${rows}.csv`);
   if (!existsSync(path)) {
