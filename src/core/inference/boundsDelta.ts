@@ -17,7 +17,7 @@
 
 import { bilinear, type Matrix } from "../numerics/linearAlgebra.js";
 import { sampleCovarianceOf } from "./hac/longRun.js";
-import { boundsLongRun } from "./boundsLongRun.js";
+import { boundInfluenceSeries, boundsLongRunOfSeries } from "./boundsLongRun.js";
 import type { HacKernel, HacOptions, LongRunMethod } from "./options.js";
 import { defaultConfidence } from "../parameters.js";
 
@@ -145,12 +145,12 @@ export function boundsDeltaFromData(
   hac: HacOptions = {},
   confidence: number = defaultConfidence,
 ): BoundsDeltaFromData {
-  const z = momentSeries(x, y);
   if (method === "iid") {
-    const omega = sampleCovarianceOf(z);
+    const omega = sampleCovarianceOf(momentSeries(x, y));
     return { ...boundsDelta(moments, omega, x.length), longRun: { method, kernel: null, bandwidth: null, lags: null } };
   }
-  const lr = boundsLongRun(z, boundGradients(moments), hac, confidence);
+  const series = boundInfluenceSeries(x, y, boundGradients(moments));
+  const lr = boundsLongRunOfSeries(series.lower, series.upper, hac, confidence);
   const wider = lr.lower.bandwidth >= lr.upper.bandwidth ? lr.lower : lr.upper;
   return {
     ...boundsFromVariances(moments, { lower: lr.lower.variance, upper: lr.upper.variance, covariance: lr.covariance }, x.length, {

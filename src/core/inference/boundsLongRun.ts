@@ -74,10 +74,62 @@ export function boundsLongRun(
   hac: HacOptions,
   confidence: number,
 ): BoundsLongRun {
-  const n = z[0]!.length;
+  return boundsLongRunOfSeries(influenceSeries(z, gradients.lower), influenceSeries(z, gradients.upper), hac, confidence);
+}
+
+/**
+ * The two bounds' influence series straight from the excess returns x (low) and y (high), without the
+ * three moment series z_t: the same numbers as `influenceSeries(momentSeries(x, y), gradient)` (the
+ * same sums in the same order), in two arrays of n instead of five.
+ */
+export function boundInfluenceSeries(
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  gradients: { readonly lower: readonly number[]; readonly upper: readonly number[] },
+): { lower: Float64Array; upper: Float64Array } {
+  const n = x.length;
+  let mx = 0;
+  let my = 0;
+  for (let t = 0; t < n; t++) {
+    mx += x[t]!;
+    my += y[t]!;
+  }
+  mx /= n;
+  my /= n;
+  let sxx = 0;
+  let syy = 0;
+  let sxy = 0;
+  for (let t = 0; t < n; t++) {
+    const dx = x[t]! - mx;
+    const dy = y[t]! - my;
+    sxx += dx * dx;
+    syy += dy * dy;
+    sxy += dx * dy;
+  }
+  const means = [sxx / n, syy / n, sxy / n];
+  const fill = (g: readonly number[]): Float64Array => {
+    const f = new Float64Array(n);
+    const [g0, g1, g2] = g as [number, number, number];
+    const [m0, m1, m2] = means as [number, number, number];
+    for (let t = 0; t < n; t++) {
+      const dx = x[t]! - mx;
+      const dy = y[t]! - my;
+      // Column by column, skipping zero gradients, as influenceSeries adds them.
+      let v = f[t]!;
+      if (g0 !== 0) v = v + g0 * (dx * dx - m0);
+      if (g1 !== 0) v = v + g1 * (dy * dy - m1);
+      if (g2 !== 0) v = v + g2 * (dx * dy - m2);
+      f[t] = v;
+    }
+    return f;
+  };
+  return { lower: fill(gradients.lower), upper: fill(gradients.upper) };
+}
+
+/** `boundsLongRun` on the two influence series themselves (see boundInfluenceSeries). */
+export function boundsLongRunOfSeries(lower: Float64Array, upper: Float64Array, hac: HacOptions, confidence: number): BoundsLongRun {
+  const n = lower.length;
   const kernel = hac.kernel ?? defaultHac.kernel;
-  const lower = influenceSeries(z, gradients.lower);
-  const upper = influenceSeries(z, gradients.upper);
   const rule = hac.bandwidth ?? defaultHac.bandwidth;
   const common: HacOptions | null =
     hac.lags !== undefined

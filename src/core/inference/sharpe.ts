@@ -14,7 +14,7 @@
  * The estimate uses the sample standard deviation (divisor T - 1), as the rest of the project.
  */
 
-import { longRunCovariance } from "./hac/longRun.js";
+import { longRunCovarianceInPlace } from "./hac/longRun.js";
 import { bilinear } from "../numerics/linearAlgebra.js";
 import type { HacOptions } from "./options.js";
 
@@ -65,7 +65,7 @@ export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {})
   // Skewness and kurtosis are ratios of central moments: the same from z as from the returns.
   const skewness = m3 / n / (m2 / n) ** 1.5;
   const kurtosis = m4 / n / (m2 / n) ** 2;
-  const sigmaHat = longRunCovariance([first, second], hac).covariance;
+  const sigmaHat = longRunCovarianceInPlace([first, second], hac).covariance;
   const gradient = [1, -estimate / 2];
   return {
     estimate,

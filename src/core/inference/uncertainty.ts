@@ -190,10 +190,8 @@ function uncertaintyOf(
   }
 
   const design = [new Float64Array(n).fill(1), market];
-  const capmFit = (y: Float64Array) => {
-    const fit = leastSquares(design, y);
-    return { fit, hac: hacCovariance(design, fit.residuals, hac) };
-  };
+  // Only the HAC covariance is kept: the residuals (n numbers) are free once it is computed.
+  const capmFit = (y: Float64Array) => ({ hac: hacCovariance(design, leastSquares(design, y).residuals, hac) });
   const capmLow = capmFit(low);
   const capmHigh = capmFit(high);
   // Diagonals of a positive semi-definite matrix, negative only by rounding; the alpha's back in the data's units.

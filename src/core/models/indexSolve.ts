@@ -13,7 +13,7 @@
 
 import { covarianceCancellation, varianceRoundingError, cancellationTolerance } from "../cancellation.js";
 import { diagnose, type Diagnostic, type IndexCovariance } from "../diagnostics.js";
-import { longRunCovariance, sampleCovarianceOf } from "../inference/hac/longRun.js";
+import { longRunCovarianceInPlace, sampleCovarianceOf } from "../inference/hac/longRun.js";
 import type { HacOptions, LongRunMethod } from "../inference/options.js";
 import { minimumForUncertainty } from "../inference/uncertaintyArguments.js";
 import { welfordCrossProducts } from "../moments.js";
@@ -184,7 +184,7 @@ function deltaStdErrors(
     return s.map((v) => v - mean);
   });
   const z = momentPairs.map(([a, b]) => centred[a]!.map((v, t) => v * centred[b]![t]!));
-  const omega = settings.longRun === "iid" ? sampleCovarianceOf(z) : longRunCovariance(z, settings.hac).covariance;
+  const omega = settings.longRun === "iid" ? sampleCovarianceOf(z) : longRunCovarianceInPlace(z, settings.hac).covariance;
   const jacobian = indexJacobian(m);
   // A quadratic form of a positive semi-definite Omega: negative only by rounding, a standard error of 0.
   return Object.fromEntries(

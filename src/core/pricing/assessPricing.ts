@@ -15,7 +15,7 @@
 
 import { scaledExcessReturns } from "../inference/bootstrap/replicates.js";
 import { boundGradients } from "../inference/boundsDelta.js";
-import { longRunCovariance, sampleCovarianceOf } from "../inference/hac/longRun.js";
+import { longRunCovarianceInPlace, sampleCovarianceOf } from "../inference/hac/longRun.js";
 import type { HacOptions, LongRunMethod } from "../inference/options.js";
 import { welfordCrossProducts } from "../moments.js";
 import { normalQuantile } from "../numerics/normal.js";
@@ -109,7 +109,7 @@ export function assessPricing(sample: ReturnSample, options: PricingOptions): Pr
     fe1[t] = lambda * (iL - iBeta) + (lower - beta) * ib;
     fe2[t] = lambda * (iU - iBeta) + (upper - beta) * ib;
   }
-  const omega = options.longRun === "iid" ? sampleCovarianceOf(series) : longRunCovariance(series, options.hac).covariance;
+  const omega = options.longRun === "iid" ? sampleCovarianceOf(series) : longRunCovarianceInPlace(series, options.hac).covariance;
   const variance = (i: number, j: number): number => omega[i]![j]! / n;
   const se = (i: number): number => Math.sqrt(Math.max(0, variance(i, i)));
   const z = normalQuantile(1 - (1 - confidence) / 2);

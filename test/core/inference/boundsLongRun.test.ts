@@ -12,9 +12,9 @@
 
 import { describe, expect, test } from "vitest";
 import { boundGradients, momentSeries } from "../../../src/core/inference/boundsDelta.js";
-import { boundsLongRun, influenceSeries } from "../../../src/core/inference/boundsLongRun.js";
+import { boundInfluenceSeries, boundsLongRun, influenceSeries } from "../../../src/core/inference/boundsLongRun.js";
 import { neweyWest1994Bandwidth } from "../../../src/core/inference/hac/bandwidth.js";
-import { longRunCovariance } from "../../../src/core/inference/hac/longRun.js";
+import { longRunCovariance, longRunCovarianceInPlace } from "../../../src/core/inference/hac/longRun.js";
 import { bilinear } from "../../../src/core/numerics/linearAlgebra.js";
 import { drawSample } from "../../../src/core/forward/simulate.js";
 import { expectClose } from "../../support/close.js";
@@ -34,8 +34,29 @@ function prepared(garch: boolean) {
     return a.reduce((p, v, t) => p + (v - ma) * (b[t]! - mb), 0) / (n - 1);
   };
   const moments = { weight: 0.5, lowVariance: cov(x, x), highVariance: cov(y, y), covariance: cov(x, y) };
-  return { z: momentSeries(x, y), gradients: boundGradients(moments), n };
+  return { z: momentSeries(x, y), gradients: boundGradients(moments), n, x, y };
 }
+
+describe("the memory-saving paths give the same numbers, bit for bit", () => {
+  test("influence series straight from the returns equal those of the moment series", () => {
+    for (const garch of [false, true]) {
+      const { z, gradients, x, y } = prepared(garch);
+      const direct = boundInfluenceSeries(x, y, gradients);
+      expect(direct.lower).toEqual(influenceSeries(z, gradients.lower));
+      expect(direct.upper).toEqual(influenceSeries(z, gradients.upper));
+    }
+  });
+
+  test("the long-run covariance centred in place equals the copying one, and centres the columns", () => {
+    const { z } = prepared(true);
+    const copies = z.map((c) => c.slice());
+    const plain = longRunCovariance(z, { bandwidth: 301.5 });
+    expect(z).toEqual(copies); // the copying form leaves its columns alone
+    const inPlace = longRunCovarianceInPlace(copies, { bandwidth: 301.5 });
+    expect(inPlace.covariance).toEqual(plain.covariance);
+    for (const c of copies) expect(Math.abs(c.reduce((p, q) => p + q, 0))).toBeLessThan(1e-9);
+  });
+});
 
 describe("per-bound long-run variances", () => {
   const { z, gradients, n } = prepared(false);
