@@ -8,7 +8,7 @@
  * stripped by esbuild. The config files the README shows are the committed ones.
  */
 import { spawnSync } from "node:child_process";
-import { cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, statSync, writeFileSync } from "node:fs";
+import { cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, statSync, symlinkSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { dirname, join } from "node:path";
 import { pathToFileURL } from "node:url";
@@ -151,19 +151,37 @@ describe("the README's examples", () => {
     120_000,
   );
 
-  it.each(blocks(readme, "ts").map((code, i) => [i + 1, code] as const))("library example %i runs against dist/", (i, code) => {
-    const library = (entry: string) => JSON.stringify(pathToFileURL(join(root, "dist", entry)).href);
-    const script = transformSync(code, { loader: "ts", format: "esm" })
-      .code.replace(/from "betabound\/core"/g, `from ${library("core.js")}`)
-      .replace(/from "betabound"/g, `from ${library("index.js")}`);
-    expect(script).not.toMatch(/from "betabound/);
-    const file = join(scratch, `library-example-${i}.mjs`);
-    writeFileSync(file, script);
-    const result = spawnSync(process.execPath, [file], { cwd: scratch, encoding: "utf8" });
+  it.each(blocks(readme, "ts").map((code, i) => [i + 1, code] as const))(
+    "library example %i runs against dist/",
+    (i, code) => {
+      const library = (entry: string) => JSON.stringify(pathToFileURL(join(root, "dist", entry)).href);
+      const script = transformSync(code, { loader: "ts", format: "esm" })
+        .code.replace(/from "betabound\/core"/g, `from ${library("core.js")}`)
+        .replace(/from "betabound"/g, `from ${library("index.js")}`);
+      expect(script).not.toMatch(/from "betabound/);
+      const file = join(scratch, `library-example-${i}.mjs`);
+      writeFileSync(file, script);
+      const result = spawnSync(process.execPath, [file], { cwd: scratch, encoding: "utf8" });
+      expect(result.status, result.stderr).toBe(0);
+      expect(result.stderr).toBe("");
+      expect(result.stdout.length).toBeGreaterThan(0);
+    },
+    60_000,
+  );
+
+  it("use files that examples/README.md's commands regenerate byte for byte", () => {
+    const made = blocks(readFileSync(join(root, "examples/README.md"), "utf8"), "sh").find((b) => b.includes("generate.mjs"));
+    expect(made).toBeDefined();
+    const copy = mkdtempSync(join(tmpdir(), "betabound-examples-"));
+    cpSync(join(root, "examples"), join(copy, "examples"), { recursive: true });
+    symlinkSync(join(root, "dist"), join(copy, "dist"));
+    const generated = ["desks/desk-a.csv", "desks/desk-b.csv", "funds/stillwater.csv", "funds/kestrel.csv"];
+    for (const file of generated) writeFileSync(join(copy, "examples", file), "");
+    const result = spawnSync("sh", ["-e", "-c", made!], { cwd: copy, encoding: "utf8" });
     expect(result.status, result.stderr).toBe(0);
-    expect(result.stderr).toBe("");
-    expect(result.stdout.length).toBeGreaterThan(0);
-  }, 60_000);
+    for (const file of generated)
+      expect(readFileSync(join(copy, "examples", file), "utf8"), file).toBe(readFileSync(join(root, "examples", file), "utf8"));
+  });
 
   it("show the config files as committed", () => {
     // A paragraph naming the file and ending in a colon, then the file in a json block.
