@@ -73,8 +73,9 @@ export const isSection = (key: string): boolean => (sectionNames() as string[]).
 
 /**
  * The keys `command` reads from a file that may have sections: the top-level keys with its own
- * section's over them. Every other section must hold only its command's keys, checked as that command
- * would check them, so a shared file's mistake is found by whichever command runs first.
+ * section's over them. Every section must hold only its command's keys, checked as that command
+ * would check them (a problem is named by its place, "roll.window"), so a shared file's mistake is
+ * found by whichever command runs first.
  */
 export function ownSection(data: Record<string, unknown>, command: CommandName): Result<Record<string, unknown>, ConfigProblem> {
   const top: Record<string, unknown> = {};
@@ -87,7 +88,6 @@ export function ownSection(data: Record<string, unknown>, command: CommandName):
     const nested = Object.keys(section).find((key) => key === "jobs" || key === "files" || isSection(key));
     if (nested !== undefined)
       return failure({ at: `${name}.${nested}`, reason: "belongs at the top level (a section holds options only)" });
-    if (name === command) continue;
     const checked = checkKeys(section as Record<string, unknown>, name);
     if (!checked.ok) return failure({ at: `${name}.${checked.issues.at}`, reason: checked.issues.reason });
   }

@@ -86,6 +86,8 @@ describe("a file shared by solve and roll", () => {
     expect(misplaced.stderr).toContain("at 'roll.steps': a key of solve and implied, not of roll");
     const badValue = await runWith("solve", { ...shared, roll: { window: "sixty" } });
     expect(badValue.stderr).toContain("at 'roll.window'");
+    const ownMisplaced = await runWith("solve", { ...shared, solve: { window: 60 } });
+    expect(ownMisplaced.stderr).toContain("at 'solve.window': a key of roll, not of solve");
   });
 
   it("refuses a section that is not an object, or that holds files, jobs or a section", async () => {
