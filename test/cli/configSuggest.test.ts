@@ -29,8 +29,8 @@ describe("a mistyped key: did you mean", () => {
     }
   });
 
-  it("suggests the command's own key before another command's (which that command would ignore)", async () => {
-    // "stepz": solve's "steps" and roll's "step" are one edit away; for roll, "steps" would be ignored.
+  it("suggests the command's own key before another command's (which that command would refuse)", async () => {
+    // "stepz": solve's "steps" and roll's "step" are one edit away; for roll, "steps" is solve's key.
     const rolled = await job("roll", { files: ["desk.csv"], pair, window: 36, stepz: 12 });
     expect(rolled.code).toBe(exitCodes.usage);
     expect(rolled.stderr).toContain('did you mean "step"?');

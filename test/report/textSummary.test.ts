@@ -9,7 +9,7 @@ import { run } from "../../src/cli/program.js";
 import { exitCodes } from "../../src/cli/runtime/exitCodes.js";
 import { formatNumber } from "../../src/report/format.js";
 import { renderText } from "../../src/report/text/text.js";
-import { cautionLine } from "../../src/report/text/textNotes.js";
+import { briefCautionLine, cautionLine } from "../../src/report/text/textNotes.js";
 import { diagnosticsSummary, summaryFields } from "../../src/report/text/textSummary.js";
 import { fakeIo } from "../cli/fakeIo.js";
 import { labelFlipSolution, rejectedSolution, reportOf, typicalSolution } from "./fixtures.js";
@@ -67,7 +67,13 @@ describe("the summary block", () => {
     const lines = brief.stdout.split("\n");
     expect(brief.stdout.startsWith(full.stdout.split("\n")[0]!)).toBe(true);
     expect(summaryOf(brief.stdout)).toEqual(summaryOf(full.stdout));
-    expect(brief.stdout).toContain(cautionLine);
+    // The caution says where the assumptions are: "above" only where an Assumptions section is above.
+    const flat = (text: string) => text.replace(/\s+/g, " ");
+    expect(flat(brief.stdout)).toContain(briefCautionLine);
+    expect(brief.stdout).not.toContain("\nAssumptions\n");
+    expect(flat(brief.stdout)).not.toContain("assumptions above");
+    expect(full.stdout.indexOf(cautionLine)).toBeGreaterThan(full.stdout.indexOf("\nAssumptions\n"));
+    expect(full.stdout.indexOf("\nAssumptions\n")).toBeGreaterThan(0);
     expect(brief.stdout).not.toContain("\nInput\n");
     expect(lines.every((line) => line.length < 100)).toBe(true);
     const json = await solve(["--brief", "--format", "json"]);

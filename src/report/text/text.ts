@@ -6,7 +6,7 @@
 
 import { styleFor, wrap } from "../layout.js";
 import { capmSection, inputSection, momentsSection, returnsWord } from "./textData.js";
-import { assumptionsSection, cautionLine, closingLines, diagnosticsSection } from "./textNotes.js";
+import { assumptionsSection, briefCautionLine, closingLines, diagnosticsSection } from "./textNotes.js";
 import { pricingSection } from "./textPricing.js";
 import { boundsSection, gridSection, landmarksSection, rejectedSection } from "./textSet.js";
 import { reportDiagnostics } from "../diagnosticList.js";
@@ -30,7 +30,7 @@ export function renderText(report: SolveReport, options: RenderOptions): string 
   const s = report.solution;
   const u = report.uncertainty;
   const head = [[style.heading(titleLine(report))], summarySection(report, style)];
-  if (options.brief === true) return joinSections([...head, wrap(cautionLine, "", "")]);
+  if (options.brief === true) return joinSections([...head, wrap(briefCautionLine, "", "")]);
   const perYear = report.input.frequency?.periodsPerYear ?? null;
   const returns = returnsWord(report.input.riskFree);
   const sections: string[][] = [

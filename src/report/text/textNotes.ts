@@ -8,8 +8,12 @@ import { excessReturnBasis, modelAssumptions } from "../conventions.js";
 import { indent, printable, wrap, type Style } from "../layout.js";
 import type { RiskFreeSource } from "../types.js";
 
-/** The closing caution, printed verbatim. */
+/** The closing caution of a report that lists the assumptions above it, printed verbatim. */
 export const cautionLine = "Caution: these are statistical estimates under the assumptions above, not investment advice.";
+
+/** The closing caution of the brief report, which leaves the assumptions out: it says where they are. */
+export const briefCautionLine =
+  "Caution: these are statistical estimates under the model's assumptions (listed in the full report, without --brief), not investment advice.";
 
 /** The Diagnostics section: each diagnostic with its severity, or "none". */
 export function diagnosticsSection(diagnostics: readonly ReportDiagnostic[], style: Style): string[] {
