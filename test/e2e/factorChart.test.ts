@@ -29,4 +29,15 @@ describe("the k-portfolio chart from the command line", () => {
     expect(page).toContain("Structural loadings against CAPM betas");
     expect(page.match(/<svg/g)).toHaveLength(2);
   });
+
+  it("adds the sets under correlated noise to the identified set's chart", () => {
+    const svg = join(scratch, "set.svg");
+    const args = ["solve", dataset, "--low", "P1", "--high", "P5", "--noise-correlation", "0,0.5", "--chart", svg];
+    const result = spawnSync(process.execPath, [cli, ...args], { encoding: "utf8" });
+    expect(result.status).toBe(0);
+    const chart = readFileSync(svg, "utf8");
+    expect(XMLValidator.validate(chart)).toBe(true);
+    expect(chart).toContain(">rho = 0.5");
+    expect(chart).toContain(">rho = 0 (as uncorrelated)</text>");
+  });
 });
