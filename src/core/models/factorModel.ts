@@ -120,7 +120,7 @@ export function factorModelFromCovariance(
   const capm = sw.map((x) => (marketVariance > 0 ? x / marketVariance : null));
   const constant = names.filter((_, i) => !(s[i]![i]! > 0));
   for (const name of constant) diagnostics.push(diagnose({ code: "factor-constant", portfolio: name }));
-  const adjacentPairs = constant.length > 0 ? [] : pairsOf(names, w, s, null);
+  // Without a fit the pairs' sets are still reported (none when a portfolio is constant).
   const empty = (extra: Diagnostic[] = []): FactorModel => ({
     observations: n,
     portfolios: names.map((name, i) => ({
@@ -134,7 +134,7 @@ export function factorModelFromCovariance(
     factorVariance: null,
     fit: null,
     heywood: [],
-    adjacentPairs,
+    adjacentPairs: constant.length > 0 ? [] : pairsOf(names, w, s, null),
     diagnostics: [...diagnostics, ...extra],
   });
   if (k < minimumPortfolios) return empty([diagnose({ code: "factor-too-few-portfolios", count: k, minimum: minimumPortfolios })]);
