@@ -109,7 +109,7 @@ for (const c of cases) {
         ? checkIdentical(oursOut, side.out)
         : c.kind === "roll"
           ? checkRoll(oursOut, side.out)
-          : checkSolve(c.kind, oursOut, side.out, c.job.pairs.length);
+          : checkSolve(c.kind, oursOut, side.out, c.job.pairs.length, c.tolerance ?? solveTolerance);
     checks[side.name] = check;
     const worst = `${check.compared} compared, worst relative difference ${check.worst.toExponential(1)} (${check.worstPath})`;
     if (!check.ok) {
@@ -178,7 +178,7 @@ log(`wrote ${target}`);
 rmSync(outDir, { recursive: true, force: true });
 
 // ---- agreement checks --------------------------------------------------------------------------
-function checkSolve(kind, oursPath, peerPath, expectedPairs) {
+function checkSolve(kind, oursPath, peerPath, expectedPairs, tolerance) {
   const peer = readJson(peerPath);
   const ours =
     kind === "batch"
@@ -200,7 +200,7 @@ function checkSolve(kind, oursPath, peerPath, expectedPairs) {
       failures.push(`pair ${p.low}/${p.high}: missing from our output`);
       continue;
     }
-    const result = compareDigest(doc, p.values, solveTolerance);
+    const result = compareDigest(doc, p.values, tolerance);
     compared += result.compared;
     failures.push(...result.failures.map((f) => `${p.low}/${p.high} ${f}`));
     if (result.worst > worst || worstPath === null) {

@@ -2,6 +2,7 @@
 import type { Tolerance } from "./check.mjs";
 export const exact: number;
 export function solveTolerance(path: string): Tolerance;
+export function pointTolerance(path: string): Tolerance;
 export function rollTolerance(name: string): Tolerance;
 export function buildCases(): Array<{
   id: string;
@@ -11,5 +12,15 @@ export function buildCases(): Array<{
   peers: string[];
   variants: Array<{ label: string; args: string[] }>;
   ours: (file: string, out: string) => string[];
-  job: { job: string; pairs: string[][]; window?: number; step: number; weight: number; uncertainty?: boolean; dateColumn: string };
+  tolerance?: (path: string) => Tolerance;
+  job: {
+    job: string;
+    pairs: string[][];
+    window?: number;
+    step: number;
+    weight: number;
+    uncertainty?: boolean;
+    dateColumn: string;
+    portfolios?: string[];
+  };
 }>;

@@ -98,11 +98,12 @@ export const dataSets = {
   daily10m: { rows: 10_000_000, description: "10,000,000 business days: date,low,high,rf,other" },
   wide50: { rows: 2_520, description: "2,520 business days, 50 return columns l01..l25, h01..h25" },
   minutes10m: { rows: 10_000_000, description: "10,000,000 minute stamps (09:30-15:59 on business days): time,low,high" },
+  factor10: { rows: 10_000, description: "10,000 business days, 10 beta-sorted portfolios P1..P10 and rf" },
 };
 
 function generate(name, rows, path) {
   const fmt = (x) => x.toFixed(9);
-  const seed = { daily2520: 1, daily1m: 2, wide50: 3, minutes10m: 4, daily10k: 5, daily100k: 6, daily10m: 7 }[name];
+  const seed = { daily2520: 1, daily1m: 2, wide50: 3, minutes10m: 4, factor10: 5, daily10k: 6, daily100k: 7, daily10m: 8 }[name];
   const { normal } = createStream(seed);
   const pair = () => {
     const f = 0.0004 + 0.01 * normal();
@@ -127,6 +128,19 @@ function generate(name, rows, path) {
       let line = days.next().value;
       for (let j = 0; j < names.length; j++) line += `,${fmt(betas[j] * f + noise[j] * normal())}`;
       return line;
+    });
+  } else if (name === "factor10") {
+    const days = businessDays();
+    // Loadings 0.5 to 1.5 in steps of 1/9, noise sd 0.003 to 0.0066.
+    const betas = Array.from({ length: 10 }, (_, j) => 0.5 + j / 9);
+    const noise = Array.from({ length: 10 }, (_, j) => 0.003 + 0.0004 * j);
+    const names = betas.map((_, j) => `P${j + 1}`);
+    writeRows(path, `date,${names.join(",")},rf`, rows, (i) => {
+      const rf = 0.00008 + 0.00004 * Math.sin(i / 500);
+      const f = 0.0004 + 0.01 * normal();
+      let line = days.next().value;
+      for (let j = 0; j < names.length; j++) line += `,${fmt(betas[j] * f + noise[j] * normal() + rf)}`;
+      return `${line},${fmt(rf)}`;
     });
   } else if (name === "minutes10m") {
     const minutes = tradingMinutes();

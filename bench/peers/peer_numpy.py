@@ -1,12 +1,14 @@
 """numpy peer: numpy.loadtxt of the columns the job uses, numpy moments (mean, np.cov), the closed forms
 of formulas.py, the uncertainty of inference.py; roll from cumulative sums of the centred series.
-Dates are read only by roll (which writes them); solve reads the numbers alone."""
+Dates are read only by roll (which writes them); solve reads the numbers alone. With "portfolios", the
+k-portfolio factor model of factor.py as well."""
 
 import sys
 
 import numpy as np
 
 from common import pair_digest, read_job, write_digest
+from factor import factor_digest
 from formulas import ROLL_COLUMNS, NumpyOps, columns
 
 
@@ -30,6 +32,7 @@ def used_names(job):
     names = []
     for pair in job["pairs"]:
         names += [n for n in pair if n not in names]
+    names += [n for n in job.get("portfolios", []) if n not in names]
     if job.get("rf") and job["rf"] not in names:
         names.append(job["rf"])
     return names
@@ -44,6 +47,10 @@ def solve(job):
         n = len(x)
         cov = np.cov(np.vstack([x, y]), ddof=1)
         pairs.append(pair_digest(job, low, high, n, x.mean(), y.mean(), cov[0, 0], cov[1, 1], cov[0, 1], lambda x=x, y=y: (x, y)))
+        if job.get("portfolios"):
+            excess = np.vstack([cols[name] - rf for name in job["portfolios"]])
+            weights = job.get("marketWeights") or [1.0] * len(job["portfolios"])
+            pairs[-1]["values"].update(factor_digest(excess, weights, n))
     write_digest(job, "numpy", pairs)
 
 

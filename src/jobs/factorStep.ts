@@ -15,10 +15,7 @@ export const factorColumns = (options: FactorOptions): string[] => [...(options.
 export function factorModelFor(loaded: PairTable, riskFree: number | Float64Array, options: FactorOptions): FactorModel | null {
   const names = options.portfolios;
   if (names === undefined) return null;
-  const columns = names.map((name) => {
-    const raw = loaded.extras.get(name)!;
-    return Float64Array.from(raw, (x, t) => x - (typeof riskFree === "number" ? riskFree : riskFree[t]!));
-  });
+  const columns = names.map((name) => loaded.extras.get(name)!);
   const weights = options.marketWeights ?? names.map(() => 1);
-  return factorModelFromCovariance(names, weights, sampleCovariance(columns), columns[0]?.length ?? 0);
+  return factorModelFromCovariance(names, weights, sampleCovariance(columns, riskFree), columns[0]?.length ?? 0);
 }

@@ -1,6 +1,8 @@
 /**
- * `--chart` and `--report` for one solved record. The chart modules (and vega behind them) are
- * imported only here, when a chart is asked for, so plain runs never load them.
+ * `--chart` and `--report` for one solved record: the identified set's chart, or with `--portfolios`
+ * the factor model's (loadings against CAPM betas); the HTML report holds every chart drawn. The
+ * chart modules (and vega behind them) are imported only here, when a chart is asked for, so plain
+ * runs never load them.
  */
 import type { CommandOptions } from "../../options/index.js";
 import type { SolveReport } from "../../report/types.js";
@@ -32,13 +34,23 @@ export async function writeCharts(report: SolveReport, request: ChartRequest, io
     { y: request.chartY, ...(uncertainty === undefined ? {} : { uncertainty }) },
     io.loadVega,
   );
+  // With --portfolios the chart file holds the factor model's chart; the HTML report holds both.
+  const factor =
+    report.factorModel === null
+      ? undefined
+      : await (await import("../../report/charts/factorChart.js")).renderFactorChart(
+          report.factorModel,
+          u === null ? {} : { confidence: u.confidence },
+          io.loadVega,
+        );
   if (request.chart !== undefined) {
-    const written = await writeOutput(io, request.chart, svg);
+    const written = await writeOutput(io, request.chart, factor ?? svg);
     if (!written.ok) return fail(io, written.issues);
   }
   if (request.report !== undefined) {
     const { renderHtmlReport } = await import("../../report/charts/htmlReport.js");
-    const written = await writeOutput(io, request.report, renderHtmlReport(report, { identifiedSet: svg }));
+    const charts = factor === undefined ? { identifiedSet: svg } : { identifiedSet: svg, factor };
+    const written = await writeOutput(io, request.report, renderHtmlReport(report, charts));
     if (!written.ok) return fail(io, written.issues);
   }
   return exitCodes.ok;

@@ -51,25 +51,57 @@ export interface FactorModel {
 
 export const minimumPortfolios = 3;
 
-/** Sample covariance matrix (divisor n - 1) of equally long series, two-pass on data shifted by the first row. */
-export function sampleCovariance(series: readonly Float64Array[]): number[][] {
+/**
+ * Sample covariance matrix (divisor n - 1) of equally long series less `offset` (a number or a series,
+ * e.g. the risk-free return: 0 by default), two-pass on data shifted by the first row. Plain loops over
+ * typed arrays, each product computed once (x y and y x are the same bits).
+ */
+export function sampleCovariance(series: readonly ArrayLike<number>[], offset: number | Float64Array = 0): number[][] {
   const n = series[0]?.length ?? 0;
   // Shifted by the first observation first (as core/moments.ts does): a constant series is exactly 0.
-  const centred = series.map((x) => {
-    const first = x[0] ?? 0;
-    const shifted = Float64Array.from(x, (v) => v - first);
-    let sum = 0;
-    for (const v of shifted) sum += v;
-    const mean = sum / n;
-    return shifted.map((v) => v - mean);
-  });
-  return centred.map((x) =>
-    centred.map((y) => {
-      let sum = 0;
-      for (let t = 0; t < n; t++) sum += x[t]! * y[t]!;
-      return sum / (n - 1);
-    }),
-  );
+  const centred = series.map((x) => centredSeries(typeof offset === "number" ? excess(x, offset) : excessOf(x, offset)));
+  const k = centred.length;
+  const s: number[][] = Array.from({ length: k }, () => new Array<number>(k).fill(0));
+  for (let i = 0; i < k; i++)
+    for (let j = i; j < k; j++) {
+      const value = crossProduct(centred[i]!, centred[j]!, n) / (n - 1);
+      s[i]![j] = value;
+      s[j]![i] = value;
+    }
+  return s;
+}
+
+function excess(x: ArrayLike<number>, offset: number): Float64Array {
+  const out = new Float64Array(x.length);
+  for (let t = 0; t < out.length; t++) out[t] = x[t]! - offset;
+  return out;
+}
+
+function excessOf(x: ArrayLike<number>, offset: Float64Array): Float64Array {
+  const out = new Float64Array(x.length);
+  for (let t = 0; t < out.length; t++) out[t] = x[t]! - offset[t]!;
+  return out;
+}
+
+/** In place: x - x[0], then minus its mean (the mean of the shifted values, summed in order). */
+function centredSeries(out: Float64Array): Float64Array {
+  const n = out.length;
+  const first = n > 0 ? out[0]! : 0;
+  let sum = 0;
+  for (let t = 0; t < n; t++) {
+    const v = out[t]! - first;
+    out[t] = v;
+    sum += v;
+  }
+  const mean = sum / n;
+  for (let t = 0; t < n; t++) out[t] = out[t]! - mean;
+  return out;
+}
+
+function crossProduct(x: Float64Array, y: Float64Array, n: number): number {
+  let sum = 0;
+  for (let t = 0; t < n; t++) sum += x[t]! * y[t]!;
+  return sum;
 }
 
 /** Fits the model to the moments `s` of `n` observations of the portfolios `names`, market weights `weights`. */
@@ -88,7 +120,7 @@ export function factorModelFromCovariance(
   const capm = sw.map((x) => (marketVariance > 0 ? x / marketVariance : null));
   const constant = names.filter((_, i) => !(s[i]![i]! > 0));
   for (const name of constant) diagnostics.push(diagnose({ code: "factor-constant", portfolio: name }));
-  const adjacentPairs = constant.length > 0 ? [] : pairsOf(names, w, s, null);
+  // Without a fit the pairs' sets are still reported (none when a portfolio is constant).
   const empty = (extra: Diagnostic[] = []): FactorModel => ({
     observations: n,
     portfolios: names.map((name, i) => ({
@@ -102,7 +134,7 @@ export function factorModelFromCovariance(
     factorVariance: null,
     fit: null,
     heywood: [],
-    adjacentPairs,
+    adjacentPairs: constant.length > 0 ? [] : pairsOf(names, w, s, null),
     diagnostics: [...diagnostics, ...extra],
   });
   if (k < minimumPortfolios) return empty([diagnose({ code: "factor-too-few-portfolios", count: k, minimum: minimumPortfolios })]);

@@ -46,9 +46,10 @@ export function fitOneFactor(s: readonly (readonly number[])[], n: number): OneF
   let lambda = new Array<number>(k).fill(0);
   let iterations = 0;
   let converged = false;
+  let vector: readonly number[] | null = null;
   for (; iterations < maxIterations; ) {
     iterations++;
-    lambda = loadingsGiven(s, psi);
+    ({ lambda, vector } = loadingsGiven(s, psi, vector));
     const next = s.map((row, i) => Math.max(row[i]! - lambda[i]! * lambda[i]!, heywoodFloor * row[i]!));
     const moved = Math.max(...next.map((p, i) => Math.abs(p - psi[i]!) / s[i]![i]!));
     psi = next;
@@ -59,7 +60,7 @@ export function fitOneFactor(s: readonly (readonly number[])[], n: number): OneF
     // Creeping towards a noise variance of 0: the boundary solutions below settle it.
     if (iterations >= 2_000 && psi.some((p, i) => p < nearBoundary * s[i]![i]!)) break;
   }
-  lambda = loadingsGiven(s, psi);
+  lambda = loadingsGiven(s, psi, null).lambda;
   let best: Candidate | null = evaluate(s, sample.logDet, lambda, psi, converged);
   // On the boundary psi_i = 0 the factor is portfolio i itself (Lawley & Maxwell 1971, section 5.1):
   // lambda = S e_i / sqrt(S_ii), psi_j = S_jj - S_ji^2 / S_ii. Kept when it fits at least as well.
@@ -104,41 +105,96 @@ function evaluate(
   return { lambda, psi, discrepancy: Math.max(model.logDet + trace - logDetS - k, 0), inverse: model.inverse, converged };
 }
 
-/** lambda maximising the likelihood for fixed psi. */
-function loadingsGiven(s: readonly (readonly number[])[], psi: readonly number[]): number[] {
+/**
+ * lambda maximising the likelihood for fixed psi, and the unit eigenvector it came from. From a
+ * previous step's eigenvector (`start`) by power iteration, which the large gap between the leading
+ * eigenvalue and the rest makes quick; from scratch (or when it does not settle) by Jacobi.
+ */
+function loadingsGiven(
+  s: readonly (readonly number[])[],
+  psi: readonly number[],
+  start: readonly number[] | null,
+): { lambda: number[]; vector: number[] } {
   const root = psi.map(Math.sqrt);
   const scaled = s.map((row, i) => row.map((x, j) => x / (root[i]! * root[j]!)));
-  const { values, vectors } = symmetricEigen(scaled);
-  const size = Math.sqrt(Math.max(values[0]! - 1, 0));
-  return vectors[0]!.map((v, i) => root[i]! * v * size);
+  const leading = (start === null ? null : powerIteration(scaled, start)) ?? jacobiLeading(scaled);
+  const size = Math.sqrt(Math.max(leading.value - 1, 0));
+  return { lambda: leading.vector.map((v, i) => root[i]! * v * size), vector: leading.vector };
 }
 
-/** ((n - 1)/2 tr(P A P B))^-1 over the parameters (lambda_1..k, psi_1..k), P = Sigma^-1. */
+interface Leading {
+  readonly value: number;
+  readonly vector: number[];
+}
+
+function jacobiLeading(a: readonly (readonly number[])[]): Leading {
+  const { values, vectors } = symmetricEigen(a);
+  return { value: values[0]!, vector: vectors[0]! };
+}
+
+/**
+ * The leading eigenvalue (Rayleigh quotient) and unit eigenvector of the symmetric `a` by power
+ * iteration from `start`: until the vector moves by at most 4 units in the last place, or stops
+ * shrinking its moves once they are within rounding (1e-13); null after 100 steps.
+ */
+function powerIteration(a: readonly (readonly number[])[], start: readonly number[]): Leading | null {
+  const k = a.length;
+  let v = [...start];
+  let previous = Number.POSITIVE_INFINITY;
+  for (let step = 0; step < 100; step++) {
+    const next = new Array<number>(k);
+    let norm = 0;
+    for (let i = 0; i < k; i++) {
+      const row = a[i]!;
+      let sum = 0;
+      for (let j = 0; j < k; j++) sum += row[j]! * v[j]!;
+      next[i] = sum;
+      norm += sum * sum;
+    }
+    norm = Math.sqrt(norm);
+    let moved = 0;
+    for (let i = 0; i < k; i++) {
+      next[i] = next[i]! / norm;
+      moved = Math.max(moved, Math.abs(next[i]! - v[i]!));
+    }
+    v = next;
+    if (moved <= 4 * Number.EPSILON || (moved >= previous && moved < 1e-13)) return { value: rayleigh(a, v), vector: v };
+    previous = moved;
+  }
+  return null;
+}
+
+function rayleigh(a: readonly (readonly number[])[], v: readonly number[]): number {
+  let value = 0;
+  for (let i = 0; i < v.length; i++) {
+    const row = a[i]!;
+    let sum = 0;
+    for (let j = 0; j < v.length; j++) sum += row[j]! * v[j]!;
+    value += v[i]! * sum;
+  }
+  return value;
+}
+
+/**
+ * ((n - 1)/2 tr(P A P B))^-1 over the parameters (lambda_1..k, psi_1..k), P = Sigma^-1. With
+ * dSigma/dlambda_i = e_i lambda' + lambda e_i' and dSigma/dpsi_i = e_i e_i', g = P lambda and
+ * q = lambda' P lambda, the traces are in closed form (expanding each product into rank-one terms):
+ * tr(P A_i P A_j) = 2 (q P_ij + g_i g_j), tr(P A_i P E_j) = 2 g_j P_ij, tr(P E_i P E_j) = P_ij^2.
+ */
 function inverseInformation(p: Matrix, lambda: readonly number[], n: number): Matrix | null {
   const k = lambda.length;
-  // dSigma/dlambda_i = e_i lambda' + lambda e_i'; dSigma/dpsi_i = e_i e_i'.
-  const derivatives: Matrix[] = [];
-  for (let i = 0; i < k; i++)
-    derivatives.push(
-      Array.from({ length: k }, (_, r) => Array.from({ length: k }, (_, c) => (r === i ? lambda[c]! : 0) + (c === i ? lambda[r]! : 0))),
-    );
-  for (let i = 0; i < k; i++)
-    derivatives.push(Array.from({ length: k }, (_, r) => Array.from({ length: k }, (_, c) => (r === i && c === i ? 1 : 0))));
-  const products = derivatives.map((d) => matmul(p, d));
+  const g = p.map((row) => row.reduce((sum, x, j) => sum + x * lambda[j]!, 0));
+  const q = g.reduce((sum, x, i) => sum + x * lambda[i]!, 0);
+  const half = (n - 1) / 2;
   const size = 2 * k;
   const information: Matrix = Array.from({ length: size }, () => new Array<number>(size).fill(0));
-  for (let a = 0; a < size; a++)
-    for (let b = a; b < size; b++) {
-      let trace = 0;
-      const x = products[a]!;
-      const y = products[b]!;
-      for (let i = 0; i < k; i++) for (let j = 0; j < k; j++) trace += x[i]![j]! * y[j]![i]!;
-      information[a]![b] = information[b]![a] = ((n - 1) / 2) * trace;
+  for (let i = 0; i < k; i++)
+    for (let j = 0; j < k; j++) {
+      const pij = p[i]![j]!;
+      information[i]![j] = half * 2 * (q * pij + g[i]! * g[j]!);
+      information[i]![k + j] = information[k + j]![i] = half * 2 * g[j]! * pij;
+      information[k + i]![k + j] = half * pij * pij;
     }
   const identity = Array.from({ length: size }, (_, i) => Array.from({ length: size }, (_, j) => (i === j ? 1 : 0)));
   return solveOrNull(information, identity, 1e-12);
-}
-
-function matmul(a: Matrix, b: Matrix): Matrix {
-  return a.map((row) => b[0]!.map((_, j) => row.reduce((sum, x, l) => sum + x * b[l]![j]!, 0)));
 }

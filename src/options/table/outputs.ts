@@ -83,7 +83,7 @@ export const reportOptions = {
   chart: option(textKind("a file path"), {
     name: "chart",
     argument: "<file.svg>",
-    help: "also draw an SVG chart: the identified set (solve) or its band through time (roll)",
+    help: "also draw an SVG chart: the identified set, or with --portfolios the loadings against the CAPM betas (solve); the band through time (roll)",
     group: "output",
     commands: readers,
     path: true,

@@ -36,6 +36,8 @@ export interface HtmlReportCharts {
   readonly identifiedSet: string;
   /** Optionally, a rolling-window chart (SVG from renderRollChart). */
   readonly roll?: string;
+  /** Optionally, the k-portfolio factor model's chart (SVG from renderFactorChart). */
+  readonly factor?: string;
 }
 
 export interface HtmlReportOptions {
@@ -119,6 +121,15 @@ function chartSection(charts: HtmlReportCharts): string {
       "<figure>",
       inlineSvg(charts.roll),
       "<figcaption>The identified set and the CAPM beta of the low book in rolling windows.</figcaption>",
+      "</figure>",
+    );
+  }
+  if (charts.factor !== undefined) {
+    figures.push(
+      "<figure>",
+      inlineSvg(charts.factor),
+      "<figcaption>Each portfolio's structural loading in the one-factor model against its CAPM beta on the same " +
+        "market proxy, with the loadings' intervals; on the dashed line the two are equal.</figcaption>",
       "</figure>",
     );
   }

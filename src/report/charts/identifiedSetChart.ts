@@ -5,7 +5,8 @@
  * curves go on dotted, into the region where a noise variance would be negative. The landmarks sit in
  * a lane above the plot, each with a symbol, a guide line down through the curves and a label in
  * plain words; the CAPM-consistent point is drawn larger and its label in bold. Optional interval
- * bars show sampling uncertainty of b_low and of the two bounds.
+ * bars show sampling uncertainty of b_low and of the two bounds; with assumed noise correlations a strip
+ * under the x axis shows the set under each.
  *
  * Pure: the SVG is a function of the report and the options alone (no ids, no clock, no random).
  *
@@ -23,6 +24,13 @@ import { captionWidth, marginLeft, marginRight, plotHeight, plotWidth, titleBloc
 import { laneLayout } from "./identifiedSet/lane.js";
 import { guideMark, intervalMarks, labelBackdropMark, landmarkLabelMark, landmarkSymbolMark } from "./identifiedSet/laneMarks.js";
 import type { IdentifiedSetChartOptions } from "./identifiedSet/options.js";
+import {
+  sensitivityData,
+  sensitivityExtent,
+  sensitivityHeight,
+  sensitivityMarks,
+  sensitivityRows,
+} from "./identifiedSet/sensitivityStrip.js";
 import {
   curveLabelMark,
   curveMark,
@@ -68,22 +76,25 @@ export function identifiedSetSpec(report: SolveReport, options: IdentifiedSetCha
   const uncertainty = options.uncertainty ?? {};
   const series = options.y === "variance" ? varianceSeries : shareSeries;
 
-  const domain = xDomain(min, max, s.weight, landmarks, uncertainty);
+  // The sets under correlated noise (--noise-correlation), in a strip under the x axis.
+  const stripTop = plotHeight + 54;
+  const domain = xDomain(min, max, s.weight, landmarks, uncertainty, sensitivityExtent(report.sensitivity));
   const px = (b: number): number => ((b - domain[0]) / (domain[1] - domain[0])) * plotWidth;
+  const rows = sensitivityRows(report.sensitivity, stripTop, px, plotWidth + marginRight - 4);
   const { curves, yDomain } = chartCurves(s, s.bounds, landmarks, domain, series, options.y);
   const setMiddle = (px(min) + px(max)) / 2;
   const negativeShown = yDomain[0] < 0 && options.y === "variance";
 
   const lane = laneLayout(landmarks, uncertainty, px);
   const legend = legendEntries(series, min, max, uncertainty, lane.anyOutside);
-  const legendTop = plotHeight + 54;
+  const legendTop = stripTop + sensitivityHeight(rows);
   const legendWidth = plotWidth + marginRight - 8;
   const subtitle = captionLines(report, options.y).flatMap((line) => wrapToWidth(line, captionWidth, 12));
   const padding = {
     left: marginLeft,
     right: marginRight,
     top: 12 + titleBlockHeight(subtitle.length) + lane.height,
-    bottom: 54 + legendHeight(legend, legendWidth) + 14,
+    bottom: 54 + sensitivityHeight(rows) + legendHeight(legend, legendWidth) + 14,
   };
 
   const marks: Mark[] = [
@@ -99,6 +110,7 @@ export function identifiedSetSpec(report: SolveReport, options: IdentifiedSetCha
     labelBackdropMark(),
     landmarkSymbolMark(),
     landmarkLabelMark(),
+    ...sensitivityMarks(rows, stripTop),
     ...legendMarks(legend, 0, legendTop, legendWidth),
   ];
 
@@ -118,6 +130,7 @@ export function identifiedSetSpec(report: SolveReport, options: IdentifiedSetCha
       ...curves.flatMap(curvePieces).map((piece) => ({ name: `data-${piece.key}`, values: copies(piece.points) })),
       { name: "curve-labels", values: curveLabels(curves) },
       { name: "grid-markers", values: gridMarkerValues(series, s.grid) },
+      ...sensitivityData(rows),
     ],
     scales: [
       { name: "x", type: "linear", domain: [...domain], range: "width", nice: false, zero: false },

@@ -4,6 +4,7 @@ import { landmarkNames } from "../../../src/core/types.js";
 import { landmarkWords, modelAssumptions } from "../../../src/report/conventions.js";
 import { renderIdentifiedSetChart } from "../../../src/report/charts/identifiedSetChart.js";
 import { renderHtmlReport } from "../../../src/report/charts/htmlReport.js";
+import { factorChartTitle } from "../../../src/report/charts/factorChart.js";
 import { formatNumber } from "../../../src/report/format.js";
 import { cautionLine } from "../../../src/report/text/textNotes.js";
 import { landmarkDescriptions } from "../../../src/report/text/textSet.js";
@@ -266,5 +267,30 @@ describe("the HTML report of a full run holds what the text report holds", () =>
       formatNumber(json.pricing.alpha.low.annualised.observed),
     ]);
     expect(all(sectionById(root, "reading"), "li").length).toBeGreaterThanOrEqual(4);
+  });
+});
+
+describe("the k-portfolio chart in the HTML report and the chart file", () => {
+  const dataset = readFileSync(new URL("../../fixtures/factor-model/factor_dataset.csv", import.meta.url), "utf8");
+  const args = ["solve", "f.csv", "--low", "P1", "--high", "P5", "--portfolios", "P1,P2,P3,P4,P5", "--no-uncertainty"];
+
+  test("--chart draws the loadings against the CAPM betas; --report holds that chart and the identified set's", async () => {
+    const { io, written } = fakeIo({ "f.csv": dataset });
+    expect(await run([...args, "--chart", "c.svg", "--report", "r.html", "--format", "json"], io)).toBe(0);
+    const chart = written.get("c.svg")!;
+    expect(chart).toContain(`<title>${factorChartTitle}</title>`);
+    expect(chart).toContain(">P3</text>");
+    const { root } = parseHtml(written.get("r.html")!);
+    const figures = all(sectionById(root, "chart"), "figure");
+    expect(figures).toHaveLength(2);
+    expect(textOf(figures[1]!)).toContain(factorChartTitle);
+    expect(textOf(figures[0]!)).toMatch(/identified set/i);
+  });
+
+  test("without --portfolios the chart file is the identified set's and the report has no factor chart", async () => {
+    const { io, written } = fakeIo({ "f.csv": dataset });
+    expect(await run([...args.slice(0, 6), "--chart", "c.svg", "--report", "r.html"], io)).toBe(0);
+    expect(written.get("c.svg")).not.toContain(factorChartTitle);
+    expect(written.get("r.html")).not.toContain(factorChartTitle);
   });
 });

@@ -1,4 +1,5 @@
 import { describe, expect, test } from "vitest";
+import { correlatedNoiseSet } from "../../../src/core/models/correlatedNoise.js";
 import { landmarkNames } from "../../../src/core/types.js";
 import { landmarkWords } from "../../../src/report/conventions.js";
 import { cautionCaption } from "../../../src/report/charts/common.js";
@@ -212,5 +213,55 @@ describe("renderIdentifiedSetChart", () => {
     expect(shown).toContain("No identified set to draw");
     expect(shown.join(" ")).toContain("No one-factor structure fits these data: the covariance of low and high is");
     expect(hasMark(root, "identified-set-range")).toBe(false);
+  });
+});
+
+describe("the sets under correlated noise (--noise-correlation)", () => {
+  const rhos = [-0.5, 0, 0.3, 0.6, 0.95];
+  function withSensitivity(): SolveReport {
+    const s = typicalSolution();
+    const m = {
+      weight: s.weight,
+      lowVariance: s.moments.low.variance,
+      highVariance: s.moments.high.variance,
+      covariance: s.moments.covariance.lowHigh,
+    };
+    return { ...reportOf(s), sensitivity: rhos.map((rho) => correlatedNoiseSet(m, rho, s.bounds)) };
+  }
+
+  test("draws one segment per rho with a set, from its lower to its upper low beta on the x axis", async () => {
+    const report = withSensitivity();
+    const root = parseSvg(await renderIdentifiedSetChart(report, variance));
+    const x = xAxisScale(root);
+    const withSet = report.sensitivity!.filter((e) => e.bounds.lowBeta.min !== null);
+    // rho = 0.95 is above these books' correlation: no interval (docs/methods.md §2).
+    expect(withSet.map((e) => e.noiseCorrelation)).toEqual([-0.5, 0, 0.3, 0.6]);
+    const segments = markItems(root, "sensitivity-segments");
+    expect(segments).toHaveLength(withSet.length);
+    segments.forEach((segment, i) => {
+      const [x0] = translation(segment);
+      const x1 = x0 + Number(segment.attrs.x2);
+      expect(Math.abs(x0 - x(withSet[i]!.bounds.lowBeta.min!))).toBeLessThan(pixelTolerance);
+      expect(Math.abs(x1 - x(withSet[i]!.bounds.lowBeta.max!))).toBeLessThan(pixelTolerance);
+      expect(segment.attrs["aria-label"]).toContain(`rho = ${withSet[i]!.noiseCorrelation}`);
+    });
+    // A wider set draws a longer segment: rho = 0.6 spans more than rho = 0.
+    const length = (e: (typeof segments)[number]) => Math.abs(Number(e.attrs.x2));
+    expect(length(segments[3]!)).toBeGreaterThan(length(segments[1]!));
+  });
+
+  test("labels every row with its rho, and says so where there is no interval", async () => {
+    const root = parseSvg(await renderIdentifiedSetChart(withSensitivity(), variance));
+    const labels = markItems(root, "sensitivity-labels").map((e) => e.text);
+    expect(labels).toEqual(["rho = -0.5 (as uncorrelated)", "rho = 0 (as uncorrelated)", "rho = 0.3", "rho = 0.6"]);
+    expect(markItems(root, "sensitivity-missing").map((e) => e.text)).toEqual([
+      "rho = 0.95: no interval (rho at or above the books' correlation)",
+    ]);
+  });
+
+  test("draws no strip without --noise-correlation", async () => {
+    const root = parseSvg(await renderIdentifiedSetChart(reportOf(typicalSolution()), variance));
+    expect(hasMark(root, "sensitivity-segments")).toBe(false);
+    expect(hasMark(root, "sensitivity-heading")).toBe(false);
   });
 });

@@ -103,14 +103,27 @@ export function texts(root: Element): string[] {
  * tick labels: each label's text is a value, its translate() x the pixel it is drawn at.
  */
 export function xAxisScale(root: Element): (value: number) => number {
+  return axisScale(root, "X");
+}
+
+/** The y axis as a function from data value to pixel, like xAxisScale (from the tick labels' y). */
+export function yAxisScale(root: Element): (value: number) => number {
+  return axisScale(root, "Y");
+}
+
+function axisScale(root: Element, which: "X" | "Y"): (value: number) => number {
   const axis = descendants(root).find(
-    (e) => e.tag === "g" && classes(e).includes("role-axis") && (e.attrs["aria-label"] ?? "").startsWith("X-axis"),
+    (e) => e.tag === "g" && classes(e).includes("role-axis") && (e.attrs["aria-label"] ?? "").startsWith(`${which}-axis`),
   );
-  expect(axis, "x axis").toBeDefined();
+  expect(axis, `${which} axis`).toBeDefined();
   const labelGroup = descendants(axis!).find((e) => e.tag === "g" && classes(e).includes("role-axis-label"));
-  const ticks = labelGroup!.children
-    .filter((e) => e.tag === "text")
-    .map((e) => ({ value: Number(e.text.replace("\u2212", "-")), x: translation(e)[0] }));
+  const labels = labelGroup!.children.filter((e) => e.tag === "text");
+  // The y axis's labels sit a few pixels off their ticks (Vega's baseline shift): its tick lines give the pixels.
+  const tickGroup = descendants(axis!).find((e) => e.tag === "g" && classes(e).includes("role-axis-tick"));
+  const tickLines = tickGroup?.children.filter((e) => e.tag === "line") ?? [];
+  const positions = which === "X" ? labels.map((e) => translation(e)[0]) : tickLines.map((e) => translation(e)[1]);
+  expect(positions).toHaveLength(labels.length);
+  const ticks = labels.map((e, i) => ({ value: Number(e.text.replace("\u2212", "-")), x: positions[i]! }));
   expect(ticks.length).toBeGreaterThanOrEqual(3);
   const n = ticks.length;
   const mv = ticks.reduce((a, t) => a + t.value, 0) / n;

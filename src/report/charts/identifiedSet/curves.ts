@@ -127,15 +127,19 @@ export function gridMarkerValues(series: readonly Series[], grid: readonly Candi
   );
 }
 
-/** The x domain: the set, the return-implied point and any interval, padded, inside 0 < b_low < 1/w. */
+/**
+ * The x domain: the set, the return-implied point, any interval and the low betas in `more` (the sets
+ * under correlated noise), padded, inside 0 < b_low < 1/w.
+ */
 export function xDomain(
   min: number,
   max: number,
   weight: number,
   landmarks: Landmarks,
   uncertainty: IdentifiedSetUncertainty,
+  more: readonly number[] = [],
 ): [number, number] {
-  const xs = [min, max];
+  const xs = [min, max, ...more];
   if (landmarks.returnImplied !== null) xs.push(landmarks.returnImplied.lowBeta);
   const intervals = [uncertainty.lowBetaInterval, uncertainty.boundIntervals?.min, uncertainty.boundIntervals?.max].filter(
     (i): i is BetaInterval => i !== undefined,
