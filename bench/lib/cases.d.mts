@@ -2,7 +2,6 @@
 import type { Tolerance } from "./check.mjs";
 export const exact: number;
 export function solveTolerance(path: string): Tolerance;
-export function pointTolerance(path: string): Tolerance;
 export function rollTolerance(name: string): Tolerance;
 export function buildCases(): Array<{
   id: string;
@@ -13,6 +12,8 @@ export function buildCases(): Array<{
   variants: Array<{ label: string; args: string[] }>;
   ours: (file: string, out: string) => string[];
   tolerance?: (path: string) => Tolerance;
+  /** A default-settings case of the time-per-row table (timed beside ours on 300 rows). */
+  scaling?: boolean;
   job: {
     job: string;
     pairs: string[][];

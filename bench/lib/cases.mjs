@@ -31,16 +31,6 @@ export function solveTolerance(path) {
 }
 
 /**
- * solveTolerance without the uncertainty section: the numpy peer's long-run variances follow the
- * Newey-West (1994) bandwidth, while `solve`'s default is now the "auto" rule (6 sqrt(T), fixed-b
- * critical values), so the peer still does that work but its numbers are not compared; the factor
- * model, the moments, the fits and the set are.
- */
-export function pointTolerance(path) {
-  return path.startsWith("uncertainty.") ? null : solveTolerance(path);
-}
-
-/**
  * Tolerances by column for roll. The peers form window moments differently from ours (numpy from
  * cumulative sums of the centred series, polars and DuckDB with their rolling/windowed aggregates), so
  * a window's variances carry their sums' rounding: relative 1e-8 for everything, with floors for the
@@ -122,26 +112,6 @@ export function buildCases() {
     ours: (file, out) => ["solve", file, "--lows", lows.join(","), "--highs", highs.join(","), "--format", "jsonl", "--output", out],
     job: { job: "solve", pairs: lows.flatMap((l) => highs.map((h) => [l, h])), rf: null, uncertainty: true },
   });
-  // Time per row at default settings from 1e4 to 1e7 rows (with b2 at 1e6): the fixed cost is ours on
-  // the first 300 rows of the same data, timed in the same rounds (scalingFloor).
-  for (const [id, data, rows] of [
-    ["s1", "daily10k", "10,000"],
-    ["s2", "daily100k", "100,000"],
-    ["s3", "daily10m", "10,000,000"],
-  ]) {
-    add({
-      id,
-      title: `solve, ${rows} daily rows, default uncertainty (time per row)`,
-      data,
-      kind: "solve",
-      scaling: true,
-      ours: (file, out) => solve(file, ["--rf", "rf", "--format", "json", "--output", out]),
-      ...(id === "s3"
-        ? { peers: ["polars"], peerNote: "at 10 million rows the peer is polars alone (the fastest on 1M rows), to keep the run's length" }
-        : {}),
-      job: { job: "solve", pairs: [["low", "high"]], rf: "rf", uncertainty: true },
-    });
-  }
   for (const uncertainty of [false, true]) {
     add({
       id: uncertainty ? "f2" : "f1",
@@ -175,11 +145,30 @@ export function buildCases() {
       out,
     ],
     peers: ["numpy"],
-    tolerance: pointTolerance,
     peerNote:
-      "the factor model's peer is numpy alone (its maximum-likelihood fit by numpy.linalg.eigh, bench/peers/factor.py; polars and DuckDB have no eigen solver); the uncertainty section is computed by both but not compared (bench/lib/cases.mjs, pointTolerance)",
+      "the factor model's peer is numpy alone (its maximum-likelihood fit by numpy.linalg.eigh, bench/peers/factor.py; polars and DuckDB have no eigen solver)",
     job: { job: "solve", pairs: [["P1", "P10"]], rf: "rf", uncertainty: true, portfolios },
   });
+  // Time per row at default settings from 1e4 to 1e7 rows (with b2 at 1e6): the fixed cost is ours on
+  // the first 300 rows of the same data, timed in the same rounds (run.mjs).
+  for (const [id, data, rows] of [
+    ["s1", "daily10k", "10,000"],
+    ["s2", "daily100k", "100,000"],
+    ["s3", "daily10m", "10,000,000"],
+  ]) {
+    add({
+      id,
+      title: `solve, ${rows} daily rows, default uncertainty (time per row)`,
+      data,
+      kind: "solve",
+      scaling: true,
+      ours: (file, out) => solve(file, ["--rf", "rf", "--format", "json", "--output", out]),
+      ...(id === "s3"
+        ? { peers: ["polars"], peerNote: "at 10 million rows the peer is polars alone (the fastest on 1M rows), to keep the run's length" }
+        : {}),
+      job: { job: "solve", pairs: [["low", "high"]], rf: "rf", uncertainty: true },
+    });
+  }
   for (const c of cases) c.job = { weight, dateColumn: c.data === "minutes10m" ? "time" : "date", step: 1, ...c.job };
   return cases;
 }

@@ -96,13 +96,20 @@ describe("rollComparer", () => {
 describe("cases", () => {
   it("covers every case of the benchmark with unique ids", () => {
     const ids = buildCases().map((c) => c.id);
-    expect(ids).toEqual(["a1", "a2", "b1", "b2", "c", "d1", "d2", "e", "f1", "f2", "g"]);
+    expect(ids).toEqual(["a1", "a2", "b1", "b2", "c", "d1", "d2", "e", "f1", "f2", "g", "s1", "s2", "s3"]);
   });
-  it("compares the factor model's case without the uncertainty section, and its factor model exactly", () => {
+  it("compares the factor model's case in full, its factor model exactly", () => {
     const factor = buildCases().find((c) => c.id === "g")!;
     expect(factor.ours("in.csv", "out.json")).toContain("P1,P2,P3,P4,P5,P6,P7,P8,P9,P10");
-    expect(factor.tolerance!("uncertainty.method.lags")).toBeNull();
-    expect(factor.tolerance!("factorModel.portfolios.0.loading")).toBe(exact);
+    const tolerance = factor.tolerance ?? solveTolerance;
+    expect(tolerance("uncertainty.method.lags")).toBe(exact);
+    expect(tolerance("factorModel.portfolios.0.loading")).toBe(exact);
+  });
+  it("marks the default-settings cases from 1e4 to 1e7 rows for the time-per-row table", () => {
+    const scaling = buildCases()
+      .filter((c) => c.scaling)
+      .map((c) => c.id);
+    expect(scaling).toEqual(["b2", "s1", "s2", "s3"]);
   });
   it("runs the CLI with its real options and output file", () => {
     const byId = new Map(buildCases().map((c) => [c.id, c]));
