@@ -50,6 +50,8 @@ export interface At {
   readonly line?: number;
   readonly column?: string;
   readonly value?: string;
+  /** The series of the row, in the long layout (where the column is the value column all series share). */
+  readonly series?: string;
 }
 type Issue<C extends InputIssueCode, Extra = object> = At & { readonly code: C } & Extra;
 
@@ -99,10 +101,7 @@ export type InputIssue =
       "ambiguous-dates",
       { readonly line: number; readonly column: string; readonly value: string; readonly dayFirst: string; readonly monthFirst: string }
     >
-  | Issue<
-      "duplicate-date",
-      { readonly line: number; readonly column: string; readonly value: string; readonly firstLine: number; readonly series?: string }
-    >
+  | Issue<"duplicate-date", { readonly line: number; readonly column: string; readonly value: string; readonly firstLine: number }>
   | Issue<
       "unsorted-dates",
       {

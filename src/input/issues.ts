@@ -32,6 +32,7 @@ function where(issue: At): string {
   let text = issue.source;
   if (issue.line !== undefined) text += ` line ${issue.line}`;
   if (issue.column !== undefined) text += `${issue.line === undefined ? "" : ","} column ${quote(issue.column)}`;
+  if (issue.series !== undefined) text += ` (series ${quote(issue.series)})`;
   return text;
 }
 
@@ -222,7 +223,7 @@ export function describeInputIssue(issue: InputIssue): string {
     case "ambiguous-dates":
       return `${at}: ${quote(issue.value)} reads as ${issue.dayFirst} (day first) or ${issue.monthFirst} (month first), and no date in the column settles it; pass --date-format DD/MM/YYYY or MM/DD/YYYY`;
     case "duplicate-date":
-      return `${at}: the date ${quote(issue.value)}${issue.series === undefined ? "" : ` for series ${quote(issue.series)}`} already appears on line ${issue.firstLine}; remove the repeated row`;
+      return `${at}: the date ${quote(issue.value)} already appears on line ${issue.firstLine}; remove the repeated row`;
     case "unsorted-dates":
       return `${at}: ${quote(issue.value)} comes after ${quote(issue.previousValue)} (line ${issue.previousLine}) but is earlier; sort the file by date, or pass --sort`;
     case "too-few-rows":
