@@ -88,6 +88,9 @@ describe("the long layout names the file's own lines", () => {
     expect(issues).toEqual([
       { code: "duplicate-date", source: "x.csv", line: lines[1], column: "date", value: "Jan 11 2023", firstLine: lines[0], series: HIGH },
     ]);
+    expect(describeInputIssue(issues[0] as InputIssue)).toBe(
+      `x.csv line ${lines[1]}, column "date" (series "${HIGH}"): the date "Jan 11 2023" already appears on line ${lines[0]}; remove the repeated row`,
+    );
   });
 
   it("repeated bad dates: the first few in full, then a count with the first and last line of the rest", () => {
