@@ -65,11 +65,15 @@ const DIGIT_TOKENS: Readonly<Record<number, readonly string[]>> = {
   6: ["YYYYMM", "MMYYYY"],
   8: ["YYYYMMDD", "DDMMYYYY", "MMDDYYYY"],
 };
-/** Layouts compiled so far (a layout that repeats or lacks a part is a string, and fits nothing). */
+/** Layouts compiled so far (a layout that repeats or lacks a part is a string, and fits nothing); at most `COMPILED` kept. */
 const compiled = new Map<string, DateReader | string>();
+const COMPILED = 256;
 const readerOf = (layout: string): DateReader | string => {
   let reader = compiled.get(layout);
-  if (reader === undefined) compiled.set(layout, (reader = compileDateReader(layout)));
+  if (reader === undefined) {
+    if (compiled.size >= COMPILED) compiled.clear();
+    compiled.set(layout, (reader = compileDateReader(layout)));
+  }
   return reader;
 };
 /** A layout with the year first and then the day before the month (suggested only when no other reads a text). */
