@@ -50,6 +50,8 @@ export interface At {
   readonly line?: number;
   readonly column?: string;
   readonly value?: string;
+  /** The series of the row, in the long layout (where the column is the value column all series share). */
+  readonly series?: string;
 }
 type Issue<C extends InputIssueCode, Extra = object> = At & { readonly code: C } & Extra;
 
@@ -91,16 +93,15 @@ export type InputIssue =
         readonly problem?: DateProblem;
         /** How the column's slash dates are read, when the problem is with one. */
         readonly reading?: "day first" | "month first";
+        /** What the value itself suggests (see suggest.ts). */
+        readonly hint?: DateHint;
       }
     >
   | Issue<
       "ambiguous-dates",
       { readonly line: number; readonly column: string; readonly value: string; readonly dayFirst: string; readonly monthFirst: string }
     >
-  | Issue<
-      "duplicate-date",
-      { readonly line: number; readonly column: string; readonly value: string; readonly firstLine: number; readonly series?: string }
-    >
+  | Issue<"duplicate-date", { readonly line: number; readonly column: string; readonly value: string; readonly firstLine: number }>
   | Issue<
       "unsorted-dates",
       {
@@ -148,6 +149,26 @@ export type InputIssue =
     >
   | Issue<"too-many-issues", { readonly omitted: number }>
   | Issue<"internal-error", { readonly detail: string }>;
+
+/** A --date-format layout that reads a value, and the date (ISO) it gives. */
+export interface LayoutReading {
+  readonly layout: string;
+  readonly iso: string;
+}
+
+/** What a date's text that could not be read suggests, from its own shape. */
+export interface DateHint {
+  /** The --date-format layouts that read it (a few), other than the one given. */
+  readonly layouts: readonly LayoutReading[];
+  /** The date (ISO) it reads as without --date-format, when a layout was given. */
+  readonly unformatted?: string;
+  /** When nothing reads it: a layout it fits whose parts name no date, and why. */
+  readonly nearly?: { readonly layout: string; readonly problem: DateProblem };
+  /** When nothing reads it and it ends in a time of day: the layouts that read the date before it (layouts have no time). */
+  readonly withoutTime?: readonly LayoutReading[];
+  /** When nothing reads it: it looks like a spreadsheet's serial day number. */
+  readonly serial?: true;
+}
 
 /** What a requested column was wanted for (used in wording). */
 export type ColumnRole = "date" | "value" | "series id" | "series value";

@@ -4,7 +4,7 @@
  */
 import type { QuoteProblem } from "./engines/grid.js";
 import type { BinaryKind } from "./fileKind.js";
-import type { At, InputIssue, InputIssueCode, InputWarning } from "./issueTypes.js";
+import type { At, InputIssue, InputIssueCode, InputWarning, LayoutReading } from "./issueTypes.js";
 import { maximumInputBytes } from "./limits.js";
 import type { DateProblem } from "./values/dates.js";
 import { MONTH_NAMES } from "./values/dateFormat.js";
@@ -32,6 +32,7 @@ function where(issue: At): string {
   let text = issue.source;
   if (issue.line !== undefined) text += ` line ${issue.line}`;
   if (issue.column !== undefined) text += `${issue.line === undefined ? "" : ","} column ${quote(issue.column)}`;
+  if (issue.series !== undefined) text += ` (series ${quote(issue.series)})`;
   return text;
 }
 
@@ -69,6 +70,67 @@ export function describeDateProblem(problem: DateProblem): string {
     case "no-month-name":
       return `${quote(problem.name)} is not a month name`;
   }
+}
+
+/** Dates read without --date-format, one of each form (each reads as a date: tested). */
+export const UNFORMATTED_EXAMPLES = [
+  "2000-01-31",
+  "2000-01-31T09:30",
+  "20000131",
+  "2000-01",
+  "200001",
+  "2000",
+  "31/01/2000",
+  "01/31/2000",
+  "Jan 31 2000",
+  "31 Jan 2000",
+] as const;
+
+/** A date with a time, as read without --date-format (one of `UNFORMATTED_EXAMPLES`). */
+const TIMED_EXAMPLE = UNFORMATTED_EXAMPLES[1];
+
+/** A layout as it is typed after --date-format (quoted when it holds more than letters, digits and . / -). */
+const layoutArgument = (layout: string): string => (/^[A-Za-z\d./-]+$/.test(layout) ? layout : quote(layout));
+
+/** "it reads as a date without --date-format (2000-01-31) or with --date-format DD.MM.YYYY (2000-01-31) or MM.DD.YYYY (...)" */
+function readsAsDate(unformatted: string | undefined, layouts: readonly LayoutReading[]): string {
+  const ways = layouts.map(({ layout, iso }, k) => `${k === 0 ? "with --date-format " : ""}${layoutArgument(layout)} (${iso})`);
+  if (unformatted !== undefined) ways.unshift(`without --date-format (${unformatted})`);
+  return `it reads as a date ${ways.join(" or ")}`;
+}
+
+/** The forms of dates read, for a value that nothing reads. */
+const ACCEPTED = `dates are read like ${UNFORMATTED_EXAMPLES.join(", ")}, and in other layouts with --date-format (tokens YYYY, MM, M, DD, D and MMM; a year has four digits)`;
+
+/** The "bad-date" message after its place: the value, why it is no date, and what its own shape suggests. */
+function describeBadDate(issue: Extract<InputIssue, { code: "bad-date" }>): string {
+  const { value, dateFormat, hint } = issue;
+  if (value.trim() === "") return "the date is empty; every data row needs a date";
+  if (issue.problem !== undefined) {
+    const how =
+      dateFormat !== undefined
+        ? ` (layout ${dateFormat})`
+        : issue.reading === undefined
+          ? ""
+          : ` read ${issue.reading} (as the column's other dates are)`;
+    const other =
+      hint === undefined || hint.layouts.length === 0
+        ? ""
+        : `, or if the column is in another layout: ${readsAsDate(undefined, hint.layouts)}`;
+    return `${quote(value)} is not a real date${how}: ${describeDateProblem(issue.problem)}; correct it in the file${other}`;
+  }
+  const not = `${quote(value)} is not a date in ${dateFormat === undefined ? "a layout read without --date-format" : `the layout ${dateFormat}`}`;
+  if (hint !== undefined && (hint.unformatted !== undefined || hint.layouts.length > 0))
+    return `${not}; ${readsAsDate(hint.unformatted, hint.layouts)}`;
+  if (hint?.nearly !== undefined)
+    return `${not}; it has the layout ${hint.nearly.layout}, but ${describeDateProblem(hint.nearly.problem)}; correct it in the file`;
+  if (hint?.withoutTime !== undefined)
+    return `${not}; --date-format layouts have no time of day: without its time ${readsAsDate(undefined, hint.withoutTime)}; dates with a time are read without --date-format, written like ${TIMED_EXAMPLE}`;
+  if (hint?.serial === true)
+    return `${not}; it looks like a spreadsheet's serial day number: export the column formatted as dates, e.g. YYYY-MM-DD`;
+  return dateFormat === undefined
+    ? `${quote(value)} is not a date in any layout; ${ACCEPTED}`
+    : `${not} nor in any other; check that the date column is the right one (--date); ${ACCEPTED}`;
 }
 
 /** What each binary format is, and what to do with it. */
@@ -156,25 +218,12 @@ export function describeInputIssue(issue: InputIssue): string {
       return `${at}: ${quote(issue.value)} looks like a number split by the ${delimiterName(issue.delimiter)} delimiter; quote the value, use "." as the decimal separator, or choose another delimiter (--delimiter)`;
     case "malformed-quotes":
       return `${at}: broken quoting (${issue.problem === "quote-inside" ? `${issue.field === undefined ? "a field" : `field ${issue.field}`} ` : ""}${QUOTING[issue.problem]}); every quoted field must start and end with a double quote, and a quote inside one is written twice`;
-    case "bad-date": {
-      if (issue.value.trim() === "") return `${at}: the date is empty; every data row needs a date`;
-      if (issue.problem !== undefined) {
-        const how =
-          issue.dateFormat !== undefined
-            ? ` (layout ${issue.dateFormat})`
-            : issue.reading === undefined
-              ? ""
-              : ` read ${issue.reading} (as the column's other dates are)`;
-        return `${at}: ${quote(issue.value)} is not a real date${how}: ${describeDateProblem(issue.problem)}; correct it in the file`;
-      }
-      return issue.dateFormat === undefined
-        ? `${at}: ${quote(issue.value)} is not a date in a recognised layout (YYYY-MM-DD, YYYYMMDD, YYYY-MM, YYYYMM, YYYY, or D/M/YYYY); pass --date-format, e.g. DD.MM.YYYY`
-        : `${at}: ${quote(issue.value)} is not a date in the layout ${issue.dateFormat}; check --date-format`;
-    }
+    case "bad-date":
+      return `${at}: ${describeBadDate(issue)}`;
     case "ambiguous-dates":
       return `${at}: ${quote(issue.value)} reads as ${issue.dayFirst} (day first) or ${issue.monthFirst} (month first), and no date in the column settles it; pass --date-format DD/MM/YYYY or MM/DD/YYYY`;
     case "duplicate-date":
-      return `${at}: the date ${quote(issue.value)}${issue.series === undefined ? "" : ` for series ${quote(issue.series)}`} already appears on line ${issue.firstLine}; remove the repeated row`;
+      return `${at}: the date ${quote(issue.value)} already appears on line ${issue.firstLine}; remove the repeated row`;
     case "unsorted-dates":
       return `${at}: ${quote(issue.value)} comes after ${quote(issue.previousValue)} (line ${issue.previousLine}) but is earlier; sort the file by date, or pass --sort`;
     case "too-few-rows":

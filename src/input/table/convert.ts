@@ -4,7 +4,7 @@
  * prices: P_t / P_{t-1} - 1, so the first row has no return and is consumed, and a missing
  * price makes both returns that use it missing.
  */
-import type { Extracted } from "./extracted.js";
+import { cellPlace, type Extracted } from "./extracted.js";
 import { isIdentity } from "./arrays.js";
 import type { IssueList } from "../issueList.js";
 import type { ReadOptions } from "../options.js";
@@ -43,8 +43,7 @@ export function toReturns(data: Extracted, order: Int32Array, options: ReadOptio
       issues.add({
         code: "extreme-value",
         source,
-        line: data.lines[row] as number,
-        column: data.columns[c] as string,
+        ...cellPlace(data, c, row),
         value: data.rawText(c, row),
         decimalValue: value,
         limit: EXTREME_LIMIT,
@@ -54,15 +53,13 @@ export function toReturns(data: Extracted, order: Int32Array, options: ReadOptio
   };
   const values = data.values.map((column, c) => {
     if (input === "returns" && scale === 1 && inOrder) return checkExtremes(column, c);
-    const name = data.columns[c] as string;
     const out = new Float64Array(rows.length);
     let checked = true;
     if (input === "prices") {
       for (const row of order) {
         const price = column[row] as number;
         if (price <= 0) checked = false;
-        if (price <= 0)
-          issues.add({ code: "non-positive-price", source, line: data.lines[row] as number, column: name, value: data.rawText(c, row) });
+        if (price <= 0) issues.add({ code: "non-positive-price", source, ...cellPlace(data, c, row), value: data.rawText(c, row) });
       }
       for (let k = 0; k < rows.length; k++)
         out[k] = (column[order[k + 1] as number] as number) / (column[order[k] as number] as number) - 1;

@@ -1,9 +1,10 @@
 /**
  * Which column holds the dates when `--date` is not given: the first column named like a date
  * ("Date", "Trade Date", "Month", "Period", "Timestamp", ...) whose first data rows are all dates;
- * else the first column whose first data rows are all dates; else the first column (whose values
- * then say why they are no dates). Columns that play another role (the requested series in the
- * wide layout; the id and value columns in the long layout) are never candidates.
+ * else the first column whose first data rows are all dates; else the first column named like a
+ * date, or else the first column (whose values then say why they are no dates). Columns that play another
+ * role (the requested series in the wide layout; the id and value columns in the long layout) are
+ * never candidates.
  */
 import type { Grid } from "../engines/grid.js";
 import type { TableLocation } from "./layout.js";
@@ -27,5 +28,8 @@ export function chooseDateColumn(
   // The first column keeps its place when it holds dates (the common wide file).
   if (candidates[0]?.index === 0 && dated(0)) return header[0] ?? "";
   const any = candidates.find(({ index }) => dated(index));
-  return any?.name ?? header[0] ?? "";
+  if (any !== undefined) return any.name;
+  // No column is all dates: the one named like a date (else the first) is read, so that its values
+  // say why they are no dates (the first column even when asked for as a series, which is then said).
+  return candidates.find(({ name }) => DATE_NAME.test(name))?.name ?? header[0] ?? "";
 }

@@ -44,6 +44,7 @@ export function extractLong(
     return null;
   }
   const [dateIndex, idIndex, valueIndex] = resolved as [number, number, number];
+  const valueColumn = header[valueIndex] as string;
   const all = int32Of(location.endRow - location.firstDataRow, (i) => location.firstDataRow + i);
   if (
     !checkFieldCounts(
@@ -83,7 +84,7 @@ export function extractLong(
   const fieldSlots = new Int32Array(header.length).fill(-1);
   fieldSlots[valueIndex] = 0;
   for (let i = 0; i < rows.length; i++) grid.readNumbers(rows[i] as number, fieldSlots, [values], i);
-  settleCells(grid, rows, valueIndex, options.valueColumn ?? "", values, sentinels, options, issues);
+  settleCells(grid, rows, valueIndex, valueColumn, values, sentinels, options, issues);
   const dated = readDates(grid, rows, dateIndex, dateColumn, options, issues);
   if (dated === null || !issues.empty) return null;
 
@@ -130,6 +131,12 @@ export function extractLong(
     rawText: (column, at) => {
       const i = (source2[column] as Int32Array)[at] as number;
       return i < 0 ? "" : grid.field(rows[i] as number, valueIndex);
+    },
+    // A series' value on a date is on that series' own row (lines holds the first row of each date).
+    cellAt: (column, at) => {
+      const i = (source2[column] as Int32Array)[at] as number;
+      const line = grid.line(i < 0 ? (rows[firsts[at] as number] as number) : (rows[i] as number));
+      return { line, column: valueColumn, series: series[column] as string };
     },
     rowsRead: all.length,
     ordered: true,

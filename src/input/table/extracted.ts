@@ -23,6 +23,11 @@ export interface Extracted {
   readonly complete: boolean;
   /** The file text behind values[column][row], for messages. */
   readonly rawText: (column: number, row: number) => string;
+  /**
+   * Where values[column][row] is in the file, when not on line lines[row] in column columns[column]:
+   * the long layout's value of a series on a date is on that series' own row, in the value column.
+   */
+  readonly cellAt?: (column: number, row: number) => CellPlace;
   /** Data rows in the file. */
   readonly rowsRead: number;
   /** True when rows are already in date order (the long layout sorts while pivoting). */
@@ -41,4 +46,16 @@ export function isoAt(data: Extracted, i: number): string {
 /** The date of row i as written. */
 export function dateTextAt(data: Extracted, i: number): string {
   return data.dateTexts === null ? plainIsoDateOfKey(data.keys[i] as number) : (data.dateTexts[i] as string);
+}
+
+/** The place of a value in the file: its line and column, and its series in the long layout. */
+export interface CellPlace {
+  readonly line: number;
+  readonly column: string;
+  readonly series?: string;
+}
+
+/** Where values[column][row] of `data` is in the file. */
+export function cellPlace(data: Extracted, column: number, row: number): CellPlace {
+  return data.cellAt?.(column, row) ?? { line: data.lines[row] as number, column: data.columns[column] as string };
 }

@@ -5,6 +5,9 @@
  * for the whole column: the reading under which every slash date is a real calendar date wins;
  * when both readings work and they differ for some date, the column is ambiguous.
  */
+import type { DateHint } from "../issueTypes.js";
+import { SIMILAR_SHOWN } from "../issueList.js";
+import { dateHint } from "../suggest.js";
 import { compileDateReader, parseMonthNameDate, readMonthNameDate } from "./dateFormat.js";
 import {
   dateOnly,
@@ -18,11 +21,33 @@ import {
   type SlashReadings,
 } from "./dates.js";
 
-/** Why a text of the column that could not be read is no date, when it fits a layout (see `DateProblem`). */
+/**
+ * Why a text of the column that could not be read is no date, when it fits a layout (see
+ * `DateProblem`), and what the text itself suggests (see `dateHint`).
+ */
 export interface DateExplanation {
-  readonly problem: DateProblem;
+  readonly problem?: DateProblem;
   /** How the column's slash dates were read, when this is one. */
   readonly reading?: "day first" | "month first";
+  readonly hint?: DateHint;
+}
+
+/**
+ * Texts given a hint per column: the issue list shows only the first few of a kind in full, and a
+ * column of unreadable dates is then explained in bounded time.
+ */
+const HINTED = SIMILAR_SHOWN;
+
+/** `explain` with the hint of each of the first `HINTED` texts it is asked about. */
+function withHints(explain: (text: string) => DateExplanation | null, dateFormat?: string): (text: string) => DateExplanation | null {
+  let left = HINTED;
+  return (text) => {
+    const found = explain(text);
+    if (left <= 0) return found;
+    left--;
+    const hint = dateHint(text, dateFormat, found?.problem !== undefined);
+    return hint === null ? found : { ...found, hint };
+  };
 }
 
 /**
@@ -47,7 +72,7 @@ export function readDateColumn(texts: readonly string[], dateFormat?: string): D
     const keys = new Float64Array(texts.length);
     const isos = new Array<string>(texts.length);
     texts.forEach((text, i) => set(keys, isos, i, dateOnly(reader(text))));
-    return { kind: "dates", keys, isos, explain: (text) => problemOf(reader(text)) };
+    return { kind: "dates", keys, isos, explain: withHints((text) => problemOf(reader(text)), dateFormat) };
   }
   const keys = new Float64Array(texts.length);
   let isos = texts as string[];
@@ -72,7 +97,7 @@ export function readDateColumn(texts: readonly string[], dateFormat?: string): D
       if (readings) slashes.push({ index, readings });
     }
   }
-  if (slashes.length === 0) return { kind: "dates", keys, isos, explain: (text) => problemOf(readUnambiguousDate(text), text) };
+  if (slashes.length === 0) return { kind: "dates", keys, isos, explain: withHints((text) => problemOf(readUnambiguousDate(text), text)) };
   const dayFirstFails = slashes.filter((s) => s.readings.dayFirst === null).length;
   const monthFirstFails = slashes.filter((s) => s.readings.monthFirst === null).length;
   if (dayFirstFails === 0 && monthFirstFails === 0) {
@@ -91,7 +116,7 @@ export function readDateColumn(texts: readonly string[], dateFormat?: string): D
     const problem = slashProblem(text, useDayFirst);
     return problem === null ? problemOf(readUnambiguousDate(text), text) : { problem, ...reading };
   };
-  return { kind: "dates", keys, isos, explain };
+  return { kind: "dates", keys, isos, explain: withHints(explain) };
 }
 
 /** The explanation of a read that fitted a layout but gave no date. */
