@@ -271,6 +271,11 @@ export function describeInputIssue(issue: InputIssue): string {
 }
 
 /** The message for one warning. */
+/** "line 4" or "lines 2 to 4": the title lines directly above a header. */
+function skippedTitleLines(header: number, count: number): string {
+  return count === 1 ? `line ${header - 1}` : `lines ${header - count} to ${header - 1}`;
+}
+
 export function describeInputWarning(warning: InputWarning): string {
   switch (warning.code) {
     case "looks-like-percent":
@@ -280,6 +285,6 @@ export function describeInputWarning(warning: InputWarning): string {
     case "other-blocks":
       return `${warning.source}: the file holds ${warning.blocks} tables; table ${warning.used} was read; pass --block N to read table N instead`;
     case "skipped-lines":
-      return `${warning.source}: ${warning.count} line(s) before the header on line ${warning.line} were skipped as titles; if line ${warning.line} is not the header row, remove the lines above the header`;
+      return `${warning.source}: the header is on line ${warning.line}; ${skippedTitleLines(warning.line, warning.count)} above it, read as its title, ${warning.count === 1 ? "was" : "were"} skipped; if line ${warning.line} is not the header row, remove the lines above the header`;
   }
 }

@@ -93,7 +93,7 @@ describe("reading warnings as diagnostics", () => {
     expect(await run(["solve", "t.csv", "--low", "Stillwater Low Vol", "--high", "Kestrel High Beta", ...percent], io)).toBe(exitCodes.ok);
     expect(count(stderr(), skipped)).toBe(1);
     const diagnostics = stdout().slice(stdout().lastIndexOf("Diagnostics"));
-    expect(diagnostics.replace(/\s+/g, " ")).toContain("were skipped as titles");
+    expect(diagnostics.replace(/\s+/g, " ")).toContain("read as its title, was skipped");
     // The core's own diagnostics stay in the report only.
     expect(
       stderr()

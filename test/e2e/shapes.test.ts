@@ -28,6 +28,8 @@ describe("a file with title lines and several tables", () => {
       ["other-blocks", "warning"],
     ]);
     for (const d of reading) expect(occurrences(run.stderr, d.message)).toBe(1);
+    // The header is line 5; line 4 ("  Monthly returns") is its title; lines 1-3 are text above the tables.
+    expect(reading[0].message).toContain("the header is on line 5; line 4 above it, read as its title, was skipped");
     expect(reading[1].message).toContain("holds 3 tables; table 1 was read; pass --block N");
   });
 
