@@ -33,6 +33,12 @@ describe("a file with title lines and several tables", () => {
     expect(reading[1].message).toContain("holds 3 tables; table 1 was read; pass --block N");
   });
 
+  it("counts the reading warnings in the summary block, as the Diagnostics section lists them", () => {
+    const run = betabound(["solve", titled, ...books, "--brief"]);
+    expect(run.code, run.stderr).toBe(0);
+    expect(run.stdout).toMatch(/Diagnostics +2 warnings \(skipped-lines, other-blocks\)/);
+  });
+
   it("reads the annual table with --block 2 and refuses a table the file does not hold", () => {
     const annual = betabound(["solve", titled, ...books, "--block", "2", "--format", "json"]);
     expect(annual.code, annual.stderr).toBe(0);

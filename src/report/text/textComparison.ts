@@ -9,6 +9,7 @@
 import { formatCount, formatNumber } from "../format.js";
 import { type Section, sectionLines } from "../blocks.js";
 import { printable, type Style } from "../layout.js";
+import { reportDiagnostics } from "../diagnosticList.js";
 import type { SolveReport } from "../types.js";
 import { alphaShown, lowAlphaInterval, percentLevel } from "./textSummary.js";
 
@@ -37,7 +38,9 @@ function reportRow(report: SolveReport, withSource: boolean): string[] {
   const { input, solution: s, uncertainty: u, pricing } = report;
   const show = alphaShown(report);
   const alpha = lowAlphaInterval(report);
-  const serious = s.diagnostics.filter((d) => d.severity !== "info").map((d) => d.code);
+  const serious = reportDiagnostics(report)
+    .filter((d) => d.severity !== "info")
+    .map((d) => d.code);
   return [
     pairLabel(input.source, input.lowColumn, input.highColumn, withSource),
     formatCount(s.observations),

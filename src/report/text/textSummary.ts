@@ -6,7 +6,7 @@
  * HTML report alike.
  */
 
-import type { Diagnostic } from "../../core/diagnostics.js";
+import { type ReportDiagnostic, reportDiagnostics } from "../diagnosticList.js";
 import { normalQuantile } from "../../core/numerics/normal.js";
 import { formatCount, formatNumber } from "../format.js";
 import { type Section, sectionLines } from "../blocks.js";
@@ -54,8 +54,8 @@ function alphaText(report: SolveReport): string {
 }
 
 /** The diagnostics by severity and code: "no warnings or errors", or "1 warning (code)"; notes last. */
-export function diagnosticsSummary(diagnostics: readonly Diagnostic[]): string {
-  const count = (severity: Diagnostic["severity"], word: string): string[] => {
+export function diagnosticsSummary(diagnostics: readonly ReportDiagnostic[]): string {
+  const count = (severity: ReportDiagnostic["severity"], word: string): string[] => {
     const codes = diagnostics.filter((d) => d.severity === severity).map((d) => d.code);
     return codes.length === 0 ? [] : [`${codes.length} ${word}${codes.length === 1 ? "" : "s"} (${codes.join(", ")})`];
   };
@@ -82,7 +82,7 @@ export function summaryFields(report: SolveReport): SummaryField[] {
     ["Low book CAPM beta", formatNumber(s.capm.low.beta)],
     ["Low book CAPM alpha", alphaText(report)],
     ...(report.pricing === null ? [] : [["Noise explains it?", pricingSentence(report.pricing)] as const]),
-    ["Diagnostics", diagnosticsSummary(s.diagnostics)],
+    ["Diagnostics", diagnosticsSummary(reportDiagnostics(report))],
   ];
 }
 
