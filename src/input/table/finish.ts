@@ -2,7 +2,7 @@
 import { arrayOf, float64Of, identityOf, int32Of, isIdentity } from "./arrays.js";
 import { success, failure, type Result } from "../../core/result.js";
 import { dateTextAt, isoAt, type Extracted } from "./extracted.js";
-import { plainIsoDateOfKey } from "../values/dates.js";
+import { PLAIN_DATE_FORM, stampIso } from "../values/dateStamps.js";
 import { detectFrequency, frequencyFromPeriods } from "../values/frequency.js";
 import type { IssueList } from "../issueList.js";
 import type { InputIssue } from "../issues.js";
@@ -95,11 +95,12 @@ export function finishTable(data: Extracted, options: ReadOptions, issues: Issue
   if (isos !== null) dates = identity ? isos : arrayOf(keptRows.length, (i) => isos[keptRows[i] as number] as string);
   else keptKeys = identity ? data.keys : float64Of(keptRows.length, (i) => data.keys[keptRows[i] as number] as number);
   const plainKeys = keptKeys;
+  const form = data.dateForm ?? PLAIN_DATE_FORM;
   return success({
     source: options.source,
     dateColumn: data.dateColumn,
     get dates(): readonly string[] {
-      return (dates ??= arrayOf((plainKeys as Float64Array).length, (i) => plainIsoDateOfKey((plainKeys as Float64Array)[i] as number)));
+      return (dates ??= arrayOf((plainKeys as Float64Array).length, (i) => stampIso((plainKeys as Float64Array)[i] as number, form)));
     },
     firstDate: isoAt(data, keptRows[0] as number),
     lastDate: isoAt(data, keptRows[keptRows.length - 1] as number),
