@@ -240,6 +240,33 @@ describe("a file of date-time stamps", () => {
     );
   });
 
+  it("carries the column's form from one kernel chunk to the next (chunks of 16,384 rows here)", () => {
+    const rows = 2 * 16_384 + 100;
+    const form: Form = { time: true, t: false, seconds: false, digits: 0, zulu: false };
+    const stamp = (r: number): string => written(Date.UTC(2020, 0, 1) + r * 60_000, form);
+    const line = (r: number, text = stamp(r)): string => `${text},${(r % 7) / 1000},${(r % 5) / 500}`;
+    const options: ReadOptions = { source: "stamps.csv", columns: ["A", "B"] };
+    const cases = {
+      // Every stamp of one form: read, the last date made from its key.
+      uniform: (r: number) => line(r),
+      // The second chunk written with "T", and a duplicate in the first: its message quotes it as written.
+      switched: (r: number) => (r === 100 ? line(r, stamp(99)) : r >= 16_384 ? line(r, stamp(r).replace(" ", "T")) : line(r)),
+      // The last row repeats the one before, written with "T".
+      lastDiffers: (r: number) => (r === rows - 1 ? line(r, stamp(r - 1).replace(" ", "T")) : line(r)),
+    };
+    const values: string[][] = [];
+    for (const make of Object.values(cases)) {
+      const bytes = new TextEncoder().encode(`Time,A,B\n${Array.from({ length: rows }, (_, r) => make(r)).join("\n")}\n`);
+      const inKernel = kernelBytes(bytes.length);
+      inKernel.set(bytes);
+      const read = readReturnsFromBytes(inKernel, options);
+      expectSameRead(read, throughText(bytes, options, "general"));
+      values.push(read.ok ? [read.value.lastDate] : read.issues.map((i) => ("value" in i ? i.value : "")));
+    }
+    const last = new Date(Date.UTC(2020, 0, 1) + (rows - 1) * 60_000).toISOString().slice(0, 19);
+    expect(values).toEqual([[last], [stamp(99)], [stamp(rows - 2).replace(" ", "T")]]);
+  });
+
   it("mostly reads (so the comparison above is not between two failures)", () => {
     const specs = fc.sample(stampFile, { seed: 20261208, numRuns: 100 });
     const read = specs.filter((spec) => {
