@@ -38,6 +38,14 @@ export function welfordCrossProducts(series: readonly ArrayLike<number>[]): Cros
   if (series.length === 3 && series.every((s) => s instanceof Float64Array)) {
     return crossProducts3(series[0] as Float64Array, series[1] as Float64Array, series[2] as Float64Array);
   }
+  if (series.length === 2 && series.every((s) => s instanceof Float64Array)) {
+    // The unrolled pass on (x, y, y): each mean and each sum S_ij is updated from series i and j
+    // alone, so its first two rows and columns are the two-series pass's, bit for bit.
+    const x = series[0] as Float64Array;
+    const { n, means, sums } = crossProducts3(x, series[1] as Float64Array, series[1] as Float64Array);
+    const [s0, s1] = sums as [readonly number[], readonly number[]];
+    return { n, means: means.slice(0, 2), sums: [s0.slice(0, 2), s1.slice(0, 2)] };
+  }
   const k = series.length;
   const n = k === 0 ? 0 : series[0]!.length;
   for (const s of series) {

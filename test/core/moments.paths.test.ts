@@ -21,6 +21,19 @@ describe("welfordCrossProducts", () => {
       { seed: 20261202, numRuns: 300 },
     );
   });
+
+  it("gives the same bits from the two-series path (Float64Array) and the general path, across chunks", () => {
+    fc.assert(
+      fc.property(rowsOf(2), (rows) => {
+        const columns = [0, 1].map((i) => columnOf(rows, i));
+        expect(welfordCrossProducts(columns.map((c) => Float64Array.from(c)))).toEqual(welfordCrossProducts(columns));
+      }),
+      { seed: 20261204, numRuns: 300 },
+    );
+    const z = normals(7);
+    const long = [0, 1].map((i) => Array.from({ length: 2 * CHUNK + 5 }, () => 1e-3 * (i + 1) * z() + 0.5));
+    expect(welfordCrossProducts(long.map((c) => Float64Array.from(c)))).toEqual(welfordCrossProducts(long));
+  });
 });
 
 describe("the excess passes of solve (series formed on the fly)", () => {

@@ -72,6 +72,29 @@ describe("detectFrequency", () => {
     expect(detectFrequency([0, 10, 21].map((d) => d * DAY_MS))).toBeNull();
   });
 
+  it("gives what the median of all gaps gives when one gap that is not whole days is most of them", () => {
+    const BANDS = [
+      ["daily", 0.5, 4.5],
+      ["weekly", 5, 10],
+    ] as const;
+    const reference = (keys: readonly number[]): string | null => {
+      const gaps = keys.slice(1).map((k, i) => (k - (keys[i] as number)) / DAY_MS);
+      const gap = median(gaps);
+      return BANDS.find(([, low, high]) => gap >= low && gap <= high)?.[0] ?? null;
+    };
+    // Gaps in milliseconds: a minute, half days and four and a half days (band edges), a week and a half.
+    const common = fc.constantFrom(60_000, DAY_MS / 2, 4.5 * DAY_MS, 10.5 * DAY_MS, 0.25 * DAY_MS);
+    const other = fc.oneof(common, fc.integer({ min: 1, max: 20 * DAY_MS }));
+    fc.assert(
+      fc.property(common, fc.array(fc.tuple(fc.boolean(), other), { minLength: 1, maxLength: 60 }), (main, draws) => {
+        const keys = [0];
+        for (const [same, g] of draws) keys.push((keys[keys.length - 1] as number) + (same ? main : g));
+        expect(detectFrequency(keys)?.name ?? null).toBe(reference(keys));
+      }),
+      { seed: 20261204, numRuns: 2000 },
+    );
+  });
+
   it("names an explicit periods-per-year after the nearest standard frequency", () => {
     expect(frequencyFromPeriods(12)).toEqual({ name: "monthly", periodsPerYear: 12, from: "option" });
     expect(frequencyFromPeriods(365)).toEqual({ name: "daily", periodsPerYear: 365, from: "option" });

@@ -3,7 +3,8 @@
  * text, for the common case where the bytes are plain ASCII (after an optional UTF-8 byte-order
  * mark) without NUL, quote characters or lone CR. Then each byte is one character of the text
  * `decodeText` would give, so every answer is the one the fast engine gives on that text; the file
- * is never turned into one JS string, and numbers and plain ISO dates are read from the bytes.
+ * is never turned into one JS string, and numbers and ISO date stamps (plain dates and the common
+ * date-times: values/dateStamps.ts) are read from the bytes.
  *
  * The read is speculative: the rows are found first, and the bytes are checked as they are read
  * (`readRows` checks the rows it reads) or at the end (`clean` checks the rest). A caller must
@@ -16,6 +17,7 @@
  * are found by plainLines.ts; large tables are read through the row kernel (byteGridKernel.ts).
  */
 import { DAY_MS, daysInMonth, plainDateKey } from "../values/dates.js";
+import { NO_FORM, PLAIN_DATE_FORM, scanStamp, stampScan } from "../values/dateStamps.js";
 import { parseDecimal } from "../values/numbers.js";
 import { kernelRange, type RowScan } from "./byteGridKernel.js";
 import { scanDecimal } from "./byteNumbers.js";
@@ -166,9 +168,9 @@ class ByteGrid implements ByteGridOf {
     counts: Int32Array,
     dateIndex: number,
     dateKeys: Float64Array,
-  ): { readonly plainDates: boolean; readonly withNaN: readonly boolean[] } {
+  ): { readonly plainDates: boolean; readonly dateForm: number; readonly withNaN: readonly boolean[] } {
     // Only a field handed to parseDecimal can give NaN.
-    const state: RowScan = { plain: true, month: -1, monthKey: 0, monthLength: 0, unplain: 0, withNaN: out.map(() => false) };
+    const state: RowScan = { plain: true, ...stampScan(), unplain: 0, withNaN: out.map(() => false) };
     const kernel = count >= KERNEL_MIN_ROWS && this.d < 128 ? rowKernelFor(this.bytes) : null;
     const chunk = kernel === null ? 0 : kernel.kernel.chunkRows(slots.length, out.length);
     if (kernel === null || chunk === 0) this.scanRange(first, 0, count, slots, out, counts, dateIndex, dateKeys, state);
@@ -178,7 +180,7 @@ class ByteGrid implements ByteGridOf {
       this.checkedFrom = first;
       this.checkedTo = first + count;
     }
-    return { plainDates: state.plain, withNaN: state.withNaN };
+    return { plainDates: state.plain, dateForm: state.form === NO_FORM ? PLAIN_DATE_FORM : state.form, withNaN: state.withNaN };
   }
 
   /** Rows first + [from, to) of readRows, in JavaScript, continuing `state`. */
@@ -196,7 +198,7 @@ class ByteGrid implements ByteGridOf {
     const { bytes, d, starts } = this;
     const lastRow = this.openEnd ? starts.length - 2 : -1;
     const { withNaN } = state;
-    let { plain, month, monthKey, monthLength } = state;
+    let { plain } = state;
     // Or of UNPLAIN over every byte of the rows that the loop below does not otherwise check.
     let unplain = state.unplain;
     for (let k = from; k < to; k++) {
@@ -205,7 +207,10 @@ class ByteGrid implements ByteGridOf {
       if (row === lastRow) {
         counts[k] = this.readNumbers(row, slots, out, k);
         out.forEach((values, slot) => (withNaN[slot] ||= Number.isNaN(values[k] as number)));
-        if (plain) plain = this.plainIsoDates(Int32Array.of(row), dateIndex, dateKeys.subarray(k, k + 1));
+        if (plain) {
+          const p = dateIndex === 0 ? start : this.fieldStart(row, dateIndex, this.end(row));
+          plain = p >= 0 && scanStamp(bytes, p, this.end(row), d, dateKeys, k, state) >= 0;
+        }
         if (!isPlain(bytes, start, bytes.length)) unplain = 1;
         continue;
       }
@@ -230,25 +235,11 @@ class ByteGrid implements ByteGridOf {
           }
         } else {
           if (f === dateIndex && plain) {
-            // plainIsoDates on this field (see there), with the month of the previous date kept.
-            const p = i;
+            // The stamp (see scanStamp), with the month of the previous date and the column's form kept.
             dated = true;
-            if (p + 10 > end || (p + 10 < end && bytes[p + 10] !== d) || bytes[p + 4] !== 45 || bytes[p + 7] !== 45) plain = false;
-            else {
-              const y = digit(bytes, p) * 1000 + digit(bytes, p + 1) * 100 + digit(bytes, p + 2) * 10 + digit(bytes, p + 3);
-              const m = digit(bytes, p + 5) * 10 + digit(bytes, p + 6);
-              const day = digit(bytes, p + 8) * 10 + digit(bytes, p + 9);
-              if (y * 100 + m !== month) {
-                monthKey = plainDateKey(y, m, 1);
-                month = y * 100 + m;
-                monthLength = daysInMonth(y, m);
-              }
-              if (!(day >= 1 && day <= monthLength) || Number.isNaN(monthKey)) plain = false;
-              else {
-                dateKeys[k] = monthKey + (day - 1) * DAY_MS;
-                i = p + 10;
-              }
-            }
+            const after = scanStamp(bytes, i, end, d, dateKeys, k, state);
+            if (after < 0) plain = false;
+            else i = after;
           }
           for (; i < end; i++) {
             const b = bytes[i] as number;
@@ -264,9 +255,6 @@ class ByteGrid implements ByteGridOf {
       if (!dated) plain = false;
     }
     state.plain = plain;
-    state.month = month;
-    state.monthKey = monthKey;
-    state.monthLength = monthLength;
     state.unplain = unplain;
   }
 

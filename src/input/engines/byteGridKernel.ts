@@ -4,15 +4,15 @@
  * flagged (and the open last row) is read by the grid's JavaScript reader, in row order, so that the
  * result is that reader's bit for bit.
  */
+import type { StampScan } from "../values/dateStamps.js";
 import type { KernelChunk, RowKernel } from "./rowKernel.js";
 
-/** What readRows carries from row to row (and between the kernel and scanRange). */
-export interface RowScan {
+/**
+ * What readRows carries from row to row (and between the kernel and scanRange): whether every date
+ * so far is a plain stamp (see scanStamp), the previous date's month and the column's form.
+ */
+export interface RowScan extends StampScan {
   plain: boolean;
-  /** The month of the previous plain date (y * 100 + m), its first day's key and its length. */
-  month: number;
-  monthKey: number;
-  monthLength: number;
   /** Or of UNPLAIN over the bytes read. */
   unplain: number;
   readonly withNaN: boolean[];
@@ -41,8 +41,8 @@ export interface RowRanges {
 
 /**
  * readRows through the row kernel (rowKernel.ts), chunk by chunk: the numbers, field counts and
- * date digits of the simple rows come from the kernel, their date keys are formed here as
- * scanRange forms them, and every row the kernel flagged (and the open last row) is read by
+ * date keys of the simple rows come from the kernel (formed as scanStamp forms them, with the
+ * column's form carried from chunk to chunk), and every row the kernel flagged (and the open last row) is read by
  * scanRange, in row order, so that the result is scanRange's bit for bit.
  */
 export function kernelRange(
@@ -64,11 +64,13 @@ export function kernelRange(
     const k1 = Math.min(count, k0 + chunk);
     const kEnd = lastRow >= first + k0 && lastRow < first + k1 ? lastRow - first : k1;
     if (kEnd > k0) {
-      const read = kernel.scan(base, grid.starts, first + k0, first + kEnd, slots, out.length, grid.d, dateIndex);
+      const read = kernel.scan(base, grid.starts, first + k0, first + kEnd, slots, out.length, grid.d, dateIndex, state.form);
       out.forEach((values, slot) => values.set(read.values(slot), k0));
       counts.set(read.counts, k0);
       if (state.plain) dateKeys.set(read.keys, k0);
+      // A date that is no date, a stamp of another form than the column's: the text path reads them.
       if (read.badDate) state.plain = false;
+      state.form = read.form;
       if (read.flagged > 0) settleFlagged(grid, read, kernel, base, first, k0, kEnd, slots, out, counts, dateIndex, dateKeys, state);
     }
     if (kEnd < k1) grid.scanRange(first, kEnd, k1, slots, out, counts, dateIndex, dateKeys, state);

@@ -33,9 +33,10 @@ export interface Grid {
   plainIsoDates?(rows: Int32Array, index: number, keys: Float64Array): boolean;
   /**
    * Optional, one pass over the rows [first, first + count): for each k, counts[k] =
-   * readNumbers(first + k, slots, out, k), and plainIsoDates for field `dateIndex` (which no slot
-   * reads) of those rows into dateKeys, whose result is `plainDates`. withNaN[slot] is false only
-   * when no value written to out[slot] is NaN.
+   * readNumbers(first + k, slots, out, k), and the keys of field `dateIndex` (which no slot reads)
+   * of those rows into dateKeys: `plainDates` is true when every one is a stamp of one form,
+   * `dateForm` (see scanStamp in values/dateStamps.ts; PLAIN_DATE_FORM is plainIsoDates' plain
+   * "YYYY-MM-DD"). withNaN[slot] is false only when no value written to out[slot] is NaN.
    */
   readRows?(
     first: number,
@@ -45,7 +46,7 @@ export interface Grid {
     counts: Int32Array,
     dateIndex: number,
     dateKeys: Float64Array,
-  ): { readonly plainDates: boolean; readonly withNaN: readonly boolean[] };
+  ): { readonly plainDates: boolean; readonly dateForm: number; readonly withNaN: readonly boolean[] };
 }
 
 /**

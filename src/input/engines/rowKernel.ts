@@ -128,8 +128,13 @@ export interface KernelChunk {
   /** 0: read; 1: the caller reads the row; 2: the caller parses the long numbers (NaN values). */
   readonly flags: Uint8Array;
   readonly flagged: number;
-  /** True when some row that was read has a well-formed date that is not in the calendar. */
+  /**
+   * True when some row that was read has a well-formed stamp that is not a real date and time, or
+   * one of another form than the column's (see scanStamp).
+   */
   readonly badDate: boolean;
+  /** The column's stamp form after the chunk (NO_FORM while no stamp was read). */
+  readonly form: number;
 }
 
 export class RowKernel {
@@ -189,7 +194,8 @@ export class RowKernel {
 
   /**
    * Reads rows [from, to) of a file at `base` whose rows start at `starts` (offsets into the file, as
-   * PlainLines.starts; every row must end with a line feed), at most chunkRows(...) rows.
+   * PlainLines.starts; every row must end with a line feed), at most chunkRows(...) rows; `form` is
+   * the date column's stamp form so far (see scanStamp; -1 before the first stamp).
    */
   scan(
     base: number,
@@ -200,6 +206,7 @@ export class RowKernel {
     columns: number,
     delimiter: number,
     dateIndex: number,
+    form = -1,
   ): KernelChunk {
     const count = to - from;
     const align8 = (n: number): number => (n + 7) & ~7;
@@ -213,6 +220,7 @@ export class RowKernel {
     const flagsAt = countsAt + 4 * count;
     const { words, doubles } = this;
     words.set(slots, slotsAt >> 2);
+    words[(statusAt >> 2) + 1] = form;
     words.set(starts.subarray(from, to + 1), startsAt >> 2);
     const flagged = this.exports.readRows(
       startsAt,
@@ -237,6 +245,7 @@ export class RowKernel {
       flags: this.bytes.subarray(flagsAt, flagsAt + count),
       flagged,
       badDate: words[statusAt >> 2] !== 0,
+      form: words[(statusAt >> 2) + 1] as number,
     };
   }
 }

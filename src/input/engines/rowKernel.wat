@@ -2,14 +2,16 @@
 ;; holds the meaning of its output, and scanRange there is the JavaScript it must agree with.
 ;;
 ;; It reads the simple rows of a plain CSV: the row has exactly `nf` fields; every other byte is
-;; plain (no NUL, CR, double quote or non-ASCII); the date field is YYYY-MM-DD; every field that
+;; plain (no NUL, CR, double quote or non-ASCII); the date field is a stamp of one of the forms
+;; scanStamp reads (src/input/values/dateStamps.ts: YYYY-MM-DD with an optional time); every field that
 ;; `slots` maps to an output is [+-]digits[.digits]. A number whose mantissa is below 2^53 with at
 ;; most 22 fraction digits is read as scanDecimal reads it (Clinger's fast path: the digits
 ;; accumulated in a double, then one correctly rounded division by an exact power of ten); a longer
 ;; one is left to the caller (NaN, its span recorded, the row flagged 2). Any other row is flagged 1
-;; and read by the caller. Valid dates get their key (milliseconds since 1970-01-01, H. Hinnant's
-;; days_from_civil, exact in 64-bit integers); a well-formed date that is not in the calendar sets
-;; status to 1.
+;; and read by the caller. Valid stamps get their key (milliseconds since 1970-01-01, H. Hinnant's
+;; days_from_civil, exact in 64-bit integers); a well-formed stamp that is not a real date and time,
+;; or one of another form than the column's, sets status to 1. The column's form (coded as
+;; dateStamps.ts codes it) is the i32 at status + 4: -1 until the first stamp sets it.
 ;;
 ;; findLines: where each row of a byte range starts after a line feed, 16 bytes at a time (SIMD).
 ;;
@@ -17,7 +19,7 @@
 ;; (i32, count + 1: offsets of the rows in the file, which starts at `base`; the byte before the next
 ;; start is the row's line feed); slots (i32 per field, -1 for fields not read); out (f64,
 ;; slot-major: slot * count + k); keys (f64); counts (i32); flags (u8); spans (i32 pairs, slot-major,
-;; start and end of a long number); status (i32).
+;; start and end of a long number); status (i32, then the form, i32).
 (module
   (import "env" "memory" (memory 1))
 
@@ -31,6 +33,15 @@
     (if (result i32) (i32.or (i32.or (i32.eq (local.get $m) (i32.const 4)) (i32.eq (local.get $m) (i32.const 6)))
                              (i32.or (i32.eq (local.get $m) (i32.const 9)) (i32.eq (local.get $m) (i32.const 11))))
       (then (i32.const 30)) (else (i32.const 31))))
+
+  ;; the two digits at $at as a number, or 100 when either is not a digit
+  (func $two (param $at i32) (result i32)
+    (local $a i32) (local $b i32)
+    (local.set $a (i32.sub (i32.load8_u (local.get $at)) (i32.const 48)))
+    (local.set $b (i32.sub (i32.load8_u (i32.add (local.get $at) (i32.const 1))) (i32.const 48)))
+    (if (result i32) (i32.or (i32.gt_u (local.get $a) (i32.const 9)) (i32.gt_u (local.get $b) (i32.const 9)))
+      (then (i32.const 100))
+      (else (i32.add (i32.mul (local.get $a) (i32.const 10)) (local.get $b)))))
 
   ;; days from 1970-01-01 to y-m-d (y >= 1, so every division below is of a non-negative number)
   (func $daysFromCivil (param $y i32) (param $m i32) (param $d i32) (result i32)
@@ -89,6 +100,7 @@
     (local $c i32) (local $neg i32) (local $mant f64) (local $nd i32) (local $fs i32) (local $frac i32)
     (local $v f64) (local $flagged i32) (local $flag i32) (local $dated i32) (local $p i32)
     (local $ymd i32) (local $y i32) (local $m i32) (local $day i32) (local $t i32) (local $field i32) (local $at i32)
+    (local $q i32) (local $form i32) (local $ms i32) (local $hh i32) (local $mm i32) (local $ss i32)
     (i32.store (local.get $status) (i32.const 0))
     (block $rows_done
       (loop $rows
@@ -162,14 +174,12 @@
               (else
                 (if (i32.eq (local.get $f) (local.get $dateIndex))
                   (then
-                    ;; YYYY-MM-DD exactly, then the delimiter or the row end
+                    ;; a stamp as scanStamp (dateStamps.ts) reads it: YYYY-MM-DD, then the delimiter or the row end,
+                    ;; or a time [ T]HH:MM[:SS[.f]][Z] (one to three fraction digits) and then one of them
                     (local.set $p (local.get $i))
                     (if (i32.or (i32.gt_u (i32.add (local.get $p) (i32.const 10)) (local.get $end))
                                 (i32.or (i32.ne (i32.load8_u (i32.add (local.get $p) (i32.const 4))) (i32.const 45))
                                         (i32.ne (i32.load8_u (i32.add (local.get $p) (i32.const 7))) (i32.const 45))))
-                      (then (local.set $flag (i32.const 1)) (br $row_done)))
-                    (if (i32.and (i32.lt_u (i32.add (local.get $p) (i32.const 10)) (local.get $end))
-                                 (i32.ne (i32.load8_u (i32.add (local.get $p) (i32.const 10))) (local.get $d)))
                       (then (local.set $flag (i32.const 1)) (br $row_done)))
                     ;; the eight digits at offsets 0 1 2 3 5 6 8 9, as yyyymmdd
                     (local.set $ymd (i32.const 0))
@@ -185,6 +195,74 @@
                     (local.set $y (i32.div_u (local.get $ymd) (i32.const 10000)))
                     (local.set $m (i32.rem_u (i32.div_u (local.get $ymd) (i32.const 100)) (i32.const 100)))
                     (local.set $day (i32.rem_u (local.get $ymd) (i32.const 100)))
+                    (local.set $q (i32.add (local.get $p) (i32.const 10)))
+                    (local.set $form (i32.const 0))
+                    (local.set $ms (i32.const 0))
+                    (if (i32.and (i32.lt_u (local.get $q) (local.get $end)) (i32.ne (i32.load8_u (local.get $q)) (local.get $d)))
+                      (then
+                        ;; a separator other than a space or T, a delimiter that a time could hold, no room
+                        ;; for HH:MM: the caller reads the row
+                        (local.set $c (i32.load8_u (local.get $q)))
+                        (if (i32.or
+                              (i32.or (i32.and (i32.ne (local.get $c) (i32.const 32)) (i32.ne (local.get $c) (i32.const 84)))
+                                      (i32.or (i32.or (i32.eq (local.get $d) (i32.const 32)) (i32.eq (local.get $d) (i32.const 84)))
+                                              (i32.or (i32.eq (local.get $d) (i32.const 58)) (i32.eq (local.get $d) (i32.const 90)))))
+                              (i32.or (i32.gt_u (i32.add (local.get $q) (i32.const 6)) (local.get $end))
+                                      (i32.ne (i32.load8_u (i32.add (local.get $q) (i32.const 3))) (i32.const 58))))
+                          (then (local.set $flag (i32.const 1)) (br $row_done)))
+                        (local.set $form (i32.or (i32.const 1) (i32.shl (i32.eq (local.get $c) (i32.const 84)) (i32.const 1))))
+                        (local.set $hh (call $two (i32.add (local.get $q) (i32.const 1))))
+                        (local.set $mm (call $two (i32.add (local.get $q) (i32.const 4))))
+                        (local.set $ss (i32.const 0))
+                        (local.set $q (i32.add (local.get $q) (i32.const 6)))
+                        (if (i32.and (i32.lt_u (local.get $q) (local.get $end)) (i32.eq (i32.load8_u (local.get $q)) (i32.const 58)))
+                          (then
+                            (if (i32.gt_u (i32.add (local.get $q) (i32.const 3)) (local.get $end))
+                              (then (local.set $flag (i32.const 1)) (br $row_done)))
+                            (local.set $ss (call $two (i32.add (local.get $q) (i32.const 1))))
+                            (local.set $form (i32.or (local.get $form) (i32.const 4)))
+                            (local.set $q (i32.add (local.get $q) (i32.const 3)))
+                            (if (i32.and (i32.lt_u (local.get $q) (local.get $end)) (i32.eq (i32.load8_u (local.get $q)) (i32.const 46)))
+                              (then
+                                ;; up to four digits are taken, so that a fourth is seen (and left to the caller)
+                                (local.set $q (i32.add (local.get $q) (i32.const 1)))
+                                (local.set $t (i32.const 0))
+                                (block $frac_done (loop $frac
+                                  (br_if $frac_done (i32.or (i32.ge_u (local.get $q) (local.get $end)) (i32.ge_u (local.get $t) (i32.const 4))))
+                                  (local.set $c (i32.sub (i32.load8_u (local.get $q)) (i32.const 48)))
+                                  (br_if $frac_done (i32.gt_u (local.get $c) (i32.const 9)))
+                                  (local.set $ms (i32.add (i32.mul (local.get $ms) (i32.const 10)) (local.get $c)))
+                                  (local.set $t (i32.add (local.get $t) (i32.const 1)))
+                                  (local.set $q (i32.add (local.get $q) (i32.const 1)))
+                                  (br $frac)))
+                                (if (i32.or (i32.eqz (local.get $t)) (i32.gt_u (local.get $t) (i32.const 3)))
+                                  (then (local.set $flag (i32.const 1)) (br $row_done)))
+                                ;; milliseconds: .5 is 500, .05 is 50
+                                (if (i32.eq (local.get $t) (i32.const 1)) (then (local.set $ms (i32.mul (local.get $ms) (i32.const 100)))))
+                                (if (i32.eq (local.get $t) (i32.const 2)) (then (local.set $ms (i32.mul (local.get $ms) (i32.const 10)))))
+                                (local.set $form (i32.or (local.get $form) (i32.shl (local.get $t) (i32.const 3))))))))
+                        (if (i32.and (i32.lt_u (local.get $q) (local.get $end)) (i32.eq (i32.load8_u (local.get $q)) (i32.const 90)))
+                          (then
+                            (local.set $form (i32.or (local.get $form) (i32.const 32)))
+                            (local.set $q (i32.add (local.get $q) (i32.const 1)))))
+                        ;; more in the field, or a part that is not two digits: the caller reads the row
+                        (if (i32.or (i32.and (i32.lt_u (local.get $q) (local.get $end)) (i32.ne (i32.load8_u (local.get $q)) (local.get $d)))
+                                    (i32.or (i32.gt_u (local.get $hh) (i32.const 99))
+                                            (i32.or (i32.gt_u (local.get $mm) (i32.const 99)) (i32.gt_u (local.get $ss) (i32.const 99)))))
+                          (then (local.set $flag (i32.const 1)) (br $row_done)))
+                        ;; an hour, minute or second out of range is not a time, as a date not in the calendar
+                        (if (i32.or (i32.gt_u (local.get $hh) (i32.const 23))
+                                    (i32.or (i32.gt_u (local.get $mm) (i32.const 59)) (i32.gt_u (local.get $ss) (i32.const 59))))
+                          (then (i32.store (local.get $status) (i32.const 1))))
+                        (local.set $ms (i32.add (local.get $ms)
+                          (i32.mul (i32.add (i32.mul (i32.add (i32.mul (local.get $hh) (i32.const 60)) (local.get $mm)) (i32.const 60)) (local.get $ss))
+                                   (i32.const 1000))))))
+                    ;; the column's form (status + 4): set by its first stamp; a stamp of another form is left
+                    ;; to the text path, as a date not in the calendar
+                    (local.set $t (i32.load (i32.add (local.get $status) (i32.const 4))))
+                    (if (i32.eq (local.get $t) (i32.const -1))
+                      (then (i32.store (i32.add (local.get $status) (i32.const 4)) (local.get $form)))
+                      (else (if (i32.ne (local.get $t) (local.get $form)) (then (i32.store (local.get $status) (i32.const 1))))))
                     (if (i32.and
                           (i32.and (i32.ge_u (local.get $y) (i32.const 1))
                                    (i32.and (i32.ge_u (local.get $m) (i32.const 1)) (i32.le_u (local.get $m) (i32.const 12))))
@@ -192,11 +270,12 @@
                                    (i32.le_u (local.get $day) (call $daysInMonth (local.get $y) (local.get $m)))))
                       (then
                         (f64.store (i32.add (local.get $keys) (i32.shl (local.get $k) (i32.const 3)))
-                          (f64.convert_i64_s (i64.mul (i64.extend_i32_s (call $daysFromCivil (local.get $y) (local.get $m) (local.get $day)))
-                                                      (i64.const 86400000)))))
+                          (f64.convert_i64_s (i64.add
+                            (i64.mul (i64.extend_i32_s (call $daysFromCivil (local.get $y) (local.get $m) (local.get $day))) (i64.const 86400000))
+                            (i64.extend_i32_u (local.get $ms))))))
                       (else (i32.store (local.get $status) (i32.const 1))))
                     (local.set $dated (i32.const 1))
-                    (local.set $i (i32.add (local.get $p) (i32.const 10)))))
+                    (local.set $i (local.get $q))))
                 ;; the rest of the field: any NUL, CR, double quote or non-ASCII byte flags the row
                 (block $skip_done (loop $skip
                   (br_if $skip_done (i32.ge_u (local.get $i) (local.get $end)))

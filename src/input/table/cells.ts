@@ -1,6 +1,7 @@
 /** Reading the date and value cells of chosen rows, shared by the wide and long layouts. */
 import { arrayOf } from "./arrays.js";
 import { readDateColumn } from "../values/dateColumn.js";
+import { PLAIN_DATE_FORM } from "../values/dateStamps.js";
 import type { Grid } from "../engines/grid.js";
 import type { IssueList } from "../issueList.js";
 import { isMissingToken, parseDecimal, type Sentinels } from "../values/numbers.js";
@@ -15,8 +16,8 @@ export function readDecimalComma(text: string): number | null {
 
 /**
  * Dates of the given rows; null (after adding issues) when any is unreadable. `isos` and `texts`
- * are null when every date is a plain "YYYY-MM-DD" (see `Extracted`). `plainKeys`: the keys of
- * those rows when already known to be all plain (see Grid.readRows).
+ * are null when every date is a stamp of one form, `form` (see `Extracted`). `plainKeys`: the keys
+ * of those rows when already known to be all stamps of form `plainForm` (see Grid.readRows).
  */
 export function readDates(
   grid: Grid,
@@ -26,13 +27,14 @@ export function readDates(
   options: ReadOptions,
   issues: IssueList,
   plainKeys: Float64Array | null = null,
-): { keys: Float64Array; isos: readonly string[] | null; texts: readonly string[] | null } | null {
+  plainForm = PLAIN_DATE_FORM,
+): { keys: Float64Array; isos: readonly string[] | null; texts: readonly string[] | null; form: number } | null {
   const { source, dateFormat } = options;
-  if (dateFormat === undefined && plainKeys !== null) return { keys: plainKeys, isos: null, texts: null };
+  if (dateFormat === undefined && plainKeys !== null) return { keys: plainKeys, isos: null, texts: null, form: plainForm };
   if (dateFormat === undefined && grid.plainIsoDates !== undefined) {
     // Every date a plain "YYYY-MM-DD": its text is its ISO form, and both are recovered from the key.
     const keys = new Float64Array(rows.length);
-    if (grid.plainIsoDates(rows, dateIndex, keys)) return { keys, isos: null, texts: null };
+    if (grid.plainIsoDates(rows, dateIndex, keys)) return { keys, isos: null, texts: null, form: PLAIN_DATE_FORM };
   }
   const texts = arrayOf(rows.length, (i) => grid.field(rows[i] as number, dateIndex));
   const column = readDateColumn(texts, dateFormat);
@@ -69,7 +71,7 @@ export function readDates(
       ...column.explain(value),
     });
   }
-  return fine ? { keys, isos, texts } : null;
+  return fine ? { keys, isos, texts, form: PLAIN_DATE_FORM } : null;
 }
 
 /**

@@ -9,6 +9,7 @@ import type { TableLocation } from "./layout.js";
 import type { Sentinels } from "../values/numbers.js";
 import type { ReadOptions } from "../options.js";
 import { checkFieldCounts } from "./rowShape.js";
+import { PLAIN_DATE_FORM } from "../values/dateStamps.js";
 
 /** Extract the requested columns of the located table; null (after adding issues) on any problem. */
 export function extractWide(
@@ -55,12 +56,14 @@ export function extractWide(
   valueIndexes.forEach((fieldIndex, slot) => (slots[fieldIndex] = slot));
   const counts = new Int32Array(count);
   let plainKeys: Float64Array | null = null;
+  let plainForm = PLAIN_DATE_FORM;
   let withNaN: readonly boolean[] = values.map(() => true);
   if (grid.readRows === undefined) for (let i = 0; i < count; i++) counts[i] = grid.readNumbers(first + i, slots, values, i);
   else {
     plainKeys = new Float64Array(count);
     const read = grid.readRows(first, count, slots, values, counts, dateIndex as number, plainKeys);
     if (!read.plainDates) plainKeys = null;
+    plainForm = read.dateForm;
     withNaN = read.withNaN;
   }
   if (!checkFieldCounts(grid, rows, counts, header, source, issues)) return null;
@@ -71,7 +74,7 @@ export function extractWide(
       missing += settleCells(grid, rows, valueIndexes[c] as number, columns[c] as string, column, sentinels, options, issues);
   });
 
-  const dated = readDates(grid, rows, dateIndex as number, dateColumn, options, issues, plainKeys);
+  const dated = readDates(grid, rows, dateIndex as number, dateColumn, options, issues, plainKeys, plainForm);
   if (dated === null || !issues.empty) return null;
   return {
     dateColumn,
@@ -79,6 +82,7 @@ export function extractWide(
     keys: dated.keys,
     isos: dated.isos,
     dateTexts: dated.texts,
+    dateForm: dated.form,
     lines: linesOf(grid, rows),
     values,
     complete: missing === 0,

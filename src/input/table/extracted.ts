@@ -1,5 +1,5 @@
 /** The rows of a located table before dates are ordered and values are converted. */
-import { plainIsoDateOfKey } from "../values/dates.js";
+import { PLAIN_DATE_FORM, stampIso, stampText } from "../values/dateStamps.js";
 
 /** Rows of one table, in file order (or date order when `ordered`), values in file units. */
 export interface Extracted {
@@ -7,12 +7,14 @@ export interface Extracted {
   readonly columns: readonly string[];
   /**
    * Date of each row: sort key (see ParsedDate), ISO text, and the text it was read from. `isos` and
-   * `dateTexts` are null when every date is written as a plain "YYYY-MM-DD", which is then both
-   * texts and is recovered from the key (see `isoAt`, `dateTextAt`).
+   * `dateTexts` are null when every date is a stamp of one form, `dateForm` (values/dateStamps.ts;
+   * absent: plain "YYYY-MM-DD" dates), whose texts are then recovered from the key (see `isoAt`,
+   * `dateTextAt`).
    */
   readonly keys: Float64Array;
   readonly isos: readonly string[] | null;
   readonly dateTexts: readonly string[] | null;
+  readonly dateForm?: number;
   readonly lines: Int32Array;
   /** One array per column, in file units; NaN marks a missing value. */
   readonly values: readonly Float64Array[];
@@ -40,12 +42,12 @@ export interface Extracted {
 
 /** ISO text of the date of row i. */
 export function isoAt(data: Extracted, i: number): string {
-  return data.isos === null ? plainIsoDateOfKey(data.keys[i] as number) : (data.isos[i] as string);
+  return data.isos === null ? stampIso(data.keys[i] as number, data.dateForm ?? PLAIN_DATE_FORM) : (data.isos[i] as string);
 }
 
 /** The date of row i as written. */
 export function dateTextAt(data: Extracted, i: number): string {
-  return data.dateTexts === null ? plainIsoDateOfKey(data.keys[i] as number) : (data.dateTexts[i] as string);
+  return data.dateTexts === null ? stampText(data.keys[i] as number, data.dateForm ?? PLAIN_DATE_FORM) : (data.dateTexts[i] as string);
 }
 
 /** The place of a value in the file: its line and column, and its series in the long layout. */

@@ -2,7 +2,7 @@
 import { arrayOf, float64Of, identityOf, int32Of, isIdentity } from "./arrays.js";
 import { success, failure, type Result } from "../../core/result.js";
 import { dateTextAt, isoAt, type Extracted } from "./extracted.js";
-import { plainIsoDateOfKey } from "../values/dates.js";
+import { PLAIN_DATE_FORM, stampIso } from "../values/dateStamps.js";
 import { detectFrequency, frequencyFromPeriods } from "../values/frequency.js";
 import type { IssueList } from "../issueList.js";
 import type { InputIssue } from "../issues.js";
@@ -94,22 +94,49 @@ export function finishTable(data: Extracted, options: ReadOptions, issues: Issue
   let keptKeys: Float64Array | null = null;
   if (isos !== null) dates = identity ? isos : arrayOf(keptRows.length, (i) => isos[keptRows[i] as number] as string);
   else keptKeys = identity ? data.keys : float64Of(keptRows.length, (i) => data.keys[keptRows[i] as number] as number);
-  const plainKeys = keptKeys;
-  return success({
-    source: options.source,
-    dateColumn: data.dateColumn,
+  return success(
+    withDates(
+      {
+        source: options.source,
+        dateColumn: data.dateColumn,
+        firstDate: isoAt(data, keptRows[0] as number),
+        lastDate: isoAt(data, keptRows[keptRows.length - 1] as number),
+        columns,
+        lines: identity ? data.lines : int32Of(keptRows.length, (i) => data.lines[keptRows[i] as number] as number),
+        rowsRead: data.rowsRead,
+        dropped: { count: dropped, firstDates: droppedDates },
+        frequency,
+        warnings: [...layoutWarnings(data, options.source), ...unitWarnings(columns, options)],
+      },
+      dates,
+      keptKeys,
+      data.dateForm ?? PLAIN_DATE_FORM,
+    ),
+  );
+}
+
+/**
+ * The table with its `dates`: `isos`, or made from the keys (stamps of form `form`) on first access.
+ * Made here, apart from finishTable, so that the getter holds these alone, not the extracted rows
+ * and their grid (a closure holds every variable its function's closures capture).
+ */
+function withDates(
+  table: Omit<ReturnTable, "dates">,
+  isos: readonly string[] | null,
+  keys: Float64Array | null,
+  form: number,
+): ReturnTable {
+  let dates = isos;
+  // The fields in the order the table declares them.
+  const { source, dateColumn, ...rest } = table;
+  return {
+    source,
+    dateColumn,
     get dates(): readonly string[] {
-      return (dates ??= arrayOf((plainKeys as Float64Array).length, (i) => plainIsoDateOfKey((plainKeys as Float64Array)[i] as number)));
+      return (dates ??= arrayOf((keys as Float64Array).length, (i) => stampIso((keys as Float64Array)[i] as number, form)));
     },
-    firstDate: isoAt(data, keptRows[0] as number),
-    lastDate: isoAt(data, keptRows[keptRows.length - 1] as number),
-    columns,
-    lines: identity ? data.lines : int32Of(keptRows.length, (i) => data.lines[keptRows[i] as number] as number),
-    rowsRead: data.rowsRead,
-    dropped: { count: dropped, firstDates: droppedDates },
-    frequency,
-    warnings: [...layoutWarnings(data, options.source), ...unitWarnings(columns, options)],
-  });
+    ...rest,
+  };
 }
 
 /** keys[order[i]] for each i (the identity order is common and skips the copy). */

@@ -8,7 +8,8 @@ export interface ReturnTable {
   readonly dateColumn: string;
   /**
    * ISO 8601 at the precision written: "YYYY-MM-DD", "YYYY-MM", "YYYY" or a date-time; ascending, unique.
-   * When every date is a plain "YYYY-MM-DD" the array is built on first access (from compact keys),
+   * When every date is a stamp of one form (plain "YYYY-MM-DD", "YYYY-MM-DD HH:MM", ...: see
+   * values/dateStamps.ts) the array is built on first access (from compact keys),
    * so a caller that needs only the range should use firstDate and lastDate.
    */
   readonly dates: readonly string[];
