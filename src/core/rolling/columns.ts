@@ -150,8 +150,11 @@ const secondUnitColumns: readonly WindowColumnName[] = [
 
 function unscaleColumns(c: Record<WindowColumnName, Float64Array>, u: Units): void {
   if (isIdentity(u)) return;
-  for (const name of firstUnitColumns) for (let k = 0; k < c[name].length; k++) c[name][k] = c[name][k]! * u.first;
-  for (const name of secondUnitColumns) for (let k = 0; k < c[name].length; k++) c[name][k] = c[name][k]! * u.second;
+  const times = (column: Float64Array, factor: number): void => {
+    for (let k = 0; k < column.length; k++) column[k] = column[k]! * factor;
+  };
+  for (const name of firstUnitColumns) times(c[name], u.first);
+  for (const name of secondUnitColumns) times(c[name], u.second);
 }
 
 /** Bounds and landmark low betas as identifySet and findLandmarks compute them (identify.ts, landmarks.ts). */
