@@ -105,40 +105,44 @@ const comma = 44;
 const newline = 10;
 
 /**
- * CSV rows of every window, handed to `write` about a megabyte at a time (awaited: the writer may hold
- * back a fast producer); an empty field where a quantity is undefined (no set, no CAPM fit). With
- * `uncertainty`, its columns follow, window by window in order.
+ * CSV rows of every window, from the columns a block at a time (`blocks`: rollSolveColumnBlocks' or
+ * one whole WindowColumns), handed to `write` about a megabyte at a time (awaited: the writer may
+ * hold back a fast producer; it must be done with the bytes when its promise resolves, as the buffer
+ * is reused); an empty field where a quantity is undefined (no set, no CAPM fit). With
+ * `uncertainty`, its columns follow, asked for window by window in order.
  */
 export async function writeRollCsv(
   meta: RollMeta,
-  columns: WindowColumns,
-  uncertainty: ((k: number) => WindowUncertainty | null) | null,
+  blocks: Iterable<WindowColumns>,
+  uncertainty: (() => WindowUncertainty | null) | null,
   write: (bytes: Uint8Array) => Promise<void>,
 ): Promise<void> {
   const prefix = encoder.encode(`${[meta.input.source, meta.input.lowColumn, meta.input.highColumn].map(csvText).join(",")},`);
-  const series = windowColumnNames.map((name) => columns.columns[name]);
-  const { start, end, observations, count } = columns;
   const { dates } = meta;
-  const numbersPerRow = 1 + series.length + (uncertainty === null ? 0 : uncertaintyColumnNames.length);
-  const rowBytesButDates = prefix.length + 2 + numbersPerRow * (maxNumberBytes + 1) + 16;
+  const numbersPerRow = 1 + windowColumnNames.length + (uncertainty === null ? 0 : uncertaintyColumnNames.length);
+  const rowBytesButDates = prefix.length + 32 + numbersPerRow * (maxNumberBytes + 1);
   const out = new ByteChunks(write);
-  for (let k = 0; k < count; k++) {
-    const first = dates[start[k]!]!;
-    const last = dates[end[k]!]!;
-    const room = rowBytesButDates + 3 * (first.length + last.length);
-    if (!out.fits(room)) await out.makeRoom(room); // awaited only when a chunk is handed over
-    out.bytes(prefix);
-    out.text(first);
-    out.byte(comma);
-    out.text(last);
-    out.byte(comma);
-    out.number(observations[k]!);
-    for (let c = 0; c < series.length; c++) {
+  for (const columns of blocks) {
+    const series = windowColumnNames.map((name) => columns.columns[name]);
+    const { start, end, observations, count } = columns;
+    for (let k = 0; k < count; k++) {
+      const first = dates[start[k]!]!;
+      const last = dates[end[k]!]!;
+      const room = rowBytesButDates + 3 * (first.length + last.length);
+      if (!out.fits(room)) await out.makeRoom(room); // awaited only when a chunk is handed over
+      out.bytes(prefix);
+      out.text(first);
       out.byte(comma);
-      out.number(series[c]![k]!);
+      out.text(last);
+      out.byte(comma);
+      out.number(observations[k]!);
+      for (let c = 0; c < series.length; c++) {
+        out.byte(comma);
+        out.number(series[c]![k]!);
+      }
+      if (uncertainty !== null) writeUncertainty(out, uncertainty());
+      out.byte(newline);
     }
-    if (uncertainty !== null) writeUncertainty(out, uncertainty(k));
-    out.byte(newline);
   }
   await out.flush();
 }

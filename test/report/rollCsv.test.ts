@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import type { WindowUncertainty } from "../../src/core/inference/windowUncertainty.js";
 import { createRandom } from "../../src/core/numerics/rng.js";
-import { rollSolveColumns, type WindowColumns, windowColumnNames } from "../../src/core/rolling/index.js";
+import { rollSolveColumnBlocks, rollSolveColumns, type WindowColumns, windowColumnNames } from "../../src/core/rolling/index.js";
 import { csvText } from "../../src/report/csv.js";
 import { rollCsvHeader, uncertaintyColumnNames, writeRollCsv } from "../../src/report/rollCsv.js";
 import type { RollMeta } from "../../src/report/rollReport.js";
@@ -74,11 +74,13 @@ function metaOf(source: string, rowDates: string[]): RollMeta {
 /** Every byte handed over, copied as it comes (the writer reuses its buffer once a write resolves). */
 async function written(
   meta: RollMeta,
-  columns: WindowColumns,
+  blocks: Iterable<WindowColumns>,
   uncertainty: ((k: number) => WindowUncertainty | null) | null = null,
 ): Promise<{ text: string; writes: number }> {
   const pieces: Buffer[] = [];
-  await writeRollCsv(meta, columns, uncertainty, async (bytes) => void pieces.push(Buffer.from(bytes)));
+  let k = 0;
+  const inOrder = uncertainty === null ? null : () => uncertainty(k++);
+  await writeRollCsv(meta, blocks, inOrder, async (bytes) => void pieces.push(Buffer.from(bytes)));
   return { text: Buffer.concat(pieces).toString("utf8"), writes: pieces.length };
 }
 
@@ -112,14 +114,17 @@ function uncertaintyOf(random: ReturnType<typeof createRandom>, gaps: boolean): 
 describe("roll's CSV rows as bytes", () => {
   const rows = 3000;
   const { low, high } = books(rows, 7);
-  const columns = rollSolveColumns(low, high, 0.0001, 0.5, { kind: "window", size: 60, step: 1 });
+  const spec = { kind: "window", size: 60, step: 1 } as const;
+  const columns = rollSolveColumns(low, high, 0.0001, 0.5, spec);
+  /** The same columns in blocks of 333 windows, in reused arrays (as roll writes them). */
+  const blocks = () => rollSolveColumnBlocks(low, high, 0.0001, 0.5, spec, 333);
 
   it("are the reference text byte for byte, rejected windows' empty fields included, over many buffers", async () => {
     const meta = metaOf(
       "returns.csv",
       dates(rows, (t) => `2000-01-${String(t).padStart(5, "0")}`),
     );
-    const { text, writes } = await written(meta, columns);
+    const { text, writes } = await written(meta, blocks());
     expect(columns.columns.lowBetaMin.some(Number.isNaN)).toBe(true); // the flat stretch's windows
     expect(writes).toBeGreaterThan(1); // more than one buffer's worth, so the buffer was reused
     expect(text).toBe(referenceRows(meta, columns, null));
@@ -133,7 +138,7 @@ describe("roll's CSV rows as bytes", () => {
     });
     try {
       const meta = metaOf("returns.csv", dates(rows));
-      expect((await written(meta, columns)).text).toBe(referenceRows(meta, columns, null));
+      expect((await written(meta, [columns])).text).toBe(referenceRows(meta, columns, null));
     } finally {
       columns.columns.lowMean.set(lowMean);
     }
@@ -144,7 +149,7 @@ describe("roll's CSV rows as bytes", () => {
       'données "brutes", 2024.csv',
       dates(rows, (t) => `${t} März ☃ 𝔁`),
     );
-    expect((await written(meta, columns)).text).toBe(referenceRows(meta, columns, null));
+    expect((await written(meta, blocks())).text).toBe(referenceRows(meta, columns, null));
   });
 
   it("add the --uncertainty columns as the reference does, with windows and fields that have none", async () => {
@@ -152,7 +157,7 @@ describe("roll's CSV rows as bytes", () => {
     const table = Array.from({ length: columns.count }, (_, k) => (k % 7 === 0 ? null : uncertaintyOf(random, k % 2 === 0)));
     const at = (k: number) => table[k]!;
     const meta = metaOf("returns.csv", dates(rows));
-    const { text } = await written(meta, columns, at);
+    const { text } = await written(meta, blocks(), at);
     expect(text).toBe(referenceRows(meta, columns, at));
     expect(text.split("\n")[0]!.split(",")).toHaveLength(rollCsvHeader(true).split(",").length);
     expect(uncertaintyColumnNames).toHaveLength(11);
@@ -164,6 +169,6 @@ describe("roll's CSV rows as bytes", () => {
       dates(rows, (t) => `${t}-${"x".repeat(t === 100 ? 2_000_000 : 3)}`),
     );
     const few = rollSolveColumns(low.slice(0, 200), high.slice(0, 200), 0.0001, 0.5, { kind: "window", size: 60, step: 1 });
-    expect((await written(meta, few)).text).toBe(referenceRows(meta, few, null));
+    expect((await written(meta, [few])).text).toBe(referenceRows(meta, few, null));
   });
 });

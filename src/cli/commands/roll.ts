@@ -90,6 +90,9 @@ function leading(target: OutputTarget, lead: string): OutputTarget {
   };
 }
 
+/** Windows a block of the CSV's columns (a megabyte of numbers). */
+const csvBlockWindows = 4096;
+
 /**
  * Writes one pair's windows in the asked format; with --chart, also its chart. The windows are
  * computed as they are written and never kept (a million of them would hold gigabytes); the chart
@@ -109,7 +112,8 @@ async function writePair(pair: RolledPair, job: RollJob, target: OutputTarget, i
     // The columns come from the scan's typed arrays; the window objects only when needed, in step.
     const walk = options.uncertainty || points !== null ? pair.windows()[Symbol.iterator]() : null;
     const next = (): WindowUncertainty | null => (walk === null ? null : seen(walk.next().value as WindowSolution));
-    await writeRollCsv(meta, pair.columns(), options.uncertainty ? next : null, (bytes) => target.write(bytes));
+    const blocks = pair.columnBlocks(csvBlockWindows); // one block's arrays, reused: no fresh memory per window
+    await writeRollCsv(meta, blocks, options.uncertainty ? next : null, (bytes) => target.write(bytes));
     if (!options.uncertainty && walk !== null) for (let w = walk.next(); !w.done; w = walk.next()) seen(w.value);
   } else if (options.format === "jsonl") {
     let chunk = "";
