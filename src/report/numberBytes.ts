@@ -85,12 +85,16 @@ function writePositive(x: number, out: Uint8Array, at: number): number {
   // multiple strictly within H of X; there is always an integer (H > 0.55 on this scale).
   let unit = 1;
   let below = Math.floor(small); // offset of the integer at or below X
+  let quotient = lower | 0; // floor(lower / unit)
+  let remainder = 0; // lower mod unit
   for (;;) {
     const next = unit * 10;
     if (next > 1e7) return -1; // ten significant digits or fewer: left to String
+    const q = (quotient / 10) | 0;
+    const r = remainder + (quotient - q * 10) * unit; // lower mod next
     // The multiple of `next` at or below X: from the one at or below P, one step at most either
     // way, as |Q| <= 8 < next.
-    let k = 0 - ((lower | 0) % next);
+    let k = 0 - r;
     if (small < k) k -= next;
     else if (small >= k + next) k += next;
     const down = compareDifference(small, k, h);
@@ -99,6 +103,8 @@ function writePositive(x: number, out: Uint8Array, at: number): number {
     if (down > 0 && up > 0) break;
     unit = next;
     below = k;
+    quotient = q;
+    remainder = r;
   }
   // The closest multiple of it to X, below or above (a tie is left to String). It is no multiple of
   // ten units (those are all farther than H), so its digits are 17 less the zeros of the unit.

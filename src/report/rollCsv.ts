@@ -80,6 +80,18 @@ class ByteChunks {
     this.position += b.length;
   }
 
+  /** A field for each column's window k after a comma: String(x), or nothing for NaN. */
+  fields(series: readonly Float64Array[], k: number): void {
+    const out = this.buffer;
+    let at = this.position;
+    for (let c = 0; c < series.length; c++) {
+      out[at++] = comma;
+      const x = series[c]![k]!;
+      if (!Number.isNaN(x)) at = writeNumber(x, out, at);
+    }
+    this.position = at;
+  }
+
   /** A field: String(x), or nothing for NaN (an undefined quantity). */
   number(x: number): void {
     if (!Number.isNaN(x)) this.position = writeNumber(x, this.buffer, this.position);
@@ -136,10 +148,7 @@ export async function writeRollCsv(
       out.text(last);
       out.byte(comma);
       out.number(observations[k]!);
-      for (let c = 0; c < series.length; c++) {
-        out.byte(comma);
-        out.number(series[c]![k]!);
-      }
+      out.fields(series, k);
       if (uncertainty !== null) writeUncertainty(out, uncertainty());
       out.byte(newline);
     }
