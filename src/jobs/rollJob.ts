@@ -11,6 +11,7 @@ import { type WindowUncertainty, windowUncertainty } from "../core/inference/win
 import { failure, type Result, success } from "../core/result.js";
 import {
   iterateRollSolve,
+  rollSolveColumnBlocks,
   rollSolveColumns,
   type WindowColumns,
   type WindowSolution,
@@ -38,6 +39,8 @@ export interface RolledPair {
   windows(): Iterable<WindowSolution>;
   /** Every window as typed-array columns (the CSV's numbers). */
   columns(): WindowColumns;
+  /** The same columns `blockSize` windows at a time, in reused arrays (rollSolveColumnBlocks). */
+  columnBlocks(blockSize: number): Iterable<WindowColumns>;
   /** A window's standard errors and interval (null without `uncertainty`, or when the window has no set). */
   uncertaintyAt(window: WindowSolution): WindowUncertainty | null;
   /** The JSON record of a window: one `roll --format jsonl` line. */
@@ -163,6 +166,7 @@ function rollPair(loaded: PairTable, options: CommandOptions<"roll">, spec: Wind
     messages: warnings,
     windows,
     columns: () => rollSolveColumns(low, high, riskFree, options.weight, spec, criticalValue),
+    columnBlocks: (blockSize) => rollSolveColumnBlocks(low, high, riskFree, options.weight, spec, blockSize, criticalValue),
     uncertaintyAt,
     record: (window) => rollRecord(meta, window, uncertaintyAt(window)),
     *records() {

@@ -1,16 +1,14 @@
 /**
- * Outputs of `roll`: a CSV row per window (from typed-array columns, fast for a million windows),
- * JSON Lines records per window with `solve`'s field names plus `start` and `end` dates, and a text
- * table for a person. Each writes through `write` piece by piece, so no output is held whole.
+ * Outputs of `roll` (its CSV rows are rollCsv.ts's): JSON Lines records per window with `solve`'s
+ * field names plus `start` and `end` dates, the text table for a person, and the chart's points.
  */
 
 import type { WindowUncertainty } from "../core/inference/windowUncertainty.js";
-import { windowColumnNames, type WindowColumns, type WindowSolution, type WindowSpec } from "../core/rolling/index.js";
+import type { WindowSolution, WindowSpec } from "../core/rolling/index.js";
 import { momentsFromSummary } from "../core/summaryMoments.js";
 import { defaultConfidence } from "../core/parameters.js";
 import type { RollOutputJson } from "../schema/rollOutput.js";
 import type { RollWindowPoint } from "./charts/rollChart.js";
-import { csvText } from "./csv.js";
 import { formatNumber } from "./format.js";
 import { assertJsonSafe, schemaVersion } from "./json.js";
 import { fields, indent, table, type Style } from "./layout.js";
@@ -25,79 +23,6 @@ export interface RollMeta {
   readonly dates: readonly string[];
   /** Warnings from reading the file(s): every window's record lists them first among its diagnostics. */
   readonly inputWarnings: readonly InputWarningDiagnostic[];
-}
-
-export const uncertaintyColumnNames = [
-  "lowBetaMinStdError",
-  "lowBetaMaxStdError",
-  "highBetaMinStdError",
-  "highBetaMaxStdError",
-  "lowBetaIntervalLower",
-  "lowBetaIntervalUpper",
-  "returnImpliedStdError",
-  "returnImpliedLower",
-  "returnImpliedUpper",
-  "pricingPValue",
-  "pricingVerdict",
-] as const;
-
-export function rollCsvHeader(withUncertainty: boolean): string {
-  const names = [
-    "source",
-    "lowColumn",
-    "highColumn",
-    "start",
-    "end",
-    "observations",
-    ...windowColumnNames,
-    ...(withUncertainty ? uncertaintyColumnNames : []),
-  ];
-  return `${names.join(",")}\n`;
-}
-
-const cell = (x: number): string => (Number.isNaN(x) ? "" : String(x));
-
-/**
- * CSV rows of every window, handed to `write` about a megabyte at a time (awaited: the writer may hold
- * back a fast producer); an empty field where a quantity is undefined (no set, no CAPM fit).
- */
-export async function writeRollCsv(
-  meta: RollMeta,
-  columns: WindowColumns,
-  uncertainty: ((k: number) => WindowUncertainty | null) | null,
-  write: (text: string) => Promise<void>,
-): Promise<void> {
-  const prefix = [meta.input.source, meta.input.lowColumn, meta.input.highColumn].map(csvText).join(",");
-  const series = windowColumnNames.map((name) => columns.columns[name]);
-  let chunk = "";
-  for (let k = 0; k < columns.count; k++) {
-    let line = `${prefix},${meta.dates[columns.start[k]!]},${meta.dates[columns.end[k]!]},${columns.observations[k]}`;
-    for (const values of series) line += `,${cell(values[k]!)}`;
-    if (uncertainty !== null) {
-      const u = uncertainty(k);
-      const p = u?.pricing?.returnImpliedLowBeta;
-      const values =
-        u === null
-          ? [Number.NaN, Number.NaN, Number.NaN, Number.NaN, Number.NaN, Number.NaN]
-          : [
-              u.bounds.lowBeta.min.stdError,
-              u.bounds.lowBeta.max.stdError,
-              u.bounds.highBeta.min.stdError,
-              u.bounds.highBeta.max.stdError,
-              u.lowBeta.interval.lower,
-              u.lowBeta.interval.upper,
-            ];
-      values.push(p?.stdError ?? Number.NaN, p?.lower ?? Number.NaN, p?.upper ?? Number.NaN, u?.pricing?.pValue ?? Number.NaN);
-      for (const x of values) line += `,${cell(x)}`;
-      line += `,${u?.pricing?.verdict ?? ""}`;
-    }
-    chunk += `${line}\n`;
-    if (chunk.length > 1 << 20) {
-      await write(chunk);
-      chunk = "";
-    }
-  }
-  if (chunk !== "") await write(chunk);
 }
 
 /** A window's point on the roll chart: its end date, bounds, CAPM beta and interval. */

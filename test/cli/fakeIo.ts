@@ -25,12 +25,14 @@ export function fakeIo(
     now: settings.now ?? (() => 0),
     openOutput: (path) => {
       if (path?.startsWith("/unwritable/")) return failure({ code: "write-failed", path, reason: "permission denied" });
-      const chunks: string[] = [];
+      // Bytes are copied as they come: a writer may reuse its buffer once a write resolves.
+      const chunks: Buffer[] = [];
       return success({
-        write: async (text) => void chunks.push(text),
+        write: async (text) => void chunks.push(Buffer.from(text)),
         commit: async () => {
-          if (path === undefined) out.push(chunks.join(""));
-          else written.set(path, chunks.join(""));
+          const whole = Buffer.concat(chunks).toString("utf8");
+          if (path === undefined) out.push(whole);
+          else written.set(path, whole);
           return success(undefined);
         },
         abort: () => undefined,

@@ -34,7 +34,7 @@ function failingDisk(budget: number, code: string): FileOps {
   };
 }
 
-async function writeAll(path: string, pieces: readonly string[], ops: FileOps = fs) {
+async function writeAll(path: string, pieces: readonly (string | Uint8Array)[], ops: FileOps = fs) {
   const opened = openOutput(path, noStdout, ops);
   if (!opened.ok) throw new Error("open failed");
   for (const piece of pieces) await opened.value.write(piece);
@@ -48,6 +48,13 @@ describe("a regular file", () => {
     expect(committed.ok).toBe(true);
     expect(fs.readFileSync(path, "utf8")).toBe("a,b\n1,2\n");
     expect(fs.readdirSync(dir)).toEqual(["out.csv"]);
+  });
+
+  it("takes bytes as well as text, in the order given", async () => {
+    const { path } = folderWith("previous\n");
+    const committed = await writeAll(path, ["a,b\n", new TextEncoder().encode("1,2\n"), "3,4\n"]);
+    expect(committed.ok).toBe(true);
+    expect(fs.readFileSync(path, "utf8")).toBe("a,b\n1,2\n3,4\n");
   });
 
   it("is untouched until commit: the output goes to a temporary file beside it", async () => {
@@ -173,7 +180,7 @@ describe("standard output", () => {
     const written: string[] = [];
     const stream: OutputStream = {
       write: (chunk) => {
-        written.push(chunk);
+        written.push(typeof chunk === "string" ? chunk : Buffer.from(chunk).toString());
         return written.length <= 1;
       },
       once: (_event, listener) => drains.push(listener),
@@ -192,5 +199,17 @@ describe("standard output", () => {
     await pending;
     expect(second).toBe(true);
     expect(written).toEqual(["first", "second"]);
+  });
+
+  it("copies bytes handed to it, so the caller may reuse its buffer once a write resolves", async () => {
+    const kept: (string | Uint8Array)[] = [];
+    const stream: OutputStream = { write: (chunk) => kept.push(chunk) > 0, once: () => undefined };
+    const opened = openOutput(undefined, stream);
+    if (!opened.ok) throw new Error("open failed");
+    const buffer = new TextEncoder().encode("abc");
+    await opened.value.write(buffer);
+    buffer.fill(120);
+    await opened.value.write(buffer);
+    expect(kept.map((chunk) => Buffer.from(chunk).toString())).toEqual(["abc", "xxx"]);
   });
 });

@@ -10,7 +10,8 @@ import type { CommandOptionsInput } from "../../options/index.js";
 import { styleFor } from "../../report/layout.js";
 import type { WindowUncertainty } from "../../core/inference/windowUncertainty.js";
 import type { RollWindowPoint } from "../../report/charts/rollChart.js";
-import { rollChartPoint, rollCsvHeader, rollRecord, rollTextLines, windowWords, writeRollCsv } from "../../report/rollReport.js";
+import { rollCsvHeader, writeRollCsv } from "../../report/rollCsv.js";
+import { rollChartPoint, rollRecord, rollTextLines, windowWords } from "../../report/rollReport.js";
 import { addTableOptions } from "../commandOptions.js";
 import { withConfig } from "../config.js";
 import { outputFailed, usage, waitsOnTerminal, wantsColour } from "../emit.js";
@@ -77,7 +78,8 @@ function leading(target: OutputTarget, lead: string): OutputTarget {
   return {
     ...target,
     write(text) {
-      const whole = first + text;
+      if (first === "") return target.write(text);
+      const whole = typeof text === "string" ? first + text : Buffer.concat([Buffer.from(first), text]);
       first = "";
       return target.write(whole);
     },
@@ -87,6 +89,9 @@ function leading(target: OutputTarget, lead: string): OutputTarget {
     },
   };
 }
+
+/** Windows a block of the CSV's columns (a megabyte of numbers). */
+const csvBlockWindows = 4096;
 
 /**
  * Writes one pair's windows in the asked format; with --chart, also its chart. The windows are
@@ -107,7 +112,8 @@ async function writePair(pair: RolledPair, job: RollJob, target: OutputTarget, i
     // The columns come from the scan's typed arrays; the window objects only when needed, in step.
     const walk = options.uncertainty || points !== null ? pair.windows()[Symbol.iterator]() : null;
     const next = (): WindowUncertainty | null => (walk === null ? null : seen(walk.next().value as WindowSolution));
-    await writeRollCsv(meta, pair.columns(), options.uncertainty ? next : null, (text) => target.write(text));
+    const blocks = pair.columnBlocks(csvBlockWindows); // one block's arrays, reused: no fresh memory per window
+    await writeRollCsv(meta, blocks, options.uncertainty ? next : null, (bytes) => target.write(bytes));
     if (!options.uncertainty && walk !== null) for (let w = walk.next(); !w.done; w = walk.next()) seen(w.value);
   } else if (options.format === "jsonl") {
     let chunk = "";

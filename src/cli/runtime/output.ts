@@ -20,8 +20,11 @@ import { type CliIssue, fileErrorReason } from "../messages.js";
 
 /** Where a command's output goes, piece by piece. */
 export interface OutputTarget {
-  /** Appends `text`. Resolves when the target can take more; a failure is kept for `commit`. */
-  write(text: string): Promise<void>;
+  /**
+   * Appends `text` (or bytes, which the caller may reuse once this resolves: they are written or
+   * copied by then). Resolves when the target can take more; a failure is kept for `commit`.
+   */
+  write(text: string | Uint8Array): Promise<void>;
   /** Makes the output final (flush, fsync, rename): ok, or why not (the previous file is then intact). */
   commit(): Promise<Result<void, CliIssue>>;
   /** Drops what was written: the temporary file is removed, the target left as it was. */
@@ -47,7 +50,7 @@ export type FileOps = Pick<
 
 /** The stream standard output is written to (process.stdout in the CLI). */
 export interface OutputStream {
-  write(chunk: string): boolean;
+  write(chunk: string | Uint8Array): boolean;
   once(event: "drain", listener: () => void): unknown;
 }
 
@@ -80,7 +83,11 @@ export function openOutput(path: string | undefined, stdout: OutputStream, ops: 
 
 function streamTarget(stdout: OutputStream): OutputTarget {
   return {
-    write: (text) => (stdout.write(text) ? Promise.resolve() : new Promise<void>((done) => void stdout.once("drain", () => done()))),
+    // A stream may keep a chunk until it is flushed: bytes are copied, as their caller reuses them.
+    write: (text) =>
+      stdout.write(typeof text === "string" ? text : Buffer.from(text))
+        ? Promise.resolve()
+        : new Promise<void>((done) => void stdout.once("drain", () => done())),
     commit: async () => success(undefined),
     abort: () => undefined,
   };
@@ -135,9 +142,9 @@ function checkedWriter(ops: FileOps, fd: number) {
     get failed() {
       return failed;
     },
-    async write(text: string): Promise<void> {
+    async write(text: string | Uint8Array): Promise<void> {
       if (failed !== null) return;
-      const bytes = Buffer.from(text);
+      const bytes = typeof text === "string" ? Buffer.from(text) : text;
       try {
         writeAll(ops, fd, bytes);
       } catch (error) {

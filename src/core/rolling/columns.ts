@@ -53,7 +53,10 @@ export const windowColumnNames = [
 ] as const;
 export type WindowColumnName = (typeof windowColumnNames)[number];
 
-/** rollSolve's numbers as columns: one Float64Array per quantity, NaN where rollSolve reports null. */
+/**
+ * rollSolve's numbers as columns: one Float64Array per quantity, NaN where rollSolve reports null;
+ * the first `count` entries are the windows' (a block's arrays may be longer).
+ */
 export interface WindowColumns {
   readonly count: number;
   readonly start: Int32Array;
@@ -79,18 +82,48 @@ export function rollSolveColumns(
   criticalValue: number = fiellerCriticalValue(),
 ): WindowColumns {
   const count = windowCount(low.length, spec);
-  const start = new Int32Array(count);
-  const end = new Int32Array(count);
-  const observations = new Int32Array(count);
-  const columns = Object.fromEntries(windowColumnNames.map((name) => [name, new Float64Array(count).fill(Number.NaN)])) as Record<
+  let whole: WindowColumns | null = null;
+  for (const block of rollSolveColumnBlocks(low, high, riskFree, weight, spec, count, criticalValue)) whole = block;
+  return whole as WindowColumns; // there is always one block, if empty
+}
+
+/**
+ * `rollSolveColumns` `blockSize` windows at a time, in order: each block is yielded when its windows
+ * are final, in the same arrays every time (a block's `count` windows at its start), so a long run
+ * costs the memory of one block and no fresh pages. A block must be used before the next is asked
+ * for. The numbers are rollSolveColumns'. A run without windows yields one empty block.
+ */
+export function* rollSolveColumnBlocks(
+  low: ArrayLike<number>,
+  high: ArrayLike<number>,
+  riskFree: number | ArrayLike<number>,
+  weight: number,
+  spec: WindowSpec,
+  blockSize: number,
+  criticalValue: number = fiellerCriticalValue(),
+): Generator<WindowColumns, void, undefined> {
+  const total = windowCount(low.length, spec);
+  const size = total === 0 ? 0 : Math.max(1, Math.min(blockSize, total));
+  const start = new Int32Array(size);
+  const end = new Int32Array(size);
+  const observations = new Int32Array(size);
+  const columns = Object.fromEntries(windowColumnNames.map((name) => [name, new Float64Array(size).fill(Number.NaN)])) as Record<
     WindowColumnName,
     Float64Array
   >;
   const c = columns;
-  let k = 0;
+  const block = (count: number): WindowColumns => ({ count, start, end, observations, columns });
+  let k = 0; // the window's place in its block
   // Computed on scaled data as rollSolve computes them, then every column back in the data's units.
   const { scale, largestRiskFree } = rollingScale(low, high, riskFree);
+  const units = unitsOf(scale);
   for (const raw of scanWindows(low, high, riskFree, weight, spec, scale)) {
+    if (k === size) {
+      unscaleColumns(c, units, k);
+      yield block(k);
+      for (const name of windowColumnNames) c[name].fill(Number.NaN);
+      k = 0;
+    }
     const window = describeWindow(raw, weight);
     const { summary: m, market, capm } = window;
     start[k] = window.start;
@@ -123,8 +156,8 @@ export function rollSolveColumns(
       writeSetColumns(c, k, m, market, window.observations, criticalValue);
     k++;
   }
-  unscaleColumns(c, unitsOf(scale));
-  return { count, start, end, observations, columns };
+  unscaleColumns(c, units, k);
+  yield block(k);
 }
 
 /** The columns in the returns' units (first) and in their squares' (second); the rest are unit-free. */
@@ -148,10 +181,14 @@ const secondUnitColumns: readonly WindowColumnName[] = [
   "factorVarianceMax",
 ];
 
-function unscaleColumns(c: Record<WindowColumnName, Float64Array>, u: Units): void {
+/** The first `count` windows of the columns in the data's units. */
+function unscaleColumns(c: Record<WindowColumnName, Float64Array>, u: Units, count: number): void {
   if (isIdentity(u)) return;
-  for (const name of firstUnitColumns) for (let k = 0; k < c[name].length; k++) c[name][k] = c[name][k]! * u.first;
-  for (const name of secondUnitColumns) for (let k = 0; k < c[name].length; k++) c[name][k] = c[name][k]! * u.second;
+  const times = (column: Float64Array, factor: number): void => {
+    for (let k = 0; k < count; k++) column[k] = column[k]! * factor;
+  };
+  for (const name of firstUnitColumns) times(c[name], u.first);
+  for (const name of secondUnitColumns) times(c[name], u.second);
 }
 
 /** Bounds and landmark low betas as identifySet and findLandmarks compute them (identify.ts, landmarks.ts). */

@@ -1,5 +1,11 @@
 /** Rolling and expanding windows: the plan, the scan of their sums, each window's set, and the CSV columns. */
-export { type WindowColumnName, type WindowColumns, rollSolveColumns, windowColumnNames } from "./columns.js";
+export {
+  rollSolveColumnBlocks,
+  rollSolveColumns,
+  type WindowColumnName,
+  type WindowColumns,
+  windowColumnNames,
+} from "./columns.js";
 export { scanWindows, type WindowSums } from "./scan.js";
 export { type WindowAlignment, type WindowSpec, windowAlignments, windowCount, windowOffset } from "./windowPlan.js";
 export {

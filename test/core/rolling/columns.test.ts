@@ -5,7 +5,13 @@
  */
 
 import { describe, expect, test } from "vitest";
-import { rollSolve, rollSolveColumns, windowColumnNames, type WindowSolution } from "../../../src/core/rolling/index.js";
+import {
+  rollSolve,
+  rollSolveColumnBlocks,
+  rollSolveColumns,
+  windowColumnNames,
+  type WindowSolution,
+} from "../../../src/core/rolling/index.js";
 import { dataSets, describeSpec, specs } from "./helpers.js";
 
 function expectedRow(w: WindowSolution): number[] {
@@ -68,4 +74,30 @@ test("a window rollSolve rejects for a constant book has NaN bounds and landmark
   const table = rollSolveColumns(low, data.high, 0, 0.5, { kind: "window", size: 20, step: 20 });
   expect(Array.from(table.columns.lowBetaMin).map(Number.isNaN)).toEqual([true, false, false]);
   expect(Array.from(table.columns.returnImpliedLowBeta.subarray(0, 1)).map(Number.isNaN)).toEqual([true]);
+});
+
+describe("rollSolveColumnBlocks", () => {
+  test.each([1, 1000])("gives rollSolveColumns' numbers a block at a time, in reused arrays (returns times %d)", (factor) => {
+    const data = dataSets(300)[0]!;
+    const low = Float64Array.from(data.low, (x) => x * factor);
+    const high = Float64Array.from(data.high, (x) => x * factor);
+    // A flat stretch: windows without a set (NaN) between windows with one, across block boundaries.
+    low.fill(0.001 * factor, 100, 160);
+    const spec = { kind: "window", size: 40, step: 3 } as const;
+    const whole = rollSolveColumns(low, high, 0, 0.5, spec);
+    const copies = Object.fromEntries(windowColumnNames.map((name) => [name, [] as number[]]));
+    const starts: number[] = [];
+    const sizes: number[] = [];
+    for (const block of rollSolveColumnBlocks(low, high, 0, 0.5, spec, 7)) {
+      sizes.push(block.count);
+      starts.push(...block.start.subarray(0, block.count));
+      // Copied as each block arrives: the next block reuses the arrays.
+      for (const name of windowColumnNames) copies[name]!.push(...block.columns[name].subarray(0, block.count));
+    }
+    expect(sizes.slice(0, -1).every((n) => n === 7)).toBe(true);
+    expect(sizes.reduce((a, b) => a + b, 0)).toBe(whole.count);
+    expect(starts).toEqual(Array.from(whole.start));
+    expect(whole.columns.lowBetaMin.some(Number.isNaN)).toBe(true);
+    for (const name of windowColumnNames) expect(copies[name], name).toEqual(Array.from(whole.columns[name]));
+  });
 });
