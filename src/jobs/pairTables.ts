@@ -12,6 +12,7 @@ import {
   joinOnDates,
   parseDecimal,
   type ReadOptions,
+  readColumnSetsFromBytes,
   readReturnsFromBytes,
   type ReturnTable,
 } from "../input/index.js";
@@ -131,11 +132,15 @@ export async function* loadPairs(
       continue;
     }
     const riskFree = riskFreeSource(options);
-    for (const pair of pairs) {
-      // Validates the encoding and parses straight from the bytes (decodeText + readReturns semantics).
+    // Each pair's columns: its books, the risk-free column, then any further column not among them.
+    const sets = pairs.map((pair) => {
       const columns = [pair.low, pair.high, ...riskFreeColumn(riskFree)];
-      const more = extras.filter((name) => !columns.includes(name));
-      const table = readReturnsFromBytes(bytes.value, readOptions(source, [...columns, ...more], options));
+      return [...columns, ...extras.filter((name) => !columns.includes(name))];
+    });
+    // The file is read once for every pair; each pair's table is what reading its columns alone gives.
+    const tables = readColumnSetsFromBytes(bytes.value, readOptions(source, [], options), sets);
+    for (const [index, pair] of pairs.entries()) {
+      const table = tables(index);
       if (!table.ok) yield { ok: false, source, pair, errors: inputErrors(table.issues) };
       else {
         const keys = { low: pair.low, high: pair.high, riskFree: riskFree.kind === "column" ? riskFree.column : null };
