@@ -11,7 +11,7 @@ import type { Result } from "../core/result.js";
 import type { InputIssue, InputWarning } from "./issues.js";
 import { type ReadOptions, validateOptions } from "./options.js";
 import { type LocatedTable, readBytesThen, readReturnsFromBytes } from "./readReturns.js";
-import { chooseDateColumn } from "./table/dateColumnChoice.js";
+import { dateColumnChooser } from "./table/dateColumnChoice.js";
 import { type ConvertedTable, convertTable, keepComplete } from "./table/finish.js";
 import { locateTable, type TableLocation, tableLister } from "./table/layout.js";
 import type { ReturnTable } from "./table/returnTable.js";
@@ -103,6 +103,7 @@ function unionTables(union: UnionRows, options: Omit<ReadOptions, "columns">): U
   const { data } = converted;
   const header = grid.fields(location.headerRow).map((name) => name.trim());
   const tables = tableLister(grid);
+  const chooseDateColumn = dateColumnChooser(grid, location, header, options.dateFormat);
   const indexOf = new Map(data.columns.map((name, c) => [name, c]));
   // A column kept whole (no row dropped) is the same array for every set: its unit warnings are found once.
   const warned = new Map<Float64Array, readonly InputWarning[]>();
@@ -113,7 +114,7 @@ function unionTables(union: UnionRows, options: Omit<ReadOptions, "columns">): U
     const wanted = [...names, ...(options.dateColumn === undefined ? [] : [options.dateColumn.trim()])];
     const located = locateTable(grid, options.source, wanted, options.block ?? 1, tables(wanted));
     if (!located.ok || !sameLocation(located.value, location)) return null;
-    const dateColumn = options.dateColumn?.trim() ?? chooseDateColumn(grid, location, header, names, options.dateFormat);
+    const dateColumn = options.dateColumn?.trim() ?? chooseDateColumn(names);
     if (dateColumn !== data.dateColumn) return null;
     const setOptions = { ...options, columns: set };
     return keepComplete(converted, indexes, setOptions, (column, values) => {
