@@ -47,7 +47,13 @@ export function readColumnSetsFromBytes(
     const group = groups.of[index] ?? -1;
     if (group < 0) return alone(index);
     if (current?.group !== group) current = { group, tables: readUnion(bytes, options, groups.unions[group] ?? []) };
-    return current.tables?.(sets[index] ?? []) ?? alone(index);
+    let shared: Result<ReturnTable, InputIssue[]> | null = null;
+    try {
+      shared = current.tables?.(sets[index] ?? []) ?? null;
+    } catch {
+      // Only a bug can throw (reading never does): the set read alone says what it says then.
+    }
+    return shared ?? alone(index);
   };
 }
 
