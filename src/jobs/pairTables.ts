@@ -1,7 +1,8 @@
 /**
  * From files and pairs to aligned tables: each (file, pair) is read on its own rows (a missing value
- * in one pair's columns does not drop rows for another), or, in two-file mode (--low PATH:COLUMN
- * --high PATH:COLUMN), the two books are read from their own files and joined on date.
+ * in one pair's columns does not drop rows for another; a file is read once for all its pairs, see
+ * input/readBatch.ts), or, in two-file mode (--low PATH:COLUMN --high PATH:COLUMN), the two books are
+ * read from their own files and joined on date.
  */
 import { provenanceOf } from "./provenance.js";
 import type { ReturnSample } from "../core/types.js";
