@@ -4,6 +4,7 @@
  * (values/) behind it are internal.
  */
 export { readReturns, readReturnsFromBytes } from "./readReturns.js";
+export { type ColumnSetTables, readColumnSetsFromBytes } from "./readBatch.js";
 export {
   type InputKind,
   inputKinds,

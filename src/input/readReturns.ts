@@ -15,7 +15,8 @@ import { fastGrid } from "./engines/fastGrid.js";
 import { csvGrid, type Grid, type QuoteError } from "./engines/grid.js";
 import { IssueList } from "./issueList.js";
 import type { InputIssue } from "./issues.js";
-import { listTables, locateTable } from "./table/layout.js";
+import { listTables, locateTable, type TableLocation } from "./table/layout.js";
+import type { Extracted } from "./table/extracted.js";
 import { isReturnTable } from "./table/recognise.js";
 import { compileSentinels } from "./values/numbers.js";
 import { validateOptions, type ReadOptions } from "./options.js";
@@ -42,7 +43,7 @@ export function readReturns(text: string, options: ReadOptions): Result<ReturnTa
 export function readReturnsWith(text: string, options: ReadOptions, engine: Engine): Result<ReturnTable, InputIssue[]> {
   const source = typeof options?.source === "string" ? options.source : "<input>";
   try {
-    return readText(String(text), options, engine);
+    return readText(String(text), options, engine, finishTable);
   } catch (error) {
     return failure([{ code: "internal-error", source, detail: error instanceof Error ? error.message : String(error) }]);
   }
@@ -67,6 +68,28 @@ export function readBytesWith(
   options: ReadOptions,
   engine: "auto" | "text" | "speculative",
 ): Result<ReturnTable, InputIssue[]> {
+  return readBytesThen(bytes, options, engine, finishTable);
+}
+
+/**
+ * What becomes of a table's extracted rows: `finishTable` makes the ReturnTable; a reader of several
+ * sets of columns (readBatch.ts) keeps the rows of all of them, with the grid and where its table is.
+ */
+export type Finish<T> = (data: Extracted, options: ReadOptions, issues: IssueList, table: LocatedTable) => Result<T, InputIssue[]>;
+
+/** The tokenised file and where the table read is in it. */
+export interface LocatedTable {
+  readonly grid: Grid;
+  readonly location: TableLocation;
+}
+
+/** `readBytesWith`, its extracted rows handed to `finish`. */
+export function readBytesThen<T>(
+  bytes: Uint8Array,
+  options: ReadOptions,
+  engine: "auto" | "text" | "speculative",
+  finish: Finish<T>,
+): Result<T, InputIssue[]> {
   const source = typeof options?.source === "string" ? options.source : "<input>";
   try {
     if (bytes.length > maximumInputBytes) {
@@ -75,16 +98,16 @@ export function readBytesWith(
     const notText = notTextIssue(bytes, source);
     if (notText !== null) return failure([notText]);
     const lines = engine === "text" ? null : plainLines(bytes, engine === "auto" ? undefined : 0);
-    let read: Result<ReturnTable, InputIssue[]> | null = null;
+    let read: Result<T, InputIssue[]> | null = null;
     try {
-      read = lines === null ? null : readPlainBytes(bytes, lines, options);
+      read = lines === null ? null : readPlainBytes(bytes, lines, options, finish);
     } catch (error) {
       // Only a bug can throw; on bytes that are not plain the text decides.
       if (lines === null || isPlain(bytes, lines.start, bytes.length)) throw error;
     }
     if (read !== null) return read;
     const text = decodeText(bytes, source);
-    return text.ok ? readText(text.value, options, "auto") : text;
+    return text.ok ? readText(text.value, options, "auto", finish) : text;
   } catch (error) {
     return failure([{ code: "internal-error", source, detail: error instanceof Error ? error.message : String(error) }]);
   }
@@ -94,7 +117,7 @@ export function readBytesWith(
  * `readText` on the file of `lines`, read from its bytes; null when the bytes turn out not to be
  * plain (see byteGrid.ts), so that the text must be read instead.
  */
-function readPlainBytes(bytes: Uint8Array, lines: PlainLines, options: ReadOptions): Result<ReturnTable, InputIssue[]> | null {
+function readPlainBytes<T>(bytes: Uint8Array, lines: PlainLines, options: ReadOptions, finish: Finish<T>): Result<T, InputIssue[]> | null {
   const { source } = options;
   const { start } = lines;
   const optionIssues = validateOptions(options);
@@ -105,11 +128,11 @@ function readPlainBytes(bytes: Uint8Array, lines: PlainLines, options: ReadOptio
   const head = (): string => asciiText(bytes, start, Math.min(bytes.length, start + 65537));
   const delimiter = options.delimiter ?? detectDelimiter(head(), options.decimalComma === true ? [";", "\t"] : undefined);
   const grid = byteGrid(bytes, lines, delimiter);
-  const result = readGrid(grid, options, () => bytes.length - start);
+  const result = readGrid(grid, options, () => bytes.length - start, finish);
   return grid.clean() ? result : null;
 }
 
-function readText(input: string, options: ReadOptions, engine: Engine): Result<ReturnTable, InputIssue[]> {
+function readText<T>(input: string, options: ReadOptions, engine: Engine, finish: Finish<T>): Result<T, InputIssue[]> {
   const { source } = options;
   const optionIssues = validateOptions(options);
   if (optionIssues.length > 0) return failure(optionIssues);
@@ -122,11 +145,11 @@ function readText(input: string, options: ReadOptions, engine: Engine): Result<R
     const { line, problem, field } = grid;
     return failure([{ code: "malformed-quotes", source, line, problem, ...(field === undefined ? {} : { field: field + 1 }) }]);
   }
-  return readGrid(grid, options, () => utf8Length(text));
+  return readGrid(grid, options, () => utf8Length(text), finish);
 }
 
 /** Locate, extract and finish the table of a tokenised file; `size()`: its text's length in UTF-8 bytes (after any byte-order mark). */
-function readGrid(grid: Grid, options: ReadOptions, size: () => number): Result<ReturnTable, InputIssue[]> {
+function readGrid<T>(grid: Grid, options: ReadOptions, size: () => number, finish: Finish<T>): Result<T, InputIssue[]> {
   const { source } = options;
   const long = options.idColumn !== undefined && options.valueColumn !== undefined;
   const wanted = long
@@ -149,7 +172,7 @@ function readGrid(grid: Grid, options: ReadOptions, size: () => number): Result<
     ? extractLong(grid, located.value, options, sentinels, issues, findInOtherTable)
     : extractWide(grid, located.value, options, sentinels, issues, findInOtherTable);
   if (extracted === null) return failure(issues.list());
-  return finishTable(extracted, options, issues);
+  return finish(extracted, options, issues, { grid, location: located.value });
 }
 
 /** The length of a text in UTF-8 bytes. */

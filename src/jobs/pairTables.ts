@@ -1,7 +1,8 @@
 /**
  * From files and pairs to aligned tables: each (file, pair) is read on its own rows (a missing value
- * in one pair's columns does not drop rows for another), or, in two-file mode (--low PATH:COLUMN
- * --high PATH:COLUMN), the two books are read from their own files and joined on date.
+ * in one pair's columns does not drop rows for another; a file is read once for all its pairs, see
+ * input/readBatch.ts), or, in two-file mode (--low PATH:COLUMN --high PATH:COLUMN), the two books are
+ * read from their own files and joined on date.
  */
 import { provenanceOf } from "./provenance.js";
 import type { ReturnSample } from "../core/types.js";
@@ -12,6 +13,7 @@ import {
   joinOnDates,
   parseDecimal,
   type ReadOptions,
+  readColumnSetsFromBytes,
   readReturnsFromBytes,
   type ReturnTable,
 } from "../input/index.js";
@@ -131,11 +133,15 @@ export async function* loadPairs(
       continue;
     }
     const riskFree = riskFreeSource(options);
-    for (const pair of pairs) {
-      // Validates the encoding and parses straight from the bytes (decodeText + readReturns semantics).
+    // Each pair's columns: its books, the risk-free column, then any further column not among them.
+    const sets = pairs.map((pair) => {
       const columns = [pair.low, pair.high, ...riskFreeColumn(riskFree)];
-      const more = extras.filter((name) => !columns.includes(name));
-      const table = readReturnsFromBytes(bytes.value, readOptions(source, [...columns, ...more], options));
+      return [...columns, ...extras.filter((name) => !columns.includes(name))];
+    });
+    // The file is read once for every pair; each pair's table is what reading its columns alone gives.
+    const tables = readColumnSetsFromBytes(bytes.value, readOptions(source, [], options), sets);
+    for (const [index, pair] of pairs.entries()) {
+      const table = tables(index);
       if (!table.ok) yield { ok: false, source, pair, errors: inputErrors(table.issues) };
       else {
         const keys = { low: pair.low, high: pair.high, riskFree: riskFree.kind === "column" ? riskFree.column : null };

@@ -6,7 +6,7 @@
 
 import { candidateRow, csvField, csvHeader, csvText, namedCandidates } from "./csv.js";
 import { assertJsonSafe, schemaVersion, toSolveOutput } from "./json.js";
-import type { SolveFailureJson } from "../schema/solveOutput.js";
+import type { SolveFailureJson, SolveOutputJson } from "../schema/solveOutput.js";
 import { styleFor } from "./layout.js";
 import { renderText } from "./text/text.js";
 import { type ComparedPair, comparisonLines } from "./text/textComparison.js";
@@ -36,13 +36,18 @@ export function failureOutput(failure: SolveFailure): SolveFailureJson {
 }
 
 export function renderJsonLines(records: readonly SolveRecord[]): string {
-  return records
-    .map((record) => {
+  return renderDocumentLines(
+    records.map((record) => {
       const output = record.kind === "report" ? toSolveOutput(record.report) : failureOutput(record.failure);
       assertJsonSafe(output);
-      return `${JSON.stringify(output)}\n`;
-    })
-    .join("");
+      return output;
+    }),
+  );
+}
+
+/** JSON Lines of documents already made and checked (as the solve job's are): one line each. */
+export function renderDocumentLines(documents: readonly (SolveOutputJson | SolveFailureJson)[]): string {
+  return documents.map((document) => `${JSON.stringify(document)}\n`).join("");
 }
 
 /** One CSV table: `source,lowColumn,highColumn` then the candidate columns; failed pairs have no rows. */

@@ -7,7 +7,7 @@ import { availableParallelism } from "node:os";
 import { Command } from "commander";
 import { defaultThreads, type PairStatus, runShape, type SolvedPair, solveOptions, solvePlanned } from "../../jobs/index.js";
 import type { CommandOptionsInput, OptionIssue } from "../../options/index.js";
-import { renderJsonLines, renderRecordsCsv, renderRecordsText } from "../../report/records.js";
+import { renderDocumentLines, renderRecordsCsv, renderRecordsText } from "../../report/records.js";
 import { renderReport } from "../../report/render.js";
 import { renderSummaryCsv } from "../../report/summaryCsv.js";
 import { addTableOptions } from "../commandOptions.js";
@@ -96,7 +96,8 @@ export async function runSolveJobs(
   let text: string;
   if (options.format === "summary-csv") text = renderSummaryCsv(pairs.map((p) => p.document));
   else if (single !== null && options.format !== "jsonl") text = renderReport(single, options.format, { colour, brief });
-  else if (options.format === "jsonl") text = renderJsonLines(records);
+  // The job's documents are what renderJsonLines makes of the records, already checked: not made again.
+  else if (options.format === "jsonl") text = renderDocumentLines(pairs.map((p) => p.document));
   else text = options.format === "csv" ? renderRecordsCsv(records) : renderRecordsText(records, { colour, brief });
 
   if (single !== null) {

@@ -103,7 +103,9 @@ function uncertaintyOf(
   const method = options.interval ?? defaultIntervalMethod;
   const source = options.intervalSource ?? defaultIntervalSource;
   const n = low.length;
-  const market = Float64Array.from(low, (l, t) => weight * l + (1 - weight) * high[t]!);
+  // A plain loop: Float64Array.from with a mapping function runs several times slower (once per pair).
+  const market = new Float64Array(n);
+  for (let t = 0; t < n; t++) market[t] = weight * low[t]! + (1 - weight) * high[t]!;
   const replicates = options.bootstrap?.replicates ?? 0;
   const bootstrap: BootstrapSummary | null =
     options.bootstrapSummary !== undefined

@@ -20,16 +20,36 @@ export function chooseDateColumn(
   excluded: readonly string[],
   dateFormat?: string,
 ): string {
+  return dateColumnChooser(grid, location, header, dateFormat)(excluded);
+}
+
+/**
+ * `chooseDateColumn` of one table for any number of excluded lists: whether a column holds dates
+ * does not depend on them, and is found once per column.
+ */
+export function dateColumnChooser(
+  grid: Grid,
+  location: TableLocation,
+  header: readonly string[],
+  dateFormat?: string,
+): (excluded: readonly string[]) => string {
   const isDate = dateTest(dateFormat);
-  const candidates = header.map((name, index) => ({ name, index })).filter(({ name }) => name !== "" && !excluded.includes(name));
-  const dated = (index: number) => columnHasDates(grid, location, index, isDate, true);
-  const named = candidates.find(({ name, index }) => DATE_NAME.test(name) && dated(index));
-  if (named !== undefined) return named.name;
-  // The first column keeps its place when it holds dates (the common wide file).
-  if (candidates[0]?.index === 0 && dated(0)) return header[0] ?? "";
-  const any = candidates.find(({ index }) => dated(index));
-  if (any !== undefined) return any.name;
-  // No column is all dates: the one named like a date (else the first) is read, so that its values
-  // say why they are no dates (the first column even when asked for as a series, which is then said).
-  return candidates.find(({ name }) => DATE_NAME.test(name))?.name ?? header[0] ?? "";
+  const known = new Map<number, boolean>();
+  const dated = (index: number): boolean => {
+    let found = known.get(index);
+    if (found === undefined) known.set(index, (found = columnHasDates(grid, location, index, isDate, true)));
+    return found;
+  };
+  return (excluded) => {
+    const candidates = header.map((name, index) => ({ name, index })).filter(({ name }) => name !== "" && !excluded.includes(name));
+    const named = candidates.find(({ name, index }) => DATE_NAME.test(name) && dated(index));
+    if (named !== undefined) return named.name;
+    // The first column keeps its place when it holds dates (the common wide file).
+    if (candidates[0]?.index === 0 && dated(0)) return header[0] ?? "";
+    const any = candidates.find(({ index }) => dated(index));
+    if (any !== undefined) return any.name;
+    // No column is all dates: the one named like a date (else the first) is read, so that its values
+    // say why they are no dates (the first column even when asked for as a series, which is then said).
+    return candidates.find(({ name }) => DATE_NAME.test(name))?.name ?? header[0] ?? "";
+  };
 }

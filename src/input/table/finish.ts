@@ -3,13 +3,13 @@ import { arrayOf, float64Of, identityOf, int32Of, isIdentity } from "./arrays.js
 import { success, failure, type Result } from "../../core/result.js";
 import { dateTextAt, isoAt, type Extracted } from "./extracted.js";
 import { PLAIN_DATE_FORM, stampIso } from "../values/dateStamps.js";
-import { detectFrequency, frequencyFromPeriods } from "../values/frequency.js";
+import { type DetectedFrequency, detectFrequency, frequencyFromPeriods } from "../values/frequency.js";
 import type { IssueList } from "../issueList.js";
-import type { InputIssue } from "../issues.js";
+import type { InputIssue, InputWarning } from "../issues.js";
 import type { ReadOptions } from "../options.js";
 import type { ReturnTable } from "./returnTable.js";
 import { toReturns } from "./convert.js";
-import { unitWarnings, layoutWarnings } from "./warnings.js";
+import { columnUnitWarnings, layoutWarnings } from "./warnings.js";
 
 /** A table needs at least this many usable rows (after dropping and, for prices, the first row). */
 export const MIN_ROWS = 3;
@@ -52,14 +52,53 @@ function orderRows(data: Extracted, options: ReadOptions, issues: IssueList): In
   return order;
 }
 
-/** Finish the table (the frequency comes from the dates of all rows, dropped ones included); fails with the collected issues when anything is wrong. */
+/**
+ * A table's rows in date order and converted to decimal returns, every column read: what any set of
+ * its columns is finished from (see `keepComplete`).
+ */
+export interface ConvertedTable {
+  readonly data: Extracted;
+  /** Extracted row index of each return, in date order. */
+  readonly rows: Int32Array;
+  /** One array per column of `data`, in date order; NaN marks a missing value. */
+  readonly values: readonly Float64Array[];
+  /** The frequency, from the dates of all rows (dropped ones included) or set by option. */
+  readonly frequency: () => DetectedFrequency | null;
+}
+
+/** Finish the table: every column read; fails with the collected issues when anything is wrong. */
 export function finishTable(data: Extracted, options: ReadOptions, issues: IssueList): Result<ReturnTable, InputIssue[]> {
+  const converted = convertTable(data, options, issues);
+  return converted.ok ? keepComplete(converted.value, data.columns.keys(), options) : converted;
+}
+
+/** Order the rows by date and convert every column to returns; fails with the collected issues when anything is wrong. */
+export function convertTable(data: Extracted, options: ReadOptions, issues: IssueList): Result<ConvertedTable, InputIssue[]> {
   const order = orderRows(data, options, issues);
   if (!issues.empty) return failure(issues.list());
   const converted = toReturns(data, order, options, issues);
   if (!issues.empty) return failure(issues.list());
-  const { rows, values } = converted;
-  // A row is kept when no column is missing (NaN) there.
+  let frequency: DetectedFrequency | null | undefined;
+  const detect = (): DetectedFrequency | null =>
+    options.periodsPerYear === undefined ? detectFrequency(orderedKeys(data.keys, order)) : frequencyFromPeriods(options.periodsPerYear);
+  return success({ data, ...converted, frequency: () => (frequency === undefined ? (frequency = detect()) : frequency) });
+}
+
+/**
+ * The table of the columns `wantedColumns` (indexes into `table.data.columns`, in the order wanted) of a
+ * converted table: a row is kept when none of these columns is missing (NaN) there. `unitWarningsOf`:
+ * the unit warnings of one column's kept values (a reader of several sets may remember them).
+ */
+export function keepComplete(
+  table: ConvertedTable,
+  wantedColumns: Iterable<number>,
+  options: ReadOptions,
+  unitWarningsOf: (column: string, values: Float64Array) => readonly InputWarning[] = (column, values) =>
+    columnUnitWarnings(column, values, options),
+): Result<ReturnTable, InputIssue[]> {
+  const { data, rows } = table;
+  const wanted = [...wantedColumns];
+  const values = wanted.map((c) => table.values[c] as Float64Array);
   let missing: Uint8Array | null = null;
   if (!data.complete)
     for (const column of values) {
@@ -85,9 +124,8 @@ export function finishTable(data: Extracted, options: ReadOptions, issues: Issue
     source === null ? column : float64Of(source.length, (i) => column[source[i] as number] as number);
   const keptRows = source === null ? rows : int32Of(source.length, (i) => rows[source[i] as number] as number);
   const columns = new Map<string, Float64Array>();
-  data.columns.forEach((name, c) => columns.set(name, pick(values[c] as Float64Array)));
-  const frequency =
-    options.periodsPerYear === undefined ? detectFrequency(orderedKeys(data.keys, order)) : frequencyFromPeriods(options.periodsPerYear);
+  wanted.forEach((c, i) => columns.set(data.columns[c] as string, pick(values[i] as Float64Array)));
+  const frequency = table.frequency();
   const identity = keptRows.length === data.keys.length && isIdentity(keptRows);
   const { isos } = data;
   let dates: readonly string[] | null = null;
@@ -106,7 +144,7 @@ export function finishTable(data: Extracted, options: ReadOptions, issues: Issue
         rowsRead: data.rowsRead,
         dropped: { count: dropped, firstDates: droppedDates },
         frequency,
-        warnings: [...layoutWarnings(data, options.source), ...unitWarnings(columns, options)],
+        warnings: [...layoutWarnings(data, options.source), ...[...columns].flatMap(([name, column]) => unitWarningsOf(name, column))],
       },
       dates,
       keptKeys,

@@ -60,11 +60,10 @@ function modalFieldCount(grid: Grid, block: Block): number {
   return best;
 }
 
-/** The header row of a block, or -1 when the block is not a table. */
-export function headerRowOf(grid: Grid, block: Block, wanted: readonly string[], minFields: number): number {
+/** The header row of a block, or -1 when the block is not a table; `mode()`: the block's modal field count. */
+function headerRowOf(grid: Grid, block: Block, wanted: readonly string[], minFields: number, mode: () => number): number {
   if (block.end - block.start < 2) return -1;
-  const mode = modalFieldCount(grid, block);
-  if (mode < minFields) return -1;
+  if (mode() < minFields) return -1;
   const last = Math.min(block.end, block.start + HEADER_SEARCH_ROWS);
   let fallback = -1;
   for (let row = block.start; row < last; row++) {
@@ -72,26 +71,50 @@ export function headerRowOf(grid: Grid, block: Block, wanted: readonly string[],
       const names = new Set(grid.fields(row).map((name) => name.trim()));
       if (wanted.every((name) => names.has(name))) return row < block.end - 1 ? row : -1;
     }
-    if (fallback < 0 && row < block.end - 1 && grid.fieldCount(row) === mode) fallback = row;
+    if (fallback < 0 && row < block.end - 1 && grid.fieldCount(row) === mode()) fallback = row;
   }
   return fallback;
 }
 
-/** The tables of a grid as (block, header row) pairs; single-column tables only when there is nothing wider. */
-export function listTables(grid: Grid, wanted: readonly string[]): { block: Block; headerRow: number }[] {
-  const blocks = listBlocks(grid);
-  for (const minFields of [2, 1]) {
-    const tables = blocks
-      .map((block) => ({ block, headerRow: headerRowOf(grid, block, wanted, minFields) }))
-      .filter((t) => t.headerRow >= 0);
-    if (tables.length > 0) return tables;
-  }
-  return [];
+/** A table of a grid: its block and header row. */
+export interface Table {
+  readonly block: Block;
+  readonly headerRow: number;
 }
 
-/** Locate the requested table (1-based `block`, default 1). */
-export function locateTable(grid: Grid, source: string, wanted: readonly string[], block = 1): Result<TableLocation, InputIssue[]> {
-  const tables = listTables(grid, wanted);
+/** The tables of a grid; single-column tables only when there is nothing wider. */
+export function listTables(grid: Grid, wanted: readonly string[]): Table[] {
+  return tableLister(grid)(wanted);
+}
+
+/**
+ * `listTables` of one grid for any number of wanted lists: the blocks and their modal field counts,
+ * which do not depend on the names wanted, are found once.
+ */
+export function tableLister(grid: Grid): (wanted: readonly string[]) => Table[] {
+  const blocks = listBlocks(grid).map((block) => {
+    let mode: number | undefined;
+    return { block, mode: () => (mode ??= modalFieldCount(grid, block)) };
+  });
+  return (wanted) => {
+    for (const minFields of [2, 1]) {
+      const tables = blocks
+        .map(({ block, mode }) => ({ block, headerRow: headerRowOf(grid, block, wanted, minFields, mode) }))
+        .filter((t) => t.headerRow >= 0);
+      if (tables.length > 0) return tables;
+    }
+    return [];
+  };
+}
+
+/** Locate the requested table (1-based `block`, default 1) among `tables` (by default the grid's, for `wanted`). */
+export function locateTable(
+  grid: Grid,
+  source: string,
+  wanted: readonly string[],
+  block = 1,
+  tables: readonly Table[] = listTables(grid, wanted),
+): Result<TableLocation, InputIssue[]> {
   const chosen = tables[block - 1];
   if (chosen === undefined) {
     if (tables.length > 0) return failure([{ code: "no-such-block", source, block, available: tables.length }]);

@@ -13,19 +13,17 @@ export const DECIMAL_LOOKING_MEDIAN = 0.0005;
 /** The unit check looks at about this many evenly spaced values of each column. */
 const SAMPLE = 10_000;
 
-/** "looks-like-percent" / "looks-like-decimal" per column, from the median |return| of a sample (not for prices). */
-export function unitWarnings(columns: ReadonlyMap<string, Float64Array>, options: ReadOptions): InputWarning[] {
+/** "looks-like-percent" / "looks-like-decimal" of one column, from the median |return| of a sample (not for prices). */
+export function columnUnitWarnings(column: string, values: Float64Array, options: ReadOptions): InputWarning[] {
   if (options.input === "prices") return [];
   const percent = options.units === "percent";
   const warnings: InputWarning[] = [];
-  for (const [column, values] of columns) {
-    const step = Math.max(1, Math.floor(values.length / SAMPLE));
-    const medianAbs = median(float64Of(Math.ceil(values.length / step), (i) => Math.abs(values[i * step] as number)));
-    if (!percent && medianAbs > PERCENT_LOOKING_MEDIAN)
-      warnings.push({ code: "looks-like-percent", source: options.source, column, medianAbs });
-    if (percent && medianAbs > 0 && medianAbs < DECIMAL_LOOKING_MEDIAN)
-      warnings.push({ code: "looks-like-decimal", source: options.source, column, medianAbs });
-  }
+  const step = Math.max(1, Math.floor(values.length / SAMPLE));
+  const medianAbs = median(float64Of(Math.ceil(values.length / step), (i) => Math.abs(values[i * step] as number)));
+  if (!percent && medianAbs > PERCENT_LOOKING_MEDIAN)
+    warnings.push({ code: "looks-like-percent", source: options.source, column, medianAbs });
+  if (percent && medianAbs > 0 && medianAbs < DECIMAL_LOOKING_MEDIAN)
+    warnings.push({ code: "looks-like-decimal", source: options.source, column, medianAbs });
   return warnings;
 }
 
