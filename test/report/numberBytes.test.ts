@@ -135,17 +135,19 @@ describe("writeNumber writes the bytes of String(x)", () => {
     expect(mismatches(edges)).toEqual([]);
   });
 
-  it("for a million doubles of random bit patterns (every magnitude, subnormals, both signs)", () => {
-    expect(mismatches(randomBitPatterns(1_000_000, 11))).toEqual([]);
+  // Counts keep the file near two seconds: the bit patterns mostly reach the fallback (the fast path
+  // spans 23 of the 632 decades), the decades the fast path itself.
+  it("for 200,000 doubles of random bit patterns (every magnitude, subnormals, both signs)", () => {
+    expect(mismatches(randomBitPatterns(200_000, 11))).toEqual([]);
   });
 
-  it("for a million doubles spread over the decades of the fast path", () => {
-    expect(mismatches(randomDecades(1_000_000, 12))).toEqual([]);
+  it("for 500,000 doubles spread over the decades of the fast path", () => {
+    expect(mismatches(randomDecades(500_000, 12))).toEqual([]);
   });
 
   it("for short decimals and their sums and products", () => {
-    expect(mismatches(shortDecimals(300_000, 13))).toEqual([]);
-    expect(mismatches(roundedArithmetic(300_000, 14))).toEqual([]);
+    expect(mismatches(shortDecimals(150_000, 13))).toEqual([]);
+    expect(mismatches(roundedArithmetic(150_000, 14))).toEqual([]);
   });
 
   it("for the neighbours of every power of two and of ten", () => {
