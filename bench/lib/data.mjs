@@ -95,7 +95,6 @@ export const dataSets = {
   daily1m: { rows: 1_000_000, description: "1,000,000 business days: date,low,high,rf,other" },
   daily10k: { rows: 10_000, description: "10,000 business days: date,low,high,rf,other" },
   daily100k: { rows: 100_000, description: "100,000 business days: date,low,high,rf,other" },
-  daily10m: { rows: 10_000_000, description: "10,000,000 business days: date,low,high,rf,other" },
   wide50: { rows: 2_520, description: "2,520 business days, 50 return columns l01..l25, h01..h25" },
   minutes10m: { rows: 10_000_000, description: "10,000,000 minute stamps (09:30-15:59 on business days): time,low,high" },
   factor10: { rows: 10_000, description: "10,000 business days, 10 beta-sorted portfolios P1..P10 and rf" },
@@ -103,7 +102,7 @@ export const dataSets = {
 
 function generate(name, rows, path) {
   const fmt = (x) => x.toFixed(9);
-  const seed = { daily2520: 1, daily1m: 2, wide50: 3, minutes10m: 4, factor10: 5, daily10k: 6, daily100k: 7, daily10m: 8 }[name];
+  const seed = { daily2520: 1, daily1m: 2, wide50: 3, minutes10m: 4, factor10: 5, daily10k: 6, daily100k: 7 }[name];
   const { normal } = createStream(seed);
   const pair = () => {
     const f = 0.0004 + 0.01 * normal();

@@ -51,10 +51,11 @@ export function renderResults({ summary, full, machine, root, cacheDir, analysis
     md += "\n## Time per row at default settings\n\n";
     md +=
       "Our median less the median of the same command on the first 300 rows of the same data (the fixed cost: start-up, reading the options, writing; timed in the same rounds), over the extra rows. Linear scaling keeps the last column near 1.\n\n";
-    md += "| rows | ours s | ours on 300 rows s | microseconds per row | against 1,000,000 rows | peak MB |\n|---|---|---|---|---|---|\n";
+    md +=
+      "| case | rows | ours s | ours on 300 rows s | microseconds per row | against 1,000,000 rows | peak MB |\n|---|---|---|---|---|---|---|\n";
     for (const r of scaling) {
       const us = perRow(r) * 1e6;
-      md += `| ${r.data.rows.toLocaleString("en-US")} | ${seconds(r.stats.ours.median)} | ${seconds(r.stats["ours, 300 rows"].median)} | ${us.toFixed(3)} | ${(perRow(r) / perRow(million)).toFixed(2)} | ${mb(r.stats.ours.rssMb)} |\n`;
+      md += `| (${r.case.id}) | ${r.data.rows.toLocaleString("en-US")} | ${seconds(r.stats.ours.median)} | ${seconds(r.stats["ours, 300 rows"].median)} | ${us.toFixed(3)} | ${(perRow(r) / perRow(million)).toFixed(2)} | ${mb(r.stats.ours.rssMb)} |\n`;
     }
   }
   md += "\n## Cases: commands, agreement, every round\n\n";
