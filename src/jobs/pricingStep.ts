@@ -35,8 +35,9 @@ export function pricingFor(
   const assessed = assessPricing(sample, {
     weight: options.weight,
     confidence: options.confidence,
-    // Without standard errors only the point figures are kept; the cheap iid covariance serves.
-    longRun: tested ? options.longRun : "iid",
+    longRun: options.longRun,
+    // Without standard errors the report keeps only the point figures.
+    pointOnly: !tested,
     hac: hacOptions(options),
     ...(tested ? { alphaStdErrors: { low: uncertainty.capm.low.hac.alphaStdErr, high: uncertainty.capm.high.hac.alphaStdErr } } : {}),
   });

@@ -60,6 +60,12 @@ export interface PricingOptions {
   readonly hac: HacOptions;
   /** HAC standard errors of the two CAPM alphas (per period, the data's units), for their intervals. */
   readonly alphaStdErrors?: { readonly low: number; readonly high: number };
+  /**
+   * The point figures alone (the decomposition and the return-implied ratio), without the influence
+   * series and their covariance: every standard error is then 0 and the test null. For reports that
+   * show no standard errors (solve --no-uncertainty).
+   */
+  readonly pointOnly?: boolean;
 }
 
 /** The pricing assessment of a solved sample whose books have a positive covariance; null otherwise. */
@@ -88,31 +94,35 @@ export function assessPricing(sample: ReturnSample, options: PricingOptions): Pr
   const eLow = (lower - beta) * lambda;
   const eHigh = (upper - beta) * lambda;
 
-  // Influence series of mu_x, lambda, d1 = mu_x - Lb lambda, d2 = U lambda - mu_x and the two ends.
-  const series = Array.from({ length: 6 }, () => new Float64Array(n));
-  const [fa, fb, fd1, fd2, fe1, fe2] = series as [Float64Array, Float64Array, Float64Array, Float64Array, Float64Array, Float64Array];
-  for (let t = 0; t < n; t++) {
-    const dx = x[t]! - mx;
-    const dy = y[t]! - my;
-    const zx = dx * dx - vx;
-    const zy = dy * dy - vy;
-    const zc = dx * dy - c;
-    const ia = dx;
-    const ib = w * dx + v * dy;
-    const iL = gl[1]! * zy + gl[2]! * zc;
-    const iU = gu[0]! * zx + gu[2]! * zc;
-    const iBeta = (w * zx + v * zc - beta * (w * w * zx + 2 * w * v * zc + v * v * zy)) / varM;
-    fa[t] = ia;
-    fb[t] = ib;
-    fd1[t] = ia - lower * ib - lambda * iL;
-    fd2[t] = upper * ib + lambda * iU - ia;
-    fe1[t] = lambda * (iL - iBeta) + (lower - beta) * ib;
-    fe2[t] = lambda * (iU - iBeta) + (upper - beta) * ib;
-  }
-  const omega = options.longRun === "iid" ? sampleCovarianceOf(series) : longRunCovarianceInPlace(series, options.hac).covariance;
+  const omega = options.pointOnly === true ? zeroMatrix(6) : influenceCovariance();
   const variance = (i: number, j: number): number => omega[i]![j]! / n;
   const se = (i: number): number => Math.sqrt(Math.max(0, variance(i, i)));
   const z = normalQuantile(1 - (1 - confidence) / 2);
+
+  /** The covariance of the influence series of mu_x, lambda, d1 = mu_x - Lb lambda, d2 = U lambda - mu_x and the two ends. */
+  function influenceCovariance(): number[][] {
+    const series = Array.from({ length: 6 }, () => new Float64Array(n));
+    const [fa, fb, fd1, fd2, fe1, fe2] = series as [Float64Array, Float64Array, Float64Array, Float64Array, Float64Array, Float64Array];
+    for (let t = 0; t < n; t++) {
+      const dx = x[t]! - mx;
+      const dy = y[t]! - my;
+      const zx = dx * dx - vx;
+      const zy = dy * dy - vy;
+      const zc = dx * dy - c;
+      const ia = dx;
+      const ib = w * dx + v * dy;
+      const iL = gl[1]! * zy + gl[2]! * zc;
+      const iU = gu[0]! * zx + gu[2]! * zc;
+      const iBeta = (w * zx + v * zc - beta * (w * w * zx + 2 * w * v * zc + v * v * zy)) / varM;
+      fa[t] = ia;
+      fb[t] = ib;
+      fd1[t] = ia - lower * ib - lambda * iL;
+      fd2[t] = upper * ib + lambda * iU - ia;
+      fe1[t] = lambda * (iL - iBeta) + (lower - beta) * ib;
+      fe2[t] = lambda * (iU - iBeta) + (upper - beta) * ib;
+    }
+    return options.longRun === "iid" ? sampleCovarianceOf(series) : longRunCovarianceInPlace(series, options.hac).covariance;
+  }
 
   const ratio = {
     numerator: mx,
@@ -159,4 +169,8 @@ export function assessPricing(sample: ReturnSample, options: PricingOptions): Pr
     test,
     alpha: { low: decomposition(1, options.alphaStdErrors?.low), high: decomposition(-w / v, options.alphaStdErrors?.high) },
   };
+}
+
+function zeroMatrix(k: number): number[][] {
+  return Array.from({ length: k }, () => new Array<number>(k).fill(0));
 }

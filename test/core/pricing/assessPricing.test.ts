@@ -79,3 +79,30 @@ describe("assessPricing against numpy/scipy (pricing_reference.py)", () => {
     expect(low.observedLower).toBeNull();
   });
 });
+
+describe("assessPricing with the point figures alone (solve --no-uncertainty)", () => {
+  const options = {
+    weight: ref.weight,
+    confidence: ref.confidence,
+    longRun: "hac" as const,
+    hac: { kernel: "bartlett" as const, lags: ref.lags },
+  };
+  const full = assessPricing({ low: ref.low, high: ref.high }, options);
+  const point = assessPricing({ low: ref.low, high: ref.high }, { ...options, pointOnly: true });
+
+  it("keeps every point figure of the full assessment, bit for bit", () => {
+    if (full === null || point === null) throw new Error("no pricing");
+    expect(point.returnImplied.estimate).toBe(full.returnImplied.estimate);
+    for (const book of ["low", "high"] as const) {
+      const { observed, explainableMin, explainableMax, unexplained } = full.alpha[book];
+      expect(point.alpha[book]).toMatchObject({ observed, explainableMin, explainableMax, unexplained });
+    }
+  });
+
+  it("has no test and standard errors of 0 (the report shows none)", () => {
+    if (point === null) throw new Error("no pricing");
+    expect(point.test).toBeNull();
+    expect(point.returnImplied.stdError).toBe(0);
+    expect(point.alpha.low.explainableMinStdError).toBe(0);
+  });
+});
