@@ -17,7 +17,7 @@
 
 import { bilinear, type Matrix } from "../numerics/linearAlgebra.js";
 import { sampleCovarianceOf } from "./hac/longRun.js";
-import { boundInfluenceSeries, boundsLongRunOfSeries } from "./boundsLongRun.js";
+import { boundInfluenceSeries, boundsLongRunOfSeries, plainMeans } from "./boundsLongRun.js";
 import type { HacKernel, HacOptions, LongRunMethod } from "./options.js";
 import { defaultConfidence } from "../parameters.js";
 
@@ -114,14 +114,7 @@ function boundsFromVariances(
 /** z_t = ((x - xbar)^2, (y - ybar)^2, (x - xbar)(y - ybar)). */
 export function momentSeries(x: ArrayLike<number>, y: ArrayLike<number>): Float64Array[] {
   const n = x.length;
-  let mx = 0;
-  let my = 0;
-  for (let t = 0; t < n; t++) {
-    mx += x[t]!;
-    my += y[t]!;
-  }
-  mx /= n;
-  my /= n;
+  const [mx, my] = plainMeans(x, y);
   const z = [new Float64Array(n), new Float64Array(n), new Float64Array(n)] as const;
   for (let t = 0; t < n; t++) {
     const dx = x[t]! - mx;

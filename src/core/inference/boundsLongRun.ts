@@ -88,14 +88,7 @@ export function boundInfluenceSeries(
   gradients: { readonly lower: readonly number[]; readonly upper: readonly number[] },
 ): { lower: Float64Array; upper: Float64Array } {
   const n = x.length;
-  let mx = 0;
-  let my = 0;
-  for (let t = 0; t < n; t++) {
-    mx += x[t]!;
-    my += y[t]!;
-  }
-  mx /= n;
-  my /= n;
+  const [mx, my] = plainMeans(x, y);
   let sxx = 0;
   let syy = 0;
   let sxy = 0;
@@ -124,6 +117,18 @@ export function boundInfluenceSeries(
     return f;
   };
   return { lower: fill(gradients.lower), upper: fill(gradients.upper) };
+}
+
+/** The means of x and y by plain sums, in order (the moment series' convention, kept bit for bit). */
+export function plainMeans(x: ArrayLike<number>, y: ArrayLike<number>): [number, number] {
+  const n = x.length;
+  let mx = 0;
+  let my = 0;
+  for (let t = 0; t < n; t++) {
+    mx += x[t]!;
+    my += y[t]!;
+  }
+  return [mx / n, my / n];
 }
 
 /** `boundsLongRun` on the two influence series themselves (see boundInfluenceSeries). */
