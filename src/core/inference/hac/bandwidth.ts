@@ -21,6 +21,7 @@
  *   prewhitened).
  */
 
+import { addScaledInto } from "../../numerics/seriesLoops.js";
 import type { HacKernel } from "../options.js";
 
 export function neweyWest1994Bandwidth(
@@ -36,7 +37,7 @@ export function neweyWest1994Bandwidth(
   const f = new Float64Array(n);
   columns.forEach((column, a) => {
     const w = columnWeights[a]!;
-    if (w !== 0) for (let t = 0; t < n; t++) f[t] = f[t]! + w * column[t]!;
+    if (w !== 0) addScaledInto(f, w, column);
   });
   const sums = autocovarianceSums(f, preLag);
   let s0 = 0;

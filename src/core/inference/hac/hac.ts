@@ -12,6 +12,7 @@
  */
 
 import { kernelSum } from "./kernelSum.js";
+import { productInto } from "../../numerics/seriesLoops.js";
 import { crossColumns, inverse, scale, symmetrise, type Matrix } from "../../numerics/linearAlgebra.js";
 import type { HacKernel, HacOptions } from "../options.js";
 
@@ -36,11 +37,7 @@ export function hacCovariance(design: readonly Float64Array[], residuals: Float6
   const k = design.length;
   if (k === 0) throw new RangeError("hacCovariance: the design has no columns");
   for (const column of design) if (column.length !== n) throw new RangeError("hacCovariance: design and residuals differ in length");
-  const scores = design.map((column) => {
-    const h = new Float64Array(n);
-    for (let t = 0; t < n; t++) h[t] = column[t]! * residuals[t]!;
-    return h;
-  });
+  const scores = design.map((column) => productInto(new Float64Array(n), column, residuals));
   const estimate = kernelSum(scores, options, interceptWeights(design));
   const adjust = options.adjust ?? false;
   const meat = adjust ? scale(estimate.sum, n / (n - k)) : estimate.sum;
