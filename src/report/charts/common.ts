@@ -196,6 +196,37 @@ export async function renderSvg(spec: Spec, title: string, loadVega: VegaLoader 
   return `${svg.replace(/^<svg([^>]*)>/, (_, attributes: string) => `<svg${attributes} role="img">${accessible}`)}\n`;
 }
 
+/**
+ * The frame of a plot with a title and subtitle lines above it and a legend under its x axis: its
+ * size, padding (the subtitle's lines, then `titleGap` above the plot; the axis, the legend and a
+ * margin below), fixed layout and title. Sizes are computed here rather than by Vega, whose text
+ * widths (without a canvas) are rough.
+ */
+export function plotFrame(frame: {
+  readonly width: number;
+  readonly height: number;
+  readonly marginLeft: number;
+  readonly marginRight: number;
+  readonly title: string;
+  readonly subtitle: readonly string[];
+  readonly titleGap: number;
+  readonly legendHeight: number;
+}): Pick<Spec, "width" | "height" | "padding" | "autosize" | "config" | "title"> {
+  return {
+    width: frame.width,
+    height: frame.height,
+    padding: {
+      left: frame.marginLeft,
+      right: frame.marginRight,
+      top: 12 + 22 + 8 + 16 * frame.subtitle.length + frame.titleGap,
+      bottom: 50 + frame.legendHeight + 14,
+    },
+    autosize: { type: "none" },
+    config: chartConfig(),
+    title: { text: frame.title, subtitle: [...frame.subtitle], frame: "group", dx: 12 - frame.marginLeft },
+  };
+}
+
 /** A chart that says why there is nothing to draw (a rejected model, no rolling windows). */
 export function messageSpec(title: string, paragraphs: readonly string[], description: string): Spec {
   const width = 720;

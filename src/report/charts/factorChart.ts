@@ -14,7 +14,7 @@ import { normalQuantile } from "../../core/numerics/normal.js";
 import { formatNumber } from "../format.js";
 import {
   cautionCaption,
-  chartConfig,
+  plotFrame,
   chartText,
   dash,
   decorative,
@@ -191,17 +191,16 @@ export function factorChartSpec(model: FactorModel, options: FactorChartOptions 
   ];
   return {
     description: chartDescription(model, points),
-    width: factorPlotSize,
-    height: factorPlotSize,
-    padding: {
-      left: marginLeft,
-      right: marginRight,
-      top: 12 + 22 + 8 + 16 * subtitle.length + 16,
-      bottom: 50 + legendHeight(legend, legendWidth) + 14,
-    },
-    autosize: { type: "none" },
-    config: chartConfig(),
-    title: { text: factorChartTitle, subtitle, frame: "group", dx: 12 - marginLeft },
+    ...plotFrame({
+      width: factorPlotSize,
+      height: factorPlotSize,
+      marginLeft,
+      marginRight,
+      title: factorChartTitle,
+      subtitle,
+      titleGap: 16,
+      legendHeight: legendHeight(legend, legendWidth),
+    }),
     data: [
       { name: "points", values: points.map((p) => ({ ...p })) },
       { name: "intervals", values: points.filter((p) => p.lower !== null).map((p) => ({ ...p })) },

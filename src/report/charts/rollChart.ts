@@ -13,7 +13,7 @@ import { DAY_MS } from "../../core/calendar.js";
 import {
   assumptionsLine,
   cautionCaption,
-  chartConfig,
+  plotFrame,
   chartText,
   messageSpec,
   palette,
@@ -232,17 +232,16 @@ export function rollChartSpec(windows: readonly RollWindowPoint[], meta: RollCha
     description:
       `Chart of the identified set of the low structural beta in ${rows.length} windows (${windowText}), ` +
       `ending ${first.end} to ${last.end}, with the CAPM beta of the low book.`,
-    width: rollPlotWidth,
-    height: rollPlotHeight,
-    padding: {
-      left: marginLeft,
-      right: marginRight,
-      top: 12 + 22 + 8 + 16 * subtitle.length + 18,
-      bottom: 50 + legendHeight(legend, legendWidth) + 14,
-    },
-    autosize: { type: "none" },
-    config: chartConfig(),
-    title: { text: rollChartTitle, subtitle, frame: "group", dx: 12 - marginLeft },
+    ...plotFrame({
+      width: rollPlotWidth,
+      height: rollPlotHeight,
+      marginLeft,
+      marginRight,
+      title: rollChartTitle,
+      subtitle,
+      titleGap: 18,
+      legendHeight: legendHeight(legend, legendWidth),
+    }),
     data: [
       { name: "rows", values: rows.map((r) => ({ ...r })) },
       { name: "band", values: band },
