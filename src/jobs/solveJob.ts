@@ -17,6 +17,7 @@ import type { JobContext } from "./context.js";
 import { describeInput, loadPairs, type PairLoad, readingMessages, runShape, sampleOf } from "./pairTables.js";
 import { pairsFrom } from "./pairs.js";
 import { tool } from "./tool.js";
+import { withScratchAsync } from "../core/numerics/scratch.js";
 import { pricingFor } from "./pricingStep.js";
 import { uncertaintyFor } from "./uncertaintyStep.js";
 import { modelColumns, modelsFor, modelWarnings } from "./modelsStep.js";
@@ -93,7 +94,7 @@ export async function solvePlanned(files: readonly string[], plan: SolveJobPlan,
   const { options, several } = plan;
   const pairs: SolvedPair[] = [];
   for await (const load of loadPairs(files, pairsFrom(options), options, context.read, modelColumns(options)))
-    pairs.push(await solveLoaded(load, options, context));
+    pairs.push(await withScratchAsync(() => solveLoaded(load, options, context)));
   return { options, pairs, several };
 }
 

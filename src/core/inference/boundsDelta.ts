@@ -15,6 +15,7 @@
  * correlation of the two bound estimates is unchanged.
  */
 
+import { giveBack } from "../numerics/scratch.js";
 import { bilinear, type Matrix } from "../numerics/linearAlgebra.js";
 import { sampleCovarianceOf } from "./hac/longRun.js";
 import { boundInfluenceSeries, boundsLongRunOfSeries, plainMeans } from "./boundsLongRun.js";
@@ -144,6 +145,7 @@ export function boundsDeltaFromData(
   }
   const series = boundInfluenceSeries(x, y, boundGradients(moments));
   const lr = boundsLongRunOfSeries(series.lower, series.upper, hac, confidence);
+  giveBack(series.lower, series.upper);
   const wider = lr.lower.bandwidth >= lr.upper.bandwidth ? lr.lower : lr.upper;
   return {
     ...boundsFromVariances(moments, { lower: lr.lower.variance, upper: lr.upper.variance, covariance: lr.covariance }, x.length, {

@@ -18,6 +18,7 @@
  * (bartlettWindows.ts); no lag-by-lag pass is added.
  */
 
+import { borrowSeries } from "../numerics/scratch.js";
 import { kernelSum } from "./hac/kernelSum.js";
 import { bartlettFixedBFactor } from "./hac/fixedB.js";
 import { defaultHac, type HacKernel, type HacOptions } from "./options.js";
@@ -101,14 +102,14 @@ export function boundInfluenceSeries(
   }
   const means = [sxx / n, syy / n, sxy / n];
   const fill = (g: readonly number[]): Float64Array => {
-    const f = new Float64Array(n);
+    const f = borrowSeries(n);
     const [g0, g1, g2] = g as [number, number, number];
     const [m0, m1, m2] = means as [number, number, number];
     for (let t = 0; t < n; t++) {
       const dx = x[t]! - mx;
       const dy = y[t]! - my;
       // Column by column, skipping zero gradients, as influenceSeries adds them.
-      let v = f[t]!;
+      let v = 0;
       if (g0 !== 0) v = v + g0 * (dx * dx - m0);
       if (g1 !== 0) v = v + g1 * (dy * dy - m1);
       if (g2 !== 0) v = v + g2 * (dx * dy - m2);

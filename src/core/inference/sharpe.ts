@@ -14,6 +14,7 @@
  * The estimate uses the sample standard deviation (divisor T - 1), as the rest of the project.
  */
 
+import { borrowSeries, giveBack } from "../numerics/scratch.js";
 import { longRunCovarianceInPlace } from "./hac/longRun.js";
 import { bilinear } from "../numerics/linearAlgebra.js";
 import type { HacOptions } from "./options.js";
@@ -47,8 +48,9 @@ export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {})
   const variance = ss / (n - 1);
   const sigma = Math.sqrt(variance);
   const estimate = mu / sigma;
-  const first = new Float64Array(n);
-  const second = new Float64Array(n);
+  // Both are written in full below before they are read.
+  const first = borrowSeries(n);
+  const second = borrowSeries(n);
   let m2 = 0;
   let m3 = 0;
   let m4 = 0;
@@ -66,6 +68,7 @@ export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {})
   const skewness = m3 / n / (m2 / n) ** 1.5;
   const kurtosis = m4 / n / (m2 / n) ** 2;
   const sigmaHat = longRunCovarianceInPlace([first, second], hac).covariance;
+  giveBack(first, second);
   const gradient = [1, -estimate / 2];
   return {
     estimate,

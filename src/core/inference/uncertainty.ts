@@ -18,6 +18,7 @@
  * All series are excess returns (return minus risk-free); M = w low + (1 - w) high.
  */
 
+import { borrowSeries, giveBack, withScratch } from "../numerics/scratch.js";
 import { boundsDeltaFromData } from "./boundsDelta.js";
 import { bootstrapSolve, type BootstrapSummary } from "./bootstrap/summary.js";
 import { hacCovariance } from "./hac/hac.js";
@@ -80,7 +81,21 @@ export function assessUncertainty(sample: UncertaintySample, options: Uncertaint
   const data = sample.riskFree === undefined ? { low: sample.low, high: sample.high, weight } : { ...sample, weight };
   // Computed on the excess returns times a power of two (scaling.ts): the HAC sums hold fourth
   // powers of returns. Every result is unit-free except the CAPM alphas' standard errors.
-  const scaled = scaledExcessReturns(data);
+  return withScratch(() => {
+    const scaled = scaledExcessReturns(data, borrowSeries);
+    const result = checkedUncertainty(sample, scaled, weight, options);
+    giveBack(scaled.low, scaled.high);
+    return result;
+  });
+}
+
+/** assessUncertainty on the scaled excess returns, or the failure of a constant series. */
+function checkedUncertainty(
+  sample: UncertaintySample,
+  scaled: { low: Float64Array; high: Float64Array; scale: number },
+  weight: number,
+  options: UncertaintyOptions,
+): Result<Uncertainty, Diagnostic[]> {
   const moments = secondMoments(scaled.low, scaled.high, weight);
   const w = weight;
   const marketVariance = w * w * moments.lowVariance + 2 * w * (1 - w) * moments.covariance + (1 - w) * (1 - w) * moments.highVariance;
@@ -104,7 +119,7 @@ function uncertaintyOf(
   const source = options.intervalSource ?? defaultIntervalSource;
   const n = low.length;
   // A plain loop: Float64Array.from with a mapping function runs several times slower (once per pair).
-  const market = new Float64Array(n);
+  const market = borrowSeries(n);
   for (let t = 0; t < n; t++) market[t] = weight * low[t]! + (1 - weight) * high[t]!;
   const replicates = options.bootstrap?.replicates ?? 0;
   const bootstrap: BootstrapSummary | null =
@@ -191,12 +206,19 @@ function uncertaintyOf(
     };
   }
 
-  const design = [new Float64Array(n).fill(1), market];
+  const design = [borrowSeries(n).fill(1), market];
   // Only the HAC covariance is kept: the residuals (n numbers) are free once it is computed.
-  const capmFit = (y: Float64Array) => ({ hac: hacCovariance(design, leastSquares(design, y).residuals, hac) });
+  const capmFit = (y: Float64Array) => {
+    const { residuals } = leastSquares(design, y);
+    const covariance = hacCovariance(design, residuals, hac);
+    giveBack(residuals);
+    return { hac: covariance };
+  };
   const capmLow = capmFit(low);
   const capmHigh = capmFit(high);
   // Diagonals of a positive semi-definite matrix, negative only by rounding; the alpha's back in the data's units.
+  const sharpe = { low: sharpeStdErrors(low, hac), high: sharpeStdErrors(high, hac), market: sharpeStdErrors(market, hac) };
+  giveBack(market, design[0]!);
   const capmHac = (c: ReturnType<typeof capmFit>): CapmHac => ({
     alphaStdErr: Math.sqrt(Math.max(0, c.hac.covariance[0]![0]!)) / scale,
     betaStdErr: Math.sqrt(Math.max(0, c.hac.covariance[1]![1]!)),
@@ -225,7 +247,7 @@ function uncertaintyOf(
     bounds,
     lowBeta,
     highBeta,
-    sharpe: { low: sharpeStdErrors(low, hac), high: sharpeStdErrors(high, hac), market: sharpeStdErrors(market, hac) },
+    sharpe,
     bootstrap,
   };
 }

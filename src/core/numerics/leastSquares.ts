@@ -10,6 +10,7 @@
  * Econometric Analysis, ch. 4).
  */
 
+import { borrowSeries } from "./scratch.js";
 import { crossColumns, inverse, scale, solve, type Matrix } from "./linearAlgebra.js";
 
 export interface LeastSquaresFit {
@@ -28,7 +29,7 @@ export function leastSquares(design: readonly Float64Array[], y: ArrayLike<numbe
   const xtx = crossColumns(design, design);
   const xty = crossColumns(design, [y]);
   const coefficients = solve(xtx, xty).map((row) => row[0]!);
-  const residuals = new Float64Array(n);
+  const residuals = borrowSeries(n); // every element is written below
   for (let t = 0; t < n; t++) {
     let fitted = 0;
     for (let j = 0; j < design.length; j++) fitted += design[j]![t]! * coefficients[j]!;

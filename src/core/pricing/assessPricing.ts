@@ -13,12 +13,13 @@
  * Numbers are per period in the data's units; computed on the data scaled by a power of two.
  */
 
-import { scaledExcessReturns } from "../inference/bootstrap/replicates.js";
+import { excessReturnScale } from "../inference/bootstrap/replicates.js";
 import { boundGradients } from "../inference/boundsDelta.js";
 import { longRunCovarianceInPlace, sampleCovarianceOf } from "../inference/hac/longRun.js";
 import type { HacOptions, LongRunMethod } from "../inference/options.js";
-import { welfordCrossProducts } from "../moments.js";
+import { excessCrossProducts } from "../moments.js";
 import { normalQuantile } from "../numerics/normal.js";
+import { borrowSeries, giveBack, withScratch } from "../numerics/scratch.js";
 import type { ReturnSample } from "../types.js";
 import { type FiellerSet, fiellerSet, ratioStdError } from "./fieller.js";
 import { type MomentInequalityTest, momentInequalityTest } from "./momentInequalities.js";
@@ -70,12 +71,19 @@ export interface PricingOptions {
 
 /** The pricing assessment of a solved sample whose books have a positive covariance; null otherwise. */
 export function assessPricing(sample: ReturnSample, options: PricingOptions): Pricing | null {
+  return withScratch(() => pricingOf(sample, options));
+}
+
+function pricingOf(sample: ReturnSample, options: PricingOptions): Pricing | null {
   const { weight: w, confidence } = options;
   const v = 1 - w;
-  const { low: x, high: y, scale } = scaledExcessReturns({ ...sample, weight: w });
-  const n = x.length;
+  // The scaled excess returns x and y are formed as each pass goes, never stored: the same numbers
+  // as scaledExcessReturns's, so the same results bit for bit.
+  const rf = sample.riskFree ?? 0;
+  const scale = excessReturnScale({ ...sample, weight: w });
+  const n = sample.low.length;
   // Means and centred sums in one compensated pass (moments.ts), as everywhere in the core.
-  const cp = welfordCrossProducts([x, y]);
+  const cp = excessCrossProducts(sample.low, sample.high, rf, w, scale);
   const mx = cp.means[0]!;
   const my = cp.means[1]!;
   const lambda = w * mx + v * my;
@@ -101,11 +109,14 @@ export function assessPricing(sample: ReturnSample, options: PricingOptions): Pr
 
   /** The covariance of the influence series of mu_x, lambda, d1 = mu_x - Lb lambda, d2 = U lambda - mu_x and the two ends. */
   function influenceCovariance(): number[][] {
-    const series = Array.from({ length: 6 }, () => new Float64Array(n));
+    // Every element of the six series is written below before any is read.
+    const series = Array.from({ length: 6 }, () => borrowSeries(n));
     const [fa, fb, fd1, fd2, fe1, fe2] = series as [Float64Array, Float64Array, Float64Array, Float64Array, Float64Array, Float64Array];
+    const { low, high } = sample;
     for (let t = 0; t < n; t++) {
-      const dx = x[t]! - mx;
-      const dy = y[t]! - my;
+      const r = typeof rf === "number" ? rf : rf[t]!;
+      const dx = (low[t]! - r) * scale - mx;
+      const dy = (high[t]! - r) * scale - my;
       const zx = dx * dx - vx;
       const zy = dy * dy - vy;
       const zc = dx * dy - c;
@@ -121,7 +132,9 @@ export function assessPricing(sample: ReturnSample, options: PricingOptions): Pr
       fe1[t] = lambda * (iL - iBeta) + (lower - beta) * ib;
       fe2[t] = lambda * (iU - iBeta) + (upper - beta) * ib;
     }
-    return options.longRun === "iid" ? sampleCovarianceOf(series) : longRunCovarianceInPlace(series, options.hac).covariance;
+    const covariance = options.longRun === "iid" ? sampleCovarianceOf(series) : longRunCovarianceInPlace(series, options.hac).covariance;
+    giveBack(...series);
+    return covariance;
   }
 
   const ratio = {

@@ -43,13 +43,17 @@ export interface BootstrapRange {
 }
 
 /** Excess returns of both books. */
-export function excessReturns(data: BootstrapData): { low: Float64Array; high: Float64Array } {
+export function excessReturns(
+  data: BootstrapData,
+  allocate: (n: number) => Float64Array = (n) => new Float64Array(n),
+): { low: Float64Array; high: Float64Array } {
   const n = data.low.length;
   if (data.high.length !== n) throw new RangeError("bootstrap: low and high differ in length");
   const rf = data.riskFree ?? 0;
   if (typeof rf !== "number" && rf.length !== n) throw new RangeError("bootstrap: riskFree differs in length");
-  const low = new Float64Array(n);
-  const high = new Float64Array(n);
+  // Every element is written below.
+  const low = allocate(n);
+  const high = allocate(n);
   for (let t = 0; t < n; t++) {
     const r = typeof rf === "number" ? rf : rf[t]!;
     low[t] = data.low[t]! - r;
@@ -62,8 +66,11 @@ export function excessReturns(data: BootstrapData): { low: Float64Array; high: F
  * Excess returns of both books times the power of two that brings their largest absolute value into
  * [1, 2) (scaling.ts), and that `scale`: products of four returns stay inside double precision.
  */
-export function scaledExcessReturns(data: BootstrapData): { low: Float64Array; high: Float64Array; scale: number } {
-  const { low, high } = excessReturns(data);
+export function scaledExcessReturns(
+  data: BootstrapData,
+  allocate?: (n: number) => Float64Array,
+): { low: Float64Array; high: Float64Array; scale: number } {
+  const { low, high } = excessReturns(data, allocate);
   let largest = 0;
   for (let t = 0; t < low.length; t++) largest = Math.max(largest, Math.abs(low[t]!), Math.abs(high[t]!));
   const scale = scaleFor(largest);
@@ -74,6 +81,23 @@ export function scaledExcessReturns(data: BootstrapData): { low: Float64Array; h
     }
   }
   return { low, high, scale };
+}
+
+/**
+ * The `scale` of scaledExcessReturns without building the excess returns: the same power of two, from
+ * the same differences (for passes that form the scaled excess returns as they go, e.g. assessPricing).
+ */
+export function excessReturnScale(data: BootstrapData): number {
+  const n = data.low.length;
+  if (data.high.length !== n) throw new RangeError("bootstrap: low and high differ in length");
+  const rf = data.riskFree ?? 0;
+  if (typeof rf !== "number" && rf.length !== n) throw new RangeError("bootstrap: riskFree differs in length");
+  let largest = 0;
+  for (let t = 0; t < n; t++) {
+    const r = typeof rf === "number" ? rf : rf[t]!;
+    largest = Math.max(largest, Math.abs(data.low[t]! - r), Math.abs(data.high[t]! - r));
+  }
+  return scaleFor(largest);
 }
 
 /**

@@ -21,6 +21,7 @@
  *   prewhitened).
  */
 
+import { borrowSeries, giveBack } from "../../numerics/scratch.js";
 import { addScaledInto } from "../../numerics/seriesLoops.js";
 import type { HacKernel } from "../options.js";
 
@@ -34,12 +35,13 @@ export function neweyWest1994Bandwidth(
   const n = columns[0]!.length;
   const rate = kernel === "bartlett" ? 2 / 9 : 2 / 25;
   const preLag = Math.min(n - 1, Math.floor((prewhitened ? 3 : 4) * (originalRows / 100) ** rate));
-  const f = new Float64Array(n);
+  const f = borrowSeries(n).fill(0);
   columns.forEach((column, a) => {
     const w = columnWeights[a]!;
     if (w !== 0) addScaledInto(f, w, column);
   });
   const sums = autocovarianceSums(f, preLag);
+  giveBack(f);
   let s0 = 0;
   let s1 = 0;
   let s2 = 0;

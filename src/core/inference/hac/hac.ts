@@ -11,6 +11,7 @@
  * instead defaults to prewhite = TRUE and kernHAC() to adjust = TRUE: pass those to reproduce them.
  */
 
+import { borrowSeries, giveBack } from "../../numerics/scratch.js";
 import { kernelSum } from "./kernelSum.js";
 import { productInto } from "../../numerics/seriesLoops.js";
 import { crossColumns, inverse, scale, symmetrise, type Matrix } from "../../numerics/linearAlgebra.js";
@@ -37,8 +38,9 @@ export function hacCovariance(design: readonly Float64Array[], residuals: Float6
   const k = design.length;
   if (k === 0) throw new RangeError("hacCovariance: the design has no columns");
   for (const column of design) if (column.length !== n) throw new RangeError("hacCovariance: design and residuals differ in length");
-  const scores = design.map((column) => productInto(new Float64Array(n), column, residuals));
+  const scores = design.map((column) => productInto(borrowSeries(n), column, residuals));
   const estimate = kernelSum(scores, options, interceptWeights(design));
+  giveBack(...scores);
   const adjust = options.adjust ?? false;
   const meat = adjust ? scale(estimate.sum, n / (n - k)) : estimate.sum;
   const bread = inverse(crossColumns(design, design));
