@@ -93,8 +93,11 @@ export async function solveJob(
 export async function solvePlanned(files: readonly string[], plan: SolveJobPlan, context: JobContext): Promise<SolveJobResult> {
   const { options, several } = plan;
   const pairs: SolvedPair[] = [];
-  for await (const load of loadPairs(files, pairsFrom(options), options, context.read, modelColumns(options)))
-    pairs.push(await withScratchAsync(() => solveLoaded(load, options, context)));
+  // One scratch pool for every pair: pairs of one file have the same rows and reuse the same series.
+  await withScratchAsync(async () => {
+    for await (const load of loadPairs(files, pairsFrom(options), options, context.read, modelColumns(options)))
+      pairs.push(await solveLoaded(load, options, context));
+  });
   return { options, pairs, several };
 }
 

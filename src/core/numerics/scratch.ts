@@ -12,7 +12,7 @@
  */
 
 /** Series shorter than this are allocated, not pooled. */
-export const SCRATCH_MIN = 4096;
+export const SCRATCH_MIN = 1024;
 /** Most arrays the pool holds at once (the rest are left to the collector). */
 const MAX_HELD = 24;
 

@@ -43,6 +43,7 @@ export function bartlettKernelSum(columns: readonly Float64Array[], bandwidth: n
  * TwoSum, the rounding error of each step going to lo, so the sums do not drift over n steps.
  */
 function windowSquares(columns: readonly Float64Array[], width: number): Float64Array {
+  if (columns.length === 2) return windowSquaresOfTwo(columns[0]!, columns[1]!, width);
   const k = columns.length;
   const n = columns[0]!.length;
   const total = new Float64Array(k * k);
@@ -87,5 +88,71 @@ function windowSquares(columns: readonly Float64Array[], width: number): Float64
     }
   }
   for (let i = 0; i < total.length; i++) total[i] = total[i]! + block[i]!;
+  return total;
+}
+
+/**
+ * windowSquares for two columns (most sums: the bounds, each Sharpe ratio, each CAPM fit), the same
+ * operations in the same order with the running pairs in local variables: the same bits, faster.
+ */
+function windowSquaresOfTwo(x: Float64Array, y: Float64Array, width: number): Float64Array {
+  const n = x.length;
+  const total = new Float64Array(4);
+  let xx = 0;
+  let xy = 0;
+  let yy = 0;
+  let hx = 0;
+  let lx = 0;
+  let hy = 0;
+  let ly = 0;
+  let inBlock = 0;
+  for (let t = 1 - width; t < n; t++) {
+    const entering = t + width - 1;
+    if (entering < n) {
+      const u = x[entering]!;
+      const sum = hx + u;
+      const virtual = sum - hx;
+      lx += hx - (sum - virtual) + (u - virtual);
+      hx = sum;
+    }
+    if (t > 0) {
+      const u = -x[t - 1]!;
+      const sum = hx + u;
+      const virtual = sum - hx;
+      lx += hx - (sum - virtual) + (u - virtual);
+      hx = sum;
+    }
+    if (entering < n) {
+      const u = y[entering]!;
+      const sum = hy + u;
+      const virtual = sum - hy;
+      ly += hy - (sum - virtual) + (u - virtual);
+      hy = sum;
+    }
+    if (t > 0) {
+      const u = -y[t - 1]!;
+      const sum = hy + u;
+      const virtual = sum - hy;
+      ly += hy - (sum - virtual) + (u - virtual);
+      hy = sum;
+    }
+    const wx = hx + lx;
+    const wy = hy + ly;
+    xx = xx + wx * wx;
+    xy = xy + wx * wy;
+    yy = yy + wy * wy;
+    if (++inBlock === 1024) {
+      total[0] = total[0]! + xx;
+      total[1] = total[1]! + xy;
+      total[3] = total[3]! + yy;
+      xx = 0;
+      xy = 0;
+      yy = 0;
+      inBlock = 0;
+    }
+  }
+  total[0] = total[0]! + xx;
+  total[1] = total[1]! + xy;
+  total[3] = total[3]! + yy;
   return total;
 }
