@@ -143,12 +143,17 @@ function rollPair(loaded: PairTable, options: CommandOptions<"roll">, spec: Wind
       messages: [...warnings, ...errors.map((e) => ({ severity: "error" as const, text: e.message }))],
     };
   }
+  const { table } = loaded;
   const meta: RollMeta = {
     tool,
     input: describeInput(loaded, options),
     spec,
     weight: options.weight,
-    dates: loaded.table.dates,
+    // Made only when a report asks (the CSV writes stamps from their keys).
+    get dates() {
+      return table.dates;
+    },
+    ...(table.stamps === undefined ? {} : { stamps: table.stamps }),
     inputWarnings,
   };
   const excess = options.uncertainty ? excessReturns({ ...sample, weight: options.weight }) : null;

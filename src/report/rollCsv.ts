@@ -8,6 +8,7 @@
 import type { WindowUncertainty } from "../core/inference/windowUncertainty.js";
 import { windowColumnNames, type WindowColumns } from "../core/rolling/index.js";
 import { csvText } from "./csv.js";
+import { MAX_STAMP_ISO_BYTES, writeStampIso } from "../input/values/dateStamps.js";
 import { maxNumberBytes, writeNumber } from "./numberBytes.js";
 import type { RollMeta } from "./rollReport.js";
 
@@ -97,6 +98,11 @@ class ByteChunks {
     if (!Number.isNaN(x)) this.position = writeNumber(x, this.buffer, this.position);
   }
 
+  /** A date stamp's ISO text (see writeStampIso). */
+  stamp(key: number, form: number): void {
+    this.position = writeStampIso(key, form, this.buffer, this.position);
+  }
+
   /** A string's UTF-8 bytes (at most 3 a UTF-16 unit, room for which was reserved). */
   text(s: string): void {
     const out = this.buffer;
@@ -130,7 +136,7 @@ export async function writeRollCsv(
   write: (bytes: Uint8Array) => Promise<void>,
 ): Promise<void> {
   const prefix = encoder.encode(`${[meta.input.source, meta.input.lowColumn, meta.input.highColumn].map(csvText).join(",")},`);
-  const { dates } = meta;
+  const { stamps } = meta;
   const numbersPerRow = 1 + windowColumnNames.length + (uncertainty === null ? 0 : uncertaintyColumnNames.length);
   const rowBytesButDates = prefix.length + 32 + numbersPerRow * (maxNumberBytes + 1);
   const out = new ByteChunks(write);
@@ -138,14 +144,23 @@ export async function writeRollCsv(
     const series = windowColumnNames.map((name) => columns.columns[name]);
     const { start, end, observations, count } = columns;
     for (let k = 0; k < count; k++) {
-      const first = dates[start[k]!]!;
-      const last = dates[end[k]!]!;
-      const room = rowBytesButDates + 3 * (first.length + last.length);
-      if (!out.fits(room)) await out.makeRoom(room); // awaited only when a chunk is handed over
-      out.bytes(prefix);
-      out.text(first);
-      out.byte(comma);
-      out.text(last);
+      if (stamps === undefined) {
+        const first = meta.dates[start[k]!]!;
+        const last = meta.dates[end[k]!]!;
+        const room = rowBytesButDates + 3 * (first.length + last.length);
+        if (!out.fits(room)) await out.makeRoom(room); // awaited only when a chunk is handed over
+        out.bytes(prefix);
+        out.text(first);
+        out.byte(comma);
+        out.text(last);
+      } else {
+        const room = rowBytesButDates + 2 * MAX_STAMP_ISO_BYTES;
+        if (!out.fits(room)) await out.makeRoom(room);
+        out.bytes(prefix);
+        out.stamp(stamps.keys[start[k]!]!, stamps.form);
+        out.byte(comma);
+        out.stamp(stamps.keys[end[k]!]!, stamps.form);
+      }
       out.byte(comma);
       out.number(observations[k]!);
       out.fields(series, k);

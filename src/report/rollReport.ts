@@ -21,6 +21,8 @@ export interface RollMeta {
   readonly spec: WindowSpec;
   readonly weight: number;
   readonly dates: readonly string[];
+  /** The dates as stamps of one form, when they are (ReturnTable.stamps): written as bytes without `dates`. */
+  readonly stamps?: { readonly keys: Float64Array; readonly form: number };
   /** Warnings from reading the file(s): every window's record lists them first among its diagnostics. */
   readonly inputWarnings: readonly InputWarningDiagnostic[];
 }

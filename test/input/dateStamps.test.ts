@@ -23,6 +23,8 @@ import {
   stampIso,
   stampScan,
   stampText,
+  MAX_STAMP_ISO_BYTES,
+  writeStampIso,
 } from "../../src/input/values/dateStamps.js";
 import { expectSameRead, throughText } from "./helpers.js";
 
@@ -80,6 +82,21 @@ describe("a date stamp", () => {
         expect(stampIso(read.key, read.form)).toBe(general.iso);
       }),
       { seed: 20261204, numRuns: 2000 },
+    );
+  });
+
+  it("writes as bytes the ISO text it gives as a string (the roll CSV's dates)", () => {
+    const out = new Uint8Array(8 + MAX_STAMP_ISO_BYTES).fill(33);
+    fc.assert(
+      fc.property(instant, formArb, (ms, f) => {
+        const read = scanOne(written(ms, f));
+        const end = writeStampIso(read.key, read.form, out, 8);
+        const iso = stampIso(read.key, read.form);
+        expect(String.fromCharCode(...out.subarray(8, end))).toBe(iso);
+        expect(end - 8).toBeLessThanOrEqual(MAX_STAMP_ISO_BYTES);
+        expect(out[7]).toBe(33); // nothing before `at`
+      }),
+      { seed: 20261205, numRuns: 3000 },
     );
   });
 

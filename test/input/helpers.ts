@@ -1,4 +1,5 @@
 import { expect } from "vitest";
+import { stampIso } from "../../src/input/values/dateStamps.js";
 import type { Result } from "../../src/core/result.js";
 import { decodeText } from "../../src/input/decodeText.js";
 import type { InputIssue } from "../../src/input/issues.js";
@@ -52,8 +53,10 @@ export function throughText(
 export function expectSameRead(actual: Result<ReturnTable, InputIssue[]>, expected: Result<ReturnTable, InputIssue[]>): void {
   expect(actual.ok).toBe(expected.ok);
   if (actual.ok && expected.ok) {
-    const { columns: a, ...restA } = actual.value;
-    const { columns: b, ...restB } = expected.value;
+    // Stamps (the dates' keys, a reader's shortcut) must give the dates; the rest must be equal.
+    for (const table of [actual.value, expected.value]) if (table.stamps !== undefined) expectStampsGiveDates(table);
+    const { columns: a, stamps: _a, ...restA } = actual.value;
+    const { columns: b, stamps: _b, ...restB } = expected.value;
     expect(restA).toEqual(restB);
     expect([...a.keys()]).toEqual([...b.keys()]);
     for (const [name, values] of a) {
@@ -62,4 +65,11 @@ export function expectSameRead(actual: Result<ReturnTable, InputIssue[]>, expect
       values.forEach((v, i) => expect(Object.is(v, other[i]), `${name}[${i}]`).toBe(true));
     }
   } else expect(actual).toEqual(expected);
+}
+
+/** A table's stamps, written as ISO text, are its dates. */
+export function expectStampsGiveDates(table: ReturnTable): void {
+  const { keys, form } = table.stamps as NonNullable<ReturnTable["stamps"]>;
+  expect(keys.length).toBe(table.dates.length);
+  keys.forEach((key, i) => expect(stampIso(key, form), `date ${i}`).toBe(table.dates[i]));
 }

@@ -173,6 +173,7 @@ function withDates(
     get dates(): readonly string[] {
       return (dates ??= arrayOf((keys as Float64Array).length, (i) => stampIso((keys as Float64Array)[i] as number, form)));
     },
+    ...(keys === null ? {} : { stamps: { keys, form } }),
     ...rest,
   };
 }

@@ -13,6 +13,12 @@ export interface ReturnTable {
    * so a caller that needs only the range should use firstDate and lastDate.
    */
   readonly dates: readonly string[];
+  /**
+   * When every date is a stamp of one form: their keys (milliseconds since 1970-01-01) and that form
+   * (values/dateStamps.ts), so that a writer of many dates can write them without making `dates`
+   * (writeStampIso gives the bytes of each). Absent otherwise.
+   */
+  readonly stamps?: { readonly keys: Float64Array; readonly form: number };
   /** dates[0] and dates[dates.length - 1], without building `dates`. */
   readonly firstDate: string;
   readonly lastDate: string;

@@ -123,6 +123,59 @@ function timeOfDay(key: number, form: number): string {
   return text;
 }
 
+/** Most bytes `writeStampIso` writes: "YYYY-MM-DDTHH:MM:SS.fffZ". */
+export const MAX_STAMP_ISO_BYTES = 24;
+
+/**
+ * Writes the bytes of `stampIso(key, form)` at `at` of `out` (ASCII, no string made); returns the end.
+ * For a key of a year from 0 to 9999 (the stamps scanStamp reads).
+ */
+export function writeStampIso(key: number, form: number, out: Uint8Array, at: number): number {
+  const day = Math.floor(key / DAY_MS);
+  // H. Hinnant's civil_from_days, as plainIsoDateOfKey.
+  const z = day + 719468;
+  const era = Math.floor(z / 146097);
+  const doe = z - era * 146097;
+  const yoe = Math.floor((doe - Math.floor(doe / 1460) + Math.floor(doe / 36524) - Math.floor(doe / 146096)) / 365);
+  const doy = doe - (365 * yoe + Math.floor(yoe / 4) - Math.floor(yoe / 100));
+  const mp = Math.floor((5 * doy + 2) / 153);
+  const dayOfMonth = doy - Math.floor((153 * mp + 2) / 5) + 1;
+  const month = mp < 10 ? mp + 3 : mp - 9;
+  const year = yoe + era * 400 + (month <= 2 ? 1 : 0);
+  let i = twoDigits(Math.floor(year / 100), out, at);
+  i = twoDigits(year % 100, out, i);
+  out[i++] = 45;
+  i = twoDigits(month, out, i);
+  out[i++] = 45;
+  i = twoDigits(dayOfMonth, out, i);
+  if (form === PLAIN_DATE_FORM) return i;
+  const ms = key - day * DAY_MS;
+  const seconds = Math.floor(ms / 1000);
+  const minutes = Math.floor(seconds / 60);
+  out[i++] = 84; // "T"
+  i = twoDigits(Math.floor(minutes / 60), out, i);
+  out[i++] = 58;
+  i = twoDigits(minutes % 60, out, i);
+  out[i++] = 58;
+  i = twoDigits(seconds % 60, out, i);
+  const digits = (form >> STAMP_FRACTION_SHIFT) & 3;
+  if (digits > 0) {
+    out[i++] = 46;
+    const fraction = ms % 1000;
+    const all = [Math.floor(fraction / 100), Math.floor(fraction / 10) % 10, fraction % 10];
+    for (let d = 0; d < digits; d++) out[i++] = 48 + (all[d] as number);
+  }
+  if ((form & STAMP_ZULU) !== 0) out[i++] = 90;
+  return i;
+}
+
+/** Writes n (0 to 99) as two digits. */
+function twoDigits(n: number, out: Uint8Array, at: number): number {
+  out[at] = 48 + Math.floor(n / 10);
+  out[at + 1] = 48 + (n % 10);
+  return at + 2;
+}
+
 /** The text of a stamp of key `key` written in form `form` (see scanStamp), exactly as written. */
 export function stampText(key: number, form: number): string {
   const date = plainIsoDateOfKey(key);
