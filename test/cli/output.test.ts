@@ -105,6 +105,38 @@ describe("a regular file", () => {
     expect(fs.readdirSync(dir)).toEqual(["out.csv"]);
   });
 
+  // 65 pieces of 1 MiB: more than the 64 MiB after which the file is flushed in the background.
+  const large = Array.from({ length: 65 }, () => new Uint8Array(1 << 20).fill(49));
+
+  it("flushes a large file to the disk in the background as it is written, and commits it whole", async () => {
+    const { path } = folderWith("previous\n");
+    let flushes = 0;
+    const counting: FileOps = {
+      ...fs,
+      fdatasync: ((fd: number, done: (error: NodeJS.ErrnoException | null) => void) => {
+        flushes += 1;
+        fs.fdatasync(fd, done);
+      }) as FileOps["fdatasync"],
+    };
+    expect((await writeAll(path, large, counting)).ok).toBe(true);
+    expect(flushes).toBe(1);
+    expect(fs.statSync(path).size).toBe(65 << 20);
+  });
+
+  it("fails when a background flush fails, leaving the previous file", async () => {
+    const { dir, path } = folderWith("previous\n");
+    const failingFlush: FileOps = {
+      ...fs,
+      fdatasync: ((_fd: number, done: (error: NodeJS.ErrnoException | null) => void) => {
+        setImmediate(() => done(Object.assign(new Error("EIO: injected"), { code: "EIO" })));
+      }) as FileOps["fdatasync"],
+    };
+    const result = await writeAll(path, large, failingFlush);
+    expect(result.ok).toBe(false);
+    expect(fs.readFileSync(path, "utf8")).toBe("previous\n");
+    expect(fs.readdirSync(dir)).toEqual(["out.csv"]);
+  });
+
   it("keeps the mode of the file it replaces", async () => {
     const { path } = folderWith("previous\n");
     fs.chmodSync(path, 0o640);

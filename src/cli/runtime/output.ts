@@ -37,6 +37,7 @@ export type FileOps = Pick<
   | "openSync"
   | "writeSync"
   | "fsyncSync"
+  | "fdatasync"
   | "closeSync"
   | "renameSync"
   | "unlinkSync"
@@ -72,6 +73,12 @@ export function removeTemporaries(ops: FileOps = fs): void {
 
 /** Written to a file this many bytes at a time between yields, so a signal is handled promptly. */
 const yieldEvery = 8 << 20;
+/**
+ * A large temporary file is flushed to the disk in the background (fdatasync on libuv's thread pool)
+ * every this many bytes, while the command goes on producing: the fsync before the rename then has
+ * little left to wait for (685 MB: about 400 ms less). A failure of it fails the commit.
+ */
+const flushEvery = 64 << 20;
 
 /** Standard output (path undefined) or the file at `path`. Nothing is created until this is called. */
 export function openOutput(path: string | undefined, stdout: OutputStream, ops: FileOps = fs): Result<OutputTarget, CliIssue> {
@@ -214,8 +221,13 @@ function replacingTarget(path: string, target: string, ops: FileOps): Result<Out
   } catch (error) {
     return failure({ code: "write-failed", path, reason: fileErrorReason(error) });
   }
+  let sinceFlush = 0;
+  let flushing: Promise<unknown> | null = null;
+  let flushFailed: unknown = null;
   const remove = (): void => {
-    closeQuietly(ops, fd);
+    // A background flush still running keeps the descriptor until it is over.
+    if (flushing === null) closeQuietly(ops, fd);
+    else void flushing.then(() => closeQuietly(ops, fd));
     try {
       ops.unlinkSync(temporary);
     } catch {
@@ -225,12 +237,28 @@ function replacingTarget(path: string, target: string, ops: FileOps): Result<Out
   };
   const writer = checkedWriter(ops, fd);
   let done = false;
+  const write = async (text: string | Uint8Array): Promise<void> => {
+    await writer.write(text);
+    sinceFlush += text.length;
+    if (sinceFlush < flushEvery || flushing !== null || writer.failed !== null || done) return;
+    sinceFlush = 0;
+    flushing = new Promise((settled) =>
+      ops.fdatasync(fd, (error) => {
+        if (error !== null && flushFailed === null) flushFailed = error;
+        flushing = null;
+        settled(undefined);
+      }),
+    );
+  };
   return success({
-    write: (text) => writer.write(text),
+    write,
     async commit() {
       done = true;
       try {
+        // The descriptor stays open until a background flush is over (it runs on another thread).
+        if (flushing !== null) await flushing;
         if (writer.failed !== null) throw writer.failed;
+        if (flushFailed !== null) throw flushFailed;
         keepModeAndOwner(ops, fd, target);
         ops.fsyncSync(fd);
         ops.closeSync(fd);
