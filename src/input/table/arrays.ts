@@ -24,10 +24,27 @@ export function arrayOf<T>(length: number, at: (i: number) => T): T[] {
 /** Arrays made by `identityOf` (never written to afterwards): isIdentity knows them without a pass. */
 const identities = new WeakSet<Int32Array>();
 
+/**
+ * The counting array a[i] = i that `countingFrom` cuts its views from, while anything holds one. A
+ * table's row indexes, its source lines and its identity order are all such runs: one array serves
+ * them, not one each (4 bytes a row each, in fresh memory: see core/numerics/scratch.ts).
+ */
+let counting: WeakRef<Int32Array> | null = null;
+
+/** Int32Array with a[i] = start + i; read-only (a view of one array shared by every such run). */
+export function countingFrom(start: number, length: number): Int32Array {
+  let all = counting?.deref();
+  if (all === undefined || all.length < start + length) {
+    all = new Int32Array(Math.max(start + length, 1024));
+    for (let i = 0; i < all.length; i++) all[i] = i;
+    counting = new WeakRef(all);
+  }
+  return all.subarray(start, start + length);
+}
+
 /** Int32Array with a[i] = i; the caller must not change it (isIdentity remembers it). */
 export function identityOf(length: number): Int32Array {
-  const a = new Int32Array(length);
-  for (let i = 0; i < length; i++) a[i] = i;
+  const a = countingFrom(0, length);
   identities.add(a);
   return a;
 }

@@ -8,6 +8,7 @@ import type { IssueList } from "../issueList.js";
 import type { TableLocation } from "./layout.js";
 import type { Sentinels } from "../values/numbers.js";
 import type { ReadOptions } from "../options.js";
+import { countingFrom } from "./arrays.js";
 import { checkFieldCounts } from "./rowShape.js";
 import { PLAIN_DATE_FORM } from "../values/dateStamps.js";
 
@@ -48,8 +49,8 @@ export function extractWide(
   }
   const count = location.endRow - location.firstDataRow;
   const first = location.firstDataRow;
-  const rows = new Int32Array(count);
-  for (let i = 0; i < count; i++) rows[i] = first + i;
+  // Rows first .. first + count - 1 (a read-only view, see countingFrom).
+  const rows = countingFrom(first, count);
   const columns = valueIndexes.map((index) => header[index] as string);
   const values = columns.map(() => new Float64Array(count));
   const slots = new Int32Array(header.length).fill(-1);
@@ -96,7 +97,7 @@ export function extractWide(
   };
 }
 
-/** The source line of each row. */
+/** The source line of each row (an array of its own: tables hand it to their callers). */
 function linesOf(grid: Grid, rows: Int32Array): Int32Array {
   const lines = new Int32Array(rows.length);
   for (let i = 0; i < rows.length; i++) lines[i] = grid.line(rows[i] as number);
