@@ -33,10 +33,12 @@ const fullPrecisionText = [
 const { bundle, script } = loadCliBundle(dist, false);
 const discard = () => undefined;
 const processIo = bundle.processIo({ loadVega: () => import("vega") });
+const readMade = (read) => (path) =>
+  path === fullPrecision ? Promise.resolve({ ok: true, value: Buffer.from(fullPrecisionText) }) : read(path);
 const io = {
   ...processIo,
-  readInput: (path) =>
-    path === fullPrecision ? Promise.resolve({ ok: true, value: Buffer.from(fullPrecisionText) }) : processIo.readInput(path),
+  readInput: readMade(processIo.readInput),
+  readSource: readMade(processIo.readSource),
   writeOut: discard,
   writeErr: discard,
   // Reports go nowhere: an output target that takes everything and commits nothing.

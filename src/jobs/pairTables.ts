@@ -21,7 +21,7 @@ import type { CommandOptions } from "../options/index.js";
 import type { InputDescription, JoinDescription, RiskFreeSource } from "../report/types.js";
 import { lowerBetaSecond } from "./allPairs.js";
 import { type Pair, pairsFrom } from "./pairs.js";
-import { type ReadSource, sourceName } from "./sources.js";
+import { closerOf, type ReadSource, sourceName } from "./sources.js";
 
 /** The options that say which files, which columns and how to read them (solve's and roll's are the same). */
 export type ReadingOptions = Pick<
@@ -139,17 +139,22 @@ export async function* loadPairs(
       return [...columns, ...extras.filter((name) => !columns.includes(name))];
     });
     // The file is read once for every pair; each pair's table is what reading its columns alone gives.
+    const close = closerOf(bytes.value);
     let tables: ReturnType<typeof readColumnSetsFromBytes> | null = readColumnSetsFromBytes(
       bytes.value,
       readOptions(source, [], options),
       sets,
     );
     bytes = null;
+    if (pairs.length === 0) close();
     for (const [index, pair] of pairs.entries()) {
       const table = tables!(index);
       // The file's bytes and its read are let go before the last pair is solved (on 10 million rows
       // they are hundreds of MB the pair's columns no longer need).
-      if (index === pairs.length - 1) tables = null;
+      if (index === pairs.length - 1) {
+        tables = null;
+        close();
+      }
       if (!table.ok) yield { ok: false, source, pair, errors: inputErrors(table.issues) };
       else {
         const keys = { low: pair.low, high: pair.high, riskFree: riskFree.kind === "column" ? riskFree.column : null };
@@ -229,6 +234,7 @@ async function loadJoined(
     const bytes = await read(side.file);
     if (!bytes.ok) return fail([bytes.issues]);
     const table = readReturnsFromBytes(bytes.value, readOptions(sourceName(side.file), [side.column, ...extra], options));
+    closerOf(bytes.value)();
     if (!table.ok) return fail(inputErrors(table.issues));
     // Both files may call their column the same ("Return"): key them by role for the join.
     const columns = new Map<string, Float64Array>([[key, table.value.columns.get(side.column)!]]);

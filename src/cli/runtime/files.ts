@@ -4,7 +4,8 @@
  */
 import { closeSync, fstatSync, openSync, readFileSync, readSync, statSync } from "node:fs";
 import { failure, success, type Result } from "../../core/result.js";
-import { largeInputBuffer, maximumInputBytes } from "../../input/index.js";
+import { largeInputBuffer, maximumInputBytes, readsThroughWindow } from "../../input/index.js";
+import type { PagedFile } from "../../jobs/index.js";
 import { fileErrorReason, type CliIssue } from "../messages.js";
 import { resolveTarget } from "./output.js";
 
@@ -23,6 +24,37 @@ export async function readInputBytes(path: string, limit = maximumInputBytes): P
     return bytes.length > limit ? failure({ code: "input-too-large", path: name, size: bytes.length, limit }) : success(bytes);
   } catch (error) {
     return failure({ code: "read-failed", path: name, reason: fileErrorReason(error) });
+  }
+}
+
+/**
+ * An input for a job: a large regular file is opened to be read by position through a window (the
+ * input layer reads it so, or whole when it must: see input/engines/byteWindow.ts), closed by the
+ * job; anything else is read whole as `readInputBytes` reads it.
+ */
+export async function readInputSource(path: string, limit = maximumInputBytes): Promise<Result<Uint8Array | PagedFile, CliIssue>> {
+  if (path === "-") return readInputBytes(path, limit);
+  let fd: number;
+  try {
+    fd = openSync(path, "r");
+  } catch {
+    return readInputBytes(path, limit);
+  }
+  let paged = false;
+  try {
+    const stats = fstatSync(fd);
+    if (!stats.isFile() || stats.size > limit || !readsThroughWindow(stats.size)) return await readInputBytes(path, limit);
+    paged = true;
+    let open = true;
+    const close = (): void => {
+      if (open) closeSync(fd);
+      open = false;
+    };
+    return success({ size: stats.size, read: (position, target, offset, length) => readSync(fd, target, offset, length, position), close });
+  } catch (error) {
+    return failure({ code: "read-failed", path, reason: fileErrorReason(error) });
+  } finally {
+    if (!paged) closeSync(fd);
   }
 }
 
