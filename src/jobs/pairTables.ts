@@ -146,25 +146,29 @@ export async function* loadPairs(
       sets,
     );
     bytes = null;
-    if (pairs.length === 0) close();
-    for (const [index, pair] of pairs.entries()) {
-      const table = tables!(index);
-      // The file's bytes and its read are let go before the last pair is solved (on 10 million rows
-      // they are hundreds of MB the pair's columns no longer need).
-      if (index === pairs.length - 1) {
-        tables = null;
-        close();
+    try {
+      for (const [index, pair] of pairs.entries()) {
+        const table = tables!(index);
+        // The file's bytes and its read are let go before the last pair is solved (on 10 million rows
+        // they are hundreds of MB the pair's columns no longer need).
+        if (index === pairs.length - 1) {
+          tables = null;
+          close();
+        }
+        if (!table.ok) yield { ok: false, source, pair, errors: inputErrors(table.issues) };
+        else {
+          const keys = { low: pair.low, high: pair.high, riskFree: riskFree.kind === "column" ? riskFree.column : null };
+          const found = new Map(extras.map((name) => [name, table.value.columns.get(name)!]));
+          const value: PairTable = { source, pair, table: table.value, keys, riskFree, join: null, extras: found };
+          yield {
+            ok: true,
+            value: options.allPairs !== undefined && lowerBetaSecond(sampleOf(value), options.weight) ? swapped(value) : value,
+          };
+        }
       }
-      if (!table.ok) yield { ok: false, source, pair, errors: inputErrors(table.issues) };
-      else {
-        const keys = { low: pair.low, high: pair.high, riskFree: riskFree.kind === "column" ? riskFree.column : null };
-        const found = new Map(extras.map((name) => [name, table.value.columns.get(name)!]));
-        const value: PairTable = { source, pair, table: table.value, keys, riskFree, join: null, extras: found };
-        yield {
-          ok: true,
-          value: options.allPairs !== undefined && lowerBetaSecond(sampleOf(value), options.weight) ? swapped(value) : value,
-        };
-      }
+    } finally {
+      // No pairs, or a consumer that stopped early.
+      close();
     }
   }
 }

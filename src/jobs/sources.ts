@@ -20,9 +20,17 @@ export interface PagedFile extends PagedBytes {
 
 export type ReadSource = (name: string) => Promise<Result<Uint8Array | PagedFile, SourceFailure>>;
 
-/** What closes a file once read (nothing for bytes in memory); it holds no reference to the file's reader. */
+/**
+ * What closes a file once read (nothing for bytes in memory), at most once however often it is
+ * called; it holds no reference to the file's reader, so that what was read through it can be let go.
+ */
 export function closerOf(file: Uint8Array | PagedFile): () => void {
-  return file instanceof Uint8Array ? () => {} : file.close;
+  if (file instanceof Uint8Array) return () => {};
+  let close: (() => void) | null = file.close;
+  return () => {
+    close?.();
+    close = null;
+  };
 }
 
 /** A reader of files held in memory, by name; text is encoded as UTF-8. */

@@ -45,12 +45,11 @@ export async function readInputSource(path: string, limit = maximumInputBytes): 
     const stats = fstatSync(fd);
     if (!stats.isFile() || stats.size > limit || !readsThroughWindow(stats.size)) return await readInputBytes(path, limit);
     paged = true;
-    let open = true;
-    const close = (): void => {
-      if (open) closeSync(fd);
-      open = false;
-    };
-    return success({ size: stats.size, read: (position, target, offset, length) => readSync(fd, target, offset, length, position), close });
+    return success({
+      size: stats.size,
+      read: (position, target, offset, length) => readSync(fd, target, offset, length, position),
+      close: () => closeSync(fd),
+    });
   } catch (error) {
     return failure({ code: "read-failed", path, reason: fileErrorReason(error) });
   } finally {
