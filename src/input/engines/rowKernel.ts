@@ -1,8 +1,8 @@
 /**
  * The row kernel: the simple rows of a plain CSV read by WebAssembly (rowKernel.wat), about twice as
  * fast as the same loop in JavaScript, and fast from the first row (no interpreter warm-up). It reads
- * the file's bytes where they are, in its own memory: a large file is read straight into it
- * (`kernelBytes`, which the CLI uses), a small one is copied there. byteGrid.ts decides what the
+ * the file's bytes where they are, in its own memory: a window onto a large file (`kernelWindow`, see
+ * byteWindow.ts), a large file read whole straight into it (`kernelBytes`), a small one copied there. byteGrid.ts decides what the
  * kernel's output means and reads every flagged row itself, so results are those of the JavaScript
  * engine bit for bit.
  *
