@@ -33,12 +33,17 @@ const fullPrecisionText = [
 const { bundle, script } = loadCliBundle(dist, false);
 const discard = () => undefined;
 const processIo = bundle.processIo({ loadVega: () => import("vega") });
-const readMade = (read) => (path) =>
-  path === fullPrecision ? Promise.resolve({ ok: true, value: Buffer.from(fullPrecisionText) }) : read(path);
+const fullPrecisionBytes = Buffer.from(fullPrecisionText);
+// As a job's source it is read by position, as large files are (through a window: input/engines/byteWindow.ts).
+const fullPrecisionPaged = {
+  size: fullPrecisionBytes.length,
+  read: (position, target, offset, length) => fullPrecisionBytes.copy(target, offset, position, position + length),
+  close: () => undefined,
+};
 const io = {
   ...processIo,
-  readInput: readMade(processIo.readInput),
-  readSource: readMade(processIo.readSource),
+  readInput: (path) => (path === fullPrecision ? Promise.resolve({ ok: true, value: fullPrecisionBytes }) : processIo.readInput(path)),
+  readSource: (path) => (path === fullPrecision ? Promise.resolve({ ok: true, value: fullPrecisionPaged }) : processIo.readSource(path)),
   writeOut: discard,
   writeErr: discard,
   // Reports go nowhere: an output target that takes everything and commits nothing.
