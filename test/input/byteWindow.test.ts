@@ -57,6 +57,21 @@ describe("a file read through a window", () => {
     expect(bytes.length).toBeGreaterThan(1 << 17);
     expectSameThroughWindow(bytes);
     expectSameThroughWindow(bytes, 4096);
+    // Rows reached away from the window read a little around them (64 KiB), reading on fills the window.
+    expectSameThroughWindow(bytes, 100_000);
+  });
+
+  it("reads as its bytes when rows are asked for backwards: dates in descending order, values quoted in issues", () => {
+    const lines = rows(3000);
+    const descending = [lines[0] ?? "", ...lines.slice(1).reverse()];
+    const sorted = { ...options, sort: true };
+    expectSameThroughWindow(encode(`${descending.join("\n")}\n`), 100_000, false, sorted);
+    // Every 50th row's Low an extreme value: the issues quote each, in date order (backwards through the file).
+    const extreme = descending.map((line, i) => (i > 0 && i % 50 === 0 ? line.replace(/^([^,]*),[^,]*,/, "$1,250,") : line));
+    const read = readReturnsFromBytes(encode(`${extreme.join("\n")}\n`), sorted);
+    expect(read.ok ? [] : read.issues.map((issue) => issue.code)).toContain("extreme-value");
+    expectSameThroughWindow(encode(`${extreme.join("\n")}\n`), 100_000, false, sorted);
+    expectSameThroughWindow(encode(`${extreme.join("\n")}\n`), 64, false, sorted);
   });
 
   it("reads as its bytes: CR LF line ends, a pair split between two pieces", () => {

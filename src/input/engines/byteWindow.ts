@@ -25,6 +25,8 @@ export interface PagedBytes {
 
 /** Bytes of the window, unless a row is longer. */
 export const WINDOW_BYTES = 4 << 20;
+/** Bytes read around a range reached away from the window. */
+const NEAR_BYTES = 64 << 10;
 
 /** Where the byte grid's bytes are: all in memory, or a window onto a file. See byteGrid.ts. */
 export interface GridBytes {
@@ -67,9 +69,12 @@ export class ByteWindow implements GridBytes {
     if (from >= this.shift && to <= this.end) return this.held.bytes;
     if (to - from > this.held.bytes.length) this.held = kernelWindow(to - from);
     const capacity = this.held.bytes.length;
-    // Forwards the window starts at `from`; backwards it ends at `to`, so that a backward walk rereads it seldom.
-    const at = from < this.shift ? Math.max(0, to - capacity) : from;
-    this.load(at, Math.min(capacity, this.size - at));
+    // Reading on (from within the window) fills the window; a jump elsewhere (a row asked for alone,
+    // a backward walk) reads a little, ending at `to` when backwards, so that jumps stay cheap.
+    const onward = from >= this.shift && from <= this.end;
+    const length = onward ? capacity : Math.min(capacity, Math.max(to - from, NEAR_BYTES));
+    const at = from < this.shift ? Math.max(0, to - length) : from;
+    this.load(at, Math.min(length, this.size - at));
     return this.held.bytes;
   }
 
