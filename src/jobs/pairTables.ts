@@ -21,7 +21,7 @@ import type { CommandOptions } from "../options/index.js";
 import type { InputDescription, JoinDescription, RiskFreeSource } from "../report/types.js";
 import { lowerBetaSecond } from "./allPairs.js";
 import { type Pair, pairsFrom } from "./pairs.js";
-import { closerOf, type ReadSource, sourceName } from "./sources.js";
+import { closerOf, failureOf, type ReadSource, sourceName } from "./sources.js";
 
 /** The options that say which files, which columns and how to read them (solve's and roll's are the same). */
 export type ReadingOptions = Pick<
@@ -140,6 +140,7 @@ export async function* loadPairs(
     });
     // The file is read once for every pair; each pair's table is what reading its columns alone gives.
     const close = closerOf(bytes.value);
+    const failed = failureOf(bytes.value);
     let tables: ReturnType<typeof readColumnSetsFromBytes> | null = readColumnSetsFromBytes(
       bytes.value,
       readOptions(source, [], options),
@@ -155,7 +156,7 @@ export async function* loadPairs(
           tables = null;
           close();
         }
-        if (!table.ok) yield { ok: false, source, pair, errors: inputErrors(table.issues) };
+        if (!table.ok) yield { ok: false, source, pair, errors: readErrors(table.issues, failed()) };
         else {
           const keys = { low: pair.low, high: pair.high, riskFree: riskFree.kind === "column" ? riskFree.column : null };
           const found = new Map(extras.map((name) => [name, table.value.columns.get(name)!]));
@@ -239,7 +240,7 @@ async function loadJoined(
     if (!bytes.ok) return fail([bytes.issues]);
     const table = readReturnsFromBytes(bytes.value, readOptions(sourceName(side.file), [side.column, ...extra], options));
     closerOf(bytes.value)();
-    if (!table.ok) return fail(inputErrors(table.issues));
+    if (!table.ok) return fail(readErrors(table.issues, failureOf(bytes.value)()));
     // Both files may call their column the same ("Return"): key them by role for the join.
     const columns = new Map<string, Float64Array>([[key, table.value.columns.get(side.column)!]]);
     for (const name of extra) columns.set(`rf:${name}`, table.value.columns.get(name)!);
@@ -300,6 +301,11 @@ function readOptions(source: string, columns: readonly string[], options: Readin
 /** The entries whose value is not undefined (optional properties must be absent, not undefined). */
 function definedOnly<T extends Record<string, unknown>>(entries: T): { [K in keyof T]?: Exclude<T[K], undefined> } {
   return Object.fromEntries(Object.entries(entries).filter(([, v]) => v !== undefined)) as { [K in keyof T]?: Exclude<T[K], undefined> };
+}
+
+/** A file's reading issues, or why reading it failed meanwhile (what its issues then say is beside the point). */
+function readErrors(issues: readonly InputIssue[], failure: PairError | null): PairError[] {
+  return failure === null ? inputErrors(issues) : [failure];
 }
 
 function inputErrors(issues: readonly InputIssue[]): PairError[] {

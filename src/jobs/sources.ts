@@ -13,9 +13,14 @@ export interface SourceFailure {
   readonly message: string;
 }
 
-/** A file read by position, open until `close` (a function of its own: it is called apart from the object). */
+/**
+ * A file read by position, open until `close`; `failure`, when given, says why a read returned fewer
+ * bytes than asked (the job then reports that instead of what reading the file gave). Both are
+ * functions of their own: they are called apart from the object.
+ */
 export interface PagedFile extends PagedBytes {
   readonly close: () => void;
+  readonly failure?: () => SourceFailure | null;
 }
 
 export type ReadSource = (name: string) => Promise<Result<Uint8Array | PagedFile, SourceFailure>>;
@@ -31,6 +36,11 @@ export function closerOf(file: Uint8Array | PagedFile): () => void {
     close?.();
     close = null;
   };
+}
+
+/** Why reading a file failed meanwhile, or null (always null for bytes in memory); it holds no reference to the file's reader. */
+export function failureOf(file: Uint8Array | PagedFile): () => SourceFailure | null {
+  return file instanceof Uint8Array || file.failure === undefined ? () => null : file.failure;
 }
 
 /** A reader of files held in memory, by name; text is encoded as UTF-8. */

@@ -47,7 +47,35 @@ async function documents(read: ReadSource, files: string[], options: CommandOpti
   return JSON.stringify(result.value.pairs.map((pair) => [pair.record, pair.document, pair.status]));
 }
 
+/** The file through a reader that fails half-way, saying why (as the CLI's does when the file shrinks). */
+const failing: ReadSource = async () => {
+  let failed = false;
+  const file: PagedFile = {
+    size: bytes.length,
+    window: 256,
+    read: (position, target, offset, length) => {
+      if (position > bytes.length / 2) {
+        failed = true;
+        return 0;
+      }
+      const count = Math.min(length, bytes.length - position);
+      target.set(bytes.subarray(position, position + count), offset);
+      return count;
+    },
+    close: () => undefined,
+    failure: () => (failed ? why : null),
+  };
+  return { ok: true, value: file };
+};
+const why = { code: "read-failed", message: "cannot read 'daily.csv': it shrank" };
+
 describe("a job reading a file by position", () => {
+  it("reports why a read failed meanwhile, as when the file cannot be read at all", async () => {
+    const options = { low: "low", high: "high", rf: "rf" };
+    const unreadable: ReadSource = async () => ({ ok: false, issues: why });
+    expect(await documents(failing, ["daily.csv"], options)).toBe(await documents(unreadable, ["daily.csv"], options));
+  });
+
   it.each([
     ["one pair", ["daily.csv"], { low: "low", high: "high", rf: "rf" }],
     ["several pairs", ["daily.csv"], { lows: ["low", "other"], highs: ["high"], rf: "rf" }],

@@ -6,7 +6,7 @@ import { closeSync, fstatSync, openSync, readFileSync, readSync, statSync } from
 import { failure, success, type Result } from "../../core/result.js";
 import { largeInputBuffer, maximumInputBytes, readsThroughWindow } from "../../input/index.js";
 import type { PagedFile } from "../../jobs/index.js";
-import { fileErrorReason, type CliIssue } from "../messages.js";
+import { type CliIssue, describeCliIssue, fileErrorReason, SHRANK_REASON } from "../messages.js";
 import { resolveTarget } from "./output.js";
 
 /** Reads a whole file, or standard input for "-"; refuses either beyond `maximumInputBytes`. */
@@ -45,11 +45,21 @@ export async function readInputSource(path: string, limit = maximumInputBytes): 
     const stats = fstatSync(fd);
     if (!stats.isFile() || stats.size > limit || !readsThroughWindow(stats.size)) return await readInputBytes(path, limit);
     paged = true;
-    return success({
-      size: stats.size,
-      read: (position, target, offset, length) => readSync(fd, target, offset, length, position),
-      close: () => closeSync(fd),
-    });
+    const size = stats.size;
+    // A read that fails is reported by the job (see PagedFile.failure), not by the reader it failed.
+    let failed: CliIssue | null = null;
+    const read = (position: number, target: Uint8Array, offset: number, length: number): number => {
+      try {
+        const count = readSync(fd, target, offset, length, position);
+        if (count === 0 && length > 0 && position < size) failed ??= { code: "read-failed", path, reason: SHRANK_REASON };
+        return count;
+      } catch (error) {
+        failed ??= { code: "read-failed", path, reason: fileErrorReason(error) };
+        return 0;
+      }
+    };
+    const failure = () => (failed === null ? null : { code: failed.code, message: describeCliIssue(failed) });
+    return success({ size, read, close: () => closeSync(fd), failure });
   } catch (error) {
     return failure({ code: "read-failed", path, reason: fileErrorReason(error) });
   } finally {
