@@ -14,12 +14,14 @@
  * digits (Clinger's fast path) the mantissa and the power of ten are exact doubles, so one correctly
  * rounded division gives the correctly rounded value, which is what `Number` (and so `parseDecimal`)
  * gives; anything else is handed to `parseDecimal` on the field's text (byteNumbers.ts). The rows
- * are found by plainLines.ts; large tables are read through the row kernel (byteGridKernel.ts).
+ * are found by plainLines.ts; large tables are read through the row kernel (byteGridKernel.ts). The
+ * bytes are all in memory or a window onto a large file (byteWindow.ts): rows are read where `reach`
+ * puts them.
  */
-import { DAY_MS, daysInMonth, plainDateKey } from "../values/dates.js";
 import { NO_FORM, PLAIN_DATE_FORM, scanStamp, stampScan } from "../values/dateStamps.js";
 import { parseDecimal } from "../values/numbers.js";
 import { kernelRange, type RowScan, windowRange } from "./byteGridKernel.js";
+import { IsoDates } from "./byteDates.js";
 import { scanDecimal } from "./byteNumbers.js";
 import type { Grid } from "./grid.js";
 import { asciiText, type PlainLines, UNPLAIN } from "./plainLines.js";
@@ -281,35 +283,13 @@ class ByteGrid implements ByteGridOf {
   }
 
   plainIsoDates(rows: Int32Array, index: number, keys: Float64Array): boolean {
-    const { d } = this;
-    // Consecutive dates mostly share their month: its first day's key and length are kept.
-    let month = -1;
-    let monthKey = 0;
-    let monthLength = 0;
+    const dates = new IsoDates(this.d);
     for (let k = 0; k < rows.length; k++) {
-      const row = rows[k] as number;
-      const bytes = this.reachRow(row);
+      const bytes = this.reachRow(rows[k] as number);
       const end = this.rowEnd;
       const p = index === 0 ? this.rowStart : this.fieldStart(bytes, this.rowStart, end, index);
-      if (p < 0 || p + 10 > end || (p + 10 < end && bytes[p + 10] !== d) || bytes[p + 4] !== 45 || bytes[p + 7] !== 45) return false;
-      const y = digit(bytes, p) * 1000 + digit(bytes, p + 1) * 100 + digit(bytes, p + 2) * 10 + digit(bytes, p + 3);
-      const m = digit(bytes, p + 5) * 10 + digit(bytes, p + 6);
-      const day = digit(bytes, p + 8) * 10 + digit(bytes, p + 9);
-      if (y * 100 + m !== month) {
-        monthKey = plainDateKey(y, m, 1);
-        if (Number.isNaN(monthKey)) return false;
-        month = y * 100 + m;
-        monthLength = daysInMonth(y, m);
-      }
-      if (!(day >= 1 && day <= monthLength)) return false;
-      // plainDateKey(y, m, day): the day count is linear in the day of the month.
-      keys[k] = monthKey + (day - 1) * DAY_MS;
+      if (p < 0 || !dates.read(bytes, p, end, keys, k)) return false;
     }
     return true;
   }
-}
-
-function digit(bytes: Uint8Array, i: number): number {
-  const v = (bytes[i] as number) - 48;
-  return v >= 0 && v <= 9 ? v : Number.NaN;
 }
