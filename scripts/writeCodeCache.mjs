@@ -33,10 +33,17 @@ const fullPrecisionText = [
 const { bundle, script } = loadCliBundle(dist, false);
 const discard = () => undefined;
 const processIo = bundle.processIo({ loadVega: () => import("vega") });
+const fullPrecisionBytes = Buffer.from(fullPrecisionText);
+// As a job's source it is read by position, as large files are (through a window: input/engines/byteWindow.ts).
+const fullPrecisionPaged = {
+  size: fullPrecisionBytes.length,
+  read: (position, target, offset, length) => fullPrecisionBytes.copy(target, offset, position, position + length),
+  close: () => undefined,
+};
 const io = {
   ...processIo,
-  readInput: (path) =>
-    path === fullPrecision ? Promise.resolve({ ok: true, value: Buffer.from(fullPrecisionText) }) : processIo.readInput(path),
+  readInput: (path) => (path === fullPrecision ? Promise.resolve({ ok: true, value: fullPrecisionBytes }) : processIo.readInput(path)),
+  readSource: (path) => (path === fullPrecision ? Promise.resolve({ ok: true, value: fullPrecisionPaged }) : processIo.readSource(path)),
   writeOut: discard,
   writeErr: discard,
   // Reports go nowhere: an output target that takes everything and commits nothing.

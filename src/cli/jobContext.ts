@@ -9,7 +9,7 @@ import { createProgress } from "./runtime/progress.js";
 export function jobContext(io: CliIo): JobContext {
   return {
     read: async (name) => {
-      const bytes = await io.readInput(name);
+      const bytes = await (io.readSource !== undefined ? io.readSource(name) : io.readInput(name));
       return bytes.ok ? bytes : failure({ code: bytes.issues.code, message: describeCliIssue(bytes.issues) });
     },
     bootstrap: inWorkerThreads,

@@ -44,6 +44,9 @@ export function describeOptionIssue(issue: OptionIssue): string {
   return `option '${flagOf(issue.option)}'${argument} is invalid: ${issue.message}`;
 }
 
+/** Why a file read by position could not be read whole: it became shorter after it was opened. */
+export const SHRANK_REASON = "the file became shorter while it was read";
+
 /** A short reason from a Node.js file-system error code. */
 export function fileErrorReason(error: unknown): string {
   const code = typeof error === "object" && error !== null && "code" in error ? String(error.code) : "";

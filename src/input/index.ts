@@ -24,7 +24,8 @@ export { compileDateFormat } from "./values/dateFormat.js";
 export { detectDelimiter } from "./dialect.js";
 export { closestName } from "./suggest.js";
 export { inputWarningCodes, inputWarningDiagnostic, type InputWarningDiagnostic } from "./warningDiagnostics.js";
-export { largeInputBuffer } from "./engines/rowKernel.js";
+export { largeInputBuffer, readsThroughWindow } from "./engines/rowKernel.js";
+export type { PagedBytes } from "./engines/byteWindow.js";
 export { maximumInputBytes, maximumTextLength } from "./limits.js";
 export {
   describeInputIssue,

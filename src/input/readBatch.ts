@@ -8,6 +8,7 @@
  * union cannot be read (after leaving out the columns the union's problems name, twice at most).
  */
 import type { Result } from "../core/result.js";
+import type { PagedBytes } from "./engines/byteWindow.js";
 import type { InputIssue, InputWarning } from "./issues.js";
 import { type ReadOptions, validateOptions } from "./options.js";
 import { type LocatedTable, readBytesThen, readReturnsFromBytes } from "./readReturns.js";
@@ -34,14 +35,18 @@ const RETRIES = 2;
  * Tables are made when asked for; a group of sets shares one read, kept while its sets are asked for.
  */
 export function readColumnSetsFromBytes(
-  bytes: Uint8Array,
+  bytes: Uint8Array | PagedBytes,
   options: Omit<ReadOptions, "columns">,
   sets: readonly (readonly string[])[],
 ): ColumnSetTables {
   const alone = (index: number): Result<ReturnTable, InputIssue[]> =>
     readReturnsFromBytes(bytes, { ...options, columns: sets[index] ?? [] });
   if (sets.length < 2 || options.idColumn !== undefined || options.valueColumn !== undefined) return alone;
-  const groups = groupSets(sets, options, bytes.length > LARGE_INPUT_BYTES ? GROUP_COLUMNS : Number.POSITIVE_INFINITY);
+  const groups = groupSets(
+    sets,
+    options,
+    (bytes instanceof Uint8Array ? bytes.length : bytes.size) > LARGE_INPUT_BYTES ? GROUP_COLUMNS : Number.POSITIVE_INFINITY,
+  );
   let current: { group: number; tables: UnionTables | null } | null = null;
   return (index) => {
     const group = groups.of[index] ?? -1;
@@ -87,7 +92,7 @@ interface UnionRows extends LocatedTable {
   readonly converted: ConvertedTable;
 }
 
-function readUnion(bytes: Uint8Array, options: Omit<ReadOptions, "columns">, names: readonly string[]): UnionTables | null {
+function readUnion(bytes: Uint8Array | PagedBytes, options: Omit<ReadOptions, "columns">, names: readonly string[]): UnionTables | null {
   let columns = names;
   for (let attempt = 0; attempt <= RETRIES && columns.length > 0; attempt++) {
     const read = readBytesThen<UnionRows>(bytes, { ...options, columns }, "auto", (data, readOptions, issues, table) => {

@@ -5,7 +5,9 @@
 import { failure, type Result } from "../core/result.js";
 import { byteGrid } from "./engines/byteGrid.js";
 import { maximumInputBytes } from "./limits.js";
-import { asciiText, isAsciiWhiteSpace, isPlain, plainLines, type PlainLines } from "./engines/plainLines.js";
+import { isPlain, plainLines } from "./engines/plainLines.js";
+import type { PagedBytes } from "./engines/byteWindow.js";
+import { memoryFile, pagedFile, type PlainFile, wholeFile } from "./engines/plainFile.js";
 import { decodeText, notTextIssue } from "./decodeText.js";
 import { detectDelimiter } from "./dialect.js";
 import { extractLong } from "./table/extractLong.js";
@@ -52,9 +54,10 @@ export function readReturnsWith(text: string, options: ReadOptions, engine: Engi
 /**
  * `readReturns` on the bytes of a file: the same as `decodeText(bytes, options.source)` followed,
  * when that succeeds, by `readReturns` on the text (a decoding failure is returned as it is).
- * Plain ASCII files without quotes are read from the bytes directly, without building the text.
+ * Plain ASCII files without quotes are read from the bytes directly, without building the text; a
+ * file given as `PagedBytes` (read by position) is then read through a window, never held whole.
  */
-export function readReturnsFromBytes(bytes: Uint8Array, options: ReadOptions): Result<ReturnTable, InputIssue[]> {
+export function readReturnsFromBytes(bytes: Uint8Array | PagedBytes, options: ReadOptions): Result<ReturnTable, InputIssue[]> {
   return readBytesWith(bytes, options, "auto");
 }
 
@@ -64,7 +67,7 @@ export function readReturnsFromBytes(bytes: Uint8Array, options: ReadOptions): R
  * fallback); results are identical.
  */
 export function readBytesWith(
-  bytes: Uint8Array,
+  bytes: Uint8Array | PagedBytes,
   options: ReadOptions,
   engine: "auto" | "text" | "speculative",
 ): Result<ReturnTable, InputIssue[]> {
@@ -83,24 +86,31 @@ export interface LocatedTable {
   readonly location: TableLocation;
 }
 
-/** `readBytesWith`, its extracted rows handed to `finish`. */
+/** `readBytesWith`, its extracted rows handed to `finish`; a file read by position is read through a window when it allows. */
 export function readBytesThen<T>(
-  bytes: Uint8Array,
+  input: Uint8Array | PagedBytes,
   options: ReadOptions,
   engine: "auto" | "text" | "speculative",
   finish: Finish<T>,
 ): Result<T, InputIssue[]> {
   const source = typeof options?.source === "string" ? options.source : "<input>";
   try {
-    if (bytes.length > maximumInputBytes) {
-      return failure([{ code: "input-too-large", source, size: bytes.length, limit: maximumInputBytes }]);
+    const size = input instanceof Uint8Array ? input.length : input.size;
+    if (size > maximumInputBytes) return failure([{ code: "input-too-large", source, size, limit: maximumInputBytes }]);
+    let bytes: Uint8Array;
+    if (input instanceof Uint8Array) bytes = input;
+    else {
+      const paged = engine === "auto" ? pagedFile(input) : null;
+      const read = paged === null || paged instanceof Uint8Array ? null : readPlainBytes(paged, options, finish);
+      if (read !== null) return read;
+      bytes = paged instanceof Uint8Array ? paged : wholeFile(input);
     }
     const notText = notTextIssue(bytes, source);
     if (notText !== null) return failure([notText]);
     const lines = engine === "text" ? null : plainLines(bytes, engine === "auto" ? undefined : 0);
     let read: Result<T, InputIssue[]> | null = null;
     try {
-      read = lines === null ? null : readPlainBytes(bytes, lines, options, finish);
+      read = lines === null ? null : readPlainBytes(memoryFile(bytes, lines), options, finish);
     } catch (error) {
       // Only a bug can throw; on bytes that are not plain the text decides.
       if (lines === null || isPlain(bytes, lines.start, bytes.length)) throw error;
@@ -117,18 +127,18 @@ export function readBytesThen<T>(
  * `readText` on the file of `lines`, read from its bytes; null when the bytes turn out not to be
  * plain (see byteGrid.ts), so that the text must be read instead.
  */
-function readPlainBytes<T>(bytes: Uint8Array, lines: PlainLines, options: ReadOptions, finish: Finish<T>): Result<T, InputIssue[]> | null {
+function readPlainBytes<T>(file: PlainFile, options: ReadOptions, finish: Finish<T>): Result<T, InputIssue[]> | null {
   const { source } = options;
-  const { start } = lines;
+  const { lines, size } = file;
   const optionIssues = validateOptions(options);
-  if (optionIssues.length > 0) return isPlain(bytes, start, bytes.length) ? failure(optionIssues) : null;
+  if (optionIssues.length > 0) return file.plain() ? failure(optionIssues) : null;
   // Only ASCII white space: the text is blank, whatever else.
-  if (isAsciiWhiteSpace(bytes, start, bytes.length)) return failure([{ code: "empty-file", source }]);
+  if (file.blank()) return failure([{ code: "empty-file", source }]);
   // detectDelimiter looks at no more than the first 65537 characters.
-  const head = (): string => asciiText(bytes, start, Math.min(bytes.length, start + 65537));
+  const head = (): string => file.text(lines.start, Math.min(size, lines.start + 65537));
   const delimiter = options.delimiter ?? detectDelimiter(head(), options.decimalComma === true ? [";", "\t"] : undefined);
-  const grid = byteGrid(bytes, lines, delimiter);
-  const result = readGrid(grid, options, () => bytes.length - start, finish);
+  const grid = byteGrid(file.bytes, lines, delimiter);
+  const result = readGrid(grid, options, () => size - lines.start, finish);
   return grid.clean() ? result : null;
 }
 

@@ -18,6 +18,6 @@ export {
   solveOptions,
   solvePlanned,
 } from "./solveJob.js";
-export { type ReadSource, type SourceFailure, sourceName, sourcesFrom } from "./sources.js";
+export { type PagedFile, type ReadSource, type SourceFailure, sourceName, sourcesFrom } from "./sources.js";
 export { tool, version } from "./tool.js";
 export { defaultThreads } from "./uncertaintyStep.js";

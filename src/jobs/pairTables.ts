@@ -21,7 +21,7 @@ import type { CommandOptions } from "../options/index.js";
 import type { InputDescription, JoinDescription, RiskFreeSource } from "../report/types.js";
 import { lowerBetaSecond } from "./allPairs.js";
 import { type Pair, pairsFrom } from "./pairs.js";
-import { type ReadSource, sourceName } from "./sources.js";
+import { closerOf, failureOf, type ReadSource, sourceName } from "./sources.js";
 
 /** The options that say which files, which columns and how to read them (solve's and roll's are the same). */
 export type ReadingOptions = Pick<
@@ -139,27 +139,37 @@ export async function* loadPairs(
       return [...columns, ...extras.filter((name) => !columns.includes(name))];
     });
     // The file is read once for every pair; each pair's table is what reading its columns alone gives.
+    const close = closerOf(bytes.value);
+    const failed = failureOf(bytes.value);
     let tables: ReturnType<typeof readColumnSetsFromBytes> | null = readColumnSetsFromBytes(
       bytes.value,
       readOptions(source, [], options),
       sets,
     );
     bytes = null;
-    for (const [index, pair] of pairs.entries()) {
-      const table = tables!(index);
-      // The file's bytes and its read are let go before the last pair is solved (on 10 million rows
-      // they are hundreds of MB the pair's columns no longer need).
-      if (index === pairs.length - 1) tables = null;
-      if (!table.ok) yield { ok: false, source, pair, errors: inputErrors(table.issues) };
-      else {
-        const keys = { low: pair.low, high: pair.high, riskFree: riskFree.kind === "column" ? riskFree.column : null };
-        const found = new Map(extras.map((name) => [name, table.value.columns.get(name)!]));
-        const value: PairTable = { source, pair, table: table.value, keys, riskFree, join: null, extras: found };
-        yield {
-          ok: true,
-          value: options.allPairs !== undefined && lowerBetaSecond(sampleOf(value), options.weight) ? swapped(value) : value,
-        };
+    try {
+      for (const [index, pair] of pairs.entries()) {
+        const table = tables!(index);
+        // The file's bytes and its read are let go before the last pair is solved (on 10 million rows
+        // they are hundreds of MB the pair's columns no longer need).
+        if (index === pairs.length - 1) {
+          tables = null;
+          close();
+        }
+        if (!table.ok) yield { ok: false, source, pair, errors: readErrors(table.issues, failed()) };
+        else {
+          const keys = { low: pair.low, high: pair.high, riskFree: riskFree.kind === "column" ? riskFree.column : null };
+          const found = new Map(extras.map((name) => [name, table.value.columns.get(name)!]));
+          const value: PairTable = { source, pair, table: table.value, keys, riskFree, join: null, extras: found };
+          yield {
+            ok: true,
+            value: options.allPairs !== undefined && lowerBetaSecond(sampleOf(value), options.weight) ? swapped(value) : value,
+          };
+        }
       }
+    } finally {
+      // No pairs, or a consumer that stopped early.
+      close();
     }
   }
 }
@@ -229,7 +239,8 @@ async function loadJoined(
     const bytes = await read(side.file);
     if (!bytes.ok) return fail([bytes.issues]);
     const table = readReturnsFromBytes(bytes.value, readOptions(sourceName(side.file), [side.column, ...extra], options));
-    if (!table.ok) return fail(inputErrors(table.issues));
+    closerOf(bytes.value)();
+    if (!table.ok) return fail(readErrors(table.issues, failureOf(bytes.value)()));
     // Both files may call their column the same ("Return"): key them by role for the join.
     const columns = new Map<string, Float64Array>([[key, table.value.columns.get(side.column)!]]);
     for (const name of extra) columns.set(`rf:${name}`, table.value.columns.get(name)!);
@@ -290,6 +301,11 @@ function readOptions(source: string, columns: readonly string[], options: Readin
 /** The entries whose value is not undefined (optional properties must be absent, not undefined). */
 function definedOnly<T extends Record<string, unknown>>(entries: T): { [K in keyof T]?: Exclude<T[K], undefined> } {
   return Object.fromEntries(Object.entries(entries).filter(([, v]) => v !== undefined)) as { [K in keyof T]?: Exclude<T[K], undefined> };
+}
+
+/** A file's reading issues, or why reading it failed meanwhile (what its issues then say is beside the point). */
+function readErrors(issues: readonly InputIssue[], failure: PairError | null): PairError[] {
+  return failure === null ? inputErrors(issues) : [failure];
 }
 
 function inputErrors(issues: readonly InputIssue[]): PairError[] {

@@ -1,10 +1,13 @@
-/** The CLI's file access (src/cli/runtime/files.ts): reads, large reads into the row kernel's memory, the size limit. */
-import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+/**
+ * The CLI's file access (src/cli/runtime/files.ts): reads, large reads into the row kernel's memory,
+ * large files opened to be read by position, the size limit.
+ */
+import { mkdtempSync, readFileSync, truncateSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { Readable } from "node:stream";
 import { describe, expect, it } from "vitest";
-import { readInputBytes, readStream } from "../../src/cli/runtime/files.js";
+import { readInputBytes, readInputSource, readStream } from "../../src/cli/runtime/files.js";
 import { rowKernelFor } from "../../src/input/engines/rowKernel.js";
 
 const scratch = mkdtempSync(join(tmpdir(), "betabound-files-"));
@@ -33,6 +36,49 @@ describe("readInputBytes", () => {
 
   it("says which file could not be read, and why", async () => {
     const read = await readInputBytes(join(scratch, "missing.csv"));
+    expect(read.ok).toBe(false);
+    if (!read.ok) expect(read.issues).toMatchObject({ code: "read-failed", path: join(scratch, "missing.csv") });
+  });
+});
+
+describe("readInputSource", () => {
+  const row = "2020-01-31,0.012345,-0.5\n";
+  const largeText = `Date,A,B\n${row.repeat(Math.ceil((17 << 20) / row.length))}`;
+
+  it("reads a small file whole, and opens a large one to be read by position (closed by its reader)", async () => {
+    const small = join(scratch, "source-small.csv");
+    writeFileSync(small, "Date,A\n2020-01-31,1\n");
+    const whole = await readInputSource(small);
+    expect(whole.ok && whole.value instanceof Uint8Array).toBe(true);
+    const path = join(scratch, "source-large.csv");
+    writeFileSync(path, largeText);
+    const opened = await readInputSource(path);
+    if (!opened.ok || opened.value instanceof Uint8Array) throw new Error("expected a file read by position");
+    const file = opened.value;
+    expect(file.size).toBe(largeText.length);
+    const piece = new Uint8Array(row.length);
+    expect(file.read(9, piece, 0, piece.length)).toBe(row.length);
+    expect(Buffer.from(piece).toString()).toBe(row);
+    expect(file.failure?.()).toBeNull();
+    file.close();
+  });
+
+  it("says why, when a file read by position became shorter meanwhile", async () => {
+    const path = join(scratch, "source-shrinks.csv");
+    writeFileSync(path, largeText);
+    const opened = await readInputSource(path);
+    if (!opened.ok || opened.value instanceof Uint8Array) throw new Error("expected a file read by position");
+    truncateSync(path, 1000);
+    expect(opened.value.read(5000, new Uint8Array(10), 0, 10)).toBe(0);
+    expect(opened.value.failure?.()).toEqual({
+      code: "read-failed",
+      message: `cannot read '${path}': the file became shorter while it was read; check the path and its permissions`,
+    });
+    opened.value.close();
+  });
+
+  it("says which file could not be opened, and why", async () => {
+    const read = await readInputSource(join(scratch, "missing.csv"));
     expect(read.ok).toBe(false);
     if (!read.ok) expect(read.issues).toMatchObject({ code: "read-failed", path: join(scratch, "missing.csv") });
   });

@@ -4,8 +4,9 @@
  */
 import { closeSync, fstatSync, openSync, readFileSync, readSync, statSync } from "node:fs";
 import { failure, success, type Result } from "../../core/result.js";
-import { largeInputBuffer, maximumInputBytes } from "../../input/index.js";
-import { fileErrorReason, type CliIssue } from "../messages.js";
+import { largeInputBuffer, maximumInputBytes, readsThroughWindow } from "../../input/index.js";
+import type { PagedFile } from "../../jobs/index.js";
+import { type CliIssue, describeCliIssue, fileErrorReason, SHRANK_REASON } from "../messages.js";
 import { resolveTarget } from "./output.js";
 
 /** Reads a whole file, or standard input for "-"; refuses either beyond `maximumInputBytes`. */
@@ -23,6 +24,46 @@ export async function readInputBytes(path: string, limit = maximumInputBytes): P
     return bytes.length > limit ? failure({ code: "input-too-large", path: name, size: bytes.length, limit }) : success(bytes);
   } catch (error) {
     return failure({ code: "read-failed", path: name, reason: fileErrorReason(error) });
+  }
+}
+
+/**
+ * An input for a job: a large regular file is opened to be read by position through a window (the
+ * input layer reads it so, or whole when it must: see input/engines/byteWindow.ts), closed by the
+ * job; anything else is read whole as `readInputBytes` reads it.
+ */
+export async function readInputSource(path: string, limit = maximumInputBytes): Promise<Result<Uint8Array | PagedFile, CliIssue>> {
+  if (path === "-") return readInputBytes(path, limit);
+  let fd: number;
+  try {
+    fd = openSync(path, "r");
+  } catch {
+    return readInputBytes(path, limit);
+  }
+  let paged = false;
+  try {
+    const stats = fstatSync(fd);
+    if (!stats.isFile() || stats.size > limit || !readsThroughWindow(stats.size)) return await readInputBytes(path, limit);
+    paged = true;
+    const size = stats.size;
+    // A read that fails is reported by the job (see PagedFile.failure), not by the reader it failed.
+    let failed: CliIssue | null = null;
+    const read = (position: number, target: Uint8Array, offset: number, length: number): number => {
+      try {
+        const count = readSync(fd, target, offset, length, position);
+        if (count === 0 && length > 0 && position < size) failed ??= { code: "read-failed", path, reason: SHRANK_REASON };
+        return count;
+      } catch (error) {
+        failed ??= { code: "read-failed", path, reason: fileErrorReason(error) };
+        return 0;
+      }
+    };
+    const failure = () => (failed === null ? null : { code: failed.code, message: describeCliIssue(failed) });
+    return success({ size, read, close: () => closeSync(fd), failure });
+  } catch (error) {
+    return failure({ code: "read-failed", path, reason: fileErrorReason(error) });
+  } finally {
+    if (!paged) closeSync(fd);
   }
 }
 

@@ -1,5 +1,6 @@
 /** The CLI's seams to the outside world; tests replace them, `main.ts` binds them to the process. */
 import type { Result } from "../../core/result.js";
+import type { PagedFile } from "../../jobs/index.js";
 import type { VegaLoader } from "../../report/charts/loadVega.js";
 import type { CliIssue } from "../messages.js";
 import type { OutputTarget } from "./output.js";
@@ -12,6 +13,8 @@ export interface CliIo {
   writeErr(text: string): void;
   /** A whole input file, or standard input for "-"; refused beyond the input size limit. */
   readInput(path: string): Promise<Result<Uint8Array, CliIssue>>;
+  /** An input file for a job: as readInput, or a large file opened to be read by position (readInput when absent). */
+  readSource?(path: string): Promise<Result<Uint8Array | PagedFile, CliIssue>>;
   /**
    * Standard output (path undefined) or the file at `path`, written as output.ts promises (a
    * temporary file renamed on commit; special files in place). Nothing is created before this call.

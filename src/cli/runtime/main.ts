@@ -9,7 +9,7 @@ import type { VegaLoader } from "../../report/charts/loadVega.js";
 import { run } from "../program.js";
 import { describeCliIssue, fileErrorReason } from "../messages.js";
 import { exitCodes, type ExitCode } from "./exitCodes.js";
-import { identify, readInputBytes } from "./files.js";
+import { identify, readInputBytes, readInputSource } from "./files.js";
 import type { CliIo } from "./io.js";
 import { openOutput, removeTemporaries } from "./output.js";
 
@@ -27,6 +27,7 @@ export function processIo(launch: Launch): CliIo {
     writeOut: (text: string) => void process.stdout.write(text),
     writeErr: (text: string) => void process.stderr.write(text),
     readInput: (path) => readInputBytes(path),
+    readSource: (path) => readInputSource(path),
     openOutput: (path) => openOutput(path, process.stdout),
     identify,
     // Getters: each stream is set up only when a run asks (stdin's, for instance, loads the network

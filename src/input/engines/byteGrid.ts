@@ -14,16 +14,18 @@
  * digits (Clinger's fast path) the mantissa and the power of ten are exact doubles, so one correctly
  * rounded division gives the correctly rounded value, which is what `Number` (and so `parseDecimal`)
  * gives; anything else is handed to `parseDecimal` on the field's text (byteNumbers.ts). The rows
- * are found by plainLines.ts; large tables are read through the row kernel (byteGridKernel.ts).
+ * are found by plainLines.ts; large tables are read through the row kernel (byteGridKernel.ts). The
+ * bytes are all in memory or a window onto a large file (byteWindow.ts): rows are read where `reach`
+ * puts them.
  */
-import { DAY_MS, daysInMonth, plainDateKey } from "../values/dates.js";
 import { NO_FORM, PLAIN_DATE_FORM, scanStamp, stampScan } from "../values/dateStamps.js";
 import { parseDecimal } from "../values/numbers.js";
-import { kernelRange, type RowScan } from "./byteGridKernel.js";
+import { kernelRange, type RowScan, windowRange } from "./byteGridKernel.js";
+import { IsoDates } from "./byteDates.js";
 import { scanDecimal } from "./byteNumbers.js";
 import type { Grid } from "./grid.js";
-import { asciiText, isPlain, type PlainLines, UNPLAIN } from "./plainLines.js";
-import { rowKernelFor } from "./rowKernel.js";
+import { asciiText, type PlainLines, UNPLAIN } from "./plainLines.js";
+import type { GridBytes } from "./byteWindow.js";
 
 /** A grid whose bytes may turn out not to be plain: see `clean`. */
 export interface ByteGridOf extends Grid {
@@ -31,8 +33,11 @@ export interface ByteGridOf extends Grid {
   clean(): boolean;
 }
 
-/** The grid of a file's `plainLines`, split at `delimiter` (one ASCII character). */
-export function byteGrid(bytes: Uint8Array, lines: PlainLines, delimiter: string): ByteGridOf {
+/**
+ * The grid of a file's `plainLines`, split at `delimiter` (one ASCII character): the file's bytes, or
+ * a window onto them (byteWindow.ts) through which the rows are read.
+ */
+export function byteGrid(bytes: GridBytes, lines: PlainLines, delimiter: string): ByteGridOf {
   return new ByteGrid(bytes, delimiter, lines);
 }
 
@@ -46,14 +51,18 @@ class ByteGrid implements ByteGridOf {
   private readonly start: number;
   readonly starts: Int32Array;
   private readonly firstBytes: Uint8Array;
+  private readonly size: number;
   /** Rows [checkedFrom, checkedTo) were found plain by readRows. */
   private checkedFrom = 0;
   private checkedTo = 0;
   /** Set when readRows met a byte that is not plain. */
   private unplain = false;
+  /** Where the row `reachRow` last reached starts and ends (before any CR LF) in its bytes. */
+  private rowStart = 0;
+  private rowEnd = 0;
 
   constructor(
-    private readonly bytes: Uint8Array,
+    private readonly bytes: GridBytes,
     readonly delimiter: string,
     lines: PlainLines,
   ) {
@@ -61,16 +70,30 @@ class ByteGrid implements ByteGridOf {
     this.start = lines.start;
     this.starts = lines.starts;
     this.firstBytes = lines.firstBytes;
-    this.openEnd = (this.starts[this.starts.length - 1] as number) > bytes.length;
+    this.size = bytes.size;
+    this.openEnd = (this.starts[this.starts.length - 1] as number) > bytes.size;
+  }
+
+  /** The bytes holding the row, its start and end (before any CR LF) there in rowStart and rowEnd. */
+  private reachRow(row: number): Uint8Array {
+    const from = this.starts[row] as number;
+    const next = this.starts[row + 1] as number;
+    const bytes = this.bytes.reach(from, Math.min(next, this.size));
+    const shift = this.bytes.shift;
+    const start = from - shift;
+    const end = next - 1 - shift;
+    this.rowStart = start;
+    this.rowEnd = end > start && bytes[end - 1] === 13 ? end - 1 : end;
+    return bytes;
   }
 
   clean(): boolean {
     if (this.unplain) return false;
-    const { bytes, starts } = this;
-    if (this.checkedFrom >= this.checkedTo) return isPlain(bytes, this.start, bytes.length);
+    const { bytes, starts, size } = this;
+    if (this.checkedFrom >= this.checkedTo) return bytes.plain(this.start, size);
     const checkedStart = starts[this.checkedFrom] as number;
-    const checkedEnd = Math.min(bytes.length, starts[this.checkedTo] as number);
-    return isPlain(bytes, this.start, checkedStart) && isPlain(bytes, checkedEnd, bytes.length);
+    const checkedEnd = Math.min(size, starts[this.checkedTo] as number);
+    return bytes.plain(this.start, checkedStart) && bytes.plain(checkedEnd, size);
   }
 
   get rowCount(): number {
@@ -81,19 +104,14 @@ class ByteGrid implements ByteGridOf {
     return row + 1;
   }
 
-  private end(row: number): number {
-    const start = this.starts[row] as number;
-    const end = (this.starts[row + 1] as number) - 1;
-    return end > start && this.bytes[end - 1] === 13 ? end - 1 : end;
-  }
-
   isBlank(row: number): boolean {
-    const { bytes, d } = this;
+    const { d } = this;
     const first = this.firstBytes[row] as number;
     // A printable first character lies before the line break, so the row is not blank.
     if (first > 32 && first < 128 && first !== d) return false;
-    const end = this.end(row);
-    for (let i = this.starts[row] as number; i < end; i++) {
+    const bytes = this.reachRow(row);
+    const end = this.rowEnd;
+    for (let i = this.rowStart; i < end; i++) {
       const code = bytes[i] as number;
       if (code === d || code === 32 || code === 9) continue;
       if (code > 32 && code < 128) return false;
@@ -104,17 +122,18 @@ class ByteGrid implements ByteGridOf {
 
   fieldCount(row: number): number {
     if (this.isBlank(row)) return 0;
-    const { bytes, d } = this;
-    const end = this.end(row);
+    const { d } = this;
+    const bytes = this.reachRow(row);
+    const end = this.rowEnd;
     let count = 1;
-    for (let i = this.starts[row] as number; i < end; i++) if (bytes[i] === d) count++;
+    for (let i = this.rowStart; i < end; i++) if (bytes[i] === d) count++;
     return count;
   }
 
-  /** Start of field `index` of the row, or -1 beyond the last field. */
-  private fieldStart(row: number, index: number, end: number): number {
-    const { bytes, d } = this;
-    let i = this.starts[row] as number;
+  /** Where field `index` of the row in `bytes` [start, end) starts there, or -1 beyond the last field. */
+  private fieldStart(bytes: Uint8Array, start: number, end: number, index: number): number {
+    const { d } = this;
+    let i = start;
     for (let f = 0; f < index; f++) {
       while (i < end && bytes[i] !== d) i++;
       if (i >= end) return -1;
@@ -124,16 +143,18 @@ class ByteGrid implements ByteGridOf {
   }
 
   field(row: number, index: number): string {
-    const end = this.end(row);
-    const from = this.fieldStart(row, index, end);
+    const bytes = this.reachRow(row);
+    const end = this.rowEnd;
+    const from = this.fieldStart(bytes, this.rowStart, end, index);
     if (from < 0) return "";
     let to = from;
-    while (to < end && this.bytes[to] !== this.d) to++;
-    return asciiText(this.bytes, from, to);
+    while (to < end && bytes[to] !== this.d) to++;
+    return asciiText(bytes, from, to);
   }
 
   fields(row: number): string[] {
-    return asciiText(this.bytes, this.starts[row] as number, this.end(row)).split(this.delimiter);
+    const bytes = this.reachRow(row);
+    return asciiText(bytes, this.rowStart, this.rowEnd).split(this.delimiter);
   }
 
   readNumbers(row: number, slots: Int32Array, out: readonly Float64Array[], at: number): number {
@@ -144,9 +165,10 @@ class ByteGrid implements ByteGridOf {
       });
       return fields.length;
     }
-    const { bytes, d } = this;
-    const end = this.end(row);
-    let i = this.starts[row] as number;
+    const { d } = this;
+    const bytes = this.reachRow(row);
+    const end = this.rowEnd;
+    let i = this.rowStart;
     let f = 0;
     for (;;) {
       const slot = f < slots.length ? (slots[f] as number) : -1;
@@ -171,10 +193,12 @@ class ByteGrid implements ByteGridOf {
   ): { readonly plainDates: boolean; readonly dateForm: number; readonly withNaN: readonly boolean[] } {
     // Only a field handed to parseDecimal can give NaN.
     const state: RowScan = { plain: true, ...stampScan(), unplain: 0, withNaN: out.map(() => false) };
-    const kernel = count >= KERNEL_MIN_ROWS && this.d < 128 ? rowKernelFor(this.bytes) : null;
+    const kernel = count >= KERNEL_MIN_ROWS && this.d < 128 ? this.bytes.kernel() : null;
     const chunk = kernel === null ? 0 : kernel.kernel.chunkRows(slots.length, out.length);
     if (kernel === null || chunk === 0) this.scanRange(first, 0, count, slots, out, counts, dateIndex, dateKeys, state);
-    else kernelRange(this, kernel.kernel, kernel.base, chunk, first, count, slots, out, counts, dateIndex, dateKeys, state);
+    else if (this.bytes.span === Number.POSITIVE_INFINITY)
+      kernelRange(this, kernel.kernel, kernel.base, chunk, first, count, slots, out, counts, dateIndex, dateKeys, state);
+    else windowRange(this, this.bytes, chunk, first, count, slots, out, counts, dateIndex, dateKeys, state);
     if (state.unplain !== 0) this.unplain = true;
     else if (count > 0) {
       this.checkedFrom = first;
@@ -195,7 +219,7 @@ class ByteGrid implements ByteGridOf {
     dateKeys: Float64Array,
     state: RowScan,
   ): void {
-    const { bytes, d, starts } = this;
+    const { d, starts } = this;
     const lastRow = this.openEnd ? starts.length - 2 : -1;
     const { withNaN } = state;
     let { plain } = state;
@@ -203,19 +227,19 @@ class ByteGrid implements ByteGridOf {
     let unplain = state.unplain;
     for (let k = from; k < to; k++) {
       const row = first + k;
-      const start = starts[row] as number;
+      const bytes = this.reachRow(row);
+      const start = this.rowStart;
+      const end = this.rowEnd;
       if (row === lastRow) {
         counts[k] = this.readNumbers(row, slots, out, k);
         out.forEach((values, slot) => (withNaN[slot] ||= Number.isNaN(values[k] as number)));
         if (plain) {
-          const p = dateIndex === 0 ? start : this.fieldStart(row, dateIndex, this.end(row));
-          plain = p >= 0 && scanStamp(bytes, p, this.end(row), d, dateKeys, k, state) >= 0;
+          const p = dateIndex === 0 ? start : this.fieldStart(bytes, start, end, dateIndex);
+          plain = p >= 0 && scanStamp(bytes, p, end, d, dateKeys, k, state) >= 0;
         }
-        if (!isPlain(bytes, start, bytes.length)) unplain = 1;
+        if (!this.bytes.plain(starts[row] as number, this.size)) unplain = 1;
         continue;
       }
-      let end = (starts[row + 1] as number) - 1;
-      if (end > start && bytes[end - 1] === 13) end--;
       let i = start;
       let f = 0;
       let dated = false;
@@ -259,34 +283,13 @@ class ByteGrid implements ByteGridOf {
   }
 
   plainIsoDates(rows: Int32Array, index: number, keys: Float64Array): boolean {
-    const { bytes, d } = this;
-    // Consecutive dates mostly share their month: its first day's key and length are kept.
-    let month = -1;
-    let monthKey = 0;
-    let monthLength = 0;
+    const dates = new IsoDates(this.d);
     for (let k = 0; k < rows.length; k++) {
-      const row = rows[k] as number;
-      const end = this.end(row);
-      const p = index === 0 ? (this.starts[row] as number) : this.fieldStart(row, index, end);
-      if (p < 0 || p + 10 > end || (p + 10 < end && bytes[p + 10] !== d) || bytes[p + 4] !== 45 || bytes[p + 7] !== 45) return false;
-      const y = digit(bytes, p) * 1000 + digit(bytes, p + 1) * 100 + digit(bytes, p + 2) * 10 + digit(bytes, p + 3);
-      const m = digit(bytes, p + 5) * 10 + digit(bytes, p + 6);
-      const day = digit(bytes, p + 8) * 10 + digit(bytes, p + 9);
-      if (y * 100 + m !== month) {
-        monthKey = plainDateKey(y, m, 1);
-        if (Number.isNaN(monthKey)) return false;
-        month = y * 100 + m;
-        monthLength = daysInMonth(y, m);
-      }
-      if (!(day >= 1 && day <= monthLength)) return false;
-      // plainDateKey(y, m, day): the day count is linear in the day of the month.
-      keys[k] = monthKey + (day - 1) * DAY_MS;
+      const bytes = this.reachRow(rows[k] as number);
+      const end = this.rowEnd;
+      const p = index === 0 ? this.rowStart : this.fieldStart(bytes, this.rowStart, end, index);
+      if (p < 0 || !dates.read(bytes, p, end, keys, k)) return false;
     }
     return true;
   }
-}
-
-function digit(bytes: Uint8Array, i: number): number {
-  const v = (bytes[i] as number) - 48;
-  return v >= 0 && v <= 9 ? v : Number.NaN;
 }

@@ -5,6 +5,7 @@
  * result is that reader's bit for bit.
  */
 import type { StampScan } from "../values/dateStamps.js";
+import type { GridBytes } from "./byteWindow.js";
 import type { KernelChunk, RowKernel } from "./rowKernel.js";
 
 /**
@@ -74,6 +75,63 @@ export function kernelRange(
       if (read.flagged > 0) settleFlagged(grid, read, kernel, base, first, k0, kEnd, slots, out, counts, dateIndex, dateKeys, state);
     }
     if (kEnd < k1) grid.scanRange(first, kEnd, k1, slots, out, counts, dateIndex, dateKeys, state);
+  }
+}
+
+/**
+ * kernelRange when the bytes are a window onto the file (byteWindow.ts): groups of at most `chunk`
+ * rows whose bytes fit in the window (one row at least, for which the window grows), each read by
+ * the kernel where the window holds it.
+ */
+export function windowRange(
+  grid: RowRanges,
+  bytes: GridBytes,
+  chunk: number,
+  first: number,
+  count: number,
+  slots: Int32Array,
+  out: readonly Float64Array[],
+  counts: Int32Array,
+  dateIndex: number,
+  dateKeys: Float64Array,
+  state: RowScan,
+): void {
+  const { starts } = grid;
+  const { size, span } = bytes;
+  for (let g0 = 0; g0 < count; ) {
+    const from = starts[first + g0] as number;
+    // The most rows (up to a chunk) that end within the window's span from the group's start.
+    let low = g0 + 1;
+    let high = Math.min(count, g0 + chunk);
+    while (low < high) {
+      const middle = (low + high + 1) >> 1;
+      if (Math.min(size, starts[first + middle] as number) - from <= span) low = middle;
+      else high = middle - 1;
+    }
+    const g1 = low;
+    bytes.reach(from, Math.min(size, starts[first + g1] as number));
+    const kernel = bytes.kernel();
+    const part = (values: Float64Array): Float64Array => values.subarray(g0, g1);
+    if (kernel === null) grid.scanRange(first, g0, g1, slots, out, counts, dateIndex, dateKeys, state);
+    else {
+      const partOut = out.map(part);
+      const partCounts = counts.subarray(g0, g1);
+      kernelRange(
+        grid,
+        kernel.kernel,
+        kernel.base,
+        chunk,
+        first + g0,
+        g1 - g0,
+        slots,
+        partOut,
+        partCounts,
+        dateIndex,
+        part(dateKeys),
+        state,
+      );
+    }
+    g0 = g1;
   }
 }
 

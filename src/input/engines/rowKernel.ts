@@ -1,8 +1,8 @@
 /**
  * The row kernel: the simple rows of a plain CSV read by WebAssembly (rowKernel.wat), about twice as
  * fast as the same loop in JavaScript, and fast from the first row (no interpreter warm-up). It reads
- * the file's bytes where they are, in its own memory: a large file is read straight into it
- * (`kernelBytes`, which the CLI uses), a small one is copied there. byteGrid.ts decides what the
+ * the file's bytes where they are, in its own memory: a window onto a large file (`kernelWindow`, see
+ * byteWindow.ts), a large file read whole straight into it (`kernelBytes`), a small one copied there. byteGrid.ts decides what the
  * kernel's output means and reads every flagged row itself, so results are those of the JavaScript
  * engine bit for bit.
  *
@@ -116,6 +116,29 @@ export function rowKernelFor(bytes: Uint8Array): { readonly kernel: RowKernel; r
   return { kernel: copyKernel, base: FILE_BASE };
 }
 
+/** Line-end offsets found so far: ends[0, count). */
+export interface LineEnds {
+  readonly ends: Int32Array;
+  readonly count: number;
+}
+
+/**
+ * `size` bytes in the memory of a kernel of their own (at `address` there), for a window onto a file
+ * (byteWindow.ts); without WebAssembly, plain bytes and no kernel.
+ */
+export function kernelWindow(size: number): { readonly kernel: RowKernel | null; readonly bytes: Uint8Array; readonly address: number } {
+  const module = kernelModule();
+  if (module === null || size > 0xffff_ffff - FILE_BASE - PAGE) return { kernel: null, bytes: new Uint8Array(size), address: 0 };
+  // A page more than the window: the kernel's 16-byte loads never reach the end of the memory.
+  const memory = new WebAssembly.Memory({ initial: Math.ceil((FILE_BASE + size) / PAGE) + 1 });
+  return { kernel: new RowKernel(memory, module), bytes: new Uint8Array(memory.buffer, FILE_BASE, size), address: FILE_BASE };
+}
+
+/** True when a file of `size` bytes is better read through a window than whole (see largeInputBuffer). */
+export function readsThroughWindow(size: number): boolean {
+  return size > COPY_LIMIT;
+}
+
 /** One chunk's outputs: views into the scratch area, valid until the next `scan`. */
 export interface KernelChunk {
   /** values(slot)[k]: the number read for row k of the chunk; NaN for a long number (see spans). */
@@ -156,21 +179,29 @@ export class RowKernel {
 
   /** See `lineEnds`: the file is at `base`, `length` bytes long. */
   lineEnds(base: number, from: number, length: number): Int32Array {
+    const found = this.appendLineEnds(base, from, length, { ends: new Int32Array(Math.max(4096, (length - from) >> 5)), count: 0 });
+    return found.ends.subarray(0, found.count);
+  }
+
+  /**
+   * The offsets just past each line feed of file bytes [from, to) (the file at `base` in this memory:
+   * its bytes there may be only those of a window), appended to `found` (grown when full).
+   */
+  appendLineEnds(base: number, from: number, to: number, found: LineEnds): LineEnds {
     // Each block can hold as many line feeds as bytes: one i32 each in the scratch area.
     const block = SCRATCH >> 2;
-    let ends = new Int32Array(Math.max(4096, (length - from) >> 5));
-    let count = 0;
-    for (let at = from; at < length; at += block) {
-      const found = this.exports.findLines(base + at, base + Math.min(length, at + block), base, SCRATCH_BASE);
-      if (count + found > ends.length) {
-        const bigger = new Int32Array(Math.max(2 * ends.length, count + found));
+    let { ends, count } = found;
+    for (let at = from; at < to; at += block) {
+      const count1 = this.exports.findLines(base + at, base + Math.min(to, at + block), base, SCRATCH_BASE);
+      if (count + count1 > ends.length) {
+        const bigger = new Int32Array(Math.max(2 * ends.length, count + count1));
         bigger.set(ends.subarray(0, count));
         ends = bigger;
       }
-      ends.set(this.words.subarray(SCRATCH_BASE >> 2, (SCRATCH_BASE >> 2) + found), count);
-      count += found;
+      ends.set(this.words.subarray(SCRATCH_BASE >> 2, (SCRATCH_BASE >> 2) + count1), count);
+      count += count1;
     }
-    return ends.subarray(0, count);
+    return { ends, count };
   }
 
   /** Copies `bytes` into the kernel's memory at `at`. */
