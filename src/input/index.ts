@@ -21,6 +21,7 @@ export { decodeText } from "./decodeText.js";
 export { joinOnDates, type JoinedReturns } from "./table/joinOnDates.js";
 export { parseDecimal, isMissingToken } from "./values/numbers.js";
 export { compileDateFormat } from "./values/dateFormat.js";
+export { MAX_STAMP_ISO_BYTES, writeStampIso } from "./values/dateStamps.js";
 export { detectDelimiter } from "./dialect.js";
 export { closestName } from "./suggest.js";
 export { inputWarningCodes, inputWarningDiagnostic, type InputWarningDiagnostic } from "./warningDiagnostics.js";

@@ -8,7 +8,7 @@
 import type { WindowUncertainty } from "../core/inference/windowUncertainty.js";
 import { windowColumnNames, type WindowColumns } from "../core/rolling/index.js";
 import { csvText } from "./csv.js";
-import { MAX_STAMP_ISO_BYTES, writeStampIso } from "../input/values/dateStamps.js";
+import { MAX_STAMP_ISO_BYTES, writeStampIso } from "../input/index.js";
 import { maxNumberBytes, writeNumber } from "./numberBytes.js";
 import type { RollMeta } from "./rollReport.js";
 
