@@ -71,10 +71,10 @@ await build({
   logLevel: "warning",
 });
 
-// The bootstrap's worker thread, loaded by dist/cli.cjs from its own folder.
-await build({
-  entryPoints: ["src/cli/runtime/bootstrapWorker.ts"],
-  outfile: "dist/bootstrapWorker.js",
+// The worker threads of the bootstrap and of roll's CSV, loaded by dist/cli.cjs from its own folder.
+for (const name of ["bootstrapWorker", "rollCsvWorker"]) await build({
+  entryPoints: [`src/cli/runtime/${name}.ts`],
+  outfile: `dist/${name}.js`,
   bundle: true,
   platform: "node",
   format: "esm",

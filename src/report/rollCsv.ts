@@ -98,9 +98,9 @@ class ByteChunks {
     if (!Number.isNaN(x)) this.position = writeNumber(x, this.buffer, this.position);
   }
 
-  /** A date stamp's ISO text (see writeStampIso). */
-  stamp(key: number, form: number): void {
-    this.position = writeStampIso(key, form, this.buffer, this.position);
+  /** A row of stamps without its line feed: see writeStampRow. */
+  stampRow(prefix: Uint8Array, form: number, first: number, last: number, observations: number, series: readonly Float64Array[], k: number): void {
+    this.position = writeStampRow(this.buffer, this.position, prefix, form, first, last, observations, series, k);
   }
 
   /** A string's UTF-8 bytes (at most 3 a UTF-16 unit, room for which was reserved). */
@@ -135,7 +135,7 @@ export async function writeRollCsv(
   uncertainty: (() => WindowUncertainty | null) | null,
   write: (bytes: Uint8Array) => Promise<void>,
 ): Promise<void> {
-  const prefix = encoder.encode(`${[meta.input.source, meta.input.lowColumn, meta.input.highColumn].map(csvText).join(",")},`);
+  const prefix = rollCsvPrefix(meta);
   const { stamps } = meta;
   const numbersPerRow = 1 + windowColumnNames.length + (uncertainty === null ? 0 : uncertaintyColumnNames.length);
   const rowBytesButDates = prefix.length + 32 + numbersPerRow * (maxNumberBytes + 1);
@@ -153,17 +153,14 @@ export async function writeRollCsv(
         out.text(first);
         out.byte(comma);
         out.text(last);
+        out.byte(comma);
+        out.number(observations[k]!);
+        out.fields(series, k);
       } else {
         const room = rowBytesButDates + 2 * MAX_STAMP_ISO_BYTES;
         if (!out.fits(room)) await out.makeRoom(room);
-        out.bytes(prefix);
-        out.stamp(stamps.keys[start[k]!]!, stamps.form);
-        out.byte(comma);
-        out.stamp(stamps.keys[end[k]!]!, stamps.form);
+        out.stampRow(prefix, stamps.form, stamps.keys[start[k]!]!, stamps.keys[end[k]!]!, observations[k]!, series, k);
       }
-      out.byte(comma);
-      out.number(observations[k]!);
-      out.fields(series, k);
       if (uncertainty !== null) writeUncertainty(out, uncertainty());
       out.byte(newline);
     }
@@ -192,4 +189,81 @@ function writeUncertainty(out: ByteChunks, u: WindowUncertainty | null): void {
   }
   out.byte(comma);
   out.text(u?.pricing?.verdict ?? "");
+}
+
+/**
+ * A CSV row of window k whose dates are stamps of form `form` (first and last: the keys of its first
+ * and last date), without its line feed: the prefix (source and columns), the dates, the observations
+ * and a field per series (empty for NaN). Returns the end. The one layout of such rows, in this thread
+ * and in the CSV's worker thread (cli/runtime/rollCsvThreads.ts).
+ */
+export function writeStampRow(
+  out: Uint8Array,
+  at: number,
+  prefix: Uint8Array,
+  form: number,
+  first: number,
+  last: number,
+  observations: number,
+  series: readonly Float64Array[],
+  k: number,
+): number {
+  out.set(prefix, at);
+  let i = writeStampIso(first, form, out, at + prefix.length);
+  out[i++] = comma;
+  i = writeStampIso(last, form, out, i);
+  out[i++] = comma;
+  if (!Number.isNaN(observations)) i = writeNumber(observations, out, i);
+  for (let c = 0; c < series.length; c++) {
+    out[i++] = comma;
+    const x = series[c]![k]!;
+    if (!Number.isNaN(x)) i = writeNumber(x, out, i);
+  }
+  return i;
+}
+
+/** Most bytes a row of stamps takes with `columns` series after a prefix of `prefixBytes`, line feed included. */
+export function stampRowBytes(prefixBytes: number, columns: number): number {
+  return prefixBytes + 2 * MAX_STAMP_ISO_BYTES + 2 + (1 + columns) * (maxNumberBytes + 1) + 1;
+}
+
+/**
+ * A block of windows copied out of its reused arrays, for formatting elsewhere: `keys` holds each
+ * window's first and last date keys (2 k, 2 k + 1), `numbers` the observations and then each series
+ * (windowColumnNames order), `count` numbers each.
+ */
+export interface PackedBlock {
+  count: number;
+  readonly keys: Float64Array;
+  readonly numbers: Float64Array;
+}
+
+/** Copies the windows of `columns` into `into` (room for as many windows as the blocks hold). */
+export function packBlock(columns: WindowColumns, stampKeys: Float64Array, into: PackedBlock): void {
+  const { count, start, end, observations } = columns;
+  const { keys, numbers } = into;
+  into.count = count;
+  for (let k = 0; k < count; k++) {
+    keys[2 * k] = stampKeys[start[k]!]!;
+    keys[2 * k + 1] = stampKeys[end[k]!]!;
+    numbers[k] = observations[k]!;
+  }
+  windowColumnNames.forEach((name, c) => numbers.set(columns.columns[name].subarray(0, count), (c + 1) * count));
+}
+
+/** The CSV rows of a packed block into `out` (room for stampRowBytes each); the bytes written. */
+export function formatPackedBlock(block: PackedBlock, prefix: Uint8Array, form: number, out: Uint8Array): number {
+  const { count, keys, numbers } = block;
+  const series = windowColumnNames.map((_, c) => numbers.subarray((c + 1) * count, (c + 2) * count));
+  let at = 0;
+  for (let k = 0; k < count; k++) {
+    at = writeStampRow(out, at, prefix, form, keys[2 * k]!, keys[2 * k + 1]!, numbers[k]!, series, k);
+    out[at++] = newline;
+  }
+  return at;
+}
+
+/** The bytes before every row of a pair's CSV: its source and column names. */
+export function rollCsvPrefix(meta: RollMeta): Uint8Array {
+  return encoder.encode(`${[meta.input.source, meta.input.lowColumn, meta.input.highColumn].map(csvText).join(",")},`);
 }

@@ -3,7 +3,24 @@ import type { WindowUncertainty } from "../../src/core/inference/windowUncertain
 import { createRandom } from "../../src/core/numerics/rng.js";
 import { rollSolveColumnBlocks, rollSolveColumns, type WindowColumns, windowColumnNames } from "../../src/core/rolling/index.js";
 import { csvText } from "../../src/report/csv.js";
-import { rollCsvHeader, uncertaintyColumnNames, writeRollCsv } from "../../src/report/rollCsv.js";
+import {
+  PLAIN_DATE_FORM,
+  STAMP_FRACTION_SHIFT,
+  STAMP_SECONDS,
+  STAMP_TIME,
+  STAMP_ZULU,
+  stampIso,
+} from "../../src/input/values/dateStamps.js";
+import {
+  formatPackedBlock,
+  type PackedBlock,
+  packBlock,
+  rollCsvHeader,
+  rollCsvPrefix,
+  stampRowBytes,
+  uncertaintyColumnNames,
+  writeRollCsv,
+} from "../../src/report/rollCsv.js";
 import type { RollMeta } from "../../src/report/rollReport.js";
 import { input } from "./fixtures.js";
 
@@ -170,5 +187,44 @@ describe("roll's CSV rows as bytes", () => {
     );
     const few = rollSolveColumns(low.slice(0, 200), high.slice(0, 200), 0.0001, 0.5, { kind: "window", size: 60, step: 1 });
     expect((await written(meta, [few])).text).toBe(referenceRows(meta, few, null));
+  });
+
+  // Dates that are stamps: the rows come from their keys (writeStampIso), in this thread and, packed a
+  // block at a time, in the CSV's worker thread (cli/runtime/rollCsvThreads.ts).
+  const minute = 60_000;
+  const keys = Float64Array.from({ length: rows }, (_, t) => Date.UTC(1999, 11, 30) + t * 37 * minute + (t % 1000));
+  const forms = [PLAIN_DATE_FORM, STAMP_TIME | STAMP_SECONDS | (3 << STAMP_FRACTION_SHIFT) | STAMP_ZULU];
+
+  it("write stamps from their keys as the dates' text would be written", async () => {
+    for (const form of forms) {
+      const isos = Array.from(keys, (key) => stampIso(key, form));
+      const meta: RollMeta = { ...metaOf("returns.csv", isos), stamps: { keys, form } };
+      expect((await written(meta, blocks())).text).toBe(referenceRows(meta, columns, null));
+    }
+  });
+
+  it("are the same packed a block at a time and formatted elsewhere", () => {
+    for (const form of forms) {
+      const meta: RollMeta = {
+        ...metaOf(
+          "re,turns.csv",
+          Array.from(keys, (key) => stampIso(key, form)),
+        ),
+        stamps: { keys, form },
+      };
+      const prefix = rollCsvPrefix(meta);
+      const packed: PackedBlock = {
+        count: 0,
+        keys: new Float64Array(2 * 333),
+        numbers: new Float64Array((1 + windowColumnNames.length) * 333),
+      };
+      const out = new Uint8Array(333 * stampRowBytes(prefix.length, windowColumnNames.length));
+      const pieces: Buffer[] = [];
+      for (const block of blocks()) {
+        packBlock(block, keys, packed);
+        pieces.push(Buffer.from(out.subarray(0, formatPackedBlock(packed, prefix, form, out))));
+      }
+      expect(Buffer.concat(pieces).toString("utf8")).toBe(referenceRows(meta, columns, null));
+    }
   });
 });

@@ -4,7 +4,7 @@
  * output, so a million windows fit in memory; records from several pairs (or shards) concatenate.
  */
 import { Command } from "commander";
-import type { WindowSolution } from "../../core/rolling/index.js";
+import { type WindowSolution, windowCount } from "../../core/rolling/index.js";
 import { type RolledPair, type RollJob, rollJob, runShape } from "../../jobs/index.js";
 import type { CommandOptionsInput } from "../../options/index.js";
 import { styleFor } from "../../report/layout.js";
@@ -19,6 +19,7 @@ import { jobContext } from "../jobContext.js";
 import { writeMessages } from "../jobMessages.js";
 import { describeCliIssue, describeOptionIssue } from "../messages.js";
 import { type ExitCode, exitCodes } from "../runtime/exitCodes.js";
+import { rollCsvThreadsPay, writeRollCsvThreaded } from "../runtime/rollCsvThreads.js";
 import { type CliIo, type OutputTarget, writeOutput } from "../runtime/io.js";
 import { outputClash } from "../outputPaths.js";
 
@@ -113,7 +114,11 @@ async function writePair(pair: RolledPair, job: RollJob, target: OutputTarget, i
     const walk = options.uncertainty || points !== null ? pair.windows()[Symbol.iterator]() : null;
     const next = (): WindowUncertainty | null => (walk === null ? null : seen(walk.next().value as WindowSolution));
     const blocks = pair.columnBlocks(csvBlockWindows); // one block's arrays, reused: no fresh memory per window
-    await writeRollCsv(meta, blocks, options.uncertainty ? next : null, (bytes) => target.write(bytes));
+    const write = (bytes: Uint8Array) => target.write(bytes);
+    const { stamps } = meta;
+    if (!options.uncertainty && stamps !== undefined && rollCsvThreadsPay(windowCount(stamps.keys.length, job.spec)))
+      await writeRollCsvThreaded({ ...meta, stamps }, blocks, csvBlockWindows, write);
+    else await writeRollCsv(meta, blocks, options.uncertainty ? next : null, write);
     if (!options.uncertainty && walk !== null) for (let w = walk.next(); !w.done; w = walk.next()) seen(w.value);
   } else if (options.format === "jsonl") {
     let chunk = "";
