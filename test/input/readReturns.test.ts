@@ -17,6 +17,13 @@ describe("readReturns: the basic layout", () => {
     expect(table.warnings).toEqual([]);
   });
 
+  it("gives each row its own first line when a quoted note spans lines, and a run of lines otherwise", () => {
+    const quoted = 'date,low,high,note\n2020-01-31,0.01,0.02,"two\nlines"\n2020-02-29,0.02,0.01,x\n2020-03-31,0.03,0.01,y\n';
+    expect([...readOk(quoted, { columns: ["low", "high"] }).lines]).toEqual([2, 4, 5]);
+    const dropped = "date,low,high\n2020-01-31,0.01,0.02\n2020-02-29,,0.01\n2020-03-31,0.03,0.01\n2020-04-30,0.01,0.03\n";
+    expect([...readOk(dropped, { columns: ["low", "high"] }).lines]).toEqual([2, 4, 5]);
+  });
+
   it("ignores a UTF-8 byte-order mark, CRLF line ends and trailing blank lines", () => {
     const text = `\uFEFF${MONTHLY.split("\n").join("\r\n")}\r\n\r\n  \r\n`;
     const table = readOk(text);

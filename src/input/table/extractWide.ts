@@ -77,6 +77,11 @@ export function extractWide(
 
   const dated = readDates(grid, rows, dateIndex as number, dateColumn, options, issues, plainKeys, plainForm);
   if (dated === null || !issues.empty) return null;
+  // Each row takes a line or more, so lines grow by 1 at least from row to row: when the last row is
+  // as many lines after the first as rows, every row is one line.
+  const firstLine = count > 0 ? grid.line(first) : 0;
+  const oneLineEach = count > 0 && grid.line(first + count - 1) - firstLine === count - 1;
+  let lines: Int32Array | null = null;
   return {
     dateColumn,
     columns,
@@ -84,7 +89,11 @@ export function extractWide(
     isos: dated.isos,
     dateTexts: dated.texts,
     dateForm: dated.form,
-    lines: linesOf(grid, rows),
+    // Made when asked: the lines are for messages, and tables of a line a row make theirs from firstLine.
+    get lines(): Int32Array {
+      return (lines ??= linesOf(grid, rows));
+    },
+    ...(oneLineEach ? { firstLine } : {}),
     values,
     complete: missing === 0,
     rawText: (column, row) => grid.field(rows[row] as number, valueIndexes[column] as number),

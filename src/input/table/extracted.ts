@@ -16,6 +16,11 @@ export interface Extracted {
   readonly dateTexts: readonly string[] | null;
   readonly dateForm?: number;
   readonly lines: Int32Array;
+  /**
+   * When row k is on line firstLine + k for every row (a row per line): that first line, so that the
+   * table's `lines` can be made when asked, without holding the rows. Absent otherwise.
+   */
+  readonly firstLine?: number;
   /** One array per column, in file units; NaN marks a missing value. */
   readonly values: readonly Float64Array[];
   /**

@@ -140,7 +140,6 @@ export function keepComplete(
         firstDate: isoAt(data, keptRows[0] as number),
         lastDate: isoAt(data, keptRows[keptRows.length - 1] as number),
         columns,
-        lines: identity ? data.lines : int32Of(keptRows.length, (i) => data.lines[keptRows[i] as number] as number),
         rowsRead: data.rowsRead,
         dropped: { count: dropped, firstDates: droppedDates },
         frequency,
@@ -149,6 +148,11 @@ export function keepComplete(
       dates,
       keptKeys,
       data.dateForm ?? PLAIN_DATE_FORM,
+      identity && data.firstLine !== undefined
+        ? { from: data.firstLine, count: keptRows.length }
+        : identity
+          ? data.lines
+          : int32Of(keptRows.length, (i) => data.lines[keptRows[i] as number] as number),
     ),
   );
 }
@@ -159,12 +163,16 @@ export function keepComplete(
  * and their grid (a closure holds every variable its function's closures capture).
  */
 function withDates(
-  table: Omit<ReturnTable, "dates">,
+  table: Omit<ReturnTable, "dates" | "lines">,
   isos: readonly string[] | null,
   keys: Float64Array | null,
   form: number,
+  rowLines: Int32Array | { readonly from: number; readonly count: number },
 ): ReturnTable {
   let dates = isos;
+  // A run of lines (a line a row, none dropped) is made on first access, as the dates are.
+  let lines = rowLines instanceof Int32Array ? rowLines : null;
+  const run = rowLines instanceof Int32Array ? null : rowLines;
   // The fields in the order the table declares them.
   const { source, dateColumn, ...rest } = table;
   return {
@@ -174,6 +182,9 @@ function withDates(
       return (dates ??= arrayOf((keys as Float64Array).length, (i) => stampIso((keys as Float64Array)[i] as number, form)));
     },
     ...(keys === null ? {} : { stamps: { keys, form } }),
+    get lines(): Int32Array {
+      return (lines ??= int32Of((run as { count: number }).count, (i) => (run as { from: number }).from + i));
+    },
     ...rest,
   };
 }
