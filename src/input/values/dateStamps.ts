@@ -9,7 +9,7 @@
  *
  * The row kernel (engines/rowKernel.wat) reads the same forms and codes them the same way.
  */
-import { DAY_MS, daysInMonth, plainDateKey, plainIsoDateOfKey } from "./dates.js";
+import { civilOfDay, DAY_MS, daysInMonth, plainDateKey, plainIsoDateOfKey } from "./dates.js";
 
 /** The form of a column of plain "YYYY-MM-DD" dates. */
 export const PLAIN_DATE_FORM = 0;
@@ -132,16 +132,10 @@ export const MAX_STAMP_ISO_BYTES = 24;
  */
 export function writeStampIso(key: number, form: number, out: Uint8Array, at: number): number {
   const day = Math.floor(key / DAY_MS);
-  // H. Hinnant's civil_from_days, as plainIsoDateOfKey.
-  const z = day + 719468;
-  const era = Math.floor(z / 146097);
-  const doe = z - era * 146097;
-  const yoe = Math.floor((doe - Math.floor(doe / 1460) + Math.floor(doe / 36524) - Math.floor(doe / 146096)) / 365);
-  const doy = doe - (365 * yoe + Math.floor(yoe / 4) - Math.floor(yoe / 100));
-  const mp = Math.floor((5 * doy + 2) / 153);
-  const dayOfMonth = doy - Math.floor((153 * mp + 2) / 5) + 1;
-  const month = mp < 10 ? mp + 3 : mp - 9;
-  const year = yoe + era * 400 + (month <= 2 ? 1 : 0);
+  civilOfDay(day, civil);
+  const year = civil[0] as number;
+  const month = civil[1] as number;
+  const dayOfMonth = civil[2] as number;
   let i = twoDigits(Math.floor(year / 100), out, at);
   i = twoDigits(year % 100, out, i);
   out[i++] = 45;
@@ -168,6 +162,9 @@ export function writeStampIso(key: number, form: number, out: Uint8Array, at: nu
   if ((form & STAMP_ZULU) !== 0) out[i++] = 90;
   return i;
 }
+
+/** civilOfDay's output, reused. */
+const civil = new Int32Array(3);
 
 /** Writes n (0 to 99) as two digits. */
 function twoDigits(n: number, out: Uint8Array, at: number): number {

@@ -130,20 +130,32 @@ export function plainDateKey(year: number, month: number, day: number): number {
 
 const TWO_DIGITS = Array.from({ length: 100 }, (_, n) => pad(n));
 
-/**
- * The "YYYY-MM-DD" text of a key given by `plainIsoDateKey` (years 1 to 9999): the inverse of
- * that function (H. Hinnant's civil_from_days).
- */
-export function plainIsoDateOfKey(key: number): string {
-  const z = Math.floor(key / DAY_MS) + 719468;
+/** Year, month and day (written to out[0], out[1], out[2]) of the day `day` days after 1970-01-01 (H. Hinnant's civil_from_days). */
+export function civilOfDay(day: number, out: Int32Array): void {
+  const z = day + 719468;
   const era = Math.floor(z / 146097);
   const doe = z - era * 146097;
   const yoe = Math.floor((doe - Math.floor(doe / 1460) + Math.floor(doe / 36524) - Math.floor(doe / 146096)) / 365);
   const doy = doe - (365 * yoe + Math.floor(yoe / 4) - Math.floor(yoe / 100));
   const mp = Math.floor((5 * doy + 2) / 153);
-  const day = doy - Math.floor((153 * mp + 2) / 5) + 1;
   const month = mp < 10 ? mp + 3 : mp - 9;
-  const year = yoe + era * 400 + (month <= 2 ? 1 : 0);
+  out[0] = yoe + era * 400 + (month <= 2 ? 1 : 0);
+  out[1] = month;
+  out[2] = doy - Math.floor((153 * mp + 2) / 5) + 1;
+}
+
+/** civilOfDay's output, reused (no array per date). */
+const civil = new Int32Array(3);
+
+/**
+ * The "YYYY-MM-DD" text of a key given by `plainIsoDateKey` (years 1 to 9999): the inverse of
+ * that function (H. Hinnant's civil_from_days).
+ */
+export function plainIsoDateOfKey(key: number): string {
+  civilOfDay(Math.floor(key / DAY_MS), civil);
+  const year = civil[0] as number;
+  const month = civil[1] as number;
+  const day = civil[2] as number;
   return `${TWO_DIGITS[Math.floor(year / 100)] as string}${TWO_DIGITS[year % 100] as string}-${TWO_DIGITS[month] as string}-${TWO_DIGITS[day] as string}`;
 }
 
