@@ -72,15 +72,16 @@ await build({
 });
 
 // The worker threads of the bootstrap and of roll's CSV, loaded by dist/cli.cjs from its own folder.
-for (const name of ["bootstrapWorker", "rollCsvWorker"]) await build({
-  entryPoints: [`src/cli/runtime/${name}.ts`],
-  outfile: `dist/${name}.js`,
-  bundle: true,
-  platform: "node",
-  format: "esm",
-  target: "node20",
-  logLevel: "warning",
-});
+for (const name of ["bootstrapWorker", "rollCsvWorker"])
+  await build({
+    entryPoints: [`src/cli/runtime/${name}.ts`],
+    outfile: `dist/${name}.js`,
+    bundle: true,
+    platform: "node",
+    format: "esm",
+    target: "node20",
+    logLevel: "warning",
+  });
 
 // The library: everything (jobs, options, renderers, core), and the pure core alone (no package).
 for (const [entry, outfile] of [

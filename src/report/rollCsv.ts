@@ -99,7 +99,15 @@ class ByteChunks {
   }
 
   /** A row of stamps without its line feed: see writeStampRow. */
-  stampRow(prefix: Uint8Array, form: number, first: number, last: number, observations: number, series: readonly Float64Array[], k: number): void {
+  stampRow(
+    prefix: Uint8Array,
+    form: number,
+    first: number,
+    last: number,
+    observations: number,
+    series: readonly Float64Array[],
+    k: number,
+  ): void {
     this.position = writeStampRow(this.buffer, this.position, prefix, form, first, last, observations, series, k);
   }
 

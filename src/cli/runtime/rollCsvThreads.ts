@@ -74,7 +74,11 @@ export async function writeRollCsvThreaded(
     if (!inWorker) return Promise.resolve({ ...task, length: formatPackedBlock(task.block, prefix, form, task.out) });
     return new Promise((resolve, reject) => {
       answers.push({ resolve, reject });
-      worker.postMessage(task, [task.block.keys.buffer as ArrayBuffer, task.block.numbers.buffer as ArrayBuffer, task.out.buffer as ArrayBuffer]);
+      worker.postMessage(task, [
+        task.block.keys.buffer as ArrayBuffer,
+        task.block.numbers.buffer as ArrayBuffer,
+        task.out.buffer as ArrayBuffer,
+      ]);
     });
   };
   const inFlight: Promise<RollCsvTask>[] = [];

@@ -9,5 +9,9 @@ import type { RollCsvTask } from "./rollCsvThreads.js";
 parentPort?.on("message", (task: RollCsvTask) => {
   const length = formatPackedBlock(task.block, task.prefix, task.form, task.out);
   const done: RollCsvTask = { ...task, length };
-  parentPort?.postMessage(done, [task.block.keys.buffer as ArrayBuffer, task.block.numbers.buffer as ArrayBuffer, task.out.buffer as ArrayBuffer]);
+  parentPort?.postMessage(done, [
+    task.block.keys.buffer as ArrayBuffer,
+    task.block.numbers.buffer as ArrayBuffer,
+    task.out.buffer as ArrayBuffer,
+  ]);
 });
