@@ -83,14 +83,7 @@ class ByteChunks {
 
   /** A field for each column's window k after a comma: String(x), or nothing for NaN. */
   fields(series: readonly Float64Array[], k: number): void {
-    const out = this.buffer;
-    let at = this.position;
-    for (let c = 0; c < series.length; c++) {
-      out[at++] = comma;
-      const x = series[c]![k]!;
-      if (!Number.isNaN(x)) at = writeNumber(x, out, at);
-    }
-    this.position = at;
+    this.position = writeFields(this.buffer, this.position, series, k);
   }
 
   /** A field: String(x), or nothing for NaN (an undefined quantity). */
@@ -222,6 +215,12 @@ export function writeStampRow(
   i = writeStampIso(last, form, out, i);
   out[i++] = comma;
   if (!Number.isNaN(observations)) i = writeNumber(observations, out, i);
+  return writeFields(out, i, series, k);
+}
+
+/** A field for each series' window k, each after a comma: String(x), or nothing for NaN; returns the end. */
+function writeFields(out: Uint8Array, at: number, series: readonly Float64Array[], k: number): number {
+  let i = at;
   for (let c = 0; c < series.length; c++) {
     out[i++] = comma;
     const x = series[c]![k]!;
