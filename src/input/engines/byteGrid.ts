@@ -20,7 +20,7 @@
  */
 import { NO_FORM, PLAIN_DATE_FORM, scanStamp, stampScan } from "../values/dateStamps.js";
 import { parseDecimal } from "../values/numbers.js";
-import { kernelRange, type RowScan, windowRange } from "./byteGridKernel.js";
+import { kernelRange, type RowScan, type RowTargets, windowRange } from "./byteGridKernel.js";
 import { IsoDates } from "./byteDates.js";
 import { scanDecimal } from "./byteNumbers.js";
 import type { Grid } from "./grid.js";
@@ -195,10 +195,11 @@ class ByteGrid implements ByteGridOf {
     const state: RowScan = { plain: true, ...stampScan(), unplain: 0, withNaN: out.map(() => false) };
     const kernel = count >= KERNEL_MIN_ROWS && this.d < 128 ? this.bytes.kernel() : null;
     const chunk = kernel === null ? 0 : kernel.kernel.chunkRows(slots.length, out.length);
-    if (kernel === null || chunk === 0) this.scanRange(first, 0, count, slots, out, counts, dateIndex, dateKeys, state);
+    const targets: RowTargets = { slots, out, counts, dateIndex, dateKeys };
+    if (kernel === null || chunk === 0) this.scanRange(first, 0, count, targets, state);
     else if (this.bytes.span === Number.POSITIVE_INFINITY)
-      kernelRange(this, kernel.kernel, kernel.base, chunk, first, count, slots, out, counts, dateIndex, dateKeys, state);
-    else windowRange(this, this.bytes, chunk, first, count, slots, out, counts, dateIndex, dateKeys, state);
+      kernelRange(this, kernel.kernel, kernel.base, chunk, first, count, targets, state);
+    else windowRange(this, this.bytes, chunk, first, count, targets, state);
     if (state.unplain !== 0) this.unplain = true;
     else if (count > 0) {
       this.checkedFrom = first;
@@ -208,18 +209,9 @@ class ByteGrid implements ByteGridOf {
   }
 
   /** Rows first + [from, to) of readRows, in JavaScript, continuing `state`. */
-  scanRange(
-    first: number,
-    from: number,
-    to: number,
-    slots: Int32Array,
-    out: readonly Float64Array[],
-    counts: Int32Array,
-    dateIndex: number,
-    dateKeys: Float64Array,
-    state: RowScan,
-  ): void {
+  scanRange(first: number, from: number, to: number, targets: RowTargets, state: RowScan): void {
     const { d, starts } = this;
+    const { slots, out, counts, dateIndex, dateKeys } = targets;
     const lastRow = this.openEnd ? starts.length - 2 : -1;
     const { withNaN } = state;
     let { plain } = state;

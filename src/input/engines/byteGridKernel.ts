@@ -19,6 +19,19 @@ export interface RowScan extends StampScan {
   readonly withNaN: boolean[];
 }
 
+/**
+ * Where readRows writes row k's numbers and what else it learns: out[slot][k] for the fields that
+ * `slots` maps to an output (-1: not read), counts[k] its field count, dateKeys[k] the key of its date
+ * (field dateIndex).
+ */
+export interface RowTargets {
+  readonly slots: Int32Array;
+  readonly out: readonly Float64Array[];
+  readonly counts: Int32Array;
+  readonly dateIndex: number;
+  readonly dateKeys: Float64Array;
+}
+
 /** What the kernel path needs of a byte grid: its rows, its delimiter, and its JavaScript reader. */
 export interface RowRanges {
   readonly starts: Int32Array;
@@ -27,17 +40,7 @@ export interface RowRanges {
   /** The delimiter's byte. */
   readonly d: number;
   /** Rows first + [from, to), read in JavaScript, continuing `state`. */
-  scanRange(
-    first: number,
-    from: number,
-    to: number,
-    slots: Int32Array,
-    out: readonly Float64Array[],
-    counts: Int32Array,
-    dateIndex: number,
-    dateKeys: Float64Array,
-    state: RowScan,
-  ): void;
+  scanRange(first: number, from: number, to: number, targets: RowTargets, state: RowScan): void;
 }
 
 /**
@@ -53,13 +56,10 @@ export function kernelRange(
   chunk: number,
   first: number,
   count: number,
-  slots: Int32Array,
-  out: readonly Float64Array[],
-  counts: Int32Array,
-  dateIndex: number,
-  dateKeys: Float64Array,
+  targets: RowTargets,
   state: RowScan,
 ): void {
+  const { slots, out, counts, dateIndex, dateKeys } = targets;
   const lastRow = grid.openEnd ? grid.starts.length - 2 : -1;
   for (let k0 = 0; k0 < count; k0 += chunk) {
     const k1 = Math.min(count, k0 + chunk);
@@ -72,9 +72,9 @@ export function kernelRange(
       // A date that is no date, a stamp of another form than the column's: the text path reads them.
       if (read.badDate) state.plain = false;
       state.form = read.form;
-      if (read.flagged > 0) settleFlagged(grid, read, kernel, base, first, k0, kEnd, slots, out, counts, dateIndex, dateKeys, state);
+      if (read.flagged > 0) settleFlagged(grid, read, kernel, base, first, k0, kEnd, targets, state);
     }
-    if (kEnd < k1) grid.scanRange(first, kEnd, k1, slots, out, counts, dateIndex, dateKeys, state);
+    if (kEnd < k1) grid.scanRange(first, kEnd, k1, targets, state);
   }
 }
 
@@ -89,11 +89,7 @@ export function windowRange(
   chunk: number,
   first: number,
   count: number,
-  slots: Int32Array,
-  out: readonly Float64Array[],
-  counts: Int32Array,
-  dateIndex: number,
-  dateKeys: Float64Array,
+  targets: RowTargets,
   state: RowScan,
 ): void {
   const { starts } = grid;
@@ -112,24 +108,11 @@ export function windowRange(
     bytes.reach(from, Math.min(size, starts[first + g1] as number));
     const kernel = bytes.kernel();
     const part = (values: Float64Array): Float64Array => values.subarray(g0, g1);
-    if (kernel === null) grid.scanRange(first, g0, g1, slots, out, counts, dateIndex, dateKeys, state);
+    if (kernel === null) grid.scanRange(first, g0, g1, targets, state);
     else {
-      const partOut = out.map(part);
-      const partCounts = counts.subarray(g0, g1);
-      kernelRange(
-        grid,
-        kernel.kernel,
-        kernel.base,
-        chunk,
-        first + g0,
-        g1 - g0,
-        slots,
-        partOut,
-        partCounts,
-        dateIndex,
-        part(dateKeys),
-        state,
-      );
+      const { out, counts, dateKeys } = targets;
+      const partTargets = { ...targets, out: out.map(part), counts: counts.subarray(g0, g1), dateKeys: part(dateKeys) };
+      kernelRange(grid, kernel.kernel, kernel.base, chunk, first + g0, g1 - g0, partTargets, state);
     }
     g0 = g1;
   }
@@ -149,13 +132,10 @@ function settleFlagged(
   first: number,
   k0: number,
   kEnd: number,
-  slots: Int32Array,
-  out: readonly Float64Array[],
-  counts: Int32Array,
-  dateIndex: number,
-  dateKeys: Float64Array,
+  targets: RowTargets,
   state: RowScan,
 ): void {
+  const { out, dateKeys } = targets;
   const { flags } = read;
   const spans = out.map((_, slot) => read.spans(slot));
   // The chunk's text, made once when a long number needs it: substrings of it are cheap.
@@ -166,7 +146,7 @@ function settleFlagged(
     if (flag === 1) {
       for (const values of out) values[k] = 0;
       dateKeys[k] = 0;
-      grid.scanRange(first, k, k + 1, slots, out, counts, dateIndex, dateKeys, state);
+      grid.scanRange(first, k, k + 1, targets, state);
     } else if (flag === 2) {
       for (let slot = 0; slot < out.length; slot++) {
         const values = out[slot] as Float64Array;
