@@ -76,7 +76,8 @@ const yieldEvery = 8 << 20;
 /**
  * A large temporary file is flushed to the disk in the background (fdatasync on libuv's thread pool)
  * every this many bytes, while the command goes on producing: the fsync before the rename then has
- * little left to wait for (685 MB: about 400 ms less). A failure of it fails the commit.
+ * little left to wait for (roll's every window of 1M rows, 685 MB: the fsync took 0.44 s before, in a
+ * CPU profile, and 0.008 s after, under strace). A failure of it fails the commit.
  */
 const flushEvery = 64 << 20;
 
