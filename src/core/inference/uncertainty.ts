@@ -21,10 +21,10 @@
 import { borrowSeries, giveBack, withScratch } from "../numerics/scratch.js";
 import { boundsDeltaFromData } from "./boundsDelta.js";
 import { bootstrapSolve, type BootstrapSummary } from "./bootstrap/summary.js";
-import { hacCovariance } from "./hac/hac.js";
+import { interceptHacCovariance } from "./hac/hac.js";
 import { stationaryBootstrapFixedBFactor } from "./hac/fixedB.js";
 import { admissibleInterval, imbensManskiInterval, type ParameterInterval } from "./imbensManski.js";
-import { leastSquares } from "../numerics/leastSquares.js";
+import { interceptLeastSquares } from "../numerics/leastSquares.js";
 import { normalQuantile } from "../numerics/normal.js";
 import {
   defaultConfidence,
@@ -206,11 +206,12 @@ function uncertaintyOf(
     };
   }
 
-  const design = [borrowSeries(n).fill(1), market];
-  // Only the HAC covariance is kept: the residuals (n numbers) are free once it is computed.
+  // The regression on an intercept and the market, without a column of ones (the same bits as
+  // leastSquares and hacCovariance on [ones, market]). Only the HAC covariance is kept: the residuals
+  // (n numbers) are free once it is computed.
   const capmFit = (y: Float64Array) => {
-    const { residuals } = leastSquares(design, y);
-    const covariance = hacCovariance(design, residuals, hac);
+    const { residuals, inverseCrossProduct } = interceptLeastSquares(market, y);
+    const covariance = interceptHacCovariance(market, residuals, inverseCrossProduct, hac);
     giveBack(residuals);
     return { hac: covariance };
   };
@@ -218,7 +219,7 @@ function uncertaintyOf(
   const capmHigh = capmFit(high);
   // Diagonals of a positive semi-definite matrix, negative only by rounding; the alpha's back in the data's units.
   const sharpe = { low: sharpeStdErrors(low, hac), high: sharpeStdErrors(high, hac), market: sharpeStdErrors(market, hac) };
-  giveBack(market, design[0]!);
+  giveBack(market);
   const capmHac = (c: ReturnType<typeof capmFit>): CapmHac => ({
     alphaStdErr: Math.sqrt(Math.max(0, c.hac.covariance[0]![0]!)) / scale,
     betaStdErr: Math.sqrt(Math.max(0, c.hac.covariance[1]![1]!)),

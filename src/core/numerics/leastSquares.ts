@@ -45,3 +45,39 @@ export function classicalCovariance(design: readonly Float64Array[], residuals: 
   for (let t = 0; t < n; t++) ssr += residuals[t]! * residuals[t]!;
   return scale(inverse(crossColumns(design, design)), ssr / (n - design.length));
 }
+
+/**
+ * `leastSquares([ones, x], y)` without the column of ones: the same arithmetic, term by term (1 * v is
+ * v exactly; the sums run in the same order), so the same bits, in one pass for the cross products
+ * instead of three and no series of ones. The CAPM regressions of the uncertainty take this form.
+ */
+export function interceptLeastSquares(x: ArrayLike<number>, y: ArrayLike<number>): LeastSquaresFit {
+  const n = y.length;
+  if (x.length !== n) throw new RangeError("leastSquares: design and response differ in length");
+  let sx = 0;
+  let sxx = 0;
+  let sy = 0;
+  let sxy = 0;
+  for (let t = 0; t < n; t++) {
+    const xt = x[t]!;
+    const yt = y[t]!;
+    sx += xt;
+    sxx += xt * xt;
+    sy += yt;
+    sxy += xt * yt;
+  }
+  const xtx = [
+    [n, sx],
+    [sx, sxx],
+  ];
+  const [a, b] = solve(xtx, [[sy], [sxy]]).map((row) => row[0]!) as [number, number];
+  const residuals = borrowSeries(n); // every element is written below
+  for (let t = 0; t < n; t++) {
+    // As leastSquares: 0 + 1 * a first (not a alone: a signed zero comes out the same).
+    let fitted = 0;
+    fitted += a;
+    fitted += x[t]! * b;
+    residuals[t] = y[t]! - fitted;
+  }
+  return { coefficients: [a, b], residuals, inverseCrossProduct: inverse(xtx) };
+}

@@ -41,9 +41,34 @@ export function hacCovariance(design: readonly Float64Array[], residuals: Float6
   const scores = design.map((column) => productInto(borrowSeries(n), column, residuals));
   const estimate = kernelSum(scores, options, interceptWeights(design));
   giveBack(...scores);
+  return covarianceOf(estimate, inverse(crossColumns(design, design)), n, k, options);
+}
+
+/**
+ * `hacCovariance([ones, x], residuals)` of a regression on an intercept and x, given the fit's
+ * (X'X)^{-1} (leastSquares' inverseCrossProduct): the intercept's score 1 * e_t is the residual
+ * itself, so it is not copied, and neither the ones nor X'X are passed over again. The same bits.
+ */
+export function interceptHacCovariance(
+  x: ArrayLike<number>,
+  residuals: Float64Array,
+  inverseCrossProduct: Matrix,
+  options: HacOptions = {},
+): HacCovariance {
+  const n = residuals.length;
+  if (x.length !== n) throw new RangeError("hacCovariance: design and residuals differ in length");
+  const slope = productInto(borrowSeries(n), x, residuals);
+  // interceptWeights of [ones, x]: 0 for the ones, and 1 for both when x is all ones as well.
+  let allOnes = true;
+  for (let t = 0; t < n && allOnes; t++) allOnes = x[t] === 1;
+  const estimate = kernelSum([residuals, slope], options, allOnes ? [1, 1] : [0, 1]);
+  giveBack(slope);
+  return covarianceOf(estimate, inverseCrossProduct, n, 2, options);
+}
+
+function covarianceOf(estimate: ReturnType<typeof kernelSum>, bread: Matrix, n: number, k: number, options: HacOptions): HacCovariance {
   const adjust = options.adjust ?? false;
   const meat = adjust ? scale(estimate.sum, n / (n - k)) : estimate.sum;
-  const bread = inverse(crossColumns(design, design));
   const covariance = symmetrise(multiplyThree(bread, meat, bread));
   return { covariance, kernel: estimate.kernel, bandwidth: estimate.bandwidth, lags: estimate.lags, prewhite: estimate.prewhite, adjust };
 }
