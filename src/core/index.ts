@@ -8,7 +8,7 @@
  * if (result.ok) console.log(result.value.bounds?.lowBeta); // { min: ..., max: ... }
  */
 
-export { solve, identifySet, defaultSteps, defaultWeight, minimumObservations } from "./solve.js";
+export { solve, solveKeepingMoments, identifySet, defaultSteps, defaultWeight, minimumObservations, type SolvedMoments } from "./solve.js";
 export {
   candidateGrid,
   equalNoiseLowBeta,

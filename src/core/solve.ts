@@ -13,7 +13,7 @@ import { covarianceCancellation, largestValues, magnitudeIssue, type RoundingSca
 import { diagnose, type Diagnostic } from "./diagnostics.js";
 import { candidateGrid, identifiedBounds, isPerfectCorrelation, marketMoments, noiseFreePoint, type MomentSummary } from "./identify.js";
 import { fiellerCriticalValue, findLandmarks } from "./landmarks.js";
-import { excessCrossProducts } from "./moments.js";
+import { type CrossProducts, excessCrossProducts } from "./moments.js";
 import { excessResidualSums, lineFitFromSums, type LineSums } from "./regression.js";
 import { failure, success, type Result } from "./result.js";
 import { scaleFor, unitsOf, unscaleDiagnostic, unscaleSolution } from "./scaling.js";
@@ -28,6 +28,29 @@ export { defaultSteps, defaultWeight, minimumObservations };
  * returns out of double precision's reach, or a series constant (or constant up to rounding).
  */
 export function solve(sample: ReturnSample, options: SolveOptions = {}): Result<Solution, Diagnostic[]> {
+  const solved = solveKeepingMoments(sample, options);
+  return solved.ok ? success(solved.value.solution) : solved;
+}
+
+/**
+ * The moments `solve` formed on its way, for the steps after it on the same sample (assessPricing
+ * takes them instead of passing over the rows again): the scaled excess returns' cross products at
+ * `weight`, and the sample they belong to (a step given them for another sample or weight ignores them).
+ */
+export interface SolvedMoments {
+  readonly sample: ReturnSample;
+  readonly weight: number;
+  /** The power of two the excess returns were multiplied by (scaling.ts). */
+  readonly scale: number;
+  /** excessCrossProducts(low, high, riskFree, weight, scale): low, high and the market. */
+  readonly crossProducts: CrossProducts;
+}
+
+/** `solve`, with the moments it formed (SolvedMoments). */
+export function solveKeepingMoments(
+  sample: ReturnSample,
+  options: SolveOptions = {},
+): Result<{ solution: Solution; moments: SolvedMoments }, Diagnostic[]> {
   const weight = options.weight ?? defaultWeight;
   const steps = options.steps ?? defaultSteps;
   const confidence = options.confidence ?? defaultConfidence;
@@ -107,7 +130,10 @@ export function solve(sample: ReturnSample, options: SolveOptions = {}): Result<
   );
   const capm = { low: lineFitFromSums(lowSums, lowSsr), high: lineFitFromSums(highSums, highSsr) };
   const identified = identifySet(summary, steps, moments.market.stdev / Math.sqrt(n), { n, ...scales }, fiellerCriticalValue(confidence));
-  return success(unscaleSolution({ observations: n, weight, moments, capm, ...identified }, unitsOf(scale)));
+  return success({
+    solution: unscaleSolution({ observations: n, weight, moments, capm, ...identified }, unitsOf(scale)),
+    moments: { sample, weight, scale, crossProducts: cp },
+  });
 }
 
 /**

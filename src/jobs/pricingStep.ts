@@ -11,6 +11,7 @@ import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
 import { structureAt, summaryOfMoments } from "../core/identify.js";
 import { fiellerCriticalValue, structureExists } from "../core/landmarks.js";
 import { type AlphaDecomposition, assessPricing, type Pricing } from "../core/pricing/assessPricing.js";
+import type { SolvedMoments } from "../core/solve.js";
 import type { ReturnSample, Solution } from "../core/types.js";
 import type { CommandOptions } from "../options/index.js";
 import type { PricingJson } from "../schema/pricing.js";
@@ -28,7 +29,7 @@ export function pricingFor(
   solution: Solution,
   uncertainty: Uncertainty | null,
   options: CommandOptions<"solve">,
-  input: { readonly periodsPerYear: number | null; readonly excessReturns: boolean },
+  input: { readonly periodsPerYear: number | null; readonly excessReturns: boolean; readonly solved?: SolvedMoments },
 ): { pricing: PricingJson | null; solution: Solution } {
   if (solution.bounds === null || solution.landmarks === null) return { pricing: null, solution };
   const tested = uncertainty !== null;
@@ -39,6 +40,7 @@ export function pricingFor(
     // Without standard errors the report keeps only the point figures.
     pointOnly: !tested,
     hac: hacOptions(options),
+    ...(input.solved === undefined ? {} : { solved: input.solved }),
     ...(tested ? { alphaStdErrors: { low: uncertainty.capm.low.hac.alphaStdErr, high: uncertainty.capm.high.hac.alphaStdErr } } : {}),
   });
   if (assessed === null) return { pricing: null, solution };

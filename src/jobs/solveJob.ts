@@ -6,7 +6,7 @@
  * joined on date. A pair that fails does not stop the others.
  */
 import { failure, type Result, success } from "../core/result.js";
-import { solve } from "../core/solve.js";
+import { solveKeepingMoments } from "../core/solve.js";
 import { inputWarningDiagnostic } from "../input/index.js";
 import { type CommandOptions, type CommandOptionsInput, type OptionIssue, parseOptions } from "../options/index.js";
 import { assertJsonSafe, toSolveOutput } from "../report/json.js";
@@ -106,7 +106,7 @@ async function solveLoaded(load: PairLoad, options: CommandOptions<"solve">, con
   const loaded = load.value;
   const { source, pair } = loaded;
   const sample = sampleOf(loaded);
-  const solved = solve(sample, { weight: options.weight, steps: options.steps, confidence: options.confidence });
+  const solved = solveKeepingMoments(sample, { weight: options.weight, steps: options.steps, confidence: options.confidence });
   if (!solved.ok) {
     return failed(
       source,
@@ -114,12 +114,14 @@ async function solveLoaded(load: PairLoad, options: CommandOptions<"solve">, con
       solved.issues.map((d) => ({ code: d.code, message: `${source}: ${d.message}` })),
     );
   }
-  const assessed = await uncertaintyFor(sample, solved.value, options, context);
+  const { solution: found, moments } = solved.value;
+  const assessed = await uncertaintyFor(sample, found, options, context);
   const input = describeInput(loaded, options);
   // The pricing section, and the return-implied landmark and its diagnostics as the test decides them.
-  const priced = pricingFor(sample, solved.value, assessed.uncertainty, options, {
+  const priced = pricingFor(sample, found, assessed.uncertainty, options, {
     periodsPerYear: input.frequency?.periodsPerYear ?? null,
     excessReturns: input.riskFree.kind !== "none",
+    solved: moments,
   });
   const solution =
     assessed.note === null ? priced.solution : { ...priced.solution, diagnostics: [...priced.solution.diagnostics, assessed.note] };
@@ -143,7 +145,7 @@ async function solveLoaded(load: PairLoad, options: CommandOptions<"solve">, con
   const record: SolveRecord = { kind: "report", report };
   const document = toSolveOutput(report);
   assertJsonSafe(document); // as the CLI's renderers check: a NaN here is a bug, never a quiet null
-  return { record, document, status: solved.value.bounds === null ? "rejected" : "ok", messages };
+  return { record, document, status: found.bounds === null ? "rejected" : "ok", messages };
 }
 
 function failed(source: string, pair: { low: string; high: string }, errors: readonly { code: string; message: string }[]): SolvedPair {

@@ -20,6 +20,7 @@ import type { HacOptions, LongRunMethod } from "../inference/options.js";
 import { excessCrossProducts } from "../moments.js";
 import { normalQuantile } from "../numerics/normal.js";
 import { borrowSeries, giveBack, withScratch } from "../numerics/scratch.js";
+import type { SolvedMoments } from "../solve.js";
 import type { ReturnSample } from "../types.js";
 import { type FiellerSet, fiellerSet, ratioStdError } from "./fieller.js";
 import { type MomentInequalityTest, momentInequalityTest } from "./momentInequalities.js";
@@ -67,6 +68,8 @@ export interface PricingOptions {
    * show no standard errors (solve --no-uncertainty).
    */
   readonly pointOnly?: boolean;
+  /** The moments solveKeepingMoments formed for this sample and weight: used instead of a pass over the rows. */
+  readonly solved?: SolvedMoments;
 }
 
 /** The pricing assessment of a solved sample whose books have a positive covariance; null otherwise. */
@@ -80,10 +83,12 @@ function pricingOf(sample: ReturnSample, options: PricingOptions): Pricing | nul
   // The scaled excess returns x and y are formed as each pass goes, never stored: the same numbers
   // as scaledExcessReturns's, so the same results bit for bit.
   const rf = sample.riskFree ?? 0;
-  const scale = excessReturnScale({ ...sample, weight: w });
   const n = sample.low.length;
-  // Means and centred sums in one compensated pass (moments.ts), as everywhere in the core.
-  const cp = excessCrossProducts(sample.low, sample.high, rf, w, scale);
+  // solve's scale is this one (a power of two from the same largest excess return) and its cross
+  // products these: means and centred sums in one compensated pass (moments.ts).
+  const solved = options.solved !== undefined && options.solved.sample === sample && options.solved.weight === w ? options.solved : null;
+  const scale = solved?.scale ?? excessReturnScale({ ...sample, weight: w });
+  const cp = solved?.crossProducts ?? excessCrossProducts(sample.low, sample.high, rf, w, scale);
   const mx = cp.means[0]!;
   const my = cp.means[1]!;
   const lambda = w * mx + v * my;

@@ -6,6 +6,7 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { assessPricing } from "../../../src/core/pricing/assessPricing.js";
+import { solveKeepingMoments } from "../../../src/core/solve.js";
 
 type Reference = { low: number[]; high: number[] } & {
   [key in
@@ -104,5 +105,33 @@ describe("assessPricing with the point figures alone (solve --no-uncertainty)", 
     expect(point.test).toBeNull();
     expect(point.returnImplied.stdError).toBe(0);
     expect(point.alpha.low.explainableMinStdError).toBe(0);
+  });
+});
+
+describe("assessPricing with the moments solve formed", () => {
+  const sample = { low: ref.low, high: ref.high, riskFree: ref.low.map((_, t) => 0.0001 * (1 + (t % 3))) };
+  const options = { weight: ref.weight, confidence: ref.confidence, longRun: "hac" as const, hac: {} };
+
+  it("gives what its own pass over the rows gives, bit for bit, with and without standard errors", () => {
+    const solved = solveKeepingMoments(sample, { weight: ref.weight });
+    if (!solved.ok) throw new Error("solve failed");
+    for (const pointOnly of [false, true]) {
+      const own = assessPricing(sample, { ...options, pointOnly });
+      const reused = assessPricing(sample, { ...options, pointOnly, solved: solved.value.moments });
+      expect(own).not.toBeNull();
+      expect(reused).toEqual(own);
+    }
+  });
+
+  it("ignores moments formed for another sample or another weight", () => {
+    const other = { ...sample, low: sample.low.map((x) => x * 1.5) };
+    const otherSolved = solveKeepingMoments(other, { weight: ref.weight });
+    const otherWeight = solveKeepingMoments(sample, { weight: 0.3 });
+    if (!otherSolved.ok || !otherWeight.ok) throw new Error("solve failed");
+    const own = assessPricing(sample, options);
+    expect(assessPricing(sample, { ...options, solved: otherSolved.value.moments })).toEqual(own);
+    expect(assessPricing(sample, { ...options, solved: otherWeight.value.moments })).toEqual(own);
+    // The other sample's moments do change the answer when they are its own.
+    expect(assessPricing(other, { ...options, solved: otherSolved.value.moments })).not.toEqual(own);
   });
 });
