@@ -15,6 +15,7 @@
 
 import { excessReturnScale } from "../inference/bootstrap/replicates.js";
 import { boundGradients } from "../inference/boundsDelta.js";
+import type { ColumnPairs } from "../inference/hac/bartlettWindows.js";
 import { longRunCovarianceInPlace, sampleCovarianceOf } from "../inference/hac/longRun.js";
 import type { HacOptions, LongRunMethod } from "../inference/options.js";
 import { excessCrossProducts } from "../moments.js";
@@ -137,7 +138,9 @@ function pricingOf(sample: ReturnSample, options: PricingOptions): Pricing | nul
       fe1[t] = lambda * (iL - iBeta) + (lower - beta) * ib;
       fe2[t] = lambda * (iU - iBeta) + (upper - beta) * ib;
     }
-    const covariance = options.longRun === "iid" ? sampleCovarianceOf(series) : longRunCovarianceInPlace(series, options.hac).covariance;
+    // Only the entries within (mu_x, lambda), (d1, d2) and the two ends are read below.
+    const covariance =
+      options.longRun === "iid" ? sampleCovarianceOf(series) : longRunCovarianceInPlace(series, options.hac, readPairs).covariance;
     giveBack(...series);
     return covariance;
   }
@@ -188,6 +191,13 @@ function pricingOf(sample: ReturnSample, options: PricingOptions): Pricing | nul
     alpha: { low: decomposition(1, options.alphaStdErrors?.low), high: decomposition(-w / v, options.alphaStdErrors?.high) },
   };
 }
+
+/** The pairs of influence series whose covariances the assessment reads: (0, 1), (2, 3), (4, 5). */
+const readPairs: ColumnPairs = [
+  [0, 1],
+  [2, 3],
+  [4, 5],
+];
 
 function zeroMatrix(k: number): number[][] {
   return Array.from({ length: k }, () => new Array<number>(k).fill(0));

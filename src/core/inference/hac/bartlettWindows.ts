@@ -19,22 +19,46 @@
  */
 import type { Matrix } from "../../numerics/linearAlgebra.js";
 
-/** The Bartlett sum S_sum (Gamma_0 + sum_j (1 - j/S)(Gamma_j + Gamma_j')) of `columns` at bandwidth S. */
-export function bartlettKernelSum(columns: readonly Float64Array[], bandwidth: number): Matrix {
+/**
+ * Pairs of columns whose entries alone a caller reads: the sum is computed within each pair (two
+ * columns at a time, the fastest form) and every other entry is NaN.
+ */
+export type ColumnPairs = readonly (readonly [number, number])[];
+
+/**
+ * The Bartlett sum S_sum (Gamma_0 + sum_j (1 - j/S)(Gamma_j + Gamma_j')) of `columns` at bandwidth S;
+ * with `within`, only the entries within those pairs of columns (the same bits as the whole sum's).
+ */
+export function bartlettKernelSum(columns: readonly Float64Array[], bandwidth: number, within?: ColumnPairs): Matrix {
   if (!(bandwidth > 0 && Number.isFinite(bandwidth)))
     throw new RangeError(`bartlettKernelSum: bandwidth must be positive, got ${bandwidth}`);
   const k = columns.length;
   const whole = Math.ceil(bandwidth);
   const a = (bandwidth - whole + 1) / bandwidth;
   const b = (whole - bandwidth) / bandwidth;
-  const upper = windowSquares(columns, whole);
-  const lower = b > 0 && whole > 1 ? windowSquares(columns, whole - 1) : null;
+  const squares = (width: number) => (within === undefined ? windowSquares(columns, width) : pairSquares(columns, width, within));
+  const upper = squares(whole);
+  const lower = b > 0 && whole > 1 ? squares(whole - 1) : null;
   return Array.from({ length: k }, (_, i) =>
     Array.from({ length: k }, (_, j) => {
       const at = i <= j ? i * k + j : j * k + i;
       return a * upper[at]! + (lower === null ? 0 : b * lower[at]!);
     }),
   );
+}
+
+/** windowSquares' entries within each pair (a, b), a < b, by windowSquaresOfTwo; the others NaN. */
+function pairSquares(columns: readonly Float64Array[], width: number, pairs: ColumnPairs): Float64Array {
+  const k = columns.length;
+  const total = new Float64Array(k * k).fill(Number.NaN);
+  for (const [a, b] of pairs) {
+    if (!(a < b && b < k)) throw new RangeError(`bartlettKernelSum: a pair of columns must be a < b < ${k}, got ${a}, ${b}`);
+    const two = windowSquaresOfTwo(columns[a]!, columns[b]!, width);
+    total[a * k + a] = two[0]!;
+    total[a * k + b] = two[1]!;
+    total[b * k + b] = two[3]!;
+  }
+  return total;
 }
 
 /**

@@ -17,7 +17,7 @@
  */
 
 import { andrews1991Bandwidth, neweyWest1994Bandwidth } from "./bandwidth.js";
-import { bartlettKernelSum } from "./bartlettWindows.js";
+import { bartlettKernelSum, type ColumnPairs } from "./bartlettWindows.js";
 import { lagWeights } from "./kernels.js";
 import { sandwich, type Matrix } from "../../numerics/linearAlgebra.js";
 import { defaultHac, type BandwidthChoice, type HacKernel, type HacOptions } from "../options.js";
@@ -132,9 +132,16 @@ function laggedCrossProducts(columns: readonly Float64Array[], j: number, totals
 
 /**
  * The kernel sum S of the series `columns` under `options`, with `columnWeights` for the automatic
- * bandwidths (0 for an intercept's estimating function).
+ * bandwidths (0 for an intercept's estimating function). With `within` (ColumnPairs) the caller reads
+ * only the entries within those pairs of columns: the Bartlett sum without prewhitening then computes
+ * those alone (the others NaN); every other sum is computed whole.
  */
-export function kernelSum(columns: readonly Float64Array[], options: HacOptions, columnWeights: readonly number[]): KernelSum {
+export function kernelSum(
+  columns: readonly Float64Array[],
+  options: HacOptions,
+  columnWeights: readonly number[],
+  within?: ColumnPairs,
+): KernelSum {
   const kernel = options.kernel ?? defaultHac.kernel;
   const prewhite = options.prewhite ?? defaultHac.prewhite;
   const rows = columns[0]?.length ?? 0;
@@ -150,7 +157,7 @@ export function kernelSum(columns: readonly Float64Array[], options: HacOptions,
       if (sum.every((row) => row.every(Number.isFinite))) return { ...estimate, sum };
     }
   }
-  return weightedSum(columns, kernel, options, columnWeights, rows, false);
+  return weightedSum(columns, kernel, options, columnWeights, rows, false, within);
 }
 
 /**
@@ -166,6 +173,7 @@ function weightedSum(
   columnWeights: readonly number[],
   rows: number,
   prewhite: boolean,
+  within?: ColumnPairs,
 ): KernelSum {
   const n = series[0]?.length ?? 0;
   const choice: BandwidthChoice = options.lags !== undefined ? options.lags + 1 : (options.bandwidth ?? defaultHac.bandwidth);
@@ -191,6 +199,6 @@ function weightedSum(
     for (let j = 0; j < weights.length; j++) if (weights[j]! > 0) lags = j;
   }
   // Bartlett in linear time from window sums (bartlettWindows.ts); other kernels, and lag 0 alone, lag by lag.
-  const sum = defined && kernel === "bartlett" ? bartlettKernelSum(series, effective) : weightedAutocovarianceSum(series, weights);
+  const sum = defined && kernel === "bartlett" ? bartlettKernelSum(series, effective, within) : weightedAutocovarianceSum(series, weights);
   return { sum, kernel, bandwidth, lags, prewhite };
 }

@@ -9,6 +9,7 @@
  * with divisor T - 1 (`sampleCovarianceOf`).
  */
 
+import type { ColumnPairs } from "./bartlettWindows.js";
 import { kernelSum } from "./kernelSum.js";
 import { scale, symmetrise, type Matrix } from "../../numerics/linearAlgebra.js";
 import type { HacKernel, HacOptions } from "../options.js";
@@ -33,8 +34,13 @@ export function longRunCovariance(columns: readonly Float64Array[], options: Hac
 /**
  * Omega_hat as `longRunCovariance`, centring the caller's columns in place (the same numbers, without
  * a copy of every series: on 10 million rows each copy is 80 MB). For series built for this call only.
+ * With `within`, entries outside those pairs of columns may be NaN (kernelSum).
  */
-export function longRunCovarianceInPlace(columns: readonly Float64Array[], options: HacOptions = {}): LongRunCovariance {
+export function longRunCovarianceInPlace(
+  columns: readonly Float64Array[],
+  options: HacOptions = {},
+  within?: ColumnPairs,
+): LongRunCovariance {
   const n = columns[0]?.length ?? 0;
   if (n < 2) throw new RangeError("longRunCovariance: needs at least 2 rows");
   for (const column of columns) {
@@ -47,6 +53,7 @@ export function longRunCovarianceInPlace(columns: readonly Float64Array[], optio
     columns,
     options,
     columns.map(() => 1),
+    within,
   );
   return {
     covariance: symmetrise(scale(estimate.sum, 1 / n)),

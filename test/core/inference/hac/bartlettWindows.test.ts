@@ -82,6 +82,32 @@ describe("the Bartlett sum from window sums", () => {
     expect(() => bartlettKernelSum(series(5, 1, 1), 0)).toThrow(RangeError);
     expect(() => bartlettKernelSum(series(5, 1, 1), Number.NaN)).toThrow(RangeError);
   });
+
+  it("within pairs of columns: the whole sum's entries there, bit for bit, and NaN elsewhere", () => {
+    const pairs = [
+      [0, 1],
+      [2, 3],
+      [4, 5],
+    ] as const;
+    for (const [n, bandwidth] of [
+      [3000, 7],
+      [3000, 328.6],
+      [1500, 1.5],
+      [40, 90.25],
+    ] as const) {
+      const columns = series(n, 6, n + Math.round(bandwidth), 0.1);
+      const whole = bartlettKernelSum(columns, bandwidth);
+      const part = bartlettKernelSum(columns, bandwidth, pairs);
+      const inside = (a: number, b: number) => pairs.some(([x, y]) => (a === x || a === y) && (b === x || b === y));
+      for (let a = 0; a < 6; a++)
+        for (let b = 0; b < 6; b++) {
+          if (inside(a, b)) expect(Object.is(part[a]![b], whole[a]![b])).toBe(true);
+          else expect(part[a]![b]).toBeNaN();
+        }
+    }
+    expect(() => bartlettKernelSum(series(20, 3, 1), 2, [[1, 0]])).toThrow(RangeError);
+    expect(() => bartlettKernelSum(series(20, 3, 1), 2, [[1, 3]])).toThrow(RangeError);
+  });
 });
 
 describe("the Newey-West pre-lag autocovariances in one blocked pass", () => {
