@@ -106,15 +106,36 @@ function uncertaintyOutput(u: Uncertainty | null): UncertaintyOutput | null {
  * (JSON.stringify would silently turn the one into null and drop the other).
  */
 export function assertJsonSafe(value: unknown, path = "$"): void {
-  if (typeof value === "number") {
-    if (!Number.isFinite(value)) throw new RangeError(`renderJson: ${path} is ${value}; the core must use null instead`);
-  } else if (value === undefined || typeof value === "function" || typeof value === "bigint" || typeof value === "symbol") {
-    throw new RangeError(`renderJson: ${path} is a ${typeof value}, which JSON cannot represent`);
-  } else if (Array.isArray(value)) {
-    value.forEach((item, i) => assertJsonSafe(item, `${path}[${i}]`));
-  } else if (value !== null && typeof value === "object") {
-    for (const [key, item] of Object.entries(value)) assertJsonSafe(item, `${path}.${key}`);
+  const found = firstUnsafe(value);
+  if (found === null) return;
+  const at = path + found.path;
+  if (typeof found.value === "number") throw new RangeError(`renderJson: ${at} is ${found.value}; the core must use null instead`);
+  throw new RangeError(`renderJson: ${at} is a ${typeof found.value}, which JSON cannot represent`);
+}
+
+/**
+ * The first value JSON cannot hold, and its path below `value` (".key" and "[i]" steps); null when
+ * there is none. The path is built only on the way back from a find: checking a document builds no strings.
+ */
+function firstUnsafe(value: unknown): { path: string; value: unknown } | null {
+  if (typeof value === "number") return Number.isFinite(value) ? null : { path: "", value };
+  if (value === undefined || typeof value === "function" || typeof value === "bigint" || typeof value === "symbol")
+    return { path: "", value };
+  if (value === null || typeof value !== "object") return null;
+  if (Array.isArray(value)) {
+    for (let i = 0; i < value.length; i++) {
+      const found = firstUnsafe(value[i]);
+      if (found !== null) return { path: `[${i}]${found.path}`, value: found.value };
+    }
+    return null;
   }
+  const keys = Object.keys(value);
+  for (let i = 0; i < keys.length; i++) {
+    const key = keys[i]!;
+    const found = firstUnsafe((value as Record<string, unknown>)[key]);
+    if (found !== null) return { path: `.${key}${found.path}`, value: found.value };
+  }
+  return null;
 }
 
 /**

@@ -164,6 +164,14 @@ describe("renderJson", () => {
     expect(() => renderJson(reportOf(infinite), plain)).toThrow(/\$\.grid\[0\]\.factorVariance is Infinity/);
     expect(() => assertJsonSafe({ a: [1, undefined] })).toThrow(/\$\.a\[1\] is a undefined/);
     expect(() => assertJsonSafe({ a: [1, null, "x", true, { b: -0 }] })).not.toThrow();
+    // The first bad value in document order, with the full path below a given root.
+    expect(() => assertJsonSafe({ a: [{}, { b: [0, -Infinity] }], c: Number.NaN })).toThrow(
+      /^renderJson: \$\.a\[1\]\.b\[1\] is -Infinity; /,
+    );
+    expect(() => assertJsonSafe([{ f: () => 1 }], "$.pairs")).toThrow(
+      /^renderJson: \$\.pairs\[0\]\.f is a function, which JSON cannot represent$/,
+    );
+    expect(() => assertJsonSafe(10n)).toThrow(/^renderJson: \$ is a bigint/);
   });
 
   test("no NaN, Infinity or undefined text appears in any fixture's output", () => {
