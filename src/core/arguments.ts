@@ -4,6 +4,7 @@
  * an infinity, a hole in an array or a parameter outside its rule (core/parameters.ts).
  */
 
+import { largestValues, type LargestValues } from "./cancellation.js";
 import { diagnose, type Diagnostic } from "./diagnostics.js";
 import { type ParameterName, parameters } from "./parameters.js";
 import type { ReturnSample } from "./types.js";
@@ -69,6 +70,31 @@ export function sampleIssues(sample: ReturnSample): Diagnostic[] {
     if (found.length === 0) found.push(...issues(lengthMismatch("riskFree", rf, sample.low.length)));
   }
   return found;
+}
+
+/**
+ * `sampleIssues`, and when there are none the sample's largest values (largestValues), which the
+ * steps after the check need. Rows held in Float64Arrays of one length (a number or a Float64Array
+ * for the risk-free rate) take one pass: when their largest values are finite every value is (a NaN
+ * or an infinity carries through |x - r| and max), so there is nothing to report. Any other sample,
+ * or one with a value that is not finite, is checked by sampleIssues first, as before.
+ */
+export function checkedSample(sample: ReturnSample): { readonly issues: Diagnostic[]; readonly extent: LargestValues | null } {
+  if (sample !== null && typeof sample === "object") {
+    const { low, high, riskFree } = sample;
+    const rf = riskFree ?? 0;
+    const plain =
+      low instanceof Float64Array &&
+      high instanceof Float64Array &&
+      high.length === low.length &&
+      (typeof rf === "number" || (rf instanceof Float64Array && rf.length === low.length));
+    if (plain) {
+      const extent = largestValues(low, high, rf);
+      if (Number.isFinite(extent.low) && Number.isFinite(extent.high) && Number.isFinite(extent.riskFree)) return { issues: [], extent };
+    }
+  }
+  const found = sampleIssues(sample);
+  return { issues: found, extent: found.length > 0 ? null : largestValues(sample.low, sample.high, sample.riskFree ?? 0) };
 }
 
 /** The diagnostics that are not null, in order. */

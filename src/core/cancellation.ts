@@ -33,11 +33,13 @@ export interface RoundingScales {
 }
 
 /** The largest |low - rf| and |high - rf| over the rows (each book's magnitude), and the largest |rf|. */
-export function largestValues(
-  low: ArrayLike<number>,
-  high: ArrayLike<number>,
-  riskFree: number | ArrayLike<number>,
-): { low: number; high: number; riskFree: number } {
+export interface LargestValues {
+  readonly low: number;
+  readonly high: number;
+  readonly riskFree: number;
+}
+
+export function largestValues(low: ArrayLike<number>, high: ArrayLike<number>, riskFree: number | ArrayLike<number>): LargestValues {
   let l = 0;
   let h = 0;
   let r = typeof riskFree === "number" ? Math.abs(riskFree) : 0;

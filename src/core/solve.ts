@@ -8,7 +8,7 @@
  * Divisor n - 1 throughout.
  */
 
-import { issues, parameterIssue, sampleIssues } from "./arguments.js";
+import { checkedSample, issues, parameterIssue } from "./arguments.js";
 import { covarianceCancellation, largestValues, magnitudeIssue, type RoundingScales, varianceCancellation } from "./cancellation.js";
 import { diagnose, type Diagnostic } from "./diagnostics.js";
 import { candidateGrid, identifiedBounds, isPerfectCorrelation, marketMoments, noiseFreePoint, type MomentSummary } from "./identify.js";
@@ -54,7 +54,8 @@ export function solveKeepingMoments(
   const weight = options.weight ?? defaultWeight;
   const steps = options.steps ?? defaultSteps;
   const confidence = options.confidence ?? defaultConfidence;
-  const invalid = sampleIssues(sample);
+  const checked = checkedSample(sample);
+  const invalid = checked.issues;
   invalid.push(
     ...issues(
       parameterIssue("weight", "weight", weight),
@@ -69,7 +70,7 @@ export function solveKeepingMoments(
     return failure([diagnose({ code: "too-few-observations", observations: n, minimum: minimumObservations })]);
   }
   const riskFree = sample.riskFree ?? 0;
-  const extent = largestValues(sample.low, sample.high, riskFree);
+  const extent = checked.extent ?? largestValues(sample.low, sample.high, riskFree);
   const outOfRange = magnitudeIssue(extent.low, extent.high);
   if (outOfRange !== null) return failure([diagnose(outOfRange)]);
   // Computed on the data times a power of two (exact), reported in the data's units (scaling.ts).

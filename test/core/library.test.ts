@@ -75,6 +75,35 @@ describe("non-finite values and holes are refused, naming the argument, the inde
     ]);
   });
 
+  test("in Float64Arrays (the one-pass check of the largest values) every bad value is found and named as in arrays", () => {
+    const f = (values: readonly number[]) => Float64Array.from(values);
+    const rf = f(low.map(() => 0.0001));
+    const at = (values: readonly number[], i: number, value: number) => f(values.map((v, t) => (t === i ? value : v)));
+    for (const assess of [solve, assessUncertainty]) {
+      expect(refused(assess({ low: at(low, 3, Number.NaN), high: f(high) }))).toEqual([
+        { code: "invalid-number", argument: "low", index: 3, value: "NaN" },
+      ]);
+      expect(refused(assess({ low: f(low), high: at(high, 11, Number.NEGATIVE_INFINITY), riskFree: rf }))).toEqual([
+        { code: "invalid-number", argument: "high", index: 11, value: "-Infinity" },
+      ]);
+      // An infinite rate in both books' rows: low - rf and high - rf are NaN, the rate itself infinite.
+      expect(refused(assess({ low: f(low), high: f(high), riskFree: at(rf.slice() as unknown as number[], 0, Infinity) }))).toEqual([
+        { code: "invalid-number", argument: "riskFree", index: 0, value: "Infinity" },
+      ]);
+      expect(refused(assess({ low: f(low), high: f(high), riskFree: Number.POSITIVE_INFINITY }))).toEqual([
+        { code: "invalid-argument", argument: "riskFree", value: "Infinity", expected: "a finite number" },
+      ]);
+      expect(refused(assess({ low: f(low), high: f(high.slice(1)) }))).toEqual([
+        { code: "length-mismatch", argument: "high", length: 11, expected: 12 },
+      ]);
+      expect(refused(assess({ low: f(low), high: f(high), riskFree: rf.subarray(2) }))).toEqual([
+        { code: "length-mismatch", argument: "riskFree", length: 10, expected: 12 },
+      ]);
+    }
+    // A clean sample in Float64Arrays solves to the same numbers as in arrays.
+    expect(solve({ low: f(low), high: f(high), riskFree: rf })).toEqual(solve({ low, high, riskFree: Array.from(rf) }));
+  });
+
   test("a value that is not a number at all is named by its kind", () => {
     const text = [...low] as unknown as number[];
     (text as unknown[])[2] = "0.01";

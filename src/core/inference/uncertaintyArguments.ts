@@ -5,7 +5,7 @@
  * each option within its rule.
  */
 
-import { issues, parameterIssue, sampleIssues } from "../arguments.js";
+import { checkedSample, issues, parameterIssue } from "../arguments.js";
 import { largestValues, magnitudeIssue } from "../cancellation.js";
 import { diagnose, type Diagnostic } from "../diagnostics.js";
 import type { ReturnSample } from "../types.js";
@@ -25,7 +25,8 @@ interface CheckedOptions {
 
 /** What is wrong with assessUncertainty's arguments: the empty list when nothing is. */
 export function uncertaintyArgumentIssues(sample: ReturnSample, options: CheckedOptions): Diagnostic[] {
-  const found = sampleIssues(sample);
+  const checked = checkedSample(sample);
+  const found = checked.issues;
   const { weight, confidence, hac, bootstrap } = options;
   found.push(
     ...issues(
@@ -57,7 +58,7 @@ export function uncertaintyArgumentIssues(sample: ReturnSample, options: Checked
   if (found.length > 0) return found;
   const n = sample.low.length;
   if (n < minimumForUncertainty) return [diagnose({ code: "too-few-observations", observations: n, minimum: minimumForUncertainty })];
-  const extent = largestValues(sample.low, sample.high, sample.riskFree ?? 0);
+  const extent = checked.extent ?? largestValues(sample.low, sample.high, sample.riskFree ?? 0);
   const outOfRange = magnitudeIssue(extent.low, extent.high);
   return outOfRange === null ? [] : [diagnose(outOfRange)];
 }
