@@ -79,7 +79,8 @@ describe("non-finite values and holes are refused, naming the argument, the inde
     const f = (values: readonly number[]) => Float64Array.from(values);
     const rf = f(low.map(() => 0.0001));
     const at = (values: readonly number[], i: number, value: number) => f(values.map((v, t) => (t === i ? value : v)));
-    for (const assess of [solve, assessUncertainty]) {
+    const entries: ((sample: Parameters<typeof solve>[0]) => Result<unknown, Diagnostic[]>)[] = [solve, assessUncertainty];
+    for (const assess of entries) {
       expect(refused(assess({ low: at(low, 3, Number.NaN), high: f(high) }))).toEqual([
         { code: "invalid-number", argument: "low", index: 3, value: "NaN" },
       ]);
