@@ -1,4 +1,7 @@
 import { describe, expect, it } from "vitest";
+import type { ReadOptions } from "../../src/input/options.js";
+import { columnUnitWarnings, DECIMAL_LOOKING_MEDIAN, PERCENT_LOOKING_MEDIAN } from "../../src/input/table/warnings.js";
+import { uniforms } from "../support/random.js";
 import { column, HIGH, LOW, readIssues, readOk } from "./helpers.js";
 
 const file = (rows: string[]): string => ["Date,Low Fund,High Fund", ...rows].join("\n");
@@ -50,6 +53,37 @@ describe("unit warnings", () => {
 
   it("does not warn about ordinary decimal returns", () => {
     expect(readOk(withValues(["0.012", "-0.3", "0.2"], ["0.01", "0.02", "0.03"])).warnings).toEqual([]);
+  });
+});
+
+describe("unit warnings decided by a count before any median", () => {
+  /** The rule written out: the median |x| of the sample (sorted), then the two thresholds. */
+  function expected(values: Float64Array, percent: boolean): string[] {
+    const step = Math.max(1, Math.floor(values.length / 10_000));
+    const sample = Array.from({ length: Math.ceil(values.length / step) }, (_, i) => Math.abs(values[i * step]!)).sort((a, b) => a - b);
+    const m = sample.length;
+    const median = m === 0 ? Number.NaN : m % 2 === 1 ? sample[m >> 1]! : (sample[(m >> 1) - 1]! + sample[m >> 1]!) / 2;
+    if (!percent && median > PERCENT_LOOKING_MEDIAN) return ["looks-like-percent"];
+    if (percent && median > 0 && median < DECIMAL_LOOKING_MEDIAN) return ["looks-like-decimal"];
+    return [];
+  }
+
+  it("warns exactly when the median rule does, around both thresholds, for odd and even sizes", () => {
+    const random = uniforms(7);
+    for (let trial = 0; trial < 400; trial++) {
+      const percent = trial % 2 === 1;
+      const threshold = percent ? DECIMAL_LOOKING_MEDIAN : PERCENT_LOOKING_MEDIAN;
+      const n = 1 + Math.floor(random() * 40) + (trial % 7 === 0 ? 20_000 : 0);
+      // Values on both sides of the threshold, some exactly on it, a few zeros.
+      const values = Float64Array.from({ length: n }, () => {
+        const u = random();
+        const x = u < 0.1 ? threshold : u < 0.15 ? 0 : threshold * (0.5 + random());
+        return random() < 0.5 ? -x : x;
+      });
+      const options = { source: "r.csv", units: percent ? ("percent" as const) : ("decimal" as const) };
+      const found = columnUnitWarnings("low", values, options as ReadOptions).map((w) => w.code);
+      expect(found, `trial ${trial}, n ${n}`).toEqual(expected(values, percent));
+    }
   });
 });
 

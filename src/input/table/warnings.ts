@@ -17,14 +17,35 @@ const SAMPLE = 10_000;
 export function columnUnitWarnings(column: string, values: Float64Array, options: ReadOptions): InputWarning[] {
   if (options.input === "prices") return [];
   const percent = options.units === "percent";
-  const warnings: InputWarning[] = [];
   const step = Math.max(1, Math.floor(values.length / SAMPLE));
-  const medianAbs = median(float64Of(Math.ceil(values.length / step), (i) => Math.abs(values[i * step] as number)));
+  const size = Math.ceil(values.length / step);
+  const threshold = percent ? DECIMAL_LOOKING_MEDIAN : PERCENT_LOOKING_MEDIAN;
+  if (!medianMayPass(values, step, size, threshold, percent)) return [];
+  const medianAbs = median(float64Of(size, (i) => Math.abs(values[i * step] as number)));
+  const warnings: InputWarning[] = [];
   if (!percent && medianAbs > PERCENT_LOOKING_MEDIAN)
     warnings.push({ code: "looks-like-percent", source: options.source, column, medianAbs });
   if (percent && medianAbs > 0 && medianAbs < DECIMAL_LOOKING_MEDIAN)
     warnings.push({ code: "looks-like-decimal", source: options.source, column, medianAbs });
   return warnings;
+}
+
+/**
+ * False when the sample's median |x| is surely not above `threshold` (`below` false) or not below it
+ * (`below` true), from one count instead of a selection: with the sample sorted a[0..m), k = floor(m/2),
+ * the median is a[k] or (a[k-1] + a[k]) / 2, so it is above t only if at least m - k values are, and
+ * below t only if at least k are. A NaN in the sample leaves the answer to the median itself.
+ */
+function medianMayPass(values: Float64Array, step: number, size: number, threshold: number, below: boolean): boolean {
+  let count = 0;
+  let nan = 0;
+  for (let i = 0; i < size; i++) {
+    const x = Math.abs(values[i * step] as number);
+    if (below ? x < threshold : x > threshold) count++;
+    else if (x !== x) nan++;
+  }
+  const k = size >> 1;
+  return nan > 0 || count >= (below ? k : size - k);
 }
 
 /** "skipped-lines" for title rows above the header and "other-blocks" when the file holds several tables. */
