@@ -18,6 +18,17 @@ function productChunk(out: Float64Array, a: ArrayLike<number>, b: ArrayLike<numb
   for (let t = from; t < to; t++) out[t] = a[t]! * b[t]!;
 }
 
+/** out[t] = 0 + w * a[t]: addScaledInto on an array of zeros (the same bits: 0 + x, as that gives), without the zeros. */
+export function scaledInto(out: Float64Array, w: number, a: ArrayLike<number>): Float64Array {
+  const n = out.length;
+  for (let from = 0; from < n; from += rows) scaledChunk(out, w, a, from, Math.min(n, from + rows));
+  return out;
+}
+
+function scaledChunk(out: Float64Array, w: number, a: ArrayLike<number>, from: number, to: number): void {
+  for (let t = from; t < to; t++) out[t] = 0 + w * a[t]!;
+}
+
 /** out[t] = out[t] + w * a[t]. */
 export function addScaledInto(out: Float64Array, w: number, a: ArrayLike<number>): Float64Array {
   const n = out.length;

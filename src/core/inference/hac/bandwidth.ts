@@ -22,7 +22,7 @@
  */
 
 import { borrowSeries, giveBack } from "../../numerics/scratch.js";
-import { addScaledInto } from "../../numerics/seriesLoops.js";
+import { addScaledInto, scaledInto } from "../../numerics/seriesLoops.js";
 import type { HacKernel } from "../options.js";
 
 export function neweyWest1994Bandwidth(
@@ -35,11 +35,17 @@ export function neweyWest1994Bandwidth(
   const n = columns[0]!.length;
   const rate = kernel === "bartlett" ? 2 / 9 : 2 / 25;
   const preLag = Math.min(n - 1, Math.floor((prewhitened ? 3 : 4) * (originalRows / 100) ** rate));
-  const f = borrowSeries(n).fill(0);
+  // f = sum of w_a column_a over the weighted columns, from 0 (the first one written, not added to zeros).
+  const f = borrowSeries(n);
+  let started = false;
   columns.forEach((column, a) => {
     const w = columnWeights[a]!;
-    if (w !== 0) addScaledInto(f, w, column);
+    if (w === 0) return;
+    if (started) addScaledInto(f, w, column);
+    else scaledInto(f, w, column);
+    started = true;
   });
+  if (!started) f.fill(0);
   const sums = autocovarianceSums(f, preLag);
   giveBack(f);
   let s0 = 0;
