@@ -38,14 +38,14 @@ import {
 } from "./options.js";
 import { sharpeStdErrors } from "./sharpe.js";
 import { stoyeInterval } from "./stoye.js";
-import { scaledExcessReturns } from "./bootstrap/replicates.js";
+import { excessReturnsScaledBy } from "./bootstrap/replicates.js";
 import { welfordCrossProducts } from "../moments.js";
 import type { ReturnSample } from "../types.js";
 import type { Uncertainty, PointwiseBound, BetaInterval, CapmHac } from "./uncertaintyTypes.js";
 import { defaultBlockLength, defaultSeed, defaultWeight } from "../parameters.js";
 import { diagnose, type Diagnostic } from "../diagnostics.js";
 import { failure, type Result, success } from "../result.js";
-import { minimumForUncertainty, uncertaintyArgumentIssues } from "./uncertaintyArguments.js";
+import { checkedUncertaintyArguments, minimumForUncertainty } from "./uncertaintyArguments.js";
 
 export { minimumForUncertainty };
 
@@ -75,14 +75,16 @@ export interface UncertaintyOptions {
  * fewer than 10 observations, returns out of double precision's reach, or a constant series.
  */
 export function assessUncertainty(sample: UncertaintySample, options: UncertaintyOptions = {}): Result<Uncertainty, Diagnostic[]> {
-  const invalid = uncertaintyArgumentIssues(sample, options);
-  if (invalid.length > 0) return failure(invalid);
+  const checked = checkedUncertaintyArguments(sample, options);
+  if (checked.issues.length > 0 || checked.extent === null) return failure(checked.issues);
+  const { extent } = checked;
   const weight = options.weight ?? defaultWeight;
   const data = sample.riskFree === undefined ? { low: sample.low, high: sample.high, weight } : { ...sample, weight };
   // Computed on the excess returns times a power of two (scaling.ts): the HAC sums hold fourth
   // powers of returns. Every result is unit-free except the CAPM alphas' standard errors.
   return withScratch(() => {
-    const scaled = scaledExcessReturns(data, borrowSeries);
+    // The scale from the largest excess returns the check found (scaledExcessReturns' numbers, in one pass).
+    const scaled = excessReturnsScaledBy(data, Math.max(extent.low, extent.high), borrowSeries);
     const result = checkedUncertainty(sample, scaled, weight, options);
     giveBack(scaled.low, scaled.high);
     return result;

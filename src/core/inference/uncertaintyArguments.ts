@@ -6,7 +6,7 @@
  */
 
 import { checkedSample, issues, parameterIssue } from "../arguments.js";
-import { largestValues, magnitudeIssue } from "../cancellation.js";
+import { type LargestValues, largestValues, magnitudeIssue } from "../cancellation.js";
 import { diagnose, type Diagnostic } from "../diagnostics.js";
 import type { ReturnSample } from "../types.js";
 import type { HacOptions } from "./options.js";
@@ -25,6 +25,14 @@ interface CheckedOptions {
 
 /** What is wrong with assessUncertainty's arguments: the empty list when nothing is. */
 export function uncertaintyArgumentIssues(sample: ReturnSample, options: CheckedOptions): Diagnostic[] {
+  return checkedUncertaintyArguments(sample, options).issues;
+}
+
+/** uncertaintyArgumentIssues, and when there are none the sample's largest values (checkedSample). */
+export function checkedUncertaintyArguments(
+  sample: ReturnSample,
+  options: CheckedOptions,
+): { readonly issues: Diagnostic[]; readonly extent: LargestValues | null } {
   const checked = checkedSample(sample);
   const found = checked.issues;
   const { weight, confidence, hac, bootstrap } = options;
@@ -55,10 +63,11 @@ export function uncertaintyArgumentIssues(sample: ReturnSample, options: Checked
     const expected = "given with bootstrap replicates (at least 2) or a bootstrap summary";
     found.push(diagnose({ code: "invalid-argument", argument: "intervalSource", value: '"bootstrap"', expected }));
   }
-  if (found.length > 0) return found;
+  if (found.length > 0) return { issues: found, extent: null };
   const n = sample.low.length;
-  if (n < minimumForUncertainty) return [diagnose({ code: "too-few-observations", observations: n, minimum: minimumForUncertainty })];
+  if (n < minimumForUncertainty)
+    return { issues: [diagnose({ code: "too-few-observations", observations: n, minimum: minimumForUncertainty })], extent: null };
   const extent = checked.extent ?? largestValues(sample.low, sample.high, sample.riskFree ?? 0);
   const outOfRange = magnitudeIssue(extent.low, extent.high);
-  return outOfRange === null ? [] : [diagnose(outOfRange)];
+  return outOfRange === null ? { issues: [], extent } : { issues: [diagnose(outOfRange)], extent: null };
 }

@@ -84,6 +84,33 @@ export function scaledExcessReturns(
 }
 
 /**
+ * scaledExcessReturns when the largest |excess return| of either book is known (largestValues, from
+ * the same differences): one pass, (x - r) * scale, the same numbers.
+ */
+export function excessReturnsScaledBy(
+  data: BootstrapData,
+  largest: number,
+  allocate: (n: number) => Float64Array,
+): { low: Float64Array; high: Float64Array; scale: number } {
+  const n = data.low.length;
+  if (data.high.length !== n) throw new RangeError("bootstrap: low and high differ in length");
+  const rf = data.riskFree ?? 0;
+  if (typeof rf !== "number" && rf.length !== n) throw new RangeError("bootstrap: riskFree differs in length");
+  const scale = scaleFor(largest);
+  // Every element is written below.
+  const low = allocate(n);
+  const high = allocate(n);
+  const rates = typeof rf === "number" ? null : rf;
+  const rate = typeof rf === "number" ? rf : 0;
+  for (let t = 0; t < n; t++) {
+    const r = rates === null ? rate : rates[t]!;
+    low[t] = (data.low[t]! - r) * scale;
+    high[t] = (data.high[t]! - r) * scale;
+  }
+  return { low, high, scale };
+}
+
+/**
  * The `scale` of scaledExcessReturns without building the excess returns: the same power of two, from
  * the same differences (for passes that form the scaled excess returns as they go, e.g. assessPricing).
  */
