@@ -54,12 +54,18 @@ export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {})
   let m2 = 0;
   let m3 = 0;
   let m4 = 0;
+  // The two series' plain sums, for the long-run covariance's means (longRun.ts).
+  let sumFirst = 0;
+  let sumSecond = 0;
   // The moment functions standardised, (d / sigma, (d / sigma)^2 - 1), with the gradient (1, -SR / 2):
   // the same quadratic form for a given bandwidth, and an automatic bandwidth free of the returns' units.
   for (let t = 0; t < n; t++) {
     const z = (excess[t]! - mu) / sigma;
+    const zz = z * z - 1;
     first[t] = z;
-    second[t] = z * z - 1;
+    second[t] = zz;
+    sumFirst += z;
+    sumSecond += zz;
     m2 += z * z;
     m3 += z * z * z;
     m4 += z * z * z * z;
@@ -67,7 +73,7 @@ export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {})
   // Skewness and kurtosis are ratios of central moments: the same from z as from the returns.
   const skewness = m3 / n / (m2 / n) ** 1.5;
   const kurtosis = m4 / n / (m2 / n) ** 2;
-  const sigmaHat = longRunCovarianceInPlace([first, second], hac).covariance;
+  const sigmaHat = longRunCovarianceInPlace([first, second], hac, { sums: [sumFirst, sumSecond] }).covariance;
   giveBack(first, second);
   const gradient = [1, -estimate / 2];
   return {

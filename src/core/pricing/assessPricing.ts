@@ -136,7 +136,9 @@ function pricingOf(sample: ReturnSample, options: PricingOptions): Pricing | nul
     });
     // Only the entries within (mu_x, lambda), (d1, d2) and the two ends are read below.
     const covariance =
-      options.longRun === "iid" ? sampleCovarianceOf(series) : longRunCovarianceInPlace(series, options.hac, readPairs).covariance;
+      options.longRun === "iid"
+        ? sampleCovarianceOf(series)
+        : longRunCovarianceInPlace(series, options.hac, { within: readPairs }).covariance;
     giveBack(...series);
     return covariance;
   }

@@ -11,7 +11,7 @@
 import { describe, expect, test } from "vitest";
 import { leastSquares } from "../../../../src/core/numerics/leastSquares.js";
 import { scale, multiply } from "../../../../src/core/numerics/linearAlgebra.js";
-import { longRunCovariance, sampleCovarianceOf } from "../../../../src/core/inference/hac/longRun.js";
+import { longRunCovariance, longRunCovarianceInPlace, sampleCovarianceOf } from "../../../../src/core/inference/hac/longRun.js";
 import { expectClose } from "../../../support/close.js";
 import { investmentRegression, macrodataRegression } from "../fixtures.js";
 import { expectMatrixClose } from "../matrices.js";
@@ -68,5 +68,28 @@ describe("iid alternative", () => {
     const lrv = longRunCovariance([a, b], { lags: 0 });
     expectClose(lrv.covariance[0]![0], 5 / 4, { rel: 1e-15 });
     expectClose(lrv.covariance[0]![1], 23 / 8, { rel: 1e-15 });
+  });
+});
+
+describe("the in-place form with the columns' sums given", () => {
+  test("gives the same bits as forming the means itself; the sums given are the ones used", () => {
+    const columns = [0, 1].map((a) => Float64Array.from({ length: 500 }, (_, t) => Math.sin(t * (0.3 + a)) + 0.2 * a));
+    const sums = columns.map((c) => c.reduce((s, x) => s + x, 0));
+    const own = longRunCovarianceInPlace(
+      columns.map((c) => c.slice()),
+      {},
+    );
+    const given = longRunCovarianceInPlace(
+      columns.map((c) => c.slice()),
+      {},
+      { sums },
+    );
+    expect(given).toEqual(own);
+    const shifted = longRunCovarianceInPlace(
+      columns.map((c) => c.slice()),
+      {},
+      { sums: [sums[0]! + 50, sums[1]!] },
+    );
+    expect(shifted.covariance[0]![0]).not.toBe(own.covariance[0]![0]);
   });
 });
