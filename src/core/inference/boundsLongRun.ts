@@ -100,24 +100,37 @@ export function boundInfluenceSeries(
     syy += dy * dy;
     sxy += dx * dy;
   }
-  const means = [sxx / n, syy / n, sxy / n];
-  const fill = (g: readonly number[]): Float64Array => {
-    const f = borrowSeries(n);
-    const [g0, g1, g2] = g as [number, number, number];
-    const [m0, m1, m2] = means as [number, number, number];
-    for (let t = 0; t < n; t++) {
-      const dx = x[t]! - mx;
-      const dy = y[t]! - my;
-      // Column by column, skipping zero gradients, as influenceSeries adds them.
-      let v = 0;
-      if (g0 !== 0) v = v + g0 * (dx * dx - m0);
-      if (g1 !== 0) v = v + g1 * (dy * dy - m1);
-      if (g2 !== 0) v = v + g2 * (dx * dy - m2);
-      f[t] = v;
-    }
-    return f;
-  };
+  const means: Three = [sxx / n, syy / n, sxy / n];
+  const fill = (g: readonly number[]) => fillInfluence(borrowSeries(n), x, y, mx, my, g as Three, means);
   return { lower: fill(gradients.lower), upper: fill(gradients.upper) };
+}
+
+type Three = readonly [number, number, number];
+
+/**
+ * One bound's influence series from the centred rows and the gradient g, column by column, skipping
+ * zero gradients, as influenceSeries adds them (a function of its own, so that V8 optimises the loop).
+ */
+function fillInfluence(
+  f: Float64Array,
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  mx: number,
+  my: number,
+  [g0, g1, g2]: Three,
+  [m0, m1, m2]: Three,
+): Float64Array {
+  const n = f.length;
+  for (let t = 0; t < n; t++) {
+    const dx = x[t]! - mx;
+    const dy = y[t]! - my;
+    let v = 0;
+    if (g0 !== 0) v = v + g0 * (dx * dx - m0);
+    if (g1 !== 0) v = v + g1 * (dy * dy - m1);
+    if (g2 !== 0) v = v + g2 * (dx * dy - m2);
+    f[t] = v;
+  }
+  return f;
 }
 
 /** The means of x and y by plain sums, in order (the moment series' convention, kept bit for bit). */

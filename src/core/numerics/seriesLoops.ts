@@ -29,6 +29,17 @@ function scaledChunk(out: Float64Array, w: number, a: ArrayLike<number>, from: n
   for (let t = from; t < to; t++) out[t] = 0 + w * a[t]!;
 }
 
+/** out[t] = w * a[t] + v * b[t]. */
+export function blendInto(out: Float64Array, w: number, a: ArrayLike<number>, v: number, b: ArrayLike<number>): Float64Array {
+  const n = out.length;
+  for (let from = 0; from < n; from += rows) blendChunk(out, w, a, v, b, from, Math.min(n, from + rows));
+  return out;
+}
+
+function blendChunk(out: Float64Array, w: number, a: ArrayLike<number>, v: number, b: ArrayLike<number>, from: number, to: number): void {
+  for (let t = from; t < to; t++) out[t] = w * a[t]! + v * b[t]!;
+}
+
 /** out[t] = out[t] + w * a[t]. */
 export function addScaledInto(out: Float64Array, w: number, a: ArrayLike<number>): Float64Array {
   const n = out.length;
