@@ -79,6 +79,34 @@ describe("the row kernel", () => {
     );
   });
 
+  it("finds the rows of a file of 4 KiB and more (copied into the shared kernel) as a search written out here does", () => {
+    const line = fc.stringMatching(/^[a-z0-9,.-]{0,60}$/).map((cells) => `${cells},2020-01-31,0.0123`);
+    fc.assert(
+      fc.property(fc.array(line, { minLength: 150, maxLength: 400 }), fc.boolean(), (lines, finalBreak) => {
+        const text = `${lines.join("\n")}${finalBreak ? "\n" : ""}`;
+        const bytes = new TextEncoder().encode(text);
+        fc.pre(bytes.length >= 4096);
+        // Every line feed ends a row; bytes after the last one are a row that ends one past the end.
+        const expectedStarts: number[] = [];
+        let from = 0;
+        for (let i = 0; i < bytes.length; i++) {
+          if (bytes[i] !== 10) continue;
+          expectedStarts.push(from);
+          from = i + 1;
+        }
+        if (from < bytes.length) {
+          expectedStarts.push(from);
+          from = bytes.length + 1;
+        }
+        expectedStarts.push(from);
+        const found = plainLines(bytes, Infinity);
+        expect(found?.starts).toEqual(Int32Array.from(expectedStarts));
+        expect(found?.firstBytes).toEqual(Uint8Array.from(expectedStarts.slice(0, -1), (at) => bytes[at]!));
+      }),
+      { seed: 20261204, numRuns: 60 },
+    );
+  });
+
   // Rows around the kernel's edges: long and odd numbers, odd dates, odd rows, odd bytes.
   const oddCell = fc.constantFrom(
     "0.12345678901234567",

@@ -87,12 +87,20 @@ export function kernelBytes(size: number): Uint8Array {
 
 /**
  * The offsets just past each line feed of `bytes` from `from` on (where the next row starts), found
- * by the kernel 16 bytes at a time; null when the bytes are not in kernel memory.
+ * by the kernel 16 bytes at a time (a small file in a copy); null for a tiny file outside kernel memory, or
+ * without WebAssembly.
  */
 export function lineEnds(bytes: Uint8Array, from: number): Int32Array | null {
   const kernel = memories.get(bytes.buffer);
-  return kernel === undefined ? null : kernel.lineEnds(bytes.byteOffset, from, bytes.length);
+  if (kernel !== undefined) return kernel.lineEnds(bytes.byteOffset, from, bytes.length);
+  // A small file is found in a copy in the shared kernel (as rowKernelFor reads its rows): a copy of a
+  // few MB costs less than a call per line. A tiny one is left to the caller's search.
+  const copy = bytes.length >= LINE_COPY_MIN ? rowKernelFor(bytes) : null;
+  return copy === null ? null : copy.kernel.lineEnds(copy.base, from, bytes.length);
 }
+
+/** Files shorter than this are not copied to find their lines. */
+const LINE_COPY_MIN = 4096;
 
 /** The kernel whose memory small files are copied into (made on first use, never grown). */
 let copyKernel: RowKernel | null | undefined;
