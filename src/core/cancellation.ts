@@ -18,6 +18,7 @@
 
 import type { DiagnosticDetail } from "./diagnostics.js";
 import type { MomentSummary } from "./identify.js";
+import { CHUNK } from "./moments.js";
 import { magnitudeRange, magnitudeRatio } from "./parameters.js";
 
 /** Machine epsilon of doubles, 2^-52: a bound on the relative rounding of a value read or subtracted. */
@@ -40,16 +41,40 @@ export interface LargestValues {
 }
 
 export function largestValues(low: ArrayLike<number>, high: ArrayLike<number>, riskFree: number | ArrayLike<number>): LargestValues {
-  let l = 0;
-  let h = 0;
-  let r = typeof riskFree === "number" ? Math.abs(riskFree) : 0;
-  for (let t = 0; t < low.length; t++) {
-    const rate = typeof riskFree === "number" ? riskFree : riskFree[t]!;
-    l = Math.max(l, Math.abs(low[t]! - rate));
-    h = Math.max(h, Math.abs(high[t]! - rate));
-    r = Math.max(r, Math.abs(rate));
+  const rates = typeof riskFree === "number" ? null : riskFree;
+  const rate = typeof riskFree === "number" ? riskFree : 0;
+  // [low, high, riskFree], carried from chunk to chunk (see largestChunk).
+  const state = Float64Array.of(0, 0, rates === null ? Math.abs(rate) : 0);
+  const n = low.length;
+  for (let from = 0; from < n; from += CHUNK) largestChunk(low, high, rates, rate, from, Math.min(n, from + CHUNK), state);
+  return { low: state[0]!, high: state[1]!, riskFree: state[2]! };
+}
+
+/**
+ * Rows [from, to) of largestValues, continuing `state`: a small function V8 optimises whole (one long
+ * loop with running maxima runs in on-stack-replaced code on Node 20, boxing them; see moments.ts).
+ */
+function largestChunk(
+  low: ArrayLike<number>,
+  high: ArrayLike<number>,
+  rates: ArrayLike<number> | null,
+  rate: number,
+  from: number,
+  to: number,
+  state: Float64Array,
+): void {
+  let l = state[0]!;
+  let h = state[1]!;
+  let r = state[2]!;
+  for (let t = from; t < to; t++) {
+    const at = rates === null ? rate : rates[t]!;
+    l = Math.max(l, Math.abs(low[t]! - at));
+    h = Math.max(h, Math.abs(high[t]! - at));
+    r = Math.max(r, Math.abs(at));
   }
-  return { low: l, high: h, riskFree: r };
+  state[0] = l;
+  state[1] = h;
+  state[2] = r;
 }
 
 /** The magnitudes of both books' excess returns, or the first one out of range (or too far from the other). */

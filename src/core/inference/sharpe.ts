@@ -40,36 +40,25 @@ export function sharpeMertensStdErr(sharpe: number, skewness: number, kurtosis: 
 /** Estimate, Lo iid and HAC delta-method standard errors of the Sharpe ratio of `excess`. */
 export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {}): SharpeStdErrors {
   const n = excess.length;
-  let mu = 0;
-  for (let t = 0; t < n; t++) mu += excess[t]!;
-  mu /= n;
-  let ss = 0;
-  for (let t = 0; t < n; t++) ss += (excess[t]! - mu) ** 2;
+  // In chunks by small functions V8 optimises whole (seriesLoops.ts); sums carried in `sums`.
+  const sums = new Float64Array(5);
+  for (let from = 0; from < n; from += CHUNK) sumChunk(excess, from, Math.min(n, from + CHUNK), sums);
+  const mu = sums[0]! / n;
+  sums[0] = 0;
+  for (let from = 0; from < n; from += CHUNK) squaredDeviationChunk(excess, mu, from, Math.min(n, from + CHUNK), sums);
+  const ss = sums[0]!;
   const variance = ss / (n - 1);
   const sigma = Math.sqrt(variance);
   const estimate = mu / sigma;
   // Both are written in full below before they are read.
   const first = borrowSeries(n);
   const second = borrowSeries(n);
-  let m2 = 0;
-  let m3 = 0;
-  let m4 = 0;
-  // The two series' plain sums, for the long-run covariance's means (longRun.ts).
-  let sumFirst = 0;
-  let sumSecond = 0;
   // The moment functions standardised, (d / sigma, (d / sigma)^2 - 1), with the gradient (1, -SR / 2):
   // the same quadratic form for a given bandwidth, and an automatic bandwidth free of the returns' units.
-  for (let t = 0; t < n; t++) {
-    const z = (excess[t]! - mu) / sigma;
-    const zz = z * z - 1;
-    first[t] = z;
-    second[t] = zz;
-    sumFirst += z;
-    sumSecond += zz;
-    m2 += z * z;
-    m3 += z * z * z;
-    m4 += z * z * z * z;
-  }
+  // sums: m2, m3, m4 and the two series' plain sums, for the long-run covariance's means (longRun.ts).
+  sums.fill(0);
+  for (let from = 0; from < n; from += CHUNK) standardChunk(excess, mu, sigma, first, second, from, Math.min(n, from + CHUNK), sums);
+  const [m2, m3, m4, sumFirst, sumSecond] = sums as unknown as [number, number, number, number, number];
   // Skewness and kurtosis are ratios of central moments: the same from z as from the returns.
   const skewness = m3 / n / (m2 / n) ** 1.5;
   const kurtosis = m4 / n / (m2 / n) ** 2;
@@ -84,4 +73,52 @@ export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {})
     // A quadratic form of a positive semi-definite matrix: negative only by rounding.
     hacStdErr: Math.sqrt(Math.max(0, bilinear(gradient, sigmaHat, gradient)) / n),
   };
+}
+
+const CHUNK = 1024;
+
+function sumChunk(x: ArrayLike<number>, from: number, to: number, sums: Float64Array): void {
+  let total = sums[0]!;
+  for (let t = from; t < to; t++) total += x[t]!;
+  sums[0] = total;
+}
+
+function squaredDeviationChunk(x: ArrayLike<number>, mu: number, from: number, to: number, sums: Float64Array): void {
+  let total = sums[0]!;
+  for (let t = from; t < to; t++) total += (x[t]! - mu) ** 2;
+  sums[0] = total;
+}
+
+/** first = z = (x - mu) / sigma and second = z^2 - 1 over rows [from, to); sums += z^2, z^3, z^4, z, z^2 - 1. */
+function standardChunk(
+  x: ArrayLike<number>,
+  mu: number,
+  sigma: number,
+  first: Float64Array,
+  second: Float64Array,
+  from: number,
+  to: number,
+  sums: Float64Array,
+): void {
+  let m2 = sums[0]!;
+  let m3 = sums[1]!;
+  let m4 = sums[2]!;
+  let sumFirst = sums[3]!;
+  let sumSecond = sums[4]!;
+  for (let t = from; t < to; t++) {
+    const z = (x[t]! - mu) / sigma;
+    const zz = z * z - 1;
+    first[t] = z;
+    second[t] = zz;
+    sumFirst += z;
+    sumSecond += zz;
+    m2 += z * z;
+    m3 += z * z * z;
+    m4 += z * z * z * z;
+  }
+  sums[0] = m2;
+  sums[1] = m3;
+  sums[2] = m4;
+  sums[3] = sumFirst;
+  sums[4] = sumSecond;
 }

@@ -54,18 +54,10 @@ export function classicalCovariance(design: readonly Float64Array[], residuals: 
 export function interceptLeastSquares(x: ArrayLike<number>, y: ArrayLike<number>): LeastSquaresFit {
   const n = y.length;
   if (x.length !== n) throw new RangeError("leastSquares: design and response differ in length");
-  let sx = 0;
-  let sxx = 0;
-  let sy = 0;
-  let sxy = 0;
-  for (let t = 0; t < n; t++) {
-    const xt = x[t]!;
-    const yt = y[t]!;
-    sx += xt;
-    sxx += xt * xt;
-    sy += yt;
-    sxy += xt * yt;
-  }
+  // sx, sxx, sy, sxy, in chunks by a small function V8 optimises whole (seriesLoops.ts).
+  const sums = new Float64Array(4);
+  for (let from = 0; from < n; from += CHUNK) crossChunk(x, y, from, Math.min(n, from + CHUNK), sums);
+  const [sx, sxx, sy, sxy] = sums as unknown as [number, number, number, number];
   const xtx = [
     [n, sx],
     [sx, sxx],
@@ -80,4 +72,25 @@ export function interceptLeastSquares(x: ArrayLike<number>, y: ArrayLike<number>
     residuals[t] = y[t]! - fitted;
   }
   return { coefficients: [a, b], residuals, inverseCrossProduct: inverse(xtx) };
+}
+
+const CHUNK = 1024;
+
+function crossChunk(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, sums: Float64Array): void {
+  let sx = sums[0]!;
+  let sxx = sums[1]!;
+  let sy = sums[2]!;
+  let sxy = sums[3]!;
+  for (let t = from; t < to; t++) {
+    const xt = x[t]!;
+    const yt = y[t]!;
+    sx += xt;
+    sxx += xt * xt;
+    sy += yt;
+    sxy += xt * yt;
+  }
+  sums[0] = sx;
+  sums[1] = sxx;
+  sums[2] = sy;
+  sums[3] = sxy;
 }
