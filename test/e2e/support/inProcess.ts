@@ -10,12 +10,15 @@
  * (from source they are absent, so the bootstrap runs in this thread: the same numbers bit for bit,
  * src/cli/runtime/bootstrapThreads.ts). Each run costs its work alone, not a node start-up.
  */
+import { readFileSync } from "node:fs";
+import { join } from "node:path";
 import { run } from "../../../src/cli/program.js";
 import { identify, readInputBytes, readInputSource } from "../../../src/cli/runtime/files.js";
 import type { CliIo } from "../../../src/cli/runtime/io.js";
 import { openOutput } from "../../../src/cli/runtime/output.js";
+import { version } from "../../../src/jobs/index.js";
 import { importVega } from "../../../src/report/charts/loadVega.js";
-import type { CliRun } from "./cliRuns.js";
+import { type CliRun, root } from "./cliRuns.js";
 
 /** One run of the program with `args`, in this process (NO_COLOR set, no terminal, no standard input). */
 export async function runInProcess(args: readonly string[]): Promise<CliRun> {
@@ -56,4 +59,16 @@ export async function runAllInProcess(argsList: readonly (readonly string[])[]):
   const results: CliRun[] = [];
   for (const args of argsList) results.push(await runInProcess(args));
   return results;
+}
+
+const packageVersion = (JSON.parse(readFileSync(join(root, "package.json"), "utf8")) as { version: string }).version;
+
+/**
+ * A run of the executable as the program from source would have written it: the bundle names the
+ * package's version where the program built from source names `version` ("development"), the only
+ * difference between the two.
+ */
+export function asFromSource(run: CliRun): CliRun {
+  const restate = (text: string) => text.split(packageVersion).join(version);
+  return { ...run, stdout: restate(run.stdout), stderr: restate(run.stderr) };
 }
