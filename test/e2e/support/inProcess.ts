@@ -12,13 +12,14 @@
  */
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
+import { expect } from "vitest";
 import { run } from "../../../src/cli/program.js";
 import { identify, readInputBytes, readInputSource } from "../../../src/cli/runtime/files.js";
 import type { CliIo } from "../../../src/cli/runtime/io.js";
 import { openOutput } from "../../../src/cli/runtime/output.js";
 import { version } from "../../../src/jobs/index.js";
 import { importVega } from "../../../src/report/charts/loadVega.js";
-import { type CliRun, root } from "./cliRuns.js";
+import { type CliRun, describeRun, root, runCli } from "./cliRuns.js";
 
 /** One run of the program with `args`, in this process (NO_COLOR set, no terminal, no standard input). */
 export async function runInProcess(args: readonly string[]): Promise<CliRun> {
@@ -71,4 +72,16 @@ const packageVersion = (JSON.parse(readFileSync(join(root, "package.json"), "utf
 export function asFromSource(run: CliRun): CliRun {
   const restate = (text: string) => text.split(packageVersion).join(version);
   return { ...run, stdout: restate(run.stdout), stderr: restate(run.stderr) };
+}
+
+/**
+ * Runs `args` in this process, then as the built executable, checks that the executable wrote what the
+ * in-process run wrote (both streams, byte for byte, and the exit code), and returns the run.
+ */
+export async function runBothWays(args: readonly string[]): Promise<CliRun> {
+  const inProcess = await runInProcess(args);
+  const executable = asFromSource(await runCli(args));
+  const written = (r: CliRun) => ({ code: r.code, stdout: r.stdout, stderr: r.stderr });
+  expect(written(executable), `${describeRun(executable)}: the executable and the in-process run differ`).toEqual(written(inProcess));
+  return executable;
 }
