@@ -2,15 +2,21 @@
  * The bad-input catalogue, end to end: every case exits with its documented code, prints one or more
  * `error:` lines naming the file (and line, column and value where there is one), prints nothing on
  * stdout, never a stack trace, and leaves an existing --output file untouched.
+ *
+ * Which runs are real processes, and why: every case runs in this process (support/inProcess.ts: the
+ * program with the executable's file reads and output path), which costs its work alone rather than a
+ * node start-up; the cases marked `real` (a missing file, a bad value in a file, binary content, a bad
+ * option value: each kind of refusal, exit 1 and 2) and the unwritable output (exit 4) run as the built
+ * executable as well, which must write what the in-process run wrote, with the same exit code. So the
+ * launcher, the bundle and the process's exit code stay covered end to end.
  */
-import { spawnSync } from "node:child_process";
 import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
+import { runBothWays, runInProcess } from "./support/inProcess.js";
 
 const root = new URL("../../", import.meta.url).pathname;
-const cli = join(root, "dist/cli.cjs");
 const scratch = mkdtempSync(join(tmpdir(), "betabound-bad-"));
 const header = "date,low,high";
 const good = [header, "2024-01-31,0.01,0.02", "2024-02-29,-0.02,-0.03", "2024-03-31,0.015,0.01", "2024-04-30,0.004,0.012"];
@@ -27,6 +33,8 @@ interface Case {
   readonly code: number;
   /** Text the message must contain (file name, line, column, value, hint). */
   readonly says: readonly (string | RegExp)[];
+  /** Run as the built executable too. */
+  readonly real?: boolean;
 }
 
 const books = ["--low", "low", "--high", "high"];
@@ -35,7 +43,7 @@ const solve =
   (output: string) => ["solve", path, ...books, "--output", output, ...extra];
 
 const cases: Case[] = [
-  { name: "a missing file", args: solve(join(scratch, "absent.csv")), code: 2, says: ["absent.csv", "no such file"] },
+  { real: true, name: "a missing file", args: solve(join(scratch, "absent.csv")), code: 2, says: ["absent.csv", "no such file"] },
   { name: "an unreadable path (a folder)", args: solve(scratch), code: 2, says: ["it is a directory"] },
   { name: "an empty file", args: solve(file("empty.csv", "")), code: 2, says: ["empty.csv", "empty"] },
   { name: "a header only", args: solve(file("header.csv", `${header}\n`)), code: 2, says: ["header.csv", "line 1"] },
@@ -52,6 +60,7 @@ const cases: Case[] = [
     says: ["dup.csv", '"low"'],
   },
   {
+    real: true,
     name: "a non-numeric value",
     args: solve(file("nan.csv", [...good.slice(0, 3), "2024-03-31,0.01,abc", good[4]].join("\n"))),
     code: 2,
@@ -95,6 +104,7 @@ const cases: Case[] = [
     says: ["big.csv line 6", '"12"', "--allow-extreme"],
   },
   {
+    real: true,
     name: "binary content",
     args: solve(file("bin.csv", new Uint8Array([0x64, 0x61, 0x74, 0x65, 0x00, 0x01, 0x02]))),
     code: 2,
@@ -112,17 +122,23 @@ const cases: Case[] = [
     code: 2,
     says: ["split.csv line 3"],
   },
-  { name: "a weight outside (0, 1)", args: solve(file("w.csv", good.join("\n")), "--weight", "1"), code: 1, says: ["--weight", "'1'"] },
+  {
+    real: true,
+    name: "a weight outside (0, 1)",
+    args: solve(file("w.csv", good.join("\n")), "--weight", "1"),
+    code: 1,
+    says: ["--weight", "'1'"],
+  },
   { name: "steps below 2", args: solve(file("s.csv", good.join("\n")), "--steps", "1"), code: 1, says: ["--steps", "'1'"] },
   { name: "an unknown format", args: solve(file("f.csv", good.join("\n")), "--format", "xlsx"), code: 1, says: ["--format", "xlsx"] },
 ];
 
 describe("bad input end to end", () => {
-  it.each(cases)("refuses $name with its exit code and a message, touching no output", ({ args, code, says }) => {
+  it.each(cases)("refuses $name with its exit code and a message, touching no output", async ({ args, code, says, real }) => {
     const output = join(scratch, "previous-output.json");
     writeFileSync(output, "previous\n");
-    const result = spawnSync(process.execPath, [cli, ...args(output)], { encoding: "utf8", env: { ...process.env, NO_COLOR: "1" } });
-    expect(result.status).toBe(code);
+    const result = await (real === true ? runBothWays : runInProcess)(args(output));
+    expect(result.code).toBe(code);
     expect(result.stdout).toBe("");
     expect(result.stderr).toMatch(/^error: /);
     expect(result.stderr).not.toMatch(/\n\s+at .+:\d+:\d+/);
@@ -131,12 +147,10 @@ describe("bad input end to end", () => {
     expect(readFileSync(output, "utf8")).toBe("previous\n");
   });
 
-  it("refuses an output path that cannot be written with exit 4 and no stdout", () => {
+  it("refuses an output path that cannot be written with exit 4 and no stdout", async () => {
     const input = file("ok.csv", good.join("\n"));
-    const result = spawnSync(process.execPath, [cli, "solve", input, ...books, "--output", join(scratch, "missing-dir", "out.json")], {
-      encoding: "utf8",
-    });
-    expect(result.status).toBe(4);
+    const result = await runBothWays(["solve", input, ...books, "--output", join(scratch, "missing-dir", "out.json")]);
+    expect(result.code).toBe(4);
     expect(result.stdout).toBe("");
     expect(result.stderr).toContain("cannot write");
   });

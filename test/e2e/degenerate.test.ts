@@ -1,10 +1,20 @@
 /**
- * The degenerate-data catalogue, end to end: the built executable on constant, identical, perfectly
- * (negatively) correlated, cancelling, tiny and huge inputs, and on every option at and just beyond the
- * ends of its range, for solve (text, json, csv, jsonl), roll (csv, jsonl, text), implied and simulate.
- * Every run keeps the contract (no exit 70, no NaN or Infinity with exit 0, no stack trace, nothing on
- * stdout with exit 1 or 2) and exits with the code the README's table gives the case. The runs go
- * through a pool of processes in beforeAll; each case is then checked on its own.
+ * The degenerate-data catalogue, end to end: the CLI on constant, identical, perfectly (negatively)
+ * correlated, cancelling, tiny and huge inputs, and on every option at and just beyond the ends of its
+ * range, for solve (text, json, csv, jsonl), roll (csv, jsonl, text), implied and simulate. Every run
+ * keeps the contract (no exit 70, no NaN or Infinity with exit 0, no stack trace, nothing on stdout
+ * with exit 1 or 2) and exits with the code the README's table gives the case.
+ *
+ * Which runs are real processes, and why: every case runs in this process (support/inProcess.ts: the
+ * program with the executable's own file reads and output path, standard output and error captured),
+ * which costs the work alone instead of a node start-up each (the whole catalogue: about 5 s instead of
+ * 40 s on two cores). The cases marked `real` run again as the built executable (dist/cli.cjs, through
+ * a pool of processes): one or more per command and exit code (0, 1, 2, 3), a failure record on stdout
+ * (jsonl) and roll's header alone (csv) with exit 2, a large output through the pipe, and a bootstrap on
+ * worker threads (absent from source). Each must keep the contract on its own and write exactly what
+ * the in-process run wrote, byte for byte on both streams, with the same exit code: so the launcher,
+ * the bundle, the process's exit code and the flushing of its streams stay covered end to end, and the
+ * in-process runs stand for the executable's.
  */
 import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -13,6 +23,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { inputWarningCodes } from "../../src/input/index.js";
 import { scaledDifference } from "../support/units.js";
 import { books, type CliRun, contractBreaches, describeRun, monthly, runAll } from "./support/cliRuns.js";
+import { asFromSource, runAllInProcess } from "./support/inProcess.js";
 
 const scratch = mkdtempSync(join(tmpdir(), "betabound-degenerate-"));
 
@@ -125,7 +136,16 @@ interface Case {
   readonly says?: string;
   /** Text stderr must not contain. */
   readonly never?: string;
+  /** Run as the built executable too (see the top of this file). */
+  readonly real?: boolean;
 }
+
+const real = (c: Case): Case => ({ ...c, real: true });
+/** `list` with its case in `format` marked real (the one solveOn or rollOn made in that format). */
+const realIn = (format: string, list: Case[]): Case[] => {
+  if (!list.some((c) => c.name.endsWith(`(${format})`))) throw new Error(`no case in ${format} among ${list[0]?.name}`);
+  return list.map((c) => (c.name.endsWith(`(${format})`) ? real(c) : c));
+};
 
 /** Every format for data that are solved or rejected; a refused input writes no report, so json and jsonl (its failure record) cover it. */
 const solveFormats = (code: number) => (code === 2 ? ["json", "jsonl"] : ["text", "json", "csv", "jsonl"]);
@@ -154,18 +174,21 @@ const simulate = (...extra: string[]) => [...structure, "--periods", "24", ...ex
 
 const cases: Case[] = [
   // ---- data ---------------------------------------------------------------------------------
-  ...solveOn("on the example rows", files.example, 0),
-  ...solveOn("with a constant low book", files.constantLow, 2, [], "constant"),
+  ...realIn("text", realIn("csv", solveOn("on the example rows", files.example, 0))),
+  ...realIn("jsonl", solveOn("with a constant low book", files.constantLow, 2, [], "constant")),
   ...solveOn("with a constant high book", files.constantHigh, 2, [], "constant"),
   ...solveOn("with identical books", files.identical, 0, ["--bootstrap", "200"]),
-  ...solveOn("with perfectly correlated books, Stoye and bootstrap errors", files.perfect, 0, [
-    "--bootstrap",
-    "200",
-    "--interval",
-    "stoye",
-    "--interval-source",
-    "bootstrap",
-  ]),
+  ...realIn(
+    "json",
+    solveOn("with perfectly correlated books, Stoye and bootstrap errors", files.perfect, 0, [
+      "--bootstrap",
+      "200",
+      "--interval",
+      "stoye",
+      "--interval-source",
+      "bootstrap",
+    ]),
+  ),
   ...solveOn("with perfectly correlated books, prewhitened", files.perfect, 0, ["--hac-prewhite"]),
   ...solveOn("with identical books, Andrews bandwidth, quadratic-spectral kernel", files.identical, 0, [
     "--hac-bandwidth",
@@ -175,12 +198,12 @@ const cases: Case[] = [
   ]),
   ...solveOn("with high = -low (a constant market proxy)", files.negativePerfect, 2, [], "market"),
   ...solveOn("with high = -2 low (perfectly negatively correlated)", files.negativeDouble, 3, ["--bootstrap", "100"], "covariance"),
-  ...solveOn("with a negative covariance", files.negative, 3, ["--bootstrap", "100"], "covariance"),
+  ...realIn("text", solveOn("with a negative covariance", files.negative, 3, ["--bootstrap", "100"], "covariance")),
   ...solveOn("with columns that differ only by 1e-17 (cancellation)", files.cancellation, 2, [], "last digits"),
   ...solveOn("with a covariance at the level of rounding", files.covarianceRounding, 3, ["--bootstrap", "50"], "rounding"),
   ...solveOn("with an exactly zero covariance", files.zeroCovariance, 3, [], "covariance"),
   ...solveOn("on returns times 1e-80", files.tiny80, 0, ["--bootstrap", "100"]),
-  ...solveOn("on returns times 1e-300", files.tiny300, 2, [], "1e-100 to 1e+100", "constant"),
+  ...realIn("json", solveOn("on returns times 1e-300", files.tiny300, 2, [], "1e-100 to 1e+100", "constant")),
   ...solveOn("on returns of 1e-300 and 2e-300", files.varying300, 2, [], "1e-100 to 1e+100", "constant"),
   ...solveOn("on returns times 1e+150", files.huge150, 2, [], "1e-100 to 1e+100"),
   ...solveOn("on returns times 1e+300", files.huge300, 2, [], "1e-100 to 1e+100"),
@@ -198,17 +221,17 @@ const cases: Case[] = [
   ...solveOn("with noise correlations -1, 0 and 1 on identical books", files.identical, 0, ["--noise-correlation", "-1,0,1"]),
   ...solveOn("with noise correlations on a negative covariance", files.negative, 3, ["--noise-correlation", "-0.5,0.5"], "no bounds"),
   ...rollOn("a window with a negative covariance", files.negativeWindow, 0, ["--window", "12", "--step", "6", "--uncertainty"]),
-  ...rollOn("over identical books", files.identical, 0, ["--window", "10", "--step", "7", "--uncertainty"]),
+  ...realIn("jsonl", rollOn("over identical books", files.identical, 0, ["--window", "10", "--step", "7", "--uncertainty"])),
   ...rollOn("over columns that differ by 1e-17", files.cancellation, 0, ["--window", "12", "--step", "12"]),
   ...rollOn("over a covariance at the level of rounding", files.covarianceRounding, 0, ["--window", "12", "--step", "12", "--uncertainty"]),
   ...rollOn("over returns times 1e-80", files.tiny80, 0, ["--window", "24", "--step", "12", "--uncertainty"]),
   ...rollOn("over returns times 1e-300", files.tiny300, 2, ["--window", "24"]),
   ...rollOn("expanding from three rows (the minimum)", files.example, 0, ["--expanding", "--min-periods", "3", "--step", "19"]),
   ...rollOn("with a window of all the rows", files.example, 0, ["--window", String(n)]),
-  ...rollOn("with a window one longer than the rows", files.example, 2, ["--window", String(n + 1)]),
+  ...realIn("csv", rollOn("with a window one longer than the rows", files.example, 2, ["--window", String(n + 1)])),
   // ---- options at and beyond the ends of their ranges ---------------------------------------
   option("solve", "--weight", "0.0001", 0),
-  option("solve", "--weight", "0.00009", 1),
+  real(option("solve", "--weight", "0.00009", 1)),
   option("solve", "--weight", "0.9999", 0),
   option("solve", "--weight", "0.99991", 1),
   option("solve", "--weight", "1e-17", 1),
@@ -228,11 +251,11 @@ const cases: Case[] = [
   option("solve", "--noise-correlation", "0.3,", 1),
   option("solve", "--steps", "2", 0),
   option("solve", "--steps", "1", 1),
-  option("solve", "--steps", "100000", 0, ["--format", "csv", "--no-uncertainty"]),
+  real(option("solve", "--steps", "100000", 0, ["--format", "csv", "--no-uncertainty"])),
   option("solve", "--steps", "100001", 1),
   option("solve", "--bootstrap", "2", 0),
   option("solve", "--bootstrap", "1", 0),
-  option("solve", "--bootstrap", "1", 1, ["--interval-source", "bootstrap"]),
+  real(option("solve", "--bootstrap", "1", 1, ["--interval-source", "bootstrap"])),
   option("solve", "--bootstrap", "1000001", 1),
   option("solve", "--bootstrap", "1e9", 1),
   option("solve", "--bootstrap", "-1", 1),
@@ -251,19 +274,20 @@ const cases: Case[] = [
   option("roll", "--window", "2", 1),
   option("roll", "--step", "100000000", 0, ["--window", "24"]),
   option("roll", "--step", "100000001", 1, ["--window", "24"]),
-  option("roll", "--step", "0", 1, ["--window", "24"]),
+  real(option("roll", "--step", "0", 1, ["--window", "24"])),
   option("roll", "--confidence", "0.9999", 0, ["--window", "24", "--step", "40", "--uncertainty", "--format", "jsonl"]),
   option("roll", "--weight", "0.0001", 0, ["--window", "24", "--step", "40", "--format", "jsonl"]),
-  option("implied", "--factor-vol", "1e-100", 0, [...structure.slice(0, 2), ...structure.slice(4), "--format", "json"]),
+  real(option("implied", "--factor-vol", "1e-100", 0, [...structure.slice(0, 2), ...structure.slice(4), "--format", "json"])),
   option("implied", "--factor-vol", "9e-101", 1, [...structure.slice(0, 2), ...structure.slice(4)]),
   option("implied", "--factor-vol", "1e100", 0, [...structure.slice(0, 2), ...structure.slice(4), "--format", "csv"]),
   option("implied", "--factor-vol", "1.1e100", 1, [...structure.slice(0, 2), ...structure.slice(4)]),
   option("implied", "--weight", "0.9999", 0, ["--low-beta", "1.0001", ...structure.slice(2)]),
   option("implied", "--low-noise-vol", "0", 0, [...structure.slice(0, 4), "--high-noise-vol", "0", "--format", "json"]),
   option("implied", "--factor-mean", "1e100", 0, [...structure]),
-  option("implied", "--factor-mean", "Infinity", 1, [...structure]),
+  real(option("implied", "--factor-mean", "Infinity", 1, [...structure])),
   option("implied", "--steps", "100000", 0, [...structure, "--format", "csv"]),
   {
+    real: true,
     name: "implied with the factor 1e-100 and a noise 1e+100 (a covariance lost next to the variances)",
     args: [
       "implied",
@@ -280,8 +304,8 @@ const cases: Case[] = [
     ],
     code: 3,
   },
-  { name: "simulate one period", args: ["simulate", ...structure, "--periods", "1"], code: 0 },
-  { name: "simulate 0 periods", args: ["simulate", ...structure, "--periods", "0"], code: 1 },
+  { real: true, name: "simulate one period", args: ["simulate", ...structure, "--periods", "1"], code: 0 },
+  { real: true, name: "simulate 0 periods", args: ["simulate", ...structure, "--periods", "0"], code: 1 },
   { name: "simulate 1,000,001 periods", args: ["simulate", ...structure, "--periods", "1000001"], code: 1 },
   { name: "simulate with seed 1.5", args: ["simulate", ...simulate("--seed", "1.5")], code: 1 },
   { name: "simulate with 2 degrees of freedom", args: ["simulate", ...simulate("--tails", "2")], code: 1 },
@@ -292,25 +316,63 @@ const cases: Case[] = [
   { name: "simulate with no noise", args: ["simulate", ...simulate("--low-noise-vol", "0", "--high-noise-vol", "0")], code: 0 },
 ];
 
+const realCases = cases.filter((c) => c.real === true);
 let runs: CliRun[] = [];
+let realRuns: CliRun[] = [];
 beforeAll(async () => {
-  runs = await runAll(cases.map((c) => c.args));
+  // The executable's runs go on in child processes while this process runs the catalogue.
+  [runs, realRuns] = await Promise.all([runAllInProcess(cases.map((c) => c.args)), runAll(realCases.map((c) => c.args))]);
 }, 120_000);
+
+/** The checks every case's run must pass, in process or as the executable. */
+function checkCase(c: Case, run: CliRun): void {
+  expect(contractBreaches(run), describeRun(run)).toEqual([]);
+  expect(run.code, `${describeRun(run)}\n${run.stderr}`).toBe(c.code);
+  if (c.says !== undefined) expect(run.stderr).toContain(c.says);
+  if (c.never !== undefined) expect(run.stderr).not.toContain(c.never);
+  if (c.code === 0 || c.code === 3) expect(run.stdout.length, describeRun(run)).toBeGreaterThan(0);
+}
 
 describe("degenerate data and options at the ends of their ranges", () => {
   it.each(cases.map((c, i) => [c.name, i] as const))("%s", (_name, i) => {
-    const run = runs[i]!;
-    const c = cases[i]!;
-    expect(contractBreaches(run), describeRun(run)).toEqual([]);
-    expect(run.code, `${describeRun(run)}\n${run.stderr}`).toBe(c.code);
-    if (c.says !== undefined) expect(run.stderr).toContain(c.says);
-    if (c.never !== undefined) expect(run.stderr).not.toContain(c.never);
-    if (c.code === 0 || c.code === 3) expect(run.stdout.length, describeRun(run)).toBeGreaterThan(0);
+    checkCase(cases[i]!, runs[i]!);
+  });
+});
+
+describe("the built executable on the cases marked real: the contract, and what the in-process run wrote", () => {
+  it("runs every command and every exit code as a real process", () => {
+    const covered = new Set(realCases.map((c) => `${c.args[0]} ${c.code}`));
+    for (const expected of [
+      "solve 0",
+      "solve 1",
+      "solve 2",
+      "solve 3",
+      "roll 0",
+      "roll 1",
+      "roll 2",
+      "implied 0",
+      "implied 1",
+      "implied 3",
+      "simulate 0",
+      "simulate 1",
+    ])
+      expect(covered).toContain(expected);
+  });
+
+  it.each(realCases.map((c, k) => [c.name, k] as const))("%s", (_name, k) => {
+    const c = realCases[k]!;
+    const run = realRuns[k]!;
+    checkCase(c, run);
+    const inProcess = runs[cases.indexOf(c)]!;
+    const restated = asFromSource(run);
+    expect(restated.code).toBe(inProcess.code);
+    expect(restated.stderr).toBe(inProcess.stderr);
+    expect(restated.stdout).toBe(inProcess.stdout);
   });
 });
 
 describe("returns scaled by a power of ten give the unscaled results in their units (to 1e-12)", () => {
-  // The core's tests cover more scales in process (test/core/degenerate.test.ts); here the executable's.
+  // The core's tests cover more scales (test/core/degenerate.test.ts); here the CLI's documents, run in process.
   const scales = [1e-80, 1e80];
   const solveArgs = (file: string) => [
     "solve",
@@ -356,7 +418,7 @@ describe("returns scaled by a power of ten give the unscaled results in their un
   let plain: CliRun[] = [];
   let scaledRuns: CliRun[][] = [];
   beforeAll(async () => {
-    const all = await runAll([
+    const all = await runAllInProcess([
       solveArgs(files.example),
       rollArgs(files.example),
       impliedArgs(1),
@@ -413,7 +475,7 @@ describe("a --config file value beyond its range is refused like the flag: exit 
         ["solve", monthly, ...books, flag, String(value)],
       ];
     });
-    const all = await runAll(argsList);
+    const all = await runAllInProcess(argsList);
     pairs = values.map((_, k) => [all[2 * k]!, all[2 * k + 1]!]);
   }, 60_000);
 
@@ -451,7 +513,7 @@ describe("charts and HTML reports of degenerate data hold no NaN or Infinity eit
   ];
   let drawnRuns: CliRun[] = [];
   beforeAll(async () => {
-    drawnRuns = await runAll(drawn.map(([, args]) => args));
+    drawnRuns = await runAllInProcess(drawn.map(([, args]) => args));
   }, 60_000);
 
   it.each(drawn.map(([name], k) => [name, k] as const))("%s", (_name, k) => {

@@ -8,6 +8,13 @@
  *
  * The cases come from fast-check with a fixed seed, so CI runs the same ones; BETABOUND_FUZZ_RUNS
  * (default 60) and BETABOUND_FUZZ_SEED run more or others.
+ *
+ * Which runs are real processes, and why: every case runs in this process (support/inProcess.ts: the
+ * program with the executable's file reads and output path), which costs its work alone rather than a
+ * node start-up each; every sixth case runs again as the built executable (dist/cli.cjs), in child
+ * processes meanwhile, and must keep the contract and write exactly what its in-process run wrote, with
+ * the same exit code. The launcher, the bundle and the process's exit and streams stay covered on
+ * random commands, and the in-process runs stand for the executable's.
  */
 import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -15,6 +22,7 @@ import { join } from "node:path";
 import fc from "fast-check";
 import { beforeAll, describe, expect, it } from "vitest";
 import { type CliRun, contractBreaches, describeRun, runAll } from "./support/cliRuns.js";
+import { asFromSource, runAllInProcess } from "./support/inProcess.js";
 
 const runs = Number(process.env.BETABOUND_FUZZ_RUNS ?? 60);
 const seed = Number(process.env.BETABOUND_FUZZ_SEED ?? 20260611);
@@ -212,9 +220,13 @@ const cases: FuzzCase[] = fc.sample(command, { seed, numRuns: runs }).map(([name
   return { args: [name, file, "--low", "low", "--high", "high", "--allow-extreme", ...windows, ...flags], data };
 });
 
+/** The cases run as the built executable too: every sixth. */
+const realEvery = 6;
+const realIndices = cases.map((_, k) => k).filter((k) => k % realEvery === 0);
 let results: CliRun[] = [];
+let realResults: CliRun[] = [];
 beforeAll(async () => {
-  results = await runAll(cases.map((c) => c.args));
+  [results, realResults] = await Promise.all([runAllInProcess(cases.map((c) => c.args)), runAll(realIndices.map((k) => cases[k]!.args))]);
 }, 300_000);
 
 describe(`fuzzing the executable (${runs} runs, seed ${seed})`, () => {
@@ -229,5 +241,17 @@ describe(`fuzzing the executable (${runs} runs, seed ${seed})`, () => {
   it("reaches every kind of outcome: successes, refused command lines, refused inputs and rejected models", () => {
     const codes = new Set(results.map((r) => r.code));
     for (const code of [0, 1, 2]) expect(codes.has(code), `exit ${code} among ${[...codes].join(", ")}`).toBe(true);
+  });
+
+  it(`the executable keeps the contract on every ${realEvery}th case and writes what the in-process run wrote`, () => {
+    expect(realResults.length).toBe(realIndices.length);
+    realResults.forEach((run, j) => {
+      const k = realIndices[j]!;
+      expect(contractBreaches(run), describeRun(run)).toEqual([]);
+      const restated = asFromSource(run);
+      expect(restated.code, describeRun(run)).toBe(results[k]!.code);
+      expect(restated.stderr, describeRun(run)).toBe(results[k]!.stderr);
+      expect(restated.stdout, describeRun(run)).toBe(results[k]!.stdout);
+    });
   });
 });

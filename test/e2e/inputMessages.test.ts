@@ -3,6 +3,12 @@
  * encodings and binary formats are named for what they are; a file that is no return table is named
  * with its size and none of its content; a flood of one fault is summed up. Every case exits 2,
  * prints nothing on stdout and no stack trace.
+ *
+ * Which runs are real processes, and why: the cases run in this process (support/inProcess.ts: the
+ * program with the executable's file reads), which costs their work alone rather than a node start-up;
+ * the first case of each kind (an impossible date, a binary format, a file that is no table), the
+ * terminal escapes (what reaches a real stderr) and standard input (which only a real process has) run
+ * as the built executable, which must write what the in-process run wrote, with the same exit code.
  */
 import { spawnSync } from "node:child_process";
 import { mkdtempSync, writeFileSync } from "node:fs";
@@ -10,6 +16,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { gzipSync } from "node:zlib";
 import { describe, expect, it } from "vitest";
+import { runBothWays, runInProcess } from "./support/inProcess.js";
 
 const root = new URL("../../", import.meta.url).pathname;
 const cli = join(root, "dist/cli.cjs");
@@ -22,18 +29,30 @@ function file(name: string, content: string | Uint8Array): string {
   return path;
 }
 
-/** Runs `solve` on a file (or on standard input), and checks the shape every refusal has. */
-function refuse(path: string, extra: string[] = [], input?: Uint8Array): string {
-  const result = spawnSync(process.execPath, [cli, "solve", path, "--low", "A", "--high", "B", ...extra], {
-    encoding: "utf8",
-    env: { ...process.env, NO_COLOR: "1" },
-    ...(input === undefined ? {} : { input }),
-  });
-  expect(result.status).toBe(2);
+/** The shape every refusal has: exit 2, nothing on stdout, `error:` lines and no stack trace; its stderr. */
+function refusal(result: { code: number | null; stdout: string; stderr: string }): string {
+  expect(result.code).toBe(2);
   expect(result.stdout).toBe("");
   expect(result.stderr).toMatch(/^error: /);
   expect(result.stderr).not.toMatch(/\n\s+at .+:\d+:\d+/);
   return result.stderr;
+}
+
+const solveArgs = (path: string, extra: readonly string[] = []) => ["solve", path, "--low", "A", "--high", "B", ...extra];
+
+/** Runs `solve` on a file in this process (and as the executable too when `real`), and checks the refusal. */
+async function refuse(path: string, extra: readonly string[] = [], real = false): Promise<string> {
+  return refusal(await (real ? runBothWays : runInProcess)(solveArgs(path, extra)));
+}
+
+/** Runs the executable's `solve` on standard input, and checks the refusal. */
+function refuseStandardInput(input: Uint8Array): string {
+  const result = spawnSync(process.execPath, [cli, ...solveArgs("-")], {
+    encoding: "utf8",
+    env: { ...process.env, NO_COLOR: "1" },
+    input,
+  });
+  return refusal({ code: result.status, stdout: result.stdout, stderr: result.stderr });
 }
 
 describe("impossible dates", () => {
@@ -63,8 +82,8 @@ describe("impossible dates", () => {
       [],
       '"30/02/2021" is not a real date read day first (as the column\'s other dates are): February 2021 has 28 days',
     ],
-  ])("%s: says which date and why", (name, content, extra, says) => {
-    expect(refuse(file(name, content), extra)).toContain(says);
+  ])("%s: says which date and why", async (name, content, extra, says) => {
+    expect(await refuse(file(name, content), extra, name === "feb30.csv")).toContain(says);
   });
 });
 
@@ -102,20 +121,20 @@ describe("encodings and binary files", () => {
       "it looks like a zip archive (an .xlsx or .ods workbook is one)",
     ],
     ["report.pdf", Buffer.from("%PDF-1.4\n1 0 obj\n<< /Type /Catalog >>\nendobj\n"), "it looks like a PDF document"],
-  ])("%s: names what it is", (name, content, says) => {
-    const stderr = refuse(file(name, content));
+  ])("%s: names what it is", async (name, content, says) => {
+    const stderr = await refuse(file(name, content), [], name === "returns.csv.gz");
     expect(stderr).toContain(says);
     expect(stderr.trim().split("\n")).toHaveLength(1);
   });
 
-  it("a UTF-8 byte-order mark is read", () => {
+  it("a UTF-8 byte-order mark is read", async () => {
     const path = file("bom.csv", `\uFEFF${table}`);
-    const result = spawnSync(process.execPath, [cli, "solve", path, "--low", "A", "--high", "B", "--format", "json"], { encoding: "utf8" });
-    expect(result.status).toBe(0);
+    const result = await runInProcess(solveArgs(path, ["--format", "json"]));
+    expect(result.code).toBe(0);
   });
 
   it("standard input is named as such", () => {
-    expect(refuse("-", [], gzipSync(table))).toContain("<stdin>: this is not a text table");
+    expect(refuseStandardInput(gzipSync(table))).toContain("<stdin>: this is not a text table");
   });
 });
 
@@ -130,16 +149,16 @@ describe("files that are no return table", () => {
     ["users.csv", `alice,${secret},1000\nbob,${secret}2,1001\n`],
     [".env", `API_KEY="${secret}"\nDB_PASSWORD=${secret}\n`],
     ["tokens.csv", `user,token\nalice,ab"${secret}"\nbob,x\n`],
-  ])("%s: names the file, its size and what was expected, and prints none of it", (name, content) => {
-    const stderr = refuse(file(name, content));
+  ])("%s: names the file, its size and what was expected, and prints none of it", async (name, content) => {
+    const stderr = await refuse(file(name, content), [], name === "id_ed25519");
     expect(stderr).not.toContain(secret);
     expect(stderr).not.toContain("$6$");
     expect(stderr).toContain(name);
   });
 
-  it("a return table with a cell that would drive the terminal has it escaped and cut short", () => {
+  it("a return table with a cell that would drive the terminal has it escaped and cut short", async () => {
     const cell = `\u001b[2J\u001b]0;owned\u0007${"x".repeat(200)}`;
-    const stderr = refuse(file("escape.csv", table.replace("-0.02", cell)));
+    const stderr = await refuse(file("escape.csv", table.replace("-0.02", cell)), [], true);
     expect(stderr).toContain('escape.csv line 3, column "A": "\\u001b[2J\\u001b]0;owned\\u0007');
     expect(stderr).toContain("(214 characters) is not a number");
     expect([...stderr].some((c) => c.charCodeAt(0) < 0x20 && c !== "\n")).toBe(false);
@@ -147,10 +166,10 @@ describe("files that are no return table", () => {
 });
 
 describe("a flood of one fault", () => {
-  it("shows three lines per column and sums up the rest", () => {
+  it("shows three lines per column and sums up the rest", async () => {
     const rows = Array.from({ length: 80 }, (_, i) => `${new Date(Date.UTC(2000, 0, 1 + i)).toISOString().slice(0, 10)},bad${i},0.01`);
     const path = file("flood.csv", ["date,A,B", ...rows].join("\n"));
-    const lines = refuse(path).trim().split("\n");
+    const lines = (await refuse(path)).trim().split("\n");
     const hint = "is not a number; use an empty field or NA for a missing value, or --missing to declare a sentinel";
     expect(lines).toEqual([
       `error: ${path} line 2, column "A": "bad0" ${hint}`,
