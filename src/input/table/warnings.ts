@@ -42,7 +42,7 @@ function medianMayPass(values: Float64Array, step: number, size: number, thresho
   for (let i = 0; i < size; i++) {
     const x = Math.abs(values[i * step] as number);
     if (below ? x < threshold : x > threshold) count++;
-    else if (x !== x) nan++;
+    else if (Number.isNaN(x)) nan++;
   }
   const k = size >> 1;
   return nan > 0 || count >= (below ? k : size - k);
