@@ -117,20 +117,31 @@ function windowSquares(columns: readonly Float64Array[], width: number): Float64
 
 /**
  * windowSquares for two columns (most sums: the bounds, each Sharpe ratio, each CAPM fit), the same
- * operations in the same order with the running pairs in local variables: the same bits, faster.
+ * operations in the same order with the running pairs in local variables: the same bits, faster. The
+ * windows go by blocks of 1,024 (the blocks of the sums) in a small function V8 optimises whole; the
+ * running pairs and the total are carried in `state`.
  */
 function windowSquaresOfTwo(x: Float64Array, y: Float64Array, width: number): Float64Array {
   const n = x.length;
-  const total = new Float64Array(4);
+  // hx, lx, hy, ly, then the totals xx, xy, -, yy (returned as state.subarray(4)).
+  const state = new Float64Array(8);
+  for (let t = 1 - width; t < n; t += BLOCK) windowBlockOfTwo(x, y, width, t, Math.min(n, t + BLOCK), state);
+  return state.subarray(4);
+}
+
+const BLOCK = 1024;
+
+/** Windows t = from .. to - 1 of windowSquaresOfTwo (one block of the sums), continuing `state`. */
+function windowBlockOfTwo(x: Float64Array, y: Float64Array, width: number, from: number, to: number, state: Float64Array): void {
+  const n = x.length;
+  let hx = state[0]!;
+  let lx = state[1]!;
+  let hy = state[2]!;
+  let ly = state[3]!;
   let xx = 0;
   let xy = 0;
   let yy = 0;
-  let hx = 0;
-  let lx = 0;
-  let hy = 0;
-  let ly = 0;
-  let inBlock = 0;
-  for (let t = 1 - width; t < n; t++) {
+  for (let t = from; t < to; t++) {
     const entering = t + width - 1;
     if (entering < n) {
       const u = x[entering]!;
@@ -165,18 +176,12 @@ function windowSquaresOfTwo(x: Float64Array, y: Float64Array, width: number): Fl
     xx = xx + wx * wx;
     xy = xy + wx * wy;
     yy = yy + wy * wy;
-    if (++inBlock === 1024) {
-      total[0] = total[0]! + xx;
-      total[1] = total[1]! + xy;
-      total[3] = total[3]! + yy;
-      xx = 0;
-      xy = 0;
-      yy = 0;
-      inBlock = 0;
-    }
   }
-  total[0] = total[0]! + xx;
-  total[1] = total[1]! + xy;
-  total[3] = total[3]! + yy;
-  return total;
+  state[0] = hx;
+  state[1] = lx;
+  state[2] = hy;
+  state[3] = ly;
+  state[4] = state[4]! + xx;
+  state[5] = state[5]! + xy;
+  state[7] = state[7]! + yy;
 }
