@@ -42,15 +42,21 @@ export interface BootstrapRange {
   readonly draws: Float64Array;
 }
 
+/** The rows of `data` and its risk-free rate (0 when absent); throws when the lengths differ. */
+function checkedLengths(data: BootstrapData): { n: number; rf: number | ArrayLike<number> } {
+  const n = data.low.length;
+  if (data.high.length !== n) throw new RangeError("bootstrap: low and high differ in length");
+  const rf = data.riskFree ?? 0;
+  if (typeof rf !== "number" && rf.length !== n) throw new RangeError("bootstrap: riskFree differs in length");
+  return { n, rf };
+}
+
 /** Excess returns of both books. */
 export function excessReturns(
   data: BootstrapData,
   allocate: (n: number) => Float64Array = (n) => new Float64Array(n),
 ): { low: Float64Array; high: Float64Array } {
-  const n = data.low.length;
-  if (data.high.length !== n) throw new RangeError("bootstrap: low and high differ in length");
-  const rf = data.riskFree ?? 0;
-  if (typeof rf !== "number" && rf.length !== n) throw new RangeError("bootstrap: riskFree differs in length");
+  const { n, rf } = checkedLengths(data);
   // Every element is written below.
   const low = allocate(n);
   const high = allocate(n);
@@ -92,10 +98,7 @@ export function excessReturnsScaledBy(
   largest: number,
   allocate: (n: number) => Float64Array,
 ): { low: Float64Array; high: Float64Array; scale: number } {
-  const n = data.low.length;
-  if (data.high.length !== n) throw new RangeError("bootstrap: low and high differ in length");
-  const rf = data.riskFree ?? 0;
-  if (typeof rf !== "number" && rf.length !== n) throw new RangeError("bootstrap: riskFree differs in length");
+  const { n, rf } = checkedLengths(data);
   const scale = scaleFor(largest);
   // Every element is written below.
   const low = allocate(n);
@@ -115,10 +118,7 @@ export function excessReturnsScaledBy(
  * the same differences (for passes that form the scaled excess returns as they go, e.g. assessPricing).
  */
 export function excessReturnScale(data: BootstrapData): number {
-  const n = data.low.length;
-  if (data.high.length !== n) throw new RangeError("bootstrap: low and high differ in length");
-  const rf = data.riskFree ?? 0;
-  if (typeof rf !== "number" && rf.length !== n) throw new RangeError("bootstrap: riskFree differs in length");
+  const { n, rf } = checkedLengths(data);
   let largest = 0;
   for (let t = 0; t < n; t++) {
     const r = typeof rf === "number" ? rf : rf[t]!;
