@@ -82,14 +82,14 @@ export function sampleIssues(sample: ReturnSample): Diagnostic[] {
 export function checkedSample(sample: ReturnSample): { readonly issues: Diagnostic[]; readonly extent: LargestValues | null } {
   if (sample !== null && typeof sample === "object") {
     const { low, high, riskFree } = sample;
-    const rf = riskFree ?? 0;
+    // Absent, a number or a Float64Array: anything else (null included) is sampleIssues' to judge.
     const plain =
       low instanceof Float64Array &&
       high instanceof Float64Array &&
       high.length === low.length &&
-      (typeof rf === "number" || (rf instanceof Float64Array && rf.length === low.length));
+      (riskFree === undefined || typeof riskFree === "number" || (riskFree instanceof Float64Array && riskFree.length === low.length));
     if (plain) {
-      const extent = largestValues(low, high, rf);
+      const extent = largestValues(low, high, riskFree ?? 0);
       if (Number.isFinite(extent.low) && Number.isFinite(extent.high) && Number.isFinite(extent.riskFree)) return { issues: [], extent };
     }
   }

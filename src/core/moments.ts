@@ -20,6 +20,8 @@
  *   analysis and recommendations", The American Statistician 37(3), 242-247.
  */
 
+import { CHUNK } from "./numerics/seriesLoops.js";
+
 /** Means and centred sums of squares and cross-products of several aligned series. */
 export interface CrossProducts {
   readonly n: number;
@@ -168,8 +170,8 @@ function welford3(
   };
 }
 
-/** Rows per call of welfordChunk (and of the other chunked passes): small enough to be optimised early. */
-export const CHUNK = 1024;
+/** Rows per call of welfordChunk (and of the other chunked passes, numerics/seriesLoops.ts). */
+export { CHUNK };
 /** Running means m, their errors e, sums s and their errors c: mx my mz ex ey ez, sxx sxy sxz syy syz szz, cxx ... czz. */
 const STATE_SIZE = 18;
 

@@ -124,6 +124,8 @@ function firstUnsafe(value: unknown): { path: string; value: unknown } | null {
   if (value === null || typeof value !== "object") return null;
   if (Array.isArray(value)) {
     for (let i = 0; i < value.length; i++) {
+      // A hole is skipped, as forEach skips it (JSON.stringify writes null there).
+      if (value[i] === undefined && !(i in value)) continue;
       const found = firstUnsafe(value[i]);
       if (found !== null) return { path: `[${i}]${found.path}`, value: found.value };
     }

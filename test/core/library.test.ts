@@ -91,6 +91,14 @@ describe("non-finite values and holes are refused, naming the argument, the inde
       expect(refused(assess({ low: f(low), high: f(high), riskFree: at(rf.slice() as unknown as number[], 0, Infinity) }))).toEqual([
         { code: "invalid-number", argument: "riskFree", index: 0, value: "Infinity" },
       ]);
+      // null is no rate: refused as in arrays, not read as 0.
+      expect(refused(assess({ low: f(low), high: f(high), riskFree: null as unknown as number }))).toEqual(
+        refused(assess({ low, high, riskFree: null as unknown as number })),
+      );
+      expect(refused(assess({ low: f(low), high: f(high), riskFree: null as unknown as number }))[0]).toMatchObject({
+        code: "invalid-argument",
+        argument: "riskFree",
+      });
       expect(refused(assess({ low: f(low), high: f(high), riskFree: Number.POSITIVE_INFINITY }))).toEqual([
         { code: "invalid-argument", argument: "riskFree", value: "Infinity", expected: "a finite number" },
       ]);

@@ -172,6 +172,10 @@ describe("renderJson", () => {
       /^renderJson: \$\.pairs\[0\]\.f is a function, which JSON cannot represent$/,
     );
     expect(() => assertJsonSafe(10n)).toThrow(/^renderJson: \$ is a bigint/);
+    // A hole in a sparse array is not a value (JSON.stringify writes null); an undefined element is.
+    // biome-ignore lint/suspicious/noSparseArray: the hole is the case
+    expect(() => assertJsonSafe({ a: [1, , 2] })).not.toThrow();
+    expect(() => assertJsonSafe({ a: [1, undefined, 2] })).toThrow(/\$\.a\[1\] is a undefined/);
   });
 
   test("no NaN, Infinity or undefined text appears in any fixture's output", () => {

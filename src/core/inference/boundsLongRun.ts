@@ -22,6 +22,7 @@ import { borrowSeries } from "../numerics/scratch.js";
 import { kernelSum } from "./hac/kernelSum.js";
 import { bartlettFixedBFactor } from "./hac/fixedB.js";
 import { defaultHac, type HacKernel, type HacOptions } from "./options.js";
+import { CHUNK } from "../numerics/seriesLoops.js";
 
 /** The multiple of sqrt(T) that the "auto" rule takes as each bound's Bartlett bandwidth. */
 export const autoBandwidthPerRootT = 6;
@@ -134,8 +135,6 @@ export function plainMeans(x: ArrayLike<number>, y: ArrayLike<number>): [number,
   for (let from = 0; from < n; from += CHUNK) plainSumsChunk(x, y, from, Math.min(n, from + CHUNK), sums);
   return [sums[0]! / n, sums[1]! / n];
 }
-
-const CHUNK = 1024;
 
 function plainSumsChunk(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, sums: Float64Array): void {
   let sx = sums[0]!;

@@ -18,6 +18,7 @@ import { borrowSeries, giveBack } from "../numerics/scratch.js";
 import { longRunCovarianceInPlace } from "./hac/longRun.js";
 import { bilinear } from "../numerics/linearAlgebra.js";
 import type { HacOptions } from "./options.js";
+import { CHUNK } from "../numerics/seriesLoops.js";
 
 export interface SharpeStdErrors {
   readonly estimate: number;
@@ -74,8 +75,6 @@ export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {})
     hacStdErr: Math.sqrt(Math.max(0, bilinear(gradient, sigmaHat, gradient)) / n),
   };
 }
-
-const CHUNK = 1024;
 
 function sumChunk(x: ArrayLike<number>, from: number, to: number, sums: Float64Array): void {
   let total = sums[0]!;

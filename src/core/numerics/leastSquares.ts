@@ -12,6 +12,7 @@
 
 import { borrowSeries } from "./scratch.js";
 import { crossColumns, inverse, scale, solve, type Matrix } from "./linearAlgebra.js";
+import { CHUNK } from "./seriesLoops.js";
 
 export interface LeastSquaresFit {
   readonly coefficients: number[];
@@ -73,8 +74,6 @@ export function interceptLeastSquares(x: ArrayLike<number>, y: ArrayLike<number>
   }
   return { coefficients: [a, b], residuals, inverseCrossProduct: inverse(xtx) };
 }
-
-const CHUNK = 1024;
 
 function crossChunk(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, sums: Float64Array): void {
   let sx = sums[0]!;

@@ -1,16 +1,20 @@
 /**
  * Elementwise passes over long series, taken in chunks of rows by small functions that V8 optimises
  * as a whole after a few calls: one long loop inside a larger function runs in on-stack-replaced
- * code on Node 20, which boxes its doubles and is several times slower (see moments.ts, CHUNK).
+ * code on Node 20, which boxes its doubles and is several times slower (see moments.ts).
  * The arithmetic is that of the plain loop, row by row: the results are the same bits.
  */
 
-const rows = 1024;
+/**
+ * Rows per call of a chunked pass (these and every other one in the core): small enough for V8 to
+ * optimise the chunk's function after a few calls.
+ */
+export const CHUNK = 1024;
 
 /** out[t] = a[t] * b[t]. */
 export function productInto(out: Float64Array, a: ArrayLike<number>, b: ArrayLike<number>): Float64Array {
   const n = out.length;
-  for (let from = 0; from < n; from += rows) productChunk(out, a, b, from, Math.min(n, from + rows));
+  for (let from = 0; from < n; from += CHUNK) productChunk(out, a, b, from, Math.min(n, from + CHUNK));
   return out;
 }
 
@@ -21,7 +25,7 @@ function productChunk(out: Float64Array, a: ArrayLike<number>, b: ArrayLike<numb
 /** out[t] = 0 + w * a[t]: addScaledInto on an array of zeros (the same bits: 0 + x, as that gives), without the zeros. */
 export function scaledInto(out: Float64Array, w: number, a: ArrayLike<number>): Float64Array {
   const n = out.length;
-  for (let from = 0; from < n; from += rows) scaledChunk(out, w, a, from, Math.min(n, from + rows));
+  for (let from = 0; from < n; from += CHUNK) scaledChunk(out, w, a, from, Math.min(n, from + CHUNK));
   return out;
 }
 
@@ -32,7 +36,7 @@ function scaledChunk(out: Float64Array, w: number, a: ArrayLike<number>, from: n
 /** out[t] = w * a[t] + v * b[t]. */
 export function blendInto(out: Float64Array, w: number, a: ArrayLike<number>, v: number, b: ArrayLike<number>): Float64Array {
   const n = out.length;
-  for (let from = 0; from < n; from += rows) blendChunk(out, w, a, v, b, from, Math.min(n, from + rows));
+  for (let from = 0; from < n; from += CHUNK) blendChunk(out, w, a, v, b, from, Math.min(n, from + CHUNK));
   return out;
 }
 
@@ -43,7 +47,7 @@ function blendChunk(out: Float64Array, w: number, a: ArrayLike<number>, v: numbe
 /** out[t] = out[t] + w * a[t]. */
 export function addScaledInto(out: Float64Array, w: number, a: ArrayLike<number>): Float64Array {
   const n = out.length;
-  for (let from = 0; from < n; from += rows) addScaledChunk(out, w, a, from, Math.min(n, from + rows));
+  for (let from = 0; from < n; from += CHUNK) addScaledChunk(out, w, a, from, Math.min(n, from + CHUNK));
   return out;
 }
 

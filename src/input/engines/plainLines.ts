@@ -1,6 +1,7 @@
 /**
- * The rows of a file's bytes for the byte engine (byteGrid.ts): where each row starts, found with
- * Buffer's native search (or the row kernel's SIMD search on large files), and the checks that the
+ * The rows of a file's bytes for the byte engine (byteGrid.ts): where each row starts, found by the
+ * row kernel's SIMD search (in place, or in a copy for a file of 4 KiB to 16 MB; rowKernel.ts lineEnds)
+ * or Buffer's native search (a tiny file, or no WebAssembly), and the checks that the
  * bytes are plain ASCII without NUL, quote characters or lone CR, so that each byte is one character
  * of the text `decodeText` would give.
  */

@@ -131,7 +131,19 @@ describe("assessPricing with the moments solve formed", () => {
     const own = assessPricing(sample, options);
     expect(assessPricing(sample, { ...options, solved: otherSolved.value.moments })).toEqual(own);
     expect(assessPricing(sample, { ...options, solved: otherWeight.value.moments })).toEqual(own);
-    // The other sample's moments do change the answer when they are its own.
-    expect(assessPricing(other, { ...options, solved: otherSolved.value.moments })).not.toEqual(own);
+  });
+
+  it("uses the moments it is given for its sample and weight (no pass of its own then)", () => {
+    const solved = solveKeepingMoments(sample, { weight: ref.weight });
+    if (!solved.ok) throw new Error("solve failed");
+    const { moments } = solved.value;
+    // The same sample and weight with the low book's mean moved: only a step that reads them changes.
+    const moved = {
+      ...moments,
+      crossProducts: { ...moments.crossProducts, means: [moments.crossProducts.means[0]! * 2, ...moments.crossProducts.means.slice(1)] },
+    };
+    const own = assessPricing(sample, options);
+    const reused = assessPricing(sample, { ...options, solved: moved });
+    expect(reused?.alpha.low.observed).not.toBe(own?.alpha.low.observed);
   });
 });

@@ -19,6 +19,9 @@
  */
 import type { Matrix } from "../../numerics/linearAlgebra.js";
 
+/** Windows per block of the sums of W W' (each block summed apart, then added to the total). */
+const BLOCK = 1024;
+
 /**
  * Pairs of columns whose entries alone a caller reads: the sum is computed within each pair (two
  * columns at a time, the fastest form) and every other entry is NaN.
@@ -105,7 +108,7 @@ function windowSquares(columns: readonly Float64Array[], width: number): Float64
       const wa = w[a]!;
       for (let b = a; b < k; b++) block[a * k + b] = block[a * k + b]! + wa * w[b]!;
     }
-    if (++inBlock === 1024) {
+    if (++inBlock === BLOCK) {
       for (let i = 0; i < total.length; i++) total[i] = total[i]! + block[i]!;
       block.fill(0);
       inBlock = 0;
@@ -128,8 +131,6 @@ function windowSquaresOfTwo(x: Float64Array, y: Float64Array, width: number): Fl
   for (let t = 1 - width; t < n; t += BLOCK) windowBlockOfTwo(x, y, width, t, Math.min(n, t + BLOCK), state);
   return state.subarray(4);
 }
-
-const BLOCK = 1024;
 
 /** Windows t = from .. to - 1 of windowSquaresOfTwo (one block of the sums), continuing `state`. */
 function windowBlockOfTwo(x: Float64Array, y: Float64Array, width: number, from: number, to: number, state: Float64Array): void {

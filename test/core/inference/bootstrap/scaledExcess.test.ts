@@ -19,16 +19,20 @@ describe("excess returns scaled by the largest values found", () => {
     ["no rate", undefined, 1],
     ["a constant rate", 0.0002, 1],
     ["a rate a period", rates, 1],
-    ["returns in [1, 2): a scale of 1", rates, 150],
+    ["excess returns at most in [1, 2): a scale of 1", rates, "one"],
     ["large returns: a scale below 1", rates, 1e6],
   ] as const) {
     it(`equal scaledExcessReturns with ${name}`, () => {
-      const books = { low: low.map((x) => x * factor), high: high.map((x) => x * factor), weight: 0.5 };
+      // "one": the books scaled so that their largest excess return is 1.5.
+      const first = largestValues(low, high, riskFree ?? 0);
+      const by = factor === "one" ? 1.5 / Math.max(first.low, first.high) : factor;
+      const books = { low: low.map((x) => x * by), high: high.map((x) => x * by), weight: 0.5 };
       const data = riskFree === undefined ? books : { ...books, riskFree };
       const extent = largestValues(data.low, data.high, riskFree ?? 0);
       const one = excessReturnsScaledBy(data, Math.max(extent.low, extent.high), (k) => new Float64Array(k).fill(Number.NaN));
       const three = scaledExcessReturns(data);
       expect(one.scale).toBe(three.scale);
+      if (factor === "one") expect(one.scale).toBe(1);
       expect(same(one.low, three.low)).toBe(true);
       expect(same(one.high, three.high)).toBe(true);
     });
