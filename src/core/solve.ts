@@ -36,6 +36,8 @@ export function solve(sample: ReturnSample, options: SolveOptions = {}): Result<
  * The moments `solve` formed on its way, for the steps after it on the same sample (assessPricing
  * takes them instead of passing over the rows again): the scaled excess returns' cross products at
  * `weight`, and the sample they belong to (a step given them for another sample or weight ignores them).
+ * They describe the sample's arrays as they were: a caller that changes the arrays afterwards must not
+ * pass them on.
  */
 export interface SolvedMoments {
   readonly sample: ReturnSample;
