@@ -7,6 +7,7 @@
 import { largestValues, type LargestValues } from "./cancellation.js";
 import { diagnose, type Diagnostic } from "./diagnostics.js";
 import { type ParameterName, parameters } from "./parameters.js";
+import { failure, type Result, success } from "./result.js";
 import type { ReturnSample } from "./types.js";
 
 /** How a value that is not a finite number is named in a message: NaN, Infinity, a hole, undefined, a string "x". */
@@ -73,13 +74,13 @@ export function sampleIssues(sample: ReturnSample): Diagnostic[] {
 }
 
 /**
- * `sampleIssues`, and when there are none the sample's largest values (largestValues), which the
- * steps after the check need. Rows held in Float64Arrays of one length (a number or a Float64Array
- * for the risk-free rate) take one pass: when their largest values are finite every value is (a NaN
- * or an infinity carries through |x - r| and max), so there is nothing to report. Any other sample,
- * or one with a value that is not finite, is checked by sampleIssues first, as before.
+ * `sampleIssues` as a Result: the sample's largest values (largestValues, which the steps after the
+ * check need) when there is nothing to report. Rows held in Float64Arrays of one length (the risk-free
+ * rate absent, a number or a Float64Array) take one pass: when their largest values are finite every
+ * value is (a NaN or an infinity carries through |x - r| and max). Any other sample, or one with a
+ * value that is not finite, is checked by sampleIssues first, as before.
  */
-export function checkedSample(sample: ReturnSample): { readonly issues: Diagnostic[]; readonly extent: LargestValues | null } {
+export function checkedSample(sample: ReturnSample): Result<LargestValues, Diagnostic[]> {
   if (sample !== null && typeof sample === "object") {
     const { low, high, riskFree } = sample;
     // Absent, a number or a Float64Array: anything else (null included) is sampleIssues' to judge.
@@ -90,11 +91,11 @@ export function checkedSample(sample: ReturnSample): { readonly issues: Diagnost
       (riskFree === undefined || typeof riskFree === "number" || (riskFree instanceof Float64Array && riskFree.length === low.length));
     if (plain) {
       const extent = largestValues(low, high, riskFree ?? 0);
-      if (Number.isFinite(extent.low) && Number.isFinite(extent.high) && Number.isFinite(extent.riskFree)) return { issues: [], extent };
+      if (Number.isFinite(extent.low) && Number.isFinite(extent.high) && Number.isFinite(extent.riskFree)) return success(extent);
     }
   }
   const found = sampleIssues(sample);
-  return { issues: found, extent: found.length > 0 ? null : largestValues(sample.low, sample.high, sample.riskFree ?? 0) };
+  return found.length > 0 ? failure(found) : success(largestValues(sample.low, sample.high, sample.riskFree ?? 0));
 }
 
 /** The diagnostics that are not null, in order. */

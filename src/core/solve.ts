@@ -9,7 +9,7 @@
  */
 
 import { checkedSample, issues, parameterIssue } from "./arguments.js";
-import { covarianceCancellation, largestValues, magnitudeIssue, type RoundingScales, varianceCancellation } from "./cancellation.js";
+import { covarianceCancellation, magnitudeIssue, type RoundingScales, varianceCancellation } from "./cancellation.js";
 import { diagnose, type Diagnostic } from "./diagnostics.js";
 import { candidateGrid, identifiedBounds, isPerfectCorrelation, marketMoments, noiseFreePoint, type MomentSummary } from "./identify.js";
 import { fiellerCriticalValue, findLandmarks } from "./landmarks.js";
@@ -57,7 +57,7 @@ export function solveKeepingMoments(
   const steps = options.steps ?? defaultSteps;
   const confidence = options.confidence ?? defaultConfidence;
   const checked = checkedSample(sample);
-  const invalid = checked.issues;
+  const invalid = checked.ok ? [] : checked.issues;
   invalid.push(
     ...issues(
       parameterIssue("weight", "weight", weight),
@@ -65,14 +65,14 @@ export function solveKeepingMoments(
       parameterIssue("confidence", "confidence", confidence),
     ),
   );
-  if (invalid.length > 0) return failure(invalid);
+  if (!checked.ok || invalid.length > 0) return failure(invalid);
 
   const n = sample.low.length;
   if (n < minimumObservations) {
     return failure([diagnose({ code: "too-few-observations", observations: n, minimum: minimumObservations })]);
   }
   const riskFree = sample.riskFree ?? 0;
-  const extent = checked.extent ?? largestValues(sample.low, sample.high, riskFree);
+  const extent = checked.value;
   const outOfRange = magnitudeIssue(extent.low, extent.high);
   if (outOfRange !== null) return failure([diagnose(outOfRange)]);
   // Computed on the data times a power of two (exact), reported in the data's units (scaling.ts).

@@ -18,7 +18,7 @@ import { borrowSeries, giveBack } from "../numerics/scratch.js";
 import { longRunCovarianceInPlace } from "./hac/longRun.js";
 import { bilinear } from "../numerics/linearAlgebra.js";
 import type { HacOptions } from "./options.js";
-import { CHUNK } from "../numerics/seriesLoops.js";
+import { CHUNK, plainSum } from "../numerics/seriesLoops.js";
 
 export interface SharpeStdErrors {
   readonly estimate: number;
@@ -42,10 +42,8 @@ export function sharpeMertensStdErr(sharpe: number, skewness: number, kurtosis: 
 export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {}): SharpeStdErrors {
   const n = excess.length;
   // In chunks by small functions V8 optimises whole (seriesLoops.ts); sums carried in `sums`.
+  const mu = plainSum(excess) / n;
   const sums = new Float64Array(5);
-  for (let from = 0; from < n; from += CHUNK) sumChunk(excess, from, Math.min(n, from + CHUNK), sums);
-  const mu = sums[0]! / n;
-  sums[0] = 0;
   for (let from = 0; from < n; from += CHUNK) squaredDeviationChunk(excess, mu, from, Math.min(n, from + CHUNK), sums);
   const ss = sums[0]!;
   const variance = ss / (n - 1);
@@ -74,12 +72,6 @@ export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {})
     // A quadratic form of a positive semi-definite matrix: negative only by rounding.
     hacStdErr: Math.sqrt(Math.max(0, bilinear(gradient, sigmaHat, gradient)) / n),
   };
-}
-
-function sumChunk(x: ArrayLike<number>, from: number, to: number, sums: Float64Array): void {
-  let total = sums[0]!;
-  for (let t = from; t < to; t++) total += x[t]!;
-  sums[0] = total;
 }
 
 function squaredDeviationChunk(x: ArrayLike<number>, mu: number, from: number, to: number, sums: Float64Array): void {

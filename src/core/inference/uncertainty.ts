@@ -77,8 +77,8 @@ export interface UncertaintyOptions {
  */
 export function assessUncertainty(sample: UncertaintySample, options: UncertaintyOptions = {}): Result<Uncertainty, Diagnostic[]> {
   const checked = checkedUncertaintyArguments(sample, options);
-  if (checked.issues.length > 0 || checked.extent === null) return failure(checked.issues);
-  const { extent } = checked;
+  if (!checked.ok) return checked;
+  const extent = checked.value;
   const weight = options.weight ?? defaultWeight;
   const data = sample.riskFree === undefined ? { low: sample.low, high: sample.high, weight } : { ...sample, weight };
   // Computed on the excess returns times a power of two (scaling.ts): the HAC sums hold fourth

@@ -6,8 +6,9 @@
  */
 
 import { checkedSample, issues, parameterIssue } from "../arguments.js";
-import { type LargestValues, largestValues, magnitudeIssue } from "../cancellation.js";
+import { type LargestValues, magnitudeIssue } from "../cancellation.js";
 import { diagnose, type Diagnostic } from "../diagnostics.js";
+import { failure, type Result } from "../result.js";
 import type { ReturnSample } from "../types.js";
 import type { HacOptions } from "./options.js";
 
@@ -25,16 +26,14 @@ interface CheckedOptions {
 
 /** What is wrong with assessUncertainty's arguments: the empty list when nothing is. */
 export function uncertaintyArgumentIssues(sample: ReturnSample, options: CheckedOptions): Diagnostic[] {
-  return checkedUncertaintyArguments(sample, options).issues;
+  const checked = checkedUncertaintyArguments(sample, options);
+  return checked.ok ? [] : checked.issues;
 }
 
-/** uncertaintyArgumentIssues, and when there are none the sample's largest values (checkedSample). */
-export function checkedUncertaintyArguments(
-  sample: ReturnSample,
-  options: CheckedOptions,
-): { readonly issues: Diagnostic[]; readonly extent: LargestValues | null } {
+/** uncertaintyArgumentIssues as a Result: the sample's largest values (checkedSample) when nothing is wrong. */
+export function checkedUncertaintyArguments(sample: ReturnSample, options: CheckedOptions): Result<LargestValues, Diagnostic[]> {
   const checked = checkedSample(sample);
-  const found = checked.issues;
+  const found = checked.ok ? [] : checked.issues;
   const { weight, confidence, hac, bootstrap } = options;
   found.push(
     ...issues(
@@ -63,11 +62,10 @@ export function checkedUncertaintyArguments(
     const expected = "given with bootstrap replicates (at least 2) or a bootstrap summary";
     found.push(diagnose({ code: "invalid-argument", argument: "intervalSource", value: '"bootstrap"', expected }));
   }
-  if (found.length > 0) return { issues: found, extent: null };
+  if (!checked.ok || found.length > 0) return failure(found);
   const n = sample.low.length;
   if (n < minimumForUncertainty)
-    return { issues: [diagnose({ code: "too-few-observations", observations: n, minimum: minimumForUncertainty })], extent: null };
-  const extent = checked.extent ?? largestValues(sample.low, sample.high, sample.riskFree ?? 0);
-  const outOfRange = magnitudeIssue(extent.low, extent.high);
-  return outOfRange === null ? { issues: [], extent } : { issues: [diagnose(outOfRange)], extent: null };
+    return failure([diagnose({ code: "too-few-observations", observations: n, minimum: minimumForUncertainty })]);
+  const outOfRange = magnitudeIssue(checked.value.low, checked.value.high);
+  return outOfRange === null ? checked : failure([diagnose(outOfRange)]);
 }

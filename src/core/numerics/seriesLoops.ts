@@ -11,6 +11,20 @@
  */
 export const CHUNK = 1024;
 
+/** a[0] + a[1] + ... in row order. */
+export function plainSum(a: ArrayLike<number>): number {
+  const n = a.length;
+  const total = new Float64Array(1);
+  for (let from = 0; from < n; from += CHUNK) sumChunk(a, from, Math.min(n, from + CHUNK), total);
+  return total[0]!;
+}
+
+function sumChunk(a: ArrayLike<number>, from: number, to: number, total: Float64Array): void {
+  let sum = total[0]!;
+  for (let t = from; t < to; t++) sum += a[t]!;
+  total[0] = sum;
+}
+
 /** out[t] = a[t] * b[t]. */
 export function productInto(out: Float64Array, a: ArrayLike<number>, b: ArrayLike<number>): Float64Array {
   const n = out.length;

@@ -3,7 +3,7 @@
  * for, written out here: the same bits, over lengths around the chunk size, signed zeros included.
  */
 import { describe, expect, it } from "vitest";
-import { addScaledInto, blendInto, productInto, scaledInto } from "../../../src/core/numerics/seriesLoops.js";
+import { addScaledInto, blendInto, plainSum, productInto, scaledInto } from "../../../src/core/numerics/seriesLoops.js";
 import { normals } from "../../support/random.js";
 
 function sample(n: number, seed: number): Float64Array {
@@ -28,6 +28,9 @@ describe("elementwise passes in chunks", () => {
       const onZeros = addScaledInto(new Float64Array(n), w, b);
       expect(same(scaledInto(new Float64Array(n).fill(Number.NaN), w, b), onZeros)).toBe(true);
       if (n > 5) expect(Object.is(scaledInto(new Float64Array(n), 2, b)[3], 0)).toBe(true);
+      let sum = 0;
+      for (let t = 0; t < n; t++) sum += a[t]!;
+      expect(Object.is(plainSum(a), sum)).toBe(true);
       const plainBlend = a.map((v, t) => 0.3 * v + (1 - 0.3) * b[t]!);
       expect(same(blendInto(new Float64Array(n).fill(Number.NaN), 0.3, a, 1 - 0.3, b), plainBlend)).toBe(true);
     });

@@ -12,6 +12,7 @@
  * Politis-White (2004) value (blockLength.ts) remains in the library.
  */
 
+import { largestValues } from "../../cancellation.js";
 import { scaleFor } from "../../scaling.js";
 import { bootstrapQuantities, quantityCount, writeStatistics } from "./statistics.js";
 import { drawBlocks, replicateRandom, validateBlockLength } from "./stationaryBootstrap.js";
@@ -74,24 +75,14 @@ export function excessReturns(
  */
 export function scaledExcessReturns(
   data: BootstrapData,
-  allocate?: (n: number) => Float64Array,
+  allocate: (n: number) => Float64Array = (n) => new Float64Array(n),
 ): { low: Float64Array; high: Float64Array; scale: number } {
-  const { low, high } = excessReturns(data, allocate);
-  let largest = 0;
-  for (let t = 0; t < low.length; t++) largest = Math.max(largest, Math.abs(low[t]!), Math.abs(high[t]!));
-  const scale = scaleFor(largest);
-  if (scale !== 1) {
-    for (let t = 0; t < low.length; t++) {
-      low[t] = low[t]! * scale;
-      high[t] = high[t]! * scale;
-    }
-  }
-  return { low, high, scale };
+  return excessReturnsScaledBy(data, largestExcessReturn(data), allocate);
 }
 
 /**
  * scaledExcessReturns when the largest |excess return| of either book is known (largestValues, from
- * the same differences): one pass, (x - r) * scale, the same numbers.
+ * the same differences): one pass, (x - r) * scale.
  */
 export function excessReturnsScaledBy(
   data: BootstrapData,
@@ -118,13 +109,14 @@ export function excessReturnsScaledBy(
  * the same differences (for passes that form the scaled excess returns as they go, e.g. assessPricing).
  */
 export function excessReturnScale(data: BootstrapData): number {
-  const { n, rf } = checkedLengths(data);
-  let largest = 0;
-  for (let t = 0; t < n; t++) {
-    const r = typeof rf === "number" ? rf : rf[t]!;
-    largest = Math.max(largest, Math.abs(data.low[t]! - r), Math.abs(data.high[t]! - r));
-  }
-  return scaleFor(largest);
+  return scaleFor(largestExcessReturn(data));
+}
+
+/** The largest |low - r| and |high - r| over the rows (largestValues). */
+function largestExcessReturn(data: BootstrapData): number {
+  const { rf } = checkedLengths(data);
+  const largest = largestValues(data.low, data.high, rf);
+  return Math.max(largest.low, largest.high);
 }
 
 /**

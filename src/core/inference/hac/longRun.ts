@@ -12,6 +12,7 @@
 import type { ColumnPairs } from "./bartlettWindows.js";
 import { kernelSum } from "./kernelSum.js";
 import { scale, symmetrise, type Matrix } from "../../numerics/linearAlgebra.js";
+import { plainSum } from "../../numerics/seriesLoops.js";
 import type { HacKernel, HacOptions } from "../options.js";
 import { welfordCrossProducts } from "../../moments.js";
 
@@ -63,13 +64,6 @@ export function longRunCovarianceInPlace(
     lags: estimate.lags,
     prewhite: estimate.prewhite,
   };
-}
-
-/** x[0] + x[1] + ... in row order. */
-function plainSum(x: Float64Array): number {
-  let total = 0;
-  for (let t = 0; t < x.length; t++) total += x[t]!;
-  return total;
 }
 
 /** The sample covariance matrix of the columns, divisor T - 1 (compensated one-pass sums). */
