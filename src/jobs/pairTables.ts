@@ -191,6 +191,14 @@ export function sampleOf(loaded: PairTable): ReturnSample & { riskFree: number |
   };
 }
 
+/**
+ * Why a pair could not be read, as messages for a person: the same for every pair of the file that
+ * failed alike (a missing file, a risk-free column not there), so the CLI shows each once per run.
+ */
+export function readErrorMessages(errors: readonly PairError[]): { severity: "error"; text: string; reading: true }[] {
+  return errors.map((e) => ({ severity: "error", text: e.message, reading: true }));
+}
+
 /** The reading warnings of a loaded pair as messages for a person (the CLI shows each once per run). */
 export function readingMessages(warnings: readonly InputWarningDiagnostic[]): { severity: "warning"; text: string; reading: true }[] {
   return warnings.map((w) => ({ severity: "warning", text: w.message, reading: true }));

@@ -25,7 +25,7 @@ import { type RollMeta, rollRecord } from "../report/rollReport.js";
 import type { RollOutputJson } from "../schema/rollOutput.js";
 import type { SolveFailureJson } from "../schema/solveOutput.js";
 import type { JobContext } from "./context.js";
-import { describeInput, loadPairs, type PairTable, readingMessages, runShape, sampleOf } from "./pairTables.js";
+import { describeInput, loadPairs, type PairTable, readErrorMessages, readingMessages, runShape, sampleOf } from "./pairTables.js";
 import { pairsFrom } from "./pairs.js";
 import type { JobMessage } from "./solveJob.js";
 import { tool } from "./tool.js";
@@ -110,7 +110,7 @@ async function* rollPairs(
         highColumn: load.pair.high,
         errors: load.errors,
       });
-      yield { kind: "failure", errors: load.errors, document, messages: load.errors.map((e) => ({ severity: "error", text: e.message })) };
+      yield { kind: "failure", errors: load.errors, document, messages: readErrorMessages(load.errors) };
     } else yield rollPair(load.value, options, spec);
   }
 }

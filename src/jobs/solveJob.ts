@@ -14,7 +14,7 @@ import { failureOutput, type SolveRecord } from "../report/records.js";
 import type { SolveReport } from "../report/types.js";
 import type { SolveFailureJson, SolveOutputJson } from "../schema/solveOutput.js";
 import type { JobContext } from "./context.js";
-import { describeInput, loadPairs, type PairLoad, readingMessages, runShape, sampleOf } from "./pairTables.js";
+import { describeInput, loadPairs, type PairLoad, readErrorMessages, readingMessages, runShape, sampleOf } from "./pairTables.js";
 import { pairsFrom } from "./pairs.js";
 import { tool } from "./tool.js";
 import { withScratchAsync } from "../core/numerics/scratch.js";
@@ -26,7 +26,7 @@ import { modelColumns, modelsFor, modelWarnings } from "./modelsStep.js";
 export interface JobMessage {
   readonly severity: "warning" | "error";
   readonly text: string;
-  /** A warning from reading a file: the same for every pair read from it (the CLI shows it once). */
+  /** A warning or error from reading a file: the same for every pair read from it (the CLI shows it once). */
   readonly reading?: true;
 }
 
@@ -102,7 +102,7 @@ export async function solvePlanned(files: readonly string[], plan: SolveJobPlan,
 }
 
 async function solveLoaded(load: PairLoad, options: CommandOptions<"solve">, context: JobContext): Promise<SolvedPair> {
-  if (!load.ok) return failed(load.source, load.pair, load.errors);
+  if (!load.ok) return failed(load.source, load.pair, load.errors, readErrorMessages(load.errors));
   const loaded = load.value;
   const { source, pair } = loaded;
   const sample = sampleOf(loaded);
@@ -148,12 +148,17 @@ async function solveLoaded(load: PairLoad, options: CommandOptions<"solve">, con
   return { record, document, status: found.bounds === null ? "rejected" : "ok", messages };
 }
 
-function failed(source: string, pair: { low: string; high: string }, errors: readonly { code: string; message: string }[]): SolvedPair {
+function failed(
+  source: string,
+  pair: { low: string; high: string },
+  errors: readonly { code: string; message: string }[],
+  messages: readonly JobMessage[] = errors.map((e) => ({ severity: "error", text: e.message })),
+): SolvedPair {
   const failure = { tool, source, lowColumn: pair.low, highColumn: pair.high, errors };
   return {
     record: { kind: "failure", failure },
     document: failureOutput(failure),
     status: "failed",
-    messages: errors.map((e) => ({ severity: "error", text: e.message })),
+    messages,
   };
 }

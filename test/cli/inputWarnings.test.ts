@@ -88,6 +88,69 @@ describe("reading warnings as diagnostics", () => {
     expect(count(stderr(), '"Half Beta"')).toBe(1);
   });
 
+  it("writes an error shared by several pairs of one file once on stderr, and in every pair's record", async () => {
+    // A risk-free column that is not there: every one of the 2 x 2 pairs fails alike (and "Nowhere" only).
+    const { io, stdout, stderr } = fakeIo(files);
+    const lows = ["--lows", "Stillwater Low Vol,Half Beta", "--highs", "Kestrel High Beta,Nowhere"];
+    const args = ["solve", "t.csv", ...lows, "--rf", "T-Bill", ...percent, "--format", "jsonl"];
+    expect(await run(args, io)).toBe(exitCodes.input);
+    expect(stdout()).toBe("");
+    const lines = stderr().trim().split("\n");
+    expect(lines.filter((line) => line.includes('"T-Bill"'))).toHaveLength(1);
+    expect(lines.filter((line) => line.includes('"Nowhere"'))).toHaveLength(1);
+    expect(lines.every((line) => line.startsWith("error: "))).toBe(true);
+    // With a file that reads, the failed pairs keep their errors in their records, once each.
+    const partial = fakeIo(files);
+    const some = [
+      "solve",
+      "t.csv",
+      "--lows",
+      "Stillwater Low Vol,Half Beta",
+      "--highs",
+      "Kestrel High Beta,Nowhere",
+      ...percent,
+      "--format",
+      "jsonl",
+    ];
+    expect(await run(some, partial.io)).toBe(exitCodes.partial);
+    const records = partial
+      .stdout()
+      .trim()
+      .split("\n")
+      .map((line) => solveRecordSchema.parse(JSON.parse(line)));
+    const failed = records.filter((r) => r.status === "failed");
+    expect(failed.map((r) => r.input.highColumn)).toEqual(["Nowhere", "Nowhere"]);
+    for (const record of failed) expect("errors" in record && record.errors.filter((e) => e.message.includes('"Nowhere"'))).toHaveLength(1);
+    expect(
+      partial
+        .stderr()
+        .split("\n")
+        .filter((line) => line.startsWith("error: ") && line.includes('"Nowhere"')),
+    ).toHaveLength(1);
+  });
+
+  it("writes roll's error shared by several pairs of one file once on stderr", async () => {
+    const { io, stderr } = fakeIo(files);
+    const args = [
+      "roll",
+      "t.csv",
+      "--lows",
+      "Stillwater Low Vol,Half Beta",
+      "--highs",
+      "Kestrel High Beta",
+      "--rf",
+      "T-Bill",
+      "--window",
+      "24",
+    ];
+    expect(await run([...args, ...percent, "--format", "jsonl"], io)).toBe(exitCodes.input);
+    expect(
+      stderr()
+        .split("\n")
+        .filter((line) => line.startsWith("error: ") && line.includes('"T-Bill"')),
+    ).toHaveLength(1);
+  });
+
   it("shows reading warnings on stderr when the text report is on the terminal, and lists them under Diagnostics", async () => {
     const { io, stdout, stderr } = fakeIo(files, { stdoutIsTerminal: true, env: { NO_COLOR: "1" } });
     expect(await run(["solve", "t.csv", "--low", "Stillwater Low Vol", "--high", "Kestrel High Beta", ...percent], io)).toBe(exitCodes.ok);
