@@ -52,12 +52,16 @@ function stop(code: number): never {
   process.exit(code);
 }
 
-/** The signals that end a run: temporary files are removed and the status is 128 + the signal's number. */
+/**
+ * The signals that end a run: temporary files are removed and the status is 128 + the signal's number.
+ * The handlers stay installed: a second signal (Ctrl-C reaches a child run with huge pages both from
+ * the terminal and from its parent, hugePages.ts) must not find the default action mid-clean-up.
+ */
 const endingSignals = ["SIGINT", "SIGTERM", "SIGHUP"] as const;
 
 /** Runs the command line `argv` (without node and the script) and ends the process with its exit code. */
 export async function main(argv: readonly string[], launch: Launch): Promise<void> {
-  for (const signal of endingSignals) process.once(signal, () => stop(128 + constants.signals[signal]));
+  for (const signal of endingSignals) process.on(signal, () => stop(128 + constants.signals[signal]));
   process.stdout.on("error", (error: NodeJS.ErrnoException) => {
     // A reader that closed the pipe (`betabound roll ... | head`) wants no more: stop the work at once,
     // quietly, with the status a shell gives a process ended by SIGPIPE (exitCodes.pipeClosed).
