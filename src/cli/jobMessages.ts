@@ -10,8 +10,9 @@ import type { CliIo } from "./runtime/io.js";
 export function writeMessages(io: CliIo, messages: readonly JobMessage[], seen: Set<string>, quietReport = false): void {
   for (const message of messages) {
     if (message.reading === true) {
-      if (seen.has(message.text)) continue;
-      seen.add(message.text);
+      const key = `${message.severity}: ${message.text}`;
+      if (seen.has(key)) continue;
+      seen.add(key);
     } else if (quietReport) continue;
     io.writeErr(`${message.severity}: ${message.text}\n`);
   }

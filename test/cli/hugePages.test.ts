@@ -10,10 +10,11 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { commandLineBytes, type HugePageFacts, hugePagesFrom, wantsHugePages, withHugePages } from "../../src/cli/runtime/hugePages.js";
 
 /** A Linux machine with huge pages on request, glibc 2.36 and a large input; `read` counts what was asked. */
-function facts(change: Partial<{ platform: string; bytes: number; mode: string | null; glibc: string | null }> = {}) {
+function facts(change: Partial<{ platform: string; bytes: number; mode: string | null; glibc: string | null; execArgv: string[] }> = {}) {
   const read: string[] = [];
   const given: HugePageFacts = {
     platform: change.platform ?? "linux",
+    execArgv: change.execArgv ?? [],
     inputBytes: () => {
       read.push("bytes");
       return change.bytes ?? hugePagesFrom;
@@ -46,6 +47,12 @@ describe("wantsHugePages", () => {
     expect(wantsHugePages({}, facts({ mode: null }).given).relaunch).toBe(false);
     expect(wantsHugePages({}, facts({ platform: "darwin" }).given).relaunch).toBe(false);
     expect(wantsHugePages({}, facts({ platform: "win32" }).given).relaunch).toBe(false);
+  });
+
+  it("keeps a run under the inspector in the process the debugger attached to; other node flags do not matter", () => {
+    expect(wantsHugePages({}, facts({ execArgv: ["--inspect-brk=9229"] }).given).relaunch).toBe(false);
+    expect(wantsHugePages({ BETABOUND_HUGE_PAGES: "on" }, facts({ execArgv: ["--inspect"] }).given).relaunch).toBe(false);
+    expect(wantsHugePages({}, facts({ execArgv: ["--max-old-space-size=8000"] }).given).relaunch).toBe(true);
   });
 
   it("never runs a child's child: the tunable already set (by the parent or the user) means no", () => {
@@ -87,6 +94,14 @@ describe("withHugePages", () => {
       "glibc.malloc.arena_max=2:glibc.malloc.hugetlb=1",
     );
   });
+
+  it("gives the child a setting it knows: one this process warned about is auto there (no second warning)", () => {
+    expect(withHugePages({ BETABOUND_HUGE_PAGES: "on" }).BETABOUND_HUGE_PAGES).toBe("on");
+    expect(withHugePages({ BETABOUND_HUGE_PAGES: "yes" }).BETABOUND_HUGE_PAGES).toBe("auto");
+    expect("BETABOUND_HUGE_PAGES" in withHugePages({})).toBe(false);
+    const child = withHugePages({ BETABOUND_HUGE_PAGES: "yes" });
+    expect(wantsHugePages(child, facts().given)).toEqual({ relaunch: false, warning: null });
+  });
 });
 
 describe("commandLineBytes", () => {
@@ -103,11 +118,18 @@ describe("commandLineBytes", () => {
   afterAll(() => fs.rmSync(dir, { recursive: true, force: true }));
 
   it("sums the files named, PATH:COLUMN's path, and skips options, folders and what is not there", () => {
-    // Standard input here is whatever the test runner has: counted alike in both.
-    const base = commandLineBytes([]);
-    expect(commandLineBytes(["solve", a, "--low", "x"]) - base).toBe(1000);
-    expect(commandLineBytes(["solve", "--low", `${a}:Return`, "--high", `${a}:Other`]) - base).toBe(2000);
-    expect(commandLineBytes([b, `${b}:col`]) - base).toBe(600);
-    expect(commandLineBytes([dir, join(dir, "missing.csv"), `-${a}`, "\u0000"]) - base).toBe(0);
+    const none = () => null;
+    expect(commandLineBytes(["solve", a, "--low", "x"], none)).toBe(1000);
+    expect(commandLineBytes(["solve", "--low", `${a}:Return`, "--high", `${a}:Other`], none)).toBe(2000);
+    expect(commandLineBytes([b, `${b}:col`], none)).toBe(600);
+    expect(commandLineBytes([dir, join(dir, "missing.csv"), `-${a}`, "\u0000"], none)).toBe(0);
+  });
+
+  it("counts standard input (when it is a file) for `-` or when no argument names a file", () => {
+    const file = () => 5000;
+    expect(commandLineBytes(["solve", "-", "--low", "x"], file)).toBe(5000);
+    expect(commandLineBytes(["solve", "--low", "x"], file)).toBe(5000);
+    expect(commandLineBytes(["solve", a, "--low", "x"], file)).toBe(1000);
+    expect(commandLineBytes(["solve", a, "-"], file)).toBe(6000);
   });
 });

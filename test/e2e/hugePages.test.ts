@@ -45,6 +45,26 @@ describe("the command line run again with huge pages", () => {
     expect(again.code).toBe(0);
   });
 
+  it("warns once about a setting it does not know, also when it runs the child (which takes it as auto)", (context) => {
+    if (!relaunches) context.skip();
+    // An existing output of 200 MB (sparse: no disk used) counts as a named file: the run starts a child.
+    const dir = fs.mkdtempSync(join(tmpdir(), "betabound-huge-warn-"));
+    const target = join(dir, "out.json");
+    fs.writeFileSync(target, "");
+    fs.truncateSync(target, 200 * 1024 * 1024);
+    try {
+      const result = spawnSync(process.execPath, [cli, "solve", monthly, ...books, "--format", "json", "--output", target], {
+        encoding: "utf8",
+        env: { ...process.env, BETABOUND_HUGE_PAGES: "yes" },
+      });
+      expect(result.status).toBe(0);
+      expect(result.stderr).toBe('warning: BETABOUND_HUGE_PAGES is "yes", not one of auto, on, off; using auto\n');
+      expect(JSON.parse(fs.readFileSync(target, "utf8")).status).toBe("ok");
+    } finally {
+      fs.rmSync(dir, { recursive: true, force: true });
+    }
+  });
+
   it("warns once about a setting it does not know, and runs as auto", () => {
     const result = spawnSync(process.execPath, [cli, "solve", monthly, ...books, "--format", "json"], {
       encoding: "utf8",

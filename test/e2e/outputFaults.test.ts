@@ -15,6 +15,8 @@ let dir = "";
 /** 1,000,000 daily rows (about 30 MB): a roll over it runs for seconds and writes about 500 MB. */
 let big = "";
 const previous = "the previous output, to be kept\n";
+/** One process (never the huge-page child of src/cli/runtime/hugePages.ts): /proc/<pid> is the run's own. */
+const env = { ...process.env, BETABOUND_HUGE_PAGES: "off" };
 const roll = (output: string[]) => [cli, "roll", big, "--low", "low", "--high", "high", "--window", "252", "--format", "csv", ...output];
 
 beforeAll(() => {
@@ -114,7 +116,7 @@ describe("a signal mid-run", () => {
       const here = fs.mkdtempSync(join(dir, "signal-"));
       const target = join(here, "windows.csv");
       fs.writeFileSync(target, previous);
-      const child = spawn(process.execPath, roll(["--output", target]), { stdio: "ignore" });
+      const child = spawn(process.execPath, roll(["--output", target]), { stdio: "ignore", env });
       const ended = new Promise<number | null>((done) => child.on("exit", (code) => done(code)));
       // Wait until the output is being written: its temporary file exists and grows.
       const deadline = Date.now() + 20_000;
@@ -132,7 +134,7 @@ describe("a signal mid-run", () => {
 
 describe("a reader on a pipe", () => {
   it("that stops reading holds the writer back: memory stays flat", async () => {
-    const child = spawn(process.execPath, roll([]), { stdio: ["ignore", "pipe", "ignore"] });
+    const child = spawn(process.execPath, roll([]), { stdio: ["ignore", "pipe", "ignore"], env });
     child.stdout.pause();
     const ended = new Promise<number | null>((done) => child.on("exit", (code) => done(code)));
     // Measured from the first output on: before it the run is still reading and computing windows
@@ -150,7 +152,7 @@ describe("a reader on a pipe", () => {
   }, 60_000);
 
   it("that closes the pipe after one line ends the run within a second, quietly, with 141", async () => {
-    const child = spawn(process.execPath, roll([]), { stdio: ["ignore", "pipe", "pipe"] });
+    const child = spawn(process.execPath, roll([]), { stdio: ["ignore", "pipe", "pipe"], env });
     let stderr = "";
     child.stderr.on("data", (chunk) => {
       stderr += String(chunk);

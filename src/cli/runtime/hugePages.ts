@@ -16,9 +16,9 @@ import { constants } from "node:os";
 
 /**
  * Inputs from this many bytes on are read in a child with huge pages. Measured on 2 cores (interleaved
- * medians, 2026-12-04, see DEVELOPERS.md, "Huge pages"): starting the child costs about 0.12 s (node's
- * own start-up), and huge pages saved 0.07 s on a 58 MB file without the uncertainty, 0.12 s with it,
- * and about 0.9 s on a 420 MB file: the child pays from about twice the 58 MB file on.
+ * medians, 2026-12-04, see bench/analysis.md, "Huge pages"): starting the child costs about 0.12 s
+ * (node's own start-up and the spawn), and huge pages saved 0.07 s on a 58 MB file without the
+ * uncertainty, 0.12 s with it, and 0.7 s on a 420 MB file: the child pays from about twice the 58 MB.
  */
 export const hugePagesFrom = 128 * 1024 * 1024;
 
@@ -34,6 +34,8 @@ export interface HugePageFacts {
   readonly transparentHugePages: () => string | null;
   /** glibc's version at run time ("2.36"), or null when the C library is another. */
   readonly glibc: () => string | null;
+  /** Node's own options for this process (passed on to the child). */
+  readonly execArgv: readonly string[];
 }
 
 /** The values BETABOUND_HUGE_PAGES takes (unset: auto). */
@@ -47,6 +49,8 @@ export function wantsHugePages(env: NodeJS.ProcessEnv, facts: HugePageFacts): { 
   // Set already: this is the child (or the user chose glibc's tunables).
   if (setting === "off" || (env.GLIBC_TUNABLES ?? "").includes("glibc.malloc.hugetlb")) return { relaunch: false, warning };
   if (facts.platform !== "linux") return { relaunch: false, warning };
+  // A run under the inspector stays in the process the debugger attached to.
+  if (facts.execArgv.some((flag) => flag.startsWith("--inspect") || flag.startsWith("--debug"))) return { relaunch: false, warning };
   if (setting !== "on" && facts.inputBytes() < hugePagesFrom) return { relaunch: false, warning };
   // "always" gives them without asking; "never" not at all.
   if (facts.transparentHugePages() !== "madvise") return { relaunch: false, warning };
@@ -60,31 +64,48 @@ function glibcAtLeast(version: string | null, major: number, minor: number): boo
   return got > major || (got === major && gotMinor >= minor);
 }
 
-/** The environment of the child: glibc's tunables with the huge-page one added. */
+/**
+ * The environment of the child: glibc's tunables with the huge-page one added, and BETABOUND_HUGE_PAGES
+ * as it was read (a value it does not know, already warned about here, as auto).
+ */
 export function withHugePages(env: NodeJS.ProcessEnv): NodeJS.ProcessEnv {
   const tunables = env.GLIBC_TUNABLES;
-  return { ...env, GLIBC_TUNABLES: tunables === undefined || tunables === "" ? tunable : `${tunables}:${tunable}` };
+  const setting = env.BETABOUND_HUGE_PAGES;
+  return {
+    ...env,
+    GLIBC_TUNABLES: tunables === undefined || tunables === "" ? tunable : `${tunables}:${tunable}`,
+    ...(setting === undefined || (hugePageSettings as readonly string[]).includes(setting) ? {} : { BETABOUND_HUGE_PAGES: "auto" }),
+  };
 }
 
 /**
  * The bytes of the files named in `argv` (an argument that is an existing file, or PATH:COLUMN whose
- * PATH is one), and of standard input when it is a file. Options' values that happen to be files
- * (an existing output, a configuration) count too: at worst a run starts a child it did not need.
+ * PATH is one), and of standard input when it is a file and `-` is an argument or no argument names a
+ * file. The launcher does not parse options (that needs the bundle): an existing file given as an
+ * option's value (an output about to be replaced, a configuration) counts too, so such a run may start
+ * a child it did not need (about 0.12 s). Standard input from a pipe never counts (its size is unknown).
  */
-export function commandLineBytes(argv: readonly string[]): number {
+export function commandLineBytes(argv: readonly string[], standardInput: () => number | null = standardInputSize): number {
   let bytes = 0;
+  let named = false;
   for (const arg of argv) {
     if (arg.startsWith("-")) continue;
     const size = fileSize(arg) ?? (arg.lastIndexOf(":") > 0 ? fileSize(arg.slice(0, arg.lastIndexOf(":"))) : null);
+    if (size !== null) named = true;
     bytes += size ?? 0;
   }
+  if (!named || argv.includes("-")) bytes += standardInput() ?? 0;
+  return bytes;
+}
+
+/** The size of standard input when it is a file (not a pipe or a terminal). */
+function standardInputSize(): number | null {
   try {
     const input = fstatSync(0);
-    if (input.isFile()) bytes += input.size;
+    return input.isFile() ? input.size : null;
   } catch {
-    // No standard input.
+    return null; // none
   }
-  return bytes;
 }
 
 function fileSize(path: string): number | null {
@@ -100,6 +121,7 @@ function fileSize(path: string): number | null {
 export function processFacts(argv: readonly string[]): HugePageFacts {
   return {
     platform: process.platform,
+    execArgv: process.execArgv,
     inputBytes: () => commandLineBytes(argv),
     transparentHugePages: () => {
       try {
@@ -119,19 +141,38 @@ export function processFacts(argv: readonly string[]): HugePageFacts {
 const passedOn = ["SIGINT", "SIGTERM", "SIGHUP"] as const;
 
 /**
+ * Signals that end a process without a core dump: a child ended by one ends this process by the same
+ * one. Any other (SIGABRT when V8 runs out of memory, SIGSEGV) ends it with 128 + its number instead,
+ * the same status without a second core file or crash report for the launcher.
+ */
+const raisedAgain: ReadonlySet<string> = new Set(["SIGINT", "SIGTERM", "SIGHUP", "SIGKILL", "SIGPIPE", "SIGUSR1", "SIGUSR2", "SIGALRM"]);
+
+/**
  * Runs `script` with `argv` in a child with huge pages and ends this process as the child ended (its
  * exit code, or the signal that killed it). Calls `runHere` instead when the child cannot start.
  */
 export function runWithHugePages(script: string, argv: readonly string[], runHere: () => void): void {
   const { spawn } = createRequire(script)("node:child_process") as typeof import("node:child_process");
-  const child = spawn(process.execPath, [...process.execArgv, script, ...argv], { stdio: "inherit", env: withHugePages(process.env) });
+  let child: ReturnType<typeof spawn> | null = null;
+  // Installed before the child starts: a signal meanwhile must not end this process and orphan it.
+  let pending: NodeJS.Signals | null = null;
   const pass = (signal: NodeJS.Signals): void => {
-    child.kill(signal);
+    if (child === null) pending = signal;
+    else child.kill(signal);
   };
   const stopPassing = (): void => {
     for (const signal of passedOn) process.off(signal, pass);
   };
   for (const signal of passedOn) process.on(signal, pass);
+  try {
+    child = spawn(process.execPath, [...process.execArgv, script, ...argv], { stdio: "inherit", env: withHugePages(process.env) });
+  } catch {
+    // Refused at once (an argument list too long with the added variable, no memory): run here.
+    stopPassing();
+    runHere();
+    return;
+  }
+  if (pending !== null) child.kill(pending);
   let started = false;
   child.once("spawn", () => {
     started = true;
@@ -148,6 +189,7 @@ export function runWithHugePages(script: string, argv: readonly string[], runHer
     // Ended by a signal: end this process by the same one (the status a shell reports is the same),
     // and, should it be one this process ignores, with 128 + its number.
     process.exitCode = 128 + (constants.signals[signal] ?? 0);
-    process.kill(process.pid, signal);
+    if (raisedAgain.has(signal)) process.kill(process.pid, signal);
+    else process.exit(process.exitCode);
   });
 }

@@ -21,7 +21,8 @@ export function betabound(args: readonly string[], options: { cwd?: string; inpu
     input: options.input,
     stdio: [options.stdin ?? "pipe", "pipe", "pipe"],
     encoding: "utf8",
-    env: { ...process.env, NO_COLOR: "1" },
+    // One process, whatever the developer's environment (hugePages.ts has tests of its own).
+    env: { ...process.env, NO_COLOR: "1", BETABOUND_HUGE_PAGES: "off" },
     maxBuffer: 1 << 30,
   });
   return { code: result.status, signal: result.signal, stdout: result.stdout, stderr: result.stderr };
