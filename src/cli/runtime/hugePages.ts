@@ -154,11 +154,10 @@ const raisedAgain: ReadonlySet<string> = new Set(["SIGINT", "SIGTERM", "SIGHUP",
 export function runWithHugePages(script: string, argv: readonly string[], runHere: () => void): void {
   const { spawn } = createRequire(script)("node:child_process") as typeof import("node:child_process");
   let child: ReturnType<typeof spawn> | null = null;
-  // Installed before the child starts: a signal meanwhile must not end this process and orphan it.
-  let pending: NodeJS.Signals | null = null;
+  // Listening before the spawn: a signal meanwhile must not end this process by default and orphan
+  // the child. Listeners run from the event loop, so by then `child` is set (or the spawn failed).
   const pass = (signal: NodeJS.Signals): void => {
-    if (child === null) pending = signal;
-    else child.kill(signal);
+    child?.kill(signal);
   };
   const stopPassing = (): void => {
     for (const signal of passedOn) process.off(signal, pass);
@@ -172,7 +171,6 @@ export function runWithHugePages(script: string, argv: readonly string[], runHer
     runHere();
     return;
   }
-  if (pending !== null) child.kill(pending);
   let started = false;
   child.once("spawn", () => {
     started = true;
