@@ -41,11 +41,16 @@ export interface HugePageFacts {
 /** The values BETABOUND_HUGE_PAGES takes (unset: auto). */
 export const hugePageSettings = ["auto", "on", "off"] as const;
 
+function knownSetting(value: string): boolean {
+  return (hugePageSettings as readonly string[]).includes(value);
+}
+
 /** Whether to run the command line again with huge pages, and why not when a setting is wrong. */
 export function wantsHugePages(env: NodeJS.ProcessEnv, facts: HugePageFacts): { relaunch: boolean; warning: string | null } {
   const setting = env.BETABOUND_HUGE_PAGES ?? "auto";
-  const known = (hugePageSettings as readonly string[]).includes(setting);
-  const warning = known ? null : `warning: BETABOUND_HUGE_PAGES is "${setting}", not one of ${hugePageSettings.join(", ")}; using auto\n`;
+  const warning = knownSetting(setting)
+    ? null
+    : `warning: BETABOUND_HUGE_PAGES is "${setting}", not one of ${hugePageSettings.join(", ")}; using auto\n`;
   // Set already: this is the child (or the user chose glibc's tunables).
   if (setting === "off" || (env.GLIBC_TUNABLES ?? "").includes("glibc.malloc.hugetlb")) return { relaunch: false, warning };
   if (facts.platform !== "linux") return { relaunch: false, warning };
@@ -74,7 +79,7 @@ export function withHugePages(env: NodeJS.ProcessEnv): NodeJS.ProcessEnv {
   return {
     ...env,
     GLIBC_TUNABLES: tunables === undefined || tunables === "" ? tunable : `${tunables}:${tunable}`,
-    ...(setting === undefined || (hugePageSettings as readonly string[]).includes(setting) ? {} : { BETABOUND_HUGE_PAGES: "auto" }),
+    ...(setting === undefined || knownSetting(setting) ? {} : { BETABOUND_HUGE_PAGES: "auto" }),
   };
 }
 
