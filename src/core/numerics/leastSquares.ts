@@ -65,14 +65,26 @@ export function interceptLeastSquares(x: ArrayLike<number>, y: ArrayLike<number>
   ];
   const [a, b] = solve(xtx, [[sy], [sxy]]).map((row) => row[0]!) as [number, number];
   const residuals = borrowSeries(n); // every element is written below
-  for (let t = 0; t < n; t++) {
-    // As leastSquares: 0 + 1 * a first (not a alone: a signed zero comes out the same).
+  for (let from = 0; from < n; from += CHUNK) interceptResidualChunk(x, y, a, b, residuals, from, Math.min(n, from + CHUNK));
+  return { coefficients: [a, b], residuals, inverseCrossProduct: inverse(xtx) };
+}
+
+/** residuals[t] = y[t] - (0 + a + x[t] b), in leastSquares' order (0 + 1 * a first: a signed zero comes out the same). */
+function interceptResidualChunk(
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  a: number,
+  b: number,
+  residuals: Float64Array,
+  from: number,
+  to: number,
+): void {
+  for (let t = from; t < to; t++) {
     let fitted = 0;
     fitted += a;
     fitted += x[t]! * b;
     residuals[t] = y[t]! - fitted;
   }
-  return { coefficients: [a, b], residuals, inverseCrossProduct: inverse(xtx) };
 }
 
 function crossChunk(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, sums: Float64Array): void {
