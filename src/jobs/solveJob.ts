@@ -115,7 +115,7 @@ async function solveLoaded(load: PairLoad, options: CommandOptions<"solve">, con
     );
   }
   const { solution: found, moments } = solved.value;
-  const assessed = await uncertaintyFor(sample, found, options, context);
+  const assessed = await uncertaintyFor(sample, found, options, context, moments);
   const input = describeInput(loaded, options);
   // The pricing section, and the return-implied landmark and its diagnostics as the test decides them.
   const priced = pricingFor(sample, found, assessed.uncertainty, options, {

@@ -4,6 +4,7 @@ import type { BootstrapSummary } from "../core/inference/bootstrap/summary.js";
 import type { HacOptions } from "../core/inference/options.js";
 import { assessUncertainty, minimumForUncertainty, type UncertaintySample } from "../core/inference/uncertainty.js";
 import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
+import type { SolvedMoments } from "../core/solve.js";
 import type { Solution } from "../core/types.js";
 import type { CommandOptions } from "../options/index.js";
 import { runBootstrap } from "./bootstrapStep.js";
@@ -18,6 +19,7 @@ export async function uncertaintyFor(
   solution: Solution,
   options: CommandOptions<"solve">,
   context: JobContext,
+  solved?: SolvedMoments,
 ): Promise<{ uncertainty: Uncertainty | null; note: Diagnostic | null }> {
   if (!options.uncertainty) return { uncertainty: null, note: null };
   if (solution.observations < minimumForUncertainty) {
@@ -45,6 +47,7 @@ export async function uncertaintyFor(
     interval: options.interval,
     intervalSource: options.intervalSource,
     ...(bootstrapSummary === undefined ? {} : { bootstrapSummary }),
+    ...(solved === undefined ? {} : { solved }),
   });
   // The options passed the option table's rules and solve accepted the sample: a refusal is a bug.
   if (!assessed.ok) throw new Error(`uncertaintyFor: assessUncertainty refused a solved sample: ${assessed.issues[0]?.message}`);

@@ -40,8 +40,9 @@ import {
 import { sharpeStdErrors } from "./sharpe.js";
 import { stoyeInterval } from "./stoye.js";
 import { excessReturnsScaledBy } from "./bootstrap/replicates.js";
-import { welfordCrossProducts } from "../moments.js";
+import { type CrossProducts, welfordCrossProducts } from "../moments.js";
 import type { ReturnSample } from "../types.js";
+import type { SolvedMoments } from "../solve.js";
 import type { Uncertainty, PointwiseBound, BetaInterval, CapmHac } from "./uncertaintyTypes.js";
 import { defaultBlockLength, defaultSeed, defaultWeight } from "../parameters.js";
 import { diagnose, type Diagnostic } from "../diagnostics.js";
@@ -68,6 +69,12 @@ export interface UncertaintyOptions {
    * used instead of running `bootstrap` here.
    */
   readonly bootstrapSummary?: BootstrapSummary;
+  /**
+   * The moments `solveKeepingMoments` formed on this very sample and weight: the variances and the
+   * covariance are taken from them (the same bits as another pass: the same scale, and each sum of the
+   * pass depends on its own two series alone) instead of passing over the rows again.
+   */
+  readonly solved?: SolvedMoments;
 }
 
 /**
@@ -99,7 +106,11 @@ function checkedUncertainty(
   weight: number,
   options: UncertaintyOptions,
 ): Result<Uncertainty, Diagnostic[]> {
-  const moments = secondMoments(scaled.low, scaled.high, weight);
+  const solved = options.solved;
+  const moments =
+    solved !== undefined && solved.sample === sample && solved.weight === weight && solved.scale === scaled.scale
+      ? momentsOf(solved.crossProducts, weight)
+      : secondMoments(scaled.low, scaled.high, weight);
   const w = weight;
   const marketVariance = w * w * moments.lowVariance + 2 * w * (1 - w) * moments.covariance + (1 - w) * (1 - w) * moments.highVariance;
   const constant = !(moments.lowVariance > 0) ? "low" : !(moments.highVariance > 0) ? "high" : !(marketVariance > 0) ? "market" : null;
@@ -257,7 +268,11 @@ function uncertaintyOf(
 
 /** Sample variances and covariance (divisor n - 1) from compensated one-pass sums (moments.ts). */
 function secondMoments(low: Float64Array, high: Float64Array, weight: number) {
-  const cp = welfordCrossProducts([low, high]);
+  return momentsOf(welfordCrossProducts([low, high]), weight);
+}
+
+/** The low and high series' variances and covariance from their centred sums (the first two of `cp`). */
+function momentsOf(cp: CrossProducts, weight: number) {
   const d = cp.n - 1;
   return { weight, lowVariance: cp.sums[0]![0]! / d, highVariance: cp.sums[1]![1]! / d, covariance: cp.sums[0]![1]! / d };
 }

@@ -20,7 +20,7 @@ import {
 } from "../../../src/core/inference/index.js";
 import { inverse } from "../../../src/core/numerics/linearAlgebra.js";
 import { drawSample } from "../../../src/core/forward/simulate.js";
-import { solve } from "../../../src/core/solve.js";
+import { solve, solveKeepingMoments } from "../../../src/core/solve.js";
 import { expectClose } from "../../support/close.js";
 import { codes, ok } from "../helpers.js";
 
@@ -195,5 +195,53 @@ describe("contract", () => {
     expect(refused({ confidence: 1 })).toEqual(["invalid-argument"]);
     expect(refused({ confidence: 0.4 })).toEqual(["invalid-argument"]);
     expect(refused({ intervalSource: "bootstrap" })).toEqual(["invalid-argument"]);
+  });
+});
+
+describe("assessUncertainty with the moments solve formed", () => {
+  // A risk-free series and returns in percent: solve and the uncertainty scale them by a power of two other than 1.
+  const inPercent = {
+    low: sample.low.map((x) => x * 100),
+    high: sample.high.map((x) => x * 100),
+    riskFree: sample.low.map((_, t) => 0.01 * (1 + (t % 3))),
+  };
+  const cases = [
+    ["decimal, one risk-free rate", input, w],
+    ["percent, a risk-free series", inPercent, w],
+    ["percent, weight 0.7", inPercent, 0.7],
+  ] as const;
+
+  test.each(cases)("gives what its own pass over the rows gives, bit for bit (%s)", (_, data, weight) => {
+    const solved = solveKeepingMoments(data, { weight });
+    if (!solved.ok) throw new Error("solve failed");
+    expect(solved.value.moments.scale).not.toBe(0);
+    const own = assessUncertainty(data, { weight });
+    expect(assessUncertainty(data, { weight, solved: solved.value.moments })).toStrictEqual(own);
+  });
+
+  test("ignores moments formed for another sample or another weight", () => {
+    const other = solveKeepingMoments({ ...input, low: input.low.map((x) => x * 1.5) }, { weight: w });
+    const otherWeight = solveKeepingMoments(input, { weight: 0.3 });
+    if (!other.ok || !otherWeight.ok) throw new Error("solve failed");
+    expect(assessUncertainty(input, { weight: w, solved: other.value.moments })).toStrictEqual(result);
+    expect(assessUncertainty(input, { weight: w, solved: otherWeight.value.moments })).toStrictEqual(result);
+  });
+
+  test("uses the moments it is given for its sample and weight (no pass of its own then)", () => {
+    const solved = solveKeepingMoments(input, { weight: w });
+    if (!solved.ok) throw new Error("solve failed");
+    const { moments } = solved.value;
+    const sums = moments.crossProducts.sums;
+    // The same sample and weight with the covariance moved: the bounds' delta method reads it.
+    const moved = {
+      ...moments,
+      crossProducts: {
+        ...moments.crossProducts,
+        sums: [[sums[0]![0]!, sums[0]![1]! * 0.9, sums[0]![2]!], [sums[1]![0]! * 0.9, sums[1]![1]!, sums[1]![2]!], sums[2]!],
+      },
+    };
+    const reused = assessUncertainty(input, { weight: w, solved: moved });
+    expect(reused.bounds?.lowBeta.min.stdError).toBeGreaterThan(0);
+    expect(reused.bounds?.lowBeta.min.stdError).not.toBe(result.bounds?.lowBeta.min.stdError);
   });
 });
