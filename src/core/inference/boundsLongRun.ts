@@ -104,7 +104,7 @@ type Three = readonly [number, number, number];
 
 /**
  * One bound's influence series from the centred rows and the gradient g, column by column, skipping
- * zero gradients, as influenceSeries adds them (a function of its own, so that V8 optimises the loop).
+ * zero gradients, as influenceSeries adds them (in chunks by a small function, numerics/seriesLoops.ts).
  */
 function fillInfluence(
   f: Float64Array,
@@ -116,7 +116,26 @@ function fillInfluence(
   [m0, m1, m2]: Three,
 ): Float64Array {
   const n = f.length;
-  for (let t = 0; t < n; t++) {
+  for (let from = 0; from < n; from += CHUNK) influenceChunk(f, x, y, mx, my, g0, g1, g2, m0, m1, m2, from, Math.min(n, from + CHUNK));
+  return f;
+}
+
+function influenceChunk(
+  f: Float64Array,
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  mx: number,
+  my: number,
+  g0: number,
+  g1: number,
+  g2: number,
+  m0: number,
+  m1: number,
+  m2: number,
+  from: number,
+  to: number,
+): void {
+  for (let t = from; t < to; t++) {
     const dx = x[t]! - mx;
     const dy = y[t]! - my;
     let v = 0;
@@ -125,7 +144,6 @@ function fillInfluence(
     if (g2 !== 0) v = v + g2 * (dx * dy - m2);
     f[t] = v;
   }
-  return f;
 }
 
 /** The means of x and y by plain sums, in order (the moment series' convention, kept bit for bit). */

@@ -20,6 +20,7 @@ import { longRunCovarianceInPlace, sampleCovarianceOf } from "../inference/hac/l
 import type { HacOptions, LongRunMethod } from "../inference/options.js";
 import { excessCrossProducts } from "../moments.js";
 import { normalQuantile } from "../numerics/normal.js";
+import { CHUNK } from "../numerics/seriesLoops.js";
 import { borrowSeries, giveBack, withScratch } from "../numerics/scratch.js";
 import type { SolvedMoments } from "../solve.js";
 import type { ReturnSample } from "../types.js";
@@ -212,15 +213,28 @@ interface InfluenceTerms {
 }
 
 /**
- * The six influence series of mu_x, lambda, d1, d2 and the two ends, row by row (a function of its
- * own with the terms in locals, so that V8 optimises the loop as a whole).
+ * The six influence series of mu_x, lambda, d1, d2 and the two ends, row by row, in chunks by a
+ * small function with the terms in locals, which V8 optimises as a whole (numerics/seriesLoops.ts).
  */
 function fillInfluenceSeries(
+  series: Six,
+  low: ArrayLike<number>,
+  high: ArrayLike<number>,
+  riskFree: number | ArrayLike<number>,
+  terms: InfluenceTerms,
+): void {
+  const n = low.length;
+  for (let from = 0; from < n; from += CHUNK) influenceChunk(series, low, high, riskFree, terms, from, Math.min(n, from + CHUNK));
+}
+
+function influenceChunk(
   [fa, fb, fd1, fd2, fe1, fe2]: Six,
   low: ArrayLike<number>,
   high: ArrayLike<number>,
   riskFree: number | ArrayLike<number>,
   terms: InfluenceTerms,
+  from: number,
+  to: number,
 ): void {
   const { scale, w, v, mx, my, vx, vy, c, lower, upper, lambda, beta, varM } = terms;
   // gl[0] and gu[1] are 0 (the lower bound does not move with V_low, nor the upper with V_high): unused, as before.
@@ -230,8 +244,7 @@ function fillInfluenceSeries(
   const gu2 = terms.gu[2]!;
   const rates = typeof riskFree === "number" ? null : riskFree;
   const rate = typeof riskFree === "number" ? riskFree : 0;
-  const n = low.length;
-  for (let t = 0; t < n; t++) {
+  for (let t = from; t < to; t++) {
     const r = rates === null ? rate : rates[t]!;
     const dx = (low[t]! - r) * scale - mx;
     const dy = (high[t]! - r) * scale - my;
