@@ -21,8 +21,6 @@
  *   prewhitened).
  */
 
-import { borrowSeries, giveBack } from "../../numerics/scratch.js";
-import { addScaledInto, scaledInto } from "../../numerics/seriesLoops.js";
 import type { HacKernel } from "../options.js";
 
 export function neweyWest1994Bandwidth(
@@ -35,19 +33,8 @@ export function neweyWest1994Bandwidth(
   const n = columns[0]!.length;
   const rate = kernel === "bartlett" ? 2 / 9 : 2 / 25;
   const preLag = Math.min(n - 1, Math.floor((prewhitened ? 3 : 4) * (originalRows / 100) ** rate));
-  // f = sum of w_a column_a over the weighted columns, from 0 (the first one written, not added to zeros).
-  const f = borrowSeries(n);
-  let started = false;
-  columns.forEach((column, a) => {
-    const w = columnWeights[a]!;
-    if (w === 0) return;
-    if (started) addScaledInto(f, w, column);
-    else scaledInto(f, w, column);
-    started = true;
-  });
-  if (!started) f.fill(0);
-  const sums = autocovarianceSums(f, preLag);
-  giveBack(f);
+  // f = sum of w_a column_a over the weighted columns, formed block by block as the sums go (never stored whole).
+  const sums = weightedAutocovarianceSums(columns, columnWeights, preLag);
   let s0 = 0;
   let s1 = 0;
   let s2 = 0;
@@ -61,6 +48,9 @@ export function neweyWest1994Bandwidth(
   return 1.3221 * ((s2 / s0) ** 2) ** (1 / 5) * originalRows ** (1 / 5);
 }
 
+/** Rows per block of the autocovariance passes: the block and its lags stay in the cache. */
+const BLOCK_ROWS = 2048;
+
 /**
  * sum_{t} f_t f_{t+j} for j = 0..lags in one pass over f in blocks that stay in the cache (each sum
  * adds its products in the order of t, as a pass per lag would, block by block).
@@ -68,45 +58,78 @@ export function neweyWest1994Bandwidth(
 export function autocovarianceSums(f: Float64Array, lags: number): Float64Array {
   const n = f.length;
   const sums = new Float64Array(lags + 1);
-  const blockRows = 2048;
   // A block by a small function V8 optimises whole (its running sums would be boxed in one long loop).
-  for (let start = 0; start < n; start += blockRows) autocovarianceBlock(f, lags, start, blockRows, sums);
+  for (let start = 0; start < n; start += BLOCK_ROWS) autocovarianceBlock(f, 0, n, lags, start, sums);
   return sums;
 }
 
-/** The products of rows [start, start + blockRows) added to sums[j], j = 0..lags. */
-function autocovarianceBlock(f: Float64Array, lags: number, start: number, blockRows: number, sums: Float64Array): void {
-  const n = f.length;
-  const end = Math.min(n, start + blockRows);
+/**
+ * autocovarianceSums of f = sum_a w_a column_a (the columns with w_a = 0 left out, the first one
+ * written as 0 + w_a column_a and the others added in order, as scaledInto and addScaledInto would; all
+ * zeros if every weight is 0) without storing f: each block's rows and the `lags` after them are formed
+ * in a small buffer, so the same numbers meet in the same order and the sums are the same bits.
+ */
+export function weightedAutocovarianceSums(columns: readonly Float64Array[], columnWeights: readonly number[], lags: number): Float64Array {
+  const n = columns[0]!.length;
+  const sums = new Float64Array(lags + 1);
+  const buffer = new Float64Array(Math.min(n, BLOCK_ROWS + lags));
+  for (let start = 0; start < n; start += BLOCK_ROWS) {
+    const stop = Math.min(n, start + BLOCK_ROWS + lags);
+    let started = false;
+    columns.forEach((column, a) => {
+      const w = columnWeights[a]!;
+      if (w === 0) return;
+      weightedRows(buffer, w, column, start, stop, started);
+      started = true;
+    });
+    if (!started) buffer.fill(0);
+    autocovarianceBlock(buffer, start, n, lags, start, sums);
+  }
+  return sums;
+}
+
+/** buffer[t - start] = 0 + w column[t] (first) or buffer[t - start] + w column[t], rows [start, stop). */
+function weightedRows(buffer: Float64Array, w: number, column: Float64Array, start: number, stop: number, add: boolean): void {
+  if (add) for (let t = start; t < stop; t++) buffer[t - start] = buffer[t - start]! + w * column[t]!;
+  else for (let t = start; t < stop; t++) buffer[t - start] = 0 + w * column[t]!;
+}
+
+/**
+ * The products of rows [start, start + BLOCK_ROWS) of a series of n rows added to sums[j], j = 0..lags;
+ * `f` holds the series from row `base` on (f[u] is row base + u).
+ */
+function autocovarianceBlock(f: Float64Array, base: number, n: number, lags: number, start: number, sums: Float64Array): void {
+  const end = Math.min(n, start + BLOCK_ROWS) - base;
+  const rows = n - base;
   let j = 0;
   // Four lags at a time over the rows all four reach (each f_t read once for them), then the rest.
   for (; j + 3 <= lags; j += 4) {
-    const last = Math.min(end, n - j - 3);
+    const last = Math.min(end, rows - j - 3);
     let s0 = 0;
     let s1 = 0;
     let s2 = 0;
     let s3 = 0;
-    let t = start;
-    for (; t < last; t++) {
-      const x = f[t]!;
-      s0 += x * f[t + j]!;
-      s1 += x * f[t + j + 1]!;
-      s2 += x * f[t + j + 2]!;
-      s3 += x * f[t + j + 3]!;
+    let u = start - base;
+    for (; u < last; u++) {
+      const x = f[u]!;
+      s0 += x * f[u + j]!;
+      s1 += x * f[u + j + 1]!;
+      s2 += x * f[u + j + 2]!;
+      s3 += x * f[u + j + 3]!;
     }
     // Rows near the end that only the shorter lags reach.
-    for (let r = t; r < Math.min(end, n - j); r++) s0 += f[r]! * f[r + j]!;
-    for (let r = t; r < Math.min(end, n - j - 1); r++) s1 += f[r]! * f[r + j + 1]!;
-    for (let r = t; r < Math.min(end, n - j - 2); r++) s2 += f[r]! * f[r + j + 2]!;
+    for (let r = u; r < Math.min(end, rows - j); r++) s0 += f[r]! * f[r + j]!;
+    for (let r = u; r < Math.min(end, rows - j - 1); r++) s1 += f[r]! * f[r + j + 1]!;
+    for (let r = u; r < Math.min(end, rows - j - 2); r++) s2 += f[r]! * f[r + j + 2]!;
     sums[j] = sums[j]! + s0;
     sums[j + 1] = sums[j + 1]! + s1;
     sums[j + 2] = sums[j + 2]! + s2;
     sums[j + 3] = sums[j + 3]! + s3;
   }
   for (; j <= lags; j++) {
-    const last = Math.min(end, n - j);
+    const last = Math.min(end, rows - j);
     let sum = 0;
-    for (let t = start; t < last; t++) sum += f[t]! * f[t + j]!;
+    for (let u = start - base; u < last; u++) sum += f[u]! * f[u + j]!;
     sums[j] = sums[j]! + sum;
   }
 }

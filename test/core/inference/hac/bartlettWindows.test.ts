@@ -5,11 +5,12 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { autocovarianceSums } from "../../../../src/core/inference/hac/bandwidth.js";
+import { autocovarianceSums, weightedAutocovarianceSums } from "../../../../src/core/inference/hac/bandwidth.js";
 import { bartlettKernelSum } from "../../../../src/core/inference/hac/bartlettWindows.js";
 import { weightedAutocovarianceSum } from "../../../../src/core/inference/hac/kernelSum.js";
 import { lagWeights } from "../../../../src/core/inference/hac/kernels.js";
 import { createRandom } from "../../../../src/core/numerics/rng.js";
+import { addScaledInto, scaledInto } from "../../../../src/core/numerics/seriesLoops.js";
 
 /** The definition, O(n^2): every pair of rows with its Bartlett weight. */
 function pairSum(columns: readonly Float64Array[], bandwidth: number): number[][] {
@@ -127,6 +128,38 @@ describe("the Newey-West pre-lag autocovariances in one blocked pass", () => {
         }
       }),
       { numRuns: 200, seed: 20261203 },
+    );
+  });
+});
+
+describe("the Newey-West pre-lag autocovariances of a weighted sum of columns, never stored whole", () => {
+  it("are the bits of autocovarianceSums on the sum formed first (0 + w_a column_a, then added in order)", () => {
+    const weightSets = [[1], [0, 1], [1, 1], [0.5, -2, 0], [0, 0], [1, 0, 3]];
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 1, max: 7000 }),
+        fc.integer({ min: 0, max: 60 }),
+        fc.integer({ min: 0, max: weightSets.length - 1 }),
+        fc.integer({ min: 1, max: 1e6 }),
+        (n, lags, which, seed) => {
+          const weights = weightSets[which]!;
+          const columns = series(n, weights.length, seed);
+          const f = new Float64Array(n);
+          let started = false;
+          columns.forEach((column, a) => {
+            if (weights[a] === 0) return;
+            if (started) addScaledInto(f, weights[a]!, column);
+            else scaledInto(f, weights[a]!, column);
+            started = true;
+          });
+          const lagCount = Math.min(lags, n - 1);
+          const expected = autocovarianceSums(f, lagCount);
+          const sums = weightedAutocovarianceSums(columns, weights, lagCount);
+          expect(sums.length).toBe(expected.length);
+          sums.forEach((value, j) => expect(Object.is(value, expected[j]), `lag ${j}: ${value} vs ${expected[j]}`).toBe(true));
+        },
+      ),
+      { numRuns: 150, seed: 20261204 },
     );
   });
 });
