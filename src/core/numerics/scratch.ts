@@ -11,14 +11,24 @@
  * more. Short series (below SCRATCH_MIN) are plain allocations: they cost little either way.
  */
 
+import { freshFloat64, freshMemoryReadiesAhead } from "./freshMemory.js";
+
 /** Series shorter than this are allocated, not pooled. */
 export const SCRATCH_MIN = 1024;
 /** Most arrays the pool holds at once (the rest are left to the collector). */
 const MAX_HELD = 24;
+/**
+ * With fresh memory readied ahead (freshMemory.ts): series from this length (2 MiB) on are borrowed
+ * SERIES_AHEAD at a time more, once per pool: the default uncertainty of one pair borrows six of them.
+ */
+const AHEAD_MIN = 1 << 18;
+const SERIES_AHEAD = 5;
 
 interface Pool {
   length: number;
   readonly free: Float64Array[];
+  /** Series were borrowed ahead already. */
+  ahead: boolean;
 }
 
 let active: Pool | null = null;
@@ -26,7 +36,7 @@ let active: Pool | null = null;
 /** Runs `work` with a scratch pool (the one already open, if any). */
 export function withScratch<T>(work: () => T): T {
   if (active !== null) return work();
-  active = { length: -1, free: [] };
+  active = { length: -1, free: [], ahead: false };
   try {
     return work();
   } finally {
@@ -37,7 +47,7 @@ export function withScratch<T>(work: () => T): T {
 /** `withScratch` for asynchronous work: the pool stays open until `work` settles. */
 export async function withScratchAsync<T>(work: () => Promise<T>): Promise<T> {
   if (active !== null) return work();
-  const pool: Pool = { length: -1, free: [] };
+  const pool: Pool = { length: -1, free: [], ahead: false };
   active = pool;
   try {
     return await work();
@@ -49,8 +59,19 @@ export async function withScratchAsync<T>(work: () => Promise<T>): Promise<T> {
 /** A Float64Array of length n with arbitrary contents: the caller writes every element before reading it. */
 export function borrowSeries(n: number): Float64Array {
   const pool = active;
-  if (pool === null || n < SCRATCH_MIN || pool.length !== n) return new Float64Array(n);
-  return pool.free.pop() ?? new Float64Array(n);
+  if (n < SCRATCH_MIN) return new Float64Array(n);
+  if (pool === null) return freshFloat64(n);
+  if (pool.length === n) {
+    const free = pool.free.pop();
+    if (free !== undefined) return free;
+  } else if (n >= AHEAD_MIN && !pool.ahead && freshMemoryReadiesAhead()) {
+    // The pool's first long series: a few more, their memory readied on another thread while the passes run.
+    pool.ahead = true;
+    pool.length = n;
+    pool.free.length = 0;
+    for (let i = 0; i < SERIES_AHEAD; i++) pool.free.push(freshFloat64(n));
+  }
+  return freshFloat64(n);
 }
 
 /** Gives arrays back to the pool; the caller must hold no other reference to them. */

@@ -9,6 +9,7 @@
  * notTextIssue) is read whole instead (`wholeBytes`), so that every answer is the one reading its
  * bytes whole gives. Pure: the file is read through `PagedBytes`, which the CLI implements.
  */
+import { freshInt32, freshUint8 } from "../../core/numerics/freshMemory.js";
 import { notTextIssue } from "../decodeText.js";
 import { asBuffer, asciiText, isAsciiWhiteSpace, isPlain, type PlainLines } from "./plainLines.js";
 import { kernelWindow, largeInputBuffer, type LineEnds, type RowKernel } from "./rowKernel.js";
@@ -161,7 +162,7 @@ export function scanPages(window: ByteWindow): PagedLines | null {
       // Room for the rows, as dense as in the first piece, and a tenth more.
       const guess = Math.ceil(((found.count * size) / length) * 1.1) + 2;
       found = { ends: grownInts(found.ends.subarray(0, found.count), guess), count: found.count };
-      firstBytes = new Uint8Array(guess);
+      firstBytes = freshUint8(guess);
     }
     if (firstBytes.length < found.count) firstBytes = grown(firstBytes, found.count);
     const { ends, count } = found;
@@ -192,13 +193,13 @@ function appendEnds(window: ByteWindow, piece: Uint8Array, at: number, from: num
 }
 
 function grownInts(values: Int32Array, least: number): Int32Array {
-  const bigger = new Int32Array(Math.max(least, 2 * values.length));
+  const bigger = freshInt32(Math.max(least, 2 * values.length));
   bigger.set(values);
   return bigger;
 }
 
 function grown(values: Uint8Array, least: number): Uint8Array {
-  const bigger = new Uint8Array(Math.max(least, 2 * values.length));
+  const bigger = freshUint8(Math.max(least, 2 * values.length));
   bigger.set(values);
   return bigger;
 }

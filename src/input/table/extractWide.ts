@@ -9,6 +9,7 @@ import type { TableLocation } from "./layout.js";
 import type { Sentinels } from "../values/numbers.js";
 import type { ReadOptions } from "../options.js";
 import { countingFrom } from "./arrays.js";
+import { freshFloat64, freshInt32 } from "../../core/numerics/freshMemory.js";
 import { checkFieldCounts } from "./rowShape.js";
 import { PLAIN_DATE_FORM } from "../values/dateStamps.js";
 
@@ -52,16 +53,17 @@ export function extractWide(
   // Rows first .. first + count - 1 (a read-only view, see countingFrom).
   const rows = countingFrom(first, count);
   const columns = valueIndexes.map((index) => header[index] as string);
-  const values = columns.map(() => new Float64Array(count));
+  // Fresh memory from the runtime's source (core/numerics/freshMemory.ts): it may be readied on another thread.
+  const values = columns.map(() => freshFloat64(count));
   const slots = new Int32Array(header.length).fill(-1);
   valueIndexes.forEach((fieldIndex, slot) => (slots[fieldIndex] = slot));
-  const counts = new Int32Array(count);
+  const counts = freshInt32(count);
   let plainKeys: Float64Array | null = null;
   let plainForm = PLAIN_DATE_FORM;
   let withNaN: readonly boolean[] = values.map(() => true);
   if (grid.readRows === undefined) for (let i = 0; i < count; i++) counts[i] = grid.readNumbers(first + i, slots, values, i);
   else {
-    plainKeys = new Float64Array(count);
+    plainKeys = freshFloat64(count);
     const read = grid.readRows(first, count, slots, values, counts, dateIndex as number, plainKeys);
     if (!read.plainDates) plainKeys = null;
     plainForm = read.dateForm;
