@@ -71,8 +71,8 @@ await build({
   logLevel: "warning",
 });
 
-// The worker threads of the bootstrap and of roll's CSV, loaded by dist/cli.cjs from its own folder.
-for (const name of ["bootstrapWorker", "rollCsvWorker"])
+// The worker threads of the bootstrap, of roll's CSV and of readying fresh memory, loaded by dist/cli.cjs from its own folder.
+for (const name of ["bootstrapWorker", "rollCsvWorker", "pretouchWorker"])
   await build({
     entryPoints: [`src/cli/runtime/${name}.ts`],
     outfile: `dist/${name}.js`,

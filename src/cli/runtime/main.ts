@@ -12,6 +12,8 @@ import { exitCodes, type ExitCode } from "./exitCodes.js";
 import { identify, readInputBytes, readInputSource } from "./files.js";
 import type { CliIo } from "./io.js";
 import { openOutput, removeTemporaries } from "./output.js";
+import { prefaultFacts, pretouchingMemory, wantsPrefault } from "./pretouch.js";
+import { useFreshMemory } from "../../core/numerics/freshMemory.js";
 
 export { run };
 
@@ -69,6 +71,10 @@ export async function main(argv: readonly string[], launch: Launch): Promise<voi
     process.stderr.write(`error: ${describeCliIssue({ code: "stdout-failed", reason: fileErrorReason(error) })}\n`);
     stop(exitCodes.output);
   });
+  // Long arrays readied on a worker thread (pretouch.ts); nothing starts until a run needs one.
+  const prefault = wantsPrefault(process.env, prefaultFacts());
+  if (prefault.warning !== null) process.stderr.write(prefault.warning);
+  if (prefault.use) useFreshMemory(pretouchingMemory());
   let code: ExitCode;
   try {
     code = await run(argv, processIo(launch));
