@@ -57,6 +57,16 @@ describe("a regular file", () => {
     expect(fs.readFileSync(path, "utf8")).toBe("a,b\n1,2\n3,4\n");
   });
 
+  it("writes a long text as its UTF-8 bytes (Buffer.from's), however its characters fall across the pieces it is encoded in", async () => {
+    const { path } = folderWith(null);
+    // Pieces of 1 MiB: two-, three- and four-byte characters (a surrogate pair) and a lone surrogate
+    // (written as U+FFFD, as Buffer.from does) at every offset around the pieces' ends.
+    const unit = "a\u00e9\u20ac\ud83d\ude00\ud800z";
+    const text = `${"x".repeat((1 << 20) - 5)}${unit.repeat(400_000)}`;
+    expect((await writeAll(path, [text, "end\n"])).ok).toBe(true);
+    expect(fs.readFileSync(path).equals(Buffer.concat([Buffer.from(text), Buffer.from("end\n")]))).toBe(true);
+  });
+
   it("is untouched until commit: the output goes to a temporary file beside it", async () => {
     const { dir, path } = folderWith("previous\n");
     const opened = openOutput(path, noStdout);

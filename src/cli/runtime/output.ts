@@ -142,6 +142,35 @@ function writeAll(ops: FileOps, fd: number, bytes: Uint8Array): void {
   while (offset < bytes.length) offset += ops.writeSync(fd, bytes, offset, bytes.length - offset);
 }
 
+/** Text from this length on is written through one reused buffer, piece by piece (see writeText). */
+const longText = 1 << 16;
+let textBuffer: Uint8Array | null = null;
+const encoder = new TextEncoder();
+
+/**
+ * Writes the UTF-8 bytes of `text`: a long text a piece at a time through one reused buffer of 1 MiB,
+ * so that a report of megabytes is never encoded whole into fresh memory (its pages cost a fault each).
+ * Returns the bytes written.
+ */
+function writeText(ops: FileOps, fd: number, text: string): number {
+  if (text.length < longText) {
+    const bytes = Buffer.from(text);
+    writeAll(ops, fd, bytes);
+    return bytes.length;
+  }
+  textBuffer ??= new Uint8Array(1 << 20);
+  let rest = text;
+  let total = 0;
+  while (rest.length > 0) {
+    // encodeInto stops before a character that does not fit whole, so pieces never split one.
+    const { read, written } = encoder.encodeInto(rest, textBuffer);
+    writeAll(ops, fd, textBuffer.subarray(0, written));
+    total += written;
+    rest = rest.slice(read);
+  }
+  return total;
+}
+
 /** Writes that yield to the event loop now and then (signals), and remember the first failure. */
 function checkedWriter(ops: FileOps, fd: number) {
   let failed: unknown = null;
@@ -152,14 +181,18 @@ function checkedWriter(ops: FileOps, fd: number) {
     },
     async write(text: string | Uint8Array): Promise<void> {
       if (failed !== null) return;
-      const bytes = typeof text === "string" ? Buffer.from(text) : text;
+      let length: number;
       try {
-        writeAll(ops, fd, bytes);
+        if (typeof text === "string") length = writeText(ops, fd, text);
+        else {
+          writeAll(ops, fd, text);
+          length = text.length;
+        }
       } catch (error) {
         failed = error;
         return;
       }
-      sinceYield += bytes.length;
+      sinceYield += length;
       if (sinceYield >= yieldEvery) {
         sinceYield = 0;
         await new Promise<void>((done) => setImmediate(done));
