@@ -1,10 +1,12 @@
 /**
  * Readying fresh memory on a worker thread (src/cli/runtime/pretouch.ts, pretouchWorker.ts): when it
- * is used, and the worker's turns, which touch every page of every buffer without changing a value
- * another thread wrote (the worker itself runs in the end-to-end test, from the built files).
+ * is used, the arrays it hands out to a worker (a fake one here), and the worker's
+ * turns, which touch every page of every buffer without changing a value another thread wrote (the
+ * worker itself runs in the end-to-end test, from the built files).
  */
 import { describe, expect, it } from "vitest";
-import { wantsPrefault } from "../../src/cli/runtime/pretouch.js";
+import { EventEmitter } from "node:events";
+import { collectEvery, type PretouchWorker, pretouchingMemory, pretouchFrom, wantsPrefault } from "../../src/cli/runtime/pretouch.js";
 import { type Pending, pendingOf, touchTurn } from "../../src/cli/runtime/pretouchWorker.js";
 
 describe("whether fresh memory is readied on a worker", () => {
@@ -72,5 +74,74 @@ describe("the worker's turns", () => {
     bytes.fill(9);
     drain([pendingOf(buffer)]);
     expect(bytes.every((b) => b === 9)).toBe(true);
+  });
+});
+
+/** A worker that records what it is sent. */
+class FakeWorker extends EventEmitter {
+  readonly posted: SharedArrayBuffer[] = [];
+  unreffed = false;
+  postMessage(buffer: SharedArrayBuffer): void {
+    this.posted.push(buffer);
+  }
+  unref(): void {
+    this.unreffed = true;
+  }
+}
+
+describe("the arrays readied on a worker", () => {
+  const setUp = () => {
+    const workers: FakeWorker[] = [];
+    const collected: number[] = [];
+    const memory = pretouchingMemory(
+      () => {
+        const worker = new FakeWorker();
+        workers.push(worker);
+        return worker as unknown as PretouchWorker;
+      },
+      () => collected.push(workers[0]?.posted.length ?? 0),
+    );
+    return { workers, memory, collected };
+  };
+  const long = pretouchFrom / 8;
+
+  it("are plain below 1 MiB and shared from it on, zero-filled, of the asked length; the worker is started by the first", () => {
+    const { workers, memory } = setUp();
+    expect(memory.float64(long - 1).buffer).toBeInstanceOf(ArrayBuffer);
+    expect(workers).toHaveLength(0);
+    const a = memory.float64(long);
+    const b = memory.int32(pretouchFrom / 4 + 1);
+    const c = memory.uint8(pretouchFrom + 3);
+    expect([a.length, b.length, c.length]).toEqual([long, pretouchFrom / 4 + 1, pretouchFrom + 3]);
+    expect(a.buffer).toBeInstanceOf(SharedArrayBuffer);
+    expect(c.buffer.byteLength % 4).toBe(0);
+    expect(a.every((x) => x === 0) && b.every((x) => x === 0) && c.every((x) => x === 0)).toBe(true);
+    expect(workers).toHaveLength(1);
+    expect(workers[0]!.unreffed).toBe(true);
+    expect(workers[0]!.posted).toEqual([a.buffer, b.buffer, c.buffer]);
+  });
+
+  it("runs a full collection before handing out more than 128 MiB since the last (shared memory is not counted by V8)", () => {
+    const { workers, memory, collected } = setUp();
+    const quarter = collectEvery / 4 / 8;
+    for (let k = 0; k < 4; k++) memory.float64(quarter);
+    expect(collected).toEqual([]);
+    memory.float64(quarter);
+    // Before the fifth quarter: four had been sent.
+    expect(collected).toEqual([4]);
+    for (let k = 0; k < 3; k++) memory.float64(quarter);
+    memory.float64(long - 1); // plain: not counted
+    expect(collected).toEqual([4]);
+    memory.float64(quarter);
+    expect(collected).toEqual([4, 8]);
+    expect(workers[0]!.posted).toHaveLength(9);
+  });
+
+  it("hands out plain arrays for good once the worker fails", () => {
+    const { workers, memory } = setUp();
+    memory.float64(long);
+    workers[0]!.emit("error", new Error("gone"));
+    expect(memory.float64(long).buffer).toBeInstanceOf(ArrayBuffer);
+    expect(workers).toHaveLength(1);
   });
 });

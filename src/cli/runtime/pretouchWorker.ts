@@ -3,8 +3,11 @@
  * is sent, it writes every 4 KiB page once, so that the page faults of first touch are taken here
  * instead of on the thread that fills the arrays. A write is an atomic add of 0: it never changes an
  * element, whatever the other thread wrote there first. The buffers are taken a step each in turn,
- * from their start, as the arrays are filled; buffers sent meanwhile join at the next turn.
+ * from their start, as the arrays are filled; buffers sent meanwhile join at the next turn. When none
+ * is left it collects its heap, letting go of them.
  */
+import { setFlagsFromString } from "node:v8";
+import { runInNewContext } from "node:vm";
 import { parentPort, receiveMessageOnPort } from "node:worker_threads";
 
 /** A buffer being readied: its words and the next word to touch. */
@@ -36,6 +39,11 @@ export function touchTurn(pending: Pending[]): void {
 
 const port = parentPort;
 if (port !== null) {
+  // This thread's handle on a buffer holds its memory until this thread's heap is collected, which an
+  // idle thread never does by itself: it collects once every buffer it was sent is ready, so that the
+  // arrays the run drops are freed (else a run over several files would hold all of their columns).
+  setFlagsFromString("--expose-gc");
+  const collect = runInNewContext("gc") as () => void;
   const pending: Pending[] = [];
   port.on("message", (buffer: SharedArrayBuffer) => {
     pending.push(pendingOf(buffer));
@@ -44,5 +52,9 @@ if (port !== null) {
       for (let m = receiveMessageOnPort(port); m !== undefined; m = receiveMessageOnPort(port)) pending.push(pendingOf(m.message));
       touchTurn(pending);
     }
+    // After this handler has returned (its argument is the last handle), unless more have come by then.
+    setImmediate(() => {
+      if (pending.length === 0) collect();
+    });
   });
 }
