@@ -78,7 +78,7 @@ describe("the code cache", () => {
 });
 
 describe("the published package", () => {
-  it("holds the executable, its bundle, the code cache and the worker (npm pack)", () => {
+  it("holds the executable, its bundle, the code cache and the workers (npm pack)", () => {
     const npm = process.platform === "win32" ? "npm.cmd" : "npm";
     const packed = JSON.parse(execFileSync(npm, ["pack", "--dry-run", "--json", "--ignore-scripts"], { cwd: root, encoding: "utf8" })) as {
       files: { path: string }[];
@@ -90,6 +90,8 @@ describe("the published package", () => {
       "dist/cli-bundle.cjs",
       "dist/cli-bundle.cache",
       "dist/bootstrapWorker.js",
+      "dist/rollCsvWorker.js",
+      "dist/pretouchWorker.js",
       "dist/index.js",
     ]) {
       expect(files.has(path ?? ""), path).toBe(true);

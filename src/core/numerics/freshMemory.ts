@@ -1,7 +1,7 @@
 /**
  * Long typed arrays in fresh memory: the columns a reader fills and the scratch series of the passes
  * (scratch.ts). Fresh memory is costly on first touch (every 4 KiB page a fault: about 2.7 ms a MB on
- * the benchmark machine, a quarter of a 1M-row run), and a runtime with a core to spare can take those
+ * the benchmark machine, a tenth of a 1M-row run), and a runtime with a core to spare can take those
  * faults on another thread ahead of the writes (cli/runtime/pretouch.ts). This module is where such a
  * runtime plugs in; without one (the library, the tests) every array is a plain allocation.
  *

@@ -214,7 +214,8 @@ describe("assessUncertainty with the moments solve formed", () => {
   test.each(cases)("gives what its own pass over the rows gives, bit for bit (%s)", (_, data, weight) => {
     const solved = solveKeepingMoments(data, { weight });
     if (!solved.ok) throw new Error("solve failed");
-    expect(solved.value.moments.scale).not.toBe(0);
+    // A power of two other than 1 where the returns are in percent: the reuse must keep the scale's bits.
+    if (data === inPercent) expect(solved.value.moments.scale).not.toBe(1);
     const own = assessUncertainty(data, { weight });
     expect(assessUncertainty(data, { weight, solved: solved.value.moments })).toStrictEqual(own);
   });
