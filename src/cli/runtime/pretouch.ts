@@ -9,7 +9,8 @@
  * BETABOUND_PREFAULT=off turns it off; auto (the default) uses it with two cores or more; on uses it
  * whenever a worker can start. Measured on 2 cores (interleaved medians, 2026-12-04): 1M rows 0.53 to
  * 0.47 s without the uncertainty and 0.96 to 0.85 s with it; 10M minute rows with huge pages
- * (hugePages.ts) 5.47 to 4.80 s with the uncertainty (its scratch series) and unchanged without.
+ * (hugePages.ts) 5.47 to 4.80 s with the uncertainty (its scratch series), and without it 1.83 to 1.63 s
+ * in one set of rounds and unchanged in another.
  */
 import { existsSync } from "node:fs";
 import { createRequire } from "node:module";
