@@ -46,7 +46,7 @@ afterAll(() => fs.rmSync(dir, { recursive: true, force: true }));
 function run(args: readonly string[], setting: "on" | "off") {
   const result = spawnSync(process.execPath, [cli, ...args], {
     encoding: "utf8",
-    env: { ...process.env, NO_COLOR: "1", BETABOUND_HUGE_PAGES: "off", BETABOUND_PREFAULT: setting, NODE_OPTIONS: `--require ${hook}` },
+    env: { ...process.env, NO_COLOR: "1", BETABOUND_HUGE_PAGES: "off", BETABOUND_PREFAULT: setting, NODE_OPTIONS: `--require "${hook}"` },
     maxBuffer: 1 << 28,
   });
   const workers = result.stderr.split("\n").filter((line) => line.startsWith("worker "));

@@ -13,6 +13,7 @@
 import { fstatSync, readFileSync, statSync } from "node:fs";
 import { createRequire } from "node:module";
 import { constants } from "node:os";
+import { isSwitchSetting, readSwitch } from "./switchSetting.js";
 
 /**
  * Inputs from this many bytes on are read in a child with huge pages. Measured on 2 cores (interleaved
@@ -38,19 +39,9 @@ export interface HugePageFacts {
   readonly execArgv: readonly string[];
 }
 
-/** The values BETABOUND_HUGE_PAGES takes (unset: auto). */
-export const hugePageSettings = ["auto", "on", "off"] as const;
-
-function knownSetting(value: string): boolean {
-  return (hugePageSettings as readonly string[]).includes(value);
-}
-
 /** Whether to run the command line again with huge pages, and why not when a setting is wrong. */
 export function wantsHugePages(env: NodeJS.ProcessEnv, facts: HugePageFacts): { relaunch: boolean; warning: string | null } {
-  const setting = env.BETABOUND_HUGE_PAGES ?? "auto";
-  const warning = knownSetting(setting)
-    ? null
-    : `warning: BETABOUND_HUGE_PAGES is "${setting}", not one of ${hugePageSettings.join(", ")}; using auto\n`;
+  const { setting, warning } = readSwitch(env, "BETABOUND_HUGE_PAGES");
   // Set already: this is the child (or the user chose glibc's tunables).
   if (setting === "off" || (env.GLIBC_TUNABLES ?? "").includes("glibc.malloc.hugetlb")) return { relaunch: false, warning };
   if (facts.platform !== "linux") return { relaunch: false, warning };
@@ -79,7 +70,7 @@ export function withHugePages(env: NodeJS.ProcessEnv): NodeJS.ProcessEnv {
   return {
     ...env,
     GLIBC_TUNABLES: tunables === undefined || tunables === "" ? tunable : `${tunables}:${tunable}`,
-    ...(setting === undefined || knownSetting(setting) ? {} : { BETABOUND_HUGE_PAGES: "auto" }),
+    ...(setting === undefined || isSwitchSetting(setting) ? {} : { BETABOUND_HUGE_PAGES: "auto" }),
   };
 }
 

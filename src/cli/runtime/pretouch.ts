@@ -16,10 +16,10 @@ import { existsSync } from "node:fs";
 import { createRequire } from "node:module";
 import { availableParallelism } from "node:os";
 import { fileURLToPath } from "node:url";
-import { setFlagsFromString } from "node:v8";
 import { runInNewContext } from "node:vm";
 import type { Worker } from "node:worker_threads";
 import type { FreshMemory } from "../../core/numerics/freshMemory.js";
+import { readSwitch } from "./switchSetting.js";
 
 /** The worker script next to the bundled CLI; absent when running from source (tests): no worker. */
 const workerUrl = new URL("./pretouchWorker.js", import.meta.url);
@@ -30,9 +30,6 @@ const workerUrl = new URL("./pretouchWorker.js", import.meta.url);
  */
 export const pretouchFrom = 1 << 20;
 
-/** The values BETABOUND_PREFAULT takes (unset: auto). */
-export const prefaultSettings = ["auto", "on", "off"] as const;
-
 /** What the decision depends on besides the environment. */
 export interface PrefaultFacts {
   readonly cores: number;
@@ -41,9 +38,7 @@ export interface PrefaultFacts {
 
 /** Whether to ready fresh memory on a worker, and the warning for a setting it does not know. */
 export function wantsPrefault(env: NodeJS.ProcessEnv, facts: PrefaultFacts): { use: boolean; warning: string | null } {
-  const setting = env.BETABOUND_PREFAULT ?? "auto";
-  const known = (prefaultSettings as readonly string[]).includes(setting);
-  const warning = known ? null : `warning: BETABOUND_PREFAULT is "${setting}", not one of ${prefaultSettings.join(", ")}; using auto\n`;
+  const { setting, warning } = readSwitch(env, "BETABOUND_PREFAULT");
   if (setting === "off" || !facts.workerScript) return { use: false, warning };
   return { use: setting === "on" || facts.cores >= 2, warning };
 }
@@ -74,6 +69,8 @@ let collector: (() => void) | null = null;
 /** A full collection of this isolate (V8's expose-gc, set when first needed, for contexts made from then on). */
 function fullCollection(): void {
   if (collector === null) {
+    // Loaded here: most runs never collect (node:v8 is not loaded at start-up).
+    const { setFlagsFromString } = createRequire(import.meta.url)("node:v8") as typeof import("node:v8");
     setFlagsFromString("--expose-gc");
     collector = runInNewContext("gc") as () => void;
   }
