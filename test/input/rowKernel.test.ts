@@ -65,6 +65,79 @@ describe("the row kernel", () => {
     expect(Number.isNaN(read.values(0)[5])).toBe(true);
   });
 
+  it("reads numbers of every length as Number reads them: the digits as a 64-bit integer, long ones left to the caller", () => {
+    // Integer and fraction parts of 0 to 24 digits, leading zeros included: around 2^53, 19 digits
+    // (the most a 64-bit integer holds) and 22 fraction digits, where the kernel's fast path ends.
+    const digits = (most: number) => fc.stringMatching(new RegExp(`^[0-9]{0,${most}}$`));
+    const zeros = fc.nat(22).map((n) => "0".repeat(n));
+    const fraction = fc.option(
+      fc.tuple(zeros, digits(24)).map(([z, d]) => `${z}${d}`),
+      { nil: undefined },
+    );
+    const drawn = fc
+      .tuple(fc.constantFrom("", "-", "+"), digits(24), fraction)
+      .filter(([, whole, fraction]) => whole.length + (fraction?.length ?? 0) > 0)
+      .map(([sign, whole, fraction]) => `${sign}${whole}${fraction === undefined ? "" : `.${fraction}`}`);
+    // 2^64 + 1 and 2^65 + 1: digits whose 64-bit integer wraps round to 1
+    const wrapping = fc.constantFrom("18446744073709551617", "0.18446744073709551617", "-3689348814741910323.3");
+    const number = fc.oneof({ arbitrary: drawn, weight: 9 }, { arbitrary: wrapping, weight: 1 });
+    fc.assert(
+      fc.property(fc.array(number, { minLength: 1, maxLength: 40 }), (numbers) => {
+        const rows = [
+          "Date,A",
+          ...numbers.map((text, r) => `${new Date(Date.UTC(2001, 0, 1 + r)).toISOString().slice(0, 10)},${text}`),
+          "",
+        ];
+        const bytes = ascii(rows.join("\n"));
+        const lines = plainLines(bytes);
+        const found = rowKernelFor(bytes);
+        if (lines === null || found === null) throw new Error("setup");
+        const read = found.kernel.scan(found.base, lines.starts, 1, numbers.length + 1, Int32Array.of(-1, 0), 1, ",".charCodeAt(0), 0);
+        numbers.forEach((text, k) => {
+          const [whole = "", fraction = ""] = text.replace(/^[+-]/, "").split(".");
+          const count = whole.length + fraction.length;
+          const mantissa = BigInt(`${whole}${fraction}` || "0");
+          const flag = read.flags[k];
+          if (count > 19 || mantissa >= 2n ** 53n || fraction.length > 22) {
+            expect(flag).toBe(2); // left to the caller, which parses the span
+            expect(Number.isNaN(read.values(0)[k])).toBe(true);
+          } else {
+            expect(flag).toBe(0);
+            // Number (ECMAScript's correctly rounded reading) is the reference
+            expect(Object.is(read.values(0)[k], Number(text))).toBe(true);
+          }
+        });
+        // and the whole read, long numbers settled by the caller, is the text engine's bit for bit
+        const options: ReadOptions = { source: "numbers.csv", columns: ["A"], dateColumn: "Date" };
+        expectSame(readReturnsFromBytes(inKernel(bytes), options), throughText(bytes, options));
+      }),
+      { seed: 20261204, numRuns: 200 },
+    );
+  });
+
+  it("works out each day once for intraday stamps, a day not in the calendar included", () => {
+    const days = ["2024-02-28", "2024-02-29", "2023-02-29", "2023-02-29", "2023-03-01", "2023-13-01", "2023-03-02"];
+    const rows = ["Date,A", ...days.flatMap((day) => ["09:30", "09:31", "16:00"].map((time) => `${day} ${time},0.5`)), ""];
+    const bytes = ascii(rows.join("\n"));
+    const lines = plainLines(bytes);
+    const found = rowKernelFor(bytes);
+    if (lines === null || found === null) throw new Error("setup");
+    const read = found.kernel.scan(found.base, lines.starts, 1, rows.length - 1, Int32Array.of(-1, 0), 1, ",".charCodeAt(0), 0);
+    expect(read.flagged).toBe(0);
+    expect(read.badDate).toBe(true);
+    // Date.UTC is the independent reference; a day not in the calendar has key 0 on each of its rows
+    const expected = days.flatMap((day) => {
+      const [y, m, d] = day.split("-").map(Number) as [number, number, number];
+      const real = m <= 12 && d <= new Date(Date.UTC(y, m, 0)).getUTCDate();
+      return [
+        [9, 30],
+        [9, 31],
+        [16, 0],
+      ].map(([h, min]) => (real ? Date.UTC(y, m - 1, d, h, min) : 0));
+    });
+    expect([...read.keys]).toEqual(expected);
+  });
+
   it("finds the same rows as the byte-by-byte search, 16 bytes at a time", () => {
     const line = fc.stringMatching(/^[a-z0-9,.-]{0,40}$/);
     fc.assert(

@@ -4,10 +4,11 @@
 ;; It reads the simple rows of a plain CSV: the row has exactly `nf` fields; every other byte is
 ;; plain (no NUL, CR, double quote or non-ASCII); the date field is a stamp of one of the forms
 ;; scanStamp reads (src/input/values/dateStamps.ts: YYYY-MM-DD with an optional time); every field that
-;; `slots` maps to an output is [+-]digits[.digits]. A number whose mantissa is below 2^53 with at
-;; most 22 fraction digits is read as scanDecimal reads it (Clinger's fast path: the digits
-;; accumulated in a double, then one correctly rounded division by an exact power of ten); a longer
-;; one is left to the caller (NaN, its span recorded, the row flagged 2). Any other row is flagged 1
+;; `slots` maps to an output is [+-]digits[.digits]. A number of at most 19 digits whose mantissa is
+;; below 2^53, with at most 22 fraction digits, is read as scanDecimal reads it (Clinger's fast path:
+;; the digits accumulated as a 64-bit integer, exact, then one correctly rounded division by an exact
+;; power of ten); any other is left to the caller (NaN, its span recorded, the row flagged 2), which
+;; reads it correctly rounded too (the same double). Any other row is flagged 1
 ;; and read by the caller. Valid stamps get their key (milliseconds since 1970-01-01, H. Hinnant's
 ;; days_from_civil, exact in 64-bit integers); a well-formed stamp that is not a real date and time,
 ;; or one of another form than the column's, sets status to 1. The column's form (coded as
@@ -97,11 +98,15 @@
     (param $spans i32) (param $status i32)
     (result i32)
     (local $k i32) (local $start i32) (local $end i32) (local $i i32) (local $f i32) (local $slot i32)
-    (local $c i32) (local $neg i32) (local $mant f64) (local $nd i32) (local $fs i32) (local $frac i32)
+    (local $c i32) (local $neg i32) (local $mant i64) (local $nd i32) (local $fs i32) (local $frac i32)
     (local $v f64) (local $flagged i32) (local $flag i32) (local $dated i32) (local $p i32)
     (local $ymd i32) (local $y i32) (local $m i32) (local $day i32) (local $t i32) (local $field i32) (local $at i32)
     (local $q i32) (local $form i32) (local $ms i32) (local $hh i32) (local $mm i32) (local $ss i32)
+    (local $lastYmd i32) (local $lastValid i32) (local $lastDays i32)
     (i32.store (local.get $status) (i32.const 0))
+    ;; the last date read (as yyyymmdd), whether it is in the calendar and its days from 1970-01-01:
+    ;; rows of one day (intraday stamps) work them out once
+    (local.set $lastYmd (i32.const -1))
     (block $rows_done
       (loop $rows
         (br_if $rows_done (i32.ge_u (local.get $k) (local.get $count)))
@@ -129,13 +134,13 @@
                 (local.set $neg (i32.eq (local.get $c) (i32.const 45)))
                 (if (i32.or (local.get $neg) (i32.eq (local.get $c) (i32.const 43)))
                   (then (local.set $i (i32.add (local.get $i) (i32.const 1)))))
-                (local.set $mant (f64.const 0))
+                (local.set $mant (i64.const 0))
                 (local.set $fs (local.get $i))
                 (block $int_done (loop $int
                   (br_if $int_done (i32.ge_u (local.get $i) (local.get $end)))
                   (local.set $t (i32.sub (i32.load8_u (local.get $i)) (i32.const 48)))
                   (br_if $int_done (i32.gt_u (local.get $t) (i32.const 9)))
-                  (local.set $mant (f64.add (f64.mul (local.get $mant) (f64.const 10)) (f64.convert_i32_u (local.get $t))))
+                  (local.set $mant (i64.add (i64.mul (local.get $mant) (i64.const 10)) (i64.extend_i32_u (local.get $t))))
                   (local.set $i (i32.add (local.get $i) (i32.const 1)))
                   (br $int)))
                 (local.set $nd (i32.sub (local.get $i) (local.get $fs)))
@@ -148,7 +153,7 @@
                       (br_if $fr_done (i32.ge_u (local.get $i) (local.get $end)))
                       (local.set $t (i32.sub (i32.load8_u (local.get $i)) (i32.const 48)))
                       (br_if $fr_done (i32.gt_u (local.get $t) (i32.const 9)))
-                      (local.set $mant (f64.add (f64.mul (local.get $mant) (f64.const 10)) (f64.convert_i32_u (local.get $t))))
+                      (local.set $mant (i64.add (i64.mul (local.get $mant) (i64.const 10)) (i64.extend_i32_u (local.get $t))))
                       (local.set $i (i32.add (local.get $i) (i32.const 1)))
                       (br $fr)))
                     (local.set $frac (i32.sub (local.get $i) (local.get $fs)))
@@ -158,7 +163,10 @@
                             (i32.and (i32.lt_u (local.get $i) (local.get $end)) (i32.ne (i32.load8_u (local.get $i)) (local.get $d))))
                   (then (local.set $flag (i32.const 1)) (br $row_done)))
                 (local.set $at (i32.add (i32.mul (local.get $slot) (local.get $count)) (local.get $k)))
-                (if (i32.or (f64.ge (local.get $mant) (f64.const 9007199254740992)) (i32.gt_u (local.get $frac) (i32.const 22)))
+                ;; the digits as an integer: exact below 2^53 (a longer mantissa is only compared with 2^53
+                ;; here, and 23 digits at most do not reach 2^64)
+                (if (i32.or (i32.or (i64.ge_u (local.get $mant) (i64.const 9007199254740992)) (i32.gt_u (local.get $nd) (i32.const 19)))
+                            (i32.gt_u (local.get $frac) (i32.const 22)))
                   (then
                     ;; too long for the fast path: NaN here, the caller parses the span [field, i)
                     (f64.store (i32.add (local.get $out) (i32.shl (local.get $at) (i32.const 3))) (f64.const nan))
@@ -166,9 +174,9 @@
                     (i32.store (i32.add (local.get $spans) (i32.add (i32.shl (local.get $at) (i32.const 3)) (i32.const 4))) (local.get $i))
                     (local.set $flag (i32.const 2)))
                   (else
-                    (local.set $v (local.get $mant))
+                    (local.set $v (f64.convert_i64_u (local.get $mant)))
                     (if (local.get $frac)
-                      (then (local.set $v (f64.div (local.get $mant) (f64.load (i32.shl (local.get $frac) (i32.const 3)))))))
+                      (then (local.set $v (f64.div (local.get $v) (f64.load (i32.shl (local.get $frac) (i32.const 3)))))))
                     (if (local.get $neg) (then (local.set $v (f64.neg (local.get $v)))))
                     (f64.store (i32.add (local.get $out) (i32.shl (local.get $at) (i32.const 3))) (local.get $v)))))
               (else
@@ -192,9 +200,6 @@
                         (local.set $ymd (i32.add (i32.mul (local.get $ymd) (i32.const 10)) (local.get $c)))
                         (local.set $t (i32.add (local.get $t) (i32.const 1)))
                         (br_if $digits (i32.lt_u (local.get $t) (i32.const 8)))))
-                    (local.set $y (i32.div_u (local.get $ymd) (i32.const 10000)))
-                    (local.set $m (i32.rem_u (i32.div_u (local.get $ymd) (i32.const 100)) (i32.const 100)))
-                    (local.set $day (i32.rem_u (local.get $ymd) (i32.const 100)))
                     (local.set $q (i32.add (local.get $p) (i32.const 10)))
                     (local.set $form (i32.const 0))
                     (local.set $ms (i32.const 0))
@@ -263,15 +268,24 @@
                     (if (i32.eq (local.get $t) (i32.const -1))
                       (then (i32.store (i32.add (local.get $status) (i32.const 4)) (local.get $form)))
                       (else (if (i32.ne (local.get $t) (local.get $form)) (then (i32.store (local.get $status) (i32.const 1))))))
-                    (if (i32.and
+                    (if (i32.ne (local.get $ymd) (local.get $lastYmd))
+                      (then
+                        (local.set $lastYmd (local.get $ymd))
+                        (local.set $y (i32.div_u (local.get $ymd) (i32.const 10000)))
+                        (local.set $m (i32.rem_u (i32.div_u (local.get $ymd) (i32.const 100)) (i32.const 100)))
+                        (local.set $day (i32.rem_u (local.get $ymd) (i32.const 100)))
+                        (local.set $lastValid (i32.and
                           (i32.and (i32.ge_u (local.get $y) (i32.const 1))
                                    (i32.and (i32.ge_u (local.get $m) (i32.const 1)) (i32.le_u (local.get $m) (i32.const 12))))
                           (i32.and (i32.ge_u (local.get $day) (i32.const 1))
-                                   (i32.le_u (local.get $day) (call $daysInMonth (local.get $y) (local.get $m)))))
+                                   (i32.le_u (local.get $day) (call $daysInMonth (local.get $y) (local.get $m))))))
+                        (if (local.get $lastValid)
+                          (then (local.set $lastDays (call $daysFromCivil (local.get $y) (local.get $m) (local.get $day)))))))
+                    (if (local.get $lastValid)
                       (then
                         (f64.store (i32.add (local.get $keys) (i32.shl (local.get $k) (i32.const 3)))
                           (f64.convert_i64_s (i64.add
-                            (i64.mul (i64.extend_i32_s (call $daysFromCivil (local.get $y) (local.get $m) (local.get $day))) (i64.const 86400000))
+                            (i64.mul (i64.extend_i32_s (local.get $lastDays)) (i64.const 86400000))
                             (i64.extend_i32_u (local.get $ms))))))
                       (else (i32.store (local.get $status) (i32.const 1))))
                     (local.set $dated (i32.const 1))
