@@ -102,11 +102,11 @@
     (local $v f64) (local $flagged i32) (local $flag i32) (local $dated i32) (local $p i32)
     (local $ymd i32) (local $y i32) (local $m i32) (local $day i32) (local $t i32) (local $field i32) (local $at i32)
     (local $q i32) (local $form i32) (local $ms i32) (local $hh i32) (local $mm i32) (local $ss i32)
-    (local $lastYmd i32) (local $lastValid i32) (local $lastDays i32)
+    (local $lastDate i64) (local $lastDay i32) (local $lastValid i32) (local $lastDays i32)
     (i32.store (local.get $status) (i32.const 0))
-    ;; the last date read (as yyyymmdd), whether it is in the calendar and its days from 1970-01-01:
-    ;; rows of one day (intraday stamps) work them out once
-    (local.set $lastYmd (i32.const -1))
+    ;; the bytes of the last YYYY-MM-DD whose digits were read (none yet: zeros, which have no "-"),
+    ;; whether it is in the calendar and its days from 1970-01-01: rows of one day (intraday stamps)
+    ;; read and work them out once
     (block $rows_done
       (loop $rows
         (br_if $rows_done (i32.ge_u (local.get $k) (local.get $count)))
@@ -189,17 +189,32 @@
                                 (i32.or (i32.ne (i32.load8_u (i32.add (local.get $p) (i32.const 4))) (i32.const 45))
                                         (i32.ne (i32.load8_u (i32.add (local.get $p) (i32.const 7))) (i32.const 45))))
                       (then (local.set $flag (i32.const 1)) (br $row_done)))
-                    ;; the eight digits at offsets 0 1 2 3 5 6 8 9, as yyyymmdd
-                    (local.set $ymd (i32.const 0))
-                    (local.set $t (i32.const 0))
-                    (block $digits_done
-                      (loop $digits
-                        (local.set $c (i32.sub (i32.load8_u (i32.add (local.get $p)
-                          (i32.add (local.get $t) (i32.add (i32.gt_u (local.get $t) (i32.const 3)) (i32.gt_u (local.get $t) (i32.const 5)))))) (i32.const 48)))
-                        (if (i32.gt_u (local.get $c) (i32.const 9)) (then (local.set $flag (i32.const 1)) (br $row_done)))
-                        (local.set $ymd (i32.add (i32.mul (local.get $ymd) (i32.const 10)) (local.get $c)))
-                        (local.set $t (i32.add (local.get $t) (i32.const 1)))
-                        (br_if $digits (i32.lt_u (local.get $t) (i32.const 8)))))
+                    (if (i32.or (i64.ne (i64.load (local.get $p)) (local.get $lastDate))
+                                (i32.ne (i32.load16_u (i32.add (local.get $p) (i32.const 8))) (local.get $lastDay)))
+                      (then
+                        ;; the eight digits at offsets 0 1 2 3 5 6 8 9, as yyyymmdd
+                        (local.set $ymd (i32.const 0))
+                        (local.set $t (i32.const 0))
+                        (block $digits_done
+                          (loop $digits
+                            (local.set $c (i32.sub (i32.load8_u (i32.add (local.get $p)
+                              (i32.add (local.get $t) (i32.add (i32.gt_u (local.get $t) (i32.const 3)) (i32.gt_u (local.get $t) (i32.const 5)))))) (i32.const 48)))
+                            (if (i32.gt_u (local.get $c) (i32.const 9)) (then (local.set $flag (i32.const 1)) (br $row_done)))
+                            (local.set $ymd (i32.add (i32.mul (local.get $ymd) (i32.const 10)) (local.get $c)))
+                            (local.set $t (i32.add (local.get $t) (i32.const 1)))
+                            (br_if $digits (i32.lt_u (local.get $t) (i32.const 8)))))
+                        (local.set $lastDate (i64.load (local.get $p)))
+                        (local.set $lastDay (i32.load16_u (i32.add (local.get $p) (i32.const 8))))
+                        (local.set $y (i32.div_u (local.get $ymd) (i32.const 10000)))
+                        (local.set $m (i32.rem_u (i32.div_u (local.get $ymd) (i32.const 100)) (i32.const 100)))
+                        (local.set $day (i32.rem_u (local.get $ymd) (i32.const 100)))
+                        (local.set $lastValid (i32.and
+                          (i32.and (i32.ge_u (local.get $y) (i32.const 1))
+                                   (i32.and (i32.ge_u (local.get $m) (i32.const 1)) (i32.le_u (local.get $m) (i32.const 12))))
+                          (i32.and (i32.ge_u (local.get $day) (i32.const 1))
+                                   (i32.le_u (local.get $day) (call $daysInMonth (local.get $y) (local.get $m))))))
+                        (if (local.get $lastValid)
+                          (then (local.set $lastDays (call $daysFromCivil (local.get $y) (local.get $m) (local.get $day)))))))
                     (local.set $q (i32.add (local.get $p) (i32.const 10)))
                     (local.set $form (i32.const 0))
                     (local.set $ms (i32.const 0))
@@ -268,19 +283,6 @@
                     (if (i32.eq (local.get $t) (i32.const -1))
                       (then (i32.store (i32.add (local.get $status) (i32.const 4)) (local.get $form)))
                       (else (if (i32.ne (local.get $t) (local.get $form)) (then (i32.store (local.get $status) (i32.const 1))))))
-                    (if (i32.ne (local.get $ymd) (local.get $lastYmd))
-                      (then
-                        (local.set $lastYmd (local.get $ymd))
-                        (local.set $y (i32.div_u (local.get $ymd) (i32.const 10000)))
-                        (local.set $m (i32.rem_u (i32.div_u (local.get $ymd) (i32.const 100)) (i32.const 100)))
-                        (local.set $day (i32.rem_u (local.get $ymd) (i32.const 100)))
-                        (local.set $lastValid (i32.and
-                          (i32.and (i32.ge_u (local.get $y) (i32.const 1))
-                                   (i32.and (i32.ge_u (local.get $m) (i32.const 1)) (i32.le_u (local.get $m) (i32.const 12))))
-                          (i32.and (i32.ge_u (local.get $day) (i32.const 1))
-                                   (i32.le_u (local.get $day) (call $daysInMonth (local.get $y) (local.get $m))))))
-                        (if (local.get $lastValid)
-                          (then (local.set $lastDays (call $daysFromCivil (local.get $y) (local.get $m) (local.get $day)))))))
                     (if (local.get $lastValid)
                       (then
                         (f64.store (i32.add (local.get $keys) (i32.shl (local.get $k) (i32.const 3)))
