@@ -152,6 +152,25 @@ describe("the row kernel", () => {
     );
   });
 
+  it("says whether a range holds a byte that is not plain (NUL, CR, quote, non-ASCII) as it finds the line feeds", () => {
+    const odd = (b: number): boolean => b === 0 || b === 13 || b === 34 || b >= 0x80;
+    // Mostly plain bytes, so that ranges with no odd byte are common; odd ones anywhere in the range,
+    // in the 16-byte blocks or the tail after them.
+    const byte = fc.oneof({ arbitrary: fc.integer({ min: 32, max: 126 }), weight: 30 }, { arbitrary: fc.nat(255), weight: 1 });
+    fc.assert(
+      fc.property(fc.array(byte, { maxLength: 120 }), fc.nat(40), (values, cut) => {
+        const bytes = Uint8Array.from(values);
+        const found = rowKernelFor(bytes);
+        if (found === null) throw new Error("the kernel is available on Node 20");
+        const from = Math.min(cut, bytes.length);
+        const read = found.kernel.appendLineEnds(found.base, from, bytes.length, { ends: new Int32Array(4), count: 0 });
+        expect(read.plain).toBe(!bytes.subarray(from).some(odd));
+        expect([...read.ends.subarray(0, read.count)]).toEqual(values.flatMap((b, i) => (b === 10 && i >= from ? [i + 1] : [])));
+      }),
+      { seed: 20261204, numRuns: 400 },
+    );
+  });
+
   it("finds the rows of a file of 4 KiB and more (copied into the shared kernel) as a search written out here does", () => {
     const line = fc.stringMatching(/^[a-z0-9,.-]{0,60}$/).map((cells) => `${cells},2020-01-31,0.0123`);
     fc.assert(

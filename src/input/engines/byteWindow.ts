@@ -155,9 +155,12 @@ export function scanPages(window: ByteWindow): PagedLines | null {
     if (from >= length) continue;
     if (pendingCr && piece[from] !== 10) return null;
     pendingCr = piece[length - 1] === 13;
-    if (!isPlain(piece, from, pendingCr ? length - 1 : length)) return null;
+    // The kernel's search for line feeds also says whether every byte is plain; only a piece where
+    // it saw a NUL, CR, quote or non-ASCII byte is checked byte by byte.
+    const appended = appendEnds(window, piece, at, from, found);
+    if (!appended.plain && !isPlain(piece, from, pendingCr ? length - 1 : length)) return null;
+    found = appended;
     if (blank) blank = isAsciiWhiteSpace(piece, from, length);
-    found = appendEnds(window, piece, at, from, found);
     if (at === 0 && length < size) {
       // Room for the rows, as dense as in the first piece, and a tenth more.
       const guess = Math.ceil(((found.count * size) / length) * 1.1) + 2;
@@ -179,8 +182,11 @@ export function scanPages(window: ByteWindow): PagedLines | null {
   return { lines: { start, starts: ends.subarray(0, count + 1), firstBytes: firstBytes.subarray(0, count) }, blank };
 }
 
-/** Appends the offsets just past each line feed of the piece (file offset `at`) from `from` on. */
-function appendEnds(window: ByteWindow, piece: Uint8Array, at: number, from: number, found: LineEnds): LineEnds {
+/**
+ * Appends the offsets just past each line feed of the piece (file offset `at`) from `from` on;
+ * `plain` true when the kernel saw only plain bytes (false: not known).
+ */
+function appendEnds(window: ByteWindow, piece: Uint8Array, at: number, from: number, found: LineEnds): LineEnds & { readonly plain: boolean } {
   const kernel = window.kernel();
   if (kernel !== null) return kernel.kernel.appendLineEnds(kernel.base, at + from, at + piece.length, found);
   let { ends, count } = found;
@@ -189,7 +195,7 @@ function appendEnds(window: ByteWindow, piece: Uint8Array, at: number, from: num
     if (count >= ends.length) ends = grownInts(ends, count + 1);
     ends[count++] = at + end + 1;
   }
-  return { ends, count };
+  return { ends, count, plain: false };
 }
 
 function grownInts(values: Int32Array, least: number): Int32Array {

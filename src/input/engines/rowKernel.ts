@@ -16,6 +16,8 @@ const PAGE = 65_536;
 const SCRATCH = 4 << 20;
 /** Where the scratch area starts (after the 23 powers of ten) and where the file starts. */
 const SCRATCH_BASE = 256;
+/** Where findLines writes whether a range held a byte that is not plain (after the powers of ten). */
+const ODD_AT = 248;
 const FILE_BASE = SCRATCH_BASE + SCRATCH;
 /**
  * Bytes that are not already in kernel memory are copied there up to this size; larger ones are
@@ -28,7 +30,7 @@ const MAX_CHUNK = 16_384;
 const MIN_CHUNK = 256;
 
 interface KernelExports {
-  findLines(from: number, to: number, base: number, out: number): number;
+  findLines(from: number, to: number, base: number, out: number, odd: number): number;
   readRows(
     starts: number,
     count: number,
@@ -193,14 +195,18 @@ export class RowKernel {
 
   /**
    * The offsets just past each line feed of file bytes [from, to) (the file at `base` in this memory:
-   * its bytes there may be only those of a window), appended to `found` (grown when full).
+   * its bytes there may be only those of a window), appended to `found` (grown when full); `plain`
+   * is true when no byte of the range is NUL, CR, a double quote or non-ASCII (when false, isPlain
+   * decides: a CR before a LF is plain).
    */
-  appendLineEnds(base: number, from: number, to: number, found: LineEnds): LineEnds {
+  appendLineEnds(base: number, from: number, to: number, found: LineEnds): LineEnds & { readonly plain: boolean } {
     // Each block can hold as many line feeds as bytes: one i32 each in the scratch area.
     const block = SCRATCH >> 2;
     let { ends, count } = found;
+    let plain = true;
     for (let at = from; at < to; at += block) {
-      const count1 = this.exports.findLines(base + at, base + Math.min(to, at + block), base, SCRATCH_BASE);
+      const count1 = this.exports.findLines(base + at, base + Math.min(to, at + block), base, SCRATCH_BASE, ODD_AT);
+      if (this.words[ODD_AT >> 2] !== 0) plain = false;
       if (count + count1 > ends.length) {
         const bigger = new Int32Array(Math.max(2 * ends.length, count + count1));
         bigger.set(ends.subarray(0, count));
@@ -209,7 +215,7 @@ export class RowKernel {
       ends.set(this.words.subarray(SCRATCH_BASE >> 2, (SCRATCH_BASE >> 2) + count1), count);
       count += count1;
     }
-    return { ends, count };
+    return { ends, count, plain };
   }
 
   /** Copies `bytes` into the kernel's memory at `at`. */

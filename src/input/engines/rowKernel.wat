@@ -14,7 +14,8 @@
 ;; or one of another form than the column's, sets status to 1. The column's form (coded as
 ;; dateStamps.ts codes it) is the i32 at status + 4: -1 until the first stamp sets it.
 ;;
-;; findLines: where each row of a byte range starts after a line feed, 16 bytes at a time (SIMD).
+;; findLines: where each row of a byte range starts after a line feed, 16 bytes at a time (SIMD), and
+;; whether the range holds a byte that is not plain (NUL, CR, double quote, non-ASCII).
 ;;
 ;; Memory (imported, laid out by the caller): pow10[k] = 10^k (k = 0..22, f64) at offset 0; starts
 ;; (i32, count + 1: offsets of the rows in the file, which starts at `base`; the byte before the next
@@ -62,15 +63,21 @@
       (i32.const 719468)))
 
   ;; For each line feed at p in [from, to), writes p + 1 - base (an offset into the file) to out;
-  ;; returns how many. out must have room for to - from entries.
-  (func (export "findLines") (param $from i32) (param $to i32) (param $base i32) (param $out i32) (result i32)
-    (local $i i32) (local $n i32) (local $mask i32) (local $lf v128)
+  ;; returns how many. out must have room for to - from entries. Writes to $odd the i32 1 when some
+  ;; byte of the range is NUL, CR, a double quote or non-ASCII (the bytes isPlain looks for), else 0.
+  (func (export "findLines") (param $from i32) (param $to i32) (param $base i32) (param $out i32) (param $odd i32) (result i32)
+    (local $i i32) (local $n i32) (local $mask i32) (local $lf v128) (local $v v128) (local $seen v128) (local $c i32)
     (local.set $lf (i8x16.splat (i32.const 10)))
     (local.set $i (local.get $from))
     (block $tail
       (loop $blocks
         (br_if $tail (i32.gt_u (i32.add (local.get $i) (i32.const 16)) (local.get $to)))
-        (local.set $mask (i8x16.bitmask (i8x16.eq (v128.load (local.get $i)) (local.get $lf))))
+        (local.set $v (v128.load (local.get $i)))
+        ;; the high bit of each lane: a non-ASCII byte, or a match (all ones) for NUL, CR or the quote
+        (local.set $seen (v128.or (local.get $seen)
+          (v128.or (v128.or (local.get $v) (i8x16.eq (local.get $v) (i8x16.splat (i32.const 0))))
+                   (v128.or (i8x16.eq (local.get $v) (i8x16.splat (i32.const 13))) (i8x16.eq (local.get $v) (i8x16.splat (i32.const 34)))))))
+        (local.set $mask (i8x16.bitmask (i8x16.eq (local.get $v) (local.get $lf))))
         (block $bits_done (loop $bits
           (br_if $bits_done (i32.eqz (local.get $mask)))
           (i32.store (i32.add (local.get $out) (i32.shl (local.get $n) (i32.const 2)))
@@ -80,9 +87,14 @@
           (br $bits)))
         (local.set $i (i32.add (local.get $i) (i32.const 16)))
         (br $blocks)))
+    (i32.store (local.get $odd) (i32.ne (i8x16.bitmask (local.get $seen)) (i32.const 0)))
     (block $done (loop $scalar
       (br_if $done (i32.ge_u (local.get $i) (local.get $to)))
-      (if (i32.eq (i32.load8_u (local.get $i)) (i32.const 10))
+      (local.set $c (i32.load8_u (local.get $i)))
+      (if (i32.or (i32.or (i32.eqz (local.get $c)) (i32.eq (local.get $c) (i32.const 13)))
+                  (i32.or (i32.eq (local.get $c) (i32.const 34)) (i32.ge_u (local.get $c) (i32.const 128))))
+        (then (i32.store (local.get $odd) (i32.const 1))))
+      (if (i32.eq (local.get $c) (i32.const 10))
         (then
           (i32.store (i32.add (local.get $out) (i32.shl (local.get $n) (i32.const 2)))
             (i32.sub (i32.add (local.get $i) (i32.const 1)) (local.get $base)))
