@@ -49,7 +49,7 @@ export function neweyWest1994Bandwidth(
 }
 
 /** Rows per block of the autocovariance passes: the block and its lags stay in the cache. */
-const BLOCK_ROWS = 2048;
+export const BLOCK_ROWS = 2048;
 
 /**
  * sum_{t} f_t f_{t+j} for j = 0..lags in one pass over f in blocks that stay in the cache (each sum

@@ -5,7 +5,7 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { autocovarianceSums, weightedAutocovarianceSums } from "../../../../src/core/inference/hac/bandwidth.js";
+import { autocovarianceSums, BLOCK_ROWS, weightedAutocovarianceSums } from "../../../../src/core/inference/hac/bandwidth.js";
 import { bartlettKernelSum } from "../../../../src/core/inference/hac/bartlettWindows.js";
 import { weightedAutocovarianceSum } from "../../../../src/core/inference/hac/kernelSum.js";
 import { lagWeights } from "../../../../src/core/inference/hac/kernels.js";
@@ -128,6 +128,30 @@ describe("the Newey-West pre-lag autocovariances in one blocked pass", () => {
         }
       }),
       { numRuns: 200, seed: 20261203 },
+    );
+  });
+});
+
+describe("the Newey-West pre-lag autocovariances, lags taken four and one at a time", () => {
+  it("are the bits of a lag-by-lag pass block by block (definition written out here: each block's sum from 0, rows in order)", () => {
+    // Lag counts around the groups of four, and lengths around the block and its last rows.
+    const lengths = fc.oneof(fc.integer({ min: 1, max: 80 }), fc.integer({ min: BLOCK_ROWS - 20, max: 2 * BLOCK_ROWS + 40 }));
+    fc.assert(
+      fc.property(lengths, fc.integer({ min: 0, max: 40 }), fc.integer({ min: 1, max: 1e6 }), (n, lags, seed) => {
+        const f = series(n, 1, seed)[0]!;
+        const lagCount = Math.min(lags, n - 1);
+        const sums = autocovarianceSums(f, lagCount);
+        for (let j = 0; j <= lagCount; j++) {
+          let expected = 0;
+          for (let start = 0; start < n; start += BLOCK_ROWS) {
+            let block = 0;
+            for (let t = start; t < Math.min(n, start + BLOCK_ROWS) && t + j < n; t++) block += f[t]! * f[t + j]!;
+            expected += block;
+          }
+          expect(Object.is(sums[j], expected)).toBe(true);
+        }
+      }),
+      { numRuns: 150, seed: 20261204 },
     );
   });
 });
