@@ -20,6 +20,10 @@ export interface RollMeta {
   readonly input: InputDescription;
   readonly spec: WindowSpec;
   readonly weight: number;
+  /**
+   * The dates as text, a string per row: the job makes them on first use (a getter), so pass `meta`
+   * along rather than copying it (`{ ...meta }` would make a million strings for a million rows).
+   */
   readonly dates: readonly string[];
   /** The dates as stamps of one form, when they are (ReturnTable.stamps): written as bytes without `dates`. */
   readonly stamps?: { readonly keys: Float64Array; readonly form: number };

@@ -117,7 +117,7 @@ async function writePair(pair: RolledPair, job: RollJob, target: OutputTarget, i
     const write = (bytes: Uint8Array) => target.write(bytes);
     const { stamps } = meta;
     if (!options.uncertainty && stamps !== undefined && rollCsvThreadsPay(windowCount(stamps.keys.length, job.spec)))
-      await writeRollCsvThreaded({ ...meta, stamps }, blocks, csvBlockWindows, write);
+      await writeRollCsvThreaded(meta, stamps, blocks, csvBlockWindows, write);
     else await writeRollCsv(meta, blocks, options.uncertainty ? next : null, write);
     if (!options.uncertainty && walk !== null) for (let w = walk.next(); !w.done; w = walk.next()) seen(w.value);
   } else if (options.format === "jsonl") {

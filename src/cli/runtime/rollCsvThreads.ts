@@ -38,15 +38,18 @@ export function rollCsvThreadsPay(windows: number): boolean {
 
 /**
  * Writes the CSV rows of `blocks` (at most `blockWindows` windows each; their arrays are reused by
- * the producer) for `meta`, whose dates are stamps, handing each block's bytes to `write` in order.
+ * the producer) for `meta`, whose dates are `stamps` (meta.stamps), handing each block's bytes to
+ * `write` in order. The stamps come apart from `meta` because copying `meta` would make its `dates`
+ * (a string per row, a getter that builds them on first use).
  */
 export async function writeRollCsvThreaded(
-  meta: RollMeta & { readonly stamps: NonNullable<RollMeta["stamps"]> },
+  meta: RollMeta,
+  stamps: NonNullable<RollMeta["stamps"]>,
   blocks: Iterable<WindowColumns>,
   blockWindows: number,
   write: (bytes: Uint8Array) => Promise<void>,
 ): Promise<void> {
-  const { keys, form } = meta.stamps;
+  const { keys, form } = stamps;
   const prefix = rollCsvPrefix(meta);
   const rowBytes = stampRowBytes(prefix.length, windowColumnNames.length);
   // Four sets of arrays go round (three blocks in flight and one being packed): no fresh memory per block.
