@@ -106,16 +106,17 @@ export function varianceRoundingError(n: number, variance: number, scale: number
 export function varianceCancellation(n: number, m: MomentSummary, marketVariance: number, scales: RoundingScales): DiagnosticDetail | null {
   const w = m.weight;
   const marketScale = w * scales.low + (1 - w) * scales.high;
-  const checks = [
-    ["low", m.lowVariance, scales.low],
-    ["high", m.highVariance, scales.high],
-    ["market", marketVariance, marketScale],
-  ] as const;
-  for (const [quantity, variance, scale] of checks) {
-    const roundingError = varianceRoundingError(n, variance, scale);
-    if (roundingError > cancellationTolerance * variance) return { code: "cancellation", quantity, value: variance, roundingError };
-  }
-  return null;
+  // Low, high, then the market: the first that fails is reported (written out, as roll asks this of every window).
+  return (
+    varianceCheck(n, "low", m.lowVariance, scales.low) ??
+    varianceCheck(n, "high", m.highVariance, scales.high) ??
+    varianceCheck(n, "market", marketVariance, marketScale)
+  );
+}
+
+function varianceCheck(n: number, quantity: "low" | "high" | "market", variance: number, scale: number): DiagnosticDetail | null {
+  const roundingError = varianceRoundingError(n, variance, scale);
+  return roundingError > cancellationTolerance * variance ? { code: "cancellation", quantity, value: variance, roundingError } : null;
 }
 
 /** The covariance when rounding could change it by more than the tolerance (its sign is then not determined); else null. */

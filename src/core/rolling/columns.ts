@@ -151,8 +151,7 @@ export function* rollSolveColumnBlocks(
       c.highResidualVariance[k] = capm.high.residualVariance;
     }
     const solvable = windowRejection(window, largestRiskFree) === null && m.covariance > 0;
-    const rounding = { n: window.observations, ...windowScales(window, largestRiskFree) };
-    if (solvable && covarianceCancellation(rounding.n, m, rounding) === null)
+    if (solvable && covarianceCancellation(window.observations, m, windowScales(window, largestRiskFree)) === null)
       writeSetColumns(c, k, m, market, window.observations, criticalValue);
     k++;
   }
