@@ -106,6 +106,27 @@ describe("the Bartlett sum from window sums", () => {
           else expect(part[a]![b]).toBeNaN();
         }
     }
+    // Any length around the blocks of 1,024 windows, and bandwidths whose two widths straddle a
+    // block's end: bit for bit.
+    fc.assert(
+      fc.property(
+        fc.oneof(fc.integer({ min: 1, max: 60 }), fc.integer({ min: 900, max: 2200 })),
+        fc.double({ min: 1.01, max: 1200, noNaN: true }),
+        fc.integer({ min: 1, max: 1e6 }),
+        (n, bandwidth, seed) => {
+          const columns = series(n, 3, seed, 0.2);
+          const whole = bartlettKernelSum(columns, bandwidth);
+          const part = bartlettKernelSum(columns, bandwidth, [[0, 2]]);
+          for (const [a, b] of [
+            [0, 0],
+            [0, 2],
+            [2, 2],
+          ] as const)
+            expect(Object.is(part[a]![b], whole[a]![b])).toBe(true);
+        },
+      ),
+      { numRuns: 200, seed: 20261204 },
+    );
     expect(() => bartlettKernelSum(series(20, 3, 1), 2, [[1, 0]])).toThrow(RangeError);
     expect(() => bartlettKernelSum(series(20, 3, 1), 2, [[1, 3]])).toThrow(RangeError);
   });
