@@ -6,8 +6,9 @@
  * kernel's output means and reads every flagged row itself, so results are those of the JavaScript
  * engine bit for bit.
  *
- * Memory layout (never grown, so views into it stay valid): pow10 table at 0, a scratch area for one
- * chunk of rows (their starts, the slots, the outputs), then the file's bytes at `fileBase`.
+ * Memory layout (never grown, so views into it stay valid): pow10 table at 0, findLines' flag for a
+ * byte that is not plain at 248 (ODD_AT), a scratch area for one chunk of rows (their starts, the
+ * slots, the outputs) from 256, then the file's bytes at `fileBase`.
  */
 import { rowKernelWasm } from "./rowKernelWasm.js";
 

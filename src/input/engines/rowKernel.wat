@@ -21,7 +21,8 @@
 ;; (i32, count + 1: offsets of the rows in the file, which starts at `base`; the byte before the next
 ;; start is the row's line feed); slots (i32 per field, -1 for fields not read); out (f64,
 ;; slot-major: slot * count + k); keys (f64); counts (i32); flags (u8); spans (i32 pairs, slot-major,
-;; start and end of a long number); status (i32, then the form, i32).
+;; start and end of a long number); status (i32, then the form, i32). findLines writes whether its
+;; range held a byte that is not plain to the i32 the caller names (248, after the powers of ten).
 (module
   (import "env" "memory" (memory 1))
 
@@ -175,8 +176,8 @@
                             (i32.and (i32.lt_u (local.get $i) (local.get $end)) (i32.ne (i32.load8_u (local.get $i)) (local.get $d))))
                   (then (local.set $flag (i32.const 1)) (br $row_done)))
                 (local.set $at (i32.add (i32.mul (local.get $slot) (local.get $count)) (local.get $k)))
-                ;; the digits as an integer: exact below 2^53 (a longer mantissa is only compared with 2^53
-                ;; here, and 23 digits at most do not reach 2^64)
+                ;; the digits as an integer: 19 digits stay below 2^64, so the comparison with 2^53 is exact;
+                ;; more digits may have wrapped round, and are left to the caller whatever their value
                 (if (i32.or (i32.or (i64.ge_u (local.get $mant) (i64.const 9007199254740992)) (i32.gt_u (local.get $nd) (i32.const 19)))
                             (i32.gt_u (local.get $frac) (i32.const 22)))
                   (then
