@@ -66,8 +66,9 @@ function largestChunk(
   let l = state[0]!;
   let h = state[1]!;
   let r = state[2]!;
+  const fixedRate = +rate; // a number to the optimiser: no boxing of rates[t] (seriesLoops.ts)
   for (let t = from; t < to; t++) {
-    const at = rates === null ? rate : rates[t]!;
+    const at = rates === null ? fixedRate : rates[t]!;
     l = Math.max(l, Math.abs(low[t]! - at));
     h = Math.max(h, Math.abs(high[t]! - at));
     r = Math.max(r, Math.abs(at));

@@ -211,11 +211,12 @@ function welfordChunk(
     cyy = state[15]!,
     cyz = state[16]!,
     czz = state[17]!;
+  const fixedRate = +rate; // a number to the optimiser: no boxing of rates[t] (seriesLoops.ts)
   // Each update is next = s + t with Neumaier's carry c += |s| >= |t| ? s - next + t : t - next + s,
   // written out: short series run in the interpreter, where a call per update costs more than the sum.
   for (let t = from; t < to; t++) {
     const inverseCount = 1 / (t + 1);
-    const r = rates === null ? rate : rates[t]!;
+    const r = rates === null ? fixedRate : rates[t]!;
     const lt = (x[t]! - r) * scale;
     const ht = (y[t]! - r) * scale;
     const vx = lt - kx;

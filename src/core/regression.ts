@@ -124,8 +124,9 @@ function residualChunk(
     lowCompensation = state[1]!,
     highSum = state[2]!,
     highCompensation = state[3]!;
+  const fixedRate = +rate; // a number to the optimiser: no boxing of rates[t] (seriesLoops.ts)
   for (let t = from; t < to; t++) {
-    const r = rates === null ? rate : rates[t]!;
+    const r = rates === null ? fixedRate : rates[t]!;
     const l = (low[t]! - r) * scale;
     const h = (high[t]! - r) * scale;
     const m = weight * l + other * h;

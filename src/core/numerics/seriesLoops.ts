@@ -3,6 +3,12 @@
  * as a whole after a few calls: one long loop inside a larger function runs in on-stack-replaced
  * code on Node 20, which boxes its doubles and is several times slower (see moments.ts).
  * The arithmetic is that of the plain loop, row by row: the results are the same bits.
+ *
+ * A value that is either a number parameter or an array's element (`rates === null ? rate : rates[t]`)
+ * is a phi of a tagged value and a double to the optimiser, which then boxes the element into a new
+ * heap number at every row (15 MB of garbage a million rows, even in optimised code). Taking the
+ * parameter as `+rate` first (the same number) makes the phi a double: no allocation, and 2.4 times
+ * faster in isolation. The chunk functions with a risk-free rate or series do so (`fixedRate`).
  */
 
 /**

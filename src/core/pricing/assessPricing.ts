@@ -244,8 +244,9 @@ function influenceChunk(
   const gu2 = terms.gu[2]!;
   const rates = typeof riskFree === "number" ? null : riskFree;
   const rate = typeof riskFree === "number" ? riskFree : 0;
+  const fixedRate = +rate; // a number to the optimiser: no boxing of rates[t] (seriesLoops.ts)
   for (let t = from; t < to; t++) {
-    const r = rates === null ? rate : rates[t]!;
+    const r = rates === null ? fixedRate : rates[t]!;
     const dx = (low[t]! - r) * scale - mx;
     const dy = (high[t]! - r) * scale - my;
     const zx = dx * dx - vx;

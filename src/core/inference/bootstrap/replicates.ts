@@ -115,8 +115,9 @@ function scaledExcessChunk(
   from: number,
   to: number,
 ): void {
+  const fixedRate = +rate; // a number to the optimiser: no boxing of rates[t] (seriesLoops.ts)
   for (let t = from; t < to; t++) {
-    const r = rates === null ? rate : rates[t]!;
+    const r = rates === null ? fixedRate : rates[t]!;
     low[t] = (lowIn[t]! - r) * scale;
     high[t] = (highIn[t]! - r) * scale;
   }
