@@ -186,7 +186,13 @@ export function scanPages(window: ByteWindow): PagedLines | null {
  * Appends the offsets just past each line feed of the piece (file offset `at`) from `from` on;
  * `plain` true when the kernel saw only plain bytes (false: not known).
  */
-function appendEnds(window: ByteWindow, piece: Uint8Array, at: number, from: number, found: LineEnds): LineEnds & { readonly plain: boolean } {
+function appendEnds(
+  window: ByteWindow,
+  piece: Uint8Array,
+  at: number,
+  from: number,
+  found: LineEnds,
+): LineEnds & { readonly plain: boolean } {
   const kernel = window.kernel();
   if (kernel !== null) return kernel.kernel.appendLineEnds(kernel.base, at + from, at + piece.length, found);
   let { ends, count } = found;
