@@ -22,6 +22,7 @@
  */
 
 import type { HacKernel } from "../options.js";
+import { autocovarianceKernel } from "./autocovarianceKernel.js";
 
 export function neweyWest1994Bandwidth(
   columns: readonly Float64Array[],
@@ -53,10 +54,21 @@ export const BLOCK_ROWS = 2048;
 
 /**
  * sum_{t} f_t f_{t+j} for j = 0..lags in one pass over f in blocks that stay in the cache (each sum
- * adds its products in the order of t, as a pass per lag would, block by block).
+ * adds its products in the order of t, as a pass per lag would, block by block). The blocks go through
+ * the WebAssembly kernel (autocovarianceKernel.ts, the same bits) unless `useKernel` is false or it is
+ * unavailable.
  */
-export function autocovarianceSums(f: Float64Array, lags: number): Float64Array {
+export function autocovarianceSums(f: Float64Array, lags: number, useKernel = true): Float64Array {
   const n = f.length;
+  const kernel = useKernel ? autocovarianceKernel(lags, BLOCK_ROWS) : null;
+  if (kernel !== null) {
+    kernel.sums.fill(0, 0, lags + 1);
+    for (let start = 0; start < n; start += BLOCK_ROWS) {
+      kernel.rows.set(f.subarray(start, Math.min(n, start + BLOCK_ROWS + lags)));
+      kernel.block(0, Math.min(n, start + BLOCK_ROWS) - start, n - start, lags);
+    }
+    return kernel.sums.slice(0, lags + 1);
+  }
   const sums = new Float64Array(lags + 1);
   // A block by a small function V8 optimises whole (its running sums would be boxed in one long loop).
   for (let start = 0; start < n; start += BLOCK_ROWS) autocovarianceBlock(f, 0, n, lags, start, sums);
@@ -67,12 +79,19 @@ export function autocovarianceSums(f: Float64Array, lags: number): Float64Array 
  * autocovarianceSums of f = sum_a w_a column_a (the columns with w_a = 0 left out, the first one
  * written as 0 + w_a column_a and the others added in order, as scaledInto and addScaledInto would; all
  * zeros if every weight is 0) without storing f: each block's rows and the `lags` after them are formed
- * in a small buffer, so the same numbers meet in the same order and the sums are the same bits.
+ * in a small buffer (the kernel's own memory when it is used), so the same numbers meet in the same
+ * order and the sums are the same bits.
  */
-export function weightedAutocovarianceSums(columns: readonly Float64Array[], columnWeights: readonly number[], lags: number): Float64Array {
+export function weightedAutocovarianceSums(
+  columns: readonly Float64Array[],
+  columnWeights: readonly number[],
+  lags: number,
+  useKernel = true,
+): Float64Array {
   const n = columns[0]!.length;
-  const sums = new Float64Array(lags + 1);
-  const buffer = new Float64Array(Math.min(n, BLOCK_ROWS + lags));
+  const kernel = useKernel ? autocovarianceKernel(lags, BLOCK_ROWS) : null;
+  const sums = kernel === null ? new Float64Array(lags + 1) : kernel.sums.fill(0, 0, lags + 1);
+  const buffer = kernel === null ? new Float64Array(Math.min(n, BLOCK_ROWS + lags)) : kernel.rows;
   for (let start = 0; start < n; start += BLOCK_ROWS) {
     const stop = Math.min(n, start + BLOCK_ROWS + lags);
     let started = false;
@@ -82,10 +101,11 @@ export function weightedAutocovarianceSums(columns: readonly Float64Array[], col
       weightedRows(buffer, w, column, start, stop, started);
       started = true;
     });
-    if (!started) buffer.fill(0);
-    autocovarianceBlock(buffer, start, n, lags, start, sums);
+    if (!started) buffer.fill(0, 0, stop - start);
+    if (kernel === null) autocovarianceBlock(buffer, start, n, lags, start, sums);
+    else kernel.block(0, Math.min(n, start + BLOCK_ROWS) - start, n - start, lags);
   }
-  return sums;
+  return kernel === null ? sums : sums.slice(0, lags + 1);
 }
 
 /** buffer[t - start] = 0 + w column[t] (first) or buffer[t - start] + w column[t], rows [start, stop). */

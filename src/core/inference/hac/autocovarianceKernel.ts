@@ -1,0 +1,50 @@
+/**
+ * The Newey-West pre-lag autocovariances of a block of rows in WebAssembly (autocovarianceKernel.wat):
+ * eight lags at a time in two-lane SIMD, each lane adding its products in the order of the rows, so the
+ * sums are those of the JavaScript loop in bandwidth.ts bit for bit (docs/methods.md section 8; the
+ * tests compare both). About three times faster than that loop; null where WebAssembly or its SIMD is
+ * unavailable, or for more lags than the kernel has room for (the JavaScript loop is used).
+ *
+ * Memory (one page): the sums at 0 (MAX_LAGS + 1 doubles), then a block of rows and its lags, with 8
+ * doubles of room after them for the lanes past the last lag.
+ */
+import { autocovarianceKernelWasm } from "./autocovarianceKernelWasm.js";
+
+/** Most lags the kernel takes (its sums and the rows after a block fit its one page). */
+export const MAX_KERNEL_LAGS = 1023;
+const SUMS_AT = 0;
+const ROWS_AT = (MAX_KERNEL_LAGS + 1) * 8;
+
+export interface AutocovarianceKernel {
+  /** Where a block's rows (and the `lags` rows after it) are put for `block`. */
+  readonly rows: Float64Array;
+  /** The running sums, sums[j] for j = 0..lags. */
+  readonly sums: Float64Array;
+  /** sums[j] += sum of rows[u] rows[u + j] over u in [begin, min(end, rowCount - j)), j = 0..lags. */
+  block(begin: number, end: number, rowCount: number, lags: number): void;
+}
+
+let kernel: AutocovarianceKernel | null | undefined;
+
+/** The kernel for `lags` lags on blocks of `blockRows` rows, or null (use the JavaScript loop). */
+export function autocovarianceKernel(lags: number, blockRows: number): AutocovarianceKernel | null {
+  if (kernel === undefined) kernel = instantiate();
+  if (kernel === null || lags > MAX_KERNEL_LAGS || ROWS_AT + (blockRows + lags + 8) * 8 > kernel.rows.buffer.byteLength) return null;
+  return kernel;
+}
+
+function instantiate(): AutocovarianceKernel | null {
+  try {
+    const bytes = Uint8Array.from(atob(autocovarianceKernelWasm), (c) => c.charCodeAt(0));
+    const { exports } = new WebAssembly.Instance(new WebAssembly.Module(bytes));
+    const memory = exports.memory as WebAssembly.Memory;
+    const run = exports.block as (f: number, begin: number, end: number, rows: number, lags: number, sums: number) => void;
+    return {
+      rows: new Float64Array(memory.buffer, ROWS_AT),
+      sums: new Float64Array(memory.buffer, SUMS_AT, MAX_KERNEL_LAGS + 1),
+      block: (begin, end, rowCount, lags) => run(ROWS_AT, begin, end, rowCount, lags, SUMS_AT),
+    };
+  } catch {
+    return null;
+  }
+}
