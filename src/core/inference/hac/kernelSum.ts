@@ -13,11 +13,14 @@
  * when the VAR(1) fit is singular (a constant column, or one that is a combination of the others) or
  * the recoloured sum is not finite, the series is not prewhitened and `prewhite` says so (false).
  * The Bartlett sum is computed in linear time from window sums (bartlettWindows.ts), the others lag
- * by lag (weightedAutocovarianceSum, which stays the reference the window form is tested against).
+ * by lag (weightedAutocovarianceSum, which stays the reference the window form is tested against), or
+ * by fast convolution where lag by lag would take more than CONVOLUTION_FROM products a pair of columns
+ * (convolvedSum.ts: the quadratic spectral kernel's weights reach about 1,450 bandwidths).
  */
 
 import { andrews1991Bandwidth, neweyWest1994Bandwidth } from "./bandwidth.js";
 import { bartlettKernelSum, type ColumnPairs } from "./bartlettWindows.js";
+import { convolvedAutocovarianceSum, usesConvolution } from "./convolvedSum.js";
 import { lagWeights } from "./kernels.js";
 import { sandwich, type Matrix } from "../../numerics/linearAlgebra.js";
 import { defaultHac, type BandwidthChoice, type HacKernel, type HacOptions } from "../options.js";
@@ -198,7 +201,13 @@ function weightedSum(
     lags = 0;
     for (let j = 0; j < weights.length; j++) if (weights[j]! > 0) lags = j;
   }
-  // Bartlett in linear time from window sums (bartlettWindows.ts); other kernels, and lag 0 alone, lag by lag.
-  const sum = defined && kernel === "bartlett" ? bartlettKernelSum(series, effective, within) : weightedAutocovarianceSum(series, weights);
+  // Bartlett in linear time from window sums (bartlettWindows.ts); other kernels, and lag 0 alone, lag by lag
+  // or, where that is long, by fast convolution (convolvedSum.ts).
+  const sum =
+    defined && kernel === "bartlett"
+      ? bartlettKernelSum(series, effective, within)
+      : usesConvolution(n, weights.length)
+        ? convolvedAutocovarianceSum(series, weights)
+        : weightedAutocovarianceSum(series, weights);
   return { sum, kernel, bandwidth, lags, prewhite };
 }

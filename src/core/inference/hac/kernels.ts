@@ -37,10 +37,15 @@ export function lagWeights(kernel: HacKernel, bandwidth: number, n: number): Flo
     return weights;
   }
   let last = 0;
-  const all = new Float64Array(n);
+  const all: number[] = [];
   for (let j = 0; j < n; j++) {
-    all[j] = kernelValue(kernel, j / bandwidth);
+    all.push(kernelValue(kernel, j / bandwidth));
     if (Math.abs(all[j]!) > weightTolerance) last = j;
+    // From here on |k(x)| <= 3 (1 + 1/y) / y^2 (y = 6 pi x / 5; |sin y / y - cos y| <= 1/y + 1), a bound
+    // that falls with y: once it is half the tolerance no later weight, rounding included, is above the
+    // tolerance, so the search stops where scanning all n weights would end the same.
+    const y = (6 * Math.PI * (j / bandwidth)) / 5;
+    if (y > 1 && (3 * (1 + 1 / y)) / (y * y) <= 0.5 * weightTolerance) break;
   }
-  return all.slice(0, last + 1);
+  return Float64Array.from(all.slice(0, last + 1));
 }
