@@ -9,12 +9,13 @@
  * rows past the end 0): v_b is the correlation of the weights with column b, taken block by block
  * (overlap-save): a block of N rows (N a power of two) and the transform of the weights give the
  * correlation at its first N - L rows exactly, up to rounding, as the inverse transform of
- * S conj(W). Two columns share a transform as its real and imaginary parts (the weights are real).
- * Rounding: each v_b[t] carries an error of about log2(N) unit roundoffs of the block's norm times the
- * weights' norm, so entries agree with the lag-by-lag sum to about 1e-13 of the matrix's scale
- * (test/core/inference/hac/convolvedSum.test.ts); the lag-by-lag sum is kept where it is cheap, so
- * small samples keep its bits. A column with a value that is not finite is transformed alone, so only
- * the entries it enters are not finite (NaN, where lag by lag may give an infinity).
+ * S conj(W). Two columns share a transform as its real and imaginary parts (the weights are real),
+ * each first scaled by a power of two (exactly undone) to a largest value near 1, so neither swamps
+ * the other. Rounding: each v_b[t] carries an error of about log2(N) unit roundoffs of the block's norm
+ * times the weights' norm, so an entry agrees with the lag-by-lag sum to about 1e-14 of
+ * sqrt(S_aa S_bb) (test/core/inference/hac/convolvedSum.test.ts); the lag-by-lag sum is kept where it is
+ * cheap, so small samples keep its bits. A column with a value that is not finite is transformed alone,
+ * so only the entries it enters are not finite (NaN, where lag by lag may give an infinity).
  */
 import type { Matrix } from "../../numerics/linearAlgebra.js";
 import { fft, twiddles } from "../../numerics/fft.js";
@@ -53,30 +54,29 @@ export function convolvedAutocovarianceSum(columns: readonly Float64Array[], wei
   const re = new Float64Array(size);
   const im = new Float64Array(size);
   const totals = new Float64Array(2 * k);
-  const finite = columns.map(allFinite);
+  const scales = columns.map(columnScale);
   for (let b = 0; b < k; ) {
     const first = columns[b]!;
-    const second = b + 1 < k && finite[b] && finite[b + 1] ? columns[b + 1]! : null;
+    const second = b + 1 < k && scales[b] !== null && scales[b + 1] !== null ? columns[b + 1]! : null;
+    const firstScale = scales[b] ?? 1;
+    const secondScale = second === null ? 1 : scales[b + 1]!;
     totals.fill(0);
     for (let start = 0; start < n; start += outputs) {
       const count = Math.min(size, n - start);
-      re.set(first.subarray(start, start + count));
-      re.fill(0, count);
+      scaledRows(re, first, start, count, firstScale);
       if (second === null) im.fill(0);
-      else {
-        im.set(second.subarray(start, start + count));
-        im.fill(0, count);
-      }
+      else scaledRows(im, second, start, count, secondScale);
       fft(re, im, table, false);
       timesConjugate(re, im, wr, wi, size);
       fft(re, im, table, true);
       const valid = Math.min(outputs, n - start);
       for (let a = 0; a < k; a++) dotPair(columns[a]!, start, valid, re, im, totals, 2 * a);
     }
-    // The inverse transform was not divided by its length (a power of two: an exact scaling).
+    // The inverse transform was not divided by its length, nor the columns by their scales (powers of
+    // two: exact).
     for (let a = 0; a < k; a++) {
-      m[a]![b] = totals[2 * a]! / size;
-      if (second !== null) m[a]![b + 1] = totals[2 * a + 1]! / size;
+      m[a]![b] = totals[2 * a]! / size / firstScale;
+      if (second !== null) m[a]![b + 1] = totals[2 * a + 1]! / size / secondScale;
     }
     b += second === null ? 1 : 2;
   }
@@ -116,9 +116,24 @@ function dotPair(
   totals[at + 1] = totals[at + 1]! + y;
 }
 
-/** Whether every value is finite (x * 0 is NaN exactly when x is not finite). */
-function allFinite(u: Float64Array): boolean {
-  let zero = 0;
-  for (let i = 0; i < u.length; i++) zero += u[i]! * 0;
-  return zero === 0;
+/** target[i] = u[start + i] scale for i < count, 0 after. */
+function scaledRows(target: Float64Array, u: Float64Array, start: number, count: number, scale: number): void {
+  for (let i = 0; i < count; i++) target[i] = u[start + i]! * scale;
+  target.fill(0, count);
+}
+
+/**
+ * The power of two that brings the column's largest absolute value near 1 (1 for a column of zeros;
+ * within 2^-1000..2^1000, so it and its inverse are normal numbers), or null when a value is not finite.
+ */
+function columnScale(u: Float64Array): number | null {
+  let largest = 0;
+  for (let i = 0; i < u.length; i++) {
+    const size = Math.abs(u[i]!);
+    if (size > largest) largest = size;
+    else if (!(size <= largest)) return null; // NaN
+  }
+  if (!Number.isFinite(largest)) return null;
+  if (largest === 0) return 1;
+  return 2 ** Math.min(1000, Math.max(-1000, -Math.floor(Math.log2(largest))));
 }
