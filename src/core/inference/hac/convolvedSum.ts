@@ -19,6 +19,7 @@
  */
 import type { Matrix } from "../../numerics/linearAlgebra.js";
 import { fft, twiddles } from "../../numerics/fft.js";
+import { scaleFor } from "../../scaling.js";
 
 /** Lag by lag up to this many products a column pair (n times the lags); by convolution beyond. */
 export const CONVOLUTION_FROM = 1 << 22;
@@ -123,8 +124,9 @@ function scaledRows(target: Float64Array, u: Float64Array, start: number, count:
 }
 
 /**
- * The power of two that brings the column's largest absolute value near 1 (1 for a column of zeros;
- * within 2^-1000..2^1000, so it and its inverse are normal numbers), or null when a value is not finite.
+ * The power of two that brings the column's largest absolute value into [1, 2) (scaling.ts's scaleFor;
+ * 1 for a column of zeros), kept within 2^-1000..2^1000 so that it and its inverse are normal numbers,
+ * or null when a value is not finite.
  */
 function columnScale(u: Float64Array): number | null {
   let largest = 0;
@@ -134,6 +136,5 @@ function columnScale(u: Float64Array): number | null {
     else if (!(size <= largest)) return null; // NaN
   }
   if (!Number.isFinite(largest)) return null;
-  if (largest === 0) return 1;
-  return 2 ** Math.min(1000, Math.max(-1000, -Math.floor(Math.log2(largest))));
+  return Math.min(2 ** 1000, Math.max(2 ** -1000, scaleFor(largest)));
 }
