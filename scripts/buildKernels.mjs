@@ -12,6 +12,8 @@ export const kernels = [
     module: "core/inference/hac/autocovarianceKernelWasm.ts",
     constant: "autocovarianceKernelWasm",
   },
+  { wat: "core/numerics/seriesKernel.wat", module: "core/numerics/seriesKernelWasm.ts", constant: "seriesKernelWasm" },
+  { wat: "core/numerics/influenceKernel.wat", module: "core/numerics/influenceKernelWasm.ts", constant: "influenceKernelWasm" },
 ];
 
 const source = (path) => new URL(`../src/${path}`, import.meta.url);

@@ -19,6 +19,7 @@
 import type { DiagnosticDetail } from "./diagnostics.js";
 import type { MomentSummary } from "./identify.js";
 import { CHUNK } from "./moments.js";
+import { copyRows, KERNEL_ROWS, seriesKernel } from "./numerics/seriesKernel.js";
 import { magnitudeRange, magnitudeRatio } from "./parameters.js";
 
 /** Machine epsilon of doubles, 2^-52: a bound on the relative rounding of a value read or subtracted. */
@@ -40,13 +41,33 @@ export interface LargestValues {
   readonly riskFree: number;
 }
 
-export function largestValues(low: ArrayLike<number>, high: ArrayLike<number>, riskFree: number | ArrayLike<number>): LargestValues {
+/**
+ * The largest magnitudes over the rows; in the WebAssembly kernel (numerics/seriesKernel.ts, the same
+ * numbers) unless `useKernel` is false.
+ */
+export function largestValues(
+  low: ArrayLike<number>,
+  high: ArrayLike<number>,
+  riskFree: number | ArrayLike<number>,
+  useKernel = true,
+): LargestValues {
   const rates = typeof riskFree === "number" ? null : riskFree;
   const rate = typeof riskFree === "number" ? riskFree : 0;
   // [low, high, riskFree], carried from chunk to chunk (see largestChunk).
   const state = Float64Array.of(0, 0, rates === null ? Math.abs(rate) : 0);
   const n = low.length;
-  for (let from = 0; from < n; from += CHUNK) largestChunk(low, high, rates, rate, from, Math.min(n, from + CHUNK), state);
+  const kernel = useKernel ? seriesKernel() : null;
+  if (kernel !== null) {
+    kernel.state.set(state);
+    for (let from = 0; from < n; from += KERNEL_ROWS) {
+      const to = Math.min(n, from + KERNEL_ROWS);
+      copyRows(kernel.columns[0], low, from, to);
+      copyRows(kernel.columns[1], high, from, to);
+      if (rates !== null) copyRows(kernel.columns[3], rates, from, to);
+      kernel.largest(to - from, rates !== null, +rate);
+    }
+    state.set(kernel.state.subarray(0, 3));
+  } else for (let from = 0; from < n; from += CHUNK) largestChunk(low, high, rates, rate, from, Math.min(n, from + CHUNK), state);
   return { low: state[0]!, high: state[1]!, riskFree: state[2]! };
 }
 

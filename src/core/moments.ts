@@ -20,6 +20,7 @@
  *   analysis and recommendations", The American Statistician 37(3), 242-247.
  */
 
+import { copyRows, KERNEL_ROWS, type SeriesKernel, seriesKernel } from "./numerics/seriesKernel.js";
 import { CHUNK } from "./numerics/seriesLoops.js";
 
 /** Means and centred sums of squares and cross-products of several aligned series. */
@@ -108,7 +109,7 @@ export function welfordCrossProducts(series: readonly ArrayLike<number>[]): Cros
  */
 function crossProducts3(x: Float64Array, y: Float64Array, z: Float64Array): CrossProducts {
   if (y.length !== x.length || z.length !== x.length) throw new RangeError(`crossProducts: series lengths differ`);
-  return welford3(x, y, z, 0, 0, 1);
+  return welford3(x, y, z, 0, 0, 1, true);
 }
 
 /**
@@ -123,18 +124,21 @@ export function excessCrossProducts(
   riskFree: number | ArrayLike<number>,
   weight: number,
   scale = 1,
+  useKernel = true,
 ): CrossProducts {
   const n = low.length;
   if (high.length !== n || (typeof riskFree !== "number" && riskFree.length !== n))
     throw new RangeError(`excessCrossProducts: series lengths differ`);
-  return welford3(low, high, null, riskFree, weight, scale);
+  return welford3(low, high, null, riskFree, weight, scale, useKernel);
 }
 
 /**
  * The unrolled three-series Welford pass on s (x - r), s (y - r) and z, with z = w s (x - r) +
  * (1 - w) s (y - r) when null; r = 0 and s = 1 give crossProducts3 exactly (x - 0 is x, 1 x is x). The rows are taken in chunks by a
  * small function (`welfordChunk`) that V8 optimises as a whole after a few calls: one long loop would
- * run in on-stack-replaced code, which boxes its doubles and is several times slower.
+ * run in on-stack-replaced code, which boxes its doubles and is several times slower. Unless
+ * `useKernel` is false, the chunks run in WebAssembly (numerics/seriesKernel.ts: the same bits, and
+ * compiled speed from the first row, where V8 would interpret the JavaScript loop of a short sample).
  */
 function welford3(
   x: ArrayLike<number>,
@@ -143,6 +147,7 @@ function welford3(
   riskFree: number | ArrayLike<number>,
   weight: number,
   scale: number,
+  useKernel: boolean,
 ): CrossProducts {
   const n = x.length;
   const rate = typeof riskFree === "number" ? riskFree : 0;
@@ -153,7 +158,10 @@ function welford3(
   const kz = n > 0 ? (z === null ? weight * kx + (1 - weight) * ky : z[0]!) : 0;
   const state = new Float64Array(STATE_SIZE);
   const shift = Float64Array.of(kx, ky, kz, scale);
-  for (let from = 0; from < n; from += CHUNK) welfordChunk(x, y, z, rates, rate, weight, shift, from, Math.min(n, from + CHUNK), state);
+  const kernel = useKernel ? seriesKernel() : null;
+  if (kernel !== null) welfordInKernel(kernel, x, y, z, rates, rate, weight, shift, state);
+  else
+    for (let from = 0; from < n; from += CHUNK) welfordChunk(x, y, z, rates, rate, weight, shift, from, Math.min(n, from + CHUNK), state);
   // A running value plus its carried error: state[value] + state[error].
   const total = (value: number, error: number): number => state[value]! + state[error]!;
   const xy = total(7, 13);
@@ -168,6 +176,33 @@ function welford3(
       [xz, yz, total(11, 17)],
     ],
   };
+}
+
+/** welford3's pass in the kernel, chunk by chunk, its state then copied to `state`. */
+function welfordInKernel(
+  kernel: SeriesKernel,
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  z: Float64Array | null,
+  rates: ArrayLike<number> | null,
+  rate: number,
+  weight: number,
+  shift: Float64Array,
+  state: Float64Array,
+): void {
+  const n = x.length;
+  const [cx, cy, cz, cr] = kernel.columns;
+  kernel.state.fill(0);
+  kernel.parameters.set(shift);
+  for (let from = 0; from < n; from += KERNEL_ROWS) {
+    const to = Math.min(n, from + KERNEL_ROWS);
+    copyRows(cx, x, from, to);
+    copyRows(cy, y, from, to);
+    if (z !== null) copyRows(cz, z, from, to);
+    if (rates !== null) copyRows(cr, rates, from, to);
+    kernel.welford(from, to - from, z !== null, rates !== null, +rate, weight);
+  }
+  state.set(kernel.state.subarray(0, STATE_SIZE));
 }
 
 /** Rows per call of welfordChunk (and of the other chunked passes, numerics/seriesLoops.ts). */

@@ -15,6 +15,7 @@
  */
 
 import { CHUNK } from "./moments.js";
+import { copyRows, KERNEL_ROWS, seriesKernel } from "./numerics/seriesKernel.js";
 import { studentTTwoSidedP } from "./numerics/studentT.js";
 import type { LineFit } from "./types.js";
 
@@ -79,7 +80,8 @@ export function residualSumOfSquares(x: ArrayLike<number>, y: ArrayLike<number>,
  * The residual sums of squares of solve's two CAPM fits in one pass, from the raw series: y = low - r
  * (then high - r) on x = w (low - r) + (1 - w)(high - r), formed on the fly exactly as
  * `excessCrossProducts` forms them, so each equals `residualSumOfSquares` on the built series bit for
- * bit (with the same `scale`). In chunks of rows, for the reason given in moments.ts (`CHUNK`).
+ * bit (with the same `scale`). In chunks of rows, for the reason given in moments.ts (`CHUNK`); in the
+ * WebAssembly kernel (numerics/seriesKernel.ts, the same bits) unless `useKernel` is false.
  */
 export function excessResidualSums(
   low: ArrayLike<number>,
@@ -90,14 +92,27 @@ export function excessResidualSums(
   lowLine: { readonly ybar: number; readonly beta: number },
   highLine: { readonly ybar: number; readonly beta: number },
   scale = 1,
+  useKernel = true,
 ): [number, number] {
   const rates = typeof riskFree === "number" ? null : riskFree;
   const rate = typeof riskFree === "number" ? riskFree : 0;
   // Sums and compensations of the low and the high residuals.
   const state = new Float64Array(4);
   const fit = Float64Array.of(weight, xbar, lowLine.ybar, lowLine.beta, highLine.ybar, highLine.beta, scale);
-  for (let from = 0; from < low.length; from += CHUNK)
-    residualChunk(low, high, rates, rate, fit, from, Math.min(low.length, from + CHUNK), state);
+  const n = low.length;
+  const kernel = useKernel ? seriesKernel() : null;
+  if (kernel !== null) {
+    kernel.state.fill(0, 0, 4);
+    kernel.parameters.set(fit);
+    for (let from = 0; from < n; from += KERNEL_ROWS) {
+      const to = Math.min(n, from + KERNEL_ROWS);
+      copyRows(kernel.columns[0], low, from, to);
+      copyRows(kernel.columns[1], high, from, to);
+      if (rates !== null) copyRows(kernel.columns[3], rates, from, to);
+      kernel.residuals(to - from, rates !== null, +rate);
+    }
+    state.set(kernel.state.subarray(0, 4));
+  } else for (let from = 0; from < n; from += CHUNK) residualChunk(low, high, rates, rate, fit, from, Math.min(n, from + CHUNK), state);
   return [state[0]! + state[1]!, state[2]! + state[3]!];
 }
 

@@ -19,6 +19,7 @@
  */
 
 import { borrowSeries } from "../numerics/scratch.js";
+import { copyRows, influenceKernel, KERNEL_ROWS } from "../numerics/seriesKernel.js";
 import { kernelSum } from "./hac/kernelSum.js";
 import { bartlettFixedBFactor } from "./hac/fixedB.js";
 import { defaultHac, type HacKernel, type HacOptions } from "./options.js";
@@ -82,14 +83,29 @@ export function boundsLongRun(
 /**
  * The two bounds' influence series straight from the excess returns x (low) and y (high), without the
  * three moment series z_t: the same numbers as `influenceSeries(momentSeries(x, y), gradient)` (the
- * same sums in the same order), in two arrays of n instead of five.
+ * same sums in the same order), in two arrays of n instead of five. Series of up to KERNEL_ROWS rows go
+ * through the WebAssembly kernel (numerics/seriesKernel.ts, the same bits) unless `useKernel` is false.
  */
 export function boundInfluenceSeries(
   x: ArrayLike<number>,
   y: ArrayLike<number>,
   gradients: { readonly lower: readonly number[]; readonly upper: readonly number[] },
+  useKernel = true,
 ): { lower: Float64Array; upper: Float64Array } {
   const n = x.length;
+  const kernel = useKernel && n <= KERNEL_ROWS ? influenceKernel() : null;
+  if (kernel !== null) {
+    copyRows(kernel.columns[0], x, 0, n);
+    copyRows(kernel.columns[1], y, 0, n);
+    kernel.parameters.set(gradients.lower.slice(0, 3));
+    kernel.parameters.set(gradients.upper.slice(0, 3), 3);
+    kernel.boundInfluence(n);
+    const lower = borrowSeries(n);
+    const upper = borrowSeries(n);
+    lower.set(kernel.columns[2].subarray(0, n));
+    upper.set(kernel.columns[3].subarray(0, n));
+    return { lower, upper };
+  }
   const [mx, my] = plainMeans(x, y);
   // In chunks by a small function V8 optimises whole (seriesLoops.ts).
   const sums = new Float64Array(3);

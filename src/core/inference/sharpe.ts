@@ -15,6 +15,7 @@
  */
 
 import { borrowSeries, giveBack } from "../numerics/scratch.js";
+import { copyRows, type InfluenceKernel, influenceKernel, KERNEL_ROWS } from "../numerics/seriesKernel.js";
 import { longRunCovarianceInPlace } from "./hac/longRun.js";
 import { bilinear } from "../numerics/linearAlgebra.js";
 import type { HacOptions } from "./options.js";
@@ -39,24 +40,16 @@ export function sharpeMertensStdErr(sharpe: number, skewness: number, kurtosis: 
 }
 
 /** Estimate, Lo iid and HAC delta-method standard errors of the Sharpe ratio of `excess`. */
-export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {}): SharpeStdErrors {
+export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {}, useKernel = true): SharpeStdErrors {
   const n = excess.length;
-  // In chunks by small functions V8 optimises whole (seriesLoops.ts); sums carried in `sums`.
-  const mu = plainSum(excess) / n;
-  const sums = new Float64Array(5);
-  for (let from = 0; from < n; from += CHUNK) squaredDeviationChunk(excess, mu, from, Math.min(n, from + CHUNK), sums);
-  const ss = sums[0]!;
-  const variance = ss / (n - 1);
-  const sigma = Math.sqrt(variance);
-  const estimate = mu / sigma;
   // Both are written in full below before they are read.
   const first = borrowSeries(n);
   const second = borrowSeries(n);
   // The moment functions standardised, (d / sigma, (d / sigma)^2 - 1), with the gradient (1, -SR / 2):
   // the same quadratic form for a given bandwidth, and an automatic bandwidth free of the returns' units.
   // sums: m2, m3, m4 and the two series' plain sums, for the long-run covariance's means (longRun.ts).
-  sums.fill(0);
-  for (let from = 0; from < n; from += CHUNK) standardChunk(excess, mu, sigma, first, second, from, Math.min(n, from + CHUNK), sums);
+  const { mu, sigma, sums } = standardise(excess, first, second, useKernel && n <= KERNEL_ROWS ? influenceKernel() : null);
+  const estimate = mu / sigma;
   const [m2, m3, m4, sumFirst, sumSecond] = sums as unknown as [number, number, number, number, number];
   // Skewness and kurtosis are ratios of central moments: the same from z as from the returns.
   const skewness = m3 / n / (m2 / n) ** 1.5;
@@ -72,6 +65,37 @@ export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {})
     // A quadratic form of a positive semi-definite matrix: negative only by rounding.
     hacStdErr: Math.sqrt(Math.max(0, bilinear(gradient, sigmaHat, gradient)) / n),
   };
+}
+
+/**
+ * The mean, the standard deviation (divisor n - 1), the standardised series z and z^2 - 1 (into `first`
+ * and `second`) and sums of z^2, z^3, z^4, z and z^2 - 1. In chunks by small functions V8 optimises
+ * whole (seriesLoops.ts), or in the WebAssembly kernel (numerics/seriesKernel.ts, the same bits).
+ */
+function standardise(
+  excess: ArrayLike<number>,
+  first: Float64Array,
+  second: Float64Array,
+  kernel: InfluenceKernel | null,
+): { mu: number; sigma: number; sums: Float64Array } {
+  const n = excess.length;
+  const sums = new Float64Array(5);
+  if (kernel !== null) {
+    copyRows(kernel.columns[0], excess, 0, n);
+    kernel.standardise(n);
+    first.set(kernel.columns[1].subarray(0, n));
+    second.set(kernel.columns[2].subarray(0, n));
+    sums.set(kernel.state.subarray(3, 8));
+    return { mu: kernel.state[0]!, sigma: kernel.state[2]!, sums };
+  }
+  const mu = plainSum(excess) / n;
+  for (let from = 0; from < n; from += CHUNK) squaredDeviationChunk(excess, mu, from, Math.min(n, from + CHUNK), sums);
+  const ss = sums[0]!;
+  const variance = ss / (n - 1);
+  const sigma = Math.sqrt(variance);
+  sums.fill(0);
+  for (let from = 0; from < n; from += CHUNK) standardChunk(excess, mu, sigma, first, second, from, Math.min(n, from + CHUNK), sums);
+  return { mu, sigma, sums };
 }
 
 function squaredDeviationChunk(x: ArrayLike<number>, mu: number, from: number, to: number, sums: Float64Array): void {

@@ -2,7 +2,9 @@
  * Elementwise passes over long series, taken in chunks of rows by small functions that V8 optimises
  * as a whole after a few calls: one long loop inside a larger function runs in on-stack-replaced
  * code on Node 20, which boxes its doubles and is several times slower (see moments.ts).
- * The arithmetic is that of the plain loop, row by row: the results are the same bits.
+ * The arithmetic is that of the plain loop, row by row: the results are the same bits. Series of up to
+ * KERNEL_ROWS rows go through the WebAssembly kernel instead where it has the pass (seriesKernel.ts): V8
+ * would interpret the loop on so few rows.
  *
  * A value that is either a number parameter or an array's element (`rates === null ? rate : rates[t]`)
  * is a phi of a tagged value and a double to the optimiser, which then boxes the element into a new
@@ -10,6 +12,7 @@
  * parameter as `+rate` first (the same number) makes the phi a double: no allocation, and 2.4 times
  * faster in isolation. The chunk functions with a risk-free rate or series do so (`fixedRate`).
  */
+import { copyRows, KERNEL_ROWS, seriesKernel } from "./seriesKernel.js";
 
 /**
  * Rows per call of a chunked pass (these and every other one in the core): small enough for V8 to
@@ -32,8 +35,16 @@ function sumChunk(a: ArrayLike<number>, from: number, to: number, total: Float64
 }
 
 /** out[t] = a[t] * b[t]. */
-export function productInto(out: Float64Array, a: ArrayLike<number>, b: ArrayLike<number>): Float64Array {
+export function productInto(out: Float64Array, a: ArrayLike<number>, b: ArrayLike<number>, useKernel = true): Float64Array {
   const n = out.length;
+  const kernel = useKernel && n <= KERNEL_ROWS ? seriesKernel() : null;
+  if (kernel !== null) {
+    copyRows(kernel.columns[0], a, 0, n);
+    copyRows(kernel.columns[1], b, 0, n);
+    kernel.product(n);
+    out.set(kernel.columns[2].subarray(0, n));
+    return out;
+  }
   for (let from = 0; from < n; from += CHUNK) productChunk(out, a, b, from, Math.min(n, from + CHUNK));
   return out;
 }
@@ -54,8 +65,23 @@ function scaledChunk(out: Float64Array, w: number, a: ArrayLike<number>, from: n
 }
 
 /** out[t] = w * a[t] + v * b[t]. */
-export function blendInto(out: Float64Array, w: number, a: ArrayLike<number>, v: number, b: ArrayLike<number>): Float64Array {
+export function blendInto(
+  out: Float64Array,
+  w: number,
+  a: ArrayLike<number>,
+  v: number,
+  b: ArrayLike<number>,
+  useKernel = true,
+): Float64Array {
   const n = out.length;
+  const kernel = useKernel && n <= KERNEL_ROWS ? seriesKernel() : null;
+  if (kernel !== null) {
+    copyRows(kernel.columns[0], a, 0, n);
+    copyRows(kernel.columns[1], b, 0, n);
+    kernel.blend(n, w, v);
+    out.set(kernel.columns[2].subarray(0, n));
+    return out;
+  }
   for (let from = 0; from < n; from += CHUNK) blendChunk(out, w, a, v, b, from, Math.min(n, from + CHUNK));
   return out;
 }

@@ -21,6 +21,7 @@ import type { HacOptions, LongRunMethod } from "../inference/options.js";
 import { excessCrossProducts } from "../moments.js";
 import { normalQuantile } from "../numerics/normal.js";
 import { CHUNK } from "../numerics/seriesLoops.js";
+import { copyRows, type InfluenceKernel, influenceKernel, KERNEL_ROWS, PRICING_ROWS } from "../numerics/seriesKernel.js";
 import { borrowSeries, giveBack, withScratch } from "../numerics/scratch.js";
 import type { SolvedMoments } from "../solve.js";
 import type { ReturnSample } from "../types.js";
@@ -191,10 +192,10 @@ function pricingOf(sample: ReturnSample, options: PricingOptions): Pricing | nul
   };
 }
 
-type Six = [Float64Array, Float64Array, Float64Array, Float64Array, Float64Array, Float64Array];
+export type Six = [Float64Array, Float64Array, Float64Array, Float64Array, Float64Array, Float64Array];
 
 /** What the influence series are made of: the point estimates and the bounds' gradients. */
-interface InfluenceTerms {
+export interface InfluenceTerms {
   readonly scale: number;
   readonly w: number;
   readonly v: number;
@@ -214,17 +215,45 @@ interface InfluenceTerms {
 
 /**
  * The six influence series of mu_x, lambda, d1, d2 and the two ends, row by row, in chunks by a
- * small function with the terms in locals, which V8 optimises as a whole (numerics/seriesLoops.ts).
+ * small function with the terms in locals, which V8 optimises as a whole (numerics/seriesLoops.ts);
+ * series of up to KERNEL_ROWS rows in the WebAssembly kernel (numerics/seriesKernel.ts, the same bits),
+ * unless `useKernel` is false. Exported for the kernel's tests.
  */
-function fillInfluenceSeries(
+export function fillInfluenceSeries(
+  series: Six,
+  low: ArrayLike<number>,
+  high: ArrayLike<number>,
+  riskFree: number | ArrayLike<number>,
+  terms: InfluenceTerms,
+  useKernel = true,
+): void {
+  const n = low.length;
+  const kernel = useKernel && n <= KERNEL_ROWS ? influenceKernel() : null;
+  if (kernel !== null) influenceInKernel(kernel, series, low, high, riskFree, terms);
+  else for (let from = 0; from < n; from += CHUNK) influenceChunk(series, low, high, riskFree, terms, from, Math.min(n, from + CHUNK));
+}
+
+/** fillInfluenceSeries in the WebAssembly kernel, PRICING_ROWS rows at a time (the same bits). */
+function influenceInKernel(
+  kernel: InfluenceKernel,
   series: Six,
   low: ArrayLike<number>,
   high: ArrayLike<number>,
   riskFree: number | ArrayLike<number>,
   terms: InfluenceTerms,
 ): void {
+  const { scale, w, v, mx, my, vx, vy, c, lower, upper, lambda, beta, varM, gl, gu } = terms;
+  kernel.parameters.set([scale, w, v, mx, my, vx, vy, c, lower, upper, lambda, beta, varM, gl[1]!, gl[2]!, gu[0]!, gu[2]!]);
+  const rates = typeof riskFree === "number" ? null : riskFree;
   const n = low.length;
-  for (let from = 0; from < n; from += CHUNK) influenceChunk(series, low, high, riskFree, terms, from, Math.min(n, from + CHUNK));
+  for (let from = 0; from < n; from += PRICING_ROWS) {
+    const to = Math.min(n, from + PRICING_ROWS);
+    copyRows(kernel.columns[0], low, from, to);
+    copyRows(kernel.columns[1], high, from, to);
+    if (rates !== null) copyRows(kernel.columns[3], rates, from, to);
+    kernel.pricingInfluence(to - from, rates !== null, rates === null ? +riskFree : 0);
+    series.forEach((f, k) => f.set(kernel.pricingSeries(k, to - from), from));
+  }
 }
 
 function influenceChunk(

@@ -14,6 +14,7 @@
 
 import { largestValues } from "../../cancellation.js";
 import { CHUNK } from "../../numerics/seriesLoops.js";
+import { copyRows, KERNEL_ROWS, seriesKernel } from "../../numerics/seriesKernel.js";
 import { scaleFor } from "../../scaling.js";
 import { bootstrapQuantities, quantityCount, writeStatistics } from "./statistics.js";
 import { drawBlocks, replicateRandom, validateBlockLength } from "./stationaryBootstrap.js";
@@ -97,6 +98,17 @@ export function excessReturnsScaledBy(
   const high = allocate(n);
   const rates = typeof rf === "number" ? null : rf;
   const rate = typeof rf === "number" ? rf : 0;
+  const kernel = n <= KERNEL_ROWS ? seriesKernel() : null;
+  if (kernel !== null) {
+    // Short series in the WebAssembly kernel (numerics/seriesKernel.ts: the same bits).
+    copyRows(kernel.columns[0], data.low, 0, n);
+    copyRows(kernel.columns[1], data.high, 0, n);
+    if (rates !== null) copyRows(kernel.columns[3], rates, 0, n);
+    kernel.scaledExcess(n, rates !== null, +rate, scale);
+    low.set(kernel.columns[0].subarray(0, n));
+    high.set(kernel.columns[1].subarray(0, n));
+    return { low, high, scale };
+  }
   // In chunks by a small function V8 optimises whole (numerics/seriesLoops.ts).
   for (let from = 0; from < n; from += CHUNK)
     scaledExcessChunk(data.low, data.high, rates, rate, scale, low, high, from, Math.min(n, from + CHUNK));

@@ -18,6 +18,7 @@
  * summed in blocks of 1,024 windows (pairwise at one level) to keep the total's rounding small.
  */
 import type { Matrix } from "../../numerics/linearAlgebra.js";
+import { influenceKernel, KERNEL_ROWS } from "../../numerics/seriesKernel.js";
 
 /** Windows per block of the sums of W W' (each block summed apart, then added to the total). */
 const BLOCK = 1024;
@@ -122,12 +123,23 @@ function windowSquares(columns: readonly Float64Array[], width: number): Float64
  * windowSquares for two columns (most sums: the bounds, each Sharpe ratio, each CAPM fit), the same
  * operations in the same order with the running pairs in local variables: the same bits, faster. The
  * windows go by blocks of 1,024 (the blocks of the sums) in a small function V8 optimises whole; the
- * running pairs and the total are carried in `state`.
+ * running pairs and the total are carried in `state`. Series of up to KERNEL_ROWS rows go through the
+ * WebAssembly twin (numerics/seriesKernel.ts, the same bits) unless `useKernel` is false: short series
+ * would run this loop in V8's interpreter.
  */
-function windowSquaresOfTwo(x: Float64Array, y: Float64Array, width: number): Float64Array {
+export function windowSquaresOfTwo(x: Float64Array, y: Float64Array, width: number, useKernel = true): Float64Array {
   const n = x.length;
   // hx, lx, hy, ly, then the totals xx, xy, -, yy (returned as state.subarray(4)).
   const state = new Float64Array(8);
+  const kernel = useKernel && n <= KERNEL_ROWS ? influenceKernel() : null;
+  if (kernel !== null) {
+    kernel.columns[0].set(x);
+    kernel.columns[1].set(y);
+    kernel.state.fill(0, 0, 8);
+    kernel.windowsOfTwo(n, width);
+    state.set(kernel.state.subarray(0, 8));
+    return state.subarray(4);
+  }
   for (let t = 1 - width; t < n; t += BLOCK) windowBlockOfTwo(x, y, width, t, Math.min(n, t + BLOCK), state);
   return state.subarray(4);
 }

@@ -13,6 +13,7 @@ import type { ColumnPairs } from "./bartlettWindows.js";
 import { kernelSum } from "./kernelSum.js";
 import { scale, symmetrise, type Matrix } from "../../numerics/linearAlgebra.js";
 import { plainSum } from "../../numerics/seriesLoops.js";
+import { KERNEL_ROWS, type SeriesKernel, seriesKernel } from "../../numerics/seriesKernel.js";
 import type { HacKernel, HacOptions } from "../options.js";
 import { welfordCrossProducts } from "../../moments.js";
 
@@ -46,10 +47,12 @@ export function longRunCovarianceInPlace(
 ): LongRunCovariance {
   const n = columns[0]?.length ?? 0;
   if (n < 2) throw new RangeError("longRunCovariance: needs at least 2 rows");
+  const kernel = seriesKernel();
   columns.forEach((column, a) => {
     let mean = sums?.[a] ?? plainSum(column);
     mean /= n;
-    for (let t = 0; t < n; t++) column[t] = column[t]! - mean;
+    if (kernel === null) for (let t = 0; t < n; t++) column[t] = column[t]! - mean;
+    else centreInKernel(kernel, column, mean);
   });
   const estimate = kernelSum(
     columns,
@@ -70,4 +73,15 @@ export function longRunCovarianceInPlace(
 export function sampleCovarianceOf(columns: readonly Float64Array[]): Matrix {
   const cp = welfordCrossProducts(columns);
   return cp.sums.map((row) => row.map((value) => value / (cp.n - 1)));
+}
+
+/** column[t] - mean for every row, in place, in the WebAssembly kernel (the same bits as the loop above). */
+function centreInKernel(kernel: SeriesKernel, column: Float64Array, mean: number): void {
+  const [c0] = kernel.columns;
+  for (let from = 0; from < column.length; from += KERNEL_ROWS) {
+    const to = Math.min(column.length, from + KERNEL_ROWS);
+    c0.set(column.subarray(from, to));
+    kernel.centre(to - from, mean);
+    column.set(c0.subarray(0, to - from), from);
+  }
 }

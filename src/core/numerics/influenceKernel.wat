@@ -1,0 +1,268 @@
+;; The uncertainty's influence passes (seriesKernel.ts, influenceKernel): the Bartlett window sums, the
+;; bounds' and the pricing assessment's influence series and the Sharpe ratio's standardised series, in
+;; WebAssembly for the reason and with the rule given in seriesKernel.wat (the JavaScript twin's
+;; arithmetic in its order, so the same bits).
+;;
+;; Memory: as seriesKernel.wat's (seriesKernel.ts lays out both): a state of up to 32 doubles at 0, up
+;; to 32 parameters at 256, then four columns of 32,768 doubles from 512.
+(module
+  (memory (export "memory") 17 17)
+
+  ;; bartlettWindows.ts windowSquaresOfTwo over a whole series of n rows, x in column 0 and y in column 1:
+  ;; the windows t = 1 - width .. n - 1 by blocks of 1,024, each window's sums hx + lx and hy + ly kept
+  ;; with TwoSum as rows enter and leave, the block's sums of squares added to the totals at its end.
+  ;; State: hx lx hy ly, then the totals xx xy - yy (all from 0).
+  (func (export "windowsOfTwo") (param $n i32) (param $width i32)
+    (local $t i32) (local $stop i32) (local $entering i32)
+    (local $hx f64) (local $lx f64) (local $hy f64) (local $ly f64)
+    (local $xx f64) (local $xy f64) (local $yy f64)
+    (local $u f64) (local $sum f64) (local $virtual f64) (local $wx f64) (local $wy f64)
+    (local.set $t (i32.sub (i32.const 1) (local.get $width)))
+    (block $done
+      (loop $block
+        (br_if $done (i32.ge_s (local.get $t) (local.get $n)))
+        (local.set $stop (i32.add (local.get $t) (i32.const 1024)))
+        (if (i32.gt_s (local.get $stop) (local.get $n)) (then (local.set $stop (local.get $n))))
+        (local.set $xx (f64.const 0))
+        (local.set $xy (f64.const 0))
+        (local.set $yy (f64.const 0))
+        (loop $window
+          (local.set $entering (i32.sub (i32.add (local.get $t) (local.get $width)) (i32.const 1)))
+          (if (i32.lt_s (local.get $entering) (local.get $n))
+            (then
+              (local.set $u (f64.load offset=512 (i32.shl (local.get $entering) (i32.const 3))))
+              (local.set $sum (f64.add (local.get $hx) (local.get $u)))
+              (local.set $virtual (f64.sub (local.get $sum) (local.get $hx)))
+              (local.set $lx (f64.add (local.get $lx) (f64.add
+                (f64.sub (local.get $hx) (f64.sub (local.get $sum) (local.get $virtual)))
+                (f64.sub (local.get $u) (local.get $virtual)))))
+              (local.set $hx (local.get $sum))))
+          (if (i32.gt_s (local.get $t) (i32.const 0))
+            (then
+              (local.set $u (f64.neg (f64.load offset=504 (i32.shl (local.get $t) (i32.const 3)))))
+              (local.set $sum (f64.add (local.get $hx) (local.get $u)))
+              (local.set $virtual (f64.sub (local.get $sum) (local.get $hx)))
+              (local.set $lx (f64.add (local.get $lx) (f64.add
+                (f64.sub (local.get $hx) (f64.sub (local.get $sum) (local.get $virtual)))
+                (f64.sub (local.get $u) (local.get $virtual)))))
+              (local.set $hx (local.get $sum))))
+          (if (i32.lt_s (local.get $entering) (local.get $n))
+            (then
+              (local.set $u (f64.load offset=262656 (i32.shl (local.get $entering) (i32.const 3))))
+              (local.set $sum (f64.add (local.get $hy) (local.get $u)))
+              (local.set $virtual (f64.sub (local.get $sum) (local.get $hy)))
+              (local.set $ly (f64.add (local.get $ly) (f64.add
+                (f64.sub (local.get $hy) (f64.sub (local.get $sum) (local.get $virtual)))
+                (f64.sub (local.get $u) (local.get $virtual)))))
+              (local.set $hy (local.get $sum))))
+          (if (i32.gt_s (local.get $t) (i32.const 0))
+            (then
+              (local.set $u (f64.neg (f64.load offset=262648 (i32.shl (local.get $t) (i32.const 3)))))
+              (local.set $sum (f64.add (local.get $hy) (local.get $u)))
+              (local.set $virtual (f64.sub (local.get $sum) (local.get $hy)))
+              (local.set $ly (f64.add (local.get $ly) (f64.add
+                (f64.sub (local.get $hy) (f64.sub (local.get $sum) (local.get $virtual)))
+                (f64.sub (local.get $u) (local.get $virtual)))))
+              (local.set $hy (local.get $sum))))
+          (local.set $wx (f64.add (local.get $hx) (local.get $lx)))
+          (local.set $wy (f64.add (local.get $hy) (local.get $ly)))
+          (local.set $xx (f64.add (local.get $xx) (f64.mul (local.get $wx) (local.get $wx))))
+          (local.set $xy (f64.add (local.get $xy) (f64.mul (local.get $wx) (local.get $wy))))
+          (local.set $yy (f64.add (local.get $yy) (f64.mul (local.get $wy) (local.get $wy))))
+          (local.set $t (i32.add (local.get $t) (i32.const 1)))
+          (br_if $window (i32.lt_s (local.get $t) (local.get $stop))))
+        (f64.store (i32.const 32) (f64.add (f64.load (i32.const 32)) (local.get $xx)))
+        (f64.store (i32.const 40) (f64.add (f64.load (i32.const 40)) (local.get $xy)))
+        (f64.store (i32.const 56) (f64.add (f64.load (i32.const 56)) (local.get $yy)))
+        (br $block)))
+    (f64.store (i32.const 0) (local.get $hx))
+    (f64.store (i32.const 8) (local.get $lx))
+    (f64.store (i32.const 16) (local.get $hy))
+    (f64.store (i32.const 24) (local.get $ly)))
+
+  ;; boundsLongRun.ts boundInfluenceSeries over a whole series of n rows: x in column 0, y in column 1;
+  ;; the gradients at 256 (lower g0 g1 g2, upper g0 g1 g2). The plain means mx my, the centred sums'
+  ;; means m0 m1 m2, then each bound's series f_t = sum of g_a (term_a - m_a) over the nonzero g_a,
+  ;; lower into column 2 and upper into column 3. State 0..4: mx my m0 m1 m2.
+  (func (export "boundInfluence") (param $n i32)
+    (local $t i32) (local $p i32) (local $count f64) (local $mx f64) (local $my f64)
+    (local $sxx f64) (local $syy f64) (local $sxy f64) (local $dx f64) (local $dy f64)
+    (local $m0 f64) (local $m1 f64) (local $m2 f64)
+    (local.set $count (f64.convert_i32_s (local.get $n)))
+    (block $done
+      (loop $row
+        (br_if $done (i32.ge_s (local.get $t) (local.get $n)))
+        (local.set $p (i32.shl (local.get $t) (i32.const 3)))
+        (local.set $mx (f64.add (local.get $mx) (f64.load offset=512 (local.get $p))))
+        (local.set $my (f64.add (local.get $my) (f64.load offset=262656 (local.get $p))))
+        (local.set $t (i32.add (local.get $t) (i32.const 1)))
+        (br $row)))
+    (local.set $mx (f64.div (local.get $mx) (local.get $count)))
+    (local.set $my (f64.div (local.get $my) (local.get $count)))
+    (local.set $t (i32.const 0))
+    (block $done
+      (loop $row
+        (br_if $done (i32.ge_s (local.get $t) (local.get $n)))
+        (local.set $p (i32.shl (local.get $t) (i32.const 3)))
+        (local.set $dx (f64.sub (f64.load offset=512 (local.get $p)) (local.get $mx)))
+        (local.set $dy (f64.sub (f64.load offset=262656 (local.get $p)) (local.get $my)))
+        (local.set $sxx (f64.add (local.get $sxx) (f64.mul (local.get $dx) (local.get $dx))))
+        (local.set $syy (f64.add (local.get $syy) (f64.mul (local.get $dy) (local.get $dy))))
+        (local.set $sxy (f64.add (local.get $sxy) (f64.mul (local.get $dx) (local.get $dy))))
+        (local.set $t (i32.add (local.get $t) (i32.const 1)))
+        (br $row)))
+    (local.set $m0 (f64.div (local.get $sxx) (local.get $count)))
+    (local.set $m1 (f64.div (local.get $syy) (local.get $count)))
+    (local.set $m2 (f64.div (local.get $sxy) (local.get $count)))
+    (call $influence (local.get $n) (local.get $mx) (local.get $my) (f64.load (i32.const 256)) (f64.load (i32.const 264))
+      (f64.load (i32.const 272)) (local.get $m0) (local.get $m1) (local.get $m2) (i32.const 524800))
+    (call $influence (local.get $n) (local.get $mx) (local.get $my) (f64.load (i32.const 280)) (f64.load (i32.const 288))
+      (f64.load (i32.const 296)) (local.get $m0) (local.get $m1) (local.get $m2) (i32.const 786944))
+    (f64.store (i32.const 0) (local.get $mx))
+    (f64.store (i32.const 8) (local.get $my))
+    (f64.store (i32.const 16) (local.get $m0))
+    (f64.store (i32.const 24) (local.get $m1))
+    (f64.store (i32.const 32) (local.get $m2)))
+
+  ;; boundsLongRun.ts influenceChunk over rows 0..n-1 into the column at byte address `out`.
+  (func $influence (param $n i32) (param $mx f64) (param $my f64) (param $g0 f64) (param $g1 f64) (param $g2 f64)
+    (param $m0 f64) (param $m1 f64) (param $m2 f64) (param $out i32)
+    (local $t i32) (local $p i32) (local $dx f64) (local $dy f64) (local $v f64)
+    (block $done
+      (loop $row
+        (br_if $done (i32.ge_s (local.get $t) (local.get $n)))
+        (local.set $p (i32.shl (local.get $t) (i32.const 3)))
+        (local.set $dx (f64.sub (f64.load offset=512 (local.get $p)) (local.get $mx)))
+        (local.set $dy (f64.sub (f64.load offset=262656 (local.get $p)) (local.get $my)))
+        (local.set $v (f64.const 0))
+        (if (f64.ne (local.get $g0) (f64.const 0)) (then (local.set $v (f64.add (local.get $v)
+          (f64.mul (local.get $g0) (f64.sub (f64.mul (local.get $dx) (local.get $dx)) (local.get $m0)))))))
+        (if (f64.ne (local.get $g1) (f64.const 0)) (then (local.set $v (f64.add (local.get $v)
+          (f64.mul (local.get $g1) (f64.sub (f64.mul (local.get $dy) (local.get $dy)) (local.get $m1)))))))
+        (if (f64.ne (local.get $g2) (f64.const 0)) (then (local.set $v (f64.add (local.get $v)
+          (f64.mul (local.get $g2) (f64.sub (f64.mul (local.get $dx) (local.get $dy)) (local.get $m2)))))))
+        (f64.store (i32.add (local.get $out) (local.get $p)) (local.get $v))
+        (local.set $t (i32.add (local.get $t) (i32.const 1)))
+        (br $row))))
+
+  ;; sharpe.ts sharpeStdErrors' passes over a whole series of n rows in column 0: the mean mu (plain
+  ;; sum over n), the sum of squared deviations ss, sigma = sqrt(ss / (n - 1)), then z = (x - mu) / sigma
+  ;; into column 1 and z^2 - 1 into column 2 with their sums. State 0..7: mu ss sigma m2 m3 m4 sumFirst
+  ;; sumSecond.
+  (func (export "standardise") (param $n i32)
+    (local $t i32) (local $p i32) (local $mu f64) (local $ss f64) (local $sigma f64) (local $d f64)
+    (local $z f64) (local $zz f64) (local $m2 f64) (local $m3 f64) (local $m4 f64) (local $sumFirst f64)
+    (local $sumSecond f64)
+    (block $done
+      (loop $row
+        (br_if $done (i32.ge_s (local.get $t) (local.get $n)))
+        (local.set $mu (f64.add (local.get $mu) (f64.load offset=512 (i32.shl (local.get $t) (i32.const 3)))))
+        (local.set $t (i32.add (local.get $t) (i32.const 1)))
+        (br $row)))
+    (local.set $mu (f64.div (local.get $mu) (f64.convert_i32_s (local.get $n))))
+    (local.set $t (i32.const 0))
+    (block $done
+      (loop $row
+        (br_if $done (i32.ge_s (local.get $t) (local.get $n)))
+        (local.set $d (f64.sub (f64.load offset=512 (i32.shl (local.get $t) (i32.const 3))) (local.get $mu)))
+        (local.set $ss (f64.add (local.get $ss) (f64.mul (local.get $d) (local.get $d))))
+        (local.set $t (i32.add (local.get $t) (i32.const 1)))
+        (br $row)))
+    (local.set $sigma (f64.sqrt (f64.div (local.get $ss) (f64.convert_i32_s (i32.sub (local.get $n) (i32.const 1))))))
+    (local.set $t (i32.const 0))
+    (block $done
+      (loop $row
+        (br_if $done (i32.ge_s (local.get $t) (local.get $n)))
+        (local.set $p (i32.shl (local.get $t) (i32.const 3)))
+        (local.set $z (f64.div (f64.sub (f64.load offset=512 (local.get $p)) (local.get $mu)) (local.get $sigma)))
+        (local.set $zz (f64.sub (f64.mul (local.get $z) (local.get $z)) (f64.const 1)))
+        (f64.store offset=262656 (local.get $p) (local.get $z))
+        (f64.store offset=524800 (local.get $p) (local.get $zz))
+        (local.set $sumFirst (f64.add (local.get $sumFirst) (local.get $z)))
+        (local.set $sumSecond (f64.add (local.get $sumSecond) (local.get $zz)))
+        (local.set $m2 (f64.add (local.get $m2) (f64.mul (local.get $z) (local.get $z))))
+        (local.set $m3 (f64.add (local.get $m3) (f64.mul (f64.mul (local.get $z) (local.get $z)) (local.get $z))))
+        (local.set $m4 (f64.add (local.get $m4)
+          (f64.mul (f64.mul (f64.mul (local.get $z) (local.get $z)) (local.get $z)) (local.get $z))))
+        (local.set $t (i32.add (local.get $t) (i32.const 1)))
+        (br $row)))
+    (f64.store (i32.const 0) (local.get $mu))
+    (f64.store (i32.const 8) (local.get $ss))
+    (f64.store (i32.const 16) (local.get $sigma))
+    (f64.store (i32.const 24) (local.get $m2))
+    (f64.store (i32.const 32) (local.get $m3))
+    (f64.store (i32.const 40) (local.get $m4))
+    (f64.store (i32.const 48) (local.get $sumFirst))
+    (f64.store (i32.const 56) (local.get $sumSecond)))
+
+  ;; The rate of row p (a byte offset): column 3's when hasRates, else `rate`.
+  (func $rateAt (param $p i32) (param $hasRates i32) (param $rate f64) (result f64)
+    (if (result f64) (local.get $hasRates)
+      (then (f64.load offset=786944 (local.get $p))) (else (local.get $rate))))
+
+
+  ;; assessPricing.ts influenceChunk over `count` <= 4,096 rows (low, high and the rates in columns 0, 1
+  ;; and 3): the six influence series into column 2, 4,096 rows apart (fa fb fd1 fd2 fe1 fe2). Parameters
+  ;; at 256: scale w v mx my vx vy c lower upper lambda beta varM gl1 gl2 gu0 gu2.
+  (func (export "pricingInfluence") (param $count i32) (param $hasRates i32) (param $rate f64)
+    (local $p i32) (local $stop i32) (local $r f64)
+    (local $scale f64) (local $w f64) (local $v f64) (local $mx f64) (local $my f64) (local $vx f64) (local $vy f64)
+    (local $c f64) (local $lower f64) (local $upper f64) (local $lambda f64) (local $beta f64) (local $varM f64)
+    (local $gl1 f64) (local $gl2 f64) (local $gu0 f64) (local $gu2 f64)
+    (local $dx f64) (local $dy f64) (local $zx f64) (local $zy f64) (local $zc f64) (local $ib f64)
+    (local $iL f64) (local $iU f64) (local $iBeta f64)
+    (local.set $scale (f64.load (i32.const 256)))
+    (local.set $w (f64.load (i32.const 264)))
+    (local.set $v (f64.load (i32.const 272)))
+    (local.set $mx (f64.load (i32.const 280)))
+    (local.set $my (f64.load (i32.const 288)))
+    (local.set $vx (f64.load (i32.const 296)))
+    (local.set $vy (f64.load (i32.const 304)))
+    (local.set $c (f64.load (i32.const 312)))
+    (local.set $lower (f64.load (i32.const 320)))
+    (local.set $upper (f64.load (i32.const 328)))
+    (local.set $lambda (f64.load (i32.const 336)))
+    (local.set $beta (f64.load (i32.const 344)))
+    (local.set $varM (f64.load (i32.const 352)))
+    (local.set $gl1 (f64.load (i32.const 360)))
+    (local.set $gl2 (f64.load (i32.const 368)))
+    (local.set $gu0 (f64.load (i32.const 376)))
+    (local.set $gu2 (f64.load (i32.const 384)))
+    (local.set $stop (i32.shl (local.get $count) (i32.const 3)))
+    (block $done
+      (loop $row
+        (br_if $done (i32.ge_u (local.get $p) (local.get $stop)))
+        (local.set $r (call $rateAt (local.get $p) (local.get $hasRates) (local.get $rate)))
+        (local.set $dx (f64.sub (f64.mul (f64.sub (f64.load offset=512 (local.get $p)) (local.get $r)) (local.get $scale)) (local.get $mx)))
+        (local.set $dy (f64.sub (f64.mul (f64.sub (f64.load offset=262656 (local.get $p)) (local.get $r)) (local.get $scale)) (local.get $my)))
+        (local.set $zx (f64.sub (f64.mul (local.get $dx) (local.get $dx)) (local.get $vx)))
+        (local.set $zy (f64.sub (f64.mul (local.get $dy) (local.get $dy)) (local.get $vy)))
+        (local.set $zc (f64.sub (f64.mul (local.get $dx) (local.get $dy)) (local.get $c)))
+        (local.set $ib (f64.add (f64.mul (local.get $w) (local.get $dx)) (f64.mul (local.get $v) (local.get $dy))))
+        (local.set $iL (f64.add (f64.mul (local.get $gl1) (local.get $zy)) (f64.mul (local.get $gl2) (local.get $zc))))
+        (local.set $iU (f64.add (f64.mul (local.get $gu0) (local.get $zx)) (f64.mul (local.get $gu2) (local.get $zc))))
+        (local.set $iBeta (f64.div
+          (f64.sub
+            (f64.add (f64.mul (local.get $w) (local.get $zx)) (f64.mul (local.get $v) (local.get $zc)))
+            (f64.mul (local.get $beta)
+              (f64.add
+                (f64.add
+                  (f64.mul (f64.mul (local.get $w) (local.get $w)) (local.get $zx))
+                  (f64.mul (f64.mul (f64.mul (f64.const 2) (local.get $w)) (local.get $v)) (local.get $zc)))
+                (f64.mul (f64.mul (local.get $v) (local.get $v)) (local.get $zy)))))
+          (local.get $varM)))
+        (f64.store offset=524800 (local.get $p) (local.get $dx))
+        (f64.store offset=557568 (local.get $p) (local.get $ib))
+        (f64.store offset=590336 (local.get $p)
+          (f64.sub (f64.sub (local.get $dx) (f64.mul (local.get $lower) (local.get $ib))) (f64.mul (local.get $lambda) (local.get $iL))))
+        (f64.store offset=623104 (local.get $p)
+          (f64.sub (f64.add (f64.mul (local.get $upper) (local.get $ib)) (f64.mul (local.get $lambda) (local.get $iU))) (local.get $dx)))
+        (f64.store offset=655872 (local.get $p)
+          (f64.add (f64.mul (local.get $lambda) (f64.sub (local.get $iL) (local.get $iBeta)))
+            (f64.mul (f64.sub (local.get $lower) (local.get $beta)) (local.get $ib))))
+        (f64.store offset=688640 (local.get $p)
+          (f64.add (f64.mul (local.get $lambda) (f64.sub (local.get $iU) (local.get $iBeta)))
+            (f64.mul (f64.sub (local.get $upper) (local.get $beta)) (local.get $ib))))
+        (local.set $p (i32.add (local.get $p) (i32.const 8)))
+        (br $row))))
+)
