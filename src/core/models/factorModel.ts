@@ -11,6 +11,7 @@
 import { diagnose, type Diagnostic } from "../diagnostics.js";
 import { identifiedBounds } from "../identify.js";
 import { chiSquareSurvival } from "../numerics/chiSquare.js";
+import { copyRows, KERNEL_ROWS, type SeriesKernel, seriesKernel } from "../numerics/seriesKernel.js";
 import type { IdentifiedBounds } from "../types.js";
 import { fitOneFactor } from "./factorModelFit.js";
 
@@ -56,11 +57,18 @@ export const minimumPortfolios = 3;
  * e.g. the risk-free return: 0 by default), two-pass on data shifted by the first row. Plain loops over
  * typed arrays, each product computed once (x y and y x are the same bits).
  */
-export function sampleCovariance(series: readonly ArrayLike<number>[], offset: number | Float64Array = 0): number[][] {
+export function sampleCovariance(
+  series: readonly ArrayLike<number>[],
+  offset: number | Float64Array = 0,
+  useKernel = true,
+): number[][] {
   const n = series[0]?.length ?? 0;
+  const k = series.length;
+  // Short samples in the WebAssembly kernel (numerics/seriesKernel.ts: the same bits).
+  const kernel = useKernel && n > 0 && (k + 1) * n + k * k <= 4 * KERNEL_ROWS ? seriesKernel() : null;
+  if (kernel !== null) return covarianceInKernel(kernel, series, offset);
   // Shifted by the first observation first (as core/moments.ts does): a constant series is exactly 0.
   const centred = series.map((x) => centredSeries(typeof offset === "number" ? excess(x, offset) : excessOf(x, offset)));
-  const k = centred.length;
   const s: number[][] = Array.from({ length: k }, () => new Array<number>(k).fill(0));
   for (let i = 0; i < k; i++)
     for (let j = i; j < k; j++) {
@@ -69,6 +77,16 @@ export function sampleCovariance(series: readonly ArrayLike<number>[], offset: n
       s[j]![i] = value;
     }
   return s;
+}
+
+function covarianceInKernel(kernel: SeriesKernel, series: readonly ArrayLike<number>[], offset: number | Float64Array): number[][] {
+  const n = series[0]!.length;
+  const k = series.length;
+  series.forEach((x, i) => copyRows(kernel.area.subarray(i * n), x, 0, n));
+  if (typeof offset !== "number") kernel.area.set(offset.subarray(0, n), k * n);
+  kernel.covariance(k, n, typeof offset !== "number", typeof offset === "number" ? offset : 0);
+  const at = (k + 1) * n;
+  return Array.from({ length: k }, (_, i) => Array.from(kernel.area.subarray(at + i * k, at + (i + 1) * k)));
 }
 
 function excess(x: ArrayLike<number>, offset: number): Float64Array {

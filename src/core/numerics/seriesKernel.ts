@@ -29,6 +29,8 @@ export interface KernelMemory {
   readonly parameters: Float64Array;
   /** The rows, column by column (KERNEL_ROWS doubles each). */
   readonly columns: readonly [Float64Array, Float64Array, Float64Array, Float64Array];
+  /** The four columns as one area (4 KERNEL_ROWS doubles), for passes over many stacked series. */
+  readonly area: Float64Array;
 }
 
 /** seriesKernel.wat: passes over `count` rows in chunks, or over whole series where said. */
@@ -51,6 +53,11 @@ export interface SeriesKernel extends KernelMemory {
   crossSums(count: number): void;
   /** leastSquares.ts interceptResidualChunk: column 2 = y - ((0 + a) + x b). */
   interceptResiduals(count: number, a: number, b: number): void;
+  /**
+   * factorModel.ts sampleCovariance of k series of n rows stacked in `area` (series i from i n), the
+   * rates after them (when hasRates, else `rate`): the k x k matrix, row-major, from (k + 1) n.
+   */
+  covariance(k: number, n: number, hasRates: boolean, rate: number): void;
 }
 
 /** influenceKernel.wat: the uncertainty's passes over whole series of up to KERNEL_ROWS rows. */
@@ -115,6 +122,7 @@ function seriesFunctions(f: Record<string, Exported>): Omit<SeriesKernel, keyof 
     scaledExcess: (count, hasRates, rate, scale) => f.scaledExcess!(count, flag(hasRates), rate, scale),
     crossSums: f.crossSums!,
     interceptResiduals: f.interceptResiduals!,
+    covariance: (k, n, hasRates, rate) => f.covariance!(k, n, flag(hasRates), rate),
   };
 }
 
@@ -141,6 +149,7 @@ function instantiate<T>(
       state: new Float64Array(buffer, 0, 32),
       parameters: new Float64Array(buffer, 256, 32),
       columns: [column(0), column(1), column(2), column(3)],
+      area: new Float64Array(buffer, 512, 4 * KERNEL_ROWS),
     };
     return { ...memory, ...functions(exports as unknown as Record<string, Exported>, buffer) } as T & KernelMemory;
   } catch {

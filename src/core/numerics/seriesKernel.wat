@@ -329,4 +329,84 @@
         (local.set $p (i32.add (local.get $p) (i32.const 8)))
         (br $row))))
 
+
+  ;; factorModel.ts sampleCovariance of k series of n rows stacked from 512 (series i at 512 + 8 i n), the
+  ;; risk-free returns after them (when hasRates; else `rate`): each series less the rate in place, less
+  ;; its first row, less the mean of that (summed in order), then S_ij = sum x_i x_j / (n - 1), each
+  ;; product once, into the k x k matrix (row-major) after the rates.
+  (func (export "covariance") (param $k i32) (param $n i32) (param $hasRates i32) (param $rate f64)
+    (local $i i32) (local $j i32) (local $base i32) (local $other i32) (local $stride i32) (local $p i32)
+    (local $stop i32) (local $rates i32) (local $out i32) (local $first f64) (local $sum f64) (local $v f64)
+    (local $count f64)
+    (local.set $stride (i32.shl (local.get $n) (i32.const 3)))
+    (local.set $rates (i32.add (i32.const 512) (i32.mul (local.get $k) (local.get $stride))))
+    (local.set $out (i32.add (local.get $rates) (local.get $stride)))
+    (local.set $count (f64.convert_i32_s (local.get $n)))
+    (block $centred
+      (loop $series
+        (br_if $centred (i32.ge_s (local.get $i) (local.get $k)))
+        (local.set $base (i32.add (i32.const 512) (i32.mul (local.get $i) (local.get $stride))))
+        (local.set $stop (i32.add (local.get $base) (local.get $stride)))
+        ;; Less the rate.
+        (local.set $p (local.get $base))
+        (block $done
+          (loop $row
+            (br_if $done (i32.ge_u (local.get $p) (local.get $stop)))
+            (f64.store (local.get $p) (f64.sub (f64.load (local.get $p))
+              (if (result f64) (local.get $hasRates)
+                (then (f64.load (i32.add (local.get $rates) (i32.sub (local.get $p) (local.get $base)))))
+                (else (local.get $rate)))))
+            (local.set $p (i32.add (local.get $p) (i32.const 8)))
+            (br $row)))
+        ;; Less the first row, summing; then less the mean.
+        (local.set $first (if (result f64) (i32.gt_s (local.get $n) (i32.const 0))
+          (then (f64.load (local.get $base))) (else (f64.const 0))))
+        (local.set $sum (f64.const 0))
+        (local.set $p (local.get $base))
+        (block $done
+          (loop $row
+            (br_if $done (i32.ge_u (local.get $p) (local.get $stop)))
+            (local.set $v (f64.sub (f64.load (local.get $p)) (local.get $first)))
+            (f64.store (local.get $p) (local.get $v))
+            (local.set $sum (f64.add (local.get $sum) (local.get $v)))
+            (local.set $p (i32.add (local.get $p) (i32.const 8)))
+            (br $row)))
+        (local.set $sum (f64.div (local.get $sum) (local.get $count)))
+        (local.set $p (local.get $base))
+        (block $done
+          (loop $row
+            (br_if $done (i32.ge_u (local.get $p) (local.get $stop)))
+            (f64.store (local.get $p) (f64.sub (f64.load (local.get $p)) (local.get $sum)))
+            (local.set $p (i32.add (local.get $p) (i32.const 8)))
+            (br $row)))
+        (local.set $i (i32.add (local.get $i) (i32.const 1)))
+        (br $series)))
+    (local.set $i (i32.const 0))
+    (block $rowsDone
+      (loop $matrixRow
+        (br_if $rowsDone (i32.ge_s (local.get $i) (local.get $k)))
+        (local.set $j (local.get $i))
+        (block $columnsDone
+          (loop $matrixColumn
+            (br_if $columnsDone (i32.ge_s (local.get $j) (local.get $k)))
+            (local.set $base (i32.add (i32.const 512) (i32.mul (local.get $i) (local.get $stride))))
+            (local.set $other (i32.add (i32.const 512) (i32.mul (local.get $j) (local.get $stride))))
+            (local.set $stop (i32.add (local.get $base) (local.get $stride)))
+            (local.set $sum (f64.const 0))
+            (block $done
+              (loop $row
+                (br_if $done (i32.ge_u (local.get $base) (local.get $stop)))
+                (local.set $sum (f64.add (local.get $sum) (f64.mul (f64.load (local.get $base)) (f64.load (local.get $other)))))
+                (local.set $base (i32.add (local.get $base) (i32.const 8)))
+                (local.set $other (i32.add (local.get $other) (i32.const 8)))
+                (br $row)))
+            (local.set $v (f64.div (local.get $sum) (f64.convert_i32_s (i32.sub (local.get $n) (i32.const 1)))))
+            (f64.store (i32.add (local.get $out) (i32.shl (i32.add (i32.mul (local.get $i) (local.get $k)) (local.get $j)) (i32.const 3)))
+              (local.get $v))
+            (f64.store (i32.add (local.get $out) (i32.shl (i32.add (i32.mul (local.get $j) (local.get $k)) (local.get $i)) (i32.const 3)))
+              (local.get $v))
+            (local.set $j (i32.add (local.get $j) (i32.const 1)))
+            (br $matrixColumn)))
+        (local.set $i (i32.add (local.get $i) (i32.const 1)))
+        (br $matrixRow))))
 )

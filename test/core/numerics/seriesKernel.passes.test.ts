@@ -10,6 +10,7 @@ import { excessReturnsScaledBy } from "../../../src/core/inference/bootstrap/rep
 import { boundInfluenceSeries } from "../../../src/core/inference/boundsLongRun.js";
 import { longRunCovarianceInPlace } from "../../../src/core/inference/hac/longRun.js";
 import { sharpeStdErrors } from "../../../src/core/inference/sharpe.js";
+import { sampleCovariance } from "../../../src/core/models/factorModel.js";
 import { interceptLeastSquares } from "../../../src/core/numerics/leastSquares.js";
 import { createRandom } from "../../../src/core/numerics/rng.js";
 import { KERNEL_ROWS, PRICING_ROWS } from "../../../src/core/numerics/seriesKernel.js";
@@ -147,6 +148,25 @@ describe("the uncertainty's passes in the series kernel", () => {
         fillInfluenceSeries(got, x, y, rf, terms);
         fillInfluenceSeries(expected, x, y, rf, terms, false);
         got.forEach((f, k) => expectSameBits(f, expected[k]!, `${label} series ${k}`));
+      }
+    }
+  });
+
+  it("sampleCovariance of k series equals the JavaScript passes, with a number or a series of rates", () => {
+    for (const [k, n] of [
+      [3, 1],
+      [3, 2],
+      [10, 2520],
+      [10, 10_000],
+      [12, 10_000],
+      [2, 40_000],
+    ] as const) {
+      const many = Array.from({ length: k }, (_, i) => series(n, 700 + i, 0.01 * i, 0.02 + 0.01 * i, n > 2 ? i % 3 : 0));
+      const rates = series(n, 800, 1e-4, 1e-5);
+      for (const offset of [0, 2e-4, rates]) {
+        const got = sampleCovariance(many, offset);
+        const expected = sampleCovariance(many, offset, false);
+        expectSameBits(got.flat(), expected.flat(), `k ${k}, n ${n}, ${typeof offset === "number" ? offset : "rates"}`);
       }
     }
   });

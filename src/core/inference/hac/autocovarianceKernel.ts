@@ -5,8 +5,9 @@
  * tests compare both). About three times faster than that loop; null where WebAssembly or its SIMD is
  * unavailable, or for more lags than the kernel has room for (the JavaScript loop is used).
  *
- * Memory (one page): the sums at 0 (MAX_LAGS + 1 doubles), then a block of rows and its lags, with 8
- * doubles of room after them for the lanes past the last lag.
+ * Memory (two pages): the sums at 0 (MAX_LAGS + 1 doubles), then a block of rows and its lags, with 8
+ * doubles of room after them for the lanes past the last lag; the second page stages a column's rows
+ * for `weigh` (a short sample's weighted rows would otherwise be formed in V8's interpreter).
  */
 import { autocovarianceKernelWasm } from "./autocovarianceKernelWasm.js";
 
@@ -14,6 +15,9 @@ import { autocovarianceKernelWasm } from "./autocovarianceKernelWasm.js";
 export const MAX_KERNEL_LAGS = 1023;
 const SUMS_AT = 0;
 const ROWS_AT = (MAX_KERNEL_LAGS + 1) * 8;
+const STAGE_AT = 65_536;
+/** Rows the kernel's block (and its lags) and its staging area each hold. */
+const ROOM = (STAGE_AT - ROWS_AT) / 8;
 
 export interface AutocovarianceKernel {
   /** Where a block's rows (and the `lags` rows after it) are put for `block`. */
@@ -22,6 +26,10 @@ export interface AutocovarianceKernel {
   readonly sums: Float64Array;
   /** sums[j] += sum of rows[u] rows[u + j] over u in [begin, min(end, rowCount - j)), j = 0..lags. */
   block(begin: number, end: number, rowCount: number, lags: number): void;
+  /** Where a column's rows are put for `weigh` (as many as `rows` holds). */
+  readonly stage: Float64Array;
+  /** rows[i] = 0 + w stage[i] (add false) or rows[i] + w stage[i], i < count (bandwidth.ts weightedRows). */
+  weigh(count: number, w: number, add: boolean): void;
 }
 
 let kernel: AutocovarianceKernel | null | undefined;
@@ -29,7 +37,7 @@ let kernel: AutocovarianceKernel | null | undefined;
 /** The kernel for `lags` lags on blocks of `blockRows` rows, or null (use the JavaScript loop). */
 export function autocovarianceKernel(lags: number, blockRows: number): AutocovarianceKernel | null {
   if (kernel === undefined) kernel = instantiate();
-  if (kernel === null || lags > MAX_KERNEL_LAGS || ROWS_AT + (blockRows + lags + 8) * 8 > kernel.rows.buffer.byteLength) return null;
+  if (kernel === null || lags > MAX_KERNEL_LAGS || blockRows + lags + 8 > ROOM) return null;
   return kernel;
 }
 
@@ -39,10 +47,13 @@ function instantiate(): AutocovarianceKernel | null {
     const { exports } = new WebAssembly.Instance(new WebAssembly.Module(bytes));
     const memory = exports.memory as WebAssembly.Memory;
     const run = exports.block as (f: number, begin: number, end: number, rows: number, lags: number, sums: number) => void;
+    const weigh = exports.weigh as (f: number, g: number, count: number, w: number, add: number) => void;
     return {
-      rows: new Float64Array(memory.buffer, ROWS_AT),
+      rows: new Float64Array(memory.buffer, ROWS_AT, ROOM),
+      stage: new Float64Array(memory.buffer, STAGE_AT, ROOM),
       sums: new Float64Array(memory.buffer, SUMS_AT, MAX_KERNEL_LAGS + 1),
       block: (begin, end, rowCount, lags) => run(ROWS_AT, begin, end, rowCount, lags, SUMS_AT),
+      weigh: (count, w, add) => weigh(ROWS_AT, STAGE_AT, count, w, add ? 1 : 0),
     };
   } catch {
     return null;

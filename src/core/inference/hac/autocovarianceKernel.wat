@@ -4,9 +4,10 @@
 ;; every sum is the same bits as the JavaScript pass; a lane past `lags` reads bytes after the block
 ;; (the caller leaves 8 doubles of room) and is never stored.
 ;;
-;; Memory: one page, laid out by autocovarianceKernel.ts (the sums, then the block's rows).
+;; Memory: two pages, laid out by autocovarianceKernel.ts: the sums, then the block's rows; the second page
+;; stages a column's rows for `weigh`.
 (module
-  (memory (export "memory") 1 1)
+  (memory (export "memory") 2 2)
 
   ;; s + f[u] f[u + lag] for u in [from, to), in order of u (s when the range is empty).
   (func $tail (param $f i32) (param $from i32) (param $to i32) (param $lag i32) (param $s f64) (result f64)
@@ -87,4 +88,19 @@
         (call $finish (local.get $f) (local.get $from) (local.get $end) (local.get $rows) (local.get $lags) (local.get $sums)
           (i32.add (local.get $j) (i32.const 7)) (f64x2.extract_lane 1 (local.get $a3)))
         (local.set $j (i32.add (local.get $j) (i32.const 8)))
-        (br $group)))))
+        (br $group))))
+  ;; bandwidth.ts weightedRows on `count` rows: f[i] = 0 + w g[i] (the first column) or f[i] + w g[i]
+  ;; (the others), with g the column's rows staged by the caller; f and g are byte addresses of doubles.
+  (func (export "weigh") (param $f i32) (param $g i32) (param $count i32) (param $w f64) (param $add i32)
+    (local $stop i32)
+    (local.set $stop (i32.add (local.get $f) (i32.shl (local.get $count) (i32.const 3))))
+    (block $done
+      (loop $row
+        (br_if $done (i32.ge_u (local.get $f) (local.get $stop)))
+        (f64.store (local.get $f)
+          (f64.add (select (f64.load (local.get $f)) (f64.const 0) (local.get $add))
+            (f64.mul (local.get $w) (f64.load (local.get $g)))))
+        (local.set $f (i32.add (local.get $f) (i32.const 8)))
+        (local.set $g (i32.add (local.get $g) (i32.const 8)))
+        (br $row))))
+)

@@ -98,7 +98,11 @@ export function weightedAutocovarianceSums(
     columns.forEach((column, a) => {
       const w = columnWeights[a]!;
       if (w === 0) return;
-      weightedRows(buffer, w, column, start, stop, started);
+      if (kernel === null) weightedRows(buffer, w, column, start, stop, started);
+      else {
+        kernel.stage.set(column.subarray(start, stop));
+        kernel.weigh(stop - start, w, started);
+      }
       started = true;
     });
     if (!started) buffer.fill(0, 0, stop - start);
