@@ -15,10 +15,12 @@ const daily = ["examples/harbourline-daily.csv", "--low", "Stillwater Low Vol", 
 // common run more (about 5 ms) than compiling another command's functions on first use does.
 // The third file holds full-precision numbers (17 digits and more: the reader's other path), made here.
 const fullPrecision = "full-precision.csv";
+const portfolios = "portfolios.csv";
 const runs = [
   ["solve", ...monthly],
   ["solve", ...daily, "--format", "json", "--no-uncertainty"],
   ["solve", fullPrecision, "--low", "low", "--high", "high", "--format", "json", "--no-uncertainty"],
+  ["solve", portfolios, "--low", "P1", "--high", "P4", "--portfolios", "P1,P2,P3,P4", "--format", "json"],
 ];
 const day = 86_400_000;
 const fullPrecisionText = [
@@ -30,20 +32,42 @@ const fullPrecisionText = [
   "",
 ].join("\n");
 
+// Four portfolios on one factor, for the factor model's functions.
+const portfoliosText = [
+  "date,P1,P2,P3,P4",
+  ...Array.from({ length: 300 }, (_, i) => {
+    const factor = Math.sin(i * 0.9) / 100;
+    const noise = (k) => Math.cos(i * (1.7 + k)) / 500;
+    return `${new Date(Date.UTC(2001, 0, 1) + i * day).toISOString().slice(0, 10)},${[0.6, 0.9, 1.2, 1.5].map((b, k) => (b * factor + noise(k)).toFixed(6)).join(",")}`;
+  }),
+  "",
+].join("\n");
+
 const { bundle, script } = loadCliBundle(dist, false);
 const discard = () => undefined;
 const processIo = bundle.processIo({ loadVega: () => import("vega") });
 const fullPrecisionBytes = Buffer.from(fullPrecisionText);
+const portfoliosBytes = Buffer.from(portfoliosText);
 // As a job's source it is read by position, as large files are (through a window: input/engines/byteWindow.ts).
-const fullPrecisionPaged = {
-  size: fullPrecisionBytes.length,
-  read: (position, target, offset, length) => fullPrecisionBytes.copy(target, offset, position, position + length),
+const paged = (bytes) => ({
+  size: bytes.length,
+  read: (position, target, offset, length) => bytes.copy(target, offset, position, position + length),
   close: () => undefined,
-};
+});
 const io = {
   ...processIo,
-  readInput: (path) => (path === fullPrecision ? Promise.resolve({ ok: true, value: fullPrecisionBytes }) : processIo.readInput(path)),
-  readSource: (path) => (path === fullPrecision ? Promise.resolve({ ok: true, value: fullPrecisionPaged }) : processIo.readSource(path)),
+  readInput: (path) =>
+    path === fullPrecision
+      ? Promise.resolve({ ok: true, value: fullPrecisionBytes })
+      : path === portfolios
+        ? Promise.resolve({ ok: true, value: portfoliosBytes })
+        : processIo.readInput(path),
+  readSource: (path) =>
+    path === fullPrecision
+      ? Promise.resolve({ ok: true, value: paged(fullPrecisionBytes) })
+      : path === portfolios
+        ? Promise.resolve({ ok: true, value: paged(portfoliosBytes) })
+        : processIo.readSource(path),
   writeOut: discard,
   writeErr: discard,
   // Reports go nowhere: an output target that takes everything and commits nothing.
