@@ -57,11 +57,7 @@ export const minimumPortfolios = 3;
  * e.g. the risk-free return: 0 by default), two-pass on data shifted by the first row. Plain loops over
  * typed arrays, each product computed once (x y and y x are the same bits).
  */
-export function sampleCovariance(
-  series: readonly ArrayLike<number>[],
-  offset: number | Float64Array = 0,
-  useKernel = true,
-): number[][] {
+export function sampleCovariance(series: readonly ArrayLike<number>[], offset: number | Float64Array = 0, useKernel = true): number[][] {
   const n = series[0]?.length ?? 0;
   const k = series.length;
   // Short samples in the WebAssembly kernel (numerics/seriesKernel.ts: the same bits).
