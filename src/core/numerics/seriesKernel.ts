@@ -2,8 +2,9 @@
  * Passes over series in WebAssembly, for the samples V8 would run in its interpreter: a JavaScript loop
  * is optimised only after it has run a while, and before that every double it makes is a new heap
  * object (a 2,520-row Welford pass took 12 ms and 2 MB of garbage there; the kernel takes a fraction of
- * a millisecond). Two modules: seriesKernel.wat (the moments, magnitudes, residual sums, CAPM fits and
- * elementwise passes) and influenceKernel.wat (the uncertainty's window sums and influence series).
+ * a millisecond). Three modules: seriesKernel.wat (the moments, magnitudes, residual sums, CAPM fits,
+ * factor covariance and elementwise passes), influenceKernel.wat (the uncertainty's window sums and
+ * influence series) and scanKernel.wat (the input layer's checks of a column: comparisons only).
  * Each kernel function does its JavaScript twin's arithmetic in the same order, so the results are the
  * same bits (test/core/numerics/seriesKernel*.test.ts compare both); each twin stays as the fallback
  * where WebAssembly is missing (the kernels are then null) and as the reference.
@@ -14,6 +15,7 @@
  * series of up to KERNEL_ROWS rows; longer ones run long enough in JavaScript to be optimised there.
  */
 import { influenceKernelWasm } from "./influenceKernelWasm.js";
+import { scanKernelWasm } from "./scanKernelWasm.js";
 import { seriesKernelWasm } from "./seriesKernelWasm.js";
 
 /** Rows a column of a kernel holds (a series, or a chunk of a pass over a longer one). */
@@ -86,7 +88,18 @@ export interface InfluenceKernel extends KernelMemory {
   pricingSeries(k: number, count: number): Float64Array;
 }
 
+/** scanKernel.wat: checks of a column of up to 4 KERNEL_ROWS values copied into `area`. */
+export interface ScanKernel extends KernelMemory {
+  /** The first i < count with |area[i]| > limit, or -1. */
+  firstBeyond(count: number, limit: number): number;
+  /** The first i in [1, count) with !(area[i] - area[i - 1] > 0), or count. */
+  firstNotIncreasing(count: number): number;
+  /** Over |area[i step]|, i < size: how many are below (`below`) or above `threshold` (state[0]), NaN of the rest (state[1]). */
+  sampleCounts(size: number, step: number, threshold: number, below: boolean): void;
+}
+
 let series: SeriesKernel | null | undefined;
+let scan: ScanKernel | null | undefined;
 let influence: InfluenceKernel | null | undefined;
 
 /** seriesKernel.wat, or null (WebAssembly unavailable: use the JavaScript loops). */
@@ -112,6 +125,12 @@ export function wasmBinary(base64: string): Uint8Array {
   return bytes;
 }
 
+/** scanKernel.wat, or null (WebAssembly unavailable: use the JavaScript loops). */
+export function scanKernel(): ScanKernel | null {
+  if (scan === undefined) scan = instantiate(scanKernelWasm, scanFunctions);
+  return scan;
+}
+
 /** Copies rows [from, to) of `source` to the start of `column` (to - from <= KERNEL_ROWS). */
 export function copyRows(column: Float64Array, source: ArrayLike<number>, from: number, to: number): void {
   if (source instanceof Float64Array) column.set(source.subarray(from, to));
@@ -119,7 +138,7 @@ export function copyRows(column: Float64Array, source: ArrayLike<number>, from: 
 }
 
 // The exports' own types: flags are i32 (0 or 1) in WebAssembly.
-type Exported = (...args: number[]) => void;
+type Exported = (...args: number[]) => number | undefined;
 const flag = (b: boolean): number => (b ? 1 : 0);
 
 function seriesFunctions(f: Record<string, Exported>): Omit<SeriesKernel, keyof KernelMemory> {
@@ -134,6 +153,14 @@ function seriesFunctions(f: Record<string, Exported>): Omit<SeriesKernel, keyof 
     crossSums: f.crossSums!,
     interceptResiduals: f.interceptResiduals!,
     covariance: (k, n, hasRates, rate) => f.covariance!(k, n, flag(hasRates), rate),
+  };
+}
+
+function scanFunctions(f: Record<string, Exported>): Omit<ScanKernel, keyof KernelMemory> {
+  return {
+    firstBeyond: (count, limit) => f.firstBeyond!(count, limit)!,
+    firstNotIncreasing: (count) => f.firstNotIncreasing!(count)!,
+    sampleCounts: (size, step, threshold, below) => void f.sampleCounts!(size, step, threshold, flag(below)),
   };
 }
 

@@ -1,4 +1,5 @@
 /** Warnings about a table that was read: units that look wrong, skipped titles, other tables. */
+import { KERNEL_ROWS, scanKernel } from "../../core/numerics/seriesKernel.js";
 import { float64Of } from "./arrays.js";
 import type { Extracted } from "./extracted.js";
 import { median } from "../values/frequency.js";
@@ -34,9 +35,24 @@ export function columnUnitWarnings(column: string, values: Float64Array, options
  * False when the sample's median |x| is surely not above `threshold` (`below` false) or not below it
  * (`below` true), from one count instead of a selection: with the sample sorted a[0..m), k = floor(m/2),
  * the median is a[k] or (a[k-1] + a[k]) / 2, so it is above t only if at least m - k values are, and
- * below t only if at least k are. A NaN in the sample leaves the answer to the median itself.
+ * below t only if at least k are. A NaN in the sample leaves the answer to the median itself. The
+ * counts come from the scan kernel (WebAssembly, core/numerics/seriesKernel.ts) when it holds the column.
  */
-function medianMayPass(values: Float64Array, step: number, size: number, threshold: number, below: boolean): boolean {
+export function medianMayPass(
+  values: Float64Array,
+  step: number,
+  size: number,
+  threshold: number,
+  below: boolean,
+  useKernel = true,
+): boolean {
+  const k = size >> 1;
+  const kernel = useKernel && values.length <= 4 * KERNEL_ROWS ? scanKernel() : null;
+  if (kernel !== null) {
+    kernel.area.set(values);
+    kernel.sampleCounts(size, step, threshold, below);
+    return kernel.state[1]! > 0 || kernel.state[0]! >= (below ? k : size - k);
+  }
   let count = 0;
   let nan = 0;
   for (let i = 0; i < size; i++) {
@@ -44,7 +60,6 @@ function medianMayPass(values: Float64Array, step: number, size: number, thresho
     if (below ? x < threshold : x > threshold) count++;
     else if (Number.isNaN(x)) nan++;
   }
-  const k = size >> 1;
   return nan > 0 || count >= (below ? k : size - k);
 }
 

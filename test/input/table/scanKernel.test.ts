@@ -1,0 +1,71 @@
+/**
+ * The input layer's scans of a column (the first extreme value, the first date out of order, the counts
+ * of the unit check) in the scan kernel (src/core/numerics/scanKernel.wat) against their JavaScript
+ * loops (`useKernel = false`): the same answers, NaN included, at lengths up to what the kernel holds.
+ */
+import { describe, expect, it } from "vitest";
+import { createRandom } from "../../../src/core/numerics/rng.js";
+import { KERNEL_ROWS } from "../../../src/core/numerics/seriesKernel.js";
+import { nextExtreme } from "../../../src/input/table/convert.js";
+import { firstNotIncreasing } from "../../../src/input/table/finish.js";
+import { medianMayPass } from "../../../src/input/table/warnings.js";
+
+const ODD = [Number.NaN, Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, -0, 1e300];
+
+function series(n: number, seed: number, centre: number, spread: number, specials: number): Float64Array {
+  const random = createRandom(seed);
+  const f = Float64Array.from({ length: n }, () => centre + spread * random.normal());
+  for (let i = 0; i < specials; i++) f[Math.floor(random.uniform() * n)] = ODD[(i + seed) % ODD.length]!;
+  return f;
+}
+
+describe("the input layer's scans in the scan kernel", () => {
+  const column = (n: number, seed: number, specials: number) => series(n, seed, 0, 3, specials);
+
+  it("nextExtreme finds the first |value| beyond the limit as the loop does (NaN never counts)", () => {
+    for (const [i, n] of [0, 1, 2, 1025, 10_000, 4 * KERNEL_ROWS].entries()) {
+      for (const specials of [0, 1, 4]) {
+        const values = column(n, 900 + i, specials);
+        expect(nextExtreme(values, 0), `n ${n}`).toBe(nextExtreme(values, 0, false));
+      }
+    }
+    const one = new Float64Array([0.1, Number.NaN, -10, 10.000000000000002, 11]);
+    expect(nextExtreme(one, 0)).toBe(3);
+    expect(nextExtreme(one, 4)).toBe(4);
+  });
+
+  it("firstNotIncreasing finds the first key not above the one before, as the loop does", () => {
+    for (const n of [0, 1, 2, 3, 5000]) {
+      const keys = Float64Array.from({ length: n }, (_, k) => 86_400_000 * k);
+      expect(firstNotIncreasing(keys, 1), `n ${n}, increasing`).toBe(firstNotIncreasing(keys, 1, false));
+      for (const at of [1, Math.floor(n / 2), n - 1]) {
+        if (at < 1 || at >= n) continue;
+        for (const value of [keys[at - 1]!, keys[at - 1]! - 1, Number.NaN]) {
+          const broken = keys.slice();
+          broken[at] = value;
+          expect(firstNotIncreasing(broken, 1), `n ${n}, at ${at}, ${value}`).toBe(firstNotIncreasing(broken, 1, false));
+        }
+      }
+    }
+  });
+
+  it("medianMayPass counts as the loop does, above and below, NaN in the sample included", () => {
+    for (const [i, n] of [1, 2, 3, 101, 10_000, 25_000].entries()) {
+      for (const specials of [0, 3]) {
+        const values = column(n, 950 + i, specials);
+        const step = Math.max(1, Math.floor(n / 10_000));
+        const size = Math.ceil(n / step);
+        for (const [threshold, below] of [
+          [0.5, false],
+          [2, false],
+          [0.0005, true],
+          [2, true],
+        ] as const) {
+          expect(medianMayPass(values, step, size, threshold, below), `n ${n}, ${threshold}, ${below}`).toBe(
+            medianMayPass(values, step, size, threshold, below, false),
+          );
+        }
+      }
+    }
+  });
+});
