@@ -19,7 +19,7 @@
 import type { DiagnosticDetail } from "./diagnostics.js";
 import type { MomentSummary } from "./identify.js";
 import { CHUNK } from "./moments.js";
-import { copyRows, KERNEL_ROWS, seriesKernel } from "./numerics/seriesKernel.js";
+import { inChunks, seriesKernel } from "./numerics/seriesKernel.js";
 import { magnitudeRange, magnitudeRatio } from "./parameters.js";
 
 /** Machine epsilon of doubles, 2^-52: a bound on the relative rounding of a value read or subtracted. */
@@ -59,13 +59,7 @@ export function largestValues(
   const kernel = useKernel ? seriesKernel() : null;
   if (kernel !== null) {
     kernel.state.set(state);
-    for (let from = 0; from < n; from += KERNEL_ROWS) {
-      const to = Math.min(n, from + KERNEL_ROWS);
-      copyRows(kernel.columns[0], low, from, to);
-      copyRows(kernel.columns[1], high, from, to);
-      if (rates !== null) copyRows(kernel.columns[3], rates, from, to);
-      kernel.largest(to - from, rates !== null, +rate);
-    }
+    inChunks(kernel, { x: low, y: high, rates }, (_, count) => kernel.largest(count, rates !== null, +rate));
     state.set(kernel.state.subarray(0, 3));
   } else for (let from = 0; from < n; from += CHUNK) largestChunk(low, high, rates, rate, from, Math.min(n, from + CHUNK), state);
   return { low: state[0]!, high: state[1]!, riskFree: state[2]! };

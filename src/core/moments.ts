@@ -20,7 +20,7 @@
  *   analysis and recommendations", The American Statistician 37(3), 242-247.
  */
 
-import { copyRows, KERNEL_ROWS, type SeriesKernel, seriesKernel } from "./numerics/seriesKernel.js";
+import { inChunks, type SeriesKernel, seriesKernel } from "./numerics/seriesKernel.js";
 import { CHUNK } from "./numerics/seriesLoops.js";
 
 /** Means and centred sums of squares and cross-products of several aligned series. */
@@ -190,18 +190,9 @@ function welfordInKernel(
   shift: Float64Array,
   state: Float64Array,
 ): void {
-  const n = x.length;
-  const [cx, cy, cz, cr] = kernel.columns;
   kernel.state.fill(0);
   kernel.parameters.set(shift);
-  for (let from = 0; from < n; from += KERNEL_ROWS) {
-    const to = Math.min(n, from + KERNEL_ROWS);
-    copyRows(cx, x, from, to);
-    copyRows(cy, y, from, to);
-    if (z !== null) copyRows(cz, z, from, to);
-    if (rates !== null) copyRows(cr, rates, from, to);
-    kernel.welford(from, to - from, z !== null, rates !== null, +rate, weight);
-  }
+  inChunks(kernel, { x, y, z, rates }, (from, count) => kernel.welford(from, count, z !== null, rates !== null, +rate, weight));
   state.set(kernel.state.subarray(0, STATE_SIZE));
 }
 

@@ -15,7 +15,7 @@
  */
 
 import { CHUNK } from "./moments.js";
-import { copyRows, KERNEL_ROWS, seriesKernel } from "./numerics/seriesKernel.js";
+import { inChunks, seriesKernel } from "./numerics/seriesKernel.js";
 import { studentTTwoSidedP } from "./numerics/studentT.js";
 import type { LineFit } from "./types.js";
 
@@ -104,13 +104,7 @@ export function excessResidualSums(
   if (kernel !== null) {
     kernel.state.fill(0, 0, 4);
     kernel.parameters.set(fit);
-    for (let from = 0; from < n; from += KERNEL_ROWS) {
-      const to = Math.min(n, from + KERNEL_ROWS);
-      copyRows(kernel.columns[0], low, from, to);
-      copyRows(kernel.columns[1], high, from, to);
-      if (rates !== null) copyRows(kernel.columns[3], rates, from, to);
-      kernel.residuals(to - from, rates !== null, +rate);
-    }
+    inChunks(kernel, { x: low, y: high, rates }, (_, count) => kernel.residuals(count, rates !== null, +rate));
     state.set(kernel.state.subarray(0, 4));
   } else for (let from = 0; from < n; from += CHUNK) residualChunk(low, high, rates, rate, fit, from, Math.min(n, from + CHUNK), state);
   return [state[0]! + state[1]!, state[2]! + state[3]!];

@@ -131,6 +131,28 @@ export function scanKernel(): ScanKernel | null {
   return scan;
 }
 
+/**
+ * Runs `pass(from, count)` over the rows chunk by chunk (`rows` at a time), each chunk first copied into
+ * the kernel's columns: x into column 0, y into 1, z (when given) into 2, the rates (when given) into 3.
+ */
+export function inChunks(
+  kernel: KernelMemory,
+  series: { x: ArrayLike<number>; y: ArrayLike<number>; z?: ArrayLike<number> | null; rates: ArrayLike<number> | null },
+  pass: (from: number, count: number) => void,
+  rows = KERNEL_ROWS,
+): void {
+  const { x, y, z, rates } = series;
+  const [c0, c1, c2, c3] = kernel.columns;
+  for (let from = 0; from < x.length; from += rows) {
+    const to = Math.min(x.length, from + rows);
+    copyRows(c0, x, from, to);
+    copyRows(c1, y, from, to);
+    if (z !== undefined && z !== null) copyRows(c2, z, from, to);
+    if (rates !== null) copyRows(c3, rates, from, to);
+    pass(from, to - from);
+  }
+}
+
 /** Copies rows [from, to) of `source` to the start of `column` (to - from <= KERNEL_ROWS). */
 export function copyRows(column: Float64Array, source: ArrayLike<number>, from: number, to: number): void {
   if (source instanceof Float64Array) column.set(source.subarray(from, to));

@@ -21,7 +21,7 @@ import type { HacOptions, LongRunMethod } from "../inference/options.js";
 import { excessCrossProducts } from "../moments.js";
 import { normalQuantile } from "../numerics/normal.js";
 import { CHUNK } from "../numerics/seriesLoops.js";
-import { copyRows, type InfluenceKernel, influenceKernel, KERNEL_ROWS, PRICING_ROWS } from "../numerics/seriesKernel.js";
+import { type InfluenceKernel, inChunks, influenceKernel, KERNEL_ROWS, PRICING_ROWS } from "../numerics/seriesKernel.js";
 import { borrowSeries, giveBack, withScratch } from "../numerics/scratch.js";
 import type { SolvedMoments } from "../solve.js";
 import type { ReturnSample } from "../types.js";
@@ -245,15 +245,11 @@ function influenceInKernel(
   const { scale, w, v, mx, my, vx, vy, c, lower, upper, lambda, beta, varM, gl, gu } = terms;
   kernel.parameters.set([scale, w, v, mx, my, vx, vy, c, lower, upper, lambda, beta, varM, gl[1]!, gl[2]!, gu[0]!, gu[2]!]);
   const rates = typeof riskFree === "number" ? null : riskFree;
-  const n = low.length;
-  for (let from = 0; from < n; from += PRICING_ROWS) {
-    const to = Math.min(n, from + PRICING_ROWS);
-    copyRows(kernel.columns[0], low, from, to);
-    copyRows(kernel.columns[1], high, from, to);
-    if (rates !== null) copyRows(kernel.columns[3], rates, from, to);
-    kernel.pricingInfluence(to - from, rates !== null, rates === null ? +riskFree : 0);
-    series.forEach((f, k) => f.set(kernel.pricingSeries(k, to - from), from));
-  }
+  const pass = (from: number, count: number): void => {
+    kernel.pricingInfluence(count, rates !== null, rates === null ? +riskFree : 0);
+    series.forEach((f, k) => f.set(kernel.pricingSeries(k, count), from));
+  };
+  inChunks(kernel, { x: low, y: high, rates }, pass, PRICING_ROWS);
 }
 
 function influenceChunk(
