@@ -53,4 +53,28 @@
         (br $row)))
     (f64.store (i32.const 0) (local.get $count))
     (f64.store (i32.const 8) (local.get $nan)))
+
+  ;; frequency.ts medianWholeDayGap's counts: over the `count` keys from 512, each gap g = (key - previous)
+  ;; / dayMs must be a whole number in [0, days); counts[g] += 1 into the i32 array at `counts` (zeroed
+  ;; here). 1 when every gap was, 0 at the first that was not (the counts are then incomplete).
+  (func (export "dayGaps") (param $count i32) (param $dayMs f64) (param $days i32) (param $counts i32) (result i32)
+    (local $i i32) (local $previous f64) (local $key f64) (local $gap f64) (local $at i32)
+    (memory.fill (local.get $counts) (i32.const 0) (i32.shl (local.get $days) (i32.const 2)))
+    (local.set $previous (f64.load (i32.const 512)))
+    (local.set $i (i32.const 1))
+    (block $done
+      (loop $row
+        (br_if $done (i32.ge_s (local.get $i) (local.get $count)))
+        (local.set $key (f64.load offset=512 (i32.shl (local.get $i) (i32.const 3))))
+        (local.set $gap (f64.div (f64.sub (local.get $key) (local.get $previous)) (local.get $dayMs)))
+        (if (i32.eqz (i32.and
+              (i32.and (f64.ge (local.get $gap) (f64.const 0)) (f64.lt (local.get $gap) (f64.convert_i32_s (local.get $days))))
+              (f64.eq (f64.floor (local.get $gap)) (local.get $gap))))
+          (then (return (i32.const 0))))
+        (local.set $at (i32.add (local.get $counts) (i32.shl (i32.trunc_f64_s (local.get $gap)) (i32.const 2))))
+        (i32.store (local.get $at) (i32.add (i32.load (local.get $at)) (i32.const 1)))
+        (local.set $previous (local.get $key))
+        (local.set $i (i32.add (local.get $i) (i32.const 1)))
+        (br $row)))
+    (i32.const 1))
 )

@@ -96,6 +96,11 @@ export interface ScanKernel extends KernelMemory {
   firstNotIncreasing(count: number): number;
   /** Over |area[i step]|, i < size: how many are below (`below`) or above `threshold` (state[0]), NaN of the rest (state[1]). */
   sampleCounts(size: number, step: number, threshold: number, below: boolean): void;
+  /**
+   * The histogram of the whole-day gaps between the `count` keys in `area` (gaps in [0, days)), as
+   * Int32 counts after the keys; null at the first gap that is not a whole day in range.
+   */
+  dayGaps(count: number, dayMs: number, days: number): Int32Array | null;
 }
 
 let series: SeriesKernel | null | undefined;
@@ -178,8 +183,12 @@ function seriesFunctions(f: Record<string, Exported>): Omit<SeriesKernel, keyof 
   };
 }
 
-function scanFunctions(f: Record<string, Exported>): Omit<ScanKernel, keyof KernelMemory> {
+function scanFunctions(f: Record<string, Exported>, buffer: ArrayBuffer): Omit<ScanKernel, keyof KernelMemory> {
   return {
+    dayGaps: (count, dayMs, days) => {
+      const at = 512 + 8 * count;
+      return f.dayGaps!(count, dayMs, days, at) === 1 ? new Int32Array(buffer, at, days) : null;
+    },
     firstBeyond: (count, limit) => f.firstBeyond!(count, limit)!,
     firstNotIncreasing: (count) => f.firstNotIncreasing!(count)!,
     sampleCounts: (size, step, threshold, below) => void f.sampleCounts!(size, step, threshold, flag(below)),

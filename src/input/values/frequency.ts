@@ -1,5 +1,6 @@
 /** Sampling frequency from the spacing of dates (the one table: src/core/calendar.ts), and a linear-time median. */
 import { DAY_MS, type FrequencyName, frequencies, frequencyTable } from "../../core/calendar.js";
+import { copyRows, KERNEL_ROWS, scanKernel } from "../../core/numerics/seriesKernel.js";
 
 export type { FrequencyName };
 
@@ -79,16 +80,9 @@ const HISTOGRAM_DAYS = 1024;
  * The median of the gaps (days) between consecutive keys, from a histogram, when every gap is a whole
  * number of days from 0 to HISTOGRAM_DAYS - 1 (then it is exactly what `median` gives); null otherwise.
  */
-function medianWholeDayGap(keys: ArrayLike<number>): number | null {
-  const counts = new Int32Array(HISTOGRAM_DAYS);
-  let previous = keys[0] as number;
-  for (let i = 1; i < keys.length; i++) {
-    const key = keys[i] as number;
-    const gap = (key - previous) / DAY_MS;
-    if (!(gap >= 0 && gap < HISTOGRAM_DAYS && Math.floor(gap) === gap)) return null;
-    counts[gap] = (counts[gap] as number) + 1;
-    previous = key;
-  }
+export function medianWholeDayGap(keys: ArrayLike<number>, useKernel = true): number | null {
+  const counts = wholeDayGapCounts(keys, useKernel);
+  if (counts === null) return null;
   const n = keys.length - 1;
   // The values at sorted positions k - 1 and k, k = floor(n / 2), as `median` takes them.
   const k = n >> 1;
@@ -100,6 +94,29 @@ function medianWholeDayGap(keys: ArrayLike<number>): number | null {
     if (seen > k) return n % 2 === 1 ? value : (value + below) / 2;
   }
   return null;
+}
+
+/**
+ * How many consecutive keys are 0, 1, ... HISTOGRAM_DAYS - 1 whole days apart, or null when a gap is not
+ * a whole number of days in that range; in the scan kernel (WebAssembly, core/numerics/seriesKernel.ts)
+ * when it holds the keys, the same counts.
+ */
+function wholeDayGapCounts(keys: ArrayLike<number>, useKernel: boolean): Int32Array | null {
+  const kernel = useKernel && keys.length > 1 && 8 * keys.length + 4 * HISTOGRAM_DAYS <= 32 * KERNEL_ROWS ? scanKernel() : null;
+  if (kernel !== null) {
+    copyRows(kernel.area, keys, 0, keys.length);
+    return kernel.dayGaps(keys.length, DAY_MS, HISTOGRAM_DAYS);
+  }
+  const counts = new Int32Array(HISTOGRAM_DAYS);
+  let previous = keys[0] as number;
+  for (let i = 1; i < keys.length; i++) {
+    const key = keys[i] as number;
+    const gap = (key - previous) / DAY_MS;
+    if (!(gap >= 0 && gap < HISTOGRAM_DAYS && Math.floor(gap) === gap)) return null;
+    counts[gap] = (counts[gap] as number) + 1;
+    previous = key;
+  }
+  return counts;
 }
 
 /**

@@ -1,6 +1,6 @@
 /**
  * The input layer's scans of a column (the first extreme value, the first date out of order, the counts
- * of the unit check) in the scan kernel (src/core/numerics/scanKernel.wat) against their JavaScript
+ * of the unit check, the histogram of whole-day gaps) in the scan kernel (src/core/numerics/scanKernel.wat) against their JavaScript
  * loops (`useKernel = false`): the same answers, NaN included, at lengths up to what the kernel holds.
  */
 import { describe, expect, it } from "vitest";
@@ -9,6 +9,7 @@ import { KERNEL_ROWS } from "../../../src/core/numerics/seriesKernel.js";
 import { nextExtreme } from "../../../src/input/table/convert.js";
 import { firstNotIncreasing } from "../../../src/input/table/finish.js";
 import { medianMayPass } from "../../../src/input/table/warnings.js";
+import { medianWholeDayGap } from "../../../src/input/values/frequency.js";
 
 const ODD = [Number.NaN, Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, -0, 1e300];
 
@@ -67,5 +68,44 @@ describe("the input layer's scans in the scan kernel", () => {
         }
       }
     }
+  });
+});
+
+describe("the whole-day gaps' histogram in the scan kernel", () => {
+  const day = 86_400_000;
+  /** Keys from gaps (days) starting at 2001-01-01. */
+  const keysOf = (gaps: readonly number[]) => {
+    const keys = new Float64Array(gaps.length + 1);
+    keys[0] = Date.UTC(2001, 0, 1);
+    gaps.forEach((g, i) => {
+      keys[i + 1] = keys[i]! + g * day;
+    });
+    return keys;
+  };
+  const random = createRandom(77);
+  const cases: Record<string, readonly number[]> = {
+    "business days": Array.from({ length: 2519 }, (_, i) => (i % 5 === 4 ? 3 : 1)),
+    "month ends": Array.from({ length: 239 }, () => 28 + Math.floor(random.uniform() * 4)),
+    "an even count": [1, 1, 3, 3],
+    "an odd count": [7, 7, 7],
+    "one gap": [1],
+    "a repeated date": [1, 0, 1, 1],
+    "a fractional gap": [1, 1, 0.5, 1],
+    "a step back": [1, -1, 1],
+    "a gap of 1024 days": [1, 1024, 1],
+    "a gap of 1023 days": [1, 1023, 1],
+    "a missing date": [1, Number.NaN, 1],
+    "many rows": Array.from({ length: 40_000 }, (_, i) => (i % 7 === 6 ? 2 : 1)),
+  };
+
+  it.each(Object.entries(cases))("gives the loop's median gap: %s", (_, gaps) => {
+    const keys = keysOf(gaps);
+    expect(medianWholeDayGap(keys)).toBe(medianWholeDayGap(keys, false));
+  });
+
+  it("counts the gaps (a median the loop also finds, not null)", () => {
+    expect(medianWholeDayGap(keysOf(cases["business days"]!))).toBe(1);
+    expect(medianWholeDayGap(keysOf(cases["an even count"]!))).toBe(2);
+    expect(medianWholeDayGap(keysOf(cases["a fractional gap"]!))).toBeNull();
   });
 });
