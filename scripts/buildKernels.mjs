@@ -14,7 +14,7 @@ export const kernels = [
   },
   { wat: "core/numerics/seriesKernel.wat", module: "core/numerics/seriesKernelWasm.ts", constant: "seriesKernelWasm" },
   { wat: "core/numerics/influenceKernel.wat", module: "core/numerics/influenceKernelWasm.ts", constant: "influenceKernelWasm" },
-  { wat: "core/numerics/scanKernel.wat", module: "core/numerics/scanKernelWasm.ts", constant: "scanKernelWasm" },
+  { wat: "core/numerics/columnKernel.wat", module: "core/numerics/columnKernelWasm.ts", constant: "columnKernelWasm" },
 ];
 
 const source = (path) => new URL(`../src/${path}`, import.meta.url);

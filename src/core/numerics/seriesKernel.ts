@@ -2,9 +2,10 @@
  * Passes over series in WebAssembly, for the samples V8 would run in its interpreter: a JavaScript loop
  * is optimised only after it has run a while, and before that every double it makes is a new heap
  * object (a 2,520-row Welford pass took 12 ms and 2 MB of garbage there; the kernel takes a fraction of
- * a millisecond). Three modules: seriesKernel.wat (the moments, magnitudes, residual sums, CAPM fits,
- * factor covariance and elementwise passes), influenceKernel.wat (the uncertainty's window sums and
- * influence series) and scanKernel.wat (the input layer's checks of a column: comparisons only).
+ * a millisecond). Three modules: seriesKernel.wat (the moments, magnitudes, residual sums, CAPM fits
+ * and elementwise passes), influenceKernel.wat (the uncertainty's window sums and influence series)
+ * and columnKernel.wat (passes over whole columns: the input layer's checks of a column, and the
+ * factor model's covariance).
  * Each kernel function does its JavaScript twin's arithmetic in the same order, so the results are the
  * same bits (test/core/numerics/seriesKernel*.test.ts compare both); each twin stays as the fallback
  * where WebAssembly is missing (the kernels are then null) and as the reference.
@@ -15,7 +16,7 @@
  * series of up to KERNEL_ROWS rows; longer ones run long enough in JavaScript to be optimised there.
  */
 import { influenceKernelWasm } from "./influenceKernelWasm.js";
-import { scanKernelWasm } from "./scanKernelWasm.js";
+import { columnKernelWasm } from "./columnKernelWasm.js";
 import { seriesKernelWasm } from "./seriesKernelWasm.js";
 
 /** Rows a column of a kernel holds (a series, or a chunk of a pass over a longer one). */
@@ -55,11 +56,6 @@ export interface SeriesKernel extends KernelMemory {
   crossSums(count: number): void;
   /** leastSquares.ts interceptResidualChunk: column 2 = y - ((0 + a) + x b). */
   interceptResiduals(count: number, a: number, b: number): void;
-  /**
-   * factorModel.ts sampleCovariance of k series of n rows stacked in `area` (series i from i n), the
-   * rates after them (when hasRates, else `rate`): the k x k matrix, row-major, from (k + 1) n.
-   */
-  covariance(k: number, n: number, hasRates: boolean, rate: number): void;
 }
 
 /** influenceKernel.wat: the uncertainty's passes over whole series of up to KERNEL_ROWS rows. */
@@ -88,8 +84,8 @@ export interface InfluenceKernel extends KernelMemory {
   pricingSeries(k: number, count: number): Float64Array;
 }
 
-/** scanKernel.wat: checks of a column of up to 4 KERNEL_ROWS values copied into `area`. */
-export interface ScanKernel extends KernelMemory {
+/** columnKernel.wat: passes over columns of up to 4 KERNEL_ROWS values in all, copied into `area`. */
+export interface ColumnKernel extends KernelMemory {
   /** The first i < count with |area[i]| > limit, or -1. */
   firstBeyond(count: number, limit: number): number;
   /** The first i in [1, count) with !(area[i] - area[i - 1] > 0), or count. */
@@ -101,10 +97,15 @@ export interface ScanKernel extends KernelMemory {
    * Int32 counts after the keys; null at the first gap that is not a whole day in range.
    */
   dayGaps(count: number, dayMs: number, days: number): Int32Array | null;
+  /**
+   * factorModel.ts sampleCovariance of k series of n rows stacked in `area` (series i from i n), the
+   * rates after them (when hasRates, else `rate`): the k x k matrix, row-major, from (k + 1) n.
+   */
+  covariance(k: number, n: number, hasRates: boolean, rate: number): void;
 }
 
 let series: SeriesKernel | null | undefined;
-let scan: ScanKernel | null | undefined;
+let column: ColumnKernel | null | undefined;
 let influence: InfluenceKernel | null | undefined;
 
 /** seriesKernel.wat, or null (WebAssembly unavailable: use the JavaScript loops). */
@@ -130,10 +131,10 @@ export function wasmBinary(base64: string): Uint8Array {
   return bytes;
 }
 
-/** scanKernel.wat, or null (WebAssembly unavailable: use the JavaScript loops). */
-export function scanKernel(): ScanKernel | null {
-  if (scan === undefined) scan = instantiate(scanKernelWasm, scanFunctions);
-  return scan;
+/** columnKernel.wat, or null (WebAssembly unavailable: use the JavaScript loops). */
+export function columnKernel(): ColumnKernel | null {
+  if (column === undefined) column = instantiate(columnKernelWasm, columnFunctions);
+  return column;
 }
 
 /**
@@ -179,11 +180,10 @@ function seriesFunctions(f: Record<string, Exported>): Omit<SeriesKernel, keyof 
     scaledExcess: (count, hasRates, rate, scale) => f.scaledExcess!(count, flag(hasRates), rate, scale),
     crossSums: f.crossSums!,
     interceptResiduals: f.interceptResiduals!,
-    covariance: (k, n, hasRates, rate) => f.covariance!(k, n, flag(hasRates), rate),
   };
 }
 
-function scanFunctions(f: Record<string, Exported>, buffer: ArrayBuffer): Omit<ScanKernel, keyof KernelMemory> {
+function columnFunctions(f: Record<string, Exported>, buffer: ArrayBuffer): Omit<ColumnKernel, keyof KernelMemory> {
   return {
     dayGaps: (count, dayMs, days) => {
       const at = 512 + 8 * count;
@@ -192,6 +192,7 @@ function scanFunctions(f: Record<string, Exported>, buffer: ArrayBuffer): Omit<S
     firstBeyond: (count, limit) => f.firstBeyond!(count, limit)!,
     firstNotIncreasing: (count) => f.firstNotIncreasing!(count)!,
     sampleCounts: (size, step, threshold, below) => void f.sampleCounts!(size, step, threshold, flag(below)),
+    covariance: (k, n, hasRates, rate) => void f.covariance!(k, n, flag(hasRates), rate),
   };
 }
 

@@ -1,5 +1,5 @@
 /** Warnings about a table that was read: units that look wrong, skipped titles, other tables. */
-import { KERNEL_ROWS, scanKernel } from "../../core/numerics/seriesKernel.js";
+import { KERNEL_ROWS, columnKernel } from "../../core/numerics/seriesKernel.js";
 import { float64Of } from "./arrays.js";
 import type { Extracted } from "./extracted.js";
 import { median } from "../values/frequency.js";
@@ -36,7 +36,7 @@ export function columnUnitWarnings(column: string, values: Float64Array, options
  * (`below` true), from one count instead of a selection: with the sample sorted a[0..m), k = floor(m/2),
  * the median is a[k] or (a[k-1] + a[k]) / 2, so it is above t only if at least m - k values are, and
  * below t only if at least k are. A NaN in the sample leaves the answer to the median itself. The
- * counts come from the scan kernel (WebAssembly, core/numerics/seriesKernel.ts) when it holds the column.
+ * counts come from the column kernel (WebAssembly, core/numerics/seriesKernel.ts) when it holds the column.
  */
 export function medianMayPass(
   values: Float64Array,
@@ -47,7 +47,7 @@ export function medianMayPass(
   useKernel = true,
 ): boolean {
   const k = size >> 1;
-  const kernel = useKernel && values.length <= 4 * KERNEL_ROWS ? scanKernel() : null;
+  const kernel = useKernel && values.length <= 4 * KERNEL_ROWS ? columnKernel() : null;
   if (kernel !== null) {
     kernel.area.set(values);
     kernel.sampleCounts(size, step, threshold, below);

@@ -1,6 +1,6 @@
 /** Sampling frequency from the spacing of dates (the one table: src/core/calendar.ts), and a linear-time median. */
 import { DAY_MS, type FrequencyName, frequencies, frequencyTable } from "../../core/calendar.js";
-import { copyRows, KERNEL_ROWS, scanKernel } from "../../core/numerics/seriesKernel.js";
+import { copyRows, KERNEL_ROWS, columnKernel } from "../../core/numerics/seriesKernel.js";
 
 export type { FrequencyName };
 
@@ -98,11 +98,11 @@ export function medianWholeDayGap(keys: ArrayLike<number>, useKernel = true): nu
 
 /**
  * How many consecutive keys are 0, 1, ... HISTOGRAM_DAYS - 1 whole days apart, or null when a gap is not
- * a whole number of days in that range; in the scan kernel (WebAssembly, core/numerics/seriesKernel.ts)
+ * a whole number of days in that range; in the column kernel (WebAssembly, core/numerics/seriesKernel.ts)
  * when it holds the keys, the same counts.
  */
 function wholeDayGapCounts(keys: ArrayLike<number>, useKernel: boolean): Int32Array | null {
-  const kernel = useKernel && keys.length > 1 && 8 * keys.length + 4 * HISTOGRAM_DAYS <= 32 * KERNEL_ROWS ? scanKernel() : null;
+  const kernel = useKernel && keys.length > 1 && 8 * keys.length + 4 * HISTOGRAM_DAYS <= 32 * KERNEL_ROWS ? columnKernel() : null;
   if (kernel !== null) {
     copyRows(kernel.area, keys, 0, keys.length);
     return kernel.dayGaps(keys.length, DAY_MS, HISTOGRAM_DAYS);

@@ -8,8 +8,8 @@ import { windowSquaresOfTwo } from "../../../src/core/inference/hac/bartlettWind
 import { excessCrossProducts } from "../../../src/core/moments.js";
 import { createRandom } from "../../../src/core/numerics/rng.js";
 import { influenceKernelWasm } from "../../../src/core/numerics/influenceKernelWasm.js";
-import { influenceKernel, KERNEL_ROWS, scanKernel, seriesKernel } from "../../../src/core/numerics/seriesKernel.js";
-import { scanKernelWasm } from "../../../src/core/numerics/scanKernelWasm.js";
+import { influenceKernel, KERNEL_ROWS, columnKernel, seriesKernel } from "../../../src/core/numerics/seriesKernel.js";
+import { columnKernelWasm } from "../../../src/core/numerics/columnKernelWasm.js";
 import { seriesKernelWasm } from "../../../src/core/numerics/seriesKernelWasm.js";
 
 const ODD = [Number.NaN, Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, -0, 0, 1e300, -1e-320, 5e-324, -1e300];
@@ -32,18 +32,18 @@ function expectSameBits(got: ArrayLike<number>, expected: ArrayLike<number>, lab
 }
 
 describe("the series kernels", () => {
-  it("are the assembly of seriesKernel.wat, influenceKernel.wat and scanKernel.wat (regenerate with npm run build:kernels)", async () => {
+  it("are the assembly of seriesKernel.wat, influenceKernel.wat and columnKernel.wat (regenerate with npm run build:kernels)", async () => {
     const script = "../../../scripts/buildKernels.mjs";
     const { assembleKernel } = (await import(script)) as { assembleKernel(wat: string): Promise<string> };
     expect(await assembleKernel("core/numerics/seriesKernel.wat")).toBe(seriesKernelWasm);
     expect(await assembleKernel("core/numerics/influenceKernel.wat")).toBe(influenceKernelWasm);
-    expect(await assembleKernel("core/numerics/scanKernel.wat")).toBe(scanKernelWasm);
+    expect(await assembleKernel("core/numerics/columnKernel.wat")).toBe(columnKernelWasm);
   });
 
   it("are available on Node 20 (else every pass would silently take the JavaScript path)", () => {
     expect(seriesKernel()).not.toBeNull();
     expect(influenceKernel()).not.toBeNull();
-    expect(scanKernel()).not.toBeNull();
+    expect(columnKernel()).not.toBeNull();
   });
 });
 

@@ -1,6 +1,6 @@
 /**
  * The input layer's scans of a column (the first extreme value, the first date out of order, the counts
- * of the unit check, the histogram of whole-day gaps) in the scan kernel (src/core/numerics/scanKernel.wat) against their JavaScript
+ * of the unit check, the histogram of whole-day gaps) in the column kernel (src/core/numerics/columnKernel.wat) against their JavaScript
  * loops (`useKernel = false`): the same answers, NaN included, at lengths up to what the kernel holds.
  */
 import { describe, expect, it } from "vitest";
@@ -20,7 +20,7 @@ function series(n: number, seed: number, centre: number, spread: number, special
   return f;
 }
 
-describe("the input layer's scans in the scan kernel", () => {
+describe("the input layer's scans in the column kernel", () => {
   const column = (n: number, seed: number, specials: number) => series(n, seed, 0, 3, specials);
 
   it("nextExtreme finds the first |value| beyond the limit as the loop does (NaN never counts)", () => {
@@ -71,7 +71,7 @@ describe("the input layer's scans in the scan kernel", () => {
   });
 });
 
-describe("the whole-day gaps' histogram in the scan kernel", () => {
+describe("the whole-day gaps' histogram in the column kernel", () => {
   const day = 86_400_000;
   /** Keys from gaps (days) starting at 2001-01-01. */
   const keysOf = (gaps: readonly number[]) => {
