@@ -20,7 +20,7 @@
  *   analysis and recommendations", The American Statistician 37(3), 242-247.
  */
 
-import { inChunks, type SeriesKernel, seriesKernel } from "./numerics/seriesKernel.js";
+import { inChunks, seriesKernel } from "./numerics/seriesKernel.js";
 import { CHUNK } from "./numerics/seriesLoops.js";
 
 /** Means and centred sums of squares and cross-products of several aligned series. */
@@ -159,8 +159,12 @@ function welford3(
   const state = new Float64Array(STATE_SIZE);
   const shift = Float64Array.of(kx, ky, kz, scale);
   const kernel = useKernel ? seriesKernel() : null;
-  if (kernel !== null) welfordInKernel(kernel, x, y, z, rates, rate, weight, shift, state);
-  else
+  if (kernel !== null) {
+    kernel.state.fill(0);
+    kernel.parameters.set(shift);
+    inChunks(kernel, { x, y, z, rates }, (from, count) => kernel.welford(from, count, z !== null, rates !== null, +rate, weight));
+    state.set(kernel.state.subarray(0, STATE_SIZE));
+  } else
     for (let from = 0; from < n; from += CHUNK) welfordChunk(x, y, z, rates, rate, weight, shift, from, Math.min(n, from + CHUNK), state);
   // A running value plus its carried error: state[value] + state[error].
   const total = (value: number, error: number): number => state[value]! + state[error]!;
@@ -176,24 +180,6 @@ function welford3(
       [xz, yz, total(11, 17)],
     ],
   };
-}
-
-/** welford3's pass in the kernel, chunk by chunk, its state then copied to `state`. */
-function welfordInKernel(
-  kernel: SeriesKernel,
-  x: ArrayLike<number>,
-  y: ArrayLike<number>,
-  z: Float64Array | null,
-  rates: ArrayLike<number> | null,
-  rate: number,
-  weight: number,
-  shift: Float64Array,
-  state: Float64Array,
-): void {
-  kernel.state.fill(0);
-  kernel.parameters.set(shift);
-  inChunks(kernel, { x, y, z, rates }, (from, count) => kernel.welford(from, count, z !== null, rates !== null, +rate, weight));
-  state.set(kernel.state.subarray(0, STATE_SIZE));
 }
 
 /** Rows per call of welfordChunk (and of the other chunked passes, numerics/seriesLoops.ts). */

@@ -11,7 +11,7 @@
 import { diagnose, type Diagnostic } from "../diagnostics.js";
 import { identifiedBounds } from "../identify.js";
 import { chiSquareSurvival } from "../numerics/chiSquare.js";
-import { type ColumnKernel, columnKernel, copyRows, KERNEL_ROWS } from "../numerics/seriesKernel.js";
+import { type ColumnKernel, columnKernel, copyRows, AREA_ROWS } from "../numerics/seriesKernel.js";
 import type { IdentifiedBounds } from "../types.js";
 import { fitOneFactor } from "./factorModelFit.js";
 
@@ -61,7 +61,7 @@ export function sampleCovariance(series: readonly ArrayLike<number>[], offset: n
   const n = series[0]?.length ?? 0;
   const k = series.length;
   // Short samples in the WebAssembly kernel (numerics/seriesKernel.ts: the same bits).
-  const kernel = useKernel && n > 0 && (k + 1) * n + k * k <= 4 * KERNEL_ROWS ? columnKernel() : null;
+  const kernel = useKernel && n > 0 && (k + 1) * n + k * k <= AREA_ROWS ? columnKernel() : null;
   if (kernel !== null) return covarianceInKernel(kernel, series, offset);
   // Shifted by the first observation first (as core/moments.ts does): a constant series is exactly 0.
   const centred = series.map((x) => centredSeries(typeof offset === "number" ? excess(x, offset) : excessOf(x, offset)));

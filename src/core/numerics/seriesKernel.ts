@@ -21,6 +21,8 @@ import { seriesKernelWasm } from "./seriesKernelWasm.js";
 
 /** Rows a column of a kernel holds (a series, or a chunk of a pass over a longer one). */
 export const KERNEL_ROWS = 32_768;
+/** Doubles the four columns hold together (`area`), for passes over several columns or a long one. */
+export const AREA_ROWS = 4 * KERNEL_ROWS;
 /** Rows per chunk of `pricingInfluence` (its six outputs share column 2). */
 export const PRICING_ROWS = 4096;
 
@@ -32,7 +34,7 @@ export interface KernelMemory {
   readonly parameters: Float64Array;
   /** The rows, column by column (KERNEL_ROWS doubles each). */
   readonly columns: readonly [Float64Array, Float64Array, Float64Array, Float64Array];
-  /** The four columns as one area (4 KERNEL_ROWS doubles), for passes over many stacked series. */
+  /** The four columns as one area (AREA_ROWS doubles), for passes over many stacked series. */
   readonly area: Float64Array;
 }
 
@@ -84,7 +86,7 @@ export interface InfluenceKernel extends KernelMemory {
   pricingSeries(k: number, count: number): Float64Array;
 }
 
-/** columnKernel.wat: passes over columns of up to 4 KERNEL_ROWS values in all, copied into `area`. */
+/** columnKernel.wat: passes over columns of up to AREA_ROWS values in all, copied into `area`. */
 export interface ColumnKernel extends KernelMemory {
   /** The first i < count with |area[i]| > limit, or -1. */
   firstBeyond(count: number, limit: number): number;
@@ -218,7 +220,7 @@ function instantiate<T>(
       state: new Float64Array(buffer, 0, 32),
       parameters: new Float64Array(buffer, 256, 32),
       columns: [column(0), column(1), column(2), column(3)],
-      area: new Float64Array(buffer, 512, 4 * KERNEL_ROWS),
+      area: new Float64Array(buffer, 512, AREA_ROWS),
     };
     return { ...memory, ...functions(exports as unknown as Record<string, Exported>, buffer) } as T & KernelMemory;
   } catch {

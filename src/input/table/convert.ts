@@ -4,7 +4,7 @@
  * prices: P_t / P_{t-1} - 1, so the first row has no return and is consumed, and a missing
  * price makes both returns that use it missing.
  */
-import { KERNEL_ROWS, columnKernel } from "../../core/numerics/seriesKernel.js";
+import { AREA_ROWS, columnKernel } from "../../core/numerics/seriesKernel.js";
 import { cellPlace, type Extracted } from "./extracted.js";
 import { isIdentity } from "./arrays.js";
 import type { IssueList } from "../issueList.js";
@@ -19,7 +19,7 @@ export const EXTREME_LIMIT = 10;
  * holds the column (the later ones, after an extreme value, search on from it here: no copy each time).
  */
 export function nextExtreme(values: Float64Array, from: number, useKernel = true): number {
-  const kernel = useKernel && from === 0 && values.length <= 4 * KERNEL_ROWS ? columnKernel() : null;
+  const kernel = useKernel && from === 0 && values.length <= AREA_ROWS ? columnKernel() : null;
   if (kernel !== null) {
     kernel.area.set(values);
     return kernel.firstBeyond(values.length, EXTREME_LIMIT);

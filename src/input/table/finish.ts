@@ -1,5 +1,5 @@
 /** From extracted rows to a ReturnTable: date order, conversion to decimal returns, dropping, checks. */
-import { KERNEL_ROWS, columnKernel } from "../../core/numerics/seriesKernel.js";
+import { AREA_ROWS, columnKernel } from "../../core/numerics/seriesKernel.js";
 import { arrayOf, float64Of, identityOf, int32Of, isIdentity } from "./arrays.js";
 import { success, failure, type Result } from "../../core/result.js";
 import { dateTextAt, isoAt, type Extracted } from "./extracted.js";
@@ -22,7 +22,7 @@ const MAX_DROPPED_DATES = 5;
  * the keys (the later ones, after a key out of order, search on from it here: no copy each time).
  */
 export function firstNotIncreasing(keys: Float64Array, from: number, useKernel = true): number {
-  const kernel = useKernel && from === 1 && keys.length <= 4 * KERNEL_ROWS ? columnKernel() : null;
+  const kernel = useKernel && from === 1 && keys.length <= AREA_ROWS ? columnKernel() : null;
   if (kernel !== null) {
     kernel.area.set(keys);
     return kernel.firstNotIncreasing(keys.length);

@@ -1,5 +1,5 @@
 /** Warnings about a table that was read: units that look wrong, skipped titles, other tables. */
-import { KERNEL_ROWS, columnKernel } from "../../core/numerics/seriesKernel.js";
+import { AREA_ROWS, columnKernel } from "../../core/numerics/seriesKernel.js";
 import { float64Of } from "./arrays.js";
 import type { Extracted } from "./extracted.js";
 import { median } from "../values/frequency.js";
@@ -47,7 +47,7 @@ export function medianMayPass(
   useKernel = true,
 ): boolean {
   const k = size >> 1;
-  const kernel = useKernel && values.length <= 4 * KERNEL_ROWS ? columnKernel() : null;
+  const kernel = useKernel && values.length <= AREA_ROWS ? columnKernel() : null;
   if (kernel !== null) {
     kernel.area.set(values);
     kernel.sampleCounts(size, step, threshold, below);

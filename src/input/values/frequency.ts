@@ -1,6 +1,6 @@
 /** Sampling frequency from the spacing of dates (the one table: src/core/calendar.ts), and a linear-time median. */
 import { DAY_MS, type FrequencyName, frequencies, frequencyTable } from "../../core/calendar.js";
-import { copyRows, KERNEL_ROWS, columnKernel } from "../../core/numerics/seriesKernel.js";
+import { copyRows, AREA_ROWS, columnKernel } from "../../core/numerics/seriesKernel.js";
 
 export type { FrequencyName };
 
@@ -102,7 +102,8 @@ export function medianWholeDayGap(keys: ArrayLike<number>, useKernel = true): nu
  * when it holds the keys, the same counts.
  */
 function wholeDayGapCounts(keys: ArrayLike<number>, useKernel: boolean): Int32Array | null {
-  const kernel = useKernel && keys.length > 1 && 8 * keys.length + 4 * HISTOGRAM_DAYS <= 32 * KERNEL_ROWS ? columnKernel() : null;
+  // The area holds the keys and, after them, the counts (an Int32 is half a double).
+  const kernel = useKernel && keys.length > 1 && keys.length + HISTOGRAM_DAYS / 2 <= AREA_ROWS ? columnKernel() : null;
   if (kernel !== null) {
     copyRows(kernel.area, keys, 0, keys.length);
     return kernel.dayGaps(keys.length, DAY_MS, HISTOGRAM_DAYS);

@@ -14,7 +14,7 @@
 
 import { largestValues } from "../../cancellation.js";
 import { CHUNK } from "../../numerics/seriesLoops.js";
-import { copyRows, KERNEL_ROWS, seriesKernel } from "../../numerics/seriesKernel.js";
+import { inChunks, KERNEL_ROWS, seriesKernel } from "../../numerics/seriesKernel.js";
 import { scaleFor } from "../../scaling.js";
 import { bootstrapQuantities, quantityCount, writeStatistics } from "./statistics.js";
 import { drawBlocks, replicateRandom, validateBlockLength } from "./stationaryBootstrap.js";
@@ -101,12 +101,11 @@ export function excessReturnsScaledBy(
   const kernel = n <= KERNEL_ROWS ? seriesKernel() : null;
   if (kernel !== null) {
     // Short series in the WebAssembly kernel (numerics/seriesKernel.ts: the same bits).
-    copyRows(kernel.columns[0], data.low, 0, n);
-    copyRows(kernel.columns[1], data.high, 0, n);
-    if (rates !== null) copyRows(kernel.columns[3], rates, 0, n);
-    kernel.scaledExcess(n, rates !== null, +rate, scale);
-    low.set(kernel.columns[0].subarray(0, n));
-    high.set(kernel.columns[1].subarray(0, n));
+    inChunks(kernel, { x: data.low, y: data.high, rates }, (from, count) => {
+      kernel.scaledExcess(count, rates !== null, +rate, scale);
+      low.set(kernel.columns[0].subarray(0, count), from);
+      high.set(kernel.columns[1].subarray(0, count), from);
+    });
     return { low, high, scale };
   }
   // In chunks by a small function V8 optimises whole (numerics/seriesLoops.ts).
