@@ -11,12 +11,17 @@
   ;; bartlettWindows.ts windowSquaresOfTwo over a whole series of n rows, x in column 0 and y in column 1:
   ;; the windows t = 1 - width .. n - 1 by blocks of 1,024, each window's sums hx + lx and hy + ly kept
   ;; with TwoSum as rows enter and leave, the block's sums of squares added to the totals at its end.
-  ;; State: hx lx hy ly, then the totals xx xy - yy (all from 0).
-  (func (export "windowsOfTwo") (param $n i32) (param $width i32)
+  ;; State: hx lx hy ly, then the totals xx xy - yy (all from 0). With $both, the same for width - 1 in
+  ;; the same loop (state 8..15): its window t + 1 takes the same entering row as the wider window t and
+  ;; leaves row t, and its blocks hold the same window counts, so each width's operations are those of
+  ;; a pass of its own (the same bits), while the two independent chains of additions overlap.
+  (func (export "windowsOfTwo") (param $n i32) (param $width i32) (param $both i32)
     (local $t i32) (local $stop i32) (local $entering i32)
     (local $hx f64) (local $lx f64) (local $hy f64) (local $ly f64)
     (local $xx f64) (local $xy f64) (local $yy f64)
     (local $u f64) (local $sum f64) (local $virtual f64) (local $wx f64) (local $wy f64)
+    (local $hx2 f64) (local $lx2 f64) (local $hy2 f64) (local $ly2 f64)
+    (local $xx2 f64) (local $xy2 f64) (local $yy2 f64) (local $wx2 f64) (local $wy2 f64)
     (local.set $t (i32.sub (i32.const 1) (local.get $width)))
     (block $done
       (loop $block
@@ -26,6 +31,9 @@
         (local.set $xx (f64.const 0))
         (local.set $xy (f64.const 0))
         (local.set $yy (f64.const 0))
+        (local.set $xx2 (f64.const 0))
+        (local.set $xy2 (f64.const 0))
+        (local.set $yy2 (f64.const 0))
         (loop $window
           (local.set $entering (i32.sub (i32.add (local.get $t) (local.get $width)) (i32.const 1)))
           (if (i32.lt_s (local.get $entering) (local.get $n))
@@ -69,16 +77,69 @@
           (local.set $xx (f64.add (local.get $xx) (f64.mul (local.get $wx) (local.get $wx))))
           (local.set $xy (f64.add (local.get $xy) (f64.mul (local.get $wx) (local.get $wy))))
           (local.set $yy (f64.add (local.get $yy) (f64.mul (local.get $wy) (local.get $wy))))
+          ;; The narrower window t + 1 (none after the last row).
+          (if (i32.and (local.get $both) (i32.lt_s (i32.add (local.get $t) (i32.const 1)) (local.get $n)))
+            (then
+              (if (i32.lt_s (local.get $entering) (local.get $n))
+                (then
+                  (local.set $u (f64.load offset=512 (i32.shl (local.get $entering) (i32.const 3))))
+                  (local.set $sum (f64.add (local.get $hx2) (local.get $u)))
+                  (local.set $virtual (f64.sub (local.get $sum) (local.get $hx2)))
+                  (local.set $lx2 (f64.add (local.get $lx2) (f64.add
+                    (f64.sub (local.get $hx2) (f64.sub (local.get $sum) (local.get $virtual)))
+                    (f64.sub (local.get $u) (local.get $virtual)))))
+                  (local.set $hx2 (local.get $sum))))
+              (if (i32.ge_s (local.get $t) (i32.const 0))
+                (then
+                  (local.set $u (f64.neg (f64.load offset=512 (i32.shl (local.get $t) (i32.const 3)))))
+                  (local.set $sum (f64.add (local.get $hx2) (local.get $u)))
+                  (local.set $virtual (f64.sub (local.get $sum) (local.get $hx2)))
+                  (local.set $lx2 (f64.add (local.get $lx2) (f64.add
+                    (f64.sub (local.get $hx2) (f64.sub (local.get $sum) (local.get $virtual)))
+                    (f64.sub (local.get $u) (local.get $virtual)))))
+                  (local.set $hx2 (local.get $sum))))
+              (if (i32.lt_s (local.get $entering) (local.get $n))
+                (then
+                  (local.set $u (f64.load offset=262656 (i32.shl (local.get $entering) (i32.const 3))))
+                  (local.set $sum (f64.add (local.get $hy2) (local.get $u)))
+                  (local.set $virtual (f64.sub (local.get $sum) (local.get $hy2)))
+                  (local.set $ly2 (f64.add (local.get $ly2) (f64.add
+                    (f64.sub (local.get $hy2) (f64.sub (local.get $sum) (local.get $virtual)))
+                    (f64.sub (local.get $u) (local.get $virtual)))))
+                  (local.set $hy2 (local.get $sum))))
+              (if (i32.ge_s (local.get $t) (i32.const 0))
+                (then
+                  (local.set $u (f64.neg (f64.load offset=262656 (i32.shl (local.get $t) (i32.const 3)))))
+                  (local.set $sum (f64.add (local.get $hy2) (local.get $u)))
+                  (local.set $virtual (f64.sub (local.get $sum) (local.get $hy2)))
+                  (local.set $ly2 (f64.add (local.get $ly2) (f64.add
+                    (f64.sub (local.get $hy2) (f64.sub (local.get $sum) (local.get $virtual)))
+                    (f64.sub (local.get $u) (local.get $virtual)))))
+                  (local.set $hy2 (local.get $sum))))
+              (local.set $wx2 (f64.add (local.get $hx2) (local.get $lx2)))
+              (local.set $wy2 (f64.add (local.get $hy2) (local.get $ly2)))
+              (local.set $xx2 (f64.add (local.get $xx2) (f64.mul (local.get $wx2) (local.get $wx2))))
+              (local.set $xy2 (f64.add (local.get $xy2) (f64.mul (local.get $wx2) (local.get $wy2))))
+              (local.set $yy2 (f64.add (local.get $yy2) (f64.mul (local.get $wy2) (local.get $wy2))))))
           (local.set $t (i32.add (local.get $t) (i32.const 1)))
           (br_if $window (i32.lt_s (local.get $t) (local.get $stop))))
         (f64.store (i32.const 32) (f64.add (f64.load (i32.const 32)) (local.get $xx)))
         (f64.store (i32.const 40) (f64.add (f64.load (i32.const 40)) (local.get $xy)))
         (f64.store (i32.const 56) (f64.add (f64.load (i32.const 56)) (local.get $yy)))
+        (if (local.get $both)
+          (then
+            (f64.store (i32.const 96) (f64.add (f64.load (i32.const 96)) (local.get $xx2)))
+            (f64.store (i32.const 104) (f64.add (f64.load (i32.const 104)) (local.get $xy2)))
+            (f64.store (i32.const 120) (f64.add (f64.load (i32.const 120)) (local.get $yy2)))))
         (br $block)))
     (f64.store (i32.const 0) (local.get $hx))
     (f64.store (i32.const 8) (local.get $lx))
     (f64.store (i32.const 16) (local.get $hy))
-    (f64.store (i32.const 24) (local.get $ly)))
+    (f64.store (i32.const 24) (local.get $ly))
+    (f64.store (i32.const 64) (local.get $hx2))
+    (f64.store (i32.const 72) (local.get $lx2))
+    (f64.store (i32.const 80) (local.get $hy2))
+    (f64.store (i32.const 88) (local.get $ly2)))
 
   ;; boundsLongRun.ts boundInfluenceSeries over a whole series of n rows: x in column 0, y in column 1;
   ;; the gradients at 256 (lower g0 g1 g2, upper g0 g1 g2). The plain means mx my, the centred sums'

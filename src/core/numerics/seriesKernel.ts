@@ -64,9 +64,10 @@ export interface SeriesKernel extends KernelMemory {
 export interface InfluenceKernel extends KernelMemory {
   /**
    * bartlettWindows.ts windowSquaresOfTwo over the n rows in columns 0 and 1, from a state of zeros:
-   * state[4], state[5] and state[7] are then its sums xx, xy and yy.
+   * state[4], state[5] and state[7] are then its sums xx, xy and yy; with `both`, state[12], [13] and
+   * [15] are those of width - 1 (from zeros at 8..15), computed in the same loop.
    */
-  windowsOfTwo(n: number, width: number): void;
+  windowsOfTwo(n: number, width: number, both: boolean): void;
   /**
    * boundsLongRun.ts boundInfluenceSeries over the n rows in columns 0 and 1, the gradients (lower,
    * then upper) as parameters: the lower bound's series into column 2, the upper's into 3.
@@ -200,7 +201,7 @@ function columnFunctions(f: Record<string, Exported>, buffer: ArrayBuffer): Omit
 
 function influenceFunctions(f: Record<string, Exported>, buffer: ArrayBuffer): Omit<InfluenceKernel, keyof KernelMemory> {
   return {
-    windowsOfTwo: f.windowsOfTwo!,
+    windowsOfTwo: (n, width, both) => void f.windowsOfTwo!(n, width, flag(both)),
     boundInfluence: f.boundInfluence!,
     standardise: f.standardise!,
     pricingInfluence: (count, hasRates, rate) => f.pricingInfluence!(count, flag(hasRates), rate),

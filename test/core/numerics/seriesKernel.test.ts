@@ -4,7 +4,7 @@
  * around the kernel's chunk and the window sums' blocks.
  */
 import { describe, expect, it } from "vitest";
-import { windowSquaresOfTwo } from "../../../src/core/inference/hac/bartlettWindows.js";
+import { windowSquaresOfTwo, windowSquaresOfTwoWidths } from "../../../src/core/inference/hac/bartlettWindows.js";
 import { excessCrossProducts } from "../../../src/core/moments.js";
 import { createRandom } from "../../../src/core/numerics/rng.js";
 import { influenceKernelWasm } from "../../../src/core/numerics/influenceKernelWasm.js";
@@ -108,6 +108,35 @@ describe("windowSquaresOfTwo in the kernel", () => {
       const y = series(n, 400 + i, 0.001, 0.03);
       for (const width of [1, 2, 7, 31, 1024, 1500, n + 3]) {
         expectSameBits(windowSquaresOfTwo(x, y, width), windowSquaresOfTwo(x, y, width, false), `n ${n}, width ${width}`);
+      }
+    }
+  });
+
+  it("gives both widths in one pass, each the JavaScript windows of its width bit for bit", () => {
+    for (const [i, n] of [1, 2, 5, 1022, 1023, 1024, 1025, 2520, KERNEL_ROWS].entries()) {
+      const x = series(n, 700 + i, 0, 0.01, i % 3);
+      const y = series(n, 800 + i, 0.001, 0.03);
+      for (const width of [2, 3, 31, 1023, 1024, 1025, 1026, n + 1, n + 3]) {
+        const [wide, narrow] = windowSquaresOfTwoWidths(x, y, width, true);
+        expectSameBits(wide, windowSquaresOfTwo(x, y, width, false), `n ${n}, width ${width}`);
+        expectSameBits(narrow ?? [], windowSquaresOfTwo(x, y, width - 1, false), `n ${n}, width ${width - 1}`);
+        const [alone, none] = windowSquaresOfTwoWidths(x, y, width, false);
+        expectSameBits(alone, wide, `n ${n}, width ${width} alone`);
+        expect(none).toBeNull();
+      }
+    }
+  });
+
+  it("gives both widths bit for bit where the running sums' low parts round (magnitudes 1e-3 to 1e16)", () => {
+    for (let seed = 0; seed < 6; seed++) {
+      const n = 1500 + 211 * seed;
+      const random = createRandom(900 + seed);
+      const wild = () => Float64Array.from({ length: n }, () => random.normal() * 10 ** Math.floor(random.uniform() * 20 - 3));
+      const [x, y] = [wild(), wild()];
+      for (const width of [2, 5, 64]) {
+        const [wide, narrow] = windowSquaresOfTwoWidths(x, y, width, true);
+        expectSameBits(wide, windowSquaresOfTwo(x, y, width, false), `seed ${seed}, width ${width}`);
+        expectSameBits(narrow ?? [], windowSquaresOfTwo(x, y, width - 1, false), `seed ${seed}, width ${width - 1}`);
       }
     }
   });

@@ -40,9 +40,8 @@ export function bartlettKernelSum(columns: readonly Float64Array[], bandwidth: n
   const whole = Math.ceil(bandwidth);
   const a = (bandwidth - whole + 1) / bandwidth;
   const b = (whole - bandwidth) / bandwidth;
-  const squares = (width: number) => (within === undefined ? windowSquares(columns, width) : pairSquares(columns, width, within));
-  const upper = squares(whole);
-  const lower = b > 0 && whole > 1 ? squares(whole - 1) : null;
+  const [upper, lower] =
+    within === undefined ? windowSquaresAt(columns, whole, b > 0 && whole > 1) : pairSquares(columns, whole, b > 0 && whole > 1, within);
   return Array.from({ length: k }, (_, i) =>
     Array.from({ length: k }, (_, j) => {
       const at = i <= j ? i * k + j : j * k + i;
@@ -51,18 +50,34 @@ export function bartlettKernelSum(columns: readonly Float64Array[], bandwidth: n
   );
 }
 
-/** windowSquares' entries within each pair (a, b), a < b, by windowSquaresOfTwo; the others NaN. */
-function pairSquares(columns: readonly Float64Array[], width: number, pairs: ColumnPairs): Float64Array {
+/** Q(width), and Q(width - 1) when `narrower` (else null). */
+type WidthSquares = readonly [Float64Array, Float64Array | null];
+
+/** windowSquares at `width` and, when `narrower`, at width - 1 (two columns: in one pass). */
+function windowSquaresAt(columns: readonly Float64Array[], width: number, narrower: boolean): WidthSquares {
+  if (columns.length === 2) return windowSquaresOfTwoWidths(columns[0]!, columns[1]!, width, narrower);
+  return [windowSquares(columns, width), narrower ? windowSquares(columns, width - 1) : null];
+}
+
+/** windowSquaresAt's entries within each pair (a, b), a < b, by windowSquaresOfTwoWidths; the others NaN. */
+function pairSquares(columns: readonly Float64Array[], width: number, narrower: boolean, pairs: ColumnPairs): WidthSquares {
   const k = columns.length;
-  const total = new Float64Array(k * k).fill(Number.NaN);
+  const upper = new Float64Array(k * k).fill(Number.NaN);
+  const lower = narrower ? new Float64Array(k * k).fill(Number.NaN) : null;
   for (const [a, b] of pairs) {
     if (!(a < b && b < k)) throw new RangeError(`bartlettKernelSum: a pair of columns must be a < b < ${k}, got ${a}, ${b}`);
-    const two = windowSquaresOfTwo(columns[a]!, columns[b]!, width);
-    total[a * k + a] = two[0]!;
-    total[a * k + b] = two[1]!;
-    total[b * k + b] = two[3]!;
+    const [wide, narrow] = windowSquaresOfTwoWidths(columns[a]!, columns[b]!, width, narrower);
+    for (const [total, two] of [
+      [upper, wide],
+      [lower, narrow],
+    ] as const) {
+      if (total === null || two === null) continue;
+      total[a * k + a] = two[0]!;
+      total[a * k + b] = two[1]!;
+      total[b * k + b] = two[3]!;
+    }
   }
-  return total;
+  return [upper, lower];
 }
 
 /**
@@ -128,18 +143,35 @@ function windowSquares(columns: readonly Float64Array[], width: number): Float64
  * would run this loop in V8's interpreter.
  */
 export function windowSquaresOfTwo(x: Float64Array, y: Float64Array, width: number, useKernel = true): Float64Array {
+  return windowSquaresOfTwoWidths(x, y, width, false, useKernel)[0];
+}
+
+/**
+ * windowSquaresOfTwo at `width` and, when `narrower`, at width - 1: in the kernel both in one loop (its
+ * two chains of additions overlap; each width's arithmetic is its own pass's, so the same bits).
+ */
+export function windowSquaresOfTwoWidths(
+  x: Float64Array,
+  y: Float64Array,
+  width: number,
+  narrower: boolean,
+  useKernel = true,
+): WidthSquares {
   const n = x.length;
-  // hx, lx, hy, ly, then the totals xx, xy, -, yy (returned as state.subarray(4)).
-  const state = new Float64Array(8);
   const kernel = useKernel && n <= KERNEL_ROWS ? influenceKernel() : null;
-  if (kernel !== null) {
-    kernel.columns[0].set(x);
-    kernel.columns[1].set(y);
-    kernel.state.fill(0, 0, 8);
-    kernel.windowsOfTwo(n, width);
-    state.set(kernel.state.subarray(0, 8));
-    return state.subarray(4);
-  }
+  if (kernel === null) return [windowSquaresOfTwoInJs(x, y, width), narrower ? windowSquaresOfTwoInJs(x, y, width - 1) : null];
+  kernel.columns[0].set(x);
+  kernel.columns[1].set(y);
+  kernel.state.fill(0, 0, 16);
+  kernel.windowsOfTwo(n, width, narrower);
+  // Each width's state: hx, lx, hy, ly, then the totals xx, xy, -, yy (returned as its subarray(4)).
+  const state = kernel.state.slice(0, 16);
+  return [state.subarray(4, 8), narrower ? state.subarray(12, 16) : null];
+}
+
+function windowSquaresOfTwoInJs(x: Float64Array, y: Float64Array, width: number): Float64Array {
+  const n = x.length;
+  const state = new Float64Array(8);
   for (let t = 1 - width; t < n; t += BLOCK) windowBlockOfTwo(x, y, width, t, Math.min(n, t + BLOCK), state);
   return state.subarray(4);
 }
