@@ -15,6 +15,7 @@ export const kernels = [
   { wat: "core/numerics/seriesKernel.wat", module: "core/numerics/seriesKernelWasm.ts", constant: "seriesKernelWasm" },
   { wat: "core/numerics/influenceKernel.wat", module: "core/numerics/influenceKernelWasm.ts", constant: "influenceKernelWasm" },
   { wat: "core/numerics/columnKernel.wat", module: "core/numerics/columnKernelWasm.ts", constant: "columnKernelWasm" },
+  { wat: "report/csvRowsKernel.wat", module: "report/csvRowsKernelWasm.ts", constant: "csvRowsKernelWasm" },
 ];
 
 const source = (path) => new URL(`../src/${path}`, import.meta.url);
@@ -23,7 +24,7 @@ const source = (path) => new URL(`../src/${path}`, import.meta.url);
 export async function assembleKernel(wat) {
   const wabt = await wabtInit();
   const name = wat.split("/").pop();
-  const module = wabt.parseWat(name, readFileSync(source(wat), "utf8"), { simd: true });
+  const module = wabt.parseWat(name, readFileSync(source(wat), "utf8"), { simd: true, bulk_memory: true });
   module.validate();
   const { buffer } = module.toBinary({});
   module.destroy();

@@ -9,6 +9,7 @@ import type { WindowUncertainty } from "../core/inference/windowUncertainty.js";
 import { windowColumnNames, type WindowColumns } from "../core/rolling/index.js";
 import { csvText } from "./csv.js";
 import { MAX_STAMP_ISO_BYTES, writeStampIso } from "../input/index.js";
+import { writeCsvRows } from "./csvRowsKernel.js";
 import { maxNumberBytes, writeNumber } from "./numberBytes.js";
 import type { RollMeta } from "./rollReport.js";
 
@@ -210,12 +211,21 @@ export function writeStampRow(
   k: number,
 ): number {
   out.set(prefix, at);
-  let i = writeStampIso(first, form, out, at + prefix.length);
+  const i = writeStampHead(out, at + prefix.length, form, first, last, observations);
+  return writeFields(out, i, series, k);
+}
+
+/** Most bytes writeStampHead writes. */
+const stampHeadBytes = 2 * MAX_STAMP_ISO_BYTES + 2 + maxNumberBytes;
+
+/** A row's dates and observations (after its prefix): first,last,observations; returns the end. */
+function writeStampHead(out: Uint8Array, at: number, form: number, first: number, last: number, observations: number): number {
+  let i = writeStampIso(first, form, out, at);
   out[i++] = comma;
   i = writeStampIso(last, form, out, i);
   out[i++] = comma;
   if (!Number.isNaN(observations)) i = writeNumber(observations, out, i);
-  return writeFields(out, i, series, k);
+  return i;
 }
 
 /** A field for each series' window k, each after a comma: String(x), or nothing for NaN; returns the end. */
@@ -258,9 +268,28 @@ export function packBlock(columns: WindowColumns, stampKeys: Float64Array, into:
   windowColumnNames.forEach((name, c) => numbers.set(columns.columns[name].subarray(0, count), (c + 1) * count));
 }
 
-/** The CSV rows of a packed block into `out` (room for stampRowBytes each); the bytes written. */
-export function formatPackedBlock(block: PackedBlock, prefix: Uint8Array, form: number, out: Uint8Array): number {
+/**
+ * The CSV rows of a packed block into `out` (room for stampRowBytes each); the bytes written. The
+ * numbers are written by the WebAssembly kernel (csvRowsKernel.ts, the same bytes) unless `useKernel`
+ * is false or WebAssembly is missing.
+ */
+export function formatPackedBlock(block: PackedBlock, prefix: Uint8Array, form: number, out: Uint8Array, useKernel = true): number {
   const { count, keys, numbers } = block;
+  const columns = windowColumnNames.length;
+  const inKernel = useKernel
+    ? writeCsvRows(
+        {
+          count,
+          columns,
+          numbers: numbers.subarray(count, (columns + 1) * count),
+          prefix,
+          headBytes: stampHeadBytes,
+          writeHead: (k, bytes, at) => writeStampHead(bytes, at, form, keys[2 * k]!, keys[2 * k + 1]!, numbers[k]!),
+        },
+        out,
+      )
+    : null;
+  if (inKernel !== null) return inKernel.length;
   const series = windowColumnNames.map((_, c) => numbers.subarray((c + 1) * count, (c + 2) * count));
   let at = 0;
   for (let k = 0; k < count; k++) {

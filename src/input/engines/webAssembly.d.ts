@@ -1,5 +1,6 @@
 /**
- * The members of the WebAssembly JavaScript API that the row kernel (rowKernel.ts) uses. They are
+ * The members of the WebAssembly JavaScript API that the kernels (rowKernel.ts, seriesKernel.ts,
+ * csvRowsKernel.ts) use. They are
  * declared by TypeScript's DOM library only, which this Node project does not load.
  */
 declare global {
@@ -10,6 +11,8 @@ declare global {
     class Memory {
       constructor(descriptor: { initial: number; maximum?: number });
       readonly buffer: ArrayBuffer;
+      /** Adds `pages` pages of 64 KiB (the old buffer is then detached); returns the old size in pages. */
+      grow(pages: number): number;
     }
     class Instance {
       constructor(module: Module, imports?: Record<string, Record<string, unknown>>);

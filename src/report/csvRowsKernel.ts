@@ -1,0 +1,106 @@
+/**
+ * roll's CSV rows through csvRowsKernel.wat: the numbers of a block of windows written as bytes in
+ * WebAssembly, each the very text writeNumber gives (numberBytes.ts: String(x)), by the same
+ * arithmetic in the same order. A million windows have 30 million numbers; formatting them was most of
+ * such a run in JavaScript (about 100 ns a number). The row's prefix and head (its dates and
+ * observations) are written here into the kernel's memory; a number the kernel's fast path cannot
+ * settle (a tie, a power of two, ten significant digits or fewer, a magnitude outside 1e-6 .. 1e17,
+ * an infinity) is handed back and written here from String(x). Null where WebAssembly is missing:
+ * the caller then writes the rows in JavaScript (rollCsv.ts formatPackedBlock, the same bytes).
+ */
+import { wasmBinary } from "../core/numerics/seriesKernel.js";
+import { csvRowsKernelWasm } from "./csvRowsKernelWasm.js";
+import { decades, maxNumberBytes, powersOfTen, writeNumber } from "./numberBytes.js";
+
+/** Where the kernel reads the decades, the powers of ten and the digit pairs (csvRowsKernel.wat). */
+const DECADES_AT = 64;
+const POWERS_AT = 272;
+const PAIRS_AT = 512;
+/** The rows' prefix starts here; every other area follows it, laid out per block. */
+const PREFIX_AT = 1024;
+const PAGE = 65_536;
+
+/** One block's rows: what the kernel reads and where it writes. */
+export interface CsvRowsBlock {
+  /** Windows in the block. */
+  readonly count: number;
+  /** Series per row (each a field after a comma). */
+  readonly columns: number;
+  /** The series' numbers, column by column (`count` each). */
+  readonly numbers: Float64Array;
+  /** The bytes before every row (its source and columns). */
+  readonly prefix: Uint8Array;
+  /** Most bytes a row's head takes. */
+  readonly headBytes: number;
+  /** Writes row k's head at `at` of `out` and returns its end. */
+  readonly writeHead: (k: number, out: Uint8Array, at: number) => number;
+}
+
+interface Kernel {
+  readonly memory: WebAssembly.Memory;
+  readonly rows: (...args: number[]) => number;
+}
+
+let kernel: Kernel | null | undefined;
+
+function csvRowsKernel(): Kernel | null {
+  if (kernel !== undefined) return kernel;
+  try {
+    const { exports } = new WebAssembly.Instance(new WebAssembly.Module(wasmBinary(csvRowsKernelWasm)));
+    const memory = exports.memory as WebAssembly.Memory;
+    new Float64Array(memory.buffer, DECADES_AT, decades.length).set(decades);
+    new Float64Array(memory.buffer, POWERS_AT, powersOfTen.length).set(powersOfTen);
+    const pairs = new Uint8Array(memory.buffer, PAIRS_AT, 200);
+    for (let v = 0; v < 100; v++) [pairs[2 * v], pairs[2 * v + 1]] = [48 + Math.floor(v / 10), 48 + (v % 10)];
+    kernel = { memory, rows: exports.rows as (...args: number[]) => number };
+  } catch {
+    kernel = null;
+  }
+  return kernel;
+}
+
+const align8 = (n: number): number => (n + 7) & ~7;
+
+/** What writeCsvRows wrote: the bytes, and how many numbers the kernel handed back to String(x). */
+export interface CsvRowsWritten {
+  readonly length: number;
+  readonly handedBack: number;
+}
+
+/**
+ * Writes the block's rows (each: prefix, head, a comma and a field per series, a line feed) into `out`,
+ * or returns null without a kernel (nothing written).
+ */
+export function writeCsvRows(block: CsvRowsBlock, out: Uint8Array): CsvRowsWritten | null {
+  const found = csvRowsKernel();
+  if (found === null) return null;
+  const { count, columns, numbers, prefix, headBytes, writeHead } = block;
+  const stride = align8(4 + headBytes);
+  const headsAt = align8(PREFIX_AT + prefix.length);
+  const numbersAt = headsAt + count * stride;
+  const outAt = numbersAt + count * columns * 8;
+  const rowBytes = prefix.length + headBytes + columns * (maxNumberBytes + 1) + 1;
+  const need = outAt + count * rowBytes;
+  const { memory } = found;
+  if (need > memory.buffer.byteLength) memory.grow(Math.ceil((need - memory.buffer.byteLength) / PAGE));
+  const bytes = new Uint8Array(memory.buffer);
+  const words = new Int32Array(memory.buffer);
+  bytes.set(prefix, PREFIX_AT);
+  for (let k = 0; k < count; k++) {
+    const at = headsAt + k * stride;
+    words[at >> 2] = writeHead(k, bytes, at + 4) - (at + 4);
+  }
+  const series = new Float64Array(memory.buffer, numbersAt, count * columns);
+  series.set(numbers.subarray(0, count * columns));
+  let [k, c, at, handedBack] = [0, -1, outAt, 0];
+  while (found.rows(count, columns, k, c, at, PREFIX_AT, prefix.length, headsAt, stride, numbersAt) === 1) {
+    handedBack += 1;
+    // A number the kernel hands back: String(x) at its place, then on from the next column.
+    [k, c] = [words[0]!, words[1]!];
+    at = writeNumber(series[c * count + k]!, bytes, words[2]!);
+    c += 1;
+  }
+  const end = words[3]!;
+  out.set(bytes.subarray(outAt, end));
+  return { length: end - outAt, handedBack };
+}
