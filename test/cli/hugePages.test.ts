@@ -7,7 +7,15 @@ import * as fs from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { commandLineBytes, type HugePageFacts, hugePagesFrom, wantsHugePages, withHugePages } from "../../src/cli/runtime/hugePages.js";
+import {
+  commandLineBytes,
+  type HugePageFacts,
+  hugePagesFrom,
+  wantsHugePages,
+  withHugePages,
+  writtenPathFlags,
+} from "../../src/cli/runtime/hugePages.js";
+import { optionTable } from "../../src/options/table.js";
 
 /** A Linux machine with huge pages on request, glibc 2.36 and a large input; `read` counts what was asked. */
 function facts(change: Partial<{ platform: string; bytes: number; mode: string | null; glibc: string | null; execArgv: string[] }> = {}) {
@@ -123,6 +131,21 @@ describe("commandLineBytes", () => {
     expect(commandLineBytes(["solve", "--low", `${a}:Return`, "--high", `${a}:Other`], none)).toBe(2000);
     expect(commandLineBytes([b, `${b}:col`], none)).toBe(600);
     expect(commandLineBytes([dir, join(dir, "missing.csv"), `-${a}`, "\u0000"], none)).toBe(0);
+  });
+
+  it("does not count an output about to be replaced (the value after a flag of a file written)", () => {
+    const none = () => null;
+    expect(commandLineBytes(["roll", b, "--output", a, "--low", "x"], none)).toBe(300);
+    expect(commandLineBytes(["solve", b, "--chart", a, "--report", a], none)).toBe(300);
+    // Another option's file counts (the launcher does not parse options); `--output=FILE` is one flag, not counted.
+    expect(commandLineBytes(["solve", b, "--config", a, `--output=${a}`], none)).toBe(1300);
+  });
+
+  it("names as written exactly the option table's paths", () => {
+    const paths = Object.values(optionTable).flatMap((o) =>
+      "path" in o && o.path === true ? [`--${o.name.replace(/[A-Z]/g, (c) => `-${c.toLowerCase()}`)}`] : [],
+    );
+    expect([...writtenPathFlags].sort()).toEqual(paths.sort());
   });
 
   it("counts standard input (when it is a file) for `-` or when no argument names a file", () => {

@@ -75,16 +75,25 @@ export function withHugePages(env: NodeJS.ProcessEnv): NodeJS.ProcessEnv {
 }
 
 /**
+ * The flags whose value is a file written, not read (the option table's paths: the test checks the
+ * two agree). The launcher does not load the table: it needs the bundle.
+ */
+export const writtenPathFlags: readonly string[] = ["--output", "--chart", "--report"];
+
+/**
  * The bytes of the files named in `argv` (an argument that is an existing file, or PATH:COLUMN whose
  * PATH is one), and of standard input when it is a file and `-` is an argument or no argument names a
- * file. The launcher does not parse options (that needs the bundle): an existing file given as an
- * option's value (an output about to be replaced, a configuration) counts too, so such a run may start
- * a child it did not need (about 0.12 s). Standard input from a pipe never counts (its size is unknown).
+ * file. The value after a flag that names a file written (`writtenPathFlags`: an output about to be
+ * replaced) does not count; the launcher does not parse the other options (that needs the bundle), so
+ * an existing file given as another option's value (a configuration) counts. Standard input from a
+ * pipe never counts (its size is unknown).
  */
 export function commandLineBytes(argv: readonly string[], standardInput: () => number | null = standardInputSize): number {
   let bytes = 0;
   let named = false;
-  for (const arg of argv) {
+  for (let i = 0; i < argv.length; i++) {
+    const arg = argv[i]!;
+    if (writtenPathFlags.includes(arg)) i += 1;
     if (arg.startsWith("-")) continue;
     const size = fileSize(arg) ?? (arg.lastIndexOf(":") > 0 ? fileSize(arg.slice(0, arg.lastIndexOf(":"))) : null);
     if (size !== null) named = true;
