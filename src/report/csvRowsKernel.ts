@@ -1,23 +1,25 @@
 /**
  * roll's CSV rows through csvRowsKernel.wat: the numbers of a block of windows written as bytes in
- * WebAssembly, each the very text writeNumber gives (numberBytes.ts: String(x)), by the same
- * arithmetic in the same order. A million windows have 30 million numbers; formatting them was most of
- * such a run in JavaScript (about 100 ns a number). The row's prefix and head (its dates and
- * observations) are written here into the kernel's memory; a number the kernel's fast path cannot
- * settle (a tie, a power of two, ten significant digits or fewer, a magnitude outside 1e-6 .. 1e17,
- * an infinity) is handed back and written here from String(x). Null where WebAssembly is missing:
- * the caller then writes the rows in JavaScript (rollCsv.ts formatPackedBlock, the same bytes).
+ * WebAssembly, each the very text String(x) gives (as writeNumber writes it in JavaScript,
+ * numberBytes.ts), from 1e-6 to 2^53 by Ryu (Adams 2018, "Ryu: fast float-to-string conversion",
+ * PLDI; docs/methods.md §32). A million windows have 30 million numbers; formatting them was most of
+ * such a run in JavaScript (about 95 ns a number; the kernel takes about 50). The row's prefix and
+ * head (its dates and observations) are written here into the kernel's memory; a number the kernel
+ * leaves (an exponent in its text, 2^53 and beyond, an infinity) is handed back and written here by
+ * writeNumber. Null where WebAssembly is missing: the caller then writes the rows in JavaScript
+ * (rollCsv.ts formatPackedBlock, the same bytes).
  */
 import { wasmBinary } from "../core/numerics/seriesKernel.js";
 import { csvRowsKernelWasm } from "./csvRowsKernelWasm.js";
-import { decades, maxNumberBytes, powersOfTen, writeNumber } from "./numberBytes.js";
+import { maxNumberBytes, writeNumber } from "./numberBytes.js";
 
-/** Where the kernel reads the decades, the powers of ten and the digit pairs (csvRowsKernel.wat). */
-const DECADES_AT = 64;
-const POWERS_AT = 272;
+/** Where the kernel reads the digit pairs and Ryu's multipliers (csvRowsKernel.wat). */
 const PAIRS_AT = 512;
+const MULTIPLIERS_AT = 1024;
+/** Multipliers 5^i for i = 0 .. 79: enough for every x from 1e-6 to 2^53 (i <= 74). */
+const MULTIPLIERS = 80;
 /** The rows' prefix starts here; every other area follows it, laid out per block. */
-const PREFIX_AT = 1024;
+const PREFIX_AT = MULTIPLIERS_AT + 16 * MULTIPLIERS;
 const PAGE = 65_536;
 
 /** One block's rows: what the kernel reads and where it writes. */
@@ -48,8 +50,7 @@ function csvRowsKernel(): Kernel | null {
   try {
     const { exports } = new WebAssembly.Instance(new WebAssembly.Module(wasmBinary(csvRowsKernelWasm)));
     const memory = exports.memory as WebAssembly.Memory;
-    new Float64Array(memory.buffer, DECADES_AT, decades.length).set(decades);
-    new Float64Array(memory.buffer, POWERS_AT, powersOfTen.length).set(powersOfTen);
+    new BigUint64Array(memory.buffer, MULTIPLIERS_AT, 2 * MULTIPLIERS).set(ryuMultipliers(MULTIPLIERS));
     const pairs = new Uint8Array(memory.buffer, PAIRS_AT, 200);
     for (let v = 0; v < 100; v++) [pairs[2 * v], pairs[2 * v + 1]] = [48 + Math.floor(v / 10), 48 + (v % 10)];
     kernel = { memory, rows: exports.rows as (...args: number[]) => number };
@@ -60,6 +61,22 @@ function csvRowsKernel(): Kernel | null {
 }
 
 const align8 = (n: number): number => (n + 7) & ~7;
+
+/**
+ * Ryu's table DOUBLE_POW5_SPLIT (Adams 2018): 5^i scaled by a power of two to 125 bits (its top 125
+ * bits, or 5^i shifted left), as 64-bit halves (low, high) for i = 0 .. count - 1.
+ */
+export function ryuMultipliers(count: number): BigUint64Array {
+  const table = new BigUint64Array(2 * count);
+  for (let i = 0; i < count; i++) {
+    const power = 5n ** BigInt(i);
+    const bits = power.toString(2).length;
+    const scaled = bits >= 125 ? power >> BigInt(bits - 125) : power << BigInt(125 - bits);
+    table[2 * i] = scaled & 0xffff_ffff_ffff_ffffn;
+    table[2 * i + 1] = scaled >> 64n;
+  }
+  return table;
+}
 
 /** What writeCsvRows wrote: the bytes, and how many numbers the kernel handed back to String(x). */
 export interface CsvRowsWritten {

@@ -13,8 +13,7 @@
  * NaN) is written from `String(x)`.
  */
 
-/** 10^p for p = 0 .. 22 (all exact). */
-export const powersOfTen = [
+const powersOfTen = [
   1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22,
 ];
 
@@ -39,7 +38,7 @@ function compareDifference(a: number, b: number, h: number): number {
 }
 
 /** Nearest doubles to 10^k for k from -7 to 18 (index k + 7): where a number's decade starts. */
-export const decades = [
+const decades = [
   1e-7, 1e-6, 1e-5, 1e-4, 1e-3, 1e-2, 1e-1, 1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16, 1e17,
   1e18,
 ];

@@ -2,14 +2,15 @@
  * roll's CSV rows written by the WebAssembly kernel (src/report/csvRowsKernel.ts) against the
  * reference outside the project, ECMAScript's String(x) (V8's Number::toString), and against the
  * JavaScript rows (formatPackedBlock with useKernel false), byte for byte: numbers of every magnitude,
- * the fast path's edges (1e-6, 1e16, 1e17, powers of two, few digits, ties), non-finite values and
- * zeros, blocks of several sizes and a prefix long enough to grow the kernel's memory.
+ * the kernel's edges (1e-6, 2^53, powers of two, short decimals, integers), non-finite values and
+ * zeros, a million random doubles, blocks of several sizes and a prefix long enough to grow the
+ * kernel's memory. Ryu's multipliers are checked against the table's definition in BigInt.
  */
 import { describe, expect, it } from "vitest";
 import { windowColumnNames } from "../../src/core/rolling/index.js";
 import { createRandom } from "../../src/core/numerics/rng.js";
 import { PLAIN_DATE_FORM, stampIso } from "../../src/input/values/dateStamps.js";
-import { writeCsvRows } from "../../src/report/csvRowsKernel.js";
+import { ryuMultipliers, writeCsvRows } from "../../src/report/csvRowsKernel.js";
 import { formatPackedBlock, type PackedBlock, stampRowBytes } from "../../src/report/rollCsv.js";
 
 const columns = windowColumnNames.length;
@@ -80,6 +81,19 @@ function rows(packed: PackedBlock, prefix: Uint8Array, useKernel: boolean): stri
 }
 
 describe("roll's CSV rows in the kernel", () => {
+  it("use Ryu's multipliers: 5^i to 125 bits, its top bits or shifted left (as Ryu's table generator makes them)", () => {
+    const table = ryuMultipliers(80);
+    for (const i of [0, 1, 2, 27, 53, 54, 55, 74, 79]) {
+      const value = table[2 * i + 1]! * 2n ** 64n + table[2 * i]!;
+      expect(value.toString(2)).toHaveLength(125);
+      const power = 5n ** BigInt(i);
+      const shift = power.toString(2).length - 125;
+      // Scaled back, the multiplier is 5^i itself (i <= 53: 5^i fits in 125 bits) or its floor.
+      if (shift <= 0) expect(value).toBe(power << BigInt(-shift));
+      else expect(value <= power >> BigInt(shift) && power - (value << BigInt(shift)) < 1n << BigInt(shift)).toBe(true);
+    }
+  });
+
   it("are String(x) for numbers of every magnitude and the fast path's edges, as the JavaScript rows are", () => {
     const prefix = "returns.csv,low,high,";
     const bytes = Buffer.from(prefix);
@@ -141,23 +155,25 @@ describe("roll's CSV rows in the kernel", () => {
     expect(Buffer.from(out.subarray(0, end)).toString("latin1").split("\n")[3]?.startsWith("a,b,c,h3,")).toBe(true);
   });
 
-  it("settles in the kernel the numbers of many digits from 1e-6 to 1e12, and hands back the ones String(x) must write", () => {
+  it("settles in the kernel every number from 1e-6 to 2^53 and hands back only the others", () => {
     const random = createRandom(31);
     const count = 1000;
     const numbers = new Float64Array(count * columns);
-    // Columns 0..17: numbers of 16 or 17 digits in each decade from 1e-6 to 1e12 (larger ones often
-    // sit at the edge of their interval, which the fast path leaves); 18..29: ones the fast path leaves.
+    // Columns 0..20: numbers of any length in each decade from 1e-6 to 1e15, powers of two and short
+    // decimals among them; 21..29: ones outside, which String(x) writes (exponents, and beyond 2^53).
     for (let k = 0; k < count; k++) {
-      for (let c = 0; c < 18; c++) numbers[c * count + k] = (1 + random.uniform() * 9) * 10 ** (c - 6);
-      const leftToString = [2 ** -(1 + (k % 40)), 0.25 + (k % 40), 1e-7 * (1 + random.uniform()), 1e17 * (1 + random.uniform())];
-      for (let c = 18; c < columns; c++) numbers[c * count + k] = leftToString[c % 4]!;
+      for (let c = 0; c < 21; c++) {
+        const digits = 1 + (k % 17);
+        const x = (1 + random.uniform() * 9) * 10 ** (c - 6);
+        numbers[c * count + k] = c % 5 === 4 ? 2 ** Math.floor(Math.log2(x)) : Number(x.toPrecision(digits));
+      }
+      const outside = [1e-7 * (1 + random.uniform()), 2 ** 53 * (1 + random.uniform()), Number.POSITIVE_INFINITY, -1e300];
+      for (let c = 21; c < columns; c++) numbers[c * count + k] = outside[c % 4]!;
     }
     const prefix = Buffer.from("p,");
     const out = new Uint8Array(count * stampRowBytes(prefix.length, columns));
     const written = writeCsvRows({ count, columns, numbers, prefix, headBytes: 0, writeHead: (_, __, at) => at }, out);
-    // The settled ones: every 17-digit number, but for the rare tie or edge the kernel hands back.
-    expect(written?.handedBack ?? 0).toBeGreaterThanOrEqual(12 * count);
-    expect(written?.handedBack ?? 0).toBeLessThan(12 * count + 20);
+    expect(written?.handedBack).toBe(9 * count);
     const lines = Buffer.from(out.subarray(0, written?.length ?? 0))
       .toString("latin1")
       .split("\n");
