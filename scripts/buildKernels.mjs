@@ -15,6 +15,12 @@ export const kernels = [
   { wat: "core/numerics/seriesKernel.wat", module: "core/numerics/seriesKernelWasm.ts", constant: "seriesKernelWasm" },
   { wat: "core/numerics/influenceKernel.wat", module: "core/numerics/influenceKernelWasm.ts", constant: "influenceKernelWasm" },
   { wat: "core/numerics/columnKernel.wat", module: "core/numerics/columnKernelWasm.ts", constant: "columnKernelWasm" },
+  { wat: "core/numerics/matrixKernel.wat", module: "core/numerics/matrixKernelWasm.ts", constant: "matrixKernelWasm" },
+  {
+    wat: "core/numerics/eliminationKernel.wat",
+    module: "core/numerics/eliminationKernelWasm.ts",
+    constant: "eliminationKernelWasm",
+  },
   { wat: "report/csvRowsKernel.wat", module: "report/csvRowsKernelWasm.ts", constant: "csvRowsKernelWasm" },
 ];
 

@@ -15,7 +15,8 @@
  * carries them to the normalised loadings by the delta method).
  */
 import { type Matrix, solveOrNull } from "../numerics/linearAlgebra.js";
-import { choleskyLogDetInverse, symmetricEigen } from "../numerics/symmetricEigen.js";
+import { MATRIX_KERNEL_SIZE, type MatrixKernel, matrixKernel, writeMatrix } from "../numerics/matrixKernel.js";
+import { choleskyLogDetInverse, eigenInKernel, symmetricEigen } from "../numerics/symmetricEigen.js";
 
 export const heywoodFloor = 1e-10;
 const tolerance = 1e-15;
@@ -36,11 +37,20 @@ export interface OneFactorFit {
   readonly covariance: Matrix | null;
 }
 
-/** The ML fit of `s` (positive definite, k >= 3) from `n` observations; null when `s` is not positive definite. */
-export function fitOneFactor(s: readonly (readonly number[])[], n: number): OneFactorFit | null {
+/**
+ * The ML fit of `s` (positive definite, k >= 3) from `n` observations; null when `s` is not positive
+ * definite. With `useKernel` (the default) and k up to MATRIX_KERNEL_SIZE, the loadings' scaled matrix,
+ * power iteration and Jacobi sweeps and the candidates' Cholesky factors run in the WebAssembly kernel
+ * (numerics/matrixKernel.ts: the same bits).
+ */
+export function fitOneFactor(s: readonly (readonly number[])[], n: number, useKernel = true): OneFactorFit | null {
   const k = s.length;
-  const sample = choleskyLogDetInverse(s);
+  const sample = choleskyLogDetInverse(s, useKernel);
   if (sample === null) return null;
+  const kernel = useKernel && k <= MATRIX_KERNEL_SIZE ? matrixKernel() : null;
+  if (kernel !== null) writeMatrix(kernel.s, s);
+  const loadingsGiven = (psi: readonly number[], start: readonly number[] | null) =>
+    kernel === null ? loadingsInJs(s, psi, start) : loadingsInKernel(kernel, psi, start);
   // Starting values of Joreskog (1967): psi_i = (1 - 1/(2k)) / (S^-1)_ii.
   let psi = s.map((_, i) => (1 - 1 / (2 * k)) / sample.inverse[i]![i]!);
   let lambda = new Array<number>(k).fill(0);
@@ -49,7 +59,7 @@ export function fitOneFactor(s: readonly (readonly number[])[], n: number): OneF
   let vector: readonly number[] | null = null;
   for (; iterations < maxIterations; ) {
     iterations++;
-    ({ lambda, vector } = loadingsGiven(s, psi, vector));
+    ({ lambda, vector } = loadingsGiven(psi, vector));
     const next = s.map((row, i) => Math.max(row[i]! - lambda[i]! * lambda[i]!, heywoodFloor * row[i]!));
     const moved = Math.max(...next.map((p, i) => Math.abs(p - psi[i]!) / s[i]![i]!));
     psi = next;
@@ -60,8 +70,8 @@ export function fitOneFactor(s: readonly (readonly number[])[], n: number): OneF
     // Creeping towards a noise variance of 0: the boundary solutions below settle it.
     if (iterations >= 2_000 && psi.some((p, i) => p < nearBoundary * s[i]![i]!)) break;
   }
-  lambda = loadingsGiven(s, psi, null).lambda;
-  let best: Candidate | null = evaluate(s, sample.logDet, lambda, psi, converged);
+  lambda = loadingsGiven(psi, null).lambda;
+  let best: Candidate | null = evaluate(s, sample.logDet, lambda, psi, converged, useKernel);
   // On the boundary psi_i = 0 the factor is portfolio i itself (Lawley & Maxwell 1971, section 5.1):
   // lambda = S e_i / sqrt(S_ii), psi_j = S_jj - S_ji^2 / S_ii. Kept when it fits at least as well.
   for (let i = 0; i < k; i++) {
@@ -69,7 +79,7 @@ export function fitOneFactor(s: readonly (readonly number[])[], n: number): OneF
     const edgeLambda = s.map((row) => row[i]! / root);
     const edgePsi = s.map((row, j) => (j === i ? heywoodFloor * row[j]! : row[j]! - edgeLambda[j]! * edgeLambda[j]!));
     if (edgePsi.some((p, j) => j !== i && !(p > heywoodFloor * s[j]![j]!))) continue;
-    const edge = evaluate(s, sample.logDet, edgeLambda, edgePsi, true);
+    const edge = evaluate(s, sample.logDet, edgeLambda, edgePsi, true, useKernel);
     if (edge !== null && (best === null || edge.discrepancy <= best.discrepancy + 1e-14)) best = edge;
   }
   if (best === null) return null;
@@ -77,7 +87,7 @@ export function fitOneFactor(s: readonly (readonly number[])[], n: number): OneF
   converged = best.converged;
   const heywood = psi.flatMap((p, i) => (p <= heywoodFloor * s[i]![i]! * (1 + 1e-9) ? [i] : []));
   const discrepancy = best.discrepancy;
-  const covariance = inverseInformation(best.inverse, lambda, n);
+  const covariance = inverseInformation(best.inverse, lambda, n, useKernel);
   return { lambda, psi, heywood, converged, iterations, discrepancy, covariance };
 }
 
@@ -95,10 +105,11 @@ function evaluate(
   lambda: number[],
   psi: number[],
   converged: boolean,
+  useKernel: boolean,
 ): Candidate | null {
   const k = s.length;
   const sigma = s.map((row, i) => row.map((_, j) => lambda[i]! * lambda[j]! + (i === j ? psi[i]! : 0)));
-  const model = choleskyLogDetInverse(sigma);
+  const model = choleskyLogDetInverse(sigma, useKernel);
   if (model === null) return null;
   let trace = 0;
   for (let i = 0; i < k; i++) for (let j = 0; j < k; j++) trace += s[i]![j]! * model.inverse[j]![i]!;
@@ -108,9 +119,10 @@ function evaluate(
 /**
  * lambda maximising the likelihood for fixed psi, and the unit eigenvector it came from. From a
  * previous step's eigenvector (`start`) by power iteration, which the large gap between the leading
- * eigenvalue and the rest makes quick; from scratch (or when it does not settle) by Jacobi.
+ * eigenvalue and the rest makes quick; from scratch (or when it does not settle) by Jacobi. In
+ * JavaScript here; loadingsInKernel below does the same in the kernel.
  */
-function loadingsGiven(
+function loadingsInJs(
   s: readonly (readonly number[])[],
   psi: readonly number[],
   start: readonly number[] | null,
@@ -118,6 +130,32 @@ function loadingsGiven(
   const root = psi.map(Math.sqrt);
   const scaled = s.map((row, i) => row.map((x, j) => x / (root[i]! * root[j]!)));
   const leading = (start === null ? null : powerIteration(scaled, start)) ?? jacobiLeading(scaled);
+  return loadingsFrom(leading, root);
+}
+
+/** loadingsInJs with the sample covariance already in the kernel's S: the same steps there. */
+function loadingsInKernel(
+  kernel: MatrixKernel,
+  psi: readonly number[],
+  start: readonly number[] | null,
+): { lambda: number[]; vector: number[] } {
+  const k = psi.length;
+  const root = psi.map(Math.sqrt);
+  kernel.roots.set(root);
+  kernel.scale(k);
+  let leading: Leading | null = null;
+  if (start !== null) {
+    kernel.x.set(start);
+    if (kernel.power(k)) leading = { value: kernel.state[0]!, vector: Array.from(kernel.x.subarray(0, k)) };
+  }
+  if (leading === null) {
+    const { values, vectors } = eigenInKernel(kernel, k);
+    leading = { value: values[0]!, vector: vectors[0]! };
+  }
+  return loadingsFrom(leading, root);
+}
+
+function loadingsFrom(leading: Leading, root: readonly number[]): { lambda: number[]; vector: number[] } {
   const size = Math.sqrt(Math.max(leading.value - 1, 0));
   return { lambda: leading.vector.map((v, i) => root[i]! * v * size), vector: leading.vector };
 }
@@ -128,7 +166,7 @@ interface Leading {
 }
 
 function jacobiLeading(a: readonly (readonly number[])[]): Leading {
-  const { values, vectors } = symmetricEigen(a);
+  const { values, vectors } = symmetricEigen(a, false);
   return { value: values[0]!, vector: vectors[0]! };
 }
 
@@ -181,7 +219,7 @@ function rayleigh(a: readonly (readonly number[])[], v: readonly number[]): numb
  * q = lambda' P lambda, the traces are in closed form (expanding each product into rank-one terms):
  * tr(P A_i P A_j) = 2 (q P_ij + g_i g_j), tr(P A_i P E_j) = 2 g_j P_ij, tr(P E_i P E_j) = P_ij^2.
  */
-function inverseInformation(p: Matrix, lambda: readonly number[], n: number): Matrix | null {
+function inverseInformation(p: Matrix, lambda: readonly number[], n: number, useKernel: boolean): Matrix | null {
   const k = lambda.length;
   const g = p.map((row) => row.reduce((sum, x, j) => sum + x * lambda[j]!, 0));
   const q = g.reduce((sum, x, i) => sum + x * lambda[i]!, 0);
@@ -196,5 +234,5 @@ function inverseInformation(p: Matrix, lambda: readonly number[], n: number): Ma
       information[k + i]![k + j] = half * pij * pij;
     }
   const identity = Array.from({ length: size }, (_, i) => Array.from({ length: size }, (_, j) => (i === j ? 1 : 0)));
-  return solveOrNull(information, identity, 1e-12);
+  return solveOrNull(information, identity, 1e-12, useKernel);
 }

@@ -9,8 +9,12 @@
  * Computations, 4th ed., section 3.4). A zero pivot throws: a singular system is a programming or
  * data error the caller must have excluded (constant regressors, collinear columns).
  */
+import { eliminationKernel, MATRIX_KERNEL_SIZE, writeMatrix } from "./matrixKernel.js";
 
 export type Matrix = number[][];
+
+/** Systems from this many rows are solved in the WebAssembly kernel (solveOrNull). */
+const KERNEL_FROM = 6;
 
 /** The n x n identity. */
 export function identity(n: number): Matrix {
@@ -79,9 +83,23 @@ export function solve(a: readonly (readonly number[])[], b: readonly (readonly n
  * `solve`, or null when a pivot (after partial pivoting) is at most `tolerance` times the largest
  * absolute entry of a: a singular, or with a positive tolerance a numerically singular, system.
  */
-export function solveOrNull(a: readonly (readonly number[])[], b: readonly (readonly number[])[], tolerance: number): Matrix | null {
+export function solveOrNull(
+  a: readonly (readonly number[])[],
+  b: readonly (readonly number[])[],
+  tolerance: number,
+  useKernel = true,
+): Matrix | null {
   const n = a.length;
   const m = n === 0 ? 0 : b[0]!.length;
+  // From 6 rows, the elimination in the WebAssembly kernel (matrixKernel.ts: the same bits); smaller
+  // systems, solved many times a run, are optimised by V8 before the copies would pay.
+  const kernel = useKernel && n >= KERNEL_FROM && n <= MATRIX_KERNEL_SIZE && m <= MATRIX_KERNEL_SIZE ? eliminationKernel() : null;
+  if (kernel !== null) {
+    writeMatrix(kernel.a, a);
+    for (let i = 0; i < n; i++) kernel.b.set(b[i]!, i * m);
+    if (!kernel.solve(n, m, tolerance)) return null;
+    return Array.from({ length: n }, (_, i) => Array.from(kernel.x.subarray(i * m, (i + 1) * m)));
+  }
   const lu = a.map((row) => [...row]);
   const rhs = b.map((row) => [...row]);
   let largest = 0;

@@ -5,6 +5,7 @@
  * units in the last place for the k x k matrices (k up to a few tens) met here.
  */
 import type { Matrix } from "./linearAlgebra.js";
+import { eliminationKernel, MATRIX_KERNEL_SIZE, type MatrixKernel, matrixKernel, writeMatrix } from "./matrixKernel.js";
 
 export interface SymmetricEigen {
   /** Eigenvalues in decreasing order. */
@@ -13,8 +14,17 @@ export interface SymmetricEigen {
   readonly vectors: number[][];
 }
 
-export function symmetricEigen(input: readonly (readonly number[])[]): SymmetricEigen {
+/**
+ * With `useKernel` (the default) and n up to MATRIX_KERNEL_SIZE, the sweeps run in the WebAssembly
+ * kernel (matrixKernel.ts: the same bits).
+ */
+export function symmetricEigen(input: readonly (readonly number[])[], useKernel = true): SymmetricEigen {
   const n = input.length;
+  const kernel = useKernel && n <= MATRIX_KERNEL_SIZE ? matrixKernel() : null;
+  if (kernel !== null) {
+    writeMatrix(kernel.a, input);
+    return eigenInKernel(kernel, n);
+  }
   const a: Matrix = input.map((row) => [...row]);
   const v: Matrix = Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i === j ? 1 : 0)));
   let total = 0;
@@ -56,9 +66,33 @@ export function symmetricEigen(input: readonly (readonly number[])[]): Symmetric
   return { values: order.map((i) => a[i]![i]!), vectors: order.map((i) => v.map((row) => row[i]!)) };
 }
 
-/** log det and inverse of a symmetric positive definite matrix by Cholesky; null when not (numerically) positive definite. */
-export function choleskyLogDetInverse(a: readonly (readonly number[])[]): { logDet: number; inverse: Matrix } | null {
+/** The sweeps on the n x n matrix already in the kernel's A, and the result as symmetricEigen gives it. */
+export function eigenInKernel(kernel: MatrixKernel, n: number): SymmetricEigen {
+  kernel.jacobi(n);
+  const diagonal = Array.from({ length: n }, (_, i) => kernel.a[i * n + i]!);
+  const order = Array.from({ length: n }, (_, i) => i).sort((i, j) => diagonal[j]! - diagonal[i]!);
+  return {
+    values: order.map((i) => diagonal[i]!),
+    vectors: order.map((i) => Array.from({ length: n }, (_, k) => kernel.v[k * n + i]!)),
+  };
+}
+
+/**
+ * log det and inverse of a symmetric positive definite matrix by Cholesky; null when not (numerically)
+ * positive definite. With `useKernel` (the default) and n up to MATRIX_KERNEL_SIZE, the factor and the
+ * inverse come from the WebAssembly kernel (matrixKernel.ts: the same bits) and log det from its
+ * diagonal here, in the same order.
+ */
+export function choleskyLogDetInverse(a: readonly (readonly number[])[], useKernel = true): { logDet: number; inverse: Matrix } | null {
   const n = a.length;
+  const kernel = useKernel && n <= MATRIX_KERNEL_SIZE ? eliminationKernel() : null;
+  if (kernel !== null) {
+    writeMatrix(kernel.a, a);
+    if (!kernel.cholesky(n)) return null;
+    let logDet = 0;
+    for (let j = 0; j < n; j++) logDet += 2 * Math.log(kernel.b[j * n + j]!);
+    return { logDet, inverse: Array.from({ length: n }, (_, i) => Array.from(kernel.a.subarray(i * n, (i + 1) * n))) };
+  }
   const l: Matrix = Array.from({ length: n }, () => new Array<number>(n).fill(0));
   let logDet = 0;
   for (let j = 0; j < n; j++) {
