@@ -9,7 +9,7 @@
  * writeNumber. Null where WebAssembly is missing: the caller then writes the rows in JavaScript
  * (rollCsv.ts formatPackedBlock, the same bytes).
  */
-import { wasmBinary } from "../core/numerics/seriesKernel.js";
+import { kernelInstance } from "../core/numerics/seriesKernel.js";
 import { csvRowsKernelWasm } from "./csvRowsKernelWasm.js";
 import { maxNumberBytes, writeNumber } from "./numberBytes.js";
 
@@ -47,16 +47,12 @@ let kernel: Kernel | null | undefined;
 
 function csvRowsKernel(): Kernel | null {
   if (kernel !== undefined) return kernel;
-  try {
-    const { exports } = new WebAssembly.Instance(new WebAssembly.Module(wasmBinary(csvRowsKernelWasm)));
-    const memory = exports.memory as WebAssembly.Memory;
+  kernel = kernelInstance(csvRowsKernelWasm, (exports, memory) => {
     new BigUint64Array(memory.buffer, MULTIPLIERS_AT, 2 * MULTIPLIERS).set(ryuMultipliers(MULTIPLIERS));
     const pairs = new Uint8Array(memory.buffer, PAIRS_AT, 200);
     for (let v = 0; v < 100; v++) [pairs[2 * v], pairs[2 * v + 1]] = [48 + Math.floor(v / 10), 48 + (v % 10)];
-    kernel = { memory, rows: exports.rows as (...args: number[]) => number };
-  } catch {
-    kernel = null;
-  }
+    return { memory, rows: exports.rows as (...args: number[]) => number };
+  });
   return kernel;
 }
 

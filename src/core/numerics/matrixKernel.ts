@@ -7,7 +7,7 @@
  * (test/core/numerics/matrixKernel.test.ts); the twins stay as the fallback (the kernel is null where
  * WebAssembly is missing) and for matrices larger than MATRIX_KERNEL_SIZE.
  */
-import { wasmBinary } from "./seriesKernel.js";
+import { kernelInstance } from "./seriesKernel.js";
 import { eliminationKernelWasm } from "./eliminationKernelWasm.js";
 import { matrixKernelWasm } from "./matrixKernelWasm.js";
 
@@ -63,25 +63,22 @@ let kernel: MatrixKernel | null | undefined;
 
 /** The kernel, or null (WebAssembly unavailable: use the JavaScript loops). */
 export function matrixKernel(): MatrixKernel | null {
-  if (kernel !== undefined) return kernel;
-  try {
-    const { exports } = new WebAssembly.Instance(new WebAssembly.Module(wasmBinary(matrixKernelWasm)));
-    const { buffer } = exports.memory as WebAssembly.Memory;
-    const f = exports as Record<string, (n: number) => number>;
-    kernel = {
-      a: new Float64Array(buffer, A_AT, CELLS),
-      v: new Float64Array(buffer, V_AT, CELLS),
-      s: new Float64Array(buffer, S_AT, CELLS),
-      x: new Float64Array(buffer, X_AT, MATRIX_KERNEL_SIZE),
-      roots: new Float64Array(buffer, R_AT, MATRIX_KERNEL_SIZE),
-      state: new Float64Array(buffer, 0, 32),
-      jacobi: (n) => void f.jacobi!(n),
-      scale: (n) => void f.scale!(n),
-      power: (n) => f.power!(n) === 1,
-    };
-  } catch {
-    kernel = null;
-  }
+  // Null is kept too: where WebAssembly is missing, it is not tried again.
+  if (kernel === undefined)
+    kernel = kernelInstance(matrixKernelWasm, (exports, { buffer }) => {
+      const f = exports as Record<string, (n: number) => number>;
+      return {
+        a: new Float64Array(buffer, A_AT, CELLS),
+        v: new Float64Array(buffer, V_AT, CELLS),
+        s: new Float64Array(buffer, S_AT, CELLS),
+        x: new Float64Array(buffer, X_AT, MATRIX_KERNEL_SIZE),
+        roots: new Float64Array(buffer, R_AT, MATRIX_KERNEL_SIZE),
+        state: new Float64Array(buffer, 0, 32),
+        jacobi: (n) => void f.jacobi!(n),
+        scale: (n) => void f.scale!(n),
+        power: (n) => f.power!(n) === 1,
+      };
+    });
   return kernel;
 }
 
@@ -89,22 +86,18 @@ let elimination: EliminationKernel | null | undefined;
 
 /** The elimination kernel, or null (WebAssembly unavailable: use the JavaScript loops). */
 export function eliminationKernel(): EliminationKernel | null {
-  if (elimination !== undefined) return elimination;
-  try {
-    const { exports } = new WebAssembly.Instance(new WebAssembly.Module(wasmBinary(eliminationKernelWasm)));
-    const { buffer } = exports.memory as WebAssembly.Memory;
-    const cholesky = exports.cholesky as (n: number) => number;
-    const solve = exports.solve as (n: number, m: number, tolerance: number) => number;
-    elimination = {
-      a: new Float64Array(buffer, A_AT, CELLS),
-      b: new Float64Array(buffer, B_AT, CELLS),
-      x: new Float64Array(buffer, X_AT_ELIMINATION, CELLS),
-      cholesky: (n) => cholesky(n) === 1,
-      solve: (n, m, tolerance) => solve(n, m, tolerance) === 1,
-    };
-  } catch {
-    elimination = null;
-  }
+  if (elimination === undefined)
+    elimination = kernelInstance(eliminationKernelWasm, (exports, { buffer }) => {
+      const cholesky = exports.cholesky as (n: number) => number;
+      const solve = exports.solve as (n: number, m: number, tolerance: number) => number;
+      return {
+        a: new Float64Array(buffer, A_AT, CELLS),
+        b: new Float64Array(buffer, B_AT, CELLS),
+        x: new Float64Array(buffer, X_AT_ELIMINATION, CELLS),
+        cholesky: (n) => cholesky(n) === 1,
+        solve: (n, m, tolerance) => solve(n, m, tolerance) === 1,
+      };
+    });
   return elimination;
 }
 

@@ -134,6 +134,20 @@ export function wasmBinary(base64: string): Uint8Array {
   return bytes;
 }
 
+/**
+ * A kernel compiled and instantiated from its base64 text, with `make` building its views and functions
+ * over the exports and the memory; null where WebAssembly is missing or fails (every kernel's callers
+ * then take the JavaScript path).
+ */
+export function kernelInstance<T>(base64: string, make: (exports: Record<string, unknown>, memory: WebAssembly.Memory) => T): T | null {
+  try {
+    const { exports } = new WebAssembly.Instance(new WebAssembly.Module(wasmBinary(base64)));
+    return make(exports, exports.memory as WebAssembly.Memory);
+  } catch {
+    return null;
+  }
+}
+
 /** columnKernel.wat, or null (WebAssembly unavailable: use the JavaScript loops). */
 export function columnKernel(): ColumnKernel | null {
   if (column === undefined) column = instantiate(columnKernelWasm, columnFunctions);
@@ -213,9 +227,7 @@ function instantiate<T>(
   base64: string,
   functions: (f: Record<string, Exported>, buffer: ArrayBuffer) => Omit<T, keyof KernelMemory>,
 ): (T & KernelMemory) | null {
-  try {
-    const { exports } = new WebAssembly.Instance(new WebAssembly.Module(wasmBinary(base64)));
-    const buffer = (exports.memory as WebAssembly.Memory).buffer;
+  return kernelInstance(base64, (exports, { buffer }) => {
     const column = (k: number): Float64Array => new Float64Array(buffer, 512 + k * KERNEL_ROWS * 8, KERNEL_ROWS);
     const memory: KernelMemory = {
       state: new Float64Array(buffer, 0, 32),
@@ -224,7 +236,5 @@ function instantiate<T>(
       area: new Float64Array(buffer, 512, AREA_ROWS),
     };
     return { ...memory, ...functions(exports as unknown as Record<string, Exported>, buffer) } as T & KernelMemory;
-  } catch {
-    return null;
-  }
+  });
 }

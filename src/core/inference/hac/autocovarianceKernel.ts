@@ -9,7 +9,7 @@
  * doubles of room after them for the lanes past the last lag; the second page stages a column's rows
  * for `weigh` (a short sample's weighted rows would otherwise be formed in V8's interpreter).
  */
-import { wasmBinary } from "../../numerics/seriesKernel.js";
+import { kernelInstance } from "../../numerics/seriesKernel.js";
 import { autocovarianceKernelWasm } from "./autocovarianceKernelWasm.js";
 
 /** Most lags the kernel takes (its sums and the rows after a block fit its one page). */
@@ -43,9 +43,7 @@ export function autocovarianceKernel(lags: number, blockRows: number): Autocovar
 }
 
 function instantiate(): AutocovarianceKernel | null {
-  try {
-    const { exports } = new WebAssembly.Instance(new WebAssembly.Module(wasmBinary(autocovarianceKernelWasm)));
-    const memory = exports.memory as WebAssembly.Memory;
+  return kernelInstance(autocovarianceKernelWasm, (exports, memory) => {
     const run = exports.block as (f: number, begin: number, end: number, rows: number, lags: number, sums: number) => void;
     const weigh = exports.weigh as (f: number, g: number, count: number, w: number, add: number) => void;
     return {
@@ -55,7 +53,5 @@ function instantiate(): AutocovarianceKernel | null {
       block: (begin, end, rowCount, lags) => run(ROWS_AT, begin, end, rowCount, lags, SUMS_AT),
       weigh: (count, w, add) => weigh(ROWS_AT, STAGE_AT, count, w, add ? 1 : 0),
     };
-  } catch {
-    return null;
-  }
+  });
 }
