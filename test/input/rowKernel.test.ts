@@ -8,7 +8,6 @@ import { describe, expect, it } from "vitest";
 import { plainLines } from "../../src/input/engines/plainLines.js";
 import { readReturnsFromBytes, type ReadOptions } from "../../src/input/readReturns.js";
 import { kernelBytes, rowKernelFor } from "../../src/input/engines/rowKernel.js";
-import { rowKernelWasm } from "../../src/input/engines/rowKernelWasm.js";
 import { expectSameRead, throughText } from "./helpers.js";
 
 const ascii = (text: string): Uint8Array => Uint8Array.from(text, (c) => c.charCodeAt(0));
@@ -21,12 +20,6 @@ const inKernel = (bytes: Uint8Array): Uint8Array => {
 const expectSame = expectSameRead;
 
 describe("the row kernel", () => {
-  it("is the assembly of rowKernel.wat (regenerate with npm run build:kernels)", async () => {
-    const script = "../../scripts/buildKernels.mjs";
-    const { assembleKernel } = (await import(script)) as { assembleKernel(wat: string): Promise<string> };
-    expect(await assembleKernel("input/engines/rowKernel.wat")).toBe(rowKernelWasm);
-  });
-
   it("reads simple rows itself: numbers, date keys and field counts, nothing flagged", () => {
     const rows = ["Date,A,B,Note", "2024-02-28,0.5,-12.25,x", "2024-02-29,-0,7,y", "2024-03-01,+.5,5.,z", ""];
     const bytes = ascii(rows.join("\n"));

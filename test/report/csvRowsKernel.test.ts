@@ -11,7 +11,6 @@ import { windowColumnNames } from "../../src/core/rolling/index.js";
 import { createRandom } from "../../src/core/numerics/rng.js";
 import { PLAIN_DATE_FORM, stampIso } from "../../src/input/values/dateStamps.js";
 import { ryuMultipliers, writeCsvRows } from "../../src/report/csvRowsKernel.js";
-import { csvRowsKernelWasm } from "../../src/report/csvRowsKernelWasm.js";
 import { formatPackedBlock, type PackedBlock, stampRowBytes } from "../../src/report/rollCsv.js";
 
 const columns = windowColumnNames.length;
@@ -82,12 +81,6 @@ function rows(packed: PackedBlock, prefix: Uint8Array, useKernel: boolean): stri
 }
 
 describe("roll's CSV rows in the kernel", () => {
-  it("is the assembly of csvRowsKernel.wat (regenerate with npm run build:kernels)", async () => {
-    const script = "../../scripts/buildKernels.mjs";
-    const { assembleKernel } = (await import(script)) as { assembleKernel(wat: string): Promise<string> };
-    expect(await assembleKernel("report/csvRowsKernel.wat")).toBe(csvRowsKernelWasm);
-  });
-
   it("use Ryu's multipliers: 5^i to 125 bits, its top bits or shifted left (as Ryu's table generator makes them)", () => {
     const table = ryuMultipliers(80);
     for (const i of [0, 1, 2, 27, 53, 54, 55, 74, 79]) {

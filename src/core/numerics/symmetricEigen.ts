@@ -62,19 +62,27 @@ export function symmetricEigen(input: readonly (readonly number[])[], useKernel 
       }
     }
   }
-  const order = Array.from({ length: n }, (_, i) => i).sort((i, j) => a[j]![j]! - a[i]![i]!);
-  return { values: order.map((i) => a[i]![i]!), vectors: order.map((i) => v.map((row) => row[i]!)) };
+  return inDecreasingOrder(
+    n,
+    (i) => a[i]![i]!,
+    (k, i) => v[k]![i]!,
+  );
 }
 
 /** The sweeps on the n x n matrix already in the kernel's A, and the result as symmetricEigen gives it. */
 export function eigenInKernel(kernel: MatrixKernel, n: number): SymmetricEigen {
   kernel.jacobi(n);
-  const diagonal = Array.from({ length: n }, (_, i) => kernel.a[i * n + i]!);
-  const order = Array.from({ length: n }, (_, i) => i).sort((i, j) => diagonal[j]! - diagonal[i]!);
-  return {
-    values: order.map((i) => diagonal[i]!),
-    vectors: order.map((i) => Array.from({ length: n }, (_, k) => kernel.v[k * n + i]!)),
-  };
+  return inDecreasingOrder(
+    n,
+    (i) => kernel.a[i * n + i]!,
+    (k, i) => kernel.v[k * n + i]!,
+  );
+}
+
+/** The eigenvalues (the swept diagonal) in decreasing order and their vectors (columns of V) with them. */
+function inDecreasingOrder(n: number, diagonal: (i: number) => number, rotation: (k: number, i: number) => number): SymmetricEigen {
+  const order = Array.from({ length: n }, (_, i) => i).sort((i, j) => diagonal(j) - diagonal(i));
+  return { values: order.map(diagonal), vectors: order.map((i) => Array.from({ length: n }, (_, k) => rotation(k, i))) };
 }
 
 /**

@@ -5,6 +5,7 @@
  * kernel's chunks (KERNEL_ROWS, PRICING_ROWS) and the JavaScript chunks (1,024 rows).
  */
 import { describe, expect, it } from "vitest";
+import { edgeSeries, expectSameBits } from "../../support/kernelTwins.js";
 import { largestValues } from "../../../src/core/cancellation.js";
 import { excessReturnsScaledBy } from "../../../src/core/inference/bootstrap/replicates.js";
 import { boundInfluenceSeries } from "../../../src/core/inference/boundsLongRun.js";
@@ -12,40 +13,24 @@ import { longRunCovarianceInPlace } from "../../../src/core/inference/hac/longRu
 import { sharpeStdErrors } from "../../../src/core/inference/sharpe.js";
 import { sampleCovariance } from "../../../src/core/models/factorModel.js";
 import { interceptLeastSquares } from "../../../src/core/numerics/leastSquares.js";
-import { createRandom } from "../../../src/core/numerics/rng.js";
 import { KERNEL_ROWS, PRICING_ROWS } from "../../../src/core/numerics/seriesKernel.js";
 import { blendInto, productInto } from "../../../src/core/numerics/seriesLoops.js";
 import { fillInfluenceSeries, type InfluenceTerms, type Six } from "../../../src/core/pricing/assessPricing.js";
 import { excessResidualSums } from "../../../src/core/regression.js";
 
-const ODD = [Number.NaN, Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, -0, 0, 1e300, -1e-320, 5e-324, -1e300];
 const LENGTHS = [1, 2, 3, 1023, 1025, 2520, PRICING_ROWS + 1, KERNEL_ROWS];
-
-function series(n: number, seed: number, centre = 0.01, spread = 0.02, specials = 0): Float64Array {
-  const random = createRandom(seed);
-  const f = Float64Array.from({ length: n }, () => centre + spread * random.normal());
-  for (let i = 0; i < specials; i++) f[Math.floor(random.uniform() * n)] = ODD[(i + seed) % ODD.length]!;
-  return f;
-}
-
-function expectSameBits(got: ArrayLike<number>, expected: ArrayLike<number>, label: string): void {
-  expect(got.length).toBe(expected.length);
-  let j = 0;
-  while (j < expected.length && Object.is(got[j], expected[j])) j++;
-  expect(j, `${label}: first difference at [${j}]: ${got[j]} vs ${expected[j]}`).toBe(expected.length);
-}
 
 /** Each length with plain data, then shorter runs with edge values (seed picks which and where). */
 function* cases(): Generator<{ label: string; x: Float64Array; y: Float64Array; rates: Float64Array }> {
   for (const [i, n] of LENGTHS.entries())
-    yield { label: `n ${n}`, x: series(n, i), y: series(n, 50 + i, 0.012, 0.04), rates: series(n, 90 + i, 1e-4, 1e-5) };
+    yield { label: `n ${n}`, x: edgeSeries(n, i), y: edgeSeries(n, 50 + i, 0.012, 0.04), rates: edgeSeries(n, 90 + i, 1e-4, 1e-5) };
   for (let seed = 0; seed < 8; seed++) {
     const n = 600 + 173 * seed;
     yield {
       label: `specials ${seed}`,
-      x: series(n, seed, 0, 1, seed % 3),
-      y: series(n, 20 + seed, 0, 1e-150, (seed + 1) % 3),
-      rates: series(n, 40 + seed, 0, 1e-300, seed % 2),
+      x: edgeSeries(n, seed, 0, 1, seed % 3),
+      y: edgeSeries(n, 20 + seed, 0, 1e-150, (seed + 1) % 3),
+      rates: edgeSeries(n, 40 + seed, 0, 1e-300, seed % 2),
     };
   }
 }
@@ -161,8 +146,8 @@ describe("the uncertainty's passes in the series kernel", () => {
       [12, 10_000],
       [2, 40_000],
     ] as const) {
-      const many = Array.from({ length: k }, (_, i) => series(n, 700 + i, 0.01 * i, 0.02 + 0.01 * i, n > 2 ? i % 3 : 0));
-      const rates = series(n, 800, 1e-4, 1e-5);
+      const many = Array.from({ length: k }, (_, i) => edgeSeries(n, 700 + i, 0.01 * i, 0.02 + 0.01 * i, n > 2 ? i % 3 : 0));
+      const rates = edgeSeries(n, 800, 1e-4, 1e-5);
       for (const offset of [0, 2e-4, rates]) {
         const got = sampleCovariance(many, offset);
         const expected = sampleCovariance(many, offset, false);
@@ -189,8 +174,8 @@ describe("the uncertainty's passes in the series kernel", () => {
 
   it("longRunCovarianceInPlace centres each column as column[t] - mean", () => {
     for (const n of [2, 1500, KERNEL_ROWS + 3]) {
-      const x = series(n, 3);
-      const y = series(n, 4);
+      const x = edgeSeries(n, 3);
+      const y = edgeSeries(n, 4);
       // The plain sum in row order over n, as longRun.ts takes the mean.
       const centred = (a: Float64Array) => {
         const mean = a.reduce((s, v) => s + v, 0) / n;

@@ -4,42 +4,15 @@
  * around the kernel's chunk and the window sums' blocks.
  */
 import { describe, expect, it } from "vitest";
+import { edgeSeries, expectSameBits } from "../../support/kernelTwins.js";
 import { windowSquaresOfTwo, windowSquaresOfTwoWidths } from "../../../src/core/inference/hac/bartlettWindows.js";
 import { excessCrossProducts } from "../../../src/core/moments.js";
 import { createRandom } from "../../../src/core/numerics/rng.js";
-import { influenceKernelWasm } from "../../../src/core/numerics/influenceKernelWasm.js";
 import { influenceKernel, KERNEL_ROWS, columnKernel, seriesKernel } from "../../../src/core/numerics/seriesKernel.js";
-import { columnKernelWasm } from "../../../src/core/numerics/columnKernelWasm.js";
-import { seriesKernelWasm } from "../../../src/core/numerics/seriesKernelWasm.js";
-
-const ODD = [Number.NaN, Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, -0, 0, 1e300, -1e-320, 5e-324, -1e300];
-
-/** n rows of centre + spread x normal draws, with `specials` of them replaced by edge values. */
-function series(n: number, seed: number, centre = 0.01, spread = 0.02, specials = 0): Float64Array {
-  const random = createRandom(seed);
-  const f = Float64Array.from({ length: n }, () => centre + spread * random.normal());
-  for (let i = 0; i < specials; i++) f[Math.floor(random.uniform() * n)] = ODD[(i + seed) % ODD.length]!;
-  return f;
-}
 
 const flat = (m: { means: readonly number[]; sums: readonly (readonly number[])[] }): number[] => [...m.means, ...m.sums.flat()];
 
-function expectSameBits(got: ArrayLike<number>, expected: ArrayLike<number>, label: string): void {
-  expect(got.length).toBe(expected.length);
-  let j = 0;
-  while (j < expected.length && Object.is(got[j], expected[j])) j++;
-  expect(j, `${label}: first difference at [${j}]: ${got[j]} vs ${expected[j]}`).toBe(expected.length);
-}
-
 describe("the series kernels", () => {
-  it("are the assembly of seriesKernel.wat, influenceKernel.wat and columnKernel.wat (regenerate with npm run build:kernels)", async () => {
-    const script = "../../../scripts/buildKernels.mjs";
-    const { assembleKernel } = (await import(script)) as { assembleKernel(wat: string): Promise<string> };
-    expect(await assembleKernel("core/numerics/seriesKernel.wat")).toBe(seriesKernelWasm);
-    expect(await assembleKernel("core/numerics/influenceKernel.wat")).toBe(influenceKernelWasm);
-    expect(await assembleKernel("core/numerics/columnKernel.wat")).toBe(columnKernelWasm);
-  });
-
   it("are available on Node 20 (else every pass would silently take the JavaScript path)", () => {
     expect(seriesKernel()).not.toBeNull();
     expect(influenceKernel()).not.toBeNull();
@@ -52,9 +25,9 @@ describe("excessCrossProducts in the kernel", () => {
 
   it("equals the JavaScript pass bit for bit, with a fixed risk-free rate and with a series of them", () => {
     for (const [i, n] of lengths.entries()) {
-      const low = series(n, 10 + i);
-      const high = series(n, 40 + i, 0.012, 0.035);
-      const rates = series(n, 70 + i, 0.0001, 0.00002);
+      const low = edgeSeries(n, 10 + i);
+      const high = edgeSeries(n, 40 + i, 0.012, 0.035);
+      const rates = edgeSeries(n, 70 + i, 0.0001, 0.00002);
       for (const [rf, weight, scale] of [
         [0.0001, 0.5, 1],
         [rates, 0.3, 1],
@@ -74,9 +47,9 @@ describe("excessCrossProducts in the kernel", () => {
   it("equals the JavaScript pass bit for bit with NaN, infinities, signed zeros, huge and subnormal values", () => {
     for (let seed = 0; seed < 12; seed++) {
       const n = 700 + 311 * seed;
-      const low = series(n, seed, 0, 1, seed % 4);
-      const high = series(n, 100 + seed, 0, 1e-200, (seed + 1) % 3);
-      const rates = series(n, 200 + seed, 0, 1e-310, seed % 2);
+      const low = edgeSeries(n, seed, 0, 1, seed % 4);
+      const high = edgeSeries(n, 100 + seed, 0, 1e-200, (seed + 1) % 3);
+      const rates = edgeSeries(n, 200 + seed, 0, 1e-310, seed % 2);
       expectSameBits(
         flat(excessCrossProducts(low, high, rates, 0.5)),
         flat(excessCrossProducts(low, high, rates, 0.5, 1, false)),
@@ -91,8 +64,8 @@ describe("excessCrossProducts in the kernel", () => {
   });
 
   it("takes plain arrays as well as Float64Arrays", () => {
-    const low = Array.from(series(1500, 5));
-    const high = Array.from(series(1500, 6));
+    const low = Array.from(edgeSeries(1500, 5));
+    const high = Array.from(edgeSeries(1500, 6));
     expectSameBits(
       flat(excessCrossProducts(low, high, 0.0002, 0.4)),
       flat(excessCrossProducts(low, high, 0.0002, 0.4, 1, false)),
@@ -104,8 +77,8 @@ describe("excessCrossProducts in the kernel", () => {
 describe("windowSquaresOfTwo in the kernel", () => {
   it("equals the JavaScript windows bit for bit across widths and block edges", () => {
     for (const [i, n] of [1, 2, 5, 1023, 1024, 1025, 2520, 10_000, KERNEL_ROWS].entries()) {
-      const x = series(n, 300 + i, 0, 0.01);
-      const y = series(n, 400 + i, 0.001, 0.03);
+      const x = edgeSeries(n, 300 + i, 0, 0.01);
+      const y = edgeSeries(n, 400 + i, 0.001, 0.03);
       for (const width of [1, 2, 7, 31, 1024, 1500, n + 3]) {
         expectSameBits(windowSquaresOfTwo(x, y, width), windowSquaresOfTwo(x, y, width, false), `n ${n}, width ${width}`);
       }
@@ -114,8 +87,8 @@ describe("windowSquaresOfTwo in the kernel", () => {
 
   it("gives both widths in one pass, each the JavaScript windows of its width bit for bit", () => {
     for (const [i, n] of [1, 2, 5, 1022, 1023, 1024, 1025, 2520, KERNEL_ROWS].entries()) {
-      const x = series(n, 700 + i, 0, 0.01, i % 3);
-      const y = series(n, 800 + i, 0.001, 0.03);
+      const x = edgeSeries(n, 700 + i, 0, 0.01, i % 3);
+      const y = edgeSeries(n, 800 + i, 0.001, 0.03);
       for (const width of [2, 3, 31, 1023, 1024, 1025, 1026, n + 1, n + 3]) {
         const [wide, narrow] = windowSquaresOfTwoWidths(x, y, width, true);
         expectSameBits(wide, windowSquaresOfTwo(x, y, width, false), `n ${n}, width ${width}`);
@@ -143,24 +116,24 @@ describe("windowSquaresOfTwo in the kernel", () => {
 
   it("equals the JavaScript windows bit for bit with non-finite and extreme values", () => {
     for (let seed = 0; seed < 10; seed++) {
-      const x = series(900 + 97 * seed, 500 + seed, 0, 1e150, seed % 5);
-      const y = series(900 + 97 * seed, 600 + seed, 0, 1e-160, (seed + 2) % 4);
+      const x = edgeSeries(900 + 97 * seed, 500 + seed, 0, 1e150, seed % 5);
+      const y = edgeSeries(900 + 97 * seed, 600 + seed, 0, 1e-160, (seed + 2) % 4);
       expectSameBits(windowSquaresOfTwo(x, y, 13), windowSquaresOfTwo(x, y, 13, false), `seed ${seed}`);
     }
   });
 
   it("leaves nothing behind between calls (each starts from zeros)", () => {
-    const x = series(3000, 1);
-    const y = series(3000, 2);
+    const x = edgeSeries(3000, 1);
+    const y = edgeSeries(3000, 2);
     const first = Array.from(windowSquaresOfTwo(x, y, 40));
-    windowSquaresOfTwo(series(500, 3, 1e6, 1e6), series(500, 4, -1e6, 1), 9);
+    windowSquaresOfTwo(edgeSeries(500, 3, 1e6, 1e6), edgeSeries(500, 4, -1e6, 1), 9);
     expectSameBits(windowSquaresOfTwo(x, y, 40), first, "again");
   });
 
   it("hands longer series to the JavaScript loop", () => {
     const n = KERNEL_ROWS + 5;
-    const x = series(n, 7);
-    const y = series(n, 8);
+    const x = edgeSeries(n, 7);
+    const y = edgeSeries(n, 8);
     expectSameBits(windowSquaresOfTwo(x, y, 50), windowSquaresOfTwo(x, y, 50, false), "long");
   });
 });

@@ -5,7 +5,6 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { autocovarianceKernelWasm } from "../../../../src/core/inference/hac/autocovarianceKernelWasm.js";
 import { autocovarianceKernel, MAX_KERNEL_LAGS } from "../../../../src/core/inference/hac/autocovarianceKernel.js";
 import { autocovarianceSums, BLOCK_ROWS, weightedAutocovarianceSums } from "../../../../src/core/inference/hac/bandwidth.js";
 import { createRandom } from "../../../../src/core/numerics/rng.js";
@@ -39,12 +38,6 @@ const sameBits = (got: ArrayLike<number>, expected: ArrayLike<number>): void => 
 };
 
 describe("the pre-lag autocovariances' WebAssembly kernel", () => {
-  it("is the assembly of autocovarianceKernel.wat (regenerate with npm run build:kernels)", async () => {
-    const script = "../../../../scripts/buildKernels.mjs";
-    const { assembleKernel } = (await import(script)) as { assembleKernel(wat: string): Promise<string> };
-    expect(await assembleKernel("core/inference/hac/autocovarianceKernel.wat")).toBe(autocovarianceKernelWasm);
-  });
-
   it("is used on Node 20 for the lags it has room for, and not beyond them", () => {
     expect(autocovarianceKernel(30, BLOCK_ROWS)).not.toBeNull();
     expect(autocovarianceKernel(MAX_KERNEL_LAGS, BLOCK_ROWS)).not.toBeNull();
