@@ -11,135 +11,99 @@
   ;; bartlettWindows.ts windowSquaresOfTwo over a whole series of n rows, x in column 0 and y in column 1:
   ;; the windows t = 1 - width .. n - 1 by blocks of 1,024, each window's sums hx + lx and hy + ly kept
   ;; with TwoSum as rows enter and leave, the block's sums of squares added to the totals at its end.
+  ;; x and y go together in the two lanes of f64x2 values (lane 0 x, lane 1 y): a lane's operation is
+  ;; the scalar one, so each lane does its series' pass exactly (the same bits), at half the instructions;
+  ;; xy is lane 0 of w times w with its lanes swapped (wx wy = wy wx exactly).
   ;; State: hx lx hy ly, then the totals xx xy - yy (all from 0). With $both, the same for width - 1 in
   ;; the same loop (state 8..15): its window t + 1 takes the same entering row as the wider window t and
   ;; leaves row t, and its blocks hold the same window counts, so each width's operations are those of
   ;; a pass of its own (the same bits), while the two independent chains of additions overlap.
   (func (export "windowsOfTwo") (param $n i32) (param $width i32) (param $both i32)
-    (local $t i32) (local $stop i32) (local $entering i32)
-    (local $hx f64) (local $lx f64) (local $hy f64) (local $ly f64)
-    (local $xx f64) (local $xy f64) (local $yy f64)
-    (local $u f64) (local $sum f64) (local $virtual f64) (local $wx f64) (local $wy f64)
-    (local $hx2 f64) (local $lx2 f64) (local $hy2 f64) (local $ly2 f64)
-    (local $xx2 f64) (local $xy2 f64) (local $yy2 f64) (local $wx2 f64) (local $wy2 f64)
+    (local $t i32) (local $stop i32) (local $entering i32) (local $leaving i32) (local $narrow i32)
+    (local $in v128) (local $u v128) (local $sum v128) (local $virtual v128) (local $w v128)
+    (local $h v128) (local $l v128) (local $squares v128) (local $cross v128)
+    (local $h2 v128) (local $l2 v128) (local $squares2 v128) (local $cross2 v128)
     (local.set $t (i32.sub (i32.const 1) (local.get $width)))
     (block $done
       (loop $block
         (br_if $done (i32.ge_s (local.get $t) (local.get $n)))
         (local.set $stop (i32.add (local.get $t) (i32.const 1024)))
         (if (i32.gt_s (local.get $stop) (local.get $n)) (then (local.set $stop (local.get $n))))
-        (local.set $xx (f64.const 0))
-        (local.set $xy (f64.const 0))
-        (local.set $yy (f64.const 0))
-        (local.set $xx2 (f64.const 0))
-        (local.set $xy2 (f64.const 0))
-        (local.set $yy2 (f64.const 0))
+        (local.set $squares (v128.const i64x2 0 0))
+        (local.set $cross (v128.const i64x2 0 0))
+        (local.set $squares2 (v128.const i64x2 0 0))
+        (local.set $cross2 (v128.const i64x2 0 0))
         (loop $window
           (local.set $entering (i32.sub (i32.add (local.get $t) (local.get $width)) (i32.const 1)))
           (if (i32.lt_s (local.get $entering) (local.get $n))
             (then
-              (local.set $u (f64.load offset=512 (i32.shl (local.get $entering) (i32.const 3))))
-              (local.set $sum (f64.add (local.get $hx) (local.get $u)))
-              (local.set $virtual (f64.sub (local.get $sum) (local.get $hx)))
-              (local.set $lx (f64.add (local.get $lx) (f64.add
-                (f64.sub (local.get $hx) (f64.sub (local.get $sum) (local.get $virtual)))
-                (f64.sub (local.get $u) (local.get $virtual)))))
-              (local.set $hx (local.get $sum))))
+              (local.set $in (v128.load64_lane offset=262656 1 (i32.shl (local.get $entering) (i32.const 3)) (v128.load64_zero offset=512 (i32.shl (local.get $entering) (i32.const 3)))))
+              (local.set $u (local.get $in))
+              (local.set $sum (f64x2.add (local.get $h) (local.get $u)))
+              (local.set $virtual (f64x2.sub (local.get $sum) (local.get $h)))
+              (local.set $l (f64x2.add (local.get $l) (f64x2.add
+                (f64x2.sub (local.get $h) (f64x2.sub (local.get $sum) (local.get $virtual)))
+                (f64x2.sub (local.get $u) (local.get $virtual)))))
+              (local.set $h (local.get $sum))))
           (if (i32.gt_s (local.get $t) (i32.const 0))
             (then
-              (local.set $u (f64.neg (f64.load offset=504 (i32.shl (local.get $t) (i32.const 3)))))
-              (local.set $sum (f64.add (local.get $hx) (local.get $u)))
-              (local.set $virtual (f64.sub (local.get $sum) (local.get $hx)))
-              (local.set $lx (f64.add (local.get $lx) (f64.add
-                (f64.sub (local.get $hx) (f64.sub (local.get $sum) (local.get $virtual)))
-                (f64.sub (local.get $u) (local.get $virtual)))))
-              (local.set $hx (local.get $sum))))
-          (if (i32.lt_s (local.get $entering) (local.get $n))
-            (then
-              (local.set $u (f64.load offset=262656 (i32.shl (local.get $entering) (i32.const 3))))
-              (local.set $sum (f64.add (local.get $hy) (local.get $u)))
-              (local.set $virtual (f64.sub (local.get $sum) (local.get $hy)))
-              (local.set $ly (f64.add (local.get $ly) (f64.add
-                (f64.sub (local.get $hy) (f64.sub (local.get $sum) (local.get $virtual)))
-                (f64.sub (local.get $u) (local.get $virtual)))))
-              (local.set $hy (local.get $sum))))
-          (if (i32.gt_s (local.get $t) (i32.const 0))
-            (then
-              (local.set $u (f64.neg (f64.load offset=262648 (i32.shl (local.get $t) (i32.const 3)))))
-              (local.set $sum (f64.add (local.get $hy) (local.get $u)))
-              (local.set $virtual (f64.sub (local.get $sum) (local.get $hy)))
-              (local.set $ly (f64.add (local.get $ly) (f64.add
-                (f64.sub (local.get $hy) (f64.sub (local.get $sum) (local.get $virtual)))
-                (f64.sub (local.get $u) (local.get $virtual)))))
-              (local.set $hy (local.get $sum))))
-          (local.set $wx (f64.add (local.get $hx) (local.get $lx)))
-          (local.set $wy (f64.add (local.get $hy) (local.get $ly)))
-          (local.set $xx (f64.add (local.get $xx) (f64.mul (local.get $wx) (local.get $wx))))
-          (local.set $xy (f64.add (local.get $xy) (f64.mul (local.get $wx) (local.get $wy))))
-          (local.set $yy (f64.add (local.get $yy) (f64.mul (local.get $wy) (local.get $wy))))
+              (local.set $leaving (i32.sub (local.get $t) (i32.const 1)))
+              (local.set $u (f64x2.neg (v128.load64_lane offset=262656 1 (i32.shl (local.get $leaving) (i32.const 3)) (v128.load64_zero offset=512 (i32.shl (local.get $leaving) (i32.const 3))))))
+              (local.set $sum (f64x2.add (local.get $h) (local.get $u)))
+              (local.set $virtual (f64x2.sub (local.get $sum) (local.get $h)))
+              (local.set $l (f64x2.add (local.get $l) (f64x2.add
+                (f64x2.sub (local.get $h) (f64x2.sub (local.get $sum) (local.get $virtual)))
+                (f64x2.sub (local.get $u) (local.get $virtual)))))
+              (local.set $h (local.get $sum))))
+          (local.set $w (f64x2.add (local.get $h) (local.get $l)))
+          (local.set $squares (f64x2.add (local.get $squares) (f64x2.mul (local.get $w) (local.get $w))))
+          (local.set $cross (f64x2.add (local.get $cross) (f64x2.mul (local.get $w) (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $w) (local.get $w)))))
           ;; The narrower window t + 1 (none after the last row).
-          (if (i32.and (local.get $both) (i32.lt_s (i32.add (local.get $t) (i32.const 1)) (local.get $n)))
+          (local.set $narrow (i32.and (local.get $both) (i32.lt_s (i32.add (local.get $t) (i32.const 1)) (local.get $n))))
+          (if (local.get $narrow)
             (then
               (if (i32.lt_s (local.get $entering) (local.get $n))
                 (then
-                  (local.set $u (f64.load offset=512 (i32.shl (local.get $entering) (i32.const 3))))
-                  (local.set $sum (f64.add (local.get $hx2) (local.get $u)))
-                  (local.set $virtual (f64.sub (local.get $sum) (local.get $hx2)))
-                  (local.set $lx2 (f64.add (local.get $lx2) (f64.add
-                    (f64.sub (local.get $hx2) (f64.sub (local.get $sum) (local.get $virtual)))
-                    (f64.sub (local.get $u) (local.get $virtual)))))
-                  (local.set $hx2 (local.get $sum))))
+                  (local.set $u (local.get $in))
+                  (local.set $sum (f64x2.add (local.get $h2) (local.get $u)))
+                  (local.set $virtual (f64x2.sub (local.get $sum) (local.get $h2)))
+                  (local.set $l2 (f64x2.add (local.get $l2) (f64x2.add
+                    (f64x2.sub (local.get $h2) (f64x2.sub (local.get $sum) (local.get $virtual)))
+                    (f64x2.sub (local.get $u) (local.get $virtual)))))
+                  (local.set $h2 (local.get $sum))))
               (if (i32.ge_s (local.get $t) (i32.const 0))
                 (then
-                  (local.set $u (f64.neg (f64.load offset=512 (i32.shl (local.get $t) (i32.const 3)))))
-                  (local.set $sum (f64.add (local.get $hx2) (local.get $u)))
-                  (local.set $virtual (f64.sub (local.get $sum) (local.get $hx2)))
-                  (local.set $lx2 (f64.add (local.get $lx2) (f64.add
-                    (f64.sub (local.get $hx2) (f64.sub (local.get $sum) (local.get $virtual)))
-                    (f64.sub (local.get $u) (local.get $virtual)))))
-                  (local.set $hx2 (local.get $sum))))
-              (if (i32.lt_s (local.get $entering) (local.get $n))
-                (then
-                  (local.set $u (f64.load offset=262656 (i32.shl (local.get $entering) (i32.const 3))))
-                  (local.set $sum (f64.add (local.get $hy2) (local.get $u)))
-                  (local.set $virtual (f64.sub (local.get $sum) (local.get $hy2)))
-                  (local.set $ly2 (f64.add (local.get $ly2) (f64.add
-                    (f64.sub (local.get $hy2) (f64.sub (local.get $sum) (local.get $virtual)))
-                    (f64.sub (local.get $u) (local.get $virtual)))))
-                  (local.set $hy2 (local.get $sum))))
-              (if (i32.ge_s (local.get $t) (i32.const 0))
-                (then
-                  (local.set $u (f64.neg (f64.load offset=262656 (i32.shl (local.get $t) (i32.const 3)))))
-                  (local.set $sum (f64.add (local.get $hy2) (local.get $u)))
-                  (local.set $virtual (f64.sub (local.get $sum) (local.get $hy2)))
-                  (local.set $ly2 (f64.add (local.get $ly2) (f64.add
-                    (f64.sub (local.get $hy2) (f64.sub (local.get $sum) (local.get $virtual)))
-                    (f64.sub (local.get $u) (local.get $virtual)))))
-                  (local.set $hy2 (local.get $sum))))
-              (local.set $wx2 (f64.add (local.get $hx2) (local.get $lx2)))
-              (local.set $wy2 (f64.add (local.get $hy2) (local.get $ly2)))
-              (local.set $xx2 (f64.add (local.get $xx2) (f64.mul (local.get $wx2) (local.get $wx2))))
-              (local.set $xy2 (f64.add (local.get $xy2) (f64.mul (local.get $wx2) (local.get $wy2))))
-              (local.set $yy2 (f64.add (local.get $yy2) (f64.mul (local.get $wy2) (local.get $wy2))))))
+                  (local.set $u (f64x2.neg (v128.load64_lane offset=262656 1 (i32.shl (local.get $t) (i32.const 3)) (v128.load64_zero offset=512 (i32.shl (local.get $t) (i32.const 3))))))
+                  (local.set $sum (f64x2.add (local.get $h2) (local.get $u)))
+                  (local.set $virtual (f64x2.sub (local.get $sum) (local.get $h2)))
+                  (local.set $l2 (f64x2.add (local.get $l2) (f64x2.add
+                    (f64x2.sub (local.get $h2) (f64x2.sub (local.get $sum) (local.get $virtual)))
+                    (f64x2.sub (local.get $u) (local.get $virtual)))))
+                  (local.set $h2 (local.get $sum))))
+              (local.set $w (f64x2.add (local.get $h2) (local.get $l2)))
+              (local.set $squares2 (f64x2.add (local.get $squares2) (f64x2.mul (local.get $w) (local.get $w))))
+              (local.set $cross2 (f64x2.add (local.get $cross2) (f64x2.mul (local.get $w) (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $w) (local.get $w)))))))
           (local.set $t (i32.add (local.get $t) (i32.const 1)))
           (br_if $window (i32.lt_s (local.get $t) (local.get $stop))))
-        (f64.store (i32.const 32) (f64.add (f64.load (i32.const 32)) (local.get $xx)))
-        (f64.store (i32.const 40) (f64.add (f64.load (i32.const 40)) (local.get $xy)))
-        (f64.store (i32.const 56) (f64.add (f64.load (i32.const 56)) (local.get $yy)))
-        (if (local.get $both)
-          (then
-            (f64.store (i32.const 96) (f64.add (f64.load (i32.const 96)) (local.get $xx2)))
-            (f64.store (i32.const 104) (f64.add (f64.load (i32.const 104)) (local.get $xy2)))
-            (f64.store (i32.const 120) (f64.add (f64.load (i32.const 120)) (local.get $yy2)))))
+        (call $addTotals (i32.const 32) (local.get $squares) (local.get $cross))
+        (if (local.get $both) (then (call $addTotals (i32.const 96) (local.get $squares2) (local.get $cross2))))
         (br $block)))
-    (f64.store (i32.const 0) (local.get $hx))
-    (f64.store (i32.const 8) (local.get $lx))
-    (f64.store (i32.const 16) (local.get $hy))
-    (f64.store (i32.const 24) (local.get $ly))
-    (f64.store (i32.const 64) (local.get $hx2))
-    (f64.store (i32.const 72) (local.get $lx2))
-    (f64.store (i32.const 80) (local.get $hy2))
-    (f64.store (i32.const 88) (local.get $ly2)))
+    (call $storePair (i32.const 0) (local.get $h) (local.get $l))
+    (call $storePair (i32.const 64) (local.get $h2) (local.get $l2)))
+
+  ;; A block's sums into the totals at `at`: xx (lane 0 of squares) at at, xy (lane 0 of cross) at
+  ;; at + 8, yy (lane 1 of squares) at at + 24.
+  (func $addTotals (param $at i32) (param $squares v128) (param $cross v128)
+    (f64.store (local.get $at) (f64.add (f64.load (local.get $at)) (f64x2.extract_lane 0 (local.get $squares))))
+    (f64.store offset=8 (local.get $at) (f64.add (f64.load offset=8 (local.get $at)) (f64x2.extract_lane 0 (local.get $cross))))
+    (f64.store offset=24 (local.get $at) (f64.add (f64.load offset=24 (local.get $at)) (f64x2.extract_lane 1 (local.get $squares)))))
+
+  ;; The running pairs at `at`: hx lx hy ly.
+  (func $storePair (param $at i32) (param $h v128) (param $l v128)
+    (f64.store (local.get $at) (f64x2.extract_lane 0 (local.get $h)))
+    (f64.store offset=8 (local.get $at) (f64x2.extract_lane 0 (local.get $l)))
+    (f64.store offset=16 (local.get $at) (f64x2.extract_lane 1 (local.get $h)))
+    (f64.store offset=24 (local.get $at) (f64x2.extract_lane 1 (local.get $l))))
 
   ;; boundsLongRun.ts boundInfluenceSeries over a whole series of n rows: x in column 0, y in column 1;
   ;; the gradients at 256 (lower g0 g1 g2, upper g0 g1 g2). The plain means mx my, the centred sums'
