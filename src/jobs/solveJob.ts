@@ -6,6 +6,7 @@
  * joined on date. A pair that fails does not stop the others.
  */
 import { failure, type Result, success } from "../core/result.js";
+import { SharpeMemo } from "../core/inference/sharpeMemo.js";
 import { solveKeepingMoments } from "../core/solve.js";
 import { inputWarningDiagnostic } from "../input/index.js";
 import { type CommandOptions, type CommandOptionsInput, type OptionIssue, parseOptions } from "../options/index.js";
@@ -94,14 +95,21 @@ export async function solvePlanned(files: readonly string[], plan: SolveJobPlan,
   const { options, several } = plan;
   const pairs: SolvedPair[] = [];
   // One scratch pool for every pair: pairs of one file have the same rows and reuse the same series.
+  // One memo of the books' Sharpe ratios: pairs of one file share books (the same column arrays).
+  const sharpeMemo = new SharpeMemo();
   await withScratchAsync(async () => {
     for await (const load of loadPairs(files, pairsFrom(options), options, context.read, modelColumns(options)))
-      pairs.push(await solveLoaded(load, options, context));
+      pairs.push(await solveLoaded(load, options, context, sharpeMemo));
   });
   return { options, pairs, several };
 }
 
-async function solveLoaded(load: PairLoad, options: CommandOptions<"solve">, context: JobContext): Promise<SolvedPair> {
+async function solveLoaded(
+  load: PairLoad,
+  options: CommandOptions<"solve">,
+  context: JobContext,
+  sharpeMemo: SharpeMemo,
+): Promise<SolvedPair> {
   if (!load.ok) return failed(load.source, load.pair, load.errors, readErrorMessages(load.errors));
   const loaded = load.value;
   const { source, pair } = loaded;
@@ -115,7 +123,7 @@ async function solveLoaded(load: PairLoad, options: CommandOptions<"solve">, con
     );
   }
   const { solution: found, moments } = solved.value;
-  const assessed = await uncertaintyFor(sample, found, options, context, moments);
+  const assessed = await uncertaintyFor(sample, found, options, context, moments, sharpeMemo);
   const input = describeInput(loaded, options);
   // The pricing section, and the return-implied landmark and its diagnostics as the test decides them.
   const priced = pricingFor(sample, found, assessed.uncertainty, options, {

@@ -2,6 +2,7 @@
 import { type Diagnostic, diagnose } from "../core/diagnostics.js";
 import type { BootstrapSummary } from "../core/inference/bootstrap/summary.js";
 import type { HacOptions } from "../core/inference/options.js";
+import type { SharpeMemo } from "../core/inference/sharpeMemo.js";
 import { assessUncertainty, minimumForUncertainty, type UncertaintySample } from "../core/inference/uncertainty.js";
 import type { Uncertainty } from "../core/inference/uncertaintyTypes.js";
 import type { SolvedMoments } from "../core/solve.js";
@@ -20,6 +21,7 @@ export async function uncertaintyFor(
   options: CommandOptions<"solve">,
   context: JobContext,
   solved?: SolvedMoments,
+  sharpeMemo?: SharpeMemo,
 ): Promise<{ uncertainty: Uncertainty | null; note: Diagnostic | null }> {
   if (!options.uncertainty) return { uncertainty: null, note: null };
   if (solution.observations < minimumForUncertainty) {
@@ -48,6 +50,7 @@ export async function uncertaintyFor(
     intervalSource: options.intervalSource,
     ...(bootstrapSummary === undefined ? {} : { bootstrapSummary }),
     ...(solved === undefined ? {} : { solved }),
+    ...(sharpeMemo === undefined ? {} : { sharpeMemo }),
   });
   // The options passed the option table's rules and solve accepted the sample: a refusal is a bug.
   if (!assessed.ok) throw new Error(`uncertaintyFor: assessUncertainty refused a solved sample: ${assessed.issues[0]?.message}`);

@@ -24,6 +24,7 @@ export { normalCdf, normalPdf, normalQuantile, normalSurvival } from "../numeric
 export { findRoot, minimiseUnimodal } from "../numerics/scalarSolvers.js";
 export { integrate } from "../numerics/quadrature.js";
 export { sharpeIidStdErr, sharpeMertensStdErr, sharpeStdErrors, type SharpeStdErrors } from "./sharpe.js";
+export { SharpeMemo } from "./sharpeMemo.js";
 export { commonBlockLength, optimalBlockLength, type OptimalBlockLength } from "./bootstrap/blockLength.js";
 export { drawBlocks, replicateRandom, resampleIndices } from "./bootstrap/stationaryBootstrap.js";
 export { bootstrapQuantities, type BootstrapQuantity } from "./bootstrap/statistics.js";

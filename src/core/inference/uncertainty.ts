@@ -37,7 +37,8 @@ import {
   type IntervalSource,
   type LongRunMethod,
 } from "./options.js";
-import { sharpeStdErrors } from "./sharpe.js";
+import { type SharpeStdErrors, sharpeStdErrors } from "./sharpe.js";
+import type { SharpeMemo } from "./sharpeMemo.js";
 import { stoyeInterval } from "./stoye.js";
 import { excessReturnsScaledBy } from "./bootstrap/replicates.js";
 import { type CrossProducts, welfordCrossProducts } from "../moments.js";
@@ -75,6 +76,11 @@ export interface UncertaintyOptions {
    * pass depends on its own two series alone) instead of passing over the rows again.
    */
   readonly solved?: SolvedMoments;
+  /**
+   * Books' Sharpe ratios already assessed in this run (sharpeMemo.ts): a book that another pair of
+   * the run had, with the same rates, scale and HAC options, takes its numbers (the same bits).
+   */
+  readonly sharpeMemo?: SharpeMemo;
 }
 
 /**
@@ -231,7 +237,10 @@ function uncertaintyOf(
   const capmLow = capmFit(low);
   const capmHigh = capmFit(high);
   // Diagonals of a positive semi-definite matrix, negative only by rounding; the alpha's back in the data's units.
-  const sharpe = { low: sharpeStdErrors(low, hac), high: sharpeStdErrors(high, hac), market: sharpeStdErrors(market, hac) };
+  const memo = options.sharpeMemo;
+  const bookSharpe = (book: ArrayLike<number>, series: Float64Array): SharpeStdErrors =>
+    memo === undefined ? sharpeStdErrors(series, hac) : memo.of(book, sample.riskFree, scale, hac, () => sharpeStdErrors(series, hac));
+  const sharpe = { low: bookSharpe(sample.low, low), high: bookSharpe(sample.high, high), market: sharpeStdErrors(market, hac) };
   giveBack(market);
   const capmHac = (c: ReturnType<typeof capmFit>): CapmHac => ({
     alphaStdErr: Math.sqrt(Math.max(0, c.hac.covariance[0]![0]!)) / scale,
