@@ -5,9 +5,11 @@
  * tests compare both). About three times faster than that loop; null where WebAssembly or its SIMD is
  * unavailable, or for more lags than the kernel has room for (the JavaScript loop is used).
  *
- * Memory (two pages): the sums at 0 (MAX_LAGS + 1 doubles), then a block of rows and its lags, with 8
- * doubles of room after them for the lanes past the last lag; the second page stages a column's rows
- * for `weigh` (a short sample's weighted rows would otherwise be formed in V8's interpreter).
+ * Memory (sixteen pages, committed as they are touched): the sums at 0 (MAX_LAGS + 1 doubles), then a
+ * block of rows and its lags, with 8 doubles of room after them for the lanes past the last lag; the
+ * second page stages a column's rows for `weigh` (a short sample's weighted rows would otherwise be
+ * formed in V8's interpreter); from the third, the weights and whole columns of `weightedSums`, which
+ * does a short sample's weighted sums in one call instead of two calls a column and a block.
  */
 import { kernelInstance } from "../../numerics/seriesKernel.js";
 import { autocovarianceKernelWasm } from "./autocovarianceKernelWasm.js";
@@ -19,6 +21,9 @@ const ROWS_AT = (MAX_KERNEL_LAGS + 1) * 8;
 const STAGE_AT = 65_536;
 /** Rows the kernel's block (and its lags) and its staging area each hold. */
 const ROOM = (STAGE_AT - ROWS_AT) / 8;
+const WHOLE_AT = 2 * STAGE_AT;
+/** Doubles from WHOLE_AT to the end of the memory. */
+const WHOLE_ROOM = (16 * 65_536 - WHOLE_AT) / 8;
 
 export interface AutocovarianceKernel {
   /** Where a block's rows (and the `lags` rows after it) are put for `block`. */
@@ -31,6 +36,16 @@ export interface AutocovarianceKernel {
   readonly stage: Float64Array;
   /** rows[i] = 0 + w stage[i] (add false) or rows[i] + w stage[i], i < count (bandwidth.ts weightedRows). */
   weigh(count: number, w: number, add: boolean): void;
+  /**
+   * Room for `weightedSums` on k columns of n rows: the weights (k doubles) and the columns, for the
+   * caller to fill; null when they do not fit.
+   */
+  wholeColumns(k: number, n: number): { readonly weights: Float64Array; readonly columns: Float64Array[] } | null;
+  /**
+   * bandwidth.ts weightedAutocovarianceSums on the weights and columns placed by `wholeColumns`, in
+   * blocks of `blockRows` rows: sums[j] for j = 0..lags (the same bits as the blocks one at a time).
+   */
+  weightedSums(k: number, n: number, lags: number, blockRows: number): void;
 }
 
 let kernel: AutocovarianceKernel | null | undefined;
@@ -46,12 +61,20 @@ function instantiate(): AutocovarianceKernel | null {
   return kernelInstance(autocovarianceKernelWasm, (exports, memory) => {
     const run = exports.block as (f: number, begin: number, end: number, rows: number, lags: number, sums: number) => void;
     const weigh = exports.weigh as (f: number, g: number, count: number, w: number, add: number) => void;
+    const weightedSums = exports.weightedSums as (at: number, k: number, n: number, lags: number, blockRows: number, sums: number) => void;
     return {
       rows: new Float64Array(memory.buffer, ROWS_AT, ROOM),
       stage: new Float64Array(memory.buffer, STAGE_AT, ROOM),
       sums: new Float64Array(memory.buffer, SUMS_AT, MAX_KERNEL_LAGS + 1),
       block: (begin, end, rowCount, lags) => run(ROWS_AT, begin, end, rowCount, lags, SUMS_AT),
       weigh: (count, w, add) => weigh(ROWS_AT, STAGE_AT, count, w, add ? 1 : 0),
+      wholeColumns: (k, n) => {
+        // The weights, the columns, then the series they form and 8 doubles of room after it.
+        if (k + (k + 1) * n + 8 > WHOLE_ROOM) return null;
+        const columns = Array.from({ length: k }, (_, a) => new Float64Array(memory.buffer, WHOLE_AT + 8 * (k + a * n), n));
+        return { weights: new Float64Array(memory.buffer, WHOLE_AT, k), columns };
+      },
+      weightedSums: (k, n, lags, blockRows) => weightedSums(WHOLE_AT, k, n, lags, blockRows, SUMS_AT),
     };
   });
 }

@@ -4,10 +4,10 @@
 ;; every sum is the same bits as the JavaScript pass; a lane past `lags` reads bytes after the block
 ;; (the caller leaves 8 doubles of room) and is never stored.
 ;;
-;; Memory: two pages, laid out by autocovarianceKernel.ts: the sums, then the block's rows; the second page
-;; stages a column's rows for `weigh`.
+;; Memory: sixteen pages, laid out by autocovarianceKernel.ts: the sums, then the block's rows; the second
+;; page stages a column's rows for `weigh`; from the third, `weightedSums`'s weights, columns and series.
 (module
-  (memory (export "memory") 2 2)
+  (memory (export "memory") 16 16)
 
   ;; s + f[u] f[u + lag] for u in [from, to), in order of u (s when the range is empty).
   (func $tail (param $f i32) (param $from i32) (param $to i32) (param $lag i32) (param $s f64) (result f64)
@@ -41,7 +41,7 @@
 
   ;; sums[j] += sum of f[u] f[u + j] over u in [begin, min(end, rows - j)), j = 0..lags; f and sums are
   ;; byte addresses of doubles.
-  (func (export "block") (param $f i32) (param $begin i32) (param $end i32) (param $rows i32) (param $lags i32)
+  (func $block (export "block") (param $f i32) (param $begin i32) (param $end i32) (param $rows i32) (param $lags i32)
     (param $sums i32)
     (local $j i32) (local $last i32) (local $from i32) (local $p i32) (local $q i32) (local $stop i32)
     (local $x v128) (local $a0 v128) (local $a1 v128) (local $a2 v128) (local $a3 v128)
@@ -89,9 +89,49 @@
           (i32.add (local.get $j) (i32.const 7)) (f64x2.extract_lane 1 (local.get $a3)))
         (local.set $j (i32.add (local.get $j) (i32.const 8)))
         (br $group))))
+  ;; bandwidth.ts weightedAutocovarianceSums in one call: the k weights at $at, then the k columns of n
+  ;; rows each, then room for f = sum_a w_a column_a (n doubles and 8 more). f is formed whole, each row
+  ;; as weigh forms it (the first column with a nonzero weight as 0 + w x, the others added in order;
+  ;; zeros if every weight is 0), then its sums over blocks of `blockRows` rows, each block's as `block`
+  ;; gives them (the same rows in the same order: the same bits as a block formed and summed at a time).
+  (func (export "weightedSums") (param $at i32) (param $k i32) (param $n i32) (param $lags i32) (param $blockRows i32)
+    (param $sums i32)
+    (local $a i32) (local $w f64) (local $column i32) (local $f i32) (local $p i32) (local $q i32) (local $stop i32)
+    (local $started i32) (local $start i32) (local $j i32)
+    (local.set $column (i32.add (local.get $at) (i32.shl (local.get $k) (i32.const 3))))
+    (local.set $f (i32.add (local.get $column) (i32.shl (i32.mul (local.get $k) (local.get $n)) (i32.const 3))))
+    (local.set $stop (i32.add (local.get $f) (i32.shl (local.get $n) (i32.const 3))))
+    (block $formed
+      (loop $next
+        (br_if $formed (i32.ge_s (local.get $a) (local.get $k)))
+        (local.set $w (f64.load (i32.add (local.get $at) (i32.shl (local.get $a) (i32.const 3)))))
+        (if (f64.ne (local.get $w) (f64.const 0))
+          (then
+            (call $weighRows (local.get $f) (local.get $column) (local.get $n) (local.get $w) (local.get $started))
+            (local.set $started (i32.const 1))))
+        (local.set $column (i32.add (local.get $column) (i32.shl (local.get $n) (i32.const 3))))
+        (local.set $a (i32.add (local.get $a) (i32.const 1)))
+        (br $next)))
+    (if (i32.eqz (local.get $started))
+      (then (memory.fill (local.get $f) (i32.const 0) (i32.shl (local.get $n) (i32.const 3)))))
+    (loop $zero
+      (if (i32.le_s (local.get $j) (local.get $lags))
+        (then
+          (f64.store (i32.add (local.get $sums) (i32.shl (local.get $j) (i32.const 3))) (f64.const 0))
+          (local.set $j (i32.add (local.get $j) (i32.const 1)))
+          (br $zero))))
+    (block $done
+      (loop $each
+        (br_if $done (i32.ge_s (local.get $start) (local.get $n)))
+        (call $block (i32.add (local.get $f) (i32.shl (local.get $start) (i32.const 3))) (i32.const 0)
+          (i32.sub (call $min (local.get $n) (i32.add (local.get $start) (local.get $blockRows))) (local.get $start))
+          (i32.sub (local.get $n) (local.get $start)) (local.get $lags) (local.get $sums))
+        (local.set $start (i32.add (local.get $start) (local.get $blockRows)))
+        (br $each))))
+
   ;; bandwidth.ts weightedRows on `count` rows: f[i] = 0 + w g[i] (the first column) or f[i] + w g[i]
   ;; (the others), with g the column's rows staged by the caller; f and g are byte addresses of doubles.
-  (func (export "weigh") (param $f i32) (param $g i32) (param $count i32) (param $w f64) (param $add i32)
+  (func $weighRows (export "weigh") (param $f i32) (param $g i32) (param $count i32) (param $w f64) (param $add i32)
     (local $stop i32)
     (local.set $stop (i32.add (local.get $f) (i32.shl (local.get $count) (i32.const 3))))
     (block $done

@@ -90,6 +90,13 @@ export function weightedAutocovarianceSums(
 ): Float64Array {
   const n = columns[0]!.length;
   const kernel = useKernel ? autocovarianceKernel(lags, BLOCK_ROWS) : null;
+  const whole = kernel?.wholeColumns(columns.length, n) ?? null;
+  if (kernel !== null && whole !== null) {
+    whole.weights.set(columnWeights.slice(0, columns.length));
+    columns.forEach((column, a) => whole.columns[a]!.set(column));
+    kernel.weightedSums(columns.length, n, lags, BLOCK_ROWS);
+    return kernel.sums.slice(0, lags + 1);
+  }
   const sums = kernel === null ? new Float64Array(lags + 1) : kernel.sums.fill(0, 0, lags + 1);
   const buffer = kernel === null ? new Float64Array(Math.min(n, BLOCK_ROWS + lags)) : kernel.rows;
   for (let start = 0; start < n; start += BLOCK_ROWS) {

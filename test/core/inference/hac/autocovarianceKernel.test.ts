@@ -74,6 +74,21 @@ describe("the pre-lag autocovariances' WebAssembly kernel", () => {
     );
   });
 
+  it("gives the same bits with columns filling its memory to the last double, and longer ones (a block at a time)", () => {
+    // k weights, k columns, the series and 8 doubles of room: 3 + 4 x 28,669 + 8 doubles fill the 114,688
+    // from the third page to the end; one more row does not fit.
+    for (const [n, k] of [
+      [28_669, 3],
+      [28_670, 3],
+      [40_000, 2],
+      [20_000, 6],
+    ] as const) {
+      const columns = Array.from({ length: k }, (_, a) => series(n, 40 + a, a));
+      const weights = columns.map((_, a) => (a === 1 ? 0 : 0.25 * (a + 1)));
+      sameBits(weightedAutocovarianceSums(columns, weights, 37), weightedAutocovarianceSums(columns, weights, 37, false));
+    }
+  });
+
   it("leaves nothing behind between calls (a long series, then a short one with fewer lags)", () => {
     const long = series(3 * BLOCK_ROWS + 5, 11);
     sameBits(autocovarianceSums(long, 60), definition(long, 60));
