@@ -21,6 +21,8 @@ const runs = [
   ["solve", ...daily, "--format", "json", "--no-uncertainty"],
   ["solve", fullPrecision, "--low", "low", "--high", "high", "--format", "json", "--no-uncertainty"],
   ["solve", portfolios, "--low", "P1", "--high", "P4", "--portfolios", "P1,P2,P3,P4", "--format", "json"],
+  // A batch: the file read once for its pairs (input/readBatch.ts) and JSON Lines.
+  ["solve", portfolios, "--lows", "P1,P2", "--highs", "P3,P4", "--format", "jsonl"],
 ];
 const day = 86_400_000;
 const fullPrecisionText = [
