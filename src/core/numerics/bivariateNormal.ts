@@ -53,7 +53,7 @@ export function bivariateNormalUpper(h: number, k: number, r: number): number {
     const hs = (h * h + k * k) / 2;
     const asr = Math.asin(r);
     for (let i = 0; i < nodes.length; i++) {
-      for (const sign of [-1, 1]) {
+      for (let sign = -1; sign <= 1; sign += 2) {
         const sn = Math.sin((asr * (sign * nodes[i]! + 1)) / 2);
         total += weights[i]! * Math.exp((sn * hk - hs) / (1 - sn * sn));
       }
@@ -78,7 +78,7 @@ export function bivariateNormalUpper(h: number, k: number, r: number): number {
   }
   a /= 2;
   for (let i = 0; i < nodes.length; i++) {
-    for (const sign of [-1, 1]) {
+    for (let sign = -1; sign <= 1; sign += 2) {
       const xs = (a * (sign * nodes[i]! + 1)) ** 2;
       const rs = Math.sqrt(1 - xs);
       asr = -(bs / xs + hk) / 2;
