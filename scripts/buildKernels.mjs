@@ -26,11 +26,21 @@ export const kernels = [
 
 const source = (path) => new URL(`../src/${path}`, import.meta.url);
 
+/**
+ * The text of the kernel whose text is `wat`, with each line `;; include: NAME.wat ...` replaced by the
+ * text of NAME.wat beside it (a part of a long kernel kept in a file of its own: report/ryu.wat).
+ */
+export function kernelText(wat) {
+  const text = readFileSync(source(wat), "utf8");
+  const folder = wat.slice(0, wat.lastIndexOf("/") + 1);
+  return text.replace(/^ *;; include: ([\w.-]+\.wat)\b.*$/gm, (_, part) => readFileSync(source(folder + part), "utf8"));
+}
+
 /** The binary of the kernel whose text is `wat` (a path under src/), base64. */
 export async function assembleKernel(wat) {
   const wabt = await wabtInit();
   const name = wat.split("/").pop();
-  const module = wabt.parseWat(name, readFileSync(source(wat), "utf8"), { simd: true, bulk_memory: true });
+  const module = wabt.parseWat(name, kernelText(wat), { simd: true, bulk_memory: true });
   module.validate();
   const { buffer } = module.toBinary({});
   module.destroy();

@@ -14,12 +14,13 @@ interface Kernel {
 interface BuildScript {
   readonly kernels: readonly Kernel[];
   assembleKernel(wat: string): Promise<string>;
+  kernelText(wat: string): string;
   kernelModuleText(kernel: Kernel, base64: string): string;
 }
 
 describe("the WebAssembly kernels", async () => {
   const script = "../../scripts/buildKernels.mjs";
-  const { kernels, assembleKernel, kernelModuleText } = (await import(script)) as BuildScript;
+  const { kernels, assembleKernel, kernelModuleText, kernelText } = (await import(script)) as BuildScript;
 
   it("are the eight the code loads", () => {
     expect(kernels.map((k) => k.constant).sort()).toEqual([
@@ -32,6 +33,14 @@ describe("the WebAssembly kernels", async () => {
       "rowKernelWasm",
       "seriesKernelWasm",
     ]);
+  });
+
+  it("assemble a kernel's included parts in place of their include lines (csvRowsKernel.wat's Ryu, in ryu.wat)", () => {
+    const text = kernelText("report/csvRowsKernel.wat");
+    const part = readFileSync(new URL("../../src/report/ryu.wat", import.meta.url), "utf8");
+    expect(text).toContain(part);
+    expect(text).toContain("(func $shortest");
+    expect(text).not.toMatch(/^ *;; include:/m);
   });
 
   it.each(kernels.map((k) => [k.wat, k] as const))("%s: the committed module is its assembly", async (_, kernel) => {
