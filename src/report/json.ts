@@ -131,9 +131,9 @@ function firstUnsafe(value: unknown): { path: string; value: unknown } | null {
     }
     return null;
   }
-  const keys = Object.keys(value);
-  for (let i = 0; i < keys.length; i++) {
-    const key = keys[i]!;
+  // Own enumerable keys in Object.keys's order (as JSON.stringify visits them), without an array of them.
+  for (const key in value) {
+    if (!Object.hasOwn(value, key)) continue;
     const found = firstUnsafe((value as Record<string, unknown>)[key]);
     if (found !== null) return { path: `.${key}${found.path}`, value: found.value };
   }
