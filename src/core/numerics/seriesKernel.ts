@@ -48,6 +48,8 @@ export interface SeriesKernel extends KernelMemory {
   residuals(count: number, hasRates: boolean, rate: number): void;
   /** Column 0 minus `mean` in place. */
   centre(count: number, mean: number): void;
+  /** Column 0 minus its own mean (its plain sum in row order over count, left in state[0]) in place. */
+  centreOnMean(count: number): void;
   /** Column 2 = column 0 x column 1 (seriesLoops.ts productInto). */
   product(count: number): void;
   /** Column 2 = w column 0 + v column 1 (seriesLoops.ts blendInto). */
@@ -192,6 +194,7 @@ function seriesFunctions(f: Record<string, Exported>): Omit<SeriesKernel, keyof 
     largest: (count, hasRates, rate) => f.largest!(count, flag(hasRates), rate),
     residuals: (count, hasRates, rate) => f.residuals!(count, flag(hasRates), rate),
     centre: f.centre!,
+    centreOnMean: f.centreOnMean!,
     product: f.product!,
     blend: f.blend!,
     scaledExcess: (count, hasRates, rate, scale) => f.scaledExcess!(count, flag(hasRates), rate, scale),

@@ -173,7 +173,7 @@ describe("the uncertainty's passes in the series kernel", () => {
   });
 
   it("longRunCovarianceInPlace centres each column as column[t] - mean", () => {
-    for (const n of [2, 1500, KERNEL_ROWS + 3]) {
+    for (const n of [2, 1500, KERNEL_ROWS, KERNEL_ROWS + 3]) {
       const x = edgeSeries(n, 3);
       const y = edgeSeries(n, 4);
       // The plain sum in row order over n, as longRun.ts takes the mean.

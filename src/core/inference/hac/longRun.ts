@@ -49,8 +49,13 @@ export function longRunCovarianceInPlace(
   if (n < 2) throw new RangeError("longRunCovariance: needs at least 2 rows");
   const kernel = seriesKernel();
   columns.forEach((column, a) => {
-    let mean = sums?.[a] ?? plainSum(column);
-    mean /= n;
+    const sum = sums?.[a];
+    // A whole column in the kernel: its sum, mean and centring in one call (the same bits).
+    if (sum === undefined && kernel !== null && n <= KERNEL_ROWS) {
+      centreOnOwnMean(kernel, column);
+      return;
+    }
+    const mean = (sum ?? plainSum(column)) / n;
     if (kernel === null) for (let t = 0; t < n; t++) column[t] = column[t]! - mean;
     else centreInKernel(kernel, column, mean);
   });
@@ -73,6 +78,13 @@ export function longRunCovarianceInPlace(
 export function sampleCovarianceOf(columns: readonly Float64Array[]): Matrix {
   const cp = welfordCrossProducts(columns);
   return cp.sums.map((row) => row.map((value) => value / (cp.n - 1)));
+}
+
+/** column[t] - plainSum(column) / n for every row, in place, in one call of the kernel (n <= KERNEL_ROWS). */
+function centreOnOwnMean(kernel: SeriesKernel, column: Float64Array): void {
+  kernel.columns[0].set(column);
+  kernel.centreOnMean(column.length);
+  column.set(kernel.columns[0].subarray(0, column.length));
 }
 
 /** column[t] - mean for every row, in place, in the WebAssembly kernel (the same bits as the loop above). */
