@@ -16,8 +16,11 @@ export class SharpeMemo {
   private readonly ids = new WeakMap<object, number>();
   private readonly results = new Map<string, SharpeStdErrors>();
   private arrays = 0;
-  /** Ratios computed (misses), for the tests. */
-  computed = 0;
+
+  /** Ratios computed so far (one a key: every miss stores its own). */
+  get computed(): number {
+    return this.results.size;
+  }
 
   /**
    * The Sharpe ratio of the excess series of `book` over `riskFree` times `scale` under `hac`:
@@ -36,7 +39,6 @@ export class SharpeMemo {
     const known = this.results.get(key);
     if (known !== undefined) return known;
     const result = compute();
-    this.computed++;
     this.results.set(key, result);
     return result;
   }

@@ -75,11 +75,12 @@ describe("the pre-lag autocovariances' WebAssembly kernel", () => {
   });
 
   it("gives the same bits with columns filling its memory to the last double, and longer ones (a block at a time)", () => {
-    // k weights, k columns, the series and 8 doubles of room: 3 + 4 x 28,669 + 8 doubles fill the 114,688
-    // from the third page to the end; one more row does not fit.
+    // k weights, k columns, the series and 8 doubles of room: 2 + 3 x 38,226 + 8 doubles are exactly the
+    // 114,688 from the third page to the end; one more row does not fit.
     for (const [n, k] of [
+      [38_226, 2],
+      [38_227, 2],
       [28_669, 3],
-      [28_670, 3],
       [40_000, 2],
       [20_000, 6],
     ] as const) {
