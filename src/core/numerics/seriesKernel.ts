@@ -48,7 +48,7 @@ export interface SeriesKernel extends KernelMemory {
   residuals(count: number, hasRates: boolean, rate: number): void;
   /** Column 0 minus `mean` in place. */
   centre(count: number, mean: number): void;
-  /** Column 0 minus its own mean (its plain sum in row order over count, left in state[0]) in place. */
+  /** Column 0 minus its own mean (its plain sum in row order over count) in place. */
   centreOnMean(count: number): void;
   /** Column 2 = column 0 x column 1 (seriesLoops.ts productInto). */
   product(count: number): void;

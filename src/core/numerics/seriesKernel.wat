@@ -251,10 +251,9 @@
         (br $row))))
 
   ;; longRun.ts's centring of a whole column of `count` rows (column 0) on its own mean: the plain sum
-  ;; in row order from 0 (seriesLoops.ts plainSum) over count, into state[0], then each row minus it,
-  ;; in place.
+  ;; in row order from 0 (seriesLoops.ts plainSum) over count, then each row minus it, in place.
   (func (export "centreOnMean") (param $count i32)
-    (local $p i32) (local $stop i32) (local $sum f64) (local $mean f64)
+    (local $p i32) (local $stop i32) (local $sum f64)
     (local.set $stop (i32.shl (local.get $count) (i32.const 3)))
     (block $summed
       (loop $row
@@ -262,9 +261,7 @@
         (local.set $sum (f64.add (local.get $sum) (f64.load offset=512 (local.get $p))))
         (local.set $p (i32.add (local.get $p) (i32.const 8)))
         (br $row)))
-    (local.set $mean (f64.div (local.get $sum) (f64.convert_i32_s (local.get $count))))
-    (f64.store (i32.const 0) (local.get $mean))
-    (call $centre (local.get $count) (local.get $mean)))
+    (call $centre (local.get $count) (f64.div (local.get $sum) (f64.convert_i32_s (local.get $count)))))
 
   ;; seriesLoops.ts productChunk: column 2 = column 0 x column 1 over `count` rows.
   (func (export "product") (param $count i32)
