@@ -1,9 +1,9 @@
 /** Writes a command's output to standard output, or atomically to `--output`, and says how it went. */
 import { type CliIssue, describeCliIssue } from "./messages.js";
 import { exitCodes, type ExitCode } from "./runtime/exitCodes.js";
-import { type CliIo, writeOutput } from "./runtime/io.js";
+import { type CliIo, type OutputText, writeOutput } from "./runtime/io.js";
 
-export async function emit(io: CliIo, output: string | undefined, text: string): Promise<ExitCode> {
+export async function emit(io: CliIo, output: string | undefined, text: OutputText): Promise<ExitCode> {
   const written = await writeOutput(io, output, text);
   return written.ok ? exitCodes.ok : outputFailed(io, written.issues);
 }

@@ -47,7 +47,17 @@ export function renderJsonLines(records: readonly SolveRecord[]): string {
 
 /** JSON Lines of documents already made and checked (as the solve job's are): one line each. */
 export function renderDocumentLines(documents: readonly (SolveOutputJson | SolveFailureJson)[]): string {
-  return documents.map((document) => `${JSON.stringify(document)}\n`).join("");
+  return documentLinePieces(documents).join("");
+}
+
+/**
+ * The same JSON Lines as pieces to write in order (each document's line, then its line feed), for an
+ * output that takes pieces: a batch's lines are never joined into one string of megabytes.
+ */
+export function documentLinePieces(documents: readonly (SolveOutputJson | SolveFailureJson)[]): string[] {
+  const pieces: string[] = [];
+  for (const document of documents) pieces.push(JSON.stringify(document), "\n");
+  return pieces;
 }
 
 /** One CSV table: `source,lowColumn,highColumn` then the candidate columns; failed pairs have no rows. */

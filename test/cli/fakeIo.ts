@@ -28,7 +28,7 @@ export function fakeIo(
       // Bytes are copied as they come: a writer may reuse its buffer once a write resolves.
       const chunks: Buffer[] = [];
       return success({
-        write: async (text) => void chunks.push(Buffer.from(text)),
+        write: async (text) => void chunks.push(Buffer.from(typeof text === "string" || text instanceof Uint8Array ? text : text.join(""))),
         commit: async () => {
           const whole = Buffer.concat(chunks).toString("utf8");
           if (path === undefined) out.push(whole);

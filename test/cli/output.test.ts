@@ -34,7 +34,7 @@ function failingDisk(budget: number, code: string): FileOps {
   };
 }
 
-async function writeAll(path: string, pieces: readonly (string | Uint8Array)[], ops: FileOps = fs) {
+async function writeAll(path: string, pieces: readonly (string | readonly string[] | Uint8Array)[], ops: FileOps = fs) {
   const opened = openOutput(path, noStdout, ops);
   if (!opened.ok) throw new Error("open failed");
   for (const piece of pieces) await opened.value.write(piece);
@@ -59,12 +59,40 @@ describe("a regular file", () => {
 
   it("writes a long text as its UTF-8 bytes (Buffer.from's), however its characters fall across the pieces it is encoded in", async () => {
     const { path } = folderWith(null);
-    // Pieces of 1 MiB: two-, three- and four-byte characters (a surrogate pair) and a lone surrogate
+    // Pieces of 256 KiB: two-, three- and four-byte characters (a surrogate pair) and a lone surrogate
     // (written as U+FFFD, as Buffer.from does) at every offset around the pieces' ends.
     const unit = "a\u00e9\u20ac\ud83d\ude00\ud800z";
-    const text = `${"x".repeat((1 << 20) - 5)}${unit.repeat(400_000)}`;
+    const text = `${"x".repeat((1 << 18) - 5)}${unit.repeat(400_000)}`;
     expect((await writeAll(path, [text, "end\n"])).ok).toBe(true);
     expect(fs.readFileSync(path).equals(Buffer.concat([Buffer.from(text), Buffer.from("end\n")]))).toBe(true);
+  });
+
+  it("writes text in pieces as each piece's UTF-8 bytes in order, pieces and characters across the buffer's ends", async () => {
+    const { path } = folderWith("previous\n");
+    const unit = "a\u00e9\u20ac\ud83d\ude00\ud800z";
+    // Many short pieces that fill the reused buffer (256 KiB) unevenly, empty ones, a piece longer than
+    // the buffer, and a surrogate pair split across two pieces (each half alone is a lone surrogate,
+    // written as U+FFFD, as Buffer.from writes each piece).
+    const pieces = [
+      ...Array.from({ length: 30_000 }, (_, i) => (i % 7 === 0 ? "" : unit.repeat(i % 5) + String(i))),
+      "y".repeat(700_000),
+      "\ud83d",
+      "\ude00",
+      ...Array.from({ length: 1000 }, (_, i) => `${"z".repeat(i)}\n`),
+    ];
+    expect((await writeAll(path, [pieces, "end\n"])).ok).toBe(true);
+    const expected = Buffer.concat([...pieces, "end\n"].map((piece) => Buffer.from(piece)));
+    expect(fs.readFileSync(path).equals(expected)).toBe(true);
+    expect(expected.length).toBeGreaterThan(4 << 18);
+  });
+
+  it("fails on ENOSPC in the middle of pieces with the previous file intact", async () => {
+    const { dir, path } = folderWith("previous\n");
+    const pieces = Array.from({ length: 5000 }, (_, i) => `${i},${"x".repeat(100)}\n`);
+    const committed = await writeAll(path, [pieces], failingDisk(300_000, "ENOSPC"));
+    expect(committed.ok).toBe(false);
+    expect(fs.readFileSync(path, "utf8")).toBe("previous\n");
+    expect(fs.readdirSync(dir)).toEqual(["out.csv"]);
   });
 
   it("is untouched until commit: the output goes to a temporary file beside it", async () => {
@@ -241,6 +269,15 @@ describe("standard output", () => {
     await pending;
     expect(second).toBe(true);
     expect(written).toEqual(["first", "second"]);
+  });
+
+  it("takes text in pieces as their concatenation", async () => {
+    const written: string[] = [];
+    const stream: OutputStream = { write: (chunk) => written.push(String(chunk)) > 0, once: () => undefined };
+    const opened = openOutput(undefined, stream);
+    if (!opened.ok) throw new Error("open failed");
+    await opened.value.write(['{"a":1}', "\n", '{"b":\u00e9}', "\n"]);
+    expect(written.join("")).toBe('{"a":1}\n{"b":\u00e9}\n');
   });
 
   it("copies bytes handed to it, so the caller may reuse its buffer once a write resolves", async () => {

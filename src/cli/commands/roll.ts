@@ -80,7 +80,8 @@ function leading(target: OutputTarget, lead: string): OutputTarget {
     ...target,
     write(text) {
       if (first === "") return target.write(text);
-      const whole = typeof text === "string" ? first + text : Buffer.concat([Buffer.from(first), text]);
+      const whole =
+        typeof text === "string" ? first + text : text instanceof Uint8Array ? Buffer.concat([Buffer.from(first), text]) : [first, ...text];
       first = "";
       return target.write(whole);
     },

@@ -7,7 +7,7 @@ import { availableParallelism } from "node:os";
 import { Command } from "commander";
 import { defaultThreads, type PairStatus, runShape, type SolvedPair, solveOptions, solvePlanned } from "../../jobs/index.js";
 import type { CommandOptionsInput, OptionIssue } from "../../options/index.js";
-import { renderDocumentLines, renderRecordsCsv, renderRecordsText } from "../../report/records.js";
+import { documentLinePieces, renderRecordsCsv, renderRecordsText } from "../../report/records.js";
 import { renderReport } from "../../report/render.js";
 import { renderSummaryCsv } from "../../report/summaryCsv.js";
 import { addTableOptions } from "../commandOptions.js";
@@ -17,7 +17,7 @@ import { jobContext } from "../jobContext.js";
 import { writeMessages } from "../jobMessages.js";
 import { describeCliIssue, describeOptionIssue } from "../messages.js";
 import { type ExitCode, exitCodes } from "../runtime/exitCodes.js";
-import type { CliIo } from "../runtime/io.js";
+import type { CliIo, OutputText } from "../runtime/io.js";
 import { outputClash } from "../outputPaths.js";
 import { writeCharts } from "./charts.js";
 
@@ -93,11 +93,11 @@ export async function runSolveJobs(
   const single = !several && first?.kind === "report" ? first.report : null;
   const colour = wantsColour(io, options.output, options.format);
   const brief = options.brief;
-  let text: string;
+  let text: OutputText;
   if (options.format === "summary-csv") text = renderSummaryCsv(pairs.map((p) => p.document));
   else if (single !== null && options.format !== "jsonl") text = renderReport(single, options.format, { colour, brief });
   // The job's documents are what renderJsonLines makes of the records, already checked: not made again.
-  else if (options.format === "jsonl") text = renderDocumentLines(pairs.map((p) => p.document));
+  else if (options.format === "jsonl") text = documentLinePieces(pairs.map((p) => p.document));
   else text = options.format === "csv" ? renderRecordsCsv(records) : renderRecordsText(records, { colour, brief });
 
   if (single !== null) {

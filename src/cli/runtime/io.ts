@@ -3,9 +3,9 @@ import type { Result } from "../../core/result.js";
 import type { PagedFile } from "../../jobs/index.js";
 import type { VegaLoader } from "../../report/charts/loadVega.js";
 import type { CliIssue } from "../messages.js";
-import type { OutputTarget } from "./output.js";
+import type { OutputTarget, OutputText } from "./output.js";
 
-export type { OutputTarget };
+export type { OutputTarget, OutputText };
 
 export interface CliIo {
   /** Standard output, for help and schema texts (command outputs go through `openOutput`). */
@@ -36,8 +36,8 @@ export interface CliIo {
   readonly loadVega: VegaLoader;
 }
 
-/** Writes `text` as the whole output at `path` (undefined: standard output). */
-export async function writeOutput(io: CliIo, path: string | undefined, text: string): Promise<Result<void, CliIssue>> {
+/** Writes `text` (or its pieces, in order) as the whole output at `path` (undefined: standard output). */
+export async function writeOutput(io: CliIo, path: string | undefined, text: OutputText): Promise<Result<void, CliIssue>> {
   const opened = io.openOutput(path);
   if (!opened.ok) return opened;
   await opened.value.write(text);

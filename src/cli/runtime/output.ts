@@ -18,13 +18,20 @@ import { basename, dirname, join, resolve } from "node:path";
 import { failure, type Result, success } from "../../core/result.js";
 import { type CliIssue, fileErrorReason } from "../messages.js";
 
+/**
+ * Text handed over whole, or as pieces written in order (each piece's UTF-8 bytes, as Buffer.from
+ * gives them: a surrogate pair split across two pieces is two replacement characters), so that a
+ * batch's records are never joined into one string of megabytes (fresh memory, a fault every 4 KiB).
+ */
+export type OutputText = string | readonly string[];
+
 /** Where a command's output goes, piece by piece. */
 export interface OutputTarget {
   /**
    * Appends `text` (or bytes, which the caller may reuse once this resolves: they are written or
    * copied by then). Resolves when the target can take more; a failure is kept for `commit`.
    */
-  write(text: string | Uint8Array): Promise<void>;
+  write(text: OutputText | Uint8Array): Promise<void>;
   /** Makes the output final (flush, fsync, rename): ok, or why not (the previous file is then intact). */
   commit(): Promise<Result<void, CliIssue>>;
   /** Drops what was written: the temporary file is removed, the target left as it was. */
@@ -93,7 +100,7 @@ function streamTarget(stdout: OutputStream): OutputTarget {
   return {
     // A stream may keep a chunk until it is flushed: bytes are copied, as their caller reuses them.
     write: (text) =>
-      stdout.write(typeof text === "string" ? text : Buffer.from(text))
+      stdout.write(typeof text === "string" ? text : text instanceof Uint8Array ? Buffer.from(text) : text.join(""))
         ? Promise.resolve()
         : new Promise<void>((done) => void stdout.once("drain", () => done())),
     commit: async () => success(undefined),
@@ -142,33 +149,42 @@ function writeAll(ops: FileOps, fd: number, bytes: Uint8Array): void {
   while (offset < bytes.length) offset += ops.writeSync(fd, bytes, offset, bytes.length - offset);
 }
 
-/** Text from this length on is written through one reused buffer, piece by piece (see writeText). */
+/** A single text shorter than this is encoded on its own; longer texts and pieces go through one reused buffer. */
 const longText = 1 << 16;
+/** The reused buffer: 256 KiB, so its pages (a fault each on first use) are few and stay in the cache. */
+const textBufferBytes = 1 << 18;
 let textBuffer: Uint8Array | null = null;
 const encoder = new TextEncoder();
 
 /**
- * Writes the UTF-8 bytes of `text`: a long text a piece at a time through one reused buffer of 1 MiB,
- * so that a report of megabytes is never encoded whole into fresh memory (its pages cost a fault each).
- * Returns the bytes written.
+ * Writes the UTF-8 bytes of `text`: a long text, or pieces, through one reused buffer (filled piece
+ * after piece and written when full), so that an output of megabytes is never encoded whole into fresh
+ * memory. Nothing is kept between calls. Returns the bytes written.
  */
-function writeText(ops: FileOps, fd: number, text: string): number {
-  if (text.length < longText) {
+function writeText(ops: FileOps, fd: number, text: OutputText): number {
+  if (typeof text === "string" && text.length < longText) {
     const bytes = Buffer.from(text);
     writeAll(ops, fd, bytes);
     return bytes.length;
   }
-  textBuffer ??= new Uint8Array(1 << 20);
-  let rest = text;
+  textBuffer ??= new Uint8Array(textBufferBytes);
+  let filled = 0;
   let total = 0;
-  while (rest.length > 0) {
-    // encodeInto stops before a character that does not fit whole, so pieces never split one.
-    const { read, written } = encoder.encodeInto(rest, textBuffer);
-    writeAll(ops, fd, textBuffer.subarray(0, written));
-    total += written;
-    rest = rest.slice(read);
+  for (const piece of typeof text === "string" ? [text] : text) {
+    let rest = piece;
+    while (rest.length > 0) {
+      // encodeInto stops before a character that does not fit whole, so pieces never split one.
+      const { read, written } = encoder.encodeInto(rest, textBuffer.subarray(filled));
+      filled += written;
+      if (read === rest.length) break;
+      writeAll(ops, fd, textBuffer.subarray(0, filled));
+      total += filled;
+      filled = 0;
+      rest = rest.slice(read);
+    }
   }
-  return total;
+  if (filled > 0) writeAll(ops, fd, textBuffer.subarray(0, filled));
+  return total + filled;
 }
 
 /** Writes that yield to the event loop now and then (signals), and remember the first failure. */
@@ -179,24 +195,26 @@ function checkedWriter(ops: FileOps, fd: number) {
     get failed() {
       return failed;
     },
-    async write(text: string | Uint8Array): Promise<void> {
-      if (failed !== null) return;
+    /** Writes `text` (bytes at once); resolves to the bytes written, 0 after a failure. */
+    async write(text: OutputText | Uint8Array): Promise<number> {
+      if (failed !== null) return 0;
       let length: number;
       try {
-        if (typeof text === "string") length = writeText(ops, fd, text);
+        if (!(text instanceof Uint8Array)) length = writeText(ops, fd, text);
         else {
           writeAll(ops, fd, text);
           length = text.length;
         }
       } catch (error) {
         failed = error;
-        return;
+        return 0;
       }
       sinceYield += length;
       if (sinceYield >= yieldEvery) {
         sinceYield = 0;
         await new Promise<void>((done) => setImmediate(done));
       }
+      return length;
     },
   };
 }
@@ -220,7 +238,7 @@ function directTarget(path: string, ops: FileOps): Result<OutputTarget, CliIssue
   const writer = checkedWriter(ops, fd);
   let open = true;
   return success({
-    write: (text) => writer.write(text),
+    write: async (text) => void (await writer.write(text)),
     async commit() {
       open = false;
       try {
@@ -271,9 +289,8 @@ function replacingTarget(path: string, target: string, ops: FileOps): Result<Out
   };
   const writer = checkedWriter(ops, fd);
   let done = false;
-  const write = async (text: string | Uint8Array): Promise<void> => {
-    await writer.write(text);
-    sinceFlush += text.length;
+  const write = async (text: OutputText | Uint8Array): Promise<void> => {
+    sinceFlush += await writer.write(text);
     if (sinceFlush < flushEvery || flushing !== null || writer.failed !== null || done) return;
     sinceFlush = 0;
     flushing = new Promise((settled) =>
