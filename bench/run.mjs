@@ -200,7 +200,8 @@ function checkSolve(kind, oursPath, peerPath, expectedPairs, tolerance) {
       failures.push(`pair ${p.low}/${p.high}: missing from our output`);
       continue;
     }
-    const result = compareDigest(doc, p.values, tolerance);
+    const paths = peer.pathSets[p.paths] ?? [];
+    const result = compareDigest(doc, Object.fromEntries(paths.map((path, i) => [path, p.values[i]])), tolerance);
     compared += result.compared;
     failures.push(...result.failures.map((f) => `${p.low}/${p.high} ${f}`));
     if (result.worst > worst || worstPath === null) {

@@ -3,7 +3,7 @@ stationary bootstrap (numpy) and the digest file.
 
 A job is {"job": "solve" | "roll", "file", "dateColumn", "pairs": [[low, high], ...], "rf": column or
 null, "weight", "uncertainty": bool, "bootstrap": replicates or 0, "seed", "window", "step", "out"}.
-`solve` writes {"engine", "pairs": [{"low", "high", "values": {json path: number}}]}; `roll` writes
+`solve` writes the pairs' numbers by JSON path (write_digest: each list of paths once); `roll` writes
 a CSV with start, end, observations and the 30 numbers of `roll --format csv` by the same names.
 """
 
@@ -34,9 +34,21 @@ def pair_digest(job, low, high, n, ml, mh, vl, vh, c, excess=None):
 
 
 def write_digest(job, engine, pairs):
+    """Writes {"engine", "pathSets": [[JSON path, ...], ...], "pairs": [{"low", "high", "paths": index of
+    the pair's path set, "values": [number or null, ...]}]}: each list of paths once, not once a pair
+    (a batch's pairs share them), so the file stays about the size of our own output."""
+    sets, index, packed = [], {}, []
+    for p in pairs:
+        paths = tuple(p["values"])
+        k = index.get(paths)
+        if k is None:
+            k = index[paths] = len(sets)
+            sets.append(list(paths))
+        packed.append({"low": p["low"], "high": p["high"], "paths": k, "values": list(p["values"].values())})
+    # json.dumps (one shot) runs the C encoder; json.dump to a file runs the pure-Python one, slower.
+    text = json.dumps({"engine": engine, "pathSets": sets, "pairs": packed})
     with open(job["out"], "w") as f:
-        json.dump({"engine": engine, "pairs": pairs}, f)
-        f.write("\n")
+        f.write(text + "\n")
 
 
 QUANTITIES = ["lowBetaMin", "lowBetaMax", "highBetaMin", "highBetaMax", "lowCapmBeta", "highCapmBeta", "lowCapmAlpha",

@@ -8,6 +8,9 @@ U = V_low / D_u, b_high(U) = C / D_u, b_high(Lb) = V_high / D_l, the factor vari
 landmark low betas (§25: equal noise is the Deming slope with ratio 1, §1.4; CAPM-consistent is the
 CAPM beta kept inside the set; return-implied is mean x / mean M when |mean M| > z sd(M) / sqrt(k), z the
 two-sided 95% normal critical value (Fieller's condition at the report's confidence), and 0 < b < 1/w, §26).
+For `solve`, the structure at each point of the candidate grid and at each landmark as well (§1.1, §1.6:
+the factor variance, both noise variances, the implied CAPM fits, expected alphas and Sharpe ratios), so
+that the peers compute and check every number of the report's grid and landmarks, as ours does.
 """
 
 import math
@@ -112,8 +115,9 @@ ROLL_COLUMNS = [
 ]  # fmt: skip
 
 
-def solve_digest(w, n, ml, mh, vl, vh, c):
-    """The numbers of `solve`'s JSON that the benchmark compares, by their JSON path, from scalars."""
+def solve_digest(w, n, ml, mh, vl, vh, c, steps=11):
+    """The numbers of `solve`'s JSON that the benchmark compares, by their JSON path, from scalars:
+    moments, bounds, both CAPM fits, and the structures of the candidate grid and the landmarks."""
     col = columns(NumpyOps(), w, n, ml, mh, vl, vh, c)
     mm = col["marketMean"]
     vm = col["marketVariance"]
@@ -140,4 +144,74 @@ def solve_digest(w, n, ml, mh, vl, vh, c):
         for field, key in (("alpha", "Alpha"), ("beta", "Beta"), ("alphaStdErr", "AlphaStdErr"), ("betaStdErr", "BetaStdErr"),
                            ("rSquared", "RSquared"), ("residualVariance", "ResidualVariance")):  # fmt: skip
             out[f"capm.{book}.{field}"] = col[book + key]
-    return {k: float(v) for k, v in out.items()}
+    if c > 0:
+        out.update(structures_digest(w, ml, mm, vl, vh, c, col, steps))
+    return {k: None if v is None else float(v) for k, v in out.items()}
+
+
+def structure_at(w, mm, vl, vh, c, capm_low_beta, bl, bh):
+    """The structures at low structural betas bl with high betas bh (numpy arrays; docs/methods.md §1.1,
+    §1.6): the 16 numbers of a grid point or landmark in `solve`'s JSON, by name, as arrays (NaN where
+    the report has null). Noise variances within 1e-12 of their book's variance of zero are 0
+    (rounding at the set's ends, as the report says)."""
+    import numpy as np
+
+    v = 1 - w
+    phi = c / (bl * bh)
+    sl = vl - bl * c / bh
+    sh = vh - bh * c / bl
+    sl = np.where(np.abs(sl) <= 1e-12 * vl, 0.0, sl)
+    sh = np.where(np.abs(sh) <= 1e-12 * vh, 0.0, sh)
+    market_var = phi + w * w * sl + v * v * sh
+    det = bl * bl * phi * sh + bh * bh * phi * sl + sl * sh
+    alpha = (bl - capm_low_beta) * mm
+    low_var, high_var = bl * bl * phi + sl, bh * bh * phi + sh
+    with np.errstate(invalid="ignore", divide="ignore"):
+        return {
+            "lowBeta": bl,
+            "highBeta": bh,
+            "factorVariance": phi,
+            "lowNoiseVariance": sl,
+            "highNoiseVariance": sh,
+            "noiseShare": np.where(sl + sh > 0, sl / (sl + sh), np.nan),
+            "lowFactorRSquared": bl * bl * phi / vl,
+            "highFactorRSquared": bh * bh * phi / vh,
+            "impliedCapm.lowBeta": (bl * phi + w * sl) / market_var,
+            "impliedCapm.highBeta": (bh * phi + v * sh) / market_var,
+            "impliedCapm.lowResidualVariance": v * v * det / market_var,
+            "impliedCapm.highResidualVariance": w * w * det / market_var,
+            "expectedLowAlpha": alpha,
+            "expectedHighAlpha": -w * alpha / v,
+            "impliedLowSharpe": np.where(low_var > 0, bl * mm / np.sqrt(low_var), np.nan),
+            "impliedHighSharpe": np.where(high_var > 0, bh * mm / np.sqrt(high_var), np.nan),
+        }
+
+
+def structures_digest(w, ml, mm, vl, vh, c, col, steps):
+    """The candidate grid (`steps` low betas evenly spaced over the set, both ends exact, the high beta
+    interpolated between its end values) and the landmarks' structures, by JSON path, in one pass over
+    the points' arrays."""
+    import numpy as np
+
+    v = 1 - w
+    capm = (w * vl + v * c) / (w * w * vl + 2 * w * v * c + v * v * vh)
+    lo, hi = float(col["lowBetaMin"]), float(col["lowBetaMax"])
+    high_lo, high_hi = float(col["highBetaMin"]), float(col["highBetaMax"])
+    fraction = np.arange(steps) / (steps - 1)
+    grid_low, grid_high = lo + (hi - lo) * fraction, high_hi + (high_lo - high_hi) * fraction
+    grid_low[-1], grid_high[-1] = hi, high_lo
+    points = [f"grid.{k}" for k in range(steps)]
+    equal, consistent = float(col["equalNoiseLowBeta"]), min(max(capm, lo), hi)
+    landmarks = {"lowNoiseFree": (hi, high_lo), "highNoiseFree": (lo, high_hi), "equalNoise": (equal, (1 - w * equal) / v),
+                 "capmConsistent": (consistent, (1 - w * consistent) / v)}  # fmt: skip
+    implied = float(col["returnImpliedLowBeta"])
+    if not math.isnan(implied):
+        landmarks["returnImplied"] = (implied, (1 - w * implied) / v)
+    points += [f"landmarks.{name}" for name in landmarks]
+    low = np.concatenate([grid_low, [b for b, _ in landmarks.values()]])
+    high = np.concatenate([grid_high, [b for _, b in landmarks.values()]])
+    out = {}
+    for name, values in structure_at(w, mm, vl, vh, c, capm, low, high).items():
+        for at, value in zip(points, values.tolist()):
+            out[f"{at}.{name}"] = None if value != value else value
+    return out
