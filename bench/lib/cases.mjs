@@ -167,6 +167,11 @@ export function buildCases() {
       job: { job: "solve", pairs: [["low", "high"]], rf: "rf", uncertainty: true },
     });
   }
-  for (const c of cases) c.job = { weight, dateColumn: c.data === "minutes10m" ? "time" : "date", step: 1, ...c.job };
+  // periodsPerYear: what our frequency detection finds in the data's dates (the peers read no dates):
+  // business days 252, minute stamps none (nothing annualised; docs/methods.md §24).
+  for (const c of cases) {
+    const minutes = c.data === "minutes10m";
+    c.job = { weight, dateColumn: minutes ? "time" : "date", step: 1, periodsPerYear: minutes ? null : 252, ...c.job };
+  }
   return cases;
 }

@@ -16,6 +16,7 @@ import numpy as np
 
 from formulas import solve_digest
 from inference import uncertainty_digest
+from pricing import pricing_digest
 
 
 def read_job():
@@ -28,6 +29,8 @@ def pair_digest(job, low, high, n, ml, mh, vl, vh, c, excess=None):
     if job.get("uncertainty"):
         x, y = excess()
         values.update(uncertainty_digest(x, y, job["weight"]))
+        alpha_ses = values["capm.low.hac.alphaStdErr"], values["capm.high.hac.alphaStdErr"]
+        values.update(pricing_digest(x, y, job["weight"], *alpha_ses, job["periodsPerYear"]))
         if job.get("bootstrap"):
             values.update(bootstrap_digest(x, y, job["weight"], job["bootstrap"], job.get("seed", 1)))
     return {"low": low, "high": high, "values": values}
