@@ -2,9 +2,10 @@
  * Elementwise passes over long series, taken in chunks of rows by small functions that V8 optimises
  * as a whole after a few calls: one long loop inside a larger function runs in on-stack-replaced
  * code on Node 20, which boxes its doubles and is several times slower (see moments.ts).
- * The arithmetic is that of the plain loop, row by row: the results are the same bits. Series of up to
- * KERNEL_ROWS rows go through the WebAssembly kernel instead where it has the pass (seriesKernel.ts): V8
- * would interpret the loop on so few rows.
+ * The arithmetic is that of the plain loop, row by row: the results are the same bits. Where the
+ * WebAssembly kernel has the pass (seriesKernel.ts: product, blend), series go through it instead,
+ * chunk by chunk at every length: V8 would interpret the loop on short series, and at 100,000 rows it
+ * still runs much of it before optimising (1M rows: the same time either way).
  *
  * A value that is either a number parameter or an array's element (`rates === null ? rate : rates[t]`)
  * is a phi of a tagged value and a double to the optimiser, which then boxes the element into a new
@@ -12,7 +13,7 @@
  * parameter as `+rate` first (the same number) makes the phi a double: no allocation, and 2.4 times
  * faster in isolation. The chunk functions with a risk-free rate or series do so (`fixedRate`).
  */
-import { inChunks, KERNEL_ROWS, seriesKernel } from "./seriesKernel.js";
+import { inChunks, seriesKernel } from "./seriesKernel.js";
 
 /**
  * Rows per call of a chunked pass (these and every other one in the core): small enough for V8 to
@@ -37,7 +38,7 @@ function sumChunk(a: ArrayLike<number>, from: number, to: number, total: Float64
 /** out[t] = a[t] * b[t]. */
 export function productInto(out: Float64Array, a: ArrayLike<number>, b: ArrayLike<number>, useKernel = true): Float64Array {
   const n = out.length;
-  const kernel = useKernel && n <= KERNEL_ROWS ? seriesKernel() : null;
+  const kernel = useKernel ? seriesKernel() : null;
   if (kernel !== null) {
     inChunks(kernel, { x: a, y: b, rates: null }, (from, count) => {
       kernel.product(count);
@@ -74,7 +75,7 @@ export function blendInto(
   useKernel = true,
 ): Float64Array {
   const n = out.length;
-  const kernel = useKernel && n <= KERNEL_ROWS ? seriesKernel() : null;
+  const kernel = useKernel ? seriesKernel() : null;
   if (kernel !== null) {
     inChunks(kernel, { x: a, y: b, rates: null }, (from, count) => {
       kernel.blend(count, w, v);

@@ -21,7 +21,7 @@ import type { HacOptions, LongRunMethod } from "../inference/options.js";
 import { excessCrossProducts } from "../moments.js";
 import { normalQuantile } from "../numerics/normal.js";
 import { CHUNK } from "../numerics/seriesLoops.js";
-import { type InfluenceKernel, inChunks, influenceKernel, KERNEL_ROWS, PRICING_ROWS } from "../numerics/seriesKernel.js";
+import { type InfluenceKernel, inChunks, influenceKernel, PRICING_ROWS } from "../numerics/seriesKernel.js";
 import { borrowSeries, giveBack, withScratch } from "../numerics/scratch.js";
 import type { SolvedMoments } from "../solve.js";
 import type { ReturnSample } from "../types.js";
@@ -216,8 +216,8 @@ export interface InfluenceTerms {
 /**
  * The six influence series of mu_x, lambda, d1, d2 and the two ends, row by row, in chunks by a
  * small function with the terms in locals, which V8 optimises as a whole (numerics/seriesLoops.ts);
- * series of up to KERNEL_ROWS rows in the WebAssembly kernel (numerics/seriesKernel.ts, the same bits),
- * unless `useKernel` is false. Exported for the kernel's tests.
+ * in the WebAssembly kernel instead (numerics/seriesKernel.ts, the same bits), chunk by chunk at every
+ * length, unless `useKernel` is false. Exported for the kernel's tests.
  */
 export function fillInfluenceSeries(
   series: Six,
@@ -228,7 +228,7 @@ export function fillInfluenceSeries(
   useKernel = true,
 ): void {
   const n = low.length;
-  const kernel = useKernel && n <= KERNEL_ROWS ? influenceKernel() : null;
+  const kernel = useKernel ? influenceKernel() : null;
   if (kernel !== null) influenceInKernel(kernel, series, low, high, riskFree, terms);
   else for (let from = 0; from < n; from += CHUNK) influenceChunk(series, low, high, riskFree, terms, from, Math.min(n, from + CHUNK));
 }

@@ -2,7 +2,8 @@
  * The uncertainty's passes in the series kernel (src/core/numerics/seriesKernel.ts) against their
  * JavaScript twins (`useKernel = false`) or, where a pass has no switch, against its definition written
  * out here: bit for bit (`Object.is`), with non-finite and extreme values, at lengths around the
- * kernel's chunks (KERNEL_ROWS, PRICING_ROWS) and the JavaScript chunks (1,024 rows).
+ * kernel's chunks (KERNEL_ROWS, PRICING_ROWS) and the JavaScript chunks (1,024 rows), and beyond
+ * KERNEL_ROWS (the elementwise passes go through the kernel chunk by chunk at every length).
  */
 import { describe, expect, it } from "vitest";
 import { edgeSeries, expectSameBits } from "../../support/kernelTwins.js";
@@ -18,7 +19,7 @@ import { blendInto, productInto } from "../../../src/core/numerics/seriesLoops.j
 import { fillInfluenceSeries, type InfluenceTerms, type Six } from "../../../src/core/pricing/assessPricing.js";
 import { excessResidualSums } from "../../../src/core/regression.js";
 
-const LENGTHS = [1, 2, 3, 1023, 1025, 2520, PRICING_ROWS + 1, KERNEL_ROWS];
+const LENGTHS = [1, 2, 3, 1023, 1025, 2520, PRICING_ROWS + 1, KERNEL_ROWS, 2 * KERNEL_ROWS + 17];
 
 /** Each length with plain data, then shorter runs with edge values (seed picks which and where). */
 function* cases(): Generator<{ label: string; x: Float64Array; y: Float64Array; rates: Float64Array }> {

@@ -14,7 +14,7 @@
 
 import { largestValues } from "../../cancellation.js";
 import { CHUNK } from "../../numerics/seriesLoops.js";
-import { inChunks, KERNEL_ROWS, seriesKernel } from "../../numerics/seriesKernel.js";
+import { inChunks, seriesKernel } from "../../numerics/seriesKernel.js";
 import { scaleFor } from "../../scaling.js";
 import { bootstrapQuantities, quantityCount, writeStatistics } from "./statistics.js";
 import { drawBlocks, replicateRandom, validateBlockLength } from "./stationaryBootstrap.js";
@@ -98,9 +98,9 @@ export function excessReturnsScaledBy(
   const high = allocate(n);
   const rates = typeof rf === "number" ? null : rf;
   const rate = typeof rf === "number" ? rf : 0;
-  const kernel = n <= KERNEL_ROWS ? seriesKernel() : null;
+  const kernel = seriesKernel();
   if (kernel !== null) {
-    // Short series in the WebAssembly kernel (numerics/seriesKernel.ts: the same bits).
+    // In the WebAssembly kernel chunk by chunk at every length (numerics/seriesKernel.ts: the same bits).
     inChunks(kernel, { x: data.low, y: data.high, rates }, (from, count) => {
       kernel.scaledExcess(count, rates !== null, +rate, scale);
       low.set(kernel.columns[0].subarray(0, count), from);
