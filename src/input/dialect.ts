@@ -5,14 +5,23 @@ export const candidateDelimiters = [",", ";", "\t"] as const;
 
 const SAMPLE_LINES = 64;
 
-function countFields(line: string, delimiter: number): number {
+function countFields(line: string, delimiter: string): number {
+  // A longer delimiter never splits a line (the candidates are single characters).
+  if (delimiter.length !== 1) return 1;
   let fields = 1;
+  // Without a quote every occurrence splits the line: found by indexOf, natively, rather than by a
+  // loop over the characters (which V8 would interpret: a few milliseconds a file at start-up).
+  if (line.indexOf('"') < 0) {
+    for (let at = line.indexOf(delimiter); at >= 0; at = line.indexOf(delimiter, at + 1)) fields++;
+    return fields;
+  }
+  const code = delimiter.charCodeAt(0);
   let quoted = false;
   // By UTF-16 unit: the quote and the delimiters are single units, which no surrogate half equals.
   for (let i = 0; i < line.length; i++) {
     const unit = line.charCodeAt(i);
     if (unit === 34) quoted = !quoted;
-    else if (unit === delimiter && !quoted) fields++;
+    else if (unit === code && !quoted) fields++;
   }
   return fields;
 }
@@ -24,9 +33,14 @@ function countFields(line: string, delimiter: number): number {
 function firstLines(text: string, count: number): string[] {
   const lines: string[] = [];
   let from = 0;
+  // The next line feed and carriage return at or after `from` (-1: none), each searched again only
+  // once passed.
+  let lf = text.indexOf("\n");
+  let cr = text.indexOf("\r");
   while (lines.length < count) {
-    let end = from;
-    while (end < text.length && text.charCodeAt(end) !== 10 && text.charCodeAt(end) !== 13) end++;
+    if (lf >= 0 && lf < from) lf = text.indexOf("\n", from);
+    if (cr >= 0 && cr < from) cr = text.indexOf("\r", from);
+    const end = Math.min(lf < 0 ? text.length : lf, cr < 0 ? text.length : cr);
     const line = text.slice(from, end);
     if (line.trim() !== "") lines.push(line);
     if (end >= text.length) break;
@@ -56,9 +70,7 @@ export function detectDelimiter(text: string, candidates: readonly string[] = ca
   let best: string = candidates[0] ?? ",";
   let bestScore = 0;
   for (const delimiter of candidates) {
-    // The candidates are single characters (a longer one would never split a line).
-    const code = delimiter.length === 1 ? delimiter.charCodeAt(0) : -1;
-    const { value, frequency } = modeOf(lines.map((line) => countFields(line, code)));
+    const { value, frequency } = modeOf(lines.map((line) => countFields(line, delimiter)));
     const score = value >= 2 ? frequency : 0;
     if (score > bestScore) {
       best = delimiter;
