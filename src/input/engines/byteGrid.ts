@@ -124,9 +124,12 @@ class ByteGrid implements ByteGridOf {
     if (this.isBlank(row)) return 0;
     const { d } = this;
     const bytes = this.reachRow(row);
-    const end = this.rowEnd;
+    // The row's own bytes (so that no search runs past its end), searched by indexOf, natively: a loop
+    // over the bytes here ran in V8's interpreter for the rows a layout check reads (a millisecond or
+    // more at start-up for 1,000 rows).
+    const own = bytes.subarray(this.rowStart, this.rowEnd);
     let count = 1;
-    for (let i = this.rowStart; i < end; i++) if (bytes[i] === d) count++;
+    for (let i = own.indexOf(d); i >= 0; i = own.indexOf(d, i + 1)) count++;
     return count;
   }
 
