@@ -145,7 +145,7 @@ def solve_digest(w, n, ml, mh, vl, vh, c, steps=11):
                            ("rSquared", "RSquared"), ("residualVariance", "ResidualVariance")):  # fmt: skip
             out[f"capm.{book}.{field}"] = col[book + key]
     if c > 0:
-        out.update(structures_digest(w, ml, mm, vl, vh, c, col, steps))
+        out.update(structures_digest(w, mm, vl, vh, c, col, steps))
     return {k: None if v is None else float(v) for k, v in out.items()}
 
 
@@ -187,7 +187,7 @@ def structure_at(w, mm, vl, vh, c, capm_low_beta, bl, bh):
         }
 
 
-def structures_digest(w, ml, mm, vl, vh, c, col, steps):
+def structures_digest(w, mm, vl, vh, c, col, steps):
     """The candidate grid (`steps` low betas evenly spaced over the set, both ends exact, the high beta
     interpolated between its end values) and the landmarks' structures, by JSON path, in one pass over
     the points' arrays."""

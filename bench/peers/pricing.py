@@ -107,6 +107,8 @@ def pricing_digest(x, y, w, alpha_se_low, alpha_se_high, periods_per_year, confi
     if not c > 0:
         return {}
     lam = w * mx + v * my
+    if lam == 0:
+        raise ValueError("the mean excess market return is exactly 0: no return-implied beta (not a bench case)")
     dl, du = v * vy + w * c, w * vx + v * c
     lower, upper = c / dl, vx / du
     var_m = w * w * vx + 2 * w * v * c + v * v * vy
