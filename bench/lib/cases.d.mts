@@ -22,6 +22,8 @@ export function buildCases(): Array<{
     weight: number;
     uncertainty?: boolean;
     dateColumn: string;
+    /** What our frequency detection finds in the data's dates (the peers read none): null for minute stamps. */
+    periodsPerYear: number | null;
     portfolios?: string[];
   };
 }>;

@@ -121,6 +121,13 @@ describe("cases", () => {
     expect(byId.get("e")!.job.pairs).toHaveLength(200); // 25 lows x 8 highs
     expect(byId.get("c")!.variants.map((v) => v.args)).toEqual([["--threads", "1"]]);
   });
+  it("tells the peers the periods a year our frequency detection finds (the peers read no dates)", () => {
+    const periods = new Map(buildCases().map((c) => [c.id, c.job.periodsPerYear]));
+    // Business days are daily (252 periods a year); minute stamps are outside every band (docs/methods.md §24).
+    for (const id of ["a1", "a2", "b2", "e", "g", "s1"]) expect(periods.get(id)).toBe(252);
+    expect(periods.get("f1")).toBeNull();
+    expect(periods.get("f2")).toBeNull();
+  });
   it("holds deterministic numbers to 1e-10 and bootstrap summaries to Monte Carlo tolerances", () => {
     expect(solveTolerance("bounds.lowBeta.min")).toBe(1e-10);
     expect(solveTolerance("uncertainty.bootstrap.stdErrors.lowBetaMin")).toBe(0.05);
