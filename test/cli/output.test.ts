@@ -20,32 +20,17 @@ function folderWith(previous: string | null): { dir: string; path: string } {
   return { dir, path };
 }
 
-/**
- * node:fs whose writes fail with `code` once `budget` bytes have been written (a full disk, EIO): the
- * writes on this thread (text) and those on libuv's thread pool (bytes to a file) alike.
- */
+/** node:fs whose writes fail with `code` once `budget` bytes have been written (a full disk, EIO). */
 function failingDisk(budget: number, code: string): FileOps {
   let left = budget;
-  const take = (length: number): number => {
-    if (left <= 0) throw Object.assign(new Error(`${code}: injected`), { code });
-    const n = Math.min(length, left);
-    left -= n;
-    return n;
-  };
   return {
     ...fs,
-    writeSync: ((fd: number, bytes: Uint8Array, offset: number, length: number) =>
-      fs.writeSync(fd, bytes, offset, take(length))) as FileOps["writeSync"],
-    write: ((fd: number, bytes: Uint8Array, offset: number, length: number, position: null, done: (e: Error | null, n: number) => void) => {
-      let n: number;
-      try {
-        n = take(length);
-      } catch (error) {
-        setImmediate(() => done(error as Error, 0));
-        return;
-      }
-      fs.write(fd, bytes, offset, n, position, done);
-    }) as FileOps["write"],
+    writeSync: ((fd: number, bytes: Uint8Array, offset: number, length: number) => {
+      if (left <= 0) throw Object.assign(new Error(`${code}: injected`), { code });
+      const n = Math.min(length, left);
+      left -= n;
+      return fs.writeSync(fd, bytes, offset, n);
+    }) as FileOps["writeSync"],
   };
 }
 
@@ -132,55 +117,6 @@ describe("a regular file", () => {
       expect(fs.readdirSync(dir)).toEqual(["out.csv"]);
     });
   }
-
-  for (const code of ["ENOSPC", "EIO"]) {
-    it(`fails on ${code} in the middle of bytes written in the background, with the previous file intact`, async () => {
-      const { dir, path } = folderWith("previous\n");
-      const block = new TextEncoder().encode("z".repeat(1000));
-      const committed = await writeAll(path, [block, block, "text after\n", block], failingDisk(1500, code));
-      expect(committed.ok).toBe(false);
-      if (!committed.ok) expect(committed.issues).toMatchObject({ code: "write-failed", path });
-      expect(fs.readFileSync(path, "utf8")).toBe("previous\n");
-      expect(fs.readdirSync(dir)).toEqual(["out.csv"]);
-    });
-  }
-
-  it("keeps the order of writes asked for without waiting, and commits once they are over (bytes in the background)", async () => {
-    const { path } = folderWith(null);
-    const opened = openOutput(path, noStdout);
-    if (!opened.ok) throw new Error("open failed");
-    const parts = Array.from({ length: 300 }, (_, i) => (i % 3 === 1 ? `text ${i}\n` : new TextEncoder().encode(`bytes ${i}\n`.repeat(i))));
-    // Every write is asked for at once, and the commit before any is awaited: it waits for them.
-    const writes = parts.map((part) => opened.value.write(part));
-    expect((await opened.value.commit()).ok).toBe(true);
-    await Promise.all(writes);
-    const expected = parts.map((part) => (typeof part === "string" ? part : new TextDecoder().decode(part))).join("");
-    expect(fs.readFileSync(path, "utf8")).toBe(expected);
-  });
-
-  it("completes short writes in the background too", async () => {
-    const { path } = folderWith(null);
-    const trickle: FileOps = {
-      ...fs,
-      write: ((fd: number, bytes: Uint8Array, offset: number, length: number, position: null, done: (e: Error | null, n: number) => void) =>
-        fs.write(fd, bytes, offset, Math.min(length, 7), position, done)) as FileOps["write"],
-    };
-    const text = "date,low,high\n2020-01-31,0.01,0.02\n".repeat(20);
-    expect((await writeAll(path, [new TextEncoder().encode(text), "end\n"], trickle)).ok).toBe(true);
-    expect(fs.readFileSync(path, "utf8")).toBe(`${text}end\n`);
-  });
-
-  it("is left as it was when aborted with background writes still running", async () => {
-    const { dir, path } = folderWith("previous\n");
-    const opened = openOutput(path, noStdout);
-    if (!opened.ok) throw new Error("open failed");
-    const pending = opened.value.write(new Uint8Array(1 << 20).fill(65));
-    opened.value.abort();
-    await pending;
-    await new Promise((done) => setImmediate(done));
-    expect(fs.readdirSync(dir)).toEqual(["out.csv"]);
-    expect(fs.readFileSync(path, "utf8")).toBe("previous\n");
-  });
 
   it("completes short writes (a write that takes fewer bytes than given is not an error)", async () => {
     const { path } = folderWith(null);

@@ -43,7 +43,6 @@ export type FileOps = Pick<
   typeof fs,
   | "openSync"
   | "writeSync"
-  | "write"
   | "fsyncSync"
   | "fdatasync"
   | "closeSync"
@@ -188,61 +187,28 @@ function writeText(ops: FileOps, fd: number, text: OutputText): number {
   return total + filled;
 }
 
-/** Writes all of `bytes` at the descriptor on libuv's thread pool, however many calls it takes. */
-function writeAllInBackground(ops: FileOps, fd: number, bytes: Uint8Array): Promise<void> {
-  return new Promise((done, fail) => {
-    const from = (offset: number): void => {
-      if (offset >= bytes.length) done();
-      else
-        ops.write(fd, bytes, offset, bytes.length - offset, null, (error, written) =>
-          error === null ? from(offset + written) : fail(error),
-        );
-    };
-    from(0);
-  });
-}
-
-/**
- * Writes that yield to the event loop now and then (signals), and remember the first failure. With
- * `background`, bytes are written on libuv's thread pool (the caller goes on until it needs them back,
- * as roll's CSV does while the next block is formatted); writes still land in the order they were asked
- * for: each waits for the ones before it.
- */
-function checkedWriter(ops: FileOps, fd: number, background = false) {
+/** Writes that yield to the event loop now and then (signals), and remember the first failure. */
+function checkedWriter(ops: FileOps, fd: number) {
   let failed: unknown = null;
   let sinceYield = 0;
-  // The writes asked for so far, settled when the last one is over (never rejects).
-  let tail: Promise<void> = Promise.resolve();
-  const inOrder = (step: () => Promise<number> | number): Promise<number> => {
-    const result = tail.then(async () => {
-      if (failed !== null) return 0;
-      try {
-        return await step();
-      } catch (error) {
-        failed = error;
-        return 0;
-      }
-    });
-    tail = result.then(() => undefined);
-    return result;
-  };
   return {
     get failed() {
       return failed;
     },
-    /** Settles when every write asked for is over (before the descriptor may be closed). */
-    settled(): Promise<void> {
-      return tail;
-    },
     /** Writes `text` (bytes at once); resolves to the bytes written, 0 after a failure. */
     async write(text: OutputText | Uint8Array): Promise<number> {
       if (failed !== null) return 0;
-      const length = await inOrder(() => {
-        if (!(text instanceof Uint8Array)) return writeText(ops, fd, text);
-        if (background) return writeAllInBackground(ops, fd, text).then(() => text.length);
-        writeAll(ops, fd, text);
-        return text.length;
-      });
+      let length: number;
+      try {
+        if (!(text instanceof Uint8Array)) length = writeText(ops, fd, text);
+        else {
+          writeAll(ops, fd, text);
+          length = text.length;
+        }
+      } catch (error) {
+        failed = error;
+        return 0;
+      }
       sinceYield += length;
       if (sinceYield >= yieldEvery) {
         sinceYield = 0;
@@ -311,8 +277,9 @@ function replacingTarget(path: string, target: string, ops: FileOps): Result<Out
   let flushing: Promise<unknown> | null = null;
   let flushFailed: unknown = null;
   const remove = (): void => {
-    // Writes or a flush still running on another thread keep the descriptor until they are over.
-    void Promise.all([writer.settled(), flushing]).then(() => closeQuietly(ops, fd));
+    // A background flush still running keeps the descriptor until it is over.
+    if (flushing === null) closeQuietly(ops, fd);
+    else void flushing.then(() => closeQuietly(ops, fd));
     try {
       ops.unlinkSync(temporary);
     } catch {
@@ -320,7 +287,7 @@ function replacingTarget(path: string, target: string, ops: FileOps): Result<Out
     }
     temporaries.delete(temporary);
   };
-  const writer = checkedWriter(ops, fd, true);
+  const writer = checkedWriter(ops, fd);
   let done = false;
   const write = async (text: OutputText | Uint8Array): Promise<void> => {
     sinceFlush += await writer.write(text);
@@ -339,8 +306,7 @@ function replacingTarget(path: string, target: string, ops: FileOps): Result<Out
     async commit() {
       done = true;
       try {
-        // The descriptor stays open until the writes and a background flush are over (other threads).
-        await writer.settled();
+        // The descriptor stays open until a background flush is over (it runs on another thread).
         if (flushing !== null) await flushing;
         if (writer.failed !== null) throw writer.failed;
         if (flushFailed !== null) throw flushFailed;

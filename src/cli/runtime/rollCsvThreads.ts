@@ -1,8 +1,7 @@
 /**
  * roll's CSV of every window on two threads: formatting the numbers is most of such a run (a million
  * windows, 36 numbers each), so a worker thread formats two blocks of windows in three while this
- * thread computes the windows, formats the third and hands every block to the output in order (a file
- * target writes them on libuv's thread pool while this thread goes on: output.ts). The rows are those
+ * thread computes the windows, formats the third and writes every block in order. The rows are those
  * of writeRollCsv byte for byte: both write them with writeStampRow (report/rollCsv.ts). Used only
  * for dates that are stamps, without the uncertainty columns (computed here, window by window), on a
  * machine with two cores or more, and for runs long enough to repay the thread's start.
@@ -53,8 +52,7 @@ export async function writeRollCsvThreaded(
   const { keys, form } = stamps;
   const prefix = rollCsvPrefix(meta);
   const rowBytes = stampRowBytes(prefix.length, windowColumnNames.length);
-  // Up to seven sets of arrays go round (three blocks in flight, three being written, one being packed):
-  // no fresh memory per block after the first few.
+  // Four sets of arrays go round (three blocks in flight and one being packed): no fresh memory per block.
   const free: RollCsvTask[] = [];
   const fresh = (): RollCsvTask => ({
     block: {
@@ -87,18 +85,10 @@ export async function writeRollCsvThreaded(
     });
   };
   const inFlight: Promise<RollCsvTask>[] = [];
-  // Blocks whose bytes are being written: a file target writes them on another thread while this one
-  // goes on (their arrays come back for reuse once written).
-  const writing: { readonly task: RollCsvTask; readonly written: Promise<void> }[] = [];
-  const recycleOldest = async (): Promise<void> => {
-    const { task, written } = writing.shift() as (typeof writing)[number];
-    await written;
-    free.push(task);
-  };
   const writeOldest = async (): Promise<void> => {
     const done = await (inFlight.shift() as Promise<RollCsvTask>);
-    writing.push({ task: done, written: write(done.out.subarray(0, done.length)) });
-    if (writing.length > 2) await recycleOldest();
+    await write(done.out.subarray(0, done.length));
+    free.push(done);
   };
   try {
     let index = 0;
@@ -109,10 +99,7 @@ export async function writeRollCsvThreaded(
       if (inFlight.length >= 3) await writeOldest();
     }
     while (inFlight.length > 0) await writeOldest();
-    while (writing.length > 0) await recycleOldest();
   } finally {
-    // Writes already asked for go on (the target keeps their order); a failure is the target's to report.
-    writing.forEach(({ written }) => written.catch(() => undefined));
     // A failure leaves the other blocks unwritten: the output is aborted by the caller.
     inFlight.forEach((pending) => pending.catch(() => undefined));
     await worker.terminate();
