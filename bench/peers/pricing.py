@@ -21,7 +21,7 @@ from statistics import NormalDist
 
 import numpy as np
 
-from inference import long_run
+from inference import kernel_sum
 
 _normal = NormalDist()
 
@@ -113,15 +113,25 @@ def pricing_digest(x, y, w, alpha_se_low, alpha_se_high, periods_per_year, confi
     lower, upper = c / dl, vx / du
     var_m = w * w * vx + 2 * w * v * c + v * v * vy
     beta = du / var_m
-    # Influence series: the gradients of Lb and U (§4) and of beta (the quotient rule).
+    # Influence series: the gradients of Lb and U (§4) and of beta (the quotient rule), written into one
+    # array of six columns and centred in place (long_run's arithmetic without its copies: at 10 million
+    # rows every temporary is 80 MB).
+    u = np.empty((n, 6))
+    u[:, 0] = dx
+    u[:, 1] = i_lam = w * dx + v * dy
     zx, zy, zc = dx * dx - vx, dy * dy - vy, dx * dy - c
     i_lower = (-v * c / dl**2) * zy + (v * vy / dl**2) * zc
     i_upper = (v * c / du**2) * zx + (-v * vx / du**2) * zc
     i_beta = (w * zx + v * zc - beta * (w * w * zx + 2 * w * v * zc + v * v * zy)) / var_m
-    i_lam = w * dx + v * dy
-    six = [dx, i_lam, dx - lower * i_lam - lam * i_lower, upper * i_lam + lam * i_upper - dx,
-           lam * (i_lower - i_beta) + (lower - beta) * i_lam, lam * (i_upper - i_beta) + (upper - beta) * i_lam]  # fmt: skip
-    cov = long_run(six)[0] / n
+    del zx, zy, zc
+    u[:, 2] = dx - lower * i_lam - lam * i_lower
+    u[:, 3] = upper * i_lam + lam * i_upper - dx
+    u[:, 4] = lam * (i_lower - i_beta) + (lower - beta) * i_lam
+    u[:, 5] = lam * (i_upper - i_beta) + (upper - beta) * i_lam
+    del i_lam, i_lower, i_upper, i_beta
+    u -= u.mean(axis=0)
+    cov = kernel_sum(u, np.ones(6))[0] / n / n
+    del u
     se = np.sqrt(np.maximum(np.diag(cov), 0.0))
     z = _normal.inv_cdf(1 - (1 - confidence) / 2)
     out = {}
