@@ -8,7 +8,7 @@ import { join } from "node:path";
 import { Readable } from "node:stream";
 import { describe, expect, it } from "vitest";
 import { readInputBytes, readInputSource, readStream } from "../../src/cli/runtime/files.js";
-import { rowKernelFor } from "../../src/input/engines/rowKernel.js";
+import { rowKernelFor, WINDOW_FROM } from "../../src/input/engines/rowKernel.js";
 
 const scratch = mkdtempSync(join(tmpdir(), "betabound-files-"));
 
@@ -61,6 +61,21 @@ describe("readInputSource", () => {
     expect(Buffer.from(piece).toString()).toBe(row);
     expect(file.failure?.()).toBeNull();
     file.close();
+  });
+
+  it("reads a file of up to WINDOW_FROM bytes whole, and a byte longer one by position", async () => {
+    const at = join(scratch, "source-at-limit.csv");
+    const header = "Date,A,B\n";
+    const rows = row.repeat(Math.ceil(WINDOW_FROM / row.length));
+    writeFileSync(at, (header + rows).slice(0, WINDOW_FROM));
+    const whole = await readInputSource(at);
+    expect(whole.ok && whole.value instanceof Uint8Array && whole.value.length === WINDOW_FROM).toBe(true);
+    const over = join(scratch, "source-over-limit.csv");
+    writeFileSync(over, (header + rows).slice(0, WINDOW_FROM + 1));
+    const opened = await readInputSource(over);
+    if (!opened.ok || opened.value instanceof Uint8Array) throw new Error("expected a file read by position");
+    expect(opened.value.size).toBe(WINDOW_FROM + 1);
+    opened.value.close();
   });
 
   it("says why, when a file read by position became shorter meanwhile", async () => {
