@@ -13,7 +13,7 @@
 import { borrowSeries } from "./scratch.js";
 import { crossColumns, inverse, scale, solve, type Matrix } from "./linearAlgebra.js";
 import { CHUNK } from "./seriesLoops.js";
-import { copyRows, KERNEL_ROWS, seriesKernel } from "./seriesKernel.js";
+import { inChunks, seriesKernel } from "./seriesKernel.js";
 
 export interface LeastSquaresFit {
   readonly coefficients: number[];
@@ -56,15 +56,15 @@ export function classicalCovariance(design: readonly Float64Array[], residuals: 
 export function interceptLeastSquares(x: ArrayLike<number>, y: ArrayLike<number>, useKernel = true): LeastSquaresFit {
   const n = y.length;
   if (x.length !== n) throw new RangeError("leastSquares: design and response differ in length");
-  // Short series in the WebAssembly kernel (seriesKernel.ts: the same bits).
-  const kernel = useKernel && n <= KERNEL_ROWS ? seriesKernel() : null;
+  // The WebAssembly kernel (seriesKernel.ts: the same bits) at every length, chunk by chunk with the
+  // sums carried in its state: a JavaScript loop runs unoptimised for its first tens of thousands of
+  // rows, making a heap number of every double.
+  const kernel = useKernel ? seriesKernel() : null;
   // sx, sxx, sy, sxy, in chunks by a small function V8 optimises whole (seriesLoops.ts).
   const sums = new Float64Array(4);
   if (kernel !== null) {
-    copyRows(kernel.columns[0], x, 0, n);
-    copyRows(kernel.columns[1], y, 0, n);
     kernel.state.fill(0, 0, 4);
-    kernel.crossSums(n);
+    inChunks(kernel, { x, y, rates: null }, (_from, count) => kernel.crossSums(count));
     sums.set(kernel.state.subarray(0, 4));
   } else for (let from = 0; from < n; from += CHUNK) crossChunk(x, y, from, Math.min(n, from + CHUNK), sums);
   const [sx, sxx, sy, sxy] = sums as unknown as [number, number, number, number];
@@ -75,8 +75,10 @@ export function interceptLeastSquares(x: ArrayLike<number>, y: ArrayLike<number>
   const [a, b] = solve(xtx, [[sy], [sxy]]).map((row) => row[0]!) as [number, number];
   const residuals = borrowSeries(n); // every element is written below
   if (kernel !== null) {
-    kernel.interceptResiduals(n, a, b);
-    residuals.set(kernel.columns[2].subarray(0, n));
+    inChunks(kernel, { x, y, rates: null }, (from, count) => {
+      kernel.interceptResiduals(count, a, b);
+      residuals.set(kernel.columns[2].subarray(0, count), from);
+    });
   } else for (let from = 0; from < n; from += CHUNK) interceptResidualChunk(x, y, a, b, residuals, from, Math.min(n, from + CHUNK));
   return { coefficients: [a, b], residuals, inverseCrossProduct: inverse(xtx) };
 }
