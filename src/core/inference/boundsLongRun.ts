@@ -19,7 +19,7 @@
  */
 
 import { borrowSeries } from "../numerics/scratch.js";
-import { copyRows, influenceKernel, KERNEL_ROWS } from "../numerics/seriesKernel.js";
+import { inChunks, influenceKernel } from "../numerics/seriesKernel.js";
 import { kernelSum } from "./hac/kernelSum.js";
 import { bartlettFixedBFactor } from "./hac/fixedB.js";
 import { defaultHac, type HacKernel, type HacOptions } from "./options.js";
@@ -83,8 +83,9 @@ export function boundsLongRun(
 /**
  * The two bounds' influence series straight from the excess returns x (low) and y (high), without the
  * three moment series z_t: the same numbers as `influenceSeries(momentSeries(x, y), gradient)` (the
- * same sums in the same order), in two arrays of n instead of five. Series of up to KERNEL_ROWS rows go
- * through the WebAssembly kernel (numerics/seriesKernel.ts, the same bits) unless `useKernel` is false.
+ * same sums in the same order), in two arrays of n instead of five. They go through the WebAssembly
+ * kernel (numerics/seriesKernel.ts, the same bits) chunk by chunk at every length unless `useKernel` is
+ * false: a JavaScript loop runs unoptimised for its first tens of thousands of rows.
  */
 export function boundInfluenceSeries(
   x: ArrayLike<number>,
@@ -93,17 +94,25 @@ export function boundInfluenceSeries(
   useKernel = true,
 ): { lower: Float64Array; upper: Float64Array } {
   const n = x.length;
-  const kernel = useKernel && n <= KERNEL_ROWS ? influenceKernel() : null;
+  const kernel = useKernel ? influenceKernel() : null;
   if (kernel !== null) {
-    copyRows(kernel.columns[0], x, 0, n);
-    copyRows(kernel.columns[1], y, 0, n);
+    const rows = { x, y, rates: null };
+    const { state } = kernel;
+    state.fill(0, 0, 5);
+    inChunks(kernel, rows, (_from, count) => kernel.plainSumsOfTwo(count));
+    const mx = state[0]! / n;
+    const my = state[1]! / n;
+    inChunks(kernel, rows, (_from, count) => kernel.centredSumsOfTwo(count, mx, my));
+    const [m0, m1, m2] = [state[2]! / n, state[3]! / n, state[4]! / n];
     kernel.parameters.set(gradients.lower.slice(0, 3));
     kernel.parameters.set(gradients.upper.slice(0, 3), 3);
-    kernel.boundInfluence(n);
     const lower = borrowSeries(n);
     const upper = borrowSeries(n);
-    lower.set(kernel.columns[2].subarray(0, n));
-    upper.set(kernel.columns[3].subarray(0, n));
+    inChunks(kernel, rows, (from, count) => {
+      kernel.influenceOfTwo(count, mx, my, m0, m1, m2);
+      lower.set(kernel.columns[2].subarray(0, count), from);
+      upper.set(kernel.columns[3].subarray(0, count), from);
+    });
     return { lower, upper };
   }
   const [mx, my] = plainMeans(x, y);

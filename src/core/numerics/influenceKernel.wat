@@ -105,49 +105,52 @@
     (f64.store offset=16 (local.get $at) (f64x2.extract_lane 1 (local.get $h)))
     (f64.store offset=24 (local.get $at) (f64x2.extract_lane 1 (local.get $l))))
 
-  ;; boundsLongRun.ts boundInfluenceSeries over a whole series of n rows: x in column 0, y in column 1;
-  ;; the gradients at 256 (lower g0 g1 g2, upper g0 g1 g2). The plain means mx my, the centred sums'
-  ;; means m0 m1 m2, then each bound's series f_t = sum of g_a (term_a - m_a) over the nonzero g_a,
-  ;; lower into column 2 and upper into column 3. State 0..4: mx my m0 m1 m2.
-  (func (export "boundInfluence") (param $n i32)
-    (local $t i32) (local $p i32) (local $count f64) (local $mx f64) (local $my f64)
-    (local $sxx f64) (local $syy f64) (local $sxy f64) (local $dx f64) (local $dy f64)
-    (local $m0 f64) (local $m1 f64) (local $m2 f64)
-    (local.set $count (f64.convert_i32_s (local.get $n)))
+  ;; boundsLongRun.ts boundInfluenceSeries, chunk by chunk (x in column 0, y in column 1, `count` rows
+  ;; each): three passes over the whole series, each call continuing the sums in the state. First the
+  ;; plain sums of x and y (state 0, 1), then the centred sums xx yy xy about the means (state 2..4),
+  ;; then each bound's series f_t = sum of g_a (term_a - m_a) over the nonzero g_a, with the gradients
+  ;; at 256 (lower g0 g1 g2, upper g0 g1 g2): lower into column 2, upper into column 3.
+  (func (export "plainSumsOfTwo") (param $count i32)
+    (local $p i32) (local $stop i32) (local $sx f64) (local $sy f64)
+    (local.set $sx (f64.load (i32.const 0)))
+    (local.set $sy (f64.load (i32.const 8)))
+    (local.set $stop (i32.shl (local.get $count) (i32.const 3)))
     (block $done
       (loop $row
-        (br_if $done (i32.ge_s (local.get $t) (local.get $n)))
-        (local.set $p (i32.shl (local.get $t) (i32.const 3)))
-        (local.set $mx (f64.add (local.get $mx) (f64.load offset=512 (local.get $p))))
-        (local.set $my (f64.add (local.get $my) (f64.load offset=262656 (local.get $p))))
-        (local.set $t (i32.add (local.get $t) (i32.const 1)))
+        (br_if $done (i32.ge_u (local.get $p) (local.get $stop)))
+        (local.set $sx (f64.add (local.get $sx) (f64.load offset=512 (local.get $p))))
+        (local.set $sy (f64.add (local.get $sy) (f64.load offset=262656 (local.get $p))))
+        (local.set $p (i32.add (local.get $p) (i32.const 8)))
         (br $row)))
-    (local.set $mx (f64.div (local.get $mx) (local.get $count)))
-    (local.set $my (f64.div (local.get $my) (local.get $count)))
-    (local.set $t (i32.const 0))
+    (f64.store (i32.const 0) (local.get $sx))
+    (f64.store (i32.const 8) (local.get $sy)))
+
+  (func (export "centredSumsOfTwo") (param $count i32) (param $mx f64) (param $my f64)
+    (local $p i32) (local $stop i32) (local $dx f64) (local $dy f64)
+    (local $sxx f64) (local $syy f64) (local $sxy f64)
+    (local.set $sxx (f64.load (i32.const 16)))
+    (local.set $syy (f64.load (i32.const 24)))
+    (local.set $sxy (f64.load (i32.const 32)))
+    (local.set $stop (i32.shl (local.get $count) (i32.const 3)))
     (block $done
       (loop $row
-        (br_if $done (i32.ge_s (local.get $t) (local.get $n)))
-        (local.set $p (i32.shl (local.get $t) (i32.const 3)))
+        (br_if $done (i32.ge_u (local.get $p) (local.get $stop)))
         (local.set $dx (f64.sub (f64.load offset=512 (local.get $p)) (local.get $mx)))
         (local.set $dy (f64.sub (f64.load offset=262656 (local.get $p)) (local.get $my)))
         (local.set $sxx (f64.add (local.get $sxx) (f64.mul (local.get $dx) (local.get $dx))))
         (local.set $syy (f64.add (local.get $syy) (f64.mul (local.get $dy) (local.get $dy))))
         (local.set $sxy (f64.add (local.get $sxy) (f64.mul (local.get $dx) (local.get $dy))))
-        (local.set $t (i32.add (local.get $t) (i32.const 1)))
+        (local.set $p (i32.add (local.get $p) (i32.const 8)))
         (br $row)))
-    (local.set $m0 (f64.div (local.get $sxx) (local.get $count)))
-    (local.set $m1 (f64.div (local.get $syy) (local.get $count)))
-    (local.set $m2 (f64.div (local.get $sxy) (local.get $count)))
-    (call $influence (local.get $n) (local.get $mx) (local.get $my) (f64.load (i32.const 256)) (f64.load (i32.const 264))
+    (f64.store (i32.const 16) (local.get $sxx))
+    (f64.store (i32.const 24) (local.get $syy))
+    (f64.store (i32.const 32) (local.get $sxy)))
+
+  (func (export "influenceOfTwo") (param $count i32) (param $mx f64) (param $my f64) (param $m0 f64) (param $m1 f64) (param $m2 f64)
+    (call $influence (local.get $count) (local.get $mx) (local.get $my) (f64.load (i32.const 256)) (f64.load (i32.const 264))
       (f64.load (i32.const 272)) (local.get $m0) (local.get $m1) (local.get $m2) (i32.const 524800))
-    (call $influence (local.get $n) (local.get $mx) (local.get $my) (f64.load (i32.const 280)) (f64.load (i32.const 288))
-      (f64.load (i32.const 296)) (local.get $m0) (local.get $m1) (local.get $m2) (i32.const 786944))
-    (f64.store (i32.const 0) (local.get $mx))
-    (f64.store (i32.const 8) (local.get $my))
-    (f64.store (i32.const 16) (local.get $m0))
-    (f64.store (i32.const 24) (local.get $m1))
-    (f64.store (i32.const 32) (local.get $m2)))
+    (call $influence (local.get $count) (local.get $mx) (local.get $my) (f64.load (i32.const 280)) (f64.load (i32.const 288))
+      (f64.load (i32.const 296)) (local.get $m0) (local.get $m1) (local.get $m2) (i32.const 786944)))
 
   ;; boundsLongRun.ts influenceChunk over rows 0..n-1 into the column at byte address `out`.
   (func $influence (param $n i32) (param $mx f64) (param $my f64) (param $g0 f64) (param $g1 f64) (param $g2 f64)

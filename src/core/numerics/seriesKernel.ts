@@ -62,7 +62,7 @@ export interface SeriesKernel extends KernelMemory {
   interceptResiduals(count: number, a: number, b: number): void;
 }
 
-/** influenceKernel.wat: the uncertainty's passes over whole series of up to KERNEL_ROWS rows. */
+/** influenceKernel.wat: the uncertainty's passes, over whole series of up to KERNEL_ROWS rows or chunk by chunk. */
 export interface InfluenceKernel extends KernelMemory {
   /**
    * bartlettWindows.ts windowSquaresOfTwo over the n rows in columns 0 and 1, from a state of zeros:
@@ -70,11 +70,15 @@ export interface InfluenceKernel extends KernelMemory {
    * [15] are those of width - 1 (from zeros at 8..15), computed in the same loop.
    */
   windowsOfTwo(n: number, width: number, both: boolean): void;
+  /** boundsLongRun.ts plainSumsChunk over `count` rows in columns 0 and 1: state 0, 1 (sx, sy) continued. */
+  plainSumsOfTwo(count: number): void;
+  /** boundsLongRun.ts centredChunk about mx, my: state 2..4 (sxx, syy, sxy) continued. */
+  centredSumsOfTwo(count: number, mx: number, my: number): void;
   /**
-   * boundsLongRun.ts boundInfluenceSeries over the n rows in columns 0 and 1, the gradients (lower,
-   * then upper) as parameters: the lower bound's series into column 2, the upper's into 3.
+   * boundsLongRun.ts influenceChunk for both bounds, their gradients (lower, then upper) as parameters:
+   * the lower bound's series into column 2, the upper's into 3.
    */
-  boundInfluence(n: number): void;
+  influenceOfTwo(count: number, mx: number, my: number, m0: number, m1: number, m2: number): void;
   /**
    * sharpe.ts sharpeStdErrors' passes over the n rows in column 0: z into column 1, z^2 - 1 into
    * column 2; state 0..7 mu, ss, sigma, m2, m3, m4 and the sums of z and z^2 - 1.
@@ -219,7 +223,9 @@ function columnFunctions(f: Record<string, Exported>, buffer: ArrayBuffer): Omit
 function influenceFunctions(f: Record<string, Exported>, buffer: ArrayBuffer): Omit<InfluenceKernel, keyof KernelMemory> {
   return {
     windowsOfTwo: (n, width, both) => void f.windowsOfTwo!(n, width, flag(both)),
-    boundInfluence: f.boundInfluence!,
+    plainSumsOfTwo: f.plainSumsOfTwo!,
+    centredSumsOfTwo: f.centredSumsOfTwo!,
+    influenceOfTwo: f.influenceOfTwo!,
     standardise: f.standardise!,
     pricingInfluence: (count, hasRates, rate) => f.pricingInfluence!(count, flag(hasRates), rate),
     pricingSeries: (k, count) => new Float64Array(buffer, 512 + 2 * KERNEL_ROWS * 8 + k * PRICING_ROWS * 8, count),

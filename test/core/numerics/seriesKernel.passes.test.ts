@@ -3,7 +3,8 @@
  * JavaScript twins (`useKernel = false`) or, where a pass has no switch, against its definition written
  * out here: bit for bit (`Object.is`), with non-finite and extreme values, at lengths around the
  * kernel's chunks (KERNEL_ROWS, PRICING_ROWS) and the JavaScript chunks (1,024 rows), and beyond
- * KERNEL_ROWS (the elementwise passes go through the kernel chunk by chunk at every length).
+ * KERNEL_ROWS (the elementwise passes, the CAPM fit's sums and the bounds' influence series go through
+ * the kernel chunk by chunk at every length).
  */
 import { describe, expect, it } from "vitest";
 import { edgeSeries, expectSameBits } from "../../support/kernelTwins.js";
