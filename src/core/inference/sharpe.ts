@@ -15,7 +15,7 @@
  */
 
 import { borrowSeries, giveBack } from "../numerics/scratch.js";
-import { copyRows, type InfluenceKernel, influenceKernel, KERNEL_ROWS } from "../numerics/seriesKernel.js";
+import { type InfluenceKernel, inChunksOfOne, influenceKernel } from "../numerics/seriesKernel.js";
 import { longRunCovarianceInPlace } from "./hac/longRun.js";
 import { bilinear } from "../numerics/linearAlgebra.js";
 import type { HacOptions } from "./options.js";
@@ -48,7 +48,7 @@ export function sharpeStdErrors(excess: ArrayLike<number>, hac: HacOptions = {},
   // The moment functions standardised, (d / sigma, (d / sigma)^2 - 1), with the gradient (1, -SR / 2):
   // the same quadratic form for a given bandwidth, and an automatic bandwidth free of the returns' units.
   // sums: m2, m3, m4 and the two series' plain sums, for the long-run covariance's means (longRun.ts).
-  const { mu, sigma, sums } = standardise(excess, first, second, useKernel && n <= KERNEL_ROWS ? influenceKernel() : null);
+  const { mu, sigma, sums } = standardise(excess, first, second, useKernel ? influenceKernel() : null);
   const estimate = mu / sigma;
   const [m2, m3, m4, sumFirst, sumSecond] = sums as unknown as [number, number, number, number, number];
   // Skewness and kurtosis are ratios of central moments: the same from z as from the returns.
@@ -81,12 +81,21 @@ function standardise(
   const n = excess.length;
   const sums = new Float64Array(5);
   if (kernel !== null) {
-    copyRows(kernel.columns[0], excess, 0, n);
-    kernel.standardise(n);
-    first.set(kernel.columns[1].subarray(0, n));
-    second.set(kernel.columns[2].subarray(0, n));
-    sums.set(kernel.state.subarray(3, 8));
-    return { mu: kernel.state[0]!, sigma: kernel.state[2]!, sums };
+    // Chunk by chunk at every length: a JavaScript loop runs unoptimised for its first tens of
+    // thousands of rows.
+    const { state } = kernel;
+    state.fill(0, 0, 8);
+    inChunksOfOne(kernel, excess, (_from, count) => kernel.sumOfOne(count));
+    const mu = state[0]! / n;
+    inChunksOfOne(kernel, excess, (_from, count) => kernel.squaredDeviations(count, mu));
+    const sigma = Math.sqrt(state[1]! / (n - 1));
+    inChunksOfOne(kernel, excess, (from, count) => {
+      kernel.standardiseChunk(count, mu, sigma);
+      first.set(kernel.columns[1].subarray(0, count), from);
+      second.set(kernel.columns[2].subarray(0, count), from);
+    });
+    sums.set(state.subarray(3, 8));
+    return { mu, sigma, sums };
   }
   const mu = plainSum(excess) / n;
   for (let from = 0; from < n; from += CHUNK) squaredDeviationChunk(excess, mu, from, Math.min(n, from + CHUNK), sums);

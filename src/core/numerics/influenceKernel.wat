@@ -8,27 +8,35 @@
 (module
   (memory (export "memory") 17 17)
 
-  ;; bartlettWindows.ts windowSquaresOfTwo over a whole series of n rows, x in column 0 and y in column 1:
-  ;; the windows t = 1 - width .. n - 1 by blocks of 1,024, each window's sums hx + lx and hy + ly kept
-  ;; with TwoSum as rows enter and leave, the block's sums of squares added to the totals at its end.
+  ;; bartlettWindows.ts windowSquaresOfTwo over the windows t = $from .. $to - 1 of a series of n rows
+  ;; (all of them: $from = 1 - width, $to = n), x in column 0 and y in column 1 from row $offset on (the
+  ;; rows those windows reach: from $from - 1 to $to + width - 2), by blocks of 1,024 from $from (a
+  ;; caller going chunk by chunk starts each call at a block's start), each window's sums hx + lx and
+  ;; hy + ly kept with TwoSum as rows enter and leave, the block's sums of squares added to the totals
+  ;; at its end.
   ;; x and y go together in the two lanes of f64x2 values (lane 0 x, lane 1 y): a lane's operation is
   ;; the scalar one, so each lane does its series' pass exactly (the same bits), at half the instructions;
   ;; xy is lane 0 of w times w with its lanes swapped (wx wy = wy wx exactly).
-  ;; State: hx lx hy ly, then the totals xx xy - yy (all from 0). With $both, the same for width - 1 in
-  ;; the same loop (state 8..15): its window t + 1 takes the same entering row as the wider window t and
-  ;; leaves row t, and its blocks hold the same window counts, so each width's operations are those of
-  ;; a pass of its own (the same bits), while the two independent chains of additions overlap.
-  (func (export "windowsOfTwo") (param $n i32) (param $width i32) (param $both i32)
+  ;; State: hx lx hy ly, then the totals xx xy - yy (all from 0 before the first call, continued by each).
+  ;; With $both, the same for width - 1 in the same loop (state 8..15): its window t + 1 takes the same
+  ;; entering row as the wider window t and leaves row t, and its blocks hold the same window counts, so
+  ;; each width's operations are those of a pass of its own (the same bits), while the two independent
+  ;; chains of additions overlap.
+  (func (export "windowsOfTwo") (param $from i32) (param $to i32) (param $offset i32) (param $n i32) (param $width i32) (param $both i32)
     (local $t i32) (local $stop i32) (local $entering i32) (local $leaving i32) (local $narrow i32)
     (local $in v128) (local $u v128) (local $sum v128) (local $virtual v128) (local $w v128)
     (local $h v128) (local $l v128) (local $squares v128) (local $cross v128)
     (local $h2 v128) (local $l2 v128) (local $squares2 v128) (local $cross2 v128)
-    (local.set $t (i32.sub (i32.const 1) (local.get $width)))
+    (local.set $h (call $loadPair (i32.const 0)))
+    (local.set $l (call $loadPair (i32.const 8)))
+    (local.set $h2 (call $loadPair (i32.const 64)))
+    (local.set $l2 (call $loadPair (i32.const 72)))
+    (local.set $t (local.get $from))
     (block $done
       (loop $block
-        (br_if $done (i32.ge_s (local.get $t) (local.get $n)))
+        (br_if $done (i32.ge_s (local.get $t) (local.get $to)))
         (local.set $stop (i32.add (local.get $t) (i32.const 1024)))
-        (if (i32.gt_s (local.get $stop) (local.get $n)) (then (local.set $stop (local.get $n))))
+        (if (i32.gt_s (local.get $stop) (local.get $to)) (then (local.set $stop (local.get $to))))
         (local.set $squares (v128.const i64x2 0 0))
         (local.set $cross (v128.const i64x2 0 0))
         (local.set $squares2 (v128.const i64x2 0 0))
@@ -37,7 +45,7 @@
           (local.set $entering (i32.sub (i32.add (local.get $t) (local.get $width)) (i32.const 1)))
           (if (i32.lt_s (local.get $entering) (local.get $n))
             (then
-              (local.set $in (v128.load64_lane offset=262656 1 (i32.shl (local.get $entering) (i32.const 3)) (v128.load64_zero offset=512 (i32.shl (local.get $entering) (i32.const 3)))))
+              (local.set $in (v128.load64_lane offset=262656 1 (i32.shl (i32.sub (local.get $entering) (local.get $offset)) (i32.const 3)) (v128.load64_zero offset=512 (i32.shl (i32.sub (local.get $entering) (local.get $offset)) (i32.const 3)))))
               (local.set $u (local.get $in))
               (local.set $sum (f64x2.add (local.get $h) (local.get $u)))
               (local.set $virtual (f64x2.sub (local.get $sum) (local.get $h)))
@@ -48,7 +56,7 @@
           (if (i32.gt_s (local.get $t) (i32.const 0))
             (then
               (local.set $leaving (i32.sub (local.get $t) (i32.const 1)))
-              (local.set $u (f64x2.neg (v128.load64_lane offset=262656 1 (i32.shl (local.get $leaving) (i32.const 3)) (v128.load64_zero offset=512 (i32.shl (local.get $leaving) (i32.const 3))))))
+              (local.set $u (f64x2.neg (v128.load64_lane offset=262656 1 (i32.shl (i32.sub (local.get $leaving) (local.get $offset)) (i32.const 3)) (v128.load64_zero offset=512 (i32.shl (i32.sub (local.get $leaving) (local.get $offset)) (i32.const 3))))))
               (local.set $sum (f64x2.add (local.get $h) (local.get $u)))
               (local.set $virtual (f64x2.sub (local.get $sum) (local.get $h)))
               (local.set $l (f64x2.add (local.get $l) (f64x2.add
@@ -73,7 +81,7 @@
                   (local.set $h2 (local.get $sum))))
               (if (i32.ge_s (local.get $t) (i32.const 0))
                 (then
-                  (local.set $u (f64x2.neg (v128.load64_lane offset=262656 1 (i32.shl (local.get $t) (i32.const 3)) (v128.load64_zero offset=512 (i32.shl (local.get $t) (i32.const 3))))))
+                  (local.set $u (f64x2.neg (v128.load64_lane offset=262656 1 (i32.shl (i32.sub (local.get $t) (local.get $offset)) (i32.const 3)) (v128.load64_zero offset=512 (i32.shl (i32.sub (local.get $t) (local.get $offset)) (i32.const 3))))))
                   (local.set $sum (f64x2.add (local.get $h2) (local.get $u)))
                   (local.set $virtual (f64x2.sub (local.get $sum) (local.get $h2)))
                   (local.set $l2 (f64x2.add (local.get $l2) (f64x2.add
@@ -97,6 +105,10 @@
     (f64.store (local.get $at) (f64.add (f64.load (local.get $at)) (f64x2.extract_lane 0 (local.get $squares))))
     (f64.store offset=8 (local.get $at) (f64.add (f64.load offset=8 (local.get $at)) (f64x2.extract_lane 0 (local.get $cross))))
     (f64.store offset=24 (local.get $at) (f64.add (f64.load offset=24 (local.get $at)) (f64x2.extract_lane 1 (local.get $squares)))))
+
+  ;; A running pair's x part at `at` and its y part at `at` + 16 (as storePair leaves them) as one value.
+  (func $loadPair (param $at i32) (result v128)
+    (v128.load64_lane offset=16 1 (local.get $at) (v128.load64_zero (local.get $at))))
 
   ;; The running pairs at `at`: hx lx hy ly.
   (func $storePair (param $at i32) (param $h v128) (param $l v128)
@@ -173,35 +185,47 @@
         (local.set $t (i32.add (local.get $t) (i32.const 1)))
         (br $row))))
 
-  ;; sharpe.ts sharpeStdErrors' passes over a whole series of n rows in column 0: the mean mu (plain
-  ;; sum over n), the sum of squared deviations ss, sigma = sqrt(ss / (n - 1)), then z = (x - mu) / sigma
-  ;; into column 1 and z^2 - 1 into column 2 with their sums. State 0..7: mu ss sigma m2 m3 m4 sumFirst
-  ;; sumSecond.
-  (func (export "standardise") (param $n i32)
-    (local $t i32) (local $p i32) (local $mu f64) (local $ss f64) (local $sigma f64) (local $d f64)
-    (local $z f64) (local $zz f64) (local $m2 f64) (local $m3 f64) (local $m4 f64) (local $sumFirst f64)
-    (local $sumSecond f64)
+  ;; sharpe.ts standardise, chunk by chunk (`count` rows of the series in column 0 each), three passes
+  ;; over the whole series, each call continuing its sums in the state: the plain sum (state 0), the
+  ;; squared deviations about the mean mu (state 1), then z = (x - mu) / sigma into column 1 and
+  ;; z^2 - 1 into column 2 with the sums of z^2, z^3, z^4, z and z^2 - 1 (state 3..7).
+  (func (export "sumOfOne") (param $count i32)
+    (local $p i32) (local $stop i32) (local $sum f64)
+    (local.set $sum (f64.load (i32.const 0)))
+    (local.set $stop (i32.shl (local.get $count) (i32.const 3)))
     (block $done
       (loop $row
-        (br_if $done (i32.ge_s (local.get $t) (local.get $n)))
-        (local.set $mu (f64.add (local.get $mu) (f64.load offset=512 (i32.shl (local.get $t) (i32.const 3)))))
-        (local.set $t (i32.add (local.get $t) (i32.const 1)))
+        (br_if $done (i32.ge_u (local.get $p) (local.get $stop)))
+        (local.set $sum (f64.add (local.get $sum) (f64.load offset=512 (local.get $p))))
+        (local.set $p (i32.add (local.get $p) (i32.const 8)))
         (br $row)))
-    (local.set $mu (f64.div (local.get $mu) (f64.convert_i32_s (local.get $n))))
-    (local.set $t (i32.const 0))
+    (f64.store (i32.const 0) (local.get $sum)))
+
+  (func (export "squaredDeviations") (param $count i32) (param $mu f64)
+    (local $p i32) (local $stop i32) (local $d f64) (local $ss f64)
+    (local.set $ss (f64.load (i32.const 8)))
+    (local.set $stop (i32.shl (local.get $count) (i32.const 3)))
     (block $done
       (loop $row
-        (br_if $done (i32.ge_s (local.get $t) (local.get $n)))
-        (local.set $d (f64.sub (f64.load offset=512 (i32.shl (local.get $t) (i32.const 3))) (local.get $mu)))
+        (br_if $done (i32.ge_u (local.get $p) (local.get $stop)))
+        (local.set $d (f64.sub (f64.load offset=512 (local.get $p)) (local.get $mu)))
         (local.set $ss (f64.add (local.get $ss) (f64.mul (local.get $d) (local.get $d))))
-        (local.set $t (i32.add (local.get $t) (i32.const 1)))
+        (local.set $p (i32.add (local.get $p) (i32.const 8)))
         (br $row)))
-    (local.set $sigma (f64.sqrt (f64.div (local.get $ss) (f64.convert_i32_s (i32.sub (local.get $n) (i32.const 1))))))
-    (local.set $t (i32.const 0))
+    (f64.store (i32.const 8) (local.get $ss)))
+
+  (func (export "standardiseChunk") (param $count i32) (param $mu f64) (param $sigma f64)
+    (local $p i32) (local $stop i32) (local $z f64) (local $zz f64) (local $m2 f64) (local $m3 f64)
+    (local $m4 f64) (local $sumFirst f64) (local $sumSecond f64)
+    (local.set $m2 (f64.load (i32.const 24)))
+    (local.set $m3 (f64.load (i32.const 32)))
+    (local.set $m4 (f64.load (i32.const 40)))
+    (local.set $sumFirst (f64.load (i32.const 48)))
+    (local.set $sumSecond (f64.load (i32.const 56)))
+    (local.set $stop (i32.shl (local.get $count) (i32.const 3)))
     (block $done
       (loop $row
-        (br_if $done (i32.ge_s (local.get $t) (local.get $n)))
-        (local.set $p (i32.shl (local.get $t) (i32.const 3)))
+        (br_if $done (i32.ge_u (local.get $p) (local.get $stop)))
         (local.set $z (f64.div (f64.sub (f64.load offset=512 (local.get $p)) (local.get $mu)) (local.get $sigma)))
         (local.set $zz (f64.sub (f64.mul (local.get $z) (local.get $z)) (f64.const 1)))
         (f64.store offset=262656 (local.get $p) (local.get $z))
@@ -212,11 +236,8 @@
         (local.set $m3 (f64.add (local.get $m3) (f64.mul (f64.mul (local.get $z) (local.get $z)) (local.get $z))))
         (local.set $m4 (f64.add (local.get $m4)
           (f64.mul (f64.mul (f64.mul (local.get $z) (local.get $z)) (local.get $z)) (local.get $z))))
-        (local.set $t (i32.add (local.get $t) (i32.const 1)))
+        (local.set $p (i32.add (local.get $p) (i32.const 8)))
         (br $row)))
-    (f64.store (i32.const 0) (local.get $mu))
-    (f64.store (i32.const 8) (local.get $ss))
-    (f64.store (i32.const 16) (local.get $sigma))
     (f64.store (i32.const 24) (local.get $m2))
     (f64.store (i32.const 32) (local.get $m3))
     (f64.store (i32.const 40) (local.get $m4))

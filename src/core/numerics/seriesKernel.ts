@@ -65,11 +65,13 @@ export interface SeriesKernel extends KernelMemory {
 /** influenceKernel.wat: the uncertainty's passes, over whole series of up to KERNEL_ROWS rows or chunk by chunk. */
 export interface InfluenceKernel extends KernelMemory {
   /**
-   * bartlettWindows.ts windowSquaresOfTwo over the n rows in columns 0 and 1, from a state of zeros:
-   * state[4], state[5] and state[7] are then its sums xx, xy and yy; with `both`, state[12], [13] and
-   * [15] are those of width - 1 (from zeros at 8..15), computed in the same loop.
+   * bartlettWindows.ts windowSquaresOfTwo over windows t = from .. to - 1 (a whole number of blocks from
+   * 1 - width, or up to n) of a series of n rows, its rows from `offset` on in columns 0 and 1 (those the
+   * windows reach), continuing the state (zeros before the first call): state[4], state[5] and state[7]
+   * are then its sums xx, xy and yy; with `both`, state[12], [13] and [15] are those of width - 1 (from
+   * zeros at 8..15), computed in the same loop.
    */
-  windowsOfTwo(n: number, width: number, both: boolean): void;
+  windowsOfTwo(from: number, to: number, offset: number, n: number, width: number, both: boolean): void;
   /** boundsLongRun.ts plainSumsChunk over `count` rows in columns 0 and 1: state 0, 1 (sx, sy) continued. */
   plainSumsOfTwo(count: number): void;
   /** boundsLongRun.ts centredChunk about mx, my: state 2..4 (sxx, syy, sxy) continued. */
@@ -79,11 +81,12 @@ export interface InfluenceKernel extends KernelMemory {
    * the lower bound's series into column 2, the upper's into 3.
    */
   influenceOfTwo(count: number, mx: number, my: number, m0: number, m1: number, m2: number): void;
-  /**
-   * sharpe.ts sharpeStdErrors' passes over the n rows in column 0: z into column 1, z^2 - 1 into
-   * column 2; state 0..7 mu, ss, sigma, m2, m3, m4 and the sums of z and z^2 - 1.
-   */
-  standardise(n: number): void;
+  /** sharpe.ts standardise's passes over `count` rows in column 0, continuing the state: the plain sum into state 0. */
+  sumOfOne(count: number): void;
+  /** The squared deviations about mu into state 1. */
+  squaredDeviations(count: number, mu: number): void;
+  /** z = (x - mu) / sigma into column 1, z^2 - 1 into column 2; the sums of z^2, z^3, z^4, z and z^2 - 1 into state 3..7. */
+  standardiseChunk(count: number, mu: number, sigma: number): void;
   /**
    * assessPricing.ts influenceChunk over count <= PRICING_ROWS rows (low, high, rates in columns 0, 1,
    * 3; its 17 terms as parameters): the six series into column 2, PRICING_ROWS rows apart.
@@ -182,6 +185,15 @@ export function inChunks(
   }
 }
 
+/** `inChunks` for one series, copied into column 0. */
+export function inChunksOfOne(kernel: KernelMemory, x: ArrayLike<number>, pass: (from: number, count: number) => void): void {
+  for (let from = 0; from < x.length; from += KERNEL_ROWS) {
+    const to = Math.min(x.length, from + KERNEL_ROWS);
+    copyRows(kernel.columns[0], x, from, to);
+    pass(from, to - from);
+  }
+}
+
 /** Copies rows [from, to) of `source` to the start of `column` (to - from <= KERNEL_ROWS). */
 export function copyRows(column: Float64Array, source: ArrayLike<number>, from: number, to: number): void {
   if (source instanceof Float64Array) column.set(source.subarray(from, to));
@@ -222,11 +234,13 @@ function columnFunctions(f: Record<string, Exported>, buffer: ArrayBuffer): Omit
 
 function influenceFunctions(f: Record<string, Exported>, buffer: ArrayBuffer): Omit<InfluenceKernel, keyof KernelMemory> {
   return {
-    windowsOfTwo: (n, width, both) => void f.windowsOfTwo!(n, width, flag(both)),
+    windowsOfTwo: (from, to, offset, n, width, both) => void f.windowsOfTwo!(from, to, offset, n, width, flag(both)),
     plainSumsOfTwo: f.plainSumsOfTwo!,
     centredSumsOfTwo: f.centredSumsOfTwo!,
     influenceOfTwo: f.influenceOfTwo!,
-    standardise: f.standardise!,
+    sumOfOne: f.sumOfOne!,
+    squaredDeviations: f.squaredDeviations!,
+    standardiseChunk: f.standardiseChunk!,
     pricingInfluence: (count, hasRates, rate) => f.pricingInfluence!(count, flag(hasRates), rate),
     pricingSeries: (k, count) => new Float64Array(buffer, 512 + 2 * KERNEL_ROWS * 8 + k * PRICING_ROWS * 8, count),
   };

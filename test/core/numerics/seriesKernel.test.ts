@@ -76,20 +76,21 @@ describe("excessCrossProducts in the kernel", () => {
 
 describe("windowSquaresOfTwo in the kernel", () => {
   it("equals the JavaScript windows bit for bit across widths and block edges", () => {
-    for (const [i, n] of [1, 2, 5, 1023, 1024, 1025, 2520, 10_000, KERNEL_ROWS].entries()) {
+    for (const [i, n] of [1, 2, 5, 1023, 1024, 1025, 2520, 10_000, KERNEL_ROWS, 2 * KERNEL_ROWS + 17].entries()) {
       const x = edgeSeries(n, 300 + i, 0, 0.01);
       const y = edgeSeries(n, 400 + i, 0.001, 0.03);
-      for (const width of [1, 2, 7, 31, 1024, 1500, n + 3]) {
+      // Beyond a column, and windows so wide that a chunk holds few blocks (or none: the JavaScript path).
+      for (const width of [1, 2, 7, 31, 1024, 1500, 20_000, KERNEL_ROWS - 1024, n + 3]) {
         expectSameBits(windowSquaresOfTwo(x, y, width), windowSquaresOfTwo(x, y, width, false), `n ${n}, width ${width}`);
       }
     }
   });
 
   it("gives both widths in one pass, each the JavaScript windows of its width bit for bit", () => {
-    for (const [i, n] of [1, 2, 5, 1022, 1023, 1024, 1025, 2520, KERNEL_ROWS].entries()) {
+    for (const [i, n] of [1, 2, 5, 1022, 1023, 1024, 1025, 2520, KERNEL_ROWS, 2 * KERNEL_ROWS + 17].entries()) {
       const x = edgeSeries(n, 700 + i, 0, 0.01, i % 3);
       const y = edgeSeries(n, 800 + i, 0.001, 0.03);
-      for (const width of [2, 3, 31, 1023, 1024, 1025, 1026, n + 1, n + 3]) {
+      for (const width of [2, 3, 31, 1023, 1024, 1025, 1026, 20_000, n + 1, n + 3]) {
         const [wide, narrow] = windowSquaresOfTwoWidths(x, y, width, true);
         expectSameBits(wide, windowSquaresOfTwo(x, y, width, false), `n ${n}, width ${width}`);
         expectSameBits(narrow ?? [], windowSquaresOfTwo(x, y, width - 1, false), `n ${n}, width ${width - 1}`);
@@ -130,10 +131,11 @@ describe("windowSquaresOfTwo in the kernel", () => {
     expectSameBits(windowSquaresOfTwo(x, y, 40), first, "again");
   });
 
-  it("hands longer series to the JavaScript loop", () => {
-    const n = KERNEL_ROWS + 5;
+  it("goes chunk by chunk over longer series, each chunk's windows continuing the last's", () => {
+    const n = 3 * KERNEL_ROWS + 5;
     const x = edgeSeries(n, 7);
     const y = edgeSeries(n, 8);
-    expectSameBits(windowSquaresOfTwo(x, y, 50), windowSquaresOfTwo(x, y, 50, false), "long");
+    for (const width of [50, 1024, 1025, KERNEL_ROWS - 1025, KERNEL_ROWS - 1024])
+      expectSameBits(windowSquaresOfTwo(x, y, width), windowSquaresOfTwo(x, y, width, false), `long, width ${width}`);
   });
 });

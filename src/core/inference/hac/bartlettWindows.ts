@@ -18,7 +18,7 @@
  * summed in blocks of 1,024 windows (pairwise at one level) to keep the total's rounding small.
  */
 import type { Matrix } from "../../numerics/linearAlgebra.js";
-import { influenceKernel, KERNEL_ROWS } from "../../numerics/seriesKernel.js";
+import { copyRows, influenceKernel, KERNEL_ROWS } from "../../numerics/seriesKernel.js";
 
 /** Windows per block of the sums of W W' (each block summed apart, then added to the total). */
 const BLOCK = 1024;
@@ -138,9 +138,10 @@ function windowSquares(columns: readonly Float64Array[], width: number): Float64
  * windowSquares for two columns (most sums: the bounds, each Sharpe ratio, each CAPM fit), the same
  * operations in the same order with the running pairs in local variables: the same bits, faster. The
  * windows go by blocks of 1,024 (the blocks of the sums) in a small function V8 optimises whole; the
- * running pairs and the total are carried in `state`. Series of up to KERNEL_ROWS rows go through the
- * WebAssembly twin (numerics/seriesKernel.ts, the same bits) unless `useKernel` is false: short series
- * would run this loop in V8's interpreter.
+ * running pairs and the total are carried in `state`. They go through the WebAssembly twin
+ * (numerics/seriesKernel.ts, the same bits) chunk by chunk at every length unless `useKernel` is false
+ * or a window is nearly as long as a chunk: a JavaScript loop runs unoptimised for its first tens of
+ * thousands of rows.
  */
 export function windowSquaresOfTwo(x: Float64Array, y: Float64Array, width: number, useKernel = true): Float64Array {
   return windowSquaresOfTwoWidths(x, y, width, false, useKernel)[0];
@@ -158,12 +159,20 @@ export function windowSquaresOfTwoWidths(
   useKernel = true,
 ): WidthSquares {
   const n = x.length;
-  const kernel = useKernel && n <= KERNEL_ROWS ? influenceKernel() : null;
+  // Windows per call: whole blocks, with the rows they reach (width - 1 more) within a column.
+  const span = Math.floor((KERNEL_ROWS - width) / BLOCK) * BLOCK;
+  const kernel = useKernel && span > 0 ? influenceKernel() : null;
   if (kernel === null) return [windowSquaresOfTwoInJs(x, y, width), narrower ? windowSquaresOfTwoInJs(x, y, width - 1) : null];
-  kernel.columns[0].set(x);
-  kernel.columns[1].set(y);
   kernel.state.fill(0, 0, 16);
-  kernel.windowsOfTwo(n, width, narrower);
+  for (let from = 1 - width; from < n; from += span) {
+    const to = Math.min(n, from + span);
+    // Window t leaves row t - 1 and takes rows up to t + width - 1 (the narrower one leaves row t).
+    const first = Math.max(0, from - 1);
+    const end = Math.min(n, to + width - 1);
+    copyRows(kernel.columns[0], x, first, end);
+    copyRows(kernel.columns[1], y, first, end);
+    kernel.windowsOfTwo(from, to, first, n, width, narrower);
+  }
   // Each width's state: hx, lx, hy, ly, then the totals xx, xy, -, yy (returned as its subarray(4)).
   const state = kernel.state.slice(0, 16);
   return [state.subarray(4, 8), narrower ? state.subarray(12, 16) : null];
