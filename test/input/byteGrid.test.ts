@@ -47,3 +47,34 @@ describe("the byte grid's field counts", () => {
     );
   });
 });
+
+describe("the byte grid's search for rows that may be blank", () => {
+  it("passes over no blank row, and stops at every row whose first byte is not printable or is the delimiter", () => {
+    const piece = fc.constantFrom(",", ";", "\t", " ", "a", "1", "\n", "\r\n", "\u00a0", "\u0001", "\u007f");
+    fc.assert(
+      fc.property(
+        fc.array(piece, { minLength: 1, maxLength: 200 }),
+        fc.constantFrom(",", ";", "\t"),
+        fc.nat(),
+        (pieces, delimiter, seed) => {
+          // Latin-1 bytes: a byte above 127 is not plain, so plainLines may refuse; those texts are skipped.
+          const text = pieces.join("");
+          const bytes = ascii(text);
+          const lines = plainLines(bytes, 0);
+          if (lines === null) return;
+          const grid = byteGrid(memoryFile(bytes, lines).bytes, lines, delimiter);
+          const from = grid.rowCount === 0 ? 0 : seed % grid.rowCount;
+          const next = grid.nextMaybeBlank(from);
+          expect(next).toBeGreaterThanOrEqual(from);
+          expect(next).toBeLessThanOrEqual(grid.rowCount);
+          for (let row = from; row < next; row++) expect(grid.isBlank(row)).toBe(false);
+          if (next < grid.rowCount) {
+            const first = bytes[lines.starts[next] ?? 0] ?? 0;
+            expect(first <= 32 || first >= 128 || first === delimiter.charCodeAt(0)).toBe(true);
+          }
+        },
+      ),
+      { seed: 20261205, numRuns: 2000 },
+    );
+  });
+});

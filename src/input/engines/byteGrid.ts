@@ -57,6 +57,8 @@ class ByteGrid implements ByteGridOf {
   private checkedTo = 0;
   /** Set when readRows met a byte that is not plain. */
   private unplain = false;
+  /** The first bytes as text and the search for those that may begin a blank row (nextMaybeBlank), once asked. */
+  private maybeBlank: { readonly text: string; readonly pattern: RegExp } | null = null;
   /** Where the row `reachRow` last reached starts and ends (before any CR LF) in its bytes. */
   private rowStart = 0;
   private rowEnd = 0;
@@ -120,6 +122,24 @@ class ByteGrid implements ByteGridOf {
     return true;
   }
 
+  /**
+   * A row may be blank only when its first byte is not printable ASCII or is the delimiter (isBlank's
+   * first test). The first bytes are searched as Latin-1 text by a regular expression, natively: a loop
+   * over them ran in V8's interpreter, about 0.3 microseconds a row on 10,000 rows.
+   */
+  nextMaybeBlank(from: number): number {
+    const rows = this.rowCount;
+    if (this.maybeBlank === null) {
+      const firsts = this.firstBytes;
+      const text = Buffer.from(firsts.buffer, firsts.byteOffset, Math.min(rows, firsts.length)).toString("latin1");
+      const d = this.d.toString(16).padStart(2, "0");
+      this.maybeBlank = { text, pattern: new RegExp(`[^\\x21-\\x7f]|\\x${d}`, "g") };
+    }
+    const { text, pattern } = this.maybeBlank;
+    pattern.lastIndex = from;
+    const found = pattern.exec(text);
+    return found === null ? rows : found.index;
+  }
   fieldCount(row: number): number {
     if (this.isBlank(row)) return 0;
     const { d } = this;

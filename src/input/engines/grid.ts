@@ -15,6 +15,11 @@ export interface Grid {
   line(row: number): number;
   /** True when every field is empty after trimming white space. */
   isBlank(row: number): boolean;
+  /**
+   * Optional shortcut for finding blank rows: the first row from `from` on that may be blank (every
+   * row before it is not), or rowCount when none may be.
+   */
+  nextMaybeBlank?(from: number): number;
   /** Number of fields; 0 for a blank row. */
   fieldCount(row: number): number;
   /** The text of one field, untrimmed ("" beyond the last field). */

@@ -34,6 +34,8 @@ export function listBlocks(grid: Grid): Block[] {
   const blocks: Block[] = [];
   let start = -1;
   for (let row = 0; row <= grid.rowCount; row++) {
+    // Within a block, the rows before the next that may be blank are not: go to it.
+    if (start >= 0 && grid.nextMaybeBlank !== undefined) row = Math.max(row, grid.nextMaybeBlank(row));
     const blank = row === grid.rowCount || grid.isBlank(row);
     if (blank && start >= 0) {
       blocks.push({ start, end: row });
