@@ -144,6 +144,14 @@ describe("readReturns: errors", () => {
     expect(readIssues(text)).toEqual([{ code: "wrong-field-count", source: "returns.csv", line: 3, expected: 3, actual: 2 }]);
   });
 
+  it("reports a row with the wrong number of fields far into a long file (past the counts compared at once)", () => {
+    // 40,000 daily rows from 1950 (integer day numbers as dates would not be dates): one short row at line 35,002.
+    const day = (k: number) => new Date(Date.UTC(1950, 0, 1) + k * 86_400_000).toISOString().slice(0, 10);
+    const rows = Array.from({ length: 40_000 }, (_, k) => (k === 35_000 ? `${day(k)},0.01` : `${day(k)},0.01,0.02`));
+    const text = `Date,Low Fund,High Fund\n${rows.join("\n")}\n`;
+    expect(readIssues(text)).toEqual([{ code: "wrong-field-count", source: "returns.csv", line: 35_002, expected: 3, actual: 2 }]);
+  });
+
   it("reports duplicate dates with both lines", () => {
     const text = "Date,Low Fund,High Fund\n2020-01-31,0.01,0.02\n2020-02-29,0.01,0.02\n2020-02-29,0.01,0.02\n2020-03-31,0.01,0.02\n";
     expect(readIssues(text)).toEqual([

@@ -19,12 +19,12 @@ export function checkFieldCounts(
   issues: IssueList,
 ): boolean {
   const expected = header.length;
+  if (allEqualTo(counts.subarray(0, rows.length), expected)) return true;
   let fine = true;
   for (let i = 0; i < rows.length; i++) {
     const actual = counts[i] as number;
     if (actual === expected) continue;
     const row = rows[i] as number;
-    if (actual === expected) continue;
     const fields = grid.fields(row);
     if (actual > expected && fields.slice(expected).every((f) => f.trim() === "")) continue;
     fine = false;
@@ -45,4 +45,21 @@ function findSplitNumber(fields: readonly string[]): number | undefined {
     if (INTEGER_PART.test(fields[i] as string) && FRACTION_PART.test(fields[i + 1] as string)) return i;
   }
   return undefined;
+}
+
+/** Counts compared at once with a run of the expected count. */
+const RUN = 16_384;
+
+/**
+ * True when every count is `expected`: compared by Buffer.compare, natively, a run at a time (a loop
+ * over the counts ran in V8's interpreter for the first thousands of rows, about 0.2 microseconds a row).
+ */
+function allEqualTo(counts: Int32Array, expected: number): boolean {
+  const run = Buffer.from(new Int32Array(Math.min(RUN, counts.length)).fill(expected).buffer);
+  for (let from = 0; from < counts.length; from += RUN) {
+    const length = 4 * (Math.min(counts.length, from + RUN) - from);
+    const got = Buffer.from(counts.buffer, counts.byteOffset + 4 * from, length);
+    if (got.compare(run, 0, length) !== 0) return false;
+  }
+  return true;
 }
