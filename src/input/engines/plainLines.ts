@@ -143,3 +143,21 @@ export function isAsciiWhiteSpace(bytes: Uint8Array, from: number, to: number): 
   }
   return true;
 }
+
+/** Values allEqualTo compares at once with a run of the expected one. */
+const RUN = 16_384;
+
+/**
+ * True when every value is `expected`: compared by Buffer.compare, natively, a run at a time (a loop
+ * over them ran in V8's interpreter for the first thousands of rows, about 0.2 microseconds a row; the
+ * check of every row's field count, table/rowShape.ts).
+ */
+export function allEqualTo(values: Int32Array, expected: number): boolean {
+  const run = Buffer.from(new Int32Array(Math.min(RUN, values.length)).fill(expected).buffer);
+  for (let from = 0; from < values.length; from += RUN) {
+    const length = 4 * (Math.min(values.length, from + RUN) - from);
+    const got = Buffer.from(values.buffer, values.byteOffset + 4 * from, length);
+    if (got.compare(run, 0, length) !== 0) return false;
+  }
+  return true;
+}

@@ -1,5 +1,6 @@
 /** Checking that each data row has as many fields as the header, and explaining when not. */
 import type { Grid } from "../engines/grid.js";
+import { allEqualTo } from "../engines/plainLines.js";
 import type { IssueList } from "../issueList.js";
 
 const INTEGER_PART = /^\s*[+-]?\d+$/;
@@ -45,21 +46,4 @@ function findSplitNumber(fields: readonly string[]): number | undefined {
     if (INTEGER_PART.test(fields[i] as string) && FRACTION_PART.test(fields[i + 1] as string)) return i;
   }
   return undefined;
-}
-
-/** Counts compared at once with a run of the expected count. */
-const RUN = 16_384;
-
-/**
- * True when every count is `expected`: compared by Buffer.compare, natively, a run at a time (a loop
- * over the counts ran in V8's interpreter for the first thousands of rows, about 0.2 microseconds a row).
- */
-function allEqualTo(counts: Int32Array, expected: number): boolean {
-  const run = Buffer.from(new Int32Array(Math.min(RUN, counts.length)).fill(expected).buffer);
-  for (let from = 0; from < counts.length; from += RUN) {
-    const length = 4 * (Math.min(counts.length, from + RUN) - from);
-    const got = Buffer.from(counts.buffer, counts.byteOffset + 4 * from, length);
-    if (got.compare(run, 0, length) !== 0) return false;
-  }
-  return true;
 }
