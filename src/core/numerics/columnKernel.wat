@@ -8,7 +8,7 @@
 ;; Memory: as seriesKernel.wat's (seriesKernel.ts lays out the kernels); the passes read the columns from
 ;; 512 (up to 4 x 32,768 doubles) and write counts to the state at 0 or results after the columns.
 (module
-  (memory (export "memory") 17 17)
+  (import "env" "memory" (memory 17 17))
 
   ;; The first i < count with |x[i]| > limit, or -1 (convert.ts nextExtreme).
   (func (export "firstBeyond") (param $count i32) (param $limit f64) (result i32)

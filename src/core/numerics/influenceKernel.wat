@@ -6,7 +6,7 @@
 ;; Memory: as seriesKernel.wat's (seriesKernel.ts lays out both): a state of up to 32 doubles at 0, up
 ;; to 32 parameters at 256, then four columns of 32,768 doubles from 512.
 (module
-  (memory (export "memory") 17 17)
+  (import "env" "memory" (memory 17 17))
 
   ;; bartlettWindows.ts windowSquaresOfTwo over the windows t = $from .. $to - 1 of a series of n rows
   ;; (all of them: $from = 1 - width, $to = n), x in column 0 and y in column 1 from row $offset on (the

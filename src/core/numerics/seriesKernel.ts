@@ -10,9 +10,12 @@
  * same bits (test/core/numerics/seriesKernel*.test.ts compare both); each twin stays as the fallback
  * where WebAssembly is missing (the kernels are then null) and as the reference.
  *
- * Memory of each (17 pages, about 1 MB, committed as it is touched): a state of up to 32 doubles at 0,
- * up to 32 parameters at 256, then four columns of KERNEL_ROWS doubles from 512, into which the caller
- * copies a series or a chunk of its rows (`copyRows`). Passes that need the whole series at once take
+ * Memory, one for the three (17 pages, about 1 MB, committed as it is touched): a state of up to 32
+ * doubles at 0, up to 32 parameters at 256, then four columns of KERNEL_ROWS doubles from 512, into which
+ * the caller copies a series or a chunk of its rows (`copyRows`). Shared, because every first touch of a
+ * page costs about 10 microseconds on the virtual machines we measure on: three memories faulted in
+ * their pages three times over. So a pass (the calls that carry a state or fill columns, and reading
+ * what they leave) must not call another kernel of the three midway; none does. Passes that need the whole series at once take
  * series of up to KERNEL_ROWS rows; longer ones run long enough in JavaScript to be optimised there.
  */
 import { influenceKernelWasm } from "./influenceKernelWasm.js";
@@ -21,6 +24,8 @@ import { seriesKernelWasm } from "./seriesKernelWasm.js";
 
 /** Rows a column of a kernel holds (a series, or a chunk of a pass over a longer one). */
 export const KERNEL_ROWS = 32_768;
+/** Pages (64 KiB) of the kernels' memory: 512 bytes of state and parameters, then the four columns. */
+const KERNEL_PAGES = 17;
 /** Doubles the four columns hold together (`area`), for passes over several columns or a long one. */
 export const AREA_ROWS = 4 * KERNEL_ROWS;
 /** Rows per chunk of `pricingInfluence` (its six outputs share column 2). */
@@ -144,14 +149,20 @@ export function wasmBinary(base64: string): Uint8Array {
 }
 
 /**
- * A kernel compiled and instantiated from its base64 text, with `make` building its views and functions
- * over the exports and the memory; null where WebAssembly is missing or fails (every kernel's callers
+ * A kernel compiled and instantiated from its base64 text (given `memory`, importing that memory), with
+ * `make` building its views and functions over the exports and the memory; null where WebAssembly is missing or fails (every kernel's callers
  * then take the JavaScript path).
  */
-export function kernelInstance<T>(base64: string, make: (exports: Record<string, unknown>, memory: WebAssembly.Memory) => T): T | null {
+export function kernelInstance<T>(
+  base64: string,
+  make: (exports: Record<string, unknown>, memory: WebAssembly.Memory) => T,
+  memory?: () => WebAssembly.Memory,
+): T | null {
   try {
-    const { exports } = new WebAssembly.Instance(new WebAssembly.Module(wasmBinary(base64)));
-    return make(exports, exports.memory as WebAssembly.Memory);
+    const imported = memory?.();
+    const module = new WebAssembly.Module(wasmBinary(base64));
+    const { exports } = new WebAssembly.Instance(module, imported === undefined ? undefined : { env: { memory: imported } });
+    return make(exports, imported ?? (exports.memory as WebAssembly.Memory));
   } catch {
     return null;
   }
@@ -250,14 +261,26 @@ function instantiate<T>(
   base64: string,
   functions: (f: Record<string, Exported>, buffer: ArrayBuffer) => Omit<T, keyof KernelMemory>,
 ): (T & KernelMemory) | null {
-  return kernelInstance(base64, (exports, { buffer }) => {
-    const column = (k: number): Float64Array => new Float64Array(buffer, 512 + k * KERNEL_ROWS * 8, KERNEL_ROWS);
-    const memory: KernelMemory = {
-      state: new Float64Array(buffer, 0, 32),
-      parameters: new Float64Array(buffer, 256, 32),
-      columns: [column(0), column(1), column(2), column(3)],
-      area: new Float64Array(buffer, 512, AREA_ROWS),
-    };
-    return { ...memory, ...functions(exports as unknown as Record<string, Exported>, buffer) } as T & KernelMemory;
-  });
+  return kernelInstance(
+    base64,
+    (exports, { buffer }) => {
+      const column = (k: number): Float64Array => new Float64Array(buffer, 512 + k * KERNEL_ROWS * 8, KERNEL_ROWS);
+      const memory: KernelMemory = {
+        state: new Float64Array(buffer, 0, 32),
+        parameters: new Float64Array(buffer, 256, 32),
+        columns: [column(0), column(1), column(2), column(3)],
+        area: new Float64Array(buffer, 512, AREA_ROWS),
+      };
+      return { ...memory, ...functions(exports as unknown as Record<string, Exported>, buffer) } as T & KernelMemory;
+    },
+    sharedMemory,
+  );
+}
+
+let shared: WebAssembly.Memory | undefined;
+
+/** The memory the three kernels share (made by the first of them, never grown: views into it stay valid). */
+function sharedMemory(): WebAssembly.Memory {
+  shared ??= new WebAssembly.Memory({ initial: KERNEL_PAGES, maximum: KERNEL_PAGES });
+  return shared;
 }

@@ -4,10 +4,12 @@
 ;; makes no garbage. Each function does the arithmetic of its JavaScript twin in the same order, one
 ;; rounded operation at a time (no fused multiply-add), so the results are the same bits.
 ;;
-;; Memory: 17 pages, laid out by seriesKernel.ts: a state of up to 32 doubles at 0, up to 32 parameters
-;; at 256, then four columns of 32,768 doubles from 512 (a series or a chunk of it, copied in by the caller).
+;; Memory: 17 pages, imported: the one memory this kernel shares with influenceKernel.wat and
+;; columnKernel.wat (seriesKernel.ts), laid out there: a state of up to 32 doubles at 0, up to 32
+;; parameters at 256, then four columns of 32,768 doubles from 512 (a series or a chunk of it, copied in
+;; by the caller). A pass keeps nothing there between the calls of other kernels.
 (module
-  (memory (export "memory") 17 17)
+  (import "env" "memory" (memory 17 17))
 
   ;; Neumaier's compensated update, written out at each use in the loop below:
   ;;   next = s + t; c += |s| >= |t| ? (s - next) + t : (t - next) + s; s = next.

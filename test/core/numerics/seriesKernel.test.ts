@@ -18,6 +18,13 @@ describe("the series kernels", () => {
     expect(influenceKernel()).not.toBeNull();
     expect(columnKernel()).not.toBeNull();
   });
+
+  it("share one memory (its pages are first touched once, not once per kernel)", () => {
+    const buffer = seriesKernel()?.area.buffer;
+    expect(buffer).toBeDefined();
+    expect(influenceKernel()?.area.buffer).toBe(buffer);
+    expect(columnKernel()?.area.buffer).toBe(buffer);
+  });
 });
 
 describe("excessCrossProducts in the kernel", () => {
