@@ -10,13 +10,16 @@
  * same bits (test/core/numerics/seriesKernel*.test.ts compare both); each twin stays as the fallback
  * where WebAssembly is missing (the kernels are then null) and as the reference.
  *
- * Memory, one for the three (17 pages, about 1 MB, committed as it is touched): a state of up to 32
- * doubles at 0, up to 32 parameters at 256, then four columns of KERNEL_ROWS doubles from 512, into which
- * the caller copies a series or a chunk of its rows (`copyRows`). Shared, because every first touch of a
- * page costs about 10 microseconds on the virtual machines we measure on: three memories faulted in
- * their pages three times over. So a pass (the calls that carry a state or fill columns, and reading
- * what they leave) must not call another kernel of the three midway; none does. Passes that need the whole series at once take
- * series of up to KERNEL_ROWS rows; longer ones run long enough in JavaScript to be optimised there.
+ * Memory: one for the three and the autocovariance kernel (inference/hac/autocovarianceKernel.ts, which
+ * lays out its own sixteen pages), 17 pages, about 1 MB, committed as it is touched. Here: a state of up
+ * to 32 doubles at 0, up to 32 parameters at 256, then four columns of KERNEL_ROWS doubles from 512, into
+ * which the caller copies a series or a chunk of its rows (`copyRows`). Shared because every first touch
+ * of a page costs about 10 microseconds on the virtual machines we measure on, and with a memory each
+ * the kernels' copies of the same sample faulted their pages once per kernel. So a pass (the calls that
+ * carry a state or fill columns, and the reading of what they leave) must not call another of these
+ * kernels midway; none does. Every pass runs chunk by chunk at any length, those that need the whole
+ * series as several passes with their sums carried in the state (the window sums with a window nearly
+ * as long as a column excepted: they stay in JavaScript).
  */
 import { influenceKernelWasm } from "./influenceKernelWasm.js";
 import { columnKernelWasm } from "./columnKernelWasm.js";
@@ -273,14 +276,17 @@ function instantiate<T>(
       };
       return { ...memory, ...functions(exports as unknown as Record<string, Exported>, buffer) } as T & KernelMemory;
     },
-    sharedMemory,
+    sharedKernelMemory,
   );
 }
 
 let shared: WebAssembly.Memory | undefined;
 
-/** The memory the three kernels share (made by the first of them, never grown: views into it stay valid). */
-function sharedMemory(): WebAssembly.Memory {
+/**
+ * The memory the three kernels share, and the autocovariance kernel too (hac/autocovarianceKernel.ts):
+ * made by the first of them, never grown, so views into it stay valid.
+ */
+export function sharedKernelMemory(): WebAssembly.Memory {
   shared ??= new WebAssembly.Memory({ initial: KERNEL_PAGES, maximum: KERNEL_PAGES });
   return shared;
 }

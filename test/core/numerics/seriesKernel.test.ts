@@ -5,6 +5,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { edgeSeries, expectSameBits } from "../../support/kernelTwins.js";
+import { autocovarianceKernel } from "../../../src/core/inference/hac/autocovarianceKernel.js";
 import { windowSquaresOfTwo, windowSquaresOfTwoWidths } from "../../../src/core/inference/hac/bartlettWindows.js";
 import { excessCrossProducts } from "../../../src/core/moments.js";
 import { createRandom } from "../../../src/core/numerics/rng.js";
@@ -24,6 +25,7 @@ describe("the series kernels", () => {
     expect(buffer).toBeDefined();
     expect(influenceKernel()?.area.buffer).toBe(buffer);
     expect(columnKernel()?.area.buffer).toBe(buffer);
+    expect(autocovarianceKernel(8, 64)?.sums.buffer).toBe(buffer);
   });
 });
 

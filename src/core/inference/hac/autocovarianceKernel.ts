@@ -5,13 +5,14 @@
  * tests compare both). About three times faster than that loop; null where WebAssembly or its SIMD is
  * unavailable, or for more lags than the kernel has room for (the JavaScript loop is used).
  *
- * Memory (sixteen pages, committed as they are touched): the sums at 0 (MAX_LAGS + 1 doubles), then a
+ * Memory (the series kernels' shared memory, seriesKernel.ts, of which this kernel uses the first sixteen
+ * pages; committed as they are touched: sharing it, the columns' pages are faulted once): the sums at 0 (MAX_LAGS + 1 doubles), then a
  * block of rows and its lags, with 8 doubles of room after them for the lanes past the last lag; the
  * second page stages a column's rows for `weigh` (a short sample's weighted rows would otherwise be
  * formed in V8's interpreter); from the third, the weights and whole columns of `weightedSums`, which
  * does a short sample's weighted sums in one call instead of two calls a column and a block.
  */
-import { kernelInstance } from "../../numerics/seriesKernel.js";
+import { kernelInstance, sharedKernelMemory } from "../../numerics/seriesKernel.js";
 import { autocovarianceKernelWasm } from "./autocovarianceKernelWasm.js";
 
 /** Most lags the kernel takes (its sums and the rows after a block fit its one page). */
@@ -58,23 +59,34 @@ export function autocovarianceKernel(lags: number, blockRows: number): Autocovar
 }
 
 function instantiate(): AutocovarianceKernel | null {
-  return kernelInstance(autocovarianceKernelWasm, (exports, memory) => {
-    const run = exports.block as (f: number, begin: number, end: number, rows: number, lags: number, sums: number) => void;
-    const weigh = exports.weigh as (f: number, g: number, count: number, w: number, add: number) => void;
-    const weightedSums = exports.weightedSums as (at: number, k: number, n: number, lags: number, blockRows: number, sums: number) => void;
-    return {
-      rows: new Float64Array(memory.buffer, ROWS_AT, ROOM),
-      stage: new Float64Array(memory.buffer, STAGE_AT, ROOM),
-      sums: new Float64Array(memory.buffer, SUMS_AT, MAX_KERNEL_LAGS + 1),
-      block: (begin, end, rowCount, lags) => run(ROWS_AT, begin, end, rowCount, lags, SUMS_AT),
-      weigh: (count, w, add) => weigh(ROWS_AT, STAGE_AT, count, w, add ? 1 : 0),
-      wholeColumns: (k, n) => {
-        // The weights, the columns, then the series they form and 8 doubles of room after it.
-        if (k + (k + 1) * n + 8 > WHOLE_ROOM) return null;
-        const columns = Array.from({ length: k }, (_, a) => new Float64Array(memory.buffer, WHOLE_AT + 8 * (k + a * n), n));
-        return { weights: new Float64Array(memory.buffer, WHOLE_AT, k), columns };
-      },
-      weightedSums: (k, n, lags, blockRows) => weightedSums(WHOLE_AT, k, n, lags, blockRows, SUMS_AT),
-    };
-  });
+  return kernelInstance(
+    autocovarianceKernelWasm,
+    (exports, memory) => {
+      const run = exports.block as (f: number, begin: number, end: number, rows: number, lags: number, sums: number) => void;
+      const weigh = exports.weigh as (f: number, g: number, count: number, w: number, add: number) => void;
+      const weightedSums = exports.weightedSums as (
+        at: number,
+        k: number,
+        n: number,
+        lags: number,
+        blockRows: number,
+        sums: number,
+      ) => void;
+      return {
+        rows: new Float64Array(memory.buffer, ROWS_AT, ROOM),
+        stage: new Float64Array(memory.buffer, STAGE_AT, ROOM),
+        sums: new Float64Array(memory.buffer, SUMS_AT, MAX_KERNEL_LAGS + 1),
+        block: (begin, end, rowCount, lags) => run(ROWS_AT, begin, end, rowCount, lags, SUMS_AT),
+        weigh: (count, w, add) => weigh(ROWS_AT, STAGE_AT, count, w, add ? 1 : 0),
+        wholeColumns: (k, n) => {
+          // The weights, the columns, then the series they form and 8 doubles of room after it.
+          if (k + (k + 1) * n + 8 > WHOLE_ROOM) return null;
+          const columns = Array.from({ length: k }, (_, a) => new Float64Array(memory.buffer, WHOLE_AT + 8 * (k + a * n), n));
+          return { weights: new Float64Array(memory.buffer, WHOLE_AT, k), columns };
+        },
+        weightedSums: (k, n, lags, blockRows) => weightedSums(WHOLE_AT, k, n, lags, blockRows, SUMS_AT),
+      };
+    },
+    sharedKernelMemory,
+  );
 }

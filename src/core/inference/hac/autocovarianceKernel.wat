@@ -4,10 +4,11 @@
 ;; every sum is the same bits as the JavaScript pass; a lane past `lags` reads bytes after the block
 ;; (the caller leaves 8 doubles of room) and is never stored.
 ;;
-;; Memory: sixteen pages, laid out by autocovarianceKernel.ts: the sums, then the block's rows; the second
-;; page stages a column's rows for `weigh`; from the third, `weightedSums`'s weights, columns and series.
+;; Memory: imported, the 17 pages the series kernels share (seriesKernel.ts); this kernel uses the first
+;; sixteen, laid out by autocovarianceKernel.ts: the sums, then the block's rows; the second page stages a
+;; column's rows for `weigh`; from the third, `weightedSums`'s weights, columns and series.
 (module
-  (memory (export "memory") 16 16)
+  (import "env" "memory" (memory 17 17))
 
   ;; s + f[u] f[u + lag] for u in [from, to), in order of u (s when the range is empty).
   (func $tail (param $f i32) (param $from i32) (param $to i32) (param $lag i32) (param $s f64) (result f64)
