@@ -6,7 +6,8 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import type { PagedBytes } from "../../src/input/engines/byteWindow.js";
+import { ByteWindow, type PagedBytes, scanPages } from "../../src/input/engines/byteWindow.js";
+import { plainLines } from "../../src/input/engines/plainLines.js";
 import { readColumnSetsFromBytes } from "../../src/input/readBatch.js";
 import { readReturnsFromBytes, type ReadOptions } from "../../src/input/readReturns.js";
 import { expectSameRead } from "./helpers.js";
@@ -140,6 +141,21 @@ describe("a file read through a window", () => {
         },
       ),
       { seed: 20261204, numRuns: 200 },
+    );
+  });
+
+  it("finds the rows and their first bytes as plainLines does on the whole bytes, through any window", () => {
+    // Blank rows, rows of white space and delimiters, a line feed on a window's last byte: every first byte counts.
+    const piece = fc.constantFrom("\n", "\r\n", " ", "\t", ",", "2020-01-31", "0.5", "x", "\n\n");
+    fc.assert(
+      fc.property(fc.array(piece, { minLength: 1, maxLength: 400 }), fc.integer({ min: 16, max: 300 }), (pieces, window) => {
+        const bytes = encode(pieces.join(""));
+        const scanned = scanPages(new ByteWindow(pagedOf(bytes, window)));
+        const whole = plainLines(bytes, Number.POSITIVE_INFINITY);
+        expect(scanned?.lines.starts).toEqual(whole?.starts);
+        expect(scanned?.lines.firstBytes).toEqual(whole?.firstBytes);
+      }),
+      { seed: 20261205, numRuns: 400 },
     );
   });
 });
