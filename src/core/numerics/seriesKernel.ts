@@ -70,7 +70,10 @@ export interface SeriesKernel extends KernelMemory {
   interceptResiduals(count: number, a: number, b: number): void;
 }
 
-/** influenceKernel.wat: the uncertainty's passes, over whole series of up to KERNEL_ROWS rows or chunk by chunk. */
+/**
+ * influenceKernel.wat: the uncertainty's passes, chunk by chunk at any length (those that need the whole
+ * series as several passes, their sums carried in the state).
+ */
 export interface InfluenceKernel extends KernelMemory {
   /**
    * bartlettWindows.ts windowSquaresOfTwo over windows t = from .. to - 1 (a whole number of blocks from
@@ -153,8 +156,8 @@ export function wasmBinary(base64: string): Uint8Array {
 
 /**
  * A kernel compiled and instantiated from its base64 text (given `memory`, importing that memory), with
- * `make` building its views and functions over the exports and the memory; null where WebAssembly is missing or fails (every kernel's callers
- * then take the JavaScript path).
+ * `make` building its views and functions over the exports and the memory; null where WebAssembly is
+ * missing or fails (every kernel's callers then take the JavaScript path).
  */
 export function kernelInstance<T>(
   base64: string,

@@ -140,6 +140,7 @@ class ByteGrid implements ByteGridOf {
     const found = pattern.exec(text);
     return found === null ? rows : found.index;
   }
+
   fieldCount(row: number): number {
     if (this.isBlank(row)) return 0;
     const { d } = this;

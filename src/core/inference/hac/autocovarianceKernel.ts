@@ -5,12 +5,13 @@
  * tests compare both). About three times faster than that loop; null where WebAssembly or its SIMD is
  * unavailable, or for more lags than the kernel has room for (the JavaScript loop is used).
  *
- * Memory (the series kernels' shared memory, seriesKernel.ts, of which this kernel uses the first sixteen
- * pages; committed as they are touched: sharing it, the columns' pages are faulted once): the sums at 0 (MAX_LAGS + 1 doubles), then a
- * block of rows and its lags, with 8 doubles of room after them for the lanes past the last lag; the
- * second page stages a column's rows for `weigh` (a short sample's weighted rows would otherwise be
- * formed in V8's interpreter); from the third, the weights and whole columns of `weightedSums`, which
- * does a short sample's weighted sums in one call instead of two calls a column and a block.
+ * Memory: the series kernels' shared memory (seriesKernel.ts: its pages are faulted once for all of
+ * them), of which this kernel lays out the first sixteen pages, committed as they are touched: the sums
+ * at 0 (MAX_LAGS + 1 doubles), then a block of rows and its lags, with 8 doubles of room after them for
+ * the lanes past the last lag; the second page stages a column's rows for `weigh` (a short sample's
+ * weighted rows would otherwise be formed in V8's interpreter); from the third, the weights and whole
+ * columns of `weightedSums`, which does a short sample's weighted sums in one call instead of two calls a
+ * column and a block.
  */
 import { kernelInstance, sharedKernelMemory } from "../../numerics/seriesKernel.js";
 import { autocovarianceKernelWasm } from "./autocovarianceKernelWasm.js";
