@@ -62,6 +62,13 @@ if (selected && cases.length !== selected.length) {
 }
 const defaultRounds = (c) => (c.data === "minutes10m" || c.data === "daily10m" || c.kind === "roll" ? 3 : c.data === "daily1m" ? 7 : 9);
 const loadAtStart = loadavg();
+/** The first touch of fresh memory (bench/lib/pageTouch.mjs): microseconds per 4 KiB page fault, five runs. */
+const pageTouch = () =>
+  Array.from(
+    { length: 5 },
+    () => JSON.parse(execFileSync(process.execPath, [join(root, "bench", "lib", "pageTouch.mjs")], { encoding: "utf8" })).usPerFault,
+  );
+const pageTouchAtStart = pageTouch();
 const results = [];
 for (const c of cases) {
   const data = dataFile(cacheDir, c.data, rowsScale, log);
@@ -130,13 +137,22 @@ for (const c of cases) {
   results.push({ case: c, data, rounds, sides, runs, checks, missing });
 }
 const loadAtEnd = loadavg();
+const pageTouchAtEnd = pageTouch();
 
 // ---- report ------------------------------------------------------------------------------------
 const summary = results.map((r) => {
   const stat = (name) => {
     const s = r.runs[name].map((m) => m.seconds);
     const rss = r.runs[name].map((m) => m.rssMb).filter((x) => x !== null);
-    return { median: median(s), min: Math.min(...s), max: Math.max(...s), rssMb: rss.length ? Math.max(...rss) : null, all: s };
+    const faults = r.runs[name].map((m) => m.faults).filter((x) => x !== null);
+    return {
+      median: median(s),
+      min: Math.min(...s),
+      max: Math.max(...s),
+      rssMb: rss.length ? Math.max(...rss) : null,
+      faults: faults.length ? median(faults) : null,
+      all: s,
+    };
   };
   const stats = Object.fromEntries(r.sides.map((s) => [s.name, stat(s.name)]));
   const peerMedians = Object.fromEntries(r.sides.filter((s) => s.role === "peer").map((s) => [s.name, stats[s.name].median]));
@@ -164,6 +180,7 @@ const markdown = renderResults({
     loadAtStart,
     loadAtEnd,
     memorySource,
+    pageTouch: { atStart: pageTouchAtStart, atEnd: pageTouchAtEnd, median: median([...pageTouchAtStart, ...pageTouchAtEnd]) },
     date: new Date().toISOString(),
     rowsScale,
   },

@@ -1,5 +1,6 @@
 // Running one side of a case: wall time of the whole process (start-up included) around spawnSync,
-// and its peak resident memory from /usr/bin/time (%M, the child's maximum RSS), when present.
+// and its peak resident memory and page faults from /usr/bin/time (%M, the child's maximum RSS; %R,
+// its minor page faults, those of the processes it waited for included), when present.
 import { spawnSync } from "node:child_process";
 import { closeSync, existsSync, openSync, readFileSync, readSync } from "node:fs";
 
@@ -7,13 +8,15 @@ const timeBinary = existsSync("/usr/bin/time") ? "/usr/bin/time" : null;
 export const memorySource = timeBinary ? "/usr/bin/time -f %M (maximum resident set size)" : "not measured (no /usr/bin/time)";
 
 /**
- * Runs argv (standard output to `stdoutPath`, /dev/null by default) and returns { seconds, rssMb }.
+ * Runs argv (standard output to `stdoutPath`, /dev/null by default) and returns { seconds, rssMb, faults }.
  * Throws with the command's last stderr lines when it fails.
  */
 export function measure(argv, { stdoutPath = "/dev/null", env = process.env, stdinPath = null } = {}) {
   const out = openSync(stdoutPath, "w");
   const input = stdinPath === null ? "ignore" : openSync(stdinPath, "r");
-  const [command, args] = timeBinary ? [timeBinary, ["-f", "BENCH_MAX_RSS_KB %M", ...argv]] : [argv[0], argv.slice(1)];
+  const [command, args] = timeBinary
+    ? [timeBinary, ["-f", "BENCH_MAX_RSS_KB %M BENCH_MINOR_FAULTS %R", ...argv]]
+    : [argv[0], argv.slice(1)];
   const started = process.hrtime.bigint();
   const result = spawnSync(command, args, { stdio: [input, out, "pipe"], env, encoding: "utf8", maxBuffer: 1 << 26 });
   const seconds = Number(process.hrtime.bigint() - started) / 1e9;
@@ -25,7 +28,8 @@ export function measure(argv, { stdoutPath = "/dev/null", env = process.env, std
   }
   const matches = [...result.stderr.matchAll(/BENCH_MAX_RSS_KB (\d+)/g)];
   const rssMb = matches.length > 0 ? Number(matches.at(-1)[1]) / 1024 : null;
-  return { seconds, rssMb };
+  const faults = [...result.stderr.matchAll(/BENCH_MINOR_FAULTS (\d+)/g)];
+  return { seconds, rssMb, faults: faults.length > 0 ? Number(faults.at(-1)[1]) : null };
 }
 
 /** Lines of a (possibly huge) text file, read in 16 MiB chunks. */

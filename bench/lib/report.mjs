@@ -28,6 +28,10 @@ export function renderResults({ summary, full, machine, root, cacheDir, analysis
   md += `- Method: per case one untimed warm-up of every side (its output is what the agreement check reads), then paired rounds: every side once per round, the order rotated between rounds; the figure is the median wall time of the whole process (interpreter start-up, reading the file, the job, writing the output file), min-max in brackets. Peak memory: ${machine.memorySource}, the largest over the rounds. Python is run as the interpreter itself (\`sys.executable\`), never through a version-manager shim. Threads: every side with its defaults (polars and DuckDB use both cores; numpy's BLAS may), and ours also with \`--threads 1\` where the option applies (the bootstrap).\n`;
   md +=
     "- Floors measured in the same rounds: `node -e 0` (node's start-up), `python -c pass` (the interpreter's), `cat FILE > /dev/null` (the file's bytes from the page cache) and `wc -l FILE` (a native pass over the bytes).\n";
+  const touch = machine.pageTouch;
+  const range = (l) => `${Math.min(...l).toFixed(1)}-${Math.max(...l).toFixed(1)}`;
+  if (touch)
+    md += `- First touch of fresh memory (bench/lib/pageTouch.mjs: a new 64 MiB array written once a 4 KiB page, five runs at the start and five at the end): ${touch.median.toFixed(1)} microseconds a page fault (${range(touch.atStart)} at the start, ${range(touch.atEnd)} at the end).\n`;
   md += "- Ratios: our median over the best peer's median and over numpy's (below 1: we are faster).\n\n";
   md +=
     "| case | ours s | numpy s | polars s | DuckDB s | ours / best peer | ours / numpy | peak MB: ours / numpy / polars / DuckDB | floors s: node, python, cat, wc -l |\n";
@@ -50,12 +54,20 @@ export function renderResults({ summary, full, machine, root, cacheDir, analysis
     const million = scaling.find((r) => r.data.rows === 1_000_000) ?? scaling.at(-1);
     md += "\n## Time per row at default settings\n\n";
     md +=
-      "Our median less the median of the same command on the first 300 rows of the same data (the fixed cost: start-up, reading the options, writing; timed in the same rounds), over the extra rows. Linear scaling keeps the last column near 1.\n\n";
+      "Our median less the median of the same command on the first 300 rows of the same data (the fixed cost: start-up, reading the options, writing; timed in the same rounds), over the extra rows. Linear scaling keeps the column against 1,000,000 rows near 1.\n\n";
     md +=
-      "| case | rows | ours s | ours on 300 rows s | microseconds per row | against 1,000,000 rows | peak MB |\n|---|---|---|---|---|---|---|\n";
+      "Page faults: the median count of the rounds (/usr/bin/time's %R, threads and child processes included) less that of the 300-row run, per extra row, and what they cost at the first touch measured above. That is processor time on whichever thread took them: from 1 MiB arrays on, a worker thread takes many of them beside the main one, so the wall pays less; from 128 MiB of input, runs use huge pages (fewer faults, each dearer).\n\n";
+    md +=
+      "| case | rows | ours s | ours on 300 rows s | microseconds per row | against 1,000,000 rows | page faults per 1,000 rows | their cost, microseconds per row | peak MB |\n|---|---|---|---|---|---|---|---|---|\n";
+    const faultsPerRow = (r) => {
+      const [all, tiny] = [r.stats.ours.faults, r.stats["ours, 300 rows"].faults];
+      return all === null || tiny === null ? null : (all - tiny) / (r.data.rows - 300);
+    };
     for (const r of scaling) {
       const us = perRow(r) * 1e6;
-      md += `| (${r.case.id}) | ${r.data.rows.toLocaleString("en-US")} | ${seconds(r.stats.ours.median)} | ${seconds(r.stats["ours, 300 rows"].median)} | ${us.toFixed(3)} | ${(perRow(r) / perRow(million)).toFixed(2)} | ${mb(r.stats.ours.rssMb)} |\n`;
+      const faults = faultsPerRow(r);
+      const faultCells = faults === null ? "- | -" : `${(faults * 1000).toFixed(1)} | ${touch ? (faults * touch.median).toFixed(3) : "-"}`;
+      md += `| (${r.case.id}) | ${r.data.rows.toLocaleString("en-US")} | ${seconds(r.stats.ours.median)} | ${seconds(r.stats["ours, 300 rows"].median)} | ${us.toFixed(3)} | ${(perRow(r) / perRow(million)).toFixed(2)} | ${faultCells} | ${mb(r.stats.ours.rssMb)} |\n`;
     }
   }
   md += "\n## Cases: commands, agreement, every round\n\n";
