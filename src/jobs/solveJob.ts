@@ -18,7 +18,7 @@ import type { JobContext } from "./context.js";
 import { describeInput, loadPairs, type PairLoad, readErrorMessages, readingMessages, runShape, sampleOf } from "./pairTables.js";
 import { pairsFrom } from "./pairs.js";
 import { tool } from "./tool.js";
-import { withScratchAsync } from "../core/numerics/scratch.js";
+import { expectSeries, withScratchAsync } from "../core/numerics/scratch.js";
 import { pricingFor } from "./pricingStep.js";
 import { uncertaintyFor } from "./uncertaintyStep.js";
 import { modelColumns, modelsFor, modelWarnings } from "./modelsStep.js";
@@ -114,6 +114,8 @@ async function solveLoaded(
   const loaded = load.value;
   const { source, pair } = loaded;
   const sample = sampleOf(loaded);
+  // The uncertainty's long series, asked for now: their memory is readied while the solve runs.
+  if (options.uncertainty) expectSeries(sample.low.length);
   const solved = solveKeepingMoments(sample, { weight: options.weight, steps: options.steps, confidence: options.confidence });
   if (!solved.ok) {
     return failed(

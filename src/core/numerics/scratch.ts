@@ -19,7 +19,8 @@ export const SCRATCH_MIN = 1024;
 const MAX_HELD = 24;
 /**
  * With fresh memory readied ahead (freshMemory.ts): series from this length (2 MiB) on are borrowed
- * SERIES_AHEAD at a time more, once per pool: the default uncertainty of one pair borrows six of them.
+ * SERIES_AHEAD at a time more, once per pool (all six at once when a job expects them, expectSeries):
+ * the default uncertainty of one pair borrows six of them.
  */
 const AHEAD_MIN = 1 << 18;
 const SERIES_AHEAD = 5;
@@ -64,14 +65,31 @@ export function borrowSeries(n: number): Float64Array {
   if (pool.length === n) {
     const free = pool.free.pop();
     if (free !== undefined) return free;
-  } else if (n >= AHEAD_MIN && !pool.ahead && freshMemoryReadiesAhead()) {
+  } else {
     // The pool's first long series: a few more, their memory readied on another thread while the passes run.
-    pool.ahead = true;
-    pool.length = n;
-    pool.free.length = 0;
-    for (let i = 0; i < SERIES_AHEAD; i++) pool.free.push(freshFloat64(n));
+    borrowAhead(pool, n, SERIES_AHEAD);
   }
   return freshFloat64(n);
+}
+
+/**
+ * Tells the pool that series of n rows are coming (a job about to assess the uncertainty of a sample
+ * of n rows): with fresh memory readied ahead, the series the first long borrow would take ahead are
+ * taken now, one more besides, so that the other thread readies their pages while the job does other
+ * work first (the solve, before the uncertainty; measured in bench/analysis.md). Does nothing outside
+ * a scope, for shorter series, without such memory, or once the pool has borrowed ahead.
+ */
+export function expectSeries(n: number): void {
+  if (active !== null) borrowAhead(active, n, SERIES_AHEAD + 1);
+}
+
+/** Puts `count` fresh series of n rows in the pool, once per pool, when long enough and readied ahead. */
+function borrowAhead(pool: Pool, n: number, count: number): void {
+  if (n < AHEAD_MIN || pool.ahead || !freshMemoryReadiesAhead()) return;
+  pool.ahead = true;
+  pool.length = n;
+  pool.free.length = 0;
+  for (let i = 0; i < count; i++) pool.free.push(freshFloat64(n));
 }
 
 /** Gives arrays back to the pool; the caller must hold no other reference to them. */
