@@ -62,12 +62,21 @@ if (selected && cases.length !== selected.length) {
 }
 const defaultRounds = (c) => (c.data === "minutes10m" || c.data === "daily10m" || c.kind === "roll" ? 3 : c.data === "daily1m" ? 7 : 9);
 const loadAtStart = loadavg();
-/** The first touch of fresh memory (bench/lib/pageTouch.mjs): microseconds per 4 KiB page fault, five runs. */
+/**
+ * The first touch of fresh memory (bench/lib/pageTouch.mjs): microseconds per 4 KiB page fault, five
+ * runs; those that fail or count no fault are left out (logged), never the run's results.
+ */
 const pageTouch = () =>
-  Array.from(
-    { length: 5 },
-    () => JSON.parse(execFileSync(process.execPath, [join(root, "bench", "lib", "pageTouch.mjs")], { encoding: "utf8" })).usPerFault,
-  );
+  Array.from({ length: 5 }, () => {
+    try {
+      const probe = JSON.parse(execFileSync(process.execPath, [join(root, "bench", "lib", "pageTouch.mjs")], { encoding: "utf8" }));
+      if (probe.faults > 0 && Number.isFinite(probe.usPerFault)) return probe.usPerFault;
+      log(`bench: the first-touch probe counted no page fault (${JSON.stringify(probe)}): left out`);
+    } catch (error) {
+      log(`bench: the first-touch probe failed (${error.message.split("\n")[0]}): left out`);
+    }
+    return null;
+  }).filter((x) => x !== null);
 const pageTouchAtStart = pageTouch();
 const results = [];
 for (const c of cases) {
@@ -180,7 +189,10 @@ const markdown = renderResults({
     loadAtStart,
     loadAtEnd,
     memorySource,
-    pageTouch: { atStart: pageTouchAtStart, atEnd: pageTouchAtEnd, median: median([...pageTouchAtStart, ...pageTouchAtEnd]) },
+    pageTouch:
+      pageTouchAtStart.length + pageTouchAtEnd.length === 0
+        ? null
+        : { atStart: pageTouchAtStart, atEnd: pageTouchAtEnd, median: median([...pageTouchAtStart, ...pageTouchAtEnd]) },
     date: new Date().toISOString(),
     rowsScale,
   },

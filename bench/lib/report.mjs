@@ -29,7 +29,7 @@ export function renderResults({ summary, full, machine, root, cacheDir, analysis
   md +=
     "- Floors measured in the same rounds: `node -e 0` (node's start-up), `python -c pass` (the interpreter's), `cat FILE > /dev/null` (the file's bytes from the page cache) and `wc -l FILE` (a native pass over the bytes).\n";
   const touch = machine.pageTouch;
-  const range = (l) => `${Math.min(...l).toFixed(1)}-${Math.max(...l).toFixed(1)}`;
+  const range = (l) => (l.length === 0 ? "not measured" : `${Math.min(...l).toFixed(1)}-${Math.max(...l).toFixed(1)}`);
   if (touch)
     md += `- First touch of fresh memory (bench/lib/pageTouch.mjs: a new 64 MiB array written once a 4 KiB page, five runs at the start and five at the end): ${touch.median.toFixed(1)} microseconds a page fault (${range(touch.atStart)} at the start, ${range(touch.atEnd)} at the end).\n`;
   md += "- Ratios: our median over the best peer's median and over numpy's (below 1: we are faster).\n\n";
@@ -58,7 +58,7 @@ export function renderResults({ summary, full, machine, root, cacheDir, analysis
     md +=
       "Page faults: the median count of the rounds (/usr/bin/time's %R, threads and child processes included) less that of the 300-row run, per extra row, and what they cost at the first touch measured above. That is processor time on whichever thread took them: from 1 MiB arrays on, a worker thread takes many of them beside the main one, so the wall pays less; from 128 MiB of input, runs use huge pages (fewer faults, each dearer).\n\n";
     md +=
-      "| case | rows | ours s | ours on 300 rows s | microseconds per row | against 1,000,000 rows | page faults per 1,000 rows | their cost, microseconds per row | peak MB |\n|---|---|---|---|---|---|---|---|---|\n";
+      "| case | rows | ours s | ours on 300 rows s | microseconds per row | against 1,000,000 rows | page faults per 1,000 extra rows | their cost, microseconds per row | peak MB |\n|---|---|---|---|---|---|---|---|---|\n";
     const faultsPerRow = (r) => {
       const [all, tiny] = [r.stats.ours.faults, r.stats["ours, 300 rows"].faults];
       return all === null || tiny === null ? null : (all - tiny) / (r.data.rows - 300);

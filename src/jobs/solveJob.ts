@@ -114,7 +114,8 @@ async function solveLoaded(
   const loaded = load.value;
   const { source, pair } = loaded;
   const sample = sampleOf(loaded);
-  // The uncertainty's long series, asked for now: their memory is readied while the solve runs.
+  // The uncertainty's and the pricing section's long series, asked for now: their memory is readied
+  // while the solve runs.
   if (options.uncertainty) expectSeries(sample.low.length);
   const solved = solveKeepingMoments(sample, { weight: options.weight, steps: options.steps, confidence: options.confidence });
   if (!solved.ok) {

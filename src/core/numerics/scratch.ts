@@ -2,7 +2,7 @@
  * Scratch series: the long Float64Arrays a run's passes need for a while (influence series, scores,
  * residuals) are borrowed from a pool and given back when dead, so that the next pass reuses memory
  * already touched instead of fresh memory. Fresh memory is costly: every 4 KiB page is a fault on
- * first touch (about 10 microseconds each on a virtual machine, 25 ms for a million doubles), and
+ * first touch (about 10 microseconds each on a virtual machine, 20 ms for a million doubles), and
  * garbage to collect afterwards.
  *
  * The pool lives only inside `withScratch` (the outermost call makes it, its end drops it), so a
@@ -20,7 +20,7 @@ const MAX_HELD = 24;
 /**
  * With fresh memory readied ahead (freshMemory.ts): series from this length (2 MiB) on are borrowed
  * SERIES_AHEAD at a time more, once per pool (all six at once when a job expects them, expectSeries):
- * the default uncertainty of one pair borrows six of them.
+ * one pair's default uncertainty holds five of them at its peak, its pricing section six.
  */
 const AHEAD_MIN = 1 << 18;
 const SERIES_AHEAD = 5;
@@ -73,9 +73,9 @@ export function borrowSeries(n: number): Float64Array {
 }
 
 /**
- * Tells the pool that series of n rows are coming (a job about to assess the uncertainty of a sample
- * of n rows): with fresh memory readied ahead, the series the first long borrow would take ahead are
- * taken now, one more besides, so that the other thread readies their pages while the job does other
+ * Tells the pool that series of n rows are coming (a job about to assess the uncertainty and the
+ * pricing section of a sample of n rows, six series at their peak): with fresh memory readied ahead,
+ * the series the first long borrow would take ahead are taken now, one more besides, so that the other thread readies their pages while the job does other
  * work first (the solve, before the uncertainty; measured in bench/analysis.md). Does nothing outside
  * a scope, for shorter series, without such memory, or once the pool has borrowed ahead.
  */
