@@ -1,14 +1,14 @@
 /**
  * Where long arrays come from (src/core/numerics/freshMemory.ts) and how the scratch pool asks for
  * them (scratch.ts): plain allocations unless a runtime installs a source; with a source that readies
- * memory ahead, the pool's first long series brings five more with it, once per scope, and the
- * results of a pass are the same bits whichever source gave its arrays.
+ * memory ahead, the pool's first long series brings five more with it, once per scope (or six at once
+ * when a job expects them), and the results of a pass are the same bits whichever source gave its arrays.
  */
 import { afterEach, describe, expect, it } from "vitest";
 import { drawSample } from "../../../src/core/forward/simulate.js";
 import { assessUncertainty } from "../../../src/core/inference/uncertainty.js";
 import { type FreshMemory, freshFloat64, freshInt32, freshUint8, useFreshMemory } from "../../../src/core/numerics/freshMemory.js";
-import { borrowSeries, giveBack, SCRATCH_MIN, withScratch } from "../../../src/core/numerics/scratch.js";
+import { borrowSeries, expectSeries, giveBack, SCRATCH_MIN, withScratch } from "../../../src/core/numerics/scratch.js";
 
 /** A source that records the lengths asked of it and hands out arrays in shared memory. */
 function recordingSource(readiesAhead: boolean): FreshMemory & { asked: number[] } {
@@ -68,10 +68,32 @@ describe("fresh memory", () => {
     expect(source.asked.length).toBe(14);
   });
 
+  it("gives the pool six long series at once when a scope expects them, and the next six borrows ask nothing", () => {
+    const long = 1 << 18;
+    const source = recordingSource(true);
+    useFreshMemory(source);
+    withScratch(() => {
+      expectSeries(long);
+      expect(source.asked).toEqual([long, long, long, long, long, long]);
+      const borrowed = Array.from({ length: 6 }, () => borrowSeries(long));
+      expect(source.asked.length).toBe(6);
+      expect(new Set(borrowed).size).toBe(6);
+      expectSeries(long); // once per scope, and no more ahead at the next borrow
+      borrowSeries(long);
+      expect(source.asked.length).toBe(7);
+    });
+    // Nothing outside a scope or for shorter series.
+    expectSeries(long);
+    withScratch(() => expectSeries(long - 1));
+    expect(source.asked.length).toBe(7);
+  });
+
   it("asks nothing ahead of a source that does not ready memory", () => {
     const source = recordingSource(false);
     useFreshMemory(source);
     withScratch(() => borrowSeries(1 << 18));
+    expect(source.asked).toEqual([1 << 18]);
+    withScratch(() => expectSeries(1 << 18));
     expect(source.asked).toEqual([1 << 18]);
   });
 

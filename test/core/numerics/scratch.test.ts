@@ -7,8 +7,7 @@
 import { describe, expect, it } from "vitest";
 import { drawSample } from "../../../src/core/forward/simulate.js";
 import { assessUncertainty } from "../../../src/core/inference/uncertainty.js";
-import { type FreshMemory, useFreshMemory } from "../../../src/core/numerics/freshMemory.js";
-import { borrowSeries, expectSeries, giveBack, SCRATCH_MIN, withScratch, withScratchAsync } from "../../../src/core/numerics/scratch.js";
+import { borrowSeries, giveBack, SCRATCH_MIN, withScratch, withScratchAsync } from "../../../src/core/numerics/scratch.js";
 import { assessPricing } from "../../../src/core/pricing/assessPricing.js";
 
 describe("the scratch pool", () => {
@@ -64,64 +63,6 @@ describe("the scratch pool", () => {
       await Promise.resolve();
       expect(borrowSeries(n)).toBe(a);
     });
-  });
-});
-
-describe("series a scope expects", () => {
-  // Series from 2 MiB (2^18 rows) on are taken ahead when the fresh memory is readied ahead.
-  const n = 1 << 18;
-  const counting = (readiesAhead: boolean): { memory: FreshMemory; made: Float64Array[] } => {
-    const made: Float64Array[] = [];
-    const memory: FreshMemory = {
-      float64: (length) => {
-        const a = new Float64Array(length);
-        made.push(a);
-        return a;
-      },
-      int32: (length) => new Int32Array(length),
-      uint8: (length) => new Uint8Array(length),
-      readiesAhead,
-    };
-    return { memory, made };
-  };
-  const using = (memory: FreshMemory, work: () => void): void => {
-    useFreshMemory(memory);
-    try {
-      work();
-    } finally {
-      useFreshMemory(null);
-    }
-  };
-
-  it("are taken at once, six of them, and the next six borrows take no new memory", () => {
-    const { memory, made } = counting(true);
-    using(memory, () =>
-      withScratch(() => {
-        expectSeries(n);
-        expect(made).toHaveLength(6);
-        const borrowed = Array.from({ length: 6 }, () => borrowSeries(n));
-        expect(made).toHaveLength(6);
-        // The very arrays taken ahead (by identity), each once.
-        expect(new Set(borrowed).size).toBe(6);
-        expect(borrowed.every((a) => made.includes(a))).toBe(true);
-        expectSeries(n); // once per pool
-        expect(made).toHaveLength(6);
-        expect(borrowSeries(n)).not.toBe(borrowed[0]);
-        expect(made).toHaveLength(7);
-      }),
-    );
-  });
-
-  it("are not taken outside a scope, when shorter, or without memory readied ahead", () => {
-    const ahead = counting(true);
-    using(ahead.memory, () => {
-      expectSeries(n);
-      withScratch(() => expectSeries(n - 1));
-    });
-    expect(ahead.made).toHaveLength(0);
-    const plain = counting(false);
-    using(plain.memory, () => withScratch(() => expectSeries(n)));
-    expect(plain.made).toHaveLength(0);
   });
 });
 
