@@ -69,6 +69,7 @@ export function renderResults({ summary, full, machine, root, cacheDir, analysis
       const faultCells = faults === null ? "- | -" : `${(faults * 1000).toFixed(1)} | ${touch ? (faults * touch.median).toFixed(3) : "-"}`;
       md += `| (${r.case.id}) | ${r.data.rows.toLocaleString("en-US")} | ${seconds(r.stats.ours.median)} | ${seconds(r.stats["ours, 300 rows"].median)} | ${us.toFixed(3)} | ${(perRow(r) / perRow(million)).toFixed(2)} | ${faultCells} | ${mb(r.stats.ours.rssMb)} |\n`;
     }
+    md += segmentTable(scaling);
   }
   md += "\n## Cases: commands, agreement, every round\n\n";
   md +=
@@ -85,5 +86,34 @@ export function renderResults({ summary, full, machine, root, cacheDir, analysis
     md += `- Seconds per round: ${r.sides.map((s) => `${s.name} ${r.stats[s.name].all.map((x) => x.toFixed(3)).join(", ")}`).join("; ")}\n\n`;
   }
   if (analysis) md += `\n${analysis}`;
+  return md;
+}
+
+/**
+ * The time per row from one size to the next (the difference of the medians over the difference of
+ * the rows), ours and every peer's: no fixed cost to subtract, so the peers, which have no 300-row run,
+ * are shown alike. The spread is each side's largest over its smallest.
+ */
+function segmentTable(scaling) {
+  if (scaling.length < 2) return "";
+  const sides = ["ours", "numpy", "polars", "duckdb"].filter((name) => scaling.every((r) => r.stats[name]));
+  const segments = scaling.slice(1).map((r, i) => {
+    const from = scaling[i];
+    const us = (name) => ((r.stats[name].median - from.stats[name].median) / (r.data.rows - from.data.rows)) * 1e6;
+    return { from, to: r, us: Object.fromEntries(sides.map((name) => [name, us(name)])) };
+  });
+  let md =
+    "\nFrom one size to the next: the difference of the medians over the difference of the rows, microseconds a row (the 10,000,000-row case reads minute stamps, the others daily dates: data.mjs).\n\n";
+  const shownName = { ours: "ours", numpy: "numpy", polars: "polars", duckdb: "DuckDB" };
+  md += `| rows | ${sides.map((name) => shownName[name]).join(" | ")} |\n|---|${sides.map(() => "---|").join("")}\n`;
+  for (const s of segments) {
+    const rows = `${s.from.data.rows.toLocaleString("en-US")} to ${s.to.data.rows.toLocaleString("en-US")}`;
+    md += `| ${rows} | ${sides.map((name) => s.us[name].toFixed(3)).join(" | ")} |\n`;
+  }
+  const spread = (name) => {
+    const values = segments.map((s) => s.us[name]);
+    return Math.min(...values) > 0 ? `${(Math.max(...values) / Math.min(...values)).toFixed(2)}x` : "-";
+  };
+  md += `| largest over smallest | ${sides.map(spread).join(" | ")} |\n`;
   return md;
 }
