@@ -12,6 +12,7 @@ export type CliIssue =
   | { readonly code: "stdout-failed"; readonly reason: string }
   | { readonly code: "output-is-input"; readonly option: string; readonly path: string; readonly input: string }
   | { readonly code: "outputs-clash"; readonly options: readonly [string, string]; readonly path: string }
+  | { readonly code: "output-is-folder"; readonly option: string; readonly path: string }
   | { readonly code: "invalid-config"; readonly path: string; readonly at: string; readonly reason: string };
 
 export function describeCliIssue(issue: CliIssue): string {
@@ -30,6 +31,8 @@ export function describeCliIssue(issue: CliIssue): string {
       return `${issue.option} '${issue.path}' is ${issue.input === "-" ? "standard input" : `the input '${issue.input}'`}: writing it would destroy the input; choose another output path`;
     case "outputs-clash":
       return `${issue.options[0]} and ${issue.options[1]} both name '${issue.path}': one would overwrite the other; give each output its own path`;
+    case "output-is-folder":
+      return `${issue.option} '${issue.path}' names a folder (it ends in '/', '.' or '..'), not a file; give the file's path`;
     case "invalid-config":
       return `config file '${issue.path}'${issue.at === "" ? "" : `, at '${issue.at}'`}: ${issue.reason}; fix the file (keys are the long option names in camelCase, plus "files")`;
   }

@@ -2,10 +2,12 @@
  * Refuses a run whose output would destroy one of its inputs or another of its outputs: an
  * `--output`, `--chart` or `--report` that names (through any link or relative path) an input file,
  * standard input's file, the config file, or the same file as another output. Character devices
- * (/dev/null, a terminal) are exempt: writing one destroys nothing.
+ * (/dev/null, a terminal) are exempt: writing one destroys nothing. A path that names a folder
+ * (`report.csv/`) is refused too: folded lexically it would name the file before the slash.
  */
 import type { CliIssue } from "./messages.js";
 import type { CliIo } from "./runtime/io.js";
+import { namesFolder } from "./runtime/output.js";
 
 /** The output options, as flags. */
 const outputOptions = [
@@ -29,6 +31,7 @@ export function outputClash(
   for (const [key, flag] of outputOptions) {
     const path = options[key];
     if (path === undefined) continue;
+    if (namesFolder(path)) return { code: "output-is-folder", option: flag, path };
     const name = io.identify(path);
     if (name.device) continue;
     const input = read.get(name.key);

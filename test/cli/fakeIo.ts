@@ -29,6 +29,7 @@ export function fakeIo(
       const chunks: Buffer[] = [];
       return success({
         write: async (text) => void chunks.push(Buffer.from(typeof text === "string" || text instanceof Uint8Array ? text : text.join(""))),
+        settle: async () => success(undefined),
         commit: async () => {
           const whole = Buffer.concat(chunks).toString("utf8");
           if (path === undefined) out.push(whole);

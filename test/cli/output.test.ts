@@ -6,9 +6,16 @@
 import { execFileSync } from "node:child_process";
 import * as fs from "node:fs";
 import { tmpdir } from "node:os";
-import { join } from "node:path";
+import { join, relative as relativePath } from "node:path";
 import { describe, expect, it } from "vitest";
-import { type FileOps, type OutputStream, openOutput, removeTemporaries, resolveTarget } from "../../src/cli/runtime/output.js";
+import {
+  type FileOps,
+  namesFolder,
+  type OutputStream,
+  openOutput,
+  removeTemporaries,
+  resolveTarget,
+} from "../../src/cli/runtime/output.js";
 
 const scratch = fs.mkdtempSync(join(tmpdir(), "betabound-output-"));
 const noStdout: OutputStream = { write: () => true, once: () => undefined };
@@ -216,6 +223,85 @@ describe("a regular file", () => {
     removeTemporaries();
     expect(fs.readdirSync(dir)).toEqual(["out.csv"]);
     expect(fs.readFileSync(path, "utf8")).toBe("previous\n");
+  });
+});
+
+describe("paths", () => {
+  it("a path ending in '/', '.' or '..' names a folder, never an output file", () => {
+    for (const folder of ["", "out.csv/", "out.csv/.", "out.csv//", "a/..", ".", ".."]) expect(namesFolder(folder), folder).toBe(true);
+    for (const file of ["out.csv", "a/.out", "a/..b", "./out.csv", "../out.csv"]) expect(namesFolder(file), file).toBe(false);
+    const { dir } = folderWith(null);
+    const opened = openOutput(join(dir, "out.csv/"), noStdout);
+    expect(opened.ok).toBe(false);
+    expect(fs.readdirSync(dir)).toEqual([]);
+  });
+
+  it("a link that points to itself is refused, not replaced by a file", () => {
+    const { dir } = folderWith(null);
+    const loop = join(dir, "loop.csv");
+    fs.symlinkSync("loop.csv", loop);
+    const opened = openOutput(loop, noStdout);
+    expect(opened.ok).toBe(false);
+    if (!opened.ok) expect(opened.issues).toMatchObject({ code: "write-failed", reason: "too many levels of symbolic links" });
+    expect(fs.lstatSync(loop).isSymbolicLink()).toBe(true);
+  });
+
+  it("a regular file reached through /proc/self/cwd is the file itself, replaced as any other", () => {
+    const { dir } = folderWith(null);
+    const relative = relativePath(process.cwd(), join(dir, "x.csv"));
+    expect(resolveTarget(`/proc/self/cwd/${relative}`)).toEqual({ path: fs.realpathSync(dir) + "/x.csv", special: false });
+  });
+
+  it("a name of 240 characters is written (its temporary file's name is shortened to fit)", async () => {
+    const { dir } = folderWith(null);
+    const long = join(dir, `${"b".repeat(240)}.txt`);
+    expect((await writeAll(long, ["new\n"])).ok).toBe(true);
+    expect(fs.readdirSync(dir)).toEqual([`${"b".repeat(240)}.txt`]);
+  });
+
+  it("settled and then dropped: the previous file is kept and the temporary file removed", async () => {
+    const { dir, path } = folderWith("previous\n");
+    const opened = openOutput(path, noStdout);
+    if (!opened.ok) throw new Error("open failed");
+    await opened.value.write("new\n");
+    expect((await opened.value.settle()).ok).toBe(true);
+    expect(fs.readFileSync(path, "utf8")).toBe("previous\n");
+    opened.value.abort();
+    expect(fs.readdirSync(dir)).toEqual(["out.csv"]);
+  });
+});
+
+describe("standard output redirected to a regular file", () => {
+  it("is written through its descriptor, a short write completed and a full disk reported (not dropped)", async () => {
+    const { dir } = folderWith(null);
+    const fd = fs.openSync(join(dir, "redirected.json"), "w");
+    try {
+      const stream: OutputStream = { write: () => true, once: () => undefined, fd };
+      const full = openOutput(undefined, stream, failingDisk(10, "ENOSPC"));
+      if (!full.ok) throw new Error("open failed");
+      await full.value.write("0123456789abcdef");
+      const committed = await full.value.commit();
+      expect(committed.ok).toBe(false);
+      if (!committed.ok) expect(committed.issues).toMatchObject({ code: "stdout-failed", reason: "no space left on the device" });
+      const fine = openOutput(undefined, stream);
+      if (!fine.ok) throw new Error("open failed");
+      await fine.value.write("ghij\n");
+      expect((await fine.value.commit()).ok).toBe(true);
+      expect(fs.readFileSync(join(dir, "redirected.json"), "utf8")).toBe("0123456789ghij\n");
+    } finally {
+      fs.closeSync(fd);
+    }
+  });
+
+  it("a folder there is refused", () => {
+    const { dir } = folderWith(null);
+    const fd = fs.openSync(dir, "r");
+    try {
+      const opened = openOutput(undefined, { write: () => true, once: () => undefined, fd });
+      expect(opened.ok).toBe(false);
+    } finally {
+      fs.closeSync(fd);
+    }
   });
 });
 

@@ -74,6 +74,24 @@ describe("a full disk", () => {
     expect(fs.readdirSync(mount).sort()).toEqual(["filler", "report.html", "windows.csv"]);
   });
 
+  it("a small tmpfs under standard output redirected to a file: a write that only half fits is exit 4, not a truncated file and 0", (context) => {
+    if (!mounted) context.skip();
+    const filler = join(mount, "filler");
+    fs.rmSync(filler, { force: true });
+    // Leaves 8 KiB: the JSON document (about 40 KB) is one write the disk takes only in part.
+    fs.writeFileSync(filler, Buffer.alloc(fs.statfsSync(mount).bavail * fs.statfsSync(mount).bsize - 8192));
+    const redirected = join(mount, "report.json");
+    const fd = fs.openSync(redirected, "w");
+    try {
+      const child = spawnSyncTo(["solve", monthly, ...books, "--format", "json"], fd);
+      expect(child.code, child.stderr).toBe(4);
+      expect(child.stderr).toMatch(/cannot write to standard output: no space left on the device/);
+    } finally {
+      fs.closeSync(fd);
+      fs.rmSync(filler, { force: true });
+    }
+  });
+
   const stdoutCases: [string, string[]][] = [
     ["solve --format json", ["solve", monthly, ...books, "--format", "json"]],
     ["roll --format csv", ["roll", monthly, ...books, "--window", "12", "--format", "csv"]],
@@ -111,6 +129,7 @@ describe("a signal mid-run", () => {
     ["SIGTERM", 15],
     ["SIGINT", 2],
     ["SIGHUP", 1],
+    ["SIGXCPU", 24], // a CPU time limit (ulimit -t), one of the other ending signals (signals.ts)
   ] as const) {
     it(`${signal}: the temporary file is removed, the previous file kept, exit ${128 + number}`, async () => {
       const here = fs.mkdtempSync(join(dir, "signal-"));

@@ -106,6 +106,14 @@ describe("an output that would land on an input or another output is refused (ex
       },
       /is the input 'job.json'/,
     ],
+    // Folded lexically, these would name the input file itself.
+    ["--output is the input with a trailing slash", () => ["solve", "good.csv", ...books, "--output", "good.csv/"], /names a folder/],
+    ["--report is the input and '/.'", () => ["solve", "good.csv", ...books, "--report", "./good.csv/."], /names a folder/],
+    [
+      "roll --chart is the input and '//'",
+      () => ["roll", "good.csv", ...books, "--window", "24", "--chart", "good.csv//"],
+      /names a folder/,
+    ],
   ];
   for (const [name, args, message] of cases) {
     it(name, () => {
@@ -120,6 +128,26 @@ describe("an output that would land on an input or another output is refused (ex
     });
   }
 
+  it("two new files named through a linked folder are one file", () => {
+    const here = folder();
+    fs.mkdirSync(join(here, "sub"));
+    fs.symlinkSync("sub", join(here, "linked"));
+    const run = betabound(["solve", "good.csv", ...books, "--chart", "sub/x.svg", "--report", "linked/x.svg"], { cwd: here });
+    expect(run.code, run.stderr).toBe(1);
+    expect(run.stderr).toMatch(/both name 'linked\/x.svg'/);
+    expect(fs.readdirSync(join(here, "sub"))).toEqual([]);
+  });
+
+  it("a link's '..' is where the system puts it: the link target's parent, not the input beside the link", () => {
+    const here = folder();
+    fs.mkdirSync(join(here, "d1", "inner"), { recursive: true });
+    fs.symlinkSync("d1/inner", join(here, "deep"));
+    const run = betabound(["solve", "good.csv", ...books, "--output", "deep/../good.csv"], { cwd: here });
+    expect(run.code, run.stderr).toBe(0);
+    expect(fs.readFileSync(join(here, "good.csv"), "utf8")).toBe(fs.readFileSync(monthly, "utf8"));
+    expect(fs.readFileSync(join(here, "d1", "good.csv"), "utf8")).toMatch(/Stillwater Low Vol/);
+  });
+
   it("--output is the file standard input reads", () => {
     const here = folder();
     const fd = fs.openSync(join(here, "good.csv"), "r");
@@ -132,6 +160,42 @@ describe("an output that would land on an input or another output is refused (ex
     }
     expect(fs.readFileSync(join(here, "good.csv"), "utf8")).toBe(fs.readFileSync(monthly, "utf8"));
   });
+});
+
+describe("several outputs are written as one: a failure of any replaces none, and standard output stays empty", () => {
+  const cases: [string, string[]][] = [
+    [
+      "solve: the report's folder is missing",
+      ["solve", "good.csv", ...books, "--output", "out.txt", "--chart", "chart.svg", "--report", "none/r.html"],
+    ],
+    [
+      "solve: the output's folder is missing",
+      ["solve", "good.csv", ...books, "--output", "none/o.txt", "--chart", "chart.svg", "--report", "report.html"],
+    ],
+    [
+      "solve: the output is /dev/full",
+      ["solve", "good.csv", ...books, "--output", "/dev/full", "--chart", "chart.svg", "--report", "report.html"],
+    ],
+    [
+      "solve to standard output: the chart's folder is missing",
+      ["solve", "good.csv", ...books, "--chart", "none/c.svg", "--report", "report.html"],
+    ],
+    [
+      "roll to standard output: the chart's folder is missing",
+      ["roll", "good.csv", ...books, "--window", "24", "--format", "csv", "--chart", "none/c.svg"],
+    ],
+    ["roll: the output is /dev/full", ["roll", "good.csv", ...books, "--window", "24", "--output", "/dev/full", "--chart", "chart.svg"]],
+  ];
+  for (const [name, command] of cases) {
+    it(name, () => {
+      const here = folder();
+      const before = snapshot(here);
+      const run = betabound(command, { cwd: here });
+      expect(run.code, run.stderr).toBe(4);
+      expect(run.stdout).toBe("");
+      expect(snapshot(here)).toEqual(before);
+    });
+  }
 });
 
 describe("where outputs land", () => {

@@ -6,16 +6,17 @@
  */
 import type { CommandOptions } from "../../options/index.js";
 import type { SolveReport } from "../../report/types.js";
-import { describeCliIssue } from "../messages.js";
-import { type ExitCode, exitCodes } from "../runtime/exitCodes.js";
-import { type CliIo, writeOutput } from "../runtime/io.js";
+import type { CliIo, OutputItem } from "../runtime/io.js";
 
 /** What solve's options ask to draw. */
 export type ChartRequest = Pick<CommandOptions<"solve">, "chart" | "chartY" | "report">;
 
-/** Renders and writes the requested chart and HTML report; returns the exit code of the writing. */
-export async function writeCharts(report: SolveReport, request: ChartRequest, io: CliIo): Promise<ExitCode> {
-  if (request.chart === undefined && request.report === undefined) return exitCodes.ok;
+/**
+ * Renders the requested chart and HTML report: the outputs to write (none when neither is asked for),
+ * written with the run's other output as one (io.ts, writeOutputs).
+ */
+export async function drawCharts(report: SolveReport, request: ChartRequest, io: CliIo): Promise<OutputItem[]> {
+  if (request.chart === undefined && request.report === undefined) return [];
   const { renderIdentifiedSetChart } = await import("../../report/charts/identifiedSetChart.js");
   const u = report.uncertainty;
   const uncertainty =
@@ -43,20 +44,12 @@ export async function writeCharts(report: SolveReport, request: ChartRequest, io
           u === null ? {} : { confidence: u.confidence },
           io.loadVega,
         );
-  if (request.chart !== undefined) {
-    const written = await writeOutput(io, request.chart, factor ?? svg);
-    if (!written.ok) return fail(io, written.issues);
-  }
+  const items: OutputItem[] = [];
+  if (request.chart !== undefined) items.push({ path: request.chart, text: factor ?? svg });
   if (request.report !== undefined) {
     const { renderHtmlReport } = await import("../../report/charts/htmlReport.js");
     const charts = factor === undefined ? { identifiedSet: svg } : { identifiedSet: svg, factor };
-    const written = await writeOutput(io, request.report, renderHtmlReport(report, charts));
-    if (!written.ok) return fail(io, written.issues);
+    items.push({ path: request.report, text: renderHtmlReport(report, charts) });
   }
-  return exitCodes.ok;
-}
-
-function fail(io: CliIo, issue: Parameters<typeof describeCliIssue>[0]): ExitCode {
-  io.writeErr(`error: ${describeCliIssue(issue)}\n`);
-  return exitCodes.output;
+  return items;
 }

@@ -20,7 +20,7 @@ import { writeMessages } from "../jobMessages.js";
 import { describeCliIssue, describeOptionIssue } from "../messages.js";
 import { type ExitCode, exitCodes } from "../runtime/exitCodes.js";
 import { rollCsvThreadsPay, writeRollCsvThreaded } from "../runtime/rollCsvThreads.js";
-import { type CliIo, type OutputTarget, writeOutput } from "../runtime/io.js";
+import type { CliIo, OutputTarget } from "../runtime/io.js";
 import { outputClash } from "../outputPaths.js";
 
 export async function runRoll(
@@ -39,6 +39,9 @@ export async function runRoll(
   // Nothing is written, to a file or to standard output, before a pair has been read and solved:
   // failure records wait for the first success (a run where every pair fails writes nothing).
   let target: OutputTarget | null = null;
+  // The chart's file is opened with the output, before anything is written (a folder missing fails
+  // the run before standard output has a line), and renamed over its target after the output's commit.
+  let chart: OutputTarget | null = null;
   const waiting: string[] = [];
   const codes: ExitCode[] = [];
   const seen = new Set<string>();
@@ -53,20 +56,30 @@ export async function runRoll(
         continue;
       }
       if (target === null) {
+        if (options.chart !== undefined) {
+          const chartOpened = io.openOutput(options.chart);
+          if (!chartOpened.ok) return outputFailed(io, chartOpened.issues);
+          chart = chartOpened.value;
+        }
         const opened = io.openOutput(options.output);
         if (!opened.ok) return outputFailed(io, opened.issues);
         // The header and waiting records go out with the first windows (a reader sees a whole row).
         const lead = (options.format === "csv" ? rollCsvHeader(options.uncertainty) : "") + waiting.join("");
         target = leading(opened.value, lead);
       }
-      codes.push(await writePair(pair, job.value, target, io));
+      codes.push(await writePair(pair, job.value, target, chart, io));
     }
     if (target !== null) {
+      const chartReady = chart === null ? null : await chart.settle();
+      if (chartReady !== null && !chartReady.ok) return outputFailed(io, chartReady.issues);
       const committed = await target.commit();
       if (!committed.ok) return outputFailed(io, committed.issues);
+      const chartCommitted = chart === null ? null : await chart.commit();
+      if (chartCommitted !== null && !chartCommitted.ok) return outputFailed(io, chartCommitted.issues);
     }
   } finally {
     target?.abort();
+    chart?.abort();
   }
   if (!several) return codes[0] ?? exitCodes.input;
   if (codes.every((c) => c === exitCodes.input)) return exitCodes.input;
@@ -76,6 +89,12 @@ export async function runRoll(
 /** `target` with `lead` written before the first text written to it. */
 function leading(target: OutputTarget, lead: string): OutputTarget {
   let first = lead;
+  const flushLead = async (): Promise<void> => {
+    if (first === "") return;
+    const text = first;
+    first = "";
+    await target.write(text);
+  };
   return {
     ...target,
     write(text) {
@@ -85,8 +104,12 @@ function leading(target: OutputTarget, lead: string): OutputTarget {
       first = "";
       return target.write(whole);
     },
+    async settle() {
+      await flushLead();
+      return target.settle();
+    },
     async commit() {
-      if (first !== "") await target.write(first);
+      await flushLead();
       return target.commit();
     },
   };
@@ -100,7 +123,7 @@ const csvBlockWindows = 4096;
  * computed as they are written and never kept (a million of them would hold gigabytes); the chart
  * keeps one small point per window.
  */
-async function writePair(pair: RolledPair, job: RollJob, target: OutputTarget, io: CliIo): Promise<ExitCode> {
+async function writePair(pair: RolledPair, job: RollJob, target: OutputTarget, chart: OutputTarget | null, io: CliIo): Promise<ExitCode> {
   const { options } = job;
   const { meta } = pair;
   const points: RollWindowPoint[] | null = options.chart === undefined ? null : [];
@@ -136,11 +159,10 @@ async function writePair(pair: RolledPair, job: RollJob, target: OutputTarget, i
     const lines = rollTextLines(meta, pair.windows(), seen, style, options.uncertainty);
     for (let k = 0; k < lines.length; k += 10_000) await target.write(`${lines.slice(k, k + 10_000).join("\n")}\n`);
   }
-  if (points === null) return exitCodes.ok;
+  if (points === null || chart === null) return exitCodes.ok;
   const { renderRollChart } = await import("../../report/charts/rollChart.js");
-  const svg = await renderRollChart(points, { source: meta.input.source, window: windowWords(job.spec) }, io.loadVega);
-  const written = await writeOutput(io, options.chart ?? "", svg);
-  return written.ok ? exitCodes.ok : outputFailed(io, written.issues);
+  await chart.write(await renderRollChart(points, { source: meta.input.source, window: windowWords(job.spec) }, io.loadVega));
+  return exitCodes.ok;
 }
 
 const rollExamples = `

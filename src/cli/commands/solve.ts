@@ -12,14 +12,14 @@ import { renderReport } from "../../report/render.js";
 import { renderSummaryCsv } from "../../report/summaryCsv.js";
 import { addTableOptions } from "../commandOptions.js";
 import { withConfig } from "../config.js";
-import { emit, usage, waitsOnTerminal, wantsColour } from "../emit.js";
+import { outputFailed, usage, waitsOnTerminal, wantsColour } from "../emit.js";
 import { jobContext } from "../jobContext.js";
 import { writeMessages } from "../jobMessages.js";
 import { describeCliIssue, describeOptionIssue } from "../messages.js";
 import { type ExitCode, exitCodes } from "../runtime/exitCodes.js";
-import type { CliIo, OutputText } from "../runtime/io.js";
+import { type CliIo, type OutputText, writeOutputs } from "../runtime/io.js";
 import { outputClash } from "../outputPaths.js";
-import { writeCharts } from "./charts.js";
+import { drawCharts } from "./charts.js";
 
 const severalJobsAsJson: OptionIssue = {
   code: "options-conflict",
@@ -100,12 +100,10 @@ export async function runSolveJobs(
   else if (options.format === "jsonl") text = documentLinePieces(pairs.map((p) => p.document));
   else text = options.format === "csv" ? renderRecordsCsv(records) : renderRecordsText(records, { colour, brief });
 
-  if (single !== null) {
-    const drawn = await writeCharts(single, options, io);
-    if (drawn !== exitCodes.ok) return drawn;
-  }
-  const written = await emit(io, options.output, text);
-  if (written !== exitCodes.ok) return written;
+  // The chart, the HTML report and the output are written as one: a failure of any replaces none.
+  const charts = single === null ? [] : await drawCharts(single, options, io);
+  const written = await writeOutputs(io, [...charts, { path: options.output, text }]);
+  if (!written.ok) return outputFailed(io, written.issues);
   // Reports carry their diagnostics; repeat them on stderr unless a text report is on the terminal
   // (reading warnings always, once per file).
   const reportOnTerminal = options.output === undefined && io.stdoutIsTerminal && options.format === "text";

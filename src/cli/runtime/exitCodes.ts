@@ -1,7 +1,7 @@
 /**
  * The exit codes of every command: one table, documented in the README. 0 only when the job fully
- * succeeded; warnings do not change the code. A run ended by SIGINT, SIGTERM or SIGHUP exits with
- * 128 + the signal's number (main.ts).
+ * succeeded; warnings do not change the code. A run ended by a signal (SIGINT, SIGTERM, SIGHUP and
+ * the others of signals.ts) exits with 128 + the signal's number (main.ts).
  */
 export const exitCodes = {
   /** The job succeeded (diagnostics of severity warning or info may have been reported). */

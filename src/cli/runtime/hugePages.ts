@@ -13,6 +13,7 @@
 import { fstatSync, readFileSync, statSync } from "node:fs";
 import { createRequire } from "node:module";
 import { constants } from "node:os";
+import { endingSignals } from "./signals.js";
 import { isSwitchSetting, readSwitch } from "./switchSetting.js";
 
 /**
@@ -142,8 +143,8 @@ export function processFacts(argv: readonly string[]): HugePageFacts {
   };
 }
 
-/** The signals that end a run (main.ts): passed on to the child, which cleans up and exits 128 + n. */
-const passedOn = ["SIGINT", "SIGTERM", "SIGHUP"] as const;
+/** The signals that end a run (signals.ts): passed on to the child, which cleans up and exits 128 + n. */
+const passedOn = endingSignals;
 
 /**
  * Signals that end a process without a core dump: a child ended by one ends this process by the same

@@ -12,6 +12,7 @@ import { exitCodes, type ExitCode } from "./exitCodes.js";
 import { identify, readInputBytes, readInputSource } from "./files.js";
 import type { CliIo } from "./io.js";
 import { openOutput, removeTemporaries } from "./output.js";
+import { endingSignals } from "./signals.js";
 import { prefaultFacts, pretouchingMemory, wantsPrefault } from "./pretouch.js";
 import { useFreshMemory } from "../../core/numerics/freshMemory.js";
 
@@ -54,16 +55,14 @@ function stop(code: number): never {
   process.exit(code);
 }
 
-/**
- * The signals that end a run: temporary files are removed and the status is 128 + the signal's number.
- * The handlers stay installed: a second signal (Ctrl-C reaches a child run with huge pages both from
- * the terminal and from its parent, hugePages.ts) must not find the default action mid-clean-up.
- */
-const endingSignals = ["SIGINT", "SIGTERM", "SIGHUP"] as const;
-
 /** Runs the command line `argv` (without node and the script) and ends the process with its exit code. */
 export async function main(argv: readonly string[], launch: Launch): Promise<void> {
+  // The handlers stay installed: a second signal (Ctrl-C reaches a child run with huge pages both from
+  // the terminal and from its parent, hugePages.ts) must not find the default action mid-clean-up.
   for (const signal of endingSignals) process.on(signal, () => stop(128 + constants.signals[signal]));
+  // Standard error that cannot be written (a full disk under `2>>log`, a closed pipe) loses the
+  // messages, not the run: its exit status stays the one the run earned.
+  process.stderr.on("error", () => undefined);
   process.stdout.on("error", (error: NodeJS.ErrnoException) => {
     // A reader that closed the pipe (`betabound roll ... | head`) wants no more: stop the work at once,
     // quietly, with the status a shell gives a process ended by SIGPIPE (exitCodes.pipeClosed).
@@ -97,11 +96,12 @@ export async function main(argv: readonly string[], launch: Launch): Promise<voi
 function exitOnceFlushed(code: ExitCode): void {
   process.exitCode = code;
   let pending = 2;
-  const flushed = (error?: Error | null): void => {
-    if (error) return; // the stream's error handler reports it and ends the process
+  const done = (): void => {
     pending -= 1;
     if (pending === 0) process.exit(code);
   };
-  process.stdout.write("", flushed);
-  process.stderr.write("", flushed);
+  process.stdout.write("", (error?: Error | null) => {
+    if (!error) done(); // else the stream's error handler reports it and ends the process
+  });
+  process.stderr.write("", () => done()); // a standard error that failed has nothing more to flush
 }

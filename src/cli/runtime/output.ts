@@ -7,10 +7,13 @@
  *   temporary file is removed and the previous file is left as it was. A replaced file keeps its mode
  *   (and, where the process may set it, its owner). A symbolic link is followed: its target is
  *   replaced and the link kept.
- * - a special file (character device, FIFO, socket, or a path under /dev or /proc such as
- *   /dev/stdout) cannot be replaced: it is opened and written directly, every write checked.
+ * - a special file (character device, FIFO, socket, a path under /dev, a process's descriptor such
+ *   as /proc/self/fd/1) cannot be replaced: it is opened and written directly, every write checked.
+ *   A path naming a folder (`out.csv/`) is refused; links and ".." resolve as the system resolves them.
  * - standard output is written with back-pressure (a slow reader never makes memory grow); its
  *   errors are handled once, in main.ts (a closed pipe ends the run quietly, a full disk is exit 4).
+ *   Redirected to a regular file, it is written through its descriptor with every write checked.
+ * - several outputs of one run settle (written, flushed, closed) before any is renamed (io.ts).
  * File operations come through `FileOps` so tests can inject a failing disk.
  */
 import * as fs from "node:fs";
@@ -32,7 +35,12 @@ export interface OutputTarget {
    * copied by then). Resolves when the target can take more; a failure is kept for `commit`.
    */
   write(text: OutputText | Uint8Array): Promise<void>;
-  /** Makes the output final (flush, fsync, rename): ok, or why not (the previous file is then intact). */
+  /**
+   * Finishes the writing (flush, fsync, close) without making it final: ok, or why not (the target is
+   * then as it was). Several outputs settle before any commits, so that one failing replaces none.
+   */
+  settle(): Promise<Result<void, CliIssue>>;
+  /** Makes the output final (settling it first if need be, then the rename): ok, or why not (the previous file is then intact). */
   commit(): Promise<Result<void, CliIssue>>;
   /** Drops what was written: the temporary file is removed, the target left as it was. */
   abort(): void;
@@ -54,12 +62,15 @@ export type FileOps = Pick<
   | "realpathSync"
   | "fchmodSync"
   | "fchownSync"
+  | "fstatSync"
 >;
 
 /** The stream standard output is written to (process.stdout in the CLI). */
 export interface OutputStream {
   write(chunk: string | Uint8Array): boolean;
   once(event: "drain", listener: () => void): unknown;
+  /** Its descriptor, when it has one (process.stdout's is 1): a regular file there is written through it. */
+  readonly fd?: number;
 }
 
 /** Temporary files in the making: removed on a signal (main.ts) whatever the run was doing. */
@@ -90,10 +101,35 @@ const flushEvery = 64 << 20;
 
 /** Standard output (path undefined) or the file at `path`. Nothing is created until this is called. */
 export function openOutput(path: string | undefined, stdout: OutputStream, ops: FileOps = fs): Result<OutputTarget, CliIssue> {
-  if (path === undefined) return success(streamTarget(stdout));
+  if (path === undefined) return standardOutput(stdout, ops);
+  if (namesFolder(path)) return failure({ code: "write-failed", path, reason: "the path names a folder, not a file" });
   const target = resolveTarget(path, ops);
   if (target.special) return directTarget(path, ops);
+  if (isLink(target.path, ops)) return failure({ code: "write-failed", path, reason: "too many levels of symbolic links" });
   return replacingTarget(path, target.path, ops);
+}
+
+/**
+ * Standard output: a stream with back-pressure, or, when it is a regular file (`> out.json`), its
+ * descriptor written with every write checked as a file's are (Node's stream for a file drops the
+ * rest of a short write: a full disk would give a truncated file and no error). A folder there is
+ * refused.
+ */
+function standardOutput(stdout: OutputStream, ops: FileOps): Result<OutputTarget, CliIssue> {
+  const { fd } = stdout;
+  if (fd === undefined) return success(streamTarget(stdout));
+  let stats: fs.Stats;
+  try {
+    stats = ops.fstatSync(fd);
+  } catch {
+    return success(streamTarget(stdout));
+  }
+  if (stats.isDirectory()) return failure({ code: "stdout-failed", reason: "it is a folder" });
+  if (!stats.isFile()) return success(streamTarget(stdout));
+  const writer = checkedWriter(ops, fd);
+  const settle = async (): Promise<Result<void, CliIssue>> =>
+    writer.failed === null ? success(undefined) : failure({ code: "stdout-failed", reason: fileErrorReason(writer.failed) });
+  return success({ write: async (text) => void (await writer.write(text)), settle, commit: settle, abort: () => undefined });
 }
 
 function streamTarget(stdout: OutputStream): OutputTarget {
@@ -103,24 +139,34 @@ function streamTarget(stdout: OutputStream): OutputTarget {
       stdout.write(typeof text === "string" ? text : text instanceof Uint8Array ? Buffer.from(text) : text.join(""))
         ? Promise.resolve()
         : new Promise<void>((done) => void stdout.once("drain", () => done())),
+    settle: async () => success(undefined),
     commit: async () => success(undefined),
     abort: () => undefined,
   };
 }
 
-/** A path under these folders names a device or a process's stream: never replaced by a rename. */
+/**
+ * A path that names a folder whatever is there (empty, ending in "/", or its last part "." or ".."):
+ * never an output file. (Normalised lexically, `report.csv/` would become `report.csv`.)
+ */
+export function namesFolder(path: string): boolean {
+  return path === "" || path.endsWith("/") || /(^|\/)\.\.?$/.test(path);
+}
+
+/** The path prefixes of devices and of a process's descriptors (/dev/stdout, /proc/self/fd/1): never replaced by a rename. */
+const deviceLike = /^\/dev\/|^\/proc\/[^/]+\/fd\//;
+/** Resolved paths under these folders are special files too. */
 const specialFolders = ["/dev/", "/proc/"];
 
-/** The file a write to `path` lands in (links followed), and whether it must be written in place. */
+/**
+ * The file a write to `path` lands in (links followed as the system follows them: a link's ".." is
+ * its target's parent, not the link's), and whether it must be written in place.
+ */
 export function resolveTarget(path: string, ops: FileOps = fs): { path: string; special: boolean } {
   const absolute = resolve(path);
-  if (specialFolders.some((folder) => absolute.startsWith(folder))) return { path: absolute, special: true };
-  let real: string;
-  try {
-    real = ops.realpathSync(absolute);
-  } catch {
-    real = danglingLinkTarget(absolute, ops);
-  }
+  if (deviceLike.test(absolute)) return { path: absolute, special: true };
+  const real = physicalPath(path, ops);
+  if (specialFolders.some((folder) => real.startsWith(folder))) return { path: real, special: true };
   try {
     const stats = ops.statSync(real);
     return { path: real, special: !stats.isFile() && !stats.isDirectory() };
@@ -129,18 +175,56 @@ export function resolveTarget(path: string, ops: FileOps = fs): { path: string; 
   }
 }
 
-/** A path that does not exist yet: itself, or where its (chain of) dangling symbolic links point. */
-function danglingLinkTarget(path: string, ops: FileOps): string {
+/** The system's own resolution of a path (realpath(3)): Node's realpathSync folds ".." before it follows links. */
+function systemRealpath(ops: FileOps): (path: string) => string {
+  const native = (ops.realpathSync as { native?: (path: string) => string }).native;
+  return (path) => String(native === undefined ? ops.realpathSync(path) : native(path));
+}
+
+/** `path` resolved: itself when it exists, else its folder resolved and its name (or where a dangling link points). */
+function physicalPath(path: string, ops: FileOps): string {
+  const realpath = systemRealpath(ops);
+  try {
+    return realpath(path);
+  } catch {
+    return danglingLinkTarget(inRealFolder(path, realpath), ops, realpath);
+  }
+}
+
+/** `path`'s folder as the system resolves it, joined with its name (the folder as written when it does not exist). */
+function inRealFolder(path: string, realpath: (path: string) => string): string {
+  let folder: string;
+  try {
+    folder = realpath(dirname(path));
+  } catch {
+    folder = resolve(dirname(path));
+  }
+  return join(folder, basename(path));
+}
+
+/** A path that does not exist yet: itself, or where its (chain of) dangling symbolic links point (a loop: the last link). */
+function danglingLinkTarget(path: string, ops: FileOps, realpath: (path: string) => string): string {
   let current = path;
   for (let hops = 0; hops < 40; hops++) {
+    let link: string;
     try {
       if (!ops.lstatSync(current).isSymbolicLink()) return current;
-      current = resolve(dirname(current), String(ops.readlinkSync(current)));
+      link = String(ops.readlinkSync(current));
     } catch {
       return current;
     }
+    current = inRealFolder(link.startsWith("/") ? link : `${dirname(current)}/${link}`, realpath);
   }
   return current;
+}
+
+/** True when `path` is a symbolic link (one left unresolved: a loop). */
+function isLink(path: string, ops: FileOps): boolean {
+  try {
+    return ops.lstatSync(path).isSymbolicLink();
+  } catch {
+    return false;
+  }
 }
 
 /** Writes all of `bytes` at the descriptor, however many calls it takes (a short write is not an error). */
@@ -237,19 +321,24 @@ function directTarget(path: string, ops: FileOps): Result<OutputTarget, CliIssue
   }
   const writer = checkedWriter(ops, fd);
   let open = true;
+  let settled: Result<void, CliIssue> | null = null;
+  const settle = async (): Promise<Result<void, CliIssue>> => {
+    if (settled !== null) return settled;
+    open = false;
+    try {
+      if (writer.failed !== null) throw writer.failed;
+      ops.closeSync(fd);
+      settled = success(undefined);
+    } catch (error) {
+      closeQuietly(ops, fd);
+      settled = failure({ code: "write-failed", path, reason: fileErrorReason(error) });
+    }
+    return settled;
+  };
   return success({
     write: async (text) => void (await writer.write(text)),
-    async commit() {
-      open = false;
-      try {
-        if (writer.failed !== null) throw writer.failed;
-        ops.closeSync(fd);
-        return success(undefined);
-      } catch (error) {
-        closeQuietly(ops, fd);
-        return failure({ code: "write-failed", path, reason: fileErrorReason(error) });
-      }
-    },
+    settle,
+    commit: settle,
     abort() {
       if (open) closeQuietly(ops, fd);
       open = false;
@@ -265,7 +354,10 @@ function replacingTarget(path: string, target: string, ops: FileOps): Result<Out
     .padStart(8, "0");
   // The process id and a counter make the name unique on this host, the random part across hosts
   // sharing a folder; "wx" creates it exclusively, so a clash fails rather than overwrites.
-  const temporary = join(dirname(target), `.${basename(target)}.betabound-${process.pid}-${created}-${random}.tmp`);
+  // A long name is shortened in the temporary's, which must fit the folder's limit (255 bytes) too.
+  const name = basename(target);
+  const stem = Buffer.byteLength(name) > 180 ? `${name.slice(0, 48)}~` : name;
+  const temporary = join(dirname(target), `.${stem}.betabound-${process.pid}-${created}-${random}.tmp`);
   let fd: number;
   try {
     fd = ops.openSync(temporary, "wx", 0o666);
@@ -276,10 +368,15 @@ function replacingTarget(path: string, target: string, ops: FileOps): Result<Out
   let sinceFlush = 0;
   let flushing: Promise<unknown> | null = null;
   let flushFailed: unknown = null;
+  let closed = false;
+  const close = (): void => {
+    if (!closed) closeQuietly(ops, fd);
+    closed = true;
+  };
   const remove = (): void => {
     // A background flush still running keeps the descriptor until it is over.
-    if (flushing === null) closeQuietly(ops, fd);
-    else void flushing.then(() => closeQuietly(ops, fd));
+    if (flushing === null) close();
+    else void flushing.then(close);
     try {
       ops.unlinkSync(temporary);
     } catch {
@@ -301,28 +398,47 @@ function replacingTarget(path: string, target: string, ops: FileOps): Result<Out
       }),
     );
   };
+  let settled: Result<void, CliIssue> | null = null;
+  const settle = async (): Promise<Result<void, CliIssue>> => {
+    if (settled !== null) return settled;
+    done = true;
+    try {
+      // The descriptor stays open until a background flush is over (it runs on another thread).
+      if (flushing !== null) await flushing;
+      if (writer.failed !== null) throw writer.failed;
+      if (flushFailed !== null) throw flushFailed;
+      keepModeAndOwner(ops, fd, target);
+      ops.fsyncSync(fd);
+      closed = true;
+      ops.closeSync(fd);
+      settled = success(undefined);
+    } catch (error) {
+      remove();
+      settled = failure({ code: "write-failed", path, reason: fileErrorReason(error) });
+    }
+    return settled;
+  };
+  let renamed = false;
   return success({
     write,
+    settle,
     async commit() {
-      done = true;
+      const ready = await settle();
+      if (!ready.ok || renamed) return ready;
       try {
-        // The descriptor stays open until a background flush is over (it runs on another thread).
-        if (flushing !== null) await flushing;
-        if (writer.failed !== null) throw writer.failed;
-        if (flushFailed !== null) throw flushFailed;
-        keepModeAndOwner(ops, fd, target);
-        ops.fsyncSync(fd);
-        ops.closeSync(fd);
         ops.renameSync(temporary, target);
+        renamed = true;
         temporaries.delete(temporary);
         return success(undefined);
       } catch (error) {
         remove();
-        return failure({ code: "write-failed", path, reason: fileErrorReason(error) });
+        settled = failure({ code: "write-failed", path, reason: fileErrorReason(error) });
+        return settled;
       }
     },
     abort() {
-      if (!done) remove();
+      // Before the rename (settled or not), the temporary file goes; a failed settle removed it already.
+      if (!renamed && temporaries.has(temporary)) remove();
       done = true;
     },
   });
