@@ -20,6 +20,7 @@ export type { DetectedFrequency, FrequencyName } from "./values/frequency.js";
 export { decodeText } from "./decodeText.js";
 export { joinOnDates, type JoinedReturns } from "./table/joinOnDates.js";
 export { parseDecimal, isMissingToken } from "./values/numbers.js";
+export { EXTREME_LIMIT } from "./table/convert.js";
 export { compileDateFormat } from "./values/dateFormat.js";
 export { MAX_STAMP_ISO_BYTES, writeStampIso } from "./values/dateStamps.js";
 export { detectDelimiter } from "./dialect.js";

@@ -126,6 +126,8 @@ async function solveLoaded(
     );
   }
   const { solution: found, moments } = solved.value;
+  const beyond = options.uncertainty ? beyondSample(options, sample.low.length) : null;
+  if (beyond !== null) return failed(source, pair, [{ code: "option-beyond-sample", message: `${source}: ${beyond}` }]);
   const assessed = await uncertaintyFor(sample, found, options, context, moments, sharpeMemo);
   const input = describeInput(loaded, options);
   // The pricing section, and the return-implied landmark and its diagnostics as the test decides them.
@@ -172,4 +174,20 @@ function failed(
     status: "failed",
     messages,
   };
+}
+
+/**
+ * Why a fixed HAC lag truncation or bootstrap block length cannot be used on a sample of n rows, or
+ * null. From n on, a Bartlett kernel's bandwidth passes the sample (b = (lags + 1)/n > 1, beyond even
+ * fixed-b theory: docs/methods.md) and its weights tend to 1, where the long-run variance of OLS
+ * residuals is 0; a mean block of n rows or more draws rotations of the sample itself, whose
+ * statistics barely vary. Either would give intervals of almost no width, and verdicts drawn from them.
+ */
+function beyondSample(options: CommandOptions<"solve">, n: number): string | null {
+  if (options.hacLags !== undefined && options.hacLags >= n)
+    return `--hac-lags ${options.hacLags} is not below the sample's ${n} rows: give at most ${n - 1}, or leave it out for the automatic rule`;
+  const block = options.blockLength;
+  if (options.bootstrap > 0 && block !== "auto" && block >= n)
+    return `--block-length ${block} is not below the sample's ${n} rows: give a shorter mean block, or auto`;
+  return null;
 }

@@ -7,7 +7,7 @@
 import * as z from "zod/mini";
 import { minimumObservations, refusal } from "../core/parameters.js";
 import { failure, type Result, success } from "../core/result.js";
-import { closestName, inputRules } from "../input/index.js";
+import { closestName, EXTREME_LIMIT, inputRules, parseDecimal } from "../input/index.js";
 import type { Kind } from "./kinds.js";
 import { type CommandName, commandNames, type OptionKey, type OptionSpec, type OptionTable, optionTable } from "./table.js";
 
@@ -70,6 +70,16 @@ interface ReaderOptions {
   readonly allPairs?: readonly string[] | undefined;
   readonly idColumn?: string | undefined;
   readonly valueColumn?: string | undefined;
+  readonly rf?: string | undefined;
+  readonly units?: string | undefined;
+  readonly allowExtreme?: boolean | undefined;
+}
+
+/** A risk-free rate given as a number is within the returns' reach (input/table/convert.ts), as a column's would be. */
+function riskFreeInReach(o: ReaderOptions): boolean {
+  const rate = o.rf === undefined ? null : parseDecimal(o.rf);
+  if (rate === null || o.allowExtreme === true) return true;
+  return Math.abs(o.units === "percent" ? rate / 100 : rate) <= EXTREME_LIMIT;
 }
 
 /** Rules across options of the commands that read files. */
@@ -95,6 +105,10 @@ function readerRules(): Rule[] {
       path: ["allPairs"],
       message: "--all-pairs needs at least two different columns",
     }),
+    across<ReaderOptions>(riskFreeInReach, {
+      path: ["rf"],
+      message: `a risk-free rate as a number is a return per period, held to +-${EXTREME_LIMIT * 100}% as the files' returns are (in percent with --units percent); pass --allow-extreme if it is meant`,
+    }),
     across<ReaderOptions>(inputRules.longLayout.accept, {
       path: ["valueColumn"],
       message: refusal(inputRules.longLayout, {}),
@@ -115,6 +129,10 @@ const rulesAcross: { readonly [C in CommandName]: () => Rule[] } = {
     across<CommandOptions<"solve">>((o) => o.intervalSource !== "bootstrap" || o.bootstrap >= 2, {
       path: ["intervalSource"],
       message: "bootstrap standard errors need --bootstrap with at least 2 replicates",
+    }),
+    across<CommandOptions<"solve">>((o) => o.hacLags === undefined || o.hacKernel === "bartlett", {
+      path: ["hacLags"],
+      message: "a fixed lag truncation is the Bartlett kernel's: give --hac-lags with --hac-kernel bartlett (the default), or leave it out",
     }),
     across<CommandOptions<"solve">>((o) => !o.brief || o.format === "text", {
       path: ["brief"],

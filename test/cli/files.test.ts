@@ -34,6 +34,15 @@ describe("readInputBytes", () => {
     expect(rowKernelFor(read.value)).not.toBeNull();
   });
 
+  it("reads a device as a stream, stopping at the first chunk holding a NUL byte (/dev/zero ends at once)", async () => {
+    const read = await readInputBytes("/dev/zero");
+    if (!read.ok) throw new Error("read failed");
+    expect(read.value.length).toBeGreaterThan(0);
+    expect(read.value.length).toBeLessThanOrEqual(1 << 20);
+    const limited = await readInputBytes("/dev/urandom", 1000);
+    expect(limited.ok ? "read" : limited.issues.code).toBe("input-too-large");
+  });
+
   it("says which file could not be read, and why", async () => {
     const read = await readInputBytes(join(scratch, "missing.csv"));
     expect(read.ok).toBe(false);

@@ -110,6 +110,41 @@ describe("betabound solve (in process)", () => {
     expect(stderr()).toContain(expected);
   });
 
+  it("exits 1 for a fixed HAC lag truncation with a kernel other than Bartlett's (never 70)", async () => {
+    const { io, stderr } = fakeIo({ "m.csv": monthly });
+    const code = await run(["solve", "m.csv", ...books, "--hac-lags", "4", "--hac-kernel", "quadratic-spectral"], io);
+    expect(code).toBe(exitCodes.usage);
+    expect(stderr()).toMatch(/--hac-lags.*--hac-kernel bartlett/);
+  });
+
+  it("exits 1 for a risk-free number beyond a return's reach, as a column of it would be refused", async () => {
+    for (const [rf, units, code] of [
+      ["50", "decimal", exitCodes.usage],
+      ["-10.5", "decimal", exitCodes.usage],
+      ["50", "percent", exitCodes.ok],
+      ["10", "decimal", exitCodes.ok],
+    ] as const) {
+      const { io, stderr } = fakeIo({ "m.csv": monthly });
+      expect(await run(["solve", "m.csv", ...books, "--rf", rf, "--units", units, "--brief"], io), `${rf} ${units}`).toBe(code);
+      if (code === exitCodes.usage) expect(stderr()).toMatch(/--rf.*1000%/);
+    }
+  });
+
+  it("exits 2 when a fixed HAC lag truncation or bootstrap block is not below the sample's rows, naming the option and n", async () => {
+    const twelve = monthly.split("\n").slice(0, 13).join("\n");
+    for (const [flags, message] of [
+      [["--hac-lags", "12"], /--hac-lags 12 is not below the sample's 12 rows: give at most 11/],
+      [["--bootstrap", "50", "--block-length", "40"], /--block-length 40 is not below the sample's 12 rows/],
+    ] as const) {
+      const { io, stdout, stderr } = fakeIo({ "m.csv": twelve });
+      expect(await run(["solve", "m.csv", ...books, ...flags], io)).toBe(exitCodes.input);
+      expect(stderr()).toMatch(message);
+      expect(stdout()).toBe("");
+    }
+    const { io } = fakeIo({ "m.csv": twelve });
+    expect(await run(["solve", "m.csv", ...books, "--hac-lags", "11", "--brief"], io)).toBe(exitCodes.ok);
+  });
+
   it("exits 1 when --low or --high is missing", async () => {
     const { io, stderr } = fakeIo({ "m.csv": monthly });
     expect(await run(["solve", "m.csv", "--low", "Stillwater Low Vol"], io)).toBe(exitCodes.usage);

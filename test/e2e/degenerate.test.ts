@@ -262,10 +262,14 @@ const cases: Case[] = [
   option("solve", "--bootstrap", "2.5", 1),
   option("solve", "--block-length", "1", 0, ["--bootstrap", "50"]),
   option("solve", "--block-length", "0.999", 1, ["--bootstrap", "50"]),
-  option("solve", "--block-length", "100000000", 0, ["--bootstrap", "50"]),
+  // The table's largest values pass the option rules; on the example's 180 rows they are refused as
+  // the data's (a block or lag truncation as long as the sample gives intervals of no width).
+  { ...option("solve", "--block-length", "100000000", 2, ["--bootstrap", "50"]), says: "is not below the sample's 180 rows" },
+  option("solve", "--block-length", "179", 0, ["--bootstrap", "50"]),
   option("solve", "--block-length", "100000001", 1, ["--bootstrap", "50"]),
   option("solve", "--hac-lags", "0", 0),
-  option("solve", "--hac-lags", "100000", 0),
+  { ...option("solve", "--hac-lags", "100000", 2), says: "is not below the sample's 180 rows: give at most 179" },
+  option("solve", "--hac-lags", "179", 0),
   option("solve", "--hac-lags", "100001", 1),
   option("solve", "--hac-lags", "-1", 1),
   option("solve", "--seed", "9007199254740991", 0, ["--bootstrap", "20"]),

@@ -2,7 +2,7 @@
  * The CLI's reading of files and standard input, and what a path names (for refusing an output that
  * would land on an input). Writing is output.ts.
  */
-import { closeSync, fstatSync, openSync, readFileSync, readSync, statSync } from "node:fs";
+import { closeSync, createReadStream, fstatSync, openSync, readFileSync, readSync, statSync } from "node:fs";
 import { failure, success, type Result } from "../../core/result.js";
 import { largeInputBuffer, maximumInputBytes, readsThroughWindow } from "../../input/index.js";
 import type { PagedFile } from "../../jobs/index.js";
@@ -16,7 +16,11 @@ export async function readInputBytes(path: string, limit = maximumInputBytes): P
     if (path === "-") return await readStream(process.stdin, limit, name);
     // One synchronous read: for a large file this is much faster than the chunked asynchronous read,
     // and the CLI has nothing else to do meanwhile.
-    const size = statSync(path).size;
+    const stats = statSync(path);
+    // A device or FIFO (/dev/stdin, a named pipe, /dev/zero) has no size to check: it is read as a
+    // stream, as standard input is, so that the limit holds and a signal is heard meanwhile.
+    if (!stats.isFile()) return await readStream(createReadStream(path), limit, name);
+    const size = stats.size;
     if (size > limit) return failure({ code: "input-too-large", path: name, size, limit });
     // A large file is read straight into the memory the reader works in (src/input/engines/rowKernel.ts).
     const target = largeInputBuffer(size);
@@ -85,7 +89,11 @@ function readInto(path: string, bytes: Uint8Array): Uint8Array {
   }
 }
 
-/** Standard input whole, stopping (and refusing) as soon as it passes `limit` bytes. */
+/**
+ * Standard input (or a device, a FIFO) whole, stopping (and refusing) as soon as it passes `limit`
+ * bytes. A NUL byte ends the reading early: no CSV holds one, and the reader refuses the bytes up to
+ * it with the line and column (a binary stream, /dev/zero, is not read for gigabytes first).
+ */
 export async function readStream(stream: NodeJS.ReadableStream, limit: number, name: string): Promise<Result<Uint8Array, CliIssue>> {
   const chunks: Buffer[] = [];
   let size = 0;
@@ -94,6 +102,7 @@ export async function readStream(stream: NodeJS.ReadableStream, limit: number, n
     size += bytes.length;
     if (size > limit) return failure({ code: "input-too-large", path: name, size: null, limit });
     chunks.push(bytes);
+    if (bytes.includes(0)) break;
   }
   return success(Buffer.concat(chunks, size));
 }
