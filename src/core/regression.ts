@@ -8,7 +8,8 @@
  * se(alpha) = s sqrt(1/n + xbar^2 / Sxx); t = estimate / se; p two-sided from Student's t with
  * n - 2 degrees of freedom; R^2 = 1 - SSR / Syy (centred). `residualVariance` is SSR / (n - 1), the
  * sample variance of the residuals with the same divisor as the moments, so that it equals the
- * residual variance a structure implies (docs/methods.md §1.5).
+ * residual variance a structure implies (docs/methods.md §1.5). A residual sum of squares within
+ * rounding of 0 (an exact line) is 0, and the intercept within rounding of 0 with it.
  *
  * ## References
  * Greene, W. H., Econometric Analysis, ch. 3-4 (standard results); NIST StRD "Norris" for the check.
@@ -18,6 +19,13 @@ import { CHUNK } from "./moments.js";
 import { inChunks, seriesKernel } from "./numerics/seriesKernel.js";
 import { studentTTwoSidedP } from "./numerics/studentT.js";
 import type { LineFit } from "./types.js";
+
+/**
+ * Rounding's reach in units of the last place: a residual computed from data on an exact line is off
+ * by a few (two subtractions and a product, each rounded); 32 leaves room, and a real fit's residuals
+ * are larger by many orders of magnitude (R^2 would have to be 1 to 26 digits).
+ */
+const ROUNDING_ULPS = 32;
 
 /** Means and centred sums of squares and cross-products of (x, y). */
 export interface LineSums {
@@ -33,10 +41,18 @@ export interface LineSums {
  * The fit from centred sums and the residual sum of squares computed from the data (second pass), for
  * callers that already hold the sums (solve fits both books from one pass over the data).
  */
-export function lineFitFromSums(sums: LineSums, ssr: number): LineFit {
+export function lineFitFromSums(sums: LineSums, computedSsr: number): LineFit {
   const { n, xbar, ybar, sxx, sxy, syy } = sums;
   const beta = sxy / sxx;
-  const alpha = ybar - beta * xbar;
+  const fitted = ybar - beta * xbar;
+  // An exact line (y = a + b x to the last digits: one book a multiple of the other) leaves residuals
+  // of rounding alone; their sum of squares and the intercept's last digits are no evidence of
+  // anything, so they are 0 (standard errors 0, no t-statistic or p-value), never a "significant" 1e-18.
+  const exact = computedSsr <= (ROUNDING_ULPS * Number.EPSILON) ** 2 * (syy + beta * beta * sxx);
+  const ssr = exact ? 0 : computedSsr;
+  // The intercept's rounding scales with the data's size (their root mean square), not with the means.
+  const size = Math.sqrt(syy / n) + Math.abs(ybar) + Math.abs(beta) * (Math.sqrt(sxx / n) + Math.abs(xbar));
+  const alpha = exact && Math.abs(fitted) <= ROUNDING_ULPS * Number.EPSILON * size ? 0 : fitted;
   const s2 = ssr / (n - 2);
   const residualStdError = Math.sqrt(s2);
   const betaStdErr = residualStdError / Math.sqrt(sxx);
