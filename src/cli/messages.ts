@@ -13,6 +13,7 @@ export type CliIssue =
   | { readonly code: "output-is-input"; readonly option: string; readonly path: string; readonly input: string }
   | { readonly code: "outputs-clash"; readonly options: readonly [string, string]; readonly path: string }
   | { readonly code: "output-is-folder"; readonly option: string; readonly path: string }
+  | { readonly code: "too-many-files"; readonly reason: string }
   | { readonly code: "invalid-config"; readonly path: string; readonly at: string; readonly reason: string };
 
 export function describeCliIssue(issue: CliIssue): string {
@@ -33,6 +34,8 @@ export function describeCliIssue(issue: CliIssue): string {
       return `${issue.options[0]} and ${issue.options[1]} both name '${issue.path}': one would overwrite the other; give each output its own path`;
     case "output-is-folder":
       return `${issue.option} '${issue.path}' names a folder (it ends in '/', '.' or '..'), not a file; give the file's path`;
+    case "too-many-files":
+      return `${issue.reason}: most likely the process's limit of open files (drawing charts opens a few hundred modules); raise it (ulimit -n 1024) and run again; nothing was written and any existing file is unchanged`;
     case "invalid-config":
       return `config file '${issue.path}'${issue.at === "" ? "" : `, at '${issue.at}'`}: ${issue.reason}; fix the file (keys are the long option names in camelCase, plus "files")`;
   }

@@ -124,6 +124,26 @@ function spawnSyncTo(args: string[], stdout: number) {
   }
 }
 
+describe("a low limit of open files", () => {
+  it("drawing a chart under `ulimit -n 40` is exit 4 with what to do, never 70, and writes nothing", () => {
+    const here = fs.mkdtempSync(join(dir, "files-"));
+    const chart = join(here, "chart.svg");
+    fs.writeFileSync(chart, previous);
+    const quoted = [process.execPath, cli, "solve", monthly, ...books, "--chart", chart].map((a) => `'${a}'`).join(" ");
+    let code = 0;
+    let stderr = "";
+    try {
+      execFileSync("bash", ["-c", `ulimit -n 40 && exec ${quoted}`], { stdio: ["ignore", "pipe", "pipe"], encoding: "utf8", env });
+    } catch (error) {
+      const failed = error as { status: number | null; stderr: string };
+      [code, stderr] = [failed.status ?? -1, failed.stderr];
+    }
+    expect(code, stderr).toBe(4);
+    expect(stderr).toMatch(/limit of open files.*ulimit -n/);
+    expect(fs.readFileSync(chart, "utf8")).toBe(previous);
+  });
+});
+
 describe("a signal mid-run", () => {
   for (const [signal, number] of [
     ["SIGTERM", 15],

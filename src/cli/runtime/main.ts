@@ -4,6 +4,8 @@
  * with exit code 70 (set BETABOUND_DEBUG=1 for the stack). Signals and standard output's failures
  * end the run here, after removing every temporary file (output.ts).
  */
+import { existsSync } from "node:fs";
+import { dirname } from "node:path";
 import { constants } from "node:os";
 import type { VegaLoader } from "../../report/charts/loadVega.js";
 import { run } from "../program.js";
@@ -78,12 +80,32 @@ export async function main(argv: readonly string[], launch: Launch): Promise<voi
   try {
     code = await run(argv, processIo(launch));
   } catch (error) {
+    const filesOut = outOfFiles(error);
+    if (filesOut !== null) {
+      // The system's limit, not a bug: drawing a chart loads a few hundred modules. Nothing was written.
+      process.stderr.write(`error: ${describeCliIssue({ code: "too-many-files", reason: filesOut })}\n`);
+      exitOnceFlushed(exitCodes.output);
+      return;
+    }
     const detail = error instanceof Error ? error.message : String(error);
     process.stderr.write(`error: internal error (a bug in betabound, please report it with the command line): ${detail}\n`);
     if (process.env.BETABOUND_DEBUG === "1" && error instanceof Error) process.stderr.write(`${error.stack ?? ""}\n`);
     code = exitCodes.internal;
   }
   exitOnceFlushed(code);
+}
+
+/**
+ * Why, when `error` comes of the limit of open files: EMFILE or ENFILE, or a module "not found" that is
+ * there (Node's module loader reports a package it could not open for want of descriptors so; a stat
+ * needs no descriptor, where reading /proc/self/limits would).
+ */
+function outOfFiles(error: unknown): string | null {
+  const errno = (error as NodeJS.ErrnoException | null)?.code;
+  if (errno === "EMFILE" || errno === "ENFILE") return fileErrorReason(error);
+  if (errno !== "ERR_MODULE_NOT_FOUND" || !(error instanceof Error)) return null;
+  const missing = /Cannot find (?:package|module) '([^']+)'/.exec(error.message)?.[1];
+  return missing !== undefined && existsSync(dirname(missing)) ? `could not open the installed module '${dirname(missing)}'` : null;
 }
 
 /**
