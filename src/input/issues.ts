@@ -252,7 +252,7 @@ export function describeInputIssue(issue: InputIssue): string {
     case "input-too-large":
       return `${at}: the input is ${bytesOf(issue.size)} (${gib(issue.size)}), more than the ${bytesOf(issue.limit)} (2 GiB - 1 byte) that can be read; ${splitHint}`;
     case "invalid-option":
-      return `${at}: option ${issue.option}: ${issue.reason}`;
+      return issue.option === "columns" ? `${at}: ${issue.reason}` : `${at}: option ${issue.option}: ${issue.reason}`;
     case "similar-issues": {
       const { firstLine, lastLine } = issue;
       const lines =

@@ -88,11 +88,24 @@ export function validateOptions(options: ReadOptions): InputIssue[] {
   const seen = new Set<string>();
   for (const name of columns) {
     if (typeof name !== "string" || name.trim() === "") issues.push(invalid(source, "columns", "column names must be non-empty"));
-    else if (seen.has(name.trim())) issues.push(invalid(source, "columns", `${JSON.stringify(name)} is listed twice`));
+    else if (seen.has(name.trim()))
+      issues.push(
+        invalid(
+          source,
+          "columns",
+          `the column ${JSON.stringify(name)} is asked for twice (among the books, the risk-free rate, --portfolios and --index): name each column once`,
+        ),
+      );
     else seen.add(name.trim());
   }
   if (options.dateColumn !== undefined && seen.has(options.dateColumn.trim()) && options.idColumn === undefined) {
-    issues.push(invalid(source, "columns", `${JSON.stringify(options.dateColumn)} is the date column`));
+    issues.push(
+      invalid(
+        source,
+        "columns",
+        `the column ${JSON.stringify(options.dateColumn)} is asked for as a series and is also the date column: name the date column with --date (a file needs one: without a column of dates, the first column is taken as it)`,
+      ),
+    );
   }
   const { delimiter, block, periodsPerYear } = options;
   const check = <T>(option: string, value: T | undefined, rule: Rule<T>): void => {

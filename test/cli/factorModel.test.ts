@@ -91,7 +91,7 @@ describe("solve --portfolios", () => {
   it("leaves a column named twice to the input layer's refusal (exit 2, naming it)", async () => {
     const { code, stdout, stderr } = await solve({ "d.csv": dataset }, ["d.csv", ...books, "--portfolios", "P1,P2,P2", "--no-uncertainty"]);
     expect(code).toBe(exitCodes.input);
-    expect(stderr).toContain('"P2" is listed twice');
+    expect(stderr).toContain('the column "P2" is asked for twice');
     expect(stdout).toBe("");
   });
 

@@ -45,7 +45,12 @@ export function extractWide(
   }
   const [dateIndex, ...valueIndexes] = resolved as number[];
   if (valueIndexes.includes(dateIndex as number)) {
-    issues.add({ code: "invalid-option", source, option: "columns", reason: `${JSON.stringify(dateColumn)} is the date column` });
+    issues.add({
+      code: "invalid-option",
+      source,
+      option: "columns",
+      reason: `the column ${JSON.stringify(dateColumn)} is asked for as a series and is also the date column: name the date column with --date (a file needs one: without a column of dates, the first column is taken as it)`,
+    });
     return null;
   }
   const count = location.endRow - location.firstDataRow;
