@@ -53,6 +53,19 @@ const scenarios: Scenario[] = [
     periods: 2520,
     simulation: stress,
   },
+  // Persistent noise in a short sample: each book's noise AR(1), the factor iid.
+  ...[0, 0.5, 0.9].map((noiseAr) => ({
+    name: `monthly, truth inside the set, noise AR(1) ${noiseAr}, n = 120`,
+    structure: { weight: 0.5, factorVol: 0.04, factorMean: 0.005, lowBeta: 0.7, lowNoiseVol: 0.01, highNoiseVol: 0.015 },
+    periods: 120,
+    simulation: { noiseAr },
+  })),
+  {
+    name: "monthly, upper end, noise AR(1) 0.9, n = 687",
+    structure: { ...monthly, lowBeta: 0.8, lowNoiseVol: 0, highNoiseVol: 0.03 },
+    periods: 687,
+    simulation: { noiseAr: 0.9 },
+  },
   {
     name: "power: monthly, upper end, extra low alpha 0.002 a month",
     structure: { ...monthly, lowBeta: 0.8, lowNoiseVol: 0, highNoiseVol: 0.03 },
