@@ -105,10 +105,6 @@ function readerRules(): Rule[] {
       path: ["allPairs"],
       message: "--all-pairs needs at least two different columns",
     }),
-    across<ReaderOptions>((o) => o.low === undefined || o.low !== o.high, {
-      path: ["high"],
-      message: "--low and --high name the same column: the books must be two different columns",
-    }),
     across<ReaderOptions>(riskFreeInReach, {
       path: ["rf"],
       message: `a risk-free rate as a number is a return per period, held to +-${EXTREME_LIMIT * 100}% as the files' returns are (in percent with --units percent); pass --allow-extreme if it is meant`,
