@@ -35,7 +35,7 @@ export function describeCliIssue(issue: CliIssue): string {
     case "output-is-folder":
       return `${issue.option} '${issue.path}' names a folder (it ends in '/', '.' or '..'), not a file; give the file's path`;
     case "too-many-files":
-      return `${issue.reason}: most likely the process's limit of open files (drawing charts opens a few hundred modules); raise it (ulimit -n 1024) and run again; nothing was written and any existing file is unchanged`;
+      return `${issue.reason}: most likely the process's limit of open files (drawing charts opens a few hundred modules); raise it (ulimit -n 1024) and run again; no file was replaced`;
     case "invalid-config":
       return `config file '${issue.path}'${issue.at === "" ? "" : `, at '${issue.at}'`}: ${issue.reason}; fix the file (keys are the long option names in camelCase, plus "files")`;
   }

@@ -23,7 +23,7 @@ import type { LineFit } from "./types.js";
 /**
  * Rounding's reach in units of the last place: a residual computed from data on an exact line is off
  * by a few (two subtractions and a product, each rounded); 32 leaves room, and a real fit's residuals
- * are larger by many orders of magnitude (R^2 would have to be 1 to 26 digits).
+ * are larger by many orders of magnitude (R^2 would have to be 1 to about 28 digits).
  */
 const ROUNDING_ULPS = 32;
 
@@ -48,7 +48,9 @@ export function lineFitFromSums(sums: LineSums, computedSsr: number): LineFit {
   // An exact line (y = a + b x to the last digits: one book a multiple of the other) leaves residuals
   // of rounding alone; their sum of squares and the intercept's last digits are no evidence of
   // anything, so they are 0 (standard errors 0, no t-statistic or p-value), never a "significant" 1e-18.
-  const exact = computedSsr <= (ROUNDING_ULPS * Number.EPSILON) ** 2 * (syy + beta * beta * sxx);
+  // Rounding scales with the raw values (their squares' sums), not only with their spread.
+  const raw = syy + n * ybar * ybar + beta * beta * (sxx + n * xbar * xbar);
+  const exact = computedSsr <= (ROUNDING_ULPS * Number.EPSILON) ** 2 * raw;
   const ssr = exact ? 0 : computedSsr;
   // The intercept's rounding scales with the data's size (their root mean square), not with the means.
   const size = Math.sqrt(syy / n) + Math.abs(ybar) + Math.abs(beta) * (Math.sqrt(sxx / n) + Math.abs(xbar));

@@ -236,6 +236,25 @@ describe("paths", () => {
     expect(fs.readdirSync(dir)).toEqual([]);
   });
 
+  it("an existing folder is refused at opening, before anything is written or renamed", () => {
+    const { dir } = folderWith(null);
+    fs.mkdirSync(join(dir, "taken"));
+    const opened = openOutput(join(dir, "taken"), noStdout);
+    expect(opened.ok).toBe(false);
+    if (!opened.ok) expect(opened.issues).toMatchObject({ code: "write-failed", reason: "it is a folder, not a file" });
+    expect(fs.readdirSync(dir)).toEqual(["taken"]);
+  });
+
+  it("a regular file under /dev (/dev/shm) is replaced as any other, not appended to", async (context) => {
+    if (!fs.existsSync("/dev/shm")) context.skip();
+    const path = join(fs.mkdtempSync("/dev/shm/betabound-"), "out.json");
+    fs.writeFileSync(path, "previous\n");
+    expect(resolveTarget(path).special).toBe(false);
+    expect((await writeAll(path, ["new\n"])).ok).toBe(true);
+    expect(fs.readFileSync(path, "utf8")).toBe("new\n");
+    fs.rmSync(join(path, ".."), { recursive: true });
+  });
+
   it("a link that points to itself is refused, not replaced by a file", () => {
     const { dir } = folderWith(null);
     const loop = join(dir, "loop.csv");
@@ -272,7 +291,7 @@ describe("paths", () => {
 });
 
 describe("standard output redirected to a regular file", () => {
-  it("is written through its descriptor, a short write completed and a full disk reported (not dropped)", async () => {
+  it("is written through its descriptor, a full disk reported (not dropped)", async () => {
     const { dir } = folderWith(null);
     const fd = fs.openSync(join(dir, "redirected.json"), "w");
     try {
@@ -291,6 +310,25 @@ describe("standard output redirected to a regular file", () => {
     } finally {
       fs.closeSync(fd);
     }
+  });
+
+  it("completes short writes on the descriptor (a write that takes fewer bytes than given)", async () => {
+    const { dir } = folderWith(null);
+    const fd = fs.openSync(join(dir, "short.json"), "w");
+    const threeAtATime: FileOps = {
+      ...fs,
+      writeSync: ((f: number, bytes: Uint8Array, offset: number, length: number) =>
+        fs.writeSync(f, bytes, offset, Math.min(3, length))) as FileOps["writeSync"],
+    };
+    try {
+      const opened = openOutput(undefined, { write: () => true, once: () => undefined, fd }, threeAtATime);
+      if (!opened.ok) throw new Error("open failed");
+      await opened.value.write("a text longer than three bytes\n");
+      expect((await opened.value.commit()).ok).toBe(true);
+    } finally {
+      fs.closeSync(fd);
+    }
+    expect(fs.readFileSync(join(dir, "short.json"), "utf8")).toBe("a text longer than three bytes\n");
   });
 
   it("a folder there is refused", () => {

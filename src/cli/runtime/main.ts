@@ -5,7 +5,7 @@
  * end the run here, after removing every temporary file (output.ts).
  */
 import { existsSync } from "node:fs";
-import { dirname } from "node:path";
+import { dirname, isAbsolute, join } from "node:path";
 import { constants } from "node:os";
 import type { VegaLoader } from "../../report/charts/loadVega.js";
 import { run } from "../program.js";
@@ -104,8 +104,11 @@ function outOfFiles(error: unknown): string | null {
   const errno = (error as NodeJS.ErrnoException | null)?.code;
   if (errno === "EMFILE" || errno === "ENFILE") return fileErrorReason(error);
   if (errno !== "ERR_MODULE_NOT_FOUND" || !(error instanceof Error)) return null;
+  // Under the limit the loader names a file of a package that is installed (its package.json there);
+  // a package that is not installed at all ("Cannot find package 'vega'") is a broken install: a bug.
   const missing = /Cannot find (?:package|module) '([^']+)'/.exec(error.message)?.[1];
-  return missing !== undefined && existsSync(dirname(missing)) ? `could not open the installed module '${dirname(missing)}'` : null;
+  const folder = missing === undefined || !isAbsolute(missing) ? null : dirname(missing);
+  return folder !== null && existsSync(join(folder, "package.json")) ? `could not open the installed module '${folder}'` : null;
 }
 
 /**

@@ -7,8 +7,9 @@
  *   temporary file is removed and the previous file is left as it was. A replaced file keeps its mode
  *   (and, where the process may set it, its owner). A symbolic link is followed: its target is
  *   replaced and the link kept.
- * - a special file (character device, FIFO, socket, a path under /dev, a process's descriptor such
- *   as /proc/self/fd/1) cannot be replaced: it is opened and written directly, every write checked.
+ * - a special file (character device, FIFO, socket, a process's descriptor by name such as
+ *   /dev/stdout or /proc/self/fd/1) cannot be replaced: it is opened and written directly, every
+ *   write checked. A folder is refused before anything is written.
  *   A path naming a folder (`out.csv/`) is refused; links and ".." resolve as the system resolves them.
  * - standard output is written with back-pressure (a slow reader never makes memory grow); its
  *   errors are handled once, in main.ts (a closed pipe ends the run quietly, a full disk is exit 4).
@@ -106,6 +107,7 @@ export function openOutput(path: string | undefined, stdout: OutputStream, ops: 
   const target = resolveTarget(path, ops);
   if (target.special) return directTarget(path, ops);
   if (isLink(target.path, ops)) return failure({ code: "write-failed", path, reason: "too many levels of symbolic links" });
+  if (isFolder(target.path, ops)) return failure({ code: "write-failed", path, reason: "it is a folder, not a file" });
   return replacingTarget(path, target.path, ops);
 }
 
@@ -153,10 +155,8 @@ export function namesFolder(path: string): boolean {
   return path === "" || path.endsWith("/") || /(^|\/)\.\.?$/.test(path);
 }
 
-/** The path prefixes of devices and of a process's descriptors (/dev/stdout, /proc/self/fd/1): never replaced by a rename. */
-const deviceLike = /^\/dev\/|^\/proc\/[^/]+\/fd\//;
-/** Resolved paths under these folders are special files too. */
-const specialFolders = ["/dev/", "/proc/"];
+/** A process's descriptors by name (/dev/stdout, /dev/fd/1, /proc/self/fd/1): written in place, never replaced. */
+const descriptorAlias = /^\/dev\/(?:std(?:in|out|err)|fd\/)|^\/proc\/[^/]+\/fd\//;
 
 /**
  * The file a write to `path` lands in (links followed as the system follows them: a link's ".." is
@@ -164,9 +164,10 @@ const specialFolders = ["/dev/", "/proc/"];
  */
 export function resolveTarget(path: string, ops: FileOps = fs): { path: string; special: boolean } {
   const absolute = resolve(path);
-  if (deviceLike.test(absolute)) return { path: absolute, special: true };
+  if (descriptorAlias.test(absolute)) return { path: absolute, special: true };
+  // Anything else by what it is: a device, FIFO or socket is special, a regular file (even under
+  // /dev/shm or reached through /proc/self/cwd) is replaced.
   const real = physicalPath(path, ops);
-  if (specialFolders.some((folder) => real.startsWith(folder))) return { path: real, special: true };
   try {
     const stats = ops.statSync(real);
     return { path: real, special: !stats.isFile() && !stats.isDirectory() };
@@ -216,6 +217,15 @@ function danglingLinkTarget(path: string, ops: FileOps, realpath: (path: string)
     current = inRealFolder(link.startsWith("/") ? link : `${dirname(current)}/${link}`, realpath);
   }
   return current;
+}
+
+/** True when `path` is a folder (links followed). */
+function isFolder(path: string, ops: FileOps): boolean {
+  try {
+    return ops.statSync(path).isDirectory();
+  } catch {
+    return false;
+  }
 }
 
 /** True when `path` is a symbolic link (one left unresolved: a loop). */
@@ -325,12 +335,16 @@ function directTarget(path: string, ops: FileOps): Result<OutputTarget, CliIssue
   const settle = async (): Promise<Result<void, CliIssue>> => {
     if (settled !== null) return settled;
     open = false;
+    if (writer.failed !== null) {
+      closeQuietly(ops, fd);
+      settled = failure({ code: "write-failed", path, reason: fileErrorReason(writer.failed) });
+      return settled;
+    }
     try {
-      if (writer.failed !== null) throw writer.failed;
+      // Closed once: a close that fails has released the descriptor all the same (its number may be reused).
       ops.closeSync(fd);
       settled = success(undefined);
     } catch (error) {
-      closeQuietly(ops, fd);
       settled = failure({ code: "write-failed", path, reason: fileErrorReason(error) });
     }
     return settled;
