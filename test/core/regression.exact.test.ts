@@ -3,9 +3,11 @@
  * rounding alone. They are no evidence of an intercept: the fit reports 0 for the residual sum of
  * squares and the intercept, standard errors 0 and no t-statistic or p-value (a p-value of 0.04 on an
  * intercept of 4e-18 was reported before). A line that is nearly exact but not to rounding keeps its
- * residuals and its tests.
+ * residuals and its tests. The pricing test on such books is no test, as its standard errors are
+ * rounding too (docs/methods.md §1.5, §30).
  */
 import { describe, expect, it } from "vitest";
+import { assessPricing } from "../../src/core/pricing/assessPricing.js";
 import { fitLine } from "../../src/core/statistics.js";
 import { ok } from "./helpers.js";
 
@@ -51,5 +53,17 @@ describe("an exact line", () => {
     expect(fit.residualSumOfSquares).toBeGreaterThan(0);
     expect(fit.alphaTStat).not.toBeNull();
     expect(fit.alphaPValue).not.toBeNull();
+  });
+});
+
+describe("the pricing test on an exact line", () => {
+  it("one book an exact multiple of the other: no test (its standard errors are rounding), as with an exact 0", () => {
+    const more = [...x, 0.0177, -0.0114, -0.0909, 0.0407, -0.0068, -0.0173, 0.0131, 0.0119, 0.0066, -0.0206, 0.0107, 0.0051];
+    const pricing = assessPricing({ low: more, high: more.map((v) => 2 * v) }, { weight: 0.5, confidence: 0.95, longRun: "hac", hac: {} });
+    expect(pricing).not.toBeNull();
+    expect(pricing?.test).toBeNull();
+    // A real pair of books is tested.
+    const other = more.map((v, i) => 1.3 * v + (i % 3 === 0 ? 0.004 : -0.002));
+    expect(assessPricing({ low: more, high: other }, { weight: 0.5, confidence: 0.95, longRun: "hac", hac: {} })?.test).not.toBeNull();
   });
 });

@@ -161,7 +161,11 @@ function pricingOf(sample: ReturnSample, options: PricingOptions): Pricing | nul
 
   const d: [number, number] = [mx - lower * lambda, upper * lambda - mx];
   const seD: [number, number] = [se(2), se(3)];
-  const test = seD[0] > 0 && seD[1] > 0 ? momentInequalityTest(d, seD, variance(2, 3) / (seD[0] * seD[1]), n, confidence) : null;
+  // Standard errors of rounding alone (one book an exact multiple of the other: d1 and d2 are 0 up to
+  // the last digits) are an exact fit too: no test, as with an exact 0 (regression.ts, the same margin).
+  const rounding = 32 * Number.EPSILON * (Math.abs(mx) + Math.abs(lower * lambda) + Math.abs(upper * lambda) + Math.sqrt(Math.abs(vx)));
+  const test =
+    seD[0] > rounding && seD[1] > rounding ? momentInequalityTest(d, seD, variance(2, 3) / (seD[0] * seD[1]), n, confidence) : null;
 
   const observed = mx - beta * lambda;
   const decomposition = (factor: number, alphaSe: number | undefined): AlphaDecomposition => {
