@@ -2,12 +2,8 @@
 import { type CliIssue, describeCliIssue } from "./messages.js";
 import { exitCodes, type ExitCode } from "./runtime/exitCodes.js";
 import { type CliIo, type OutputText, writeOutput } from "./runtime/io.js";
-import { namesFolder } from "./runtime/output.js";
 
 export async function emit(io: CliIo, output: string | undefined, text: OutputText): Promise<ExitCode> {
-  // As outputClash refuses it for the commands that read files (exit 1): `out.csv/` names a folder.
-  if (output !== undefined && namesFolder(output))
-    return usage(io, describeCliIssue({ code: "output-is-folder", option: "--output", path: output }));
   const written = await writeOutput(io, output, text);
   return written.ok ? exitCodes.ok : outputFailed(io, written.issues);
 }

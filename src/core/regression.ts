@@ -25,7 +25,7 @@ import type { LineFit } from "./types.js";
  * by a few (two subtractions and a product, each rounded); 32 leaves room, and a real fit's residuals
  * are larger by many orders of magnitude (R^2 would have to be 1 to about 28 digits).
  */
-const ROUNDING_ULPS = 32;
+export const ROUNDING_ULPS = 32;
 
 /** Means and centred sums of squares and cross-products of (x, y). */
 export interface LineSums {

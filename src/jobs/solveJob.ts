@@ -9,7 +9,7 @@ import { failure, type Result, success } from "../core/result.js";
 import { SharpeMemo } from "../core/inference/sharpeMemo.js";
 import { solveKeepingMoments } from "../core/solve.js";
 import { inputWarningDiagnostic } from "../input/index.js";
-import { type CommandOptions, type CommandOptionsInput, type OptionIssue, parseOptions } from "../options/index.js";
+import { type CommandOptions, type CommandOptionsInput, flagOf, type OptionIssue, parseOptions } from "../options/index.js";
 import { assertJsonSafe, toSolveOutput } from "../report/json.js";
 import { failureOutput, type SolveRecord } from "../report/records.js";
 import type { SolveReport } from "../report/types.js";
@@ -185,9 +185,9 @@ function failed(
  */
 function beyondSample(options: CommandOptions<"solve">, n: number): string | null {
   if (options.hacLags !== undefined && options.hacLags >= n)
-    return `--hac-lags ${options.hacLags} is not below the sample's ${n} rows: give at most ${n - 1}, or leave it out for the automatic rule`;
+    return `${flagOf("hacLags")} ${options.hacLags} is not below the sample's ${n} rows: give at most ${n - 1}, or leave it out for the automatic rule`;
   const block = options.blockLength;
   if (options.bootstrap > 0 && block !== "auto" && block >= n)
-    return `--block-length ${block} is not below the sample's ${n} rows: give a shorter mean block, or auto`;
+    return `${flagOf("blockLength")} ${block} is not below the sample's ${n} rows: give a shorter mean block, or auto`;
   return null;
 }

@@ -268,7 +268,7 @@ describe("paths", () => {
   it("a regular file reached through /proc/self/cwd is the file itself, replaced as any other", () => {
     const { dir } = folderWith(null);
     const relative = relativePath(process.cwd(), join(dir, "x.csv"));
-    expect(resolveTarget(`/proc/self/cwd/${relative}`)).toEqual({ path: fs.realpathSync(dir) + "/x.csv", special: false });
+    expect(resolveTarget(`/proc/self/cwd/${relative}`)).toEqual({ path: `${fs.realpathSync(dir)}/x.csv`, special: false, folder: false });
   });
 
   it("a name of 240 characters is written (its temporary file's name is shortened to fit)", async () => {

@@ -114,6 +114,25 @@ describe("an output that would land on an input or another output is refused (ex
       () => ["roll", "good.csv", ...books, "--window", "24", "--chart", "good.csv//"],
       /names a folder/,
     ],
+    [
+      "simulate --output names a folder (no input, the same refusal)",
+      () => [
+        "simulate",
+        "--low-beta",
+        "0.7",
+        "--factor-vol",
+        "0.04",
+        "--low-noise-vol",
+        "0.01",
+        "--high-noise-vol",
+        "0.02",
+        "--periods",
+        "12",
+        "--output",
+        "out.txt/",
+      ],
+      /--output 'out.txt\/' names a folder/,
+    ],
   ];
   for (const [name, args, message] of cases) {
     it(name, () => {

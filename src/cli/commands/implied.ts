@@ -8,13 +8,17 @@ import type { CommandOptionsInput } from "../../options/index.js";
 import { renderImplied } from "../../report/impliedReport.js";
 import { addTableOptions } from "../commandOptions.js";
 import { emit, usage, wantsColour } from "../emit.js";
-import { describeOptionIssue } from "../messages.js";
+import { describeCliIssue, describeOptionIssue } from "../messages.js";
+import { outputClash } from "../outputPaths.js";
 import { type ExitCode, exitCodes } from "../runtime/exitCodes.js";
 import type { CliIo } from "../runtime/io.js";
 
 export async function runImplied(flags: Readonly<Record<string, unknown>>, io: CliIo): Promise<ExitCode> {
   const job = impliedJob(flags as CommandOptionsInput<"implied">);
   if (!job.ok) return usage(io, describeOptionIssue(job.issues));
+  // No input to protect, but an output that names a folder is refused as solve and roll refuse it (exit 1).
+  const clash = outputClash(io, [], job.value.options);
+  if (clash !== null) return usage(io, describeCliIssue(clash));
   const { options, report, status } = job.value;
   const text = renderImplied(report, options.format, { colour: wantsColour(io, options.output, options.format) });
   const written = await emit(io, options.output, text);

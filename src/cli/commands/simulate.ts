@@ -9,13 +9,17 @@ import type { CommandOptionsInput } from "../../options/index.js";
 import { sampleCsv, sampleJsonLines } from "../../report/simulatedSample.js";
 import { addTableOptions } from "../commandOptions.js";
 import { emit, usage } from "../emit.js";
-import { describeOptionIssue } from "../messages.js";
+import { describeCliIssue, describeOptionIssue } from "../messages.js";
+import { outputClash } from "../outputPaths.js";
 import type { ExitCode } from "../runtime/exitCodes.js";
 import type { CliIo } from "../runtime/io.js";
 
 export async function runSimulate(flags: Readonly<Record<string, unknown>>, io: CliIo): Promise<ExitCode> {
   const job = simulateJob(flags as CommandOptionsInput<"simulate">);
   if (!job.ok) return usage(io, describeOptionIssue(job.issues));
+  // No input to protect, but an output that names a folder is refused as solve and roll refuse it (exit 1).
+  const clash = outputClash(io, [], job.value.options);
+  if (clash !== null) return usage(io, describeCliIssue(clash));
   const { options, sample } = job.value;
   const text = options.format === "csv" ? sampleCsv(sample, options.digits) : sampleJsonLines(sample, options.digits);
   return emit(io, options.output, text);

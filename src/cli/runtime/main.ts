@@ -82,7 +82,7 @@ export async function main(argv: readonly string[], launch: Launch): Promise<voi
   } catch (error) {
     const filesOut = outOfFiles(error);
     if (filesOut !== null) {
-      // The system's limit, not a bug: drawing a chart loads a few hundred modules. Nothing was written.
+      // The system's limit, not a bug: drawing a chart loads a few hundred modules. No file was replaced.
       process.stderr.write(`error: ${describeCliIssue({ code: "too-many-files", reason: filesOut })}\n`);
       exitOnceFlushed(exitCodes.output);
       return;

@@ -9,8 +9,8 @@
  *   replaced and the link kept.
  * - a special file (character device, FIFO, socket, a process's descriptor by name such as
  *   /dev/stdout or /proc/self/fd/1) cannot be replaced: it is opened and written directly, every
- *   write checked. A folder is refused before anything is written.
- *   A path naming a folder (`out.csv/`) is refused; links and ".." resolve as the system resolves them.
+ *   write checked. A folder, or a path naming one (`out.csv/`), is refused before anything is
+ *   written; links and ".." resolve as the system resolves them.
  * - standard output is written with back-pressure (a slow reader never makes memory grow); its
  *   errors are handled once, in main.ts (a closed pipe ends the run quietly, a full disk is exit 4).
  *   Redirected to a regular file, it is written through its descriptor with every write checked.
@@ -106,8 +106,8 @@ export function openOutput(path: string | undefined, stdout: OutputStream, ops: 
   if (namesFolder(path)) return failure({ code: "write-failed", path, reason: "the path names a folder, not a file" });
   const target = resolveTarget(path, ops);
   if (target.special) return directTarget(path, ops);
+  if (target.folder) return failure({ code: "write-failed", path, reason: "it is a folder, not a file" });
   if (isLink(target.path, ops)) return failure({ code: "write-failed", path, reason: "too many levels of symbolic links" });
-  if (isFolder(target.path, ops)) return failure({ code: "write-failed", path, reason: "it is a folder, not a file" });
   return replacingTarget(path, target.path, ops);
 }
 
@@ -160,19 +160,19 @@ const descriptorAlias = /^\/dev\/(?:std(?:in|out|err)|fd\/)|^\/proc\/[^/]+\/fd\/
 
 /**
  * The file a write to `path` lands in (links followed as the system follows them: a link's ".." is
- * its target's parent, not the link's), and whether it must be written in place.
+ * its target's parent, not the link's), whether it must be written in place, and whether it is a folder.
  */
-export function resolveTarget(path: string, ops: FileOps = fs): { path: string; special: boolean } {
+export function resolveTarget(path: string, ops: FileOps = fs): { path: string; special: boolean; folder: boolean } {
   const absolute = resolve(path);
-  if (descriptorAlias.test(absolute)) return { path: absolute, special: true };
+  if (descriptorAlias.test(absolute)) return { path: absolute, special: true, folder: false };
   // Anything else by what it is: a device, FIFO or socket is special, a regular file (even under
   // /dev/shm or reached through /proc/self/cwd) is replaced.
   const real = physicalPath(path, ops);
   try {
     const stats = ops.statSync(real);
-    return { path: real, special: !stats.isFile() && !stats.isDirectory() };
+    return { path: real, special: !stats.isFile() && !stats.isDirectory(), folder: stats.isDirectory() };
   } catch {
-    return { path: real, special: false };
+    return { path: real, special: false, folder: false };
   }
 }
 
@@ -217,15 +217,6 @@ function danglingLinkTarget(path: string, ops: FileOps, realpath: (path: string)
     current = inRealFolder(link.startsWith("/") ? link : `${dirname(current)}/${link}`, realpath);
   }
   return current;
-}
-
-/** True when `path` is a folder (links followed). */
-function isFolder(path: string, ops: FileOps): boolean {
-  try {
-    return ops.statSync(path).isDirectory();
-  } catch {
-    return false;
-  }
 }
 
 /** True when `path` is a symbolic link (one left unresolved: a loop). */

@@ -13,6 +13,7 @@
  * Numbers are per period in the data's units; computed on the data scaled by a power of two.
  */
 
+import { ROUNDING_ULPS } from "../regression.js";
 import { excessReturnScale } from "../inference/bootstrap/replicates.js";
 import { boundGradients } from "../inference/boundsDelta.js";
 import type { ColumnPairs } from "../inference/hac/bartlettWindows.js";
@@ -163,7 +164,8 @@ function pricingOf(sample: ReturnSample, options: PricingOptions): Pricing | nul
   const seD: [number, number] = [se(2), se(3)];
   // Standard errors of rounding alone (one book an exact multiple of the other: d1 and d2 are 0 up to
   // the last digits) are an exact fit too: no test, as with an exact 0 (regression.ts, the same margin).
-  const rounding = 32 * Number.EPSILON * (Math.abs(mx) + Math.abs(lower * lambda) + Math.abs(upper * lambda) + Math.sqrt(Math.abs(vx)));
+  const rounding =
+    ROUNDING_ULPS * Number.EPSILON * (Math.abs(mx) + Math.abs(lower * lambda) + Math.abs(upper * lambda) + Math.sqrt(Math.abs(vx)));
   const test =
     seD[0] > rounding && seD[1] > rounding ? momentInequalityTest(d, seD, variance(2, 3) / (seD[0] * seD[1]), n, confidence) : null;
 
